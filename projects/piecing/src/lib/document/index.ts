@@ -1,0 +1,2 @@
+export * from './pattern-schema';
+export * from './parse-pattern';

@@ -1,0 +1,198 @@
+import { z } from 'zod';
+
+/**
+ * The pattern document, format version 1.
+ *
+ * Conventions (see docs/pattern-format.md):
+ * - every length is in inches (`…In`), whatever unit the user prefers to see;
+ * - coordinates are in the pattern's drawing plane, x to the right, y **down** (as on screen and in a
+ *   PDF page drawn top-down), origin at the top-left of the drawing area;
+ * - angles are in degrees (`…Deg`), measured from +x towards +y (clockwise on screen);
+ * - sections are drawn as seen from the front of the block; print sets mirror them.
+ */
+export const FORMAT_VERSION = 1 as const;
+
+/** Largest coordinate or length accepted, in inches: no quilt section is larger. */
+export const MAX_SIZE_IN = 200;
+
+const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
+const coordinate = finite.refine((v) => Math.abs(v) <= MAX_SIZE_IN, {
+  message: `must be within ±${MAX_SIZE_IN} in.`,
+});
+const positiveLength = finite
+  .refine((v) => v > 0, { message: 'must be greater than zero' })
+  .refine((v) => v <= MAX_SIZE_IN, { message: `must be at most ${MAX_SIZE_IN} in.` });
+const id = z
+  .string()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z0-9_-]+$/, 'must be letters, digits, "-" or "_"');
+
+export const pointSchema = z.object({ x: coordinate, y: coordinate });
+
+export const fabricSchema = z.object({
+  id,
+  name: z.string().min(1).max(80),
+  /** Display colour, `#rrggbb`. */
+  colour: z.string().regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #7a3b69'),
+  /** Usable width of fabric after the selvages are trimmed (common practice: 40–42 in.). */
+  usableWofIn: positiveLength.default(42),
+});
+
+export const straightGeometrySchema = z.object({
+  kind: z.literal('straight'),
+  /** Outline vertices in order (either winding); the ring is closed implicitly. */
+  vertices: z.array(pointSchema).min(3).max(2000),
+});
+
+export const arcGeometrySchema = z
+  .object({
+    kind: z.literal('arc'),
+    centre: pointSchema,
+    innerRadiusIn: positiveLength,
+    outerRadiusIn: positiveLength,
+    startAngleDeg: finite,
+    sweepDeg: finite.refine((v) => v > 0 && v <= 360, { message: 'must be more than 0° and at most 360°' }),
+  })
+  .refine((g) => g.innerRadiusIn < g.outerRadiusIn, {
+    message: 'inner radius must be smaller than outer radius',
+    path: ['innerRadiusIn'],
+  });
+
+export const wedgeGeometrySchema = z.object({
+  kind: z.literal('wedge'),
+  centre: pointSchema,
+  radiusIn: positiveLength,
+  startAngleDeg: finite,
+  sweepDeg: finite.refine((v) => v > 0 && v <= 360, { message: 'must be more than 0° and at most 360°' }),
+});
+
+export const sectionGeometrySchema = z.discriminatedUnion('kind', [
+  straightGeometrySchema,
+  arcGeometrySchema,
+  wedgeGeometrySchema,
+]);
+
+/** A straight seam line that splits the patch it crosses. Seams apply in document order. */
+export const seamSchema = z.object({
+  id,
+  a: pointSchema,
+  b: pointSchema,
+});
+
+export const stripSchema = z.object({
+  fabricId: id,
+  finishedWidthIn: positiveLength,
+});
+
+/**
+ * A patch filled with a pre-sewn strip set. Strips lie side by side, parallel to `axisAngleDeg`;
+ * the set is centred on the patch's centroid, moved across the strips by `offsetIn`.
+ */
+export const stripSetSchema = z.object({
+  id,
+  name: z.string().max(80).optional(),
+  strips: z.array(stripSchema).min(2).max(30),
+  axisAngleDeg: finite.default(0),
+  offsetIn: finite.default(0),
+});
+
+/**
+ * What the designer says about one derived patch. Derived patches are matched to these by `anchor`,
+ * a point inside the patch, so assignments survive re-ordering of seams.
+ */
+export const patchSchema = z
+  .object({
+    number: z.number().int().min(1).max(999),
+    anchor: pointSchema,
+    fabricId: id.optional(),
+    stripSet: stripSetSchema.optional(),
+  });
+
+export const ringRepeatSchema = z.object({
+  /** Number of copies around the circle, the original included. */
+  count: z.number().int().min(2).max(360),
+  centre: pointSchema,
+});
+
+export const sectionSchema = z.object({
+  id,
+  /** Section letter(s) as quilters write them: A, B … Z, AA … */
+  label: z.string().regex(/^[A-Z]{1,3}$/, 'must be one to three capital letters'),
+  geometry: sectionGeometrySchema,
+  seams: z.array(seamSchema).max(500).default([]),
+  patches: z.array(patchSchema).max(500).default([]),
+  ringRepeat: ringRepeatSchema.optional(),
+  /** Free note for the quilter (pressing direction, tips). */
+  note: z.string().max(500).optional(),
+});
+
+export const referenceImageSchema = z.object({
+  uploadId: id,
+  origin: pointSchema,
+  widthIn: positiveLength,
+  opacity: z.number().min(0).max(1).default(0.4),
+});
+
+export const patternDocumentSchema = z
+  .object({
+    formatVersion: z.literal(FORMAT_VERSION),
+    title: z.string().trim().min(1).max(120),
+    /** The unit the user prefers to see; the document itself is always in inches. */
+    displayUnit: z.enum(['in', 'cm']).default('in'),
+    seamAllowanceIn: positiveLength.refine((v) => v <= 2, { message: 'must be at most 2 in.' }).default(0.25),
+    /** Extra margin around each rough-cut piece for placement on the foundation. */
+    piecingMarginIn: finite.refine((v) => v >= 0 && v <= 4, { message: 'must be between 0 and 4 in.' }).default(0.5),
+    /** How many times the whole pattern is made (blocks in the quilt). */
+    blockCount: z.number().int().min(1).max(1000).default(1),
+    /** How many pressings a freezer-paper template survives (common practice: about a dozen or more). */
+    pressingsPerTemplate: z.number().int().min(1).max(1000).default(16),
+    /** Size of the drawing area (the finished block), for display and previews. */
+    canvas: z.object({ widthIn: positiveLength, heightIn: positiveLength }),
+    fabrics: z.array(fabricSchema).max(100).default([]),
+    sections: z.array(sectionSchema).max(2000).default([]),
+    referenceImage: referenceImageSchema.optional(),
+  })
+  .superRefine((doc, ctx) => {
+    const fabricIds = new Set<string>();
+    doc.fabrics.forEach((f, i) => {
+      if (fabricIds.has(f.id)) ctx.addIssue({ code: 'custom', message: `duplicate fabric id "${f.id}"`, path: ['fabrics', i, 'id'] });
+      fabricIds.add(f.id);
+    });
+    const sectionIds = new Set<string>();
+    const labels = new Set<string>();
+    doc.sections.forEach((s, i) => {
+      if (sectionIds.has(s.id)) ctx.addIssue({ code: 'custom', message: `duplicate section id "${s.id}"`, path: ['sections', i, 'id'] });
+      sectionIds.add(s.id);
+      if (labels.has(s.label)) ctx.addIssue({ code: 'custom', message: `duplicate section label "${s.label}"`, path: ['sections', i, 'label'] });
+      labels.add(s.label);
+      const numbers = new Set<number>();
+      s.patches.forEach((p, j) => {
+        if (numbers.has(p.number)) ctx.addIssue({ code: 'custom', message: `duplicate patch number ${p.number}`, path: ['sections', i, 'patches', j, 'number'] });
+        numbers.add(p.number);
+        if (p.fabricId && !fabricIds.has(p.fabricId)) ctx.addIssue({ code: 'custom', message: `unknown fabric "${p.fabricId}"`, path: ['sections', i, 'patches', j, 'fabricId'] });
+        p.stripSet?.strips.forEach((st, k) => {
+          if (!fabricIds.has(st.fabricId)) ctx.addIssue({ code: 'custom', message: `unknown fabric "${st.fabricId}"`, path: ['sections', i, 'patches', j, 'stripSet', 'strips', k, 'fabricId'] });
+        });
+      });
+    });
+  });
+
+export type Point = z.infer<typeof pointSchema>;
+export type Fabric = z.infer<typeof fabricSchema>;
+export type StraightGeometry = z.infer<typeof straightGeometrySchema>;
+export type ArcGeometry = z.infer<typeof arcGeometrySchema>;
+export type WedgeGeometry = z.infer<typeof wedgeGeometrySchema>;
+export type SectionGeometry = z.infer<typeof sectionGeometrySchema>;
+export type SectionKind = SectionGeometry['kind'];
+export type Seam = z.infer<typeof seamSchema>;
+export type Strip = z.infer<typeof stripSchema>;
+export type StripSet = z.infer<typeof stripSetSchema>;
+export type PatchAssignment = z.infer<typeof patchSchema>;
+export type RingRepeat = z.infer<typeof ringRepeatSchema>;
+export type Section = z.infer<typeof sectionSchema>;
+export type ReferenceImage = z.infer<typeof referenceImageSchema>;
+/** A validated pattern document (defaults filled in). */
+export type PatternDocument = z.infer<typeof patternDocumentSchema>;
+/** A pattern document as written by hand or sent by a client (defaults may be missing). */
+export type PatternDocumentInput = z.input<typeof patternDocumentSchema>;

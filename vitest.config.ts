@@ -1,0 +1,48 @@
+import { defineConfig } from 'vitest/config';
+import { fileURLToPath } from 'node:url';
+
+const alias = {
+  // Vite ignores tsconfig "paths" in plain vitest: mirror them here.
+  '@seamwright/piecing': fileURLToPath(new URL('./projects/piecing/src/public-api.ts', import.meta.url)),
+  '@seamwright/template-editor-core': fileURLToPath(
+    new URL('./projects/template-editor/src/lib/core/public-api.ts', import.meta.url),
+  ),
+};
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    // Native modules (better-sqlite3) can crash at exit under worker threads: use child processes.
+    pool: 'forks',
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'piecing',
+          environment: 'node',
+          include: ['projects/piecing/**/*.spec.ts'],
+          testTimeout: 60_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'server',
+          environment: 'node',
+          include: ['server/**/*.spec.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'editor-core',
+          environment: 'node',
+          include: ['projects/template-editor/src/lib/core/**/*.spec.ts'],
+        },
+      },
+    ],
+  },
+});
