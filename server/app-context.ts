@@ -1,0 +1,12 @@
+import type { Config } from './config';
+import type { DatabaseHandle, Db } from './db/database';
+import type { Mailer } from './services/mailer';
+
+/** Everything a route needs, made once at start and passed down (no module-level state). */
+export interface AppContext {
+  config: Config;
+  database: DatabaseHandle;
+  db: Db;
+  mailer: Mailer;
+  log: (message: string, err?: unknown) => void;
+}

@@ -1,0 +1,108 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+/** Whole number from an environment string. */
+const intFromEnv = (fallback: number, min = 0, max = Number.MAX_SAFE_INTEGER) =>
+  z.coerce.number().int().min(min).max(max).default(fallback);
+
+const boolFromEnv = z
+  .enum(['1', '0', 'true', 'false', 'yes', 'no', ''])
+  .default('0')
+  .transform((v) => v === '1' || v === 'true' || v === 'yes');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: intFromEnv(4200, 0, 65535),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PUBLIC_URL: z.url().optional(),
+  SEAMWRIGHT_DATA_DIR: z.string().min(1).default('./data'),
+  SEAMWRIGHT_STATIC_DIR: z.string().min(1).default('./dist/seamwright/browser'),
+  SEAMWRIGHT_SEED_DEMO: boolFromEnv,
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: intFromEnv(1025, 1, 65535),
+  MAIL_FROM: z.string().min(3).default('Seamwright <no-reply@seamwright.localhost>'),
+  /** Where the fake mail server's inbox API answers (development only, for the admin dev inbox). */
+  MAIL_INBOX_URL: z.url().default('http://127.0.0.1:1080'),
+  /** Secret for CSRF tokens; a random one per start when unset (tokens then end with the process). */
+  SEAMWRIGHT_SECRET: z.string().min(32).optional(),
+  JSON_BODY_LIMIT: z.string().regex(/^\d+(kb|mb)$/).default('5mb'),
+  SESSION_DAYS: intFromEnv(14, 1, 365),
+  /** Failed sign-ins allowed per account / per address in the window. */
+  SIGNIN_LIMIT_PER_ACCOUNT: intFromEnv(10, 1),
+  SIGNIN_LIMIT_PER_ADDRESS: intFromEnv(50, 1),
+  /** Password-reset requests allowed per account / per address in the window. */
+  RESET_LIMIT_PER_ACCOUNT: intFromEnv(5, 1),
+  RESET_LIMIT_PER_ADDRESS: intFromEnv(20, 1),
+  RATE_LIMIT_WINDOW_MINUTES: intFromEnv(15, 1),
+  INVITATION_DAYS: intFromEnv(7, 1, 90),
+  PRINT_WORKERS: intFromEnv(1, 1, 8),
+});
+
+/** The server's settings, read once from the environment. */
+export interface Config {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  publicUrl: string;
+  dataDir: string;
+  staticDir: string;
+  seedDemo: boolean;
+  smtp: { host: string; port: number };
+  mailFrom: string;
+  mailInboxUrl: string;
+  secret: string | undefined;
+  jsonBodyLimit: string;
+  sessionDays: number;
+  limits: {
+    windowMinutes: number;
+    signInPerAccount: number;
+    signInPerAddress: number;
+    resetPerAccount: number;
+    resetPerAddress: number;
+  };
+  invitationDays: number;
+  printWorkers: number;
+  /** Whether cookies carry the Secure flag (when the public URL is https). */
+  secureCookies: boolean;
+}
+
+/** Thrown when the environment holds a setting that cannot be used. */
+export class ConfigError extends Error {
+  override name = 'ConfigError';
+}
+
+/** Parses the environment into a {@link Config}. Relative folders are resolved against `cwd`. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.cwd()): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid environment: ${lines.join('; ')}`);
+  }
+  const e = parsed.data;
+  const publicUrl = (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, '');
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    publicUrl,
+    dataDir: path.resolve(cwd, e.SEAMWRIGHT_DATA_DIR),
+    staticDir: path.resolve(cwd, e.SEAMWRIGHT_STATIC_DIR),
+    seedDemo: e.SEAMWRIGHT_SEED_DEMO,
+    smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT },
+    mailFrom: e.MAIL_FROM,
+    mailInboxUrl: e.MAIL_INBOX_URL.replace(/\/+$/, ''),
+    secret: e.SEAMWRIGHT_SECRET,
+    jsonBodyLimit: e.JSON_BODY_LIMIT,
+    sessionDays: e.SESSION_DAYS,
+    limits: {
+      windowMinutes: e.RATE_LIMIT_WINDOW_MINUTES,
+      signInPerAccount: e.SIGNIN_LIMIT_PER_ACCOUNT,
+      signInPerAddress: e.SIGNIN_LIMIT_PER_ADDRESS,
+      resetPerAccount: e.RESET_LIMIT_PER_ACCOUNT,
+      resetPerAddress: e.RESET_LIMIT_PER_ADDRESS,
+    },
+    invitationDays: e.INVITATION_DAYS,
+    printWorkers: e.PRINT_WORKERS,
+    secureCookies: publicUrl.startsWith('https://'),
+  };
+}

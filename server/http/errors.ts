@@ -1,0 +1,59 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { z } from 'zod';
+
+/** An error with an HTTP status that the error middleware answers as `{ error, details }`. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+    this.name = 'HttpError';
+  }
+}
+
+/** 404 in the one wording used for everything a user may not see. */
+export const notFound = (what = 'Not found') => new HttpError(404, what);
+
+/** Turns zod issues into `[{ path, message }]` with dotted paths. */
+export function zodDetails(error: z.ZodError): { path: string; message: string }[] {
+  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));
+}
+
+/** Answers 404 for any /api route that does not exist. */
+export const apiNotFound: RequestHandler = (_req, _res, next) => next(new HttpError(404, 'No such API route'));
+
+/**
+ * The one error middleware: known errors keep their status, body-parser errors become 400/413,
+ * everything else is a 500 with no detail. Stack traces are logged, never sent.
+ */
+export function errorMiddleware(log: (err: unknown) => void): ErrorRequestHandler {
+  return (err, _req, res, next) => {
+    if (res.headersSent) return next(err);
+    if (err instanceof HttpError) {
+      res.status(err.status).json({ error: err.message, details: err.details ?? null });
+      return;
+    }
+    if (err instanceof z.ZodError) {
+      res.status(400).json({ error: 'Invalid request', details: zodDetails(err) });
+      return;
+    }
+    const e = err as { status?: unknown; statusCode?: unknown; type?: unknown; code?: unknown; message?: unknown };
+    const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 500;
+    if (status >= 400 && status < 500) {
+      const messages: Record<string, string> = {
+        'entity.parse.failed': 'Malformed JSON body',
+        'entity.too.large': 'Request body too large',
+        'encoding.unsupported': 'Unsupported body encoding',
+        'charset.unsupported': 'Unsupported body charset',
+      };
+      const byType = typeof e.type === 'string' ? messages[e.type] : undefined;
+      const byCode = e.code === 'EBADCSRFTOKEN' ? 'Missing or invalid CSRF token' : undefined;
+      res.status(status).json({ error: byType ?? byCode ?? 'Bad request', details: null });
+      return;
+    }
+    log(err);
+    res.status(500).json({ error: 'Internal server error', details: null });
+  };
+}

@@ -1,0 +1,59 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import type { AppContext } from './app-context';
+import { ConfigError, loadConfig } from './config';
+import { openDatabase } from './db/database';
+import { createSmtpMailer } from './services/mailer';
+
+function log(message: string, err?: unknown): void {
+  const time = new Date().toISOString();
+  if (err === undefined) console.log(`${time} ${message}`);
+  else console.error(`${time} ${message}`, err);
+}
+
+/** Starts Seamwright's server; resolves once it listens. */
+export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: string[] = process.argv) {
+  const config = loadConfig(env);
+  const database = openDatabase(config.dataDir);
+  const mailer = createSmtpMailer(config);
+  const ctx: AppContext = { config, database, db: database.db, mailer, log };
+  const app = createApp(ctx);
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  log(`Seamwright listening on http://${config.host}:${port} (data in ${config.dataDir})`);
+  let closing = false;
+  const close = async () => {
+    if (closing) return;
+    closing = true;
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+    mailer.close();
+    database.close();
+  };
+  void argv;
+  return { server, port, ctx, close };
+}
+
+const isMain = import.meta.url === `file://${process.argv[1]}` || process.argv[1]?.endsWith('server/main.ts');
+if (isMain) {
+  startServer()
+    .then(({ close }) => {
+      const stop = (signal: string) => {
+        log(`${signal}: shutting down`);
+        close().then(
+          () => process.exit(0),
+          () => process.exit(1),
+        );
+      };
+      process.once('SIGINT', () => stop('SIGINT'));
+      process.once('SIGTERM', () => stop('SIGTERM'));
+    })
+    .catch((err) => {
+      if (err instanceof ConfigError) console.error(err.message);
+      else log('Seamwright failed to start', err);
+      process.exit(1);
+    });
+}
