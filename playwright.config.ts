@@ -1,0 +1,78 @@
+import { defineConfig } from '@playwright/test';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+/*
+ * End-to-end tests drive Debian's Chromium (/usr/bin/chromium; never a downloaded browser) against the
+ * real server, which serves the built app (run `npm run build` first; `npm test` does) with a fresh
+ * SQLite database in a temporary folder and the local fake mail server.
+ * Workers inherit the environment, so the folder and ports are chosen once, here, in the main process.
+ */
+process.env['SW_E2E_DATA_DIR'] ??= mkdtempSync(join(tmpdir(), 'seamwright-e2e-'));
+process.env['SW_E2E_PORT'] ??= '4300';
+process.env['SW_E2E_SMTP_PORT'] ??= '2525';
+process.env['SW_E2E_MAIL_HTTP_PORT'] ??= '2580';
+
+const port = Number(process.env['SW_E2E_PORT']);
+const smtpPort = process.env['SW_E2E_SMTP_PORT'];
+const mailHttpPort = process.env['SW_E2E_MAIL_HTTP_PORT'];
+
+/** Base URL of the server under test. */
+export const baseURL = `http://127.0.0.1:${port}`;
+/** Base URL of the fake mail server's HTTP inbox. */
+export const mailInboxURL = `http://127.0.0.1:${mailHttpPort}`;
+
+export default defineConfig({
+  testDir: 'e2e',
+  testMatch: '**/*.spec.ts',
+  outputDir: 'test-results/playwright',
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  reporter: process.env['CI'] ? [['list'], ['json', { outputFile: 'test-results/playwright.json' }]] : 'list',
+  use: {
+    baseURL,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+    launchOptions: {
+      executablePath: process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium',
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
+    },
+  },
+  webServer: [
+    {
+      command: 'npx tsx server/dev/fake-mail-server.ts',
+      url: `${mailInboxURL}/api/messages`,
+      reuseExistingServer: false,
+      timeout: 60_000,
+      env: { FAKE_MAIL_SMTP_PORT: smtpPort, FAKE_MAIL_HTTP_PORT: mailHttpPort },
+    },
+    {
+      command: 'npm run start:server',
+      url: `${baseURL}/api/health`,
+      reuseExistingServer: false,
+      timeout: 120_000,
+      env: {
+        PORT: String(port),
+        HOST: '127.0.0.1',
+        NODE_ENV: 'test',
+        SEAMWRIGHT_DATA_DIR: process.env['SW_E2E_DATA_DIR']!,
+        SMTP_HOST: '127.0.0.1',
+        SMTP_PORT: smtpPort,
+        FAKE_MAIL_HTTP_URL: mailInboxURL,
+        PUBLIC_URL: baseURL,
+      },
+    },
+  ],
+});

@@ -1,0 +1,43 @@
+#!/usr/bin/env bash
+# `npm start`: installs what is missing, builds the app, starts the local fake mail server and the
+# Seamwright server (which migrates the database and seeds the demo data when it is empty), and serves
+# everything at http://localhost:4200.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+export PORT="${PORT:-4200}"
+export HOST="${HOST:-127.0.0.1}"
+export SEAMWRIGHT_DATA_DIR="${SEAMWRIGHT_DATA_DIR:-./data}"
+export SMTP_HOST="${SMTP_HOST:-127.0.0.1}"
+export SMTP_PORT="${SMTP_PORT:-1025}"
+export FAKE_MAIL_SMTP_PORT="${FAKE_MAIL_SMTP_PORT:-$SMTP_PORT}"
+export FAKE_MAIL_HTTP_PORT="${FAKE_MAIL_HTTP_PORT:-1080}"
+export FAKE_MAIL_HTTP_URL="${FAKE_MAIL_HTTP_URL:-http://127.0.0.1:$FAKE_MAIL_HTTP_PORT}"
+export PUBLIC_URL="${PUBLIC_URL:-http://localhost:$PORT}"
+export SEAMWRIGHT_SEED_DEMO=1
+export NODE_ENV="${NODE_ENV:-development}"
+
+if [ ! -d node_modules ] || [ ! -e node_modules/.package-lock.json ]; then
+  echo "Installing npm packages (the first time takes a few minutes: better-sqlite3 compiles)…"
+  npm ci --no-audit --no-fund
+fi
+
+echo "Building the app…"
+npx ng build seamwright --no-progress
+
+echo "Starting the local fake mail server (SMTP $FAKE_MAIL_SMTP_PORT, inbox $FAKE_MAIL_HTTP_URL)…"
+npx tsx server/dev/fake-mail-server.ts &
+mail_pid=$!
+trap 'kill $mail_pid 2>/dev/null || true' EXIT INT TERM
+
+cat <<MSG
+
+  Seamwright: $PUBLIC_URL
+  Demo sign-in (studio "Fernbrook Patterns"):
+    designer  designer@fernbrook.example / fernbrook-designer
+    quilter   quilter@fernbrook.example  / fernbrook-quilter
+    admin     admin@fernbrook.example    / fernbrook-admin
+  Mail sent by the app: $FAKE_MAIL_HTTP_URL
+
+MSG
+npx tsx server/main.ts
