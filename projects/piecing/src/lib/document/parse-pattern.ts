@@ -31,10 +31,11 @@ export function migratePatternDocument(raw: unknown): { ok: true; value: unknown
     return { ok: false, issues: [{ path: '', message: 'a pattern document must be a JSON object' }] };
   }
   let doc = raw as Record<string, unknown>;
-  let version = doc['formatVersion'];
-  if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
+  const rawVersion = doc['formatVersion'];
+  if (typeof rawVersion !== 'number' || !Number.isInteger(rawVersion) || rawVersion < 1) {
     return { ok: false, issues: [{ path: 'formatVersion', message: 'must be a whole number, 1 or more' }] };
   }
+  let version: number = rawVersion;
   if (version > FORMAT_VERSION) {
     return {
       ok: false,
