@@ -56,7 +56,7 @@ export default defineConfig({
       url: `${mailInboxURL}/api/messages`,
       reuseExistingServer: false,
       timeout: 60_000,
-      env: { FAKE_MAIL_SMTP_PORT: smtpPort, FAKE_MAIL_HTTP_PORT: mailHttpPort },
+      env: { FAKE_SMTP_PORT: smtpPort, FAKE_MAIL_HTTP_PORT: mailHttpPort },
     },
     {
       command: 'npm run start:server',
@@ -70,7 +70,7 @@ export default defineConfig({
         SEAMWRIGHT_DATA_DIR: process.env['SW_E2E_DATA_DIR']!,
         SMTP_HOST: '127.0.0.1',
         SMTP_PORT: smtpPort,
-        FAKE_MAIL_HTTP_URL: mailInboxURL,
+        MAIL_INBOX_URL: mailInboxURL,
         PUBLIC_URL: baseURL,
       },
     },

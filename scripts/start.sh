@@ -10,9 +10,9 @@ export HOST="${HOST:-127.0.0.1}"
 export SEAMWRIGHT_DATA_DIR="${SEAMWRIGHT_DATA_DIR:-./data}"
 export SMTP_HOST="${SMTP_HOST:-127.0.0.1}"
 export SMTP_PORT="${SMTP_PORT:-1025}"
-export FAKE_MAIL_SMTP_PORT="${FAKE_MAIL_SMTP_PORT:-$SMTP_PORT}"
+export FAKE_SMTP_PORT="${FAKE_SMTP_PORT:-$SMTP_PORT}"
 export FAKE_MAIL_HTTP_PORT="${FAKE_MAIL_HTTP_PORT:-1080}"
-export FAKE_MAIL_HTTP_URL="${FAKE_MAIL_HTTP_URL:-http://127.0.0.1:$FAKE_MAIL_HTTP_PORT}"
+export MAIL_INBOX_URL="${MAIL_INBOX_URL:-http://127.0.0.1:$FAKE_MAIL_HTTP_PORT}"
 export PUBLIC_URL="${PUBLIC_URL:-http://localhost:$PORT}"
 export SEAMWRIGHT_SEED_DEMO=1
 export NODE_ENV="${NODE_ENV:-development}"
@@ -25,7 +25,7 @@ fi
 echo "Building the app…"
 npx ng build seamwright --no-progress
 
-echo "Starting the local fake mail server (SMTP $FAKE_MAIL_SMTP_PORT, inbox $FAKE_MAIL_HTTP_URL)…"
+echo "Starting the local fake mail server (SMTP $FAKE_SMTP_PORT, inbox $MAIL_INBOX_URL)…"
 npx tsx server/dev/fake-mail-server.ts &
 mail_pid=$!
 trap 'kill $mail_pid 2>/dev/null || true' EXIT INT TERM
@@ -37,7 +37,7 @@ cat <<MSG
     designer  designer@fernbrook.example / fernbrook-designer
     quilter   quilter@fernbrook.example  / fernbrook-quilter
     admin     admin@fernbrook.example    / fernbrook-admin
-  Mail sent by the app: $FAKE_MAIL_HTTP_URL
+  Mail sent by the app: $MAIL_INBOX_URL
 
 MSG
 npx tsx server/main.ts
