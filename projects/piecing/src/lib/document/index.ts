@@ -1,2 +1,3 @@
 export * from './pattern-schema';
 export * from './parse-pattern';
+export * from './validate-geometry';

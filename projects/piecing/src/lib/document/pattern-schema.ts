@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { validatePatternGeometry } from './validate-geometry';
 
 /**
  * The pattern document, format version 1.
@@ -176,6 +177,8 @@ export const patternDocumentSchema = z
         });
       });
     });
+    // Outlines that cross themselves, outlines without area, seams without length.
+    for (const issue of validatePatternGeometry(doc)) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
   });
 
 export type Point = z.infer<typeof pointSchema>;
