@@ -1,0 +1,89 @@
+import ClipperLib from 'clipper-lib';
+import type { Point } from '../../document/pattern-schema';
+import { CHORD_TOLERANCE_IN, CLIPPER_SCALE, MITRE_LIMIT } from '../../tolerance';
+import { signedArea } from '../../geometry/index';
+
+/** How offset edges meet at a corner: a sharp mitre (cut off at the mitre limit), a round arc, or squared off. */
+export type OffsetJoin = 'mitre' | 'round' | 'square';
+
+/** Settings for an offset; every field has a default from `tolerance.ts`. */
+export interface OffsetOptions {
+  /** Longest mitre, as a multiple of the offset distance, before the corner is squared off. */
+  mitreLimit?: number;
+  /** Largest distance between a round join's arc and its chords, in inches. */
+  arcToleranceIn?: number;
+}
+
+/** A ring in clipper-lib's integer units (CLIPPER_SCALE per inch). */
+export type IntegerRing = ClipperLib.IntPoint[];
+
+const JOIN_TYPES: Record<OffsetJoin, ClipperLib.JoinType> = {
+  mitre: ClipperLib.JoinType.jtMiter,
+  round: ClipperLib.JoinType.jtRound,
+  square: ClipperLib.JoinType.jtSquare,
+};
+
+/** Converts a ring in inches to clipper-lib's integer units, once, at the one fixed scale. */
+export function toIntegerRing(points: readonly Point[]): IntegerRing {
+  const out: IntegerRing = new Array(points.length);
+  for (let i = 0; i < points.length; i++) {
+    out[i] = { X: Math.round(points[i].x * CLIPPER_SCALE), Y: Math.round(points[i].y * CLIPPER_SCALE) };
+  }
+  return out;
+}
+
+/** Converts a ring from clipper-lib's integer units back to inches. */
+export function fromIntegerRing(ring: IntegerRing): Point[] {
+  const out: Point[] = new Array(ring.length);
+  for (let i = 0; i < ring.length; i++) out[i] = { x: ring[i].X / CLIPPER_SCALE, y: ring[i].Y / CLIPPER_SCALE };
+  return out;
+}
+
+/**
+ * Offsets integer rings (outer rings and holes, wound opposite ways) by `distanceIn` (outward when
+ * positive) with clipper-lib's ClipperOffset. Returns the integer result rings; the input is untouched.
+ */
+export function offsetIntegerRings(
+  rings: readonly IntegerRing[],
+  distanceIn: number,
+  join: OffsetJoin = 'mitre',
+  options: OffsetOptions = {},
+): IntegerRing[] {
+  if (!Number.isFinite(distanceIn)) throw new RangeError(`offset distance must be a finite number of inches, got ${distanceIn}`);
+  const mitreLimit = options.mitreLimit ?? MITRE_LIMIT;
+  const arcToleranceIn = options.arcToleranceIn ?? CHORD_TOLERANCE_IN;
+  if (!(mitreLimit >= 1)) throw new RangeError(`mitre limit must be at least 1, got ${mitreLimit}`);
+  if (!(arcToleranceIn > 0)) throw new RangeError(`arc tolerance must be a positive number of inches, got ${arcToleranceIn}`);
+  const offset = new ClipperLib.ClipperOffset(mitreLimit, arcToleranceIn * CLIPPER_SCALE);
+  // AddPaths keeps a reference; clipper-lib copies points into its own nodes, so the input stays intact.
+  offset.AddPaths(rings as IntegerRing[], JOIN_TYPES[join], ClipperLib.EndType.etClosedPolygon);
+  const solution: IntegerRing[] = [];
+  offset.Execute(solution, distanceIn * CLIPPER_SCALE);
+  return solution;
+}
+
+/**
+ * Offsets a simple polygon (inches, either winding) by `distanceIn`: outward when positive, inward when
+ * negative. Returns the largest result ring, wound the same way as the input, or an empty array when an
+ * inward offset leaves nothing.
+ */
+export function offsetPolygon(
+  points: readonly Point[],
+  distanceIn: number,
+  join: OffsetJoin = 'mitre',
+  options: OffsetOptions = {},
+): Point[] {
+  const rings = offsetIntegerRings([toIntegerRing(points)], distanceIn, join, options);
+  let best: IntegerRing | undefined;
+  let bestArea = 0;
+  for (const ring of rings) {
+    const area = Math.abs(ClipperLib.Clipper.Area(ring));
+    if (area > bestArea) {
+      bestArea = area;
+      best = ring;
+    }
+  }
+  if (!best) return [];
+  const result = fromIntegerRing(best);
+  return Math.sign(signedArea(result)) === Math.sign(signedArea(points)) ? result : result.reverse();
+}

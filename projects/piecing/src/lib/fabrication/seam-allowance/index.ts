@@ -1,0 +1,2 @@
+export * from './clipper-offset';
+export * from './section-seam-allowance';
