@@ -38,6 +38,18 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          // Fault and hostile-input tests against a real server process (issue: benchmarks and faults).
+          name: 'faults',
+          environment: 'node',
+          include: ['tests/faults/**/*.spec.ts', 'tests/hostile/**/*.spec.ts'],
+          testTimeout: 300_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: 'editor-core',
           environment: 'node',
           include: ['projects/template-editor/src/lib/core/**/*.spec.ts'],
