@@ -3,3 +3,5 @@
  * sets and guide lines, matching marks on curved edges, the cutting list and the number of template copies.
  */
 export * from './seam-allowance/index';
+export * from './shared/rounding';
+export * from './strip-sets/index';

@@ -1,0 +1,2 @@
+export * from './strip-set-layout';
+export * from './section-guide-lines';
