@@ -9,4 +9,6 @@ export interface AppContext {
   db: Db;
   mailer: Mailer;
   log: (message: string, err?: unknown) => void;
+  /** The print-set renderer (worker threads); absent until started. */
+  printSets?: { close(): Promise<void> };
 }

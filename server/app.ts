@@ -1,10 +1,21 @@
 import express, { type Express } from 'express';
 import cookieParser from 'cookie-parser';
 import type { AppContext } from './app-context';
+import { createCsrf } from './auth/csrf';
+import { loadSession } from './auth/sessions';
 import { apiNotFound, errorMiddleware } from './http/errors';
 import { securityHeaders } from './http/security';
 import { staticAppRouter } from './http/static-app';
+import { adminRouter } from './routes/admin';
+import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
+import { invitationsRouter } from './routes/invitations';
+import { membersRouter } from './routes/members';
+import { patternsRouter } from './routes/patterns';
+import { printSetsRouter } from './routes/print-sets';
+import { revisionsRouter } from './routes/revisions';
+import { sewingLogRouter } from './routes/sewing-log';
+import { uploadsRouter } from './routes/uploads';
 
 /** Builds the Express app: security headers, JSON, the API under /api, the built app, errors. */
 export function createApp(ctx: AppContext): Express {
@@ -13,15 +24,28 @@ export function createApp(ctx: AppContext): Express {
   app.set('trust proxy', 'loopback');
   app.set('query parser', 'simple');
   app.use(securityHeaders());
-  app.use(express.json({ limit: ctx.config.jsonBodyLimit, strict: true }));
-  app.use(cookieParser());
 
+  const csrf = createCsrf(ctx.config);
   const api = express.Router();
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  api.use(express.json({ limit: ctx.config.jsonBodyLimit, strict: true }));
+  api.use(cookieParser());
+  api.use(loadSession(ctx.db));
   api.use(healthRouter());
+  // Every POST, PUT, PATCH and DELETE below needs the X-CSRF-Token header.
+  api.use(csrf.protect);
+  api.use('/auth', authRouter(ctx, csrf));
+  api.use('/admin', adminRouter(ctx));
+  api.use('/invitations', invitationsRouter(ctx));
+  api.use('/patterns/:id/revisions', revisionsRouter(ctx));
+  api.use('/patterns/:id/sewing-log', sewingLogRouter(ctx));
+  api.use('/patterns/:id/uploads', uploadsRouter(ctx));
+  api.use('/patterns/:id/print-sets', printSetsRouter(ctx));
+  api.use('/patterns/:id', membersRouter(ctx));
+  api.use('/patterns', patternsRouter(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

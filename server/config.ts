@@ -36,6 +36,8 @@ const envSchema = z.object({
   RATE_LIMIT_WINDOW_MINUTES: intFromEnv(15, 1),
   INVITATION_DAYS: intFromEnv(7, 1, 90),
   PRINT_WORKERS: intFromEnv(1, 1, 8),
+  /** bcrypt cost factor (2^n rounds); 12 is a common default, tests use 4. */
+  BCRYPT_ROUNDS: intFromEnv(12, 4, 15),
 });
 
 /** The server's settings, read once from the environment. */
@@ -62,6 +64,7 @@ export interface Config {
   };
   invitationDays: number;
   printWorkers: number;
+  bcryptRounds: number;
   /** Whether cookies carry the Secure flag (when the public URL is https). */
   secureCookies: boolean;
 }
@@ -103,6 +106,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
     },
     invitationDays: e.INVITATION_DAYS,
     printWorkers: e.PRINT_WORKERS,
+    bcryptRounds: e.BCRYPT_ROUNDS,
     secureCookies: publicUrl.startsWith('https://'),
   };
 }

@@ -47,3 +47,8 @@ export function openDatabase(dataDir: string): DatabaseHandle {
     },
   };
 }
+
+/** A transaction handle, as passed to `db.transaction(fn)`. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** Either the database or a transaction inside it. */
+export type DbLike = Db | Tx;

@@ -1,0 +1,10 @@
+import bcrypt from 'bcryptjs';
+
+/** Hashes a password with bcrypt at `rounds`. */
+export const hashPassword = (password: string, rounds: number): Promise<string> => bcrypt.hash(password, rounds);
+
+/** Compares a password with a bcrypt hash (constant-time inside bcrypt). */
+export const verifyPassword = (password: string, hash: string): Promise<boolean> => bcrypt.compare(password, hash);
+
+/** A valid hash of a random password, compared against when an account does not exist (same time either way). */
+export const decoyHash = (rounds: number): string => bcrypt.hashSync(`decoy-${Math.random()}`, rounds);

@@ -1,0 +1,93 @@
+import { and, eq, gt, lt, ne } from 'drizzle-orm';
+import type { CookieOptions, RequestHandler, Response } from 'express';
+import type { Config } from '../config';
+import type { Db, DbLike } from '../db/database';
+import { sessions, users, type User } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { hashToken, randomToken } from './tokens';
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    /** The signed-in user, when the session cookie is valid. */
+    user?: User;
+    /** SHA-256 of the session token (the CSRF tokens are tied to it). */
+    sessionTokenHash?: string;
+  }
+}
+
+export const SESSION_COOKIE = 'seamwright.sid';
+
+function cookieOptions(config: Config): CookieOptions {
+  return { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, path: '/' };
+}
+
+/** Starts a session for `userId`, sets the cookie, and returns the token's hash. */
+export function startSession(db: Db, config: Config, res: Response, userId: string): string {
+  const token = randomToken();
+  const tokenHash = hashToken(token);
+  const now = Date.now();
+  const expiresAt = new Date(now + config.sessionDays * 86_400_000);
+  db.insert(sessions).values({ tokenHash, userId, createdAt: new Date(now), expiresAt }).run();
+  // Drop this user's expired sessions while we are here.
+  db.delete(sessions).where(and(eq(sessions.userId, userId), lt(sessions.expiresAt, new Date(now)))).run();
+  res.cookie(SESSION_COOKIE, token, { ...cookieOptions(config), expires: expiresAt });
+  return tokenHash;
+}
+
+/** Ends one session and clears the cookie. */
+export function endSession(db: Db, config: Config, res: Response, tokenHash: string | undefined): void {
+  if (tokenHash) db.delete(sessions).where(eq(sessions.tokenHash, tokenHash)).run();
+  res.clearCookie(SESSION_COOKIE, cookieOptions(config));
+}
+
+/** Ends every session of a user, except `keepTokenHash` when given. */
+export function endUserSessions(db: DbLike, userId: string, keepTokenHash?: string): void {
+  const where = keepTokenHash
+    ? and(eq(sessions.userId, userId), ne(sessions.tokenHash, keepTokenHash))
+    : eq(sessions.userId, userId);
+  db.delete(sessions).where(where).run();
+}
+
+/** Reads the session cookie and sets `req.user` when it names a live session of an enabled user. */
+export function loadSession(db: Db): RequestHandler {
+  return (req, _res, next) => {
+    const token: unknown = req.cookies?.[SESSION_COOKIE];
+    if (typeof token === 'string' && token.length > 0 && token.length <= 100) {
+      const tokenHash = hashToken(token);
+      const row = db
+        .select({ user: users })
+        .from(sessions)
+        .innerJoin(users, eq(users.id, sessions.userId))
+        .where(and(eq(sessions.tokenHash, tokenHash), gt(sessions.expiresAt, new Date())))
+        .get();
+      if (row && !row.user.disabled) {
+        req.user = row.user;
+        req.sessionTokenHash = tokenHash;
+      }
+    }
+    next();
+  };
+}
+
+/** Answers 401 unless signed in. */
+export const requireUser: RequestHandler = (req, _res, next) => {
+  next(req.user ? undefined : new HttpError(401, 'Sign in first'));
+};
+
+/** The signed-in user; call only behind {@link requireUser}. */
+export function currentUser(req: { user?: User }): User {
+  if (!req.user) throw new HttpError(401, 'Sign in first');
+  return req.user;
+}
+
+/** The user as the API shows it (never the hash). */
+export function publicUser(u: User) {
+  return {
+    id: u.id,
+    email: u.email,
+    displayName: u.displayName,
+    role: u.role,
+    disabled: u.disabled,
+    createdAt: u.createdAt.toISOString(),
+  };
+}

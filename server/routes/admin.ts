@@ -1,0 +1,76 @@
+import { count, desc, eq, or, sql } from 'drizzle-orm';
+import express, { type RequestHandler, type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser, endUserSessions, publicUser, requireUser } from '../auth/sessions';
+import { ROLES, users } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { likeContains, pagingQuery } from '../http/paging';
+import { idSchema, parseOr400 } from '../http/validate';
+
+const listQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
+const patchBody = z
+  .strictObject({ role: z.enum(ROLES).optional(), disabled: z.boolean().optional() })
+  .refine((b) => b.role !== undefined || b.disabled !== undefined, { message: 'give role or disabled' });
+
+const requireAdmin: RequestHandler = (req, _res, next) => {
+  next(currentUser(req).role === 'admin' ? undefined : new HttpError(403, 'Only administrators can do this'));
+};
+
+/** `/api/admin…`: user management and the development inbox. */
+export function adminRouter(ctx: AppContext): Router {
+  const { db, config } = ctx;
+  const router = express.Router();
+  router.use(requireUser, requireAdmin);
+
+  router.get('/users', (req, res) => {
+    const q = parseOr400(listQuery, req.query, 'Invalid query');
+    const where = q.q
+      ? or(sql`${users.email} LIKE ${likeContains(q.q)} ESCAPE '\\'`, sql`${users.displayName} LIKE ${likeContains(q.q)} ESCAPE '\\'`)
+      : undefined;
+    const total = db.select({ n: count() }).from(users).where(where).get()?.n ?? 0;
+    const rows = db
+      .select()
+      .from(users)
+      .where(where)
+      .orderBy(desc(users.createdAt), users.id)
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize)
+      .all();
+    res.json({ items: rows.map(publicUser), total, page: q.page, pageSize: q.pageSize });
+  });
+
+  router.patch('/users/:userId', (req, res) => {
+    const me = currentUser(req);
+    const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
+    const body = parseOr400(patchBody, req.body);
+    if (userId === me.id && ((body.role !== undefined && body.role !== 'admin') || body.disabled === true)) {
+      throw new HttpError(400, 'You cannot demote or disable your own account');
+    }
+    const updated = db.transaction(
+      (tx) => {
+        const row = tx.update(users).set(body).where(eq(users.id, userId)).returning().get();
+        if (!row) throw new HttpError(404, 'User not found');
+        if (row.disabled) endUserSessions(tx, row.id);
+        return row;
+      },
+      { behavior: 'immediate' },
+    );
+    res.json({ user: publicUser(updated) });
+  });
+
+  router.get('/dev-inbox', async (_req, res) => {
+    if (config.env === 'production') throw new HttpError(404, 'No such API route');
+    let messages: unknown;
+    try {
+      const answer = await fetch(`${config.mailInboxUrl}/api/messages`, { signal: AbortSignal.timeout(3000) });
+      if (!answer.ok) throw new Error(`inbox answered ${answer.status}`);
+      messages = await answer.json();
+    } catch {
+      throw new HttpError(502, 'The development mail server is not running');
+    }
+    res.json({ messages: Array.isArray(messages) ? [...messages].reverse() : [] });
+  });
+
+  return router;
+}

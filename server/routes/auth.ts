@@ -1,0 +1,134 @@
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import type { Csrf } from '../auth/csrf';
+import { decoyHash, hashPassword, verifyPassword } from '../auth/passwords';
+import { createRateLimits } from '../auth/rate-limits';
+import { currentUser, endSession, endUserSessions, publicUser, requireUser, startSession } from '../auth/sessions';
+import { hashToken, newId, randomToken } from '../auth/tokens';
+import { passwordResets, users } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { emailSchema, parseOr400, passwordSchema } from '../http/validate';
+import { passwordResetMail } from '../services/mail-templates';
+
+const signUpBody = z.strictObject({
+  email: emailSchema,
+  password: passwordSchema,
+  displayName: z.string().trim().min(1).max(80),
+  role: z.enum(['designer', 'quilter']),
+});
+const signInBody = z.strictObject({ email: emailSchema, password: z.string().min(1).max(200) });
+const changePasswordBody = z.strictObject({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema });
+const resetRequestBody = z.strictObject({ email: emailSchema });
+const resetConfirmBody = z.strictObject({ token: z.string().min(20).max(100), newPassword: passwordSchema });
+
+const RESET_MS = 60 * 60_000;
+
+/** Accounts and sessions: `/api/auth/…`. */
+export function authRouter(ctx: AppContext, csrf: Csrf): Router {
+  const { db, config } = ctx;
+  const router = express.Router();
+  const limits = createRateLimits(config);
+  const decoy = decoyHash(config.bcryptRounds);
+
+  router.get('/csrf', (req, res) => {
+    res.json({ csrfToken: csrf.issue(req, res) });
+  });
+
+  router.post('/sign-up', async (req, res) => {
+    const body = parseOr400(signUpBody, req.body);
+    const passwordHash = await hashPassword(body.password, config.bcryptRounds);
+    const id = newId();
+    const created = db
+      .insert(users)
+      .values({ id, email: body.email, displayName: body.displayName, passwordHash, role: body.role, createdAt: new Date() })
+      .onConflictDoNothing({ target: users.email })
+      .returning()
+      .get();
+    if (!created) throw new HttpError(409, 'An account with this e-mail already exists', [{ path: 'email', message: 'already registered' }]);
+    if (req.sessionTokenHash) endSession(db, config, res, req.sessionTokenHash);
+    req.sessionTokenHash = startSession(db, config, res, created.id);
+    req.user = created;
+    res.status(201).json({ user: publicUser(created), csrfToken: csrf.issue(req, res) });
+  });
+
+  router.post('/sign-in', ...limits.signIn, async (req, res) => {
+    const body = parseOr400(signInBody, req.body);
+    const user = db.select().from(users).where(eq(users.email, body.email)).get();
+    const ok = await verifyPassword(body.password, user?.passwordHash ?? decoy);
+    if (!user || !ok) throw new HttpError(401, 'Wrong e-mail or password');
+    if (user.disabled) throw new HttpError(403, 'This account is disabled');
+    if (req.sessionTokenHash) endSession(db, config, res, req.sessionTokenHash);
+    req.sessionTokenHash = startSession(db, config, res, user.id);
+    req.user = user;
+    res.json({ user: publicUser(user), csrfToken: csrf.issue(req, res) });
+  });
+
+  router.post('/sign-out', (req, res) => {
+    endSession(db, config, res, req.sessionTokenHash);
+    req.sessionTokenHash = undefined;
+    req.user = undefined;
+    res.json({ csrfToken: csrf.issue(req, res) });
+  });
+
+  router.get('/me', requireUser, (req, res) => {
+    res.json({ user: publicUser(currentUser(req)) });
+  });
+
+  router.post('/change-password', requireUser, async (req, res) => {
+    const body = parseOr400(changePasswordBody, req.body);
+    const user = currentUser(req);
+    if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
+      throw new HttpError(401, 'The current password is wrong', [{ path: 'currentPassword', message: 'does not match' }]);
+    }
+    const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
+    db.transaction((tx) => {
+      tx.update(users).set({ passwordHash }).where(eq(users.id, user.id)).run();
+      endUserSessions(tx, user.id, req.sessionTokenHash);
+    });
+    res.json({ ok: true });
+  });
+
+  router.post('/password-reset', ...limits.reset, async (req, res) => {
+    const body = parseOr400(resetRequestBody, req.body);
+    const user = db.select().from(users).where(eq(users.email, body.email)).get();
+    if (user && !user.disabled) {
+      const token = randomToken();
+      const now = Date.now();
+      db.insert(passwordResets)
+        .values({ tokenHash: hashToken(token), userId: user.id, createdAt: new Date(now), expiresAt: new Date(now + RESET_MS) })
+        .run();
+      const link = `${config.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
+      try {
+        await ctx.mailer.send({ to: user.email, ...passwordResetMail(user.displayName, link) });
+      } catch (err) {
+        ctx.log('password-reset mail failed', err);
+        throw new HttpError(503, 'The e-mail could not be sent; try again later');
+      }
+    }
+    res.status(202).json({ ok: true });
+  });
+
+  router.post('/password-reset/confirm', async (req, res) => {
+    const body = parseOr400(resetConfirmBody, req.body);
+    const tokenHash = hashToken(body.token);
+    const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
+    const done = db.transaction((tx) => {
+      const reset = tx
+        .select()
+        .from(passwordResets)
+        .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
+        .get();
+      if (!reset) return false;
+      tx.update(passwordResets).set({ usedAt: new Date() }).where(eq(passwordResets.tokenHash, tokenHash)).run();
+      tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId)).run();
+      endUserSessions(tx, reset.userId);
+      return true;
+    });
+    if (!done) throw new HttpError(400, 'This reset link is invalid or has expired', [{ path: 'token', message: 'invalid or expired' }]);
+    res.json({ ok: true });
+  });
+
+  return router;
+}

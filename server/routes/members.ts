@@ -1,0 +1,145 @@
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser } from '../auth/sessions';
+import { hashToken, newId, randomToken } from '../auth/tokens';
+import { invitations, MEMBER_ACCESS, members, users } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { emailSchema, idSchema, parseOr400 } from '../http/validate';
+import { resolvePatternAccess } from '../services/access';
+import { invitationMail } from '../services/mail-templates';
+
+const inviteBody = z.strictObject({ email: emailSchema, access: z.enum(MEMBER_ACCESS) });
+const accessBody = z.strictObject({ access: z.enum(MEMBER_ACCESS) });
+
+const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
+
+/** `/api/patterns/:id/members` and `/api/patterns/:id/invitations`: sharing a pattern. */
+export function membersRouter(ctx: AppContext): Router {
+  const { db, config } = ctx;
+  const router = express.Router({ mergeParams: true });
+
+  router.get('/members', (req, res) => {
+    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const owner = db.select().from(users).where(eq(users.id, pattern.ownerId)).get();
+    const rows = db
+      .select({ m: members, email: users.email, displayName: users.displayName })
+      .from(members)
+      .innerJoin(users, eq(users.id, members.userId))
+      .where(eq(members.patternId, pattern.id))
+      .orderBy(members.createdAt)
+      .all();
+    const pending =
+      access === 'owner'
+        ? db
+            .select()
+            .from(invitations)
+            .where(
+              and(
+                eq(invitations.patternId, pattern.id),
+                isNull(invitations.acceptedAt),
+                isNull(invitations.revokedAt),
+                gt(invitations.expiresAt, new Date()),
+              ),
+            )
+            .all()
+        : [];
+    res.json({
+      owner: owner ? { id: owner.id, email: owner.email, displayName: owner.displayName } : null,
+      members: rows.map((r) => ({
+        userId: r.m.userId,
+        email: r.email,
+        displayName: r.displayName,
+        access: r.m.access,
+        createdAt: r.m.createdAt.toISOString(),
+      })),
+      invitations: pending.map(invitationJson),
+    });
+  });
+
+  router.post('/invitations', async (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const user = currentUser(req);
+    const body = parseOr400(inviteBody, req.body);
+    if (body.email === user.email) throw new HttpError(400, 'You own this pattern already', [{ path: 'email', message: 'is your own address' }]);
+    const token = randomToken();
+    const now = Date.now();
+    const invitation = db
+      .insert(invitations)
+      .values({
+        id: newId(),
+        tokenHash: hashToken(token),
+        patternId: pattern.id,
+        email: body.email,
+        access: body.access,
+        invitedBy: user.id,
+        createdAt: new Date(now),
+        expiresAt: new Date(now + config.invitationDays * 86_400_000),
+      })
+      .returning()
+      .get();
+    const link = `${config.publicUrl}/invitations/accept?token=${encodeURIComponent(token)}`;
+    try {
+      await ctx.mailer.send({ to: body.email, ...invitationMail(user.displayName, pattern.title, body.access, link, config.invitationDays) });
+    } catch (err) {
+      ctx.log('invitation mail failed', err);
+      db.delete(invitations).where(eq(invitations.id, invitation.id)).run();
+      throw new HttpError(503, 'The invitation e-mail could not be sent; try again later');
+    }
+    res.status(201).json({ invitation: invitationJson(invitation) });
+  });
+
+  router.delete('/invitations/:invitationId', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const invitationId = parseOr400(idSchema, req.params.invitationId, 'Invalid invitation id');
+    const revoked = db
+      .update(invitations)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(invitations.id, invitationId), eq(invitations.patternId, pattern.id), isNull(invitations.acceptedAt)))
+      .returning()
+      .get();
+    if (!revoked) throw new HttpError(404, 'Invitation not found');
+    res.status(204).end();
+  });
+
+  router.patch('/members/:userId', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
+    const body = parseOr400(accessBody, req.body);
+    const updated = db
+      .update(members)
+      .set({ access: body.access })
+      .where(and(eq(members.patternId, pattern.id), eq(members.userId, userId)))
+      .returning()
+      .get();
+    if (!updated) throw new HttpError(404, 'Member not found');
+    res.json({ member: { userId: updated.userId, access: updated.access, createdAt: updated.createdAt.toISOString() } });
+  });
+
+  router.delete('/members/:userId', (req, res) => {
+    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const user = currentUser(req);
+    const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
+    if (access !== 'owner' && userId !== user.id) throw new HttpError(403, 'Only the owner can remove other members');
+    const removed = db
+      .delete(members)
+      .where(and(eq(members.patternId, pattern.id), eq(members.userId, userId)))
+      .returning()
+      .get();
+    if (!removed) throw new HttpError(404, 'Member not found');
+    res.status(204).end();
+  });
+
+  return router;
+}
+
+function invitationJson(i: typeof invitations.$inferSelect) {
+  return {
+    id: i.id,
+    email: i.email,
+    access: i.access,
+    createdAt: i.createdAt.toISOString(),
+    expiresAt: i.expiresAt.toISOString(),
+  };
+}

@@ -1,0 +1,193 @@
+import fs from 'node:fs';
+import { and, asc, count, desc, eq, isNotNull, isNull, or, sql } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser, requireUser } from '../auth/sessions';
+import { newId } from '../auth/tokens';
+import { members, patterns, printSets, uploads, users } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { likeContains, pagingQuery } from '../http/paging';
+import { parseOr400 } from '../http/validate';
+import { canDesign, resolvePatternAccess, type Access } from '../services/access';
+import { removeStoredFiles, resolveInData } from '../services/files';
+import {
+  createPattern,
+  findRevision,
+  ownerName,
+  patternJson,
+  revisionJson,
+  saveRevision,
+  validDocument,
+} from '../services/revisions';
+
+const listQuery = z.strictObject({
+  ...pagingQuery,
+  q: z.string().trim().max(120).optional(),
+  sort: z.enum(['updated', 'created', 'title']).default('updated'),
+  order: z.enum(['asc', 'desc']).default('desc'),
+  scope: z.enum(['all', 'owned', 'shared', 'trash']).default('all'),
+});
+const createBody = z.strictObject({ document: z.unknown() });
+const saveBody = z.strictObject({ baseRevision: z.number().int().min(1), document: z.unknown() });
+const duplicateBody = z.strictObject({ title: z.string().trim().min(1).max(120).optional() });
+
+/** Patterns: list, create, read, save, duplicate, trash, restore, delete. */
+export function patternsRouter(ctx: AppContext): Router {
+  const { db, config } = ctx;
+  const router = express.Router();
+
+  router.get('/', requireUser, (req, res) => {
+    const user = currentUser(req);
+    const q = parseOr400(listQuery, req.query, 'Invalid query');
+    const membership = and(eq(members.patternId, patterns.id), eq(members.userId, user.id));
+    const scopeWhere = {
+      all: and(or(eq(patterns.ownerId, user.id), isNotNull(members.userId)), isNull(patterns.trashedAt)),
+      owned: and(eq(patterns.ownerId, user.id), isNull(patterns.trashedAt)),
+      shared: and(isNotNull(members.userId), isNull(patterns.trashedAt)),
+      trash: and(eq(patterns.ownerId, user.id), isNotNull(patterns.trashedAt)),
+    }[q.scope];
+    const where = q.q ? and(scopeWhere, sql`${patterns.title} LIKE ${likeContains(q.q)} ESCAPE '\\'`) : scopeWhere;
+    const direction = q.order === 'asc' ? asc : desc;
+    const sortColumn = {
+      updated: patterns.updatedAt,
+      created: patterns.createdAt,
+      title: sql`${patterns.title} COLLATE NOCASE`,
+    }[q.sort];
+    const total =
+      db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).get()?.n ?? 0;
+    const rows = db
+      .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access })
+      .from(patterns)
+      .leftJoin(members, membership)
+      .innerJoin(users, eq(users.id, patterns.ownerId))
+      .where(where)
+      .orderBy(direction(sortColumn), direction(patterns.id))
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize)
+      .all();
+    res.json({
+      items: rows.map((r) =>
+        patternJson(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access),
+      ),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    });
+  });
+
+  router.post('/', requireUser, (req, res) => {
+    const user = currentUser(req);
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers can create patterns');
+    const body = parseOr400(createBody, req.body);
+    const document = validDocument(body.document);
+    const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
+    res.status(201).json({
+      pattern: patternJson(pattern, user.displayName, 'owner'),
+      revision: revisionJson(revision, user.displayName),
+    });
+  });
+
+  router.get('/:id', (req, res) => {
+    const { pattern, access } = resolvePatternAccess(db, req.user, req.params.id);
+    const latest = findRevision(db, pattern.id);
+    if (!latest) throw new HttpError(500, 'Pattern has no revision');
+    res.json({
+      pattern: patternJson(pattern, ownerName(db, pattern.ownerId), access),
+      revision: revisionJson(latest.revision, latest.authorName),
+    });
+  });
+
+  router.put('/:id', (req, res) => {
+    const { access } = resolvePatternAccess(db, req.user, req.params.id, 'edit');
+    const user = currentUser(req);
+    const body = parseOr400(saveBody, req.body);
+    const document = validDocument(body.document);
+    const saved = db.transaction((tx) => saveRevision(tx, req.params.id, body.baseRevision, document, user.id), {
+      behavior: 'immediate',
+    });
+    res.json({
+      pattern: patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access),
+      revision: revisionJson(saved.revision, user.displayName),
+    });
+  });
+
+  router.post('/:id/duplicate', async (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'edit');
+    const user = currentUser(req);
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers can duplicate patterns');
+    const body = parseOr400(duplicateBody, req.body ?? {});
+    const latest = findRevision(db, pattern.id);
+    if (!latest) throw new HttpError(500, 'Pattern has no revision');
+    const source = JSON.parse(latest.revision.document) as Record<string, unknown> & { title: string };
+    const title = body.title ?? `${source.title} (copy)`.slice(0, 120);
+    const document = validDocument({ ...source, title });
+    // The reference image travels with the copy as the new owner's own file.
+    const ref = document.referenceImage;
+    let copied: { row: typeof uploads.$inferInsert; from: string } | undefined;
+    if (ref) {
+      const upload = db.select().from(uploads).where(and(eq(uploads.id, ref.uploadId), eq(uploads.patternId, pattern.id))).get();
+      if (upload) {
+        const id = newId();
+        const storagePath = `uploads/${user.id}/${id}${upload.storagePath.slice(upload.storagePath.lastIndexOf('.'))}`;
+        copied = { row: { ...upload, id, uploaderId: user.id, storagePath, createdAt: new Date() }, from: upload.storagePath };
+        document.referenceImage = { ...ref, uploadId: id };
+      } else delete document.referenceImage;
+    }
+    if (copied) {
+      const target = resolveInData(config.dataDir, copied.row.storagePath);
+      await fs.promises.mkdir(resolveInData(config.dataDir, `uploads/${user.id}`), { recursive: true });
+      await fs.promises.copyFile(resolveInData(config.dataDir, copied.from), target);
+    }
+    const created = db.transaction(
+      (tx) => {
+        const made = createPattern(tx, user.id, document);
+        if (copied) tx.insert(uploads).values({ ...copied.row, patternId: made.pattern.id }).run();
+        return made;
+      },
+      { behavior: 'immediate' },
+    );
+    res.status(201).json({
+      pattern: patternJson(created.pattern, user.displayName, 'owner'),
+      revision: revisionJson(created.revision, user.displayName),
+    });
+  });
+
+  router.post('/:id/trash', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    const updated = db
+      .update(patterns)
+      .set({ trashedAt: pattern.trashedAt ?? new Date() })
+      .where(eq(patterns.id, pattern.id))
+      .returning()
+      .get();
+    res.json({ pattern: patternJson(updated, currentUser(req).displayName, 'owner') });
+  });
+
+  router.post('/:id/restore', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    const updated = db.update(patterns).set({ trashedAt: null }).where(eq(patterns.id, pattern.id)).returning().get();
+    res.json({ pattern: patternJson(updated, currentUser(req).displayName, 'owner') });
+  });
+
+  router.delete('/:id', async (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    if (!pattern.trashedAt) throw new HttpError(409, 'Move the pattern to the trash before deleting it for good');
+    const files = db.transaction(
+      (tx) => {
+        const paths = [
+          ...tx.select({ p: uploads.storagePath }).from(uploads).where(eq(uploads.patternId, pattern.id)).all(),
+          ...tx.select({ p: printSets.storagePath }).from(printSets).where(eq(printSets.patternId, pattern.id)).all(),
+        ].map((r) => r.p);
+        // Revisions, members, invitations, sewing log, uploads and print-set rows go by cascade.
+        tx.delete(patterns).where(eq(patterns.id, pattern.id)).run();
+        return paths;
+      },
+      { behavior: 'immediate' },
+    );
+    await removeStoredFiles(config.dataDir, files);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,62 @@
+import { and, eq } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser } from '../auth/sessions';
+import { SEWING_STAGES, sewingLog } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { parseOr400 } from '../http/validate';
+import { resolvePatternAccess } from '../services/access';
+import { findRevision } from '../services/revisions';
+
+const sectionIdParam = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be a section id');
+const stageBody = z.strictObject({ stage: z.enum(SEWING_STAGES).nullable() });
+
+const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
+
+/** `/api/patterns/:id/sewing-log`: the signed-in user's progress on a pattern's sections. */
+export function sewingLogRouter(ctx: AppContext): Router {
+  const { db } = ctx;
+  const router = express.Router({ mergeParams: true });
+
+  router.get('/', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const user = currentUser(req);
+    const rows = db
+      .select()
+      .from(sewingLog)
+      .where(and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id)))
+      .all();
+    res.json({ entries: rows.map(entryJson) });
+  });
+
+  router.put('/:sectionId', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const user = currentUser(req);
+    const sectionId = parseOr400(sectionIdParam, req.params.sectionId, 'Invalid section id');
+    const body = parseOr400(stageBody, req.body);
+    const latest = findRevision(db, pattern.id);
+    const doc = latest ? (JSON.parse(latest.revision.document) as { sections: { id: string }[] }) : { sections: [] };
+    if (!doc.sections.some((s) => s.id === sectionId)) {
+      throw new HttpError(400, 'No such section in the latest revision', [{ path: 'sectionId', message: `unknown section "${sectionId}"` }]);
+    }
+    const key = and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id), eq(sewingLog.sectionId, sectionId));
+    if (body.stage === null) {
+      db.delete(sewingLog).where(key).run();
+      res.json({ entry: null });
+      return;
+    }
+    const entry = db
+      .insert(sewingLog)
+      .values({ patternId: pattern.id, userId: user.id, sectionId, stage: body.stage, updatedAt: new Date() })
+      .onConflictDoUpdate({
+        target: [sewingLog.patternId, sewingLog.userId, sewingLog.sectionId],
+        set: { stage: body.stage, updatedAt: new Date() },
+      })
+      .returning()
+      .get();
+    res.json({ entry: entryJson(entry) });
+  });
+
+  return router;
+}

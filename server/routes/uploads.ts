@@ -1,0 +1,135 @@
+import fs from 'node:fs';
+import { and, desc, eq } from 'drizzle-orm';
+import express, { type Request, type Response, type Router } from 'express';
+import multer from 'multer';
+import { fileTypeFromBuffer } from 'file-type';
+import type { AppContext } from '../app-context';
+import { currentUser } from '../auth/sessions';
+import { newId } from '../auth/tokens';
+import { uploads, type Upload } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { idSchema, parseOr400 } from '../http/validate';
+import { resolvePatternAccess } from '../services/access';
+import { removeStoredFiles, resolveInData, sha256Hex, writeFileAtomic } from '../services/files';
+
+/** Largest reference image accepted. */
+export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+
+/** Image types accepted, by the type their bytes show (not their name). */
+const ACCEPTED: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp' };
+
+const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
+
+export function uploadJson(u: Upload) {
+  return {
+    id: u.id,
+    fileName: u.fileName,
+    mimeType: u.mimeType,
+    bytes: u.bytes,
+    sha256: u.sha256,
+    createdAt: u.createdAt.toISOString(),
+    url: `/api/patterns/${u.patternId}/uploads/${u.id}/file`,
+  };
+}
+
+/** A printable, harmless version of a client's file name. */
+const cleanName = (name: string) =>
+  (name.normalize('NFC').replace(/[^\p{L}\p{N} ._()-]/gu, '_').replace(/^\.+/, '').slice(0, 120) || 'image');
+
+/** `/api/patterns/:id/uploads…`: reference images to trace on the drafting board. */
+export function uploadsRouter(ctx: AppContext): Router {
+  const { db, config } = ctx;
+  const router = express.Router({ mergeParams: true });
+  const receive = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5, fieldSize: 1024, parts: 8 },
+  }).single('file');
+
+  const readFile = (req: Request, res: Response) =>
+    new Promise<Express.Multer.File>((resolve, reject) => {
+      receive(req, res, (err: unknown) => {
+        if (err instanceof multer.MulterError) {
+          if (err.code === 'LIMIT_FILE_SIZE') return reject(new HttpError(413, 'The image is larger than 10 MB'));
+          return reject(new HttpError(400, `Bad upload: ${err.message}`, [{ path: err.field ?? 'file', message: err.code }]));
+        }
+        if (err) return reject(new HttpError(400, 'Bad upload: the multipart body could not be read'));
+        if (!req.file) return reject(new HttpError(400, 'No file in the upload', [{ path: 'file', message: 'required' }]));
+        resolve(req.file);
+      });
+    });
+
+  router.post('/', async (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'edit');
+    const user = currentUser(req);
+    if (!req.is('multipart/form-data')) throw new HttpError(415, 'Send the image as multipart/form-data, field "file"');
+    const file = await readFile(req, res);
+    const type = await fileTypeFromBuffer(file.buffer);
+    const ext = type ? ACCEPTED[type.mime] : undefined;
+    if (!type || !ext) {
+      throw new HttpError(415, 'Only PNG, JPEG and WebP images can be uploaded', {
+        detected: type?.mime ?? 'unknown',
+        accepted: Object.keys(ACCEPTED),
+      });
+    }
+    const id = newId();
+    const storagePath = `uploads/${user.id}/${id}.${ext}`;
+    await writeFileAtomic(resolveInData(config.dataDir, storagePath), file.buffer);
+    try {
+      const row = db
+        .insert(uploads)
+        .values({
+          id,
+          patternId: pattern.id,
+          uploaderId: user.id,
+          fileName: cleanName(file.originalname),
+          mimeType: type.mime,
+          bytes: file.size,
+          sha256: sha256Hex(file.buffer),
+          storagePath,
+          createdAt: new Date(),
+        })
+        .returning()
+        .get();
+      res.status(201).json({ upload: uploadJson(row) });
+    } catch (err) {
+      await removeStoredFiles(config.dataDir, [storagePath]);
+      throw err;
+    }
+  });
+
+  router.get('/', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const rows = db.select().from(uploads).where(eq(uploads.patternId, pattern.id)).orderBy(desc(uploads.createdAt)).all();
+    res.json({ items: rows.map(uploadJson) });
+  });
+
+  const findUpload = (patternId: string, raw: unknown) => {
+    const uploadId = parseOr400(idSchema, raw, 'Invalid upload id');
+    const row = db.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.patternId, patternId))).get();
+    if (!row) throw new HttpError(404, 'Upload not found');
+    return row;
+  };
+
+  router.get('/:uploadId/file', (req, res, next) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const row = findUpload(pattern.id, req.params.uploadId);
+    const file = resolveInData(config.dataDir, row.storagePath);
+    if (!fs.existsSync(file)) throw new HttpError(404, 'Upload not found');
+    res.setHeader('Content-Type', row.mimeType);
+    res.setHeader('Content-Disposition', `inline; filename="${row.fileName.replace(/"/g, '')}"`);
+    res.setHeader('Cache-Control', 'private, max-age=3600');
+    res.sendFile(file, { headers: { 'Content-Type': row.mimeType } }, (err) => {
+      if (err && !res.headersSent) next(err);
+    });
+  });
+
+  router.delete('/:uploadId', async (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'edit');
+    const row = findUpload(pattern.id, req.params.uploadId);
+    db.delete(uploads).where(eq(uploads.id, row.id)).run();
+    await removeStoredFiles(config.dataDir, [row.storagePath]);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,53 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import crypto from 'node:crypto';
+
+/** Resolves a stored relative path inside the data folder; refuses anything that walks out of it. */
+export function resolveInData(dataDir: string, relative: string): string {
+  const root = path.resolve(dataDir);
+  const full = path.resolve(root, relative);
+  if (full !== root && !full.startsWith(root + path.sep)) throw new Error(`path escapes the data folder: ${relative}`);
+  return full;
+}
+
+/**
+ * Writes a file so that it is either absent or complete: a temporary name in the same folder,
+ * fsync, rename over the final name, fsync of the folder.
+ */
+export async function writeFileAtomic(file: string, data: Uint8Array): Promise<void> {
+  const dir = path.dirname(file);
+  await fs.promises.mkdir(dir, { recursive: true });
+  const tmp = path.join(dir, `.${path.basename(file)}.${crypto.randomBytes(6).toString('hex')}.tmp`);
+  const handle = await fs.promises.open(tmp, 'wx', 0o600);
+  try {
+    await handle.writeFile(data);
+    await handle.sync();
+  } finally {
+    await handle.close();
+  }
+  try {
+    await fs.promises.rename(tmp, file);
+  } catch (err) {
+    await fs.promises.rm(tmp, { force: true });
+    throw err;
+  }
+  const dirHandle = await fs.promises.open(dir, 'r');
+  try {
+    await dirHandle.sync();
+  } catch {
+    // Some file systems refuse fsync on a folder; the rename is still atomic.
+  } finally {
+    await dirHandle.close();
+  }
+}
+
+/** Removes stored files, ignoring ones already gone. */
+export async function removeStoredFiles(dataDir: string, relatives: (string | null | undefined)[]): Promise<void> {
+  await Promise.all(
+    relatives
+      .filter((r): r is string => typeof r === 'string' && r.length > 0)
+      .map((r) => fs.promises.rm(resolveInData(dataDir, r), { force: true }).catch(() => undefined)),
+  );
+}
+
+export const sha256Hex = (data: Uint8Array) => crypto.createHash('sha256').update(data).digest('hex');

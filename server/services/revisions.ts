@@ -1,0 +1,116 @@
+import { and, desc, eq } from 'drizzle-orm';
+import { parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
+import type { DbLike } from '../db/database';
+import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { newId } from '../auth/tokens';
+import type { Access } from './access';
+
+/** Validates a pattern document with the piecing library's schema; 400 with the bad paths otherwise. */
+export function validDocument(raw: unknown): PatternDocument {
+  const result = parsePatternDocument(raw);
+  if (!result.ok) {
+    throw new HttpError(
+      400,
+      'The pattern document is not valid',
+      result.issues.map((i) => ({ path: i.path ? `document.${i.path}` : 'document', message: i.message })),
+    );
+  }
+  return result.document;
+}
+
+export function revisionSummary(r: Revision, authorName: string) {
+  return {
+    id: r.id,
+    number: r.number,
+    author: { id: r.authorId, displayName: authorName },
+    restoredFrom: r.restoredFrom,
+    createdAt: r.createdAt.toISOString(),
+  };
+}
+
+export function revisionJson(r: Revision, authorName: string) {
+  return { ...revisionSummary(r, authorName), document: JSON.parse(r.document) as PatternDocument };
+}
+
+export function patternJson(p: Pattern, ownerName: string, access: Access) {
+  return {
+    id: p.id,
+    title: p.title,
+    owner: { id: p.ownerId, displayName: ownerName },
+    access,
+    headRevision: p.headRevision,
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+    trashedAt: p.trashedAt ? p.trashedAt.toISOString() : null,
+  };
+}
+
+/** A revision with its author's name, by pattern and number (latest when number is omitted). */
+export function findRevision(db: DbLike, patternId: string, number?: number) {
+  const q = db
+    .select({ revision: revisions, authorName: users.displayName })
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId));
+  if (number === undefined) return q.where(eq(revisions.patternId, patternId)).orderBy(desc(revisions.number)).limit(1).get();
+  return q.where(and(eq(revisions.patternId, patternId), eq(revisions.number, number))).get();
+}
+
+export function ownerName(db: DbLike, ownerId: string): string {
+  return db.select({ n: users.displayName }).from(users).where(eq(users.id, ownerId)).get()?.n ?? '';
+}
+
+/** Creates a pattern with revision 1 in one transaction. */
+export function createPattern(db: DbLike, ownerId: string, document: PatternDocument) {
+  const now = new Date();
+  const id = newId();
+  const pattern = db
+    .insert(patterns)
+    .values({ id, ownerId, title: document.title, headRevision: 1, createdAt: now, updatedAt: now })
+    .returning()
+    .get();
+  const revision = db
+    .insert(revisions)
+    .values({ id: newId(), patternId: id, number: 1, document: JSON.stringify(document), authorId: ownerId, createdAt: now })
+    .returning()
+    .get();
+  return { pattern, revision };
+}
+
+/**
+ * Stores a new revision on top of `baseRevision`. Run inside an immediate transaction: the head is
+ * read and advanced under the write lock, so of two saves on the same base exactly one wins and the
+ * other gets 409 with the latest revision.
+ */
+export function saveRevision(
+  tx: DbLike,
+  patternId: string,
+  baseRevision: number,
+  document: PatternDocument,
+  authorId: string,
+  restoredFrom: number | null = null,
+) {
+  const pattern = tx.select().from(patterns).where(eq(patterns.id, patternId)).get();
+  if (!pattern) throw new HttpError(404, 'Pattern not found');
+  if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
+  if (pattern.headRevision !== baseRevision) {
+    const latest = findRevision(tx, patternId);
+    throw new HttpError(409, `This pattern was saved by someone else since revision ${baseRevision}`, {
+      latest: latest ? revisionJson(latest.revision, latest.authorName) : null,
+    });
+  }
+  const now = new Date();
+  const number = pattern.headRevision + 1;
+  const revision = tx
+    .insert(revisions)
+    .values({ id: newId(), patternId, number, document: JSON.stringify(document), authorId, restoredFrom, createdAt: now })
+    .returning()
+    .get();
+  const updated = tx
+    .update(patterns)
+    .set({ headRevision: number, title: document.title, updatedAt: now })
+    .where(eq(patterns.id, patternId))
+    .returning()
+    .get();
+  return { pattern: updated, revision };
+}

@@ -1,0 +1,155 @@
+/** Test harness: a real app on a real SQLite file in a temporary folder, mail to the in-process fake. */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import type { Express } from 'express';
+import { createApp } from '../app';
+import type { AppContext } from '../app-context';
+import { loadConfig } from '../config';
+import { openDatabase } from '../db/database';
+import { createSmtpMailer } from '../services/mailer';
+import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
+
+export interface TestServer {
+  app: Express;
+  ctx: AppContext;
+  mail: FakeMailServer;
+  dataDir: string;
+  close(): Promise<void>;
+}
+
+/** Starts an app with its own data folder and fake mail server. `env` overrides settings. */
+export async function startTestServer(env: Record<string, string> = {}): Promise<TestServer> {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'seamwright-test-'));
+  const mail = await startFakeMailServer({ smtpPort: 0, httpPort: 0 });
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    SEAMWRIGHT_DATA_DIR: dataDir,
+    SEAMWRIGHT_STATIC_DIR: path.join(dataDir, 'no-app'),
+    SMTP_PORT: String(mail.smtpPort),
+    MAIL_INBOX_URL: `http://127.0.0.1:${mail.httpPort}`,
+    PUBLIC_URL: 'http://localhost:4200',
+    BCRYPT_ROUNDS: '4',
+    ...env,
+  });
+  const database = openDatabase(config.dataDir);
+  const mailer = createSmtpMailer(config);
+  const errors: unknown[] = [];
+  const ctx: AppContext = { config, database, db: database.db, mailer, log: (_m, err) => errors.push(err) };
+  const app = createApp(ctx);
+  return {
+    app,
+    ctx,
+    mail,
+    dataDir,
+    async close() {
+      await ctx.printSets?.close();
+      mailer.close();
+      database.close();
+      await mail.close();
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+/** A browser-like client: keeps cookies and sends the CSRF token on every request. */
+export class Client {
+  csrfToken = '';
+  user: { id: string; email: string; role: string; displayName: string } | undefined;
+  readonly agent: ReturnType<typeof request.agent>;
+
+  constructor(readonly app: Express) {
+    this.agent = request.agent(app);
+  }
+
+  static async create(app: Express): Promise<Client> {
+    const c = new Client(app);
+    await c.refreshCsrf();
+    return c;
+  }
+
+  async refreshCsrf(): Promise<void> {
+    const res = await this.agent.get('/api/auth/csrf').expect(200);
+    this.csrfToken = res.body.csrfToken;
+  }
+
+  req(method: Method, url: string) {
+    return this.agent[method](url).set('X-CSRF-Token', this.csrfToken);
+  }
+  get(url: string) {
+    return this.req('get', url);
+  }
+  post(url: string, body?: object) {
+    const r = this.req('post', url);
+    return body === undefined ? r : r.send(body);
+  }
+  put(url: string, body?: object) {
+    const r = this.req('put', url);
+    return body === undefined ? r : r.send(body);
+  }
+  patch(url: string, body?: object) {
+    const r = this.req('patch', url);
+    return body === undefined ? r : r.send(body);
+  }
+  del(url: string) {
+    return this.req('delete', url);
+  }
+
+  async signUp(email: string, role: 'designer' | 'quilter' = 'designer', password = 'correct horse battery'): Promise<this> {
+    const res = await this.post('/api/auth/sign-up', { email, password, displayName: email.split('@')[0], role });
+    if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+    this.csrfToken = res.body.csrfToken;
+    this.user = res.body.user;
+    return this;
+  }
+
+  async signIn(email: string, password = 'correct horse battery') {
+    const res = await this.post('/api/auth/sign-in', { email, password });
+    if (res.status === 200) {
+      this.csrfToken = res.body.csrfToken;
+      this.user = res.body.user;
+    }
+    return res;
+  }
+}
+
+/** A new client signed up with `email` and `role`. */
+export async function userClient(app: Express, email: string, role: 'designer' | 'quilter' = 'designer'): Promise<Client> {
+  const c = await Client.create(app);
+  return c.signUp(email, role);
+}
+
+/** A small valid pattern document: one 4 × 4 in. straight section split into two patches. */
+export function sampleDocument(title = 'Test block') {
+  return {
+    formatVersion: 1,
+    title,
+    canvas: { widthIn: 4, heightIn: 4 },
+    fabrics: [
+      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
+      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
+    ],
+    sections: [
+      {
+        id: 'sec-a',
+        label: 'A',
+        geometry: { kind: 'straight', vertices: [ { x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 4 }, { x: 0, y: 4 } ] },
+        seams: [{ id: 's1', a: { x: 0, y: 0 }, b: { x: 4, y: 4 } }],
+        patches: [
+          { number: 1, anchor: { x: 3, y: 1 }, fabricId: 'plum' },
+          { number: 2, anchor: { x: 1, y: 3 }, fabricId: 'oat' },
+        ],
+      },
+    ],
+  };
+}
+
+/** Pulls the first link with `?token=` out of an e-mail body. */
+export function tokenFromMail(text: string): { link: string; token: string } {
+  const m = /(https?:\/\/\S+\?token=([A-Za-z0-9_%-]+))/.exec(text);
+  if (!m) throw new Error(`no token link in mail: ${text}`);
+  return { link: m[1], token: decodeURIComponent(m[2]) };
+}
