@@ -153,3 +153,24 @@ export function tokenFromMail(text: string): { link: string; token: string } {
   if (!m) throw new Error(`no token link in mail: ${text}`);
   return { link: m[1], token: decodeURIComponent(m[2]) };
 }
+
+/** A 1 × 1 pixel PNG (a valid file: signature, IHDR, IDAT, IEND). */
+export const TINY_PNG = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg==',
+  'base64',
+);
+
+/** Creates a pattern owned by `owner` and adds members directly (the invitation flow has its own tests). */
+export async function sharedPattern(
+  t: TestServer,
+  owner: Client,
+  shares: { client: Client; access: 'co-designer' | 'quilter' }[] = [],
+  title = 'Shared block',
+): Promise<string> {
+  const res = await owner.post('/api/patterns', { document: sampleDocument(title) });
+  if (res.status !== 201) throw new Error(`create failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const id: string = res.body.pattern.id;
+  const add = t.ctx.database.sqlite.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)');
+  for (const s of shares) add.run(id, s.client.user!.id, s.access, Date.now());
+  return id;
+}
