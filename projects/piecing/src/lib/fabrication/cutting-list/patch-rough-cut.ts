@@ -1,0 +1,25 @@
+import type { Point } from '../../document/pattern-schema';
+import { offsetPolygon } from '../seam-allowance/clipper-offset';
+import { roundUpToEighthInch } from '../shared/rounding';
+import { minAreaRectangle, type OrientedRectangle } from './min-area-rectangle';
+
+/** The rough-cut rectangle for one patch. */
+export interface PatchRoughCut {
+  /** The smallest rectangle around the patch grown by allowance + margin, unrounded. */
+  rectangle: OrientedRectangle;
+  /** Its shorter and longer sides rounded up to ⅛ in.: the size to cut. */
+  widthIn: number;
+  lengthIn: number;
+}
+
+/**
+ * The rough-cut piece for a patch: the minimum-area rectangle around the patch offset outward by the
+ * seam allowance plus the piecing margin (mitre joins, as for cutting lines), sides rounded up to ⅛ in.
+ */
+export function patchRoughCut(polygon: readonly Point[], allowanceIn = 0.25, marginIn = 0.5): PatchRoughCut {
+  const grown = offsetPolygon(polygon, allowanceIn + marginIn, 'mitre');
+  const rectangle = minAreaRectangle(grown.length > 0 ? grown : polygon);
+  const a = roundUpToEighthInch(rectangle.alongIn);
+  const b = roundUpToEighthInch(rectangle.acrossIn);
+  return { rectangle, widthIn: Math.min(a, b), lengthIn: Math.max(a, b) };
+}
