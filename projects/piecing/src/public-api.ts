@@ -9,3 +9,4 @@ export * from './lib/geometry/index';
 export * from './lib/fabrication/index';
 export * from './lib/demo/index';
 export * from './lib/print/index';
+export * from './lib/sewability/index';
