@@ -6,3 +6,4 @@ export * from './seam-allowance/index';
 export * from './shared/rounding';
 export * from './strip-sets/index';
 export * from './cutting-list/index';
+export * from './matching-marks/index';
