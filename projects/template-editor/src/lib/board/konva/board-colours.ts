@@ -1,0 +1,22 @@
+/** Colours of the Drafting board (our own palette: warm paper, ink lines, a teal for selection). */
+export const BOARD_COLOURS = {
+  desk: '#efece6',
+  paper: '#fffdf8',
+  gridMinor: '#ebe6dc',
+  gridMajor: '#d3cabb',
+  rulerBand: '#f6f3ee',
+  rulerInk: '#5b564d',
+  ink: '#34312c',
+  seam: '#34312c',
+  emptyPatch: '#ffffff',
+  label: '#1f1d1a',
+  labelHalo: 'rgba(255,253,248,0.85)',
+  selection: '#1f7a8c',
+  handle: '#1f7a8c',
+  failing: '#c23b22',
+  cuttingLine: '#9a6a2f',
+  guideLine: '#7a4fa0',
+  preview: '#1f7a8c',
+  previewInvalid: '#c23b22',
+  snap: '#e07a1f',
+} as const;

@@ -1,0 +1,273 @@
+import Konva from 'konva';
+import type { Fabric, PatternDocument, Section } from '@seamwright/piecing';
+import { sectionHandles, toScreen, type BoardEditor, type ToolPreview } from '../../core/public-api';
+import { BOARD_COLOURS } from './board-colours';
+import { createGridShape, createRulerShape, RULER_PX, type GridView } from './grid-shape';
+import { createSectionNode, rescaleLabels } from './section-node';
+
+interface SectionEntry {
+  section: Section;
+  node: Konva.Group;
+  active: boolean;
+  key: string;
+}
+
+/**
+ * Draws a {@link BoardEditor} on a Konva stage. Layers: grid (screen space), reference image, the
+ * static sections, the active section (selected or being dragged), the tool overlay and the rulers.
+ * A section is rebuilt only when its object changed, and only the layers that changed are redrawn:
+ * a vertex drag redraws the active layer and the overlay, never the static sections.
+ */
+export class BoardRenderer {
+  readonly stage: Konva.Stage;
+  private readonly gridLayer = new Konva.Layer({ listening: false });
+  private readonly referenceLayer = new Konva.Layer({ listening: false });
+  private readonly staticLayer = new Konva.Layer({ listening: false });
+  private readonly activeLayer = new Konva.Layer({ listening: false });
+  private readonly overlayLayer = new Konva.Layer({ listening: false });
+  private readonly rulerLayer = new Konva.Layer({ listening: false });
+  private readonly staticContent = new Konva.Group({ listening: false });
+  private readonly activeContent = new Konva.Group({ listening: false });
+  private readonly referenceContent = new Konva.Group({ listening: false });
+  private readonly entries = new Map<string, SectionEntry>();
+  private referenceImage: Konva.Image | null = null;
+  private referenceUrl: string | null = null;
+  private frame = 0;
+  private lastViewKey = '';
+  private lastScale = 0;
+  private lastMirrored = false;
+  private readonly unsubscribe: Array<() => void> = [];
+  /** How many times each layer was drawn (for tests and the benchmark). */
+  readonly draws = { grid: 0, static: 0, active: 0, overlay: 0 };
+
+  constructor(
+    container: HTMLDivElement,
+    private readonly editor: BoardEditor,
+  ) {
+    const { width, height } = editor.sizePx;
+    this.stage = new Konva.Stage({ container, width, height, listening: false });
+    const view = (): GridView => {
+      const v = this.editor.viewport;
+      const cursor = this.editor.cursor;
+      const doc = this.editor.store.document;
+      return {
+        viewport: v,
+        widthPx: this.editor.sizePx.width,
+        heightPx: this.editor.sizePx.height,
+        unit: this.editor.settings.unit,
+        canvasWidthIn: doc.canvas.widthIn,
+        canvasHeightIn: doc.canvas.heightIn,
+        cursorPx: cursor ? toScreen(v, cursor) : null,
+      };
+    };
+    this.gridLayer.add(createGridShape(view));
+    this.rulerLayer.add(createRulerShape(view));
+    this.referenceLayer.add(this.referenceContent);
+    this.staticLayer.add(this.staticContent);
+    this.activeLayer.add(this.activeContent);
+    this.stage.add(this.gridLayer, this.referenceLayer, this.staticLayer, this.activeLayer, this.overlayLayer, this.rulerLayer);
+    this.unsubscribe.push(editor.store.subscribe(() => this.schedule()));
+    this.unsubscribe.push(editor.onViewChange(() => this.schedule()));
+    this.renderNow();
+  }
+
+  /** Shows (or hides, with null) a reference image to trace, locked under the drawing. */
+  setReferenceImage(url: string | null): void {
+    if (url === this.referenceUrl) return;
+    this.referenceUrl = url;
+    this.referenceImage?.destroy();
+    this.referenceImage = null;
+    if (!url) {
+      this.referenceLayer.batchDraw();
+      return;
+    }
+    const img = new Image();
+    img.onload = () => {
+      if (this.referenceUrl !== url) return;
+      const doc = this.editor.store.document;
+      const ref = doc.referenceImage;
+      const widthIn = ref?.widthIn ?? doc.canvas.widthIn;
+      const heightIn = (widthIn * img.naturalHeight) / Math.max(1, img.naturalWidth);
+      this.referenceImage = new Konva.Image({ name: 'reference-image', image: img, x: ref?.origin.x ?? 0, y: ref?.origin.y ?? 0, width: widthIn, height: heightIn, listening: false });
+      this.referenceContent.add(this.referenceImage);
+      this.renderNow();
+    };
+    img.src = url;
+  }
+
+  /** Resizes the stage to the editor's size. */
+  resize(): void {
+    this.stage.size(this.editor.sizePx);
+    this.renderNow();
+  }
+
+  /** Draws on the next animation frame (coalescing bursts of pointer events). */
+  schedule(): void {
+    if (this.frame) return;
+    this.frame = requestAnimationFrame(() => {
+      this.frame = 0;
+      this.renderNow();
+    });
+  }
+
+  /** Draws now. */
+  renderNow(): void {
+    const ed = this.editor;
+    const v = ed.viewport;
+    const doc = ed.store.document;
+    const viewKey = `${v.scale}|${v.originX}|${v.originY}|${v.mirrored}|${v.mirrorWidthIn}|${ed.sizePx.width}|${ed.sizePx.height}|${ed.settings.unit}|${doc.canvas.widthIn}|${doc.canvas.heightIn}`;
+    const viewChanged = viewKey !== this.lastViewKey;
+    this.lastViewKey = viewKey;
+    let staticDirty = viewChanged;
+    let activeDirty = viewChanged;
+
+    if (viewChanged) {
+      for (const g of [this.staticContent, this.activeContent, this.referenceContent]) {
+        g.position({ x: v.originX + (v.mirrored ? v.mirrorWidthIn * v.scale : 0), y: v.originY });
+        g.scale({ x: v.mirrored ? -v.scale : v.scale, y: v.scale });
+      }
+      if (v.scale !== this.lastScale || v.mirrored !== this.lastMirrored) {
+        for (const e of this.entries.values()) rescaleLabels(e.node, v.scale, v.mirrored);
+        this.lastScale = v.scale;
+        this.lastMirrored = v.mirrored;
+      }
+    }
+
+    const snap = ed.store.snapshot();
+    const activeId = snap.gestureSectionId ?? snap.selection.sectionId;
+    const fabrics = new Map<string, Fabric>(doc.fabrics.map((f) => [f.id, f]));
+    const settingsKey = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabricKey(doc)}`;
+    const seen = new Set<string>();
+    doc.sections.forEach((section, z) => {
+      seen.add(section.id);
+      const active = section.id === activeId;
+      const key = `${settingsKey}|${active ? `sel:${snap.selection.patchIndex}` : ''}`;
+      const old = this.entries.get(section.id);
+      if (old && old.section === section && old.active === active && old.key === key) {
+        if (old.node.zIndex() !== z && !active) old.node.zIndex(Math.min(z, this.staticContent.children.length - 1));
+        return;
+      }
+      if (old) {
+        old.node.destroy();
+        if (old.active) activeDirty = true;
+        else staticDirty = true;
+      }
+      const node = createSectionNode(section, {
+        analysis: ed.analysis,
+        fabrics,
+        selected: active,
+        selectedPatchIndex: active ? snap.selection.patchIndex : null,
+        allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
+        scale: v.scale,
+        mirrored: v.mirrored,
+      });
+      (active ? this.activeContent : this.staticContent).add(node);
+      if (active) activeDirty = true;
+      else staticDirty = true;
+      this.entries.set(section.id, { section, node, active, key });
+    });
+    for (const [id, e] of this.entries) {
+      if (seen.has(id)) continue;
+      e.node.destroy();
+      this.entries.delete(id);
+      if (e.active) activeDirty = true;
+      else staticDirty = true;
+    }
+
+    if (this.referenceImage) {
+      const opacity = doc.referenceImage?.opacity ?? ed.settings.referenceOpacity;
+      if (this.referenceImage.opacity() !== opacity) this.referenceImage.opacity(opacity);
+    }
+
+    if (viewChanged) {
+      this.gridLayer.batchDraw();
+      this.referenceLayer.batchDraw();
+      this.draws.grid++;
+    }
+    if (staticDirty) {
+      this.staticLayer.batchDraw();
+      this.draws.static++;
+    }
+    if (activeDirty) {
+      this.activeLayer.batchDraw();
+      this.draws.active++;
+    }
+    this.drawOverlay(activeId);
+  }
+
+  private drawOverlay(activeId: string | null): void {
+    const ed = this.editor;
+    const v = ed.viewport;
+    this.overlayLayer.destroyChildren();
+    const doc = ed.store.document;
+    const selected = activeId ? doc.sections.find((s) => s.id === activeId) : undefined;
+    if (selected && ed.tool.id === 'select' && !ed.readOnly) {
+      for (const h of sectionHandles(selected.geometry)) {
+        const p = toScreen(v, h.point);
+        this.overlayLayer.add(new Konva.Rect({ name: 'handle', x: p.x - 4, y: p.y - 4, width: 8, height: 8, fill: '#ffffff', stroke: BOARD_COLOURS.handle, strokeWidth: 1.5, listening: false }));
+      }
+    }
+    const preview = ed.tool.preview();
+    if (preview) this.drawPreview(preview);
+    const snap = ed.lastSnap;
+    if (snap && snap.kind !== 'none' && snap.kind !== 'grid') {
+      const p = toScreen(v, snap.point);
+      this.overlayLayer.add(new Konva.Circle({ name: 'snap-marker', x: p.x, y: p.y, radius: 5, stroke: BOARD_COLOURS.snap, strokeWidth: 2, listening: false }));
+    }
+    const cursor = ed.cursor;
+    if (cursor) {
+      const p = toScreen(v, cursor);
+      this.overlayLayer.add(new Konva.Line({ points: [p.x - 6, p.y, p.x + 6, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
+      this.overlayLayer.add(new Konva.Line({ points: [p.x, p.y - 6, p.x, p.y + 6], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
+    }
+    this.overlayLayer.batchDraw();
+    this.rulerLayer.batchDraw();
+    this.draws.overlay++;
+  }
+
+  private drawPreview(preview: ToolPreview): void {
+    const v = this.editor.viewport;
+    const scr = (p: { x: number; y: number }) => toScreen(v, p);
+    const flat = (pts: Array<{ x: number; y: number }>) => pts.flatMap((p) => {
+      const s = scr(p);
+      return [s.x, s.y];
+    });
+    switch (preview.kind) {
+      case 'polyline':
+        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat(preview.points), closed: preview.closed, stroke: BOARD_COLOURS.preview, strokeWidth: 2, dash: [6, 4], listening: false }));
+        for (const p of preview.points) {
+          const s = scr(p);
+          this.overlayLayer.add(new Konva.Circle({ x: s.x, y: s.y, radius: 3, fill: BOARD_COLOURS.preview, listening: false }));
+        }
+        return;
+      case 'geometry': {
+        const outline = this.editor.analysis.geometry.outline(preview.geometry);
+        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat(outline), closed: true, fill: 'rgba(31,122,140,0.12)', stroke: BOARD_COLOURS.preview, strokeWidth: 2, dash: [6, 4], listening: false }));
+        return;
+      }
+      case 'seam':
+        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat([preview.a, preview.b]), stroke: preview.valid ? BOARD_COLOURS.preview : BOARD_COLOURS.previewInvalid, strokeWidth: 2, listening: false }));
+        return;
+      case 'marker': {
+        const s = scr(preview.point);
+        this.overlayLayer.add(new Konva.Circle({ name: 'tool-preview', x: s.x, y: s.y, radius: 6, stroke: BOARD_COLOURS.preview, strokeWidth: 2, listening: false }));
+        this.overlayLayer.add(new Konva.Text({ x: s.x + 8, y: s.y - 16, text: preview.label, fontSize: 12, fill: BOARD_COLOURS.preview, listening: false }));
+        return;
+      }
+    }
+  }
+
+  /** Stops drawing and frees the stage. */
+  destroy(): void {
+    if (this.frame) cancelAnimationFrame(this.frame);
+    for (const u of this.unsubscribe) u();
+    this.stage.destroy();
+  }
+}
+
+/** Ruler band thickness, re-exported for the board component's pointer maths. */
+export const BOARD_RULER_PX = RULER_PX;
+
+function fabricKey(doc: PatternDocument): string {
+  return doc.fabrics.map((f) => `${f.id}:${f.colour}`).join(',');
+}

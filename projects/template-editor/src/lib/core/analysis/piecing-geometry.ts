@@ -1,0 +1,98 @@
+import {
+  derivePatches,
+  flattenSectionOutline,
+  layoutStripSet,
+  locatePoint,
+  polygonBounds,
+  polygonCentroid,
+  sectionCuttingLine,
+  splitSection,
+  type Point,
+  type Section,
+} from '@seamwright/piecing';
+import type { BoardOrderSearch, BoardPatch, BoardSewability, GeometryPort } from './geometry-port';
+
+/**
+ * A point strictly inside a patch ring, for its label and its assignment anchor: the centroid when it
+ * is inside (every convex patch), otherwise the middle of the widest inside stretch of the horizontal
+ * line through the centroid.
+ */
+export function interiorPoint(ring: readonly Point[]): Point {
+  const c = polygonCentroid(ring);
+  if (locatePoint(c, ring) === 'inside') return c;
+  const b = polygonBounds(ring);
+  for (const fraction of [0.5, 0.35, 0.65, 0.2, 0.8]) {
+    const y = fraction === 0.5 && c.y > b.minY && c.y < b.maxY ? c.y : b.minY + (b.maxY - b.minY) * fraction;
+    const xs: number[] = [];
+    for (let i = 0, n = ring.length; i < n; i++) {
+      const p = ring[i];
+      const q = ring[(i + 1) % n];
+      if (p.y > y !== q.y > y) xs.push(p.x + ((y - p.y) * (q.x - p.x)) / (q.y - p.y));
+    }
+    xs.sort((u, v) => u - v);
+    let best: Point | null = null;
+    let width = 0;
+    for (let i = 0; i + 1 < xs.length; i += 2) {
+      if (xs[i + 1] - xs[i] > width) {
+        width = xs[i + 1] - xs[i];
+        best = { x: (xs[i] + xs[i + 1]) / 2, y };
+      }
+    }
+    if (best) return best;
+  }
+  return c;
+}
+
+function samePolygon(a: readonly Point[], b: readonly Point[]): boolean {
+  return a.length === b.length && a.length > 0 && a[0].x === b[0].x && a[0].y === b[0].y && a[a.length - 1].x === b[b.length - 1].x;
+}
+
+/** Optional sewability functions, wired when `@seamwright/piecing` provides them. */
+export interface SewabilityFunctions {
+  check(section: Section): BoardSewability;
+  findOrder(section: Section): BoardOrderSearch;
+}
+
+/** The geometry port answered by `@seamwright/piecing`. */
+export function piecingGeometry(sewability?: SewabilityFunctions): GeometryPort {
+  return {
+    outline: (geometry) => flattenSectionOutline(geometry),
+    patches(section: Section): BoardPatch[] {
+      const { patches } = derivePatches(section);
+      // Index = position in the split order, which depends only on the outline and the seams, so it
+      // stays put while numbers change.
+      const { polygons } = splitSection(section);
+      return patches.map((p) => {
+        const index = polygons.findIndex((q) => samePolygon(q, p.polygon));
+        const out: BoardPatch = {
+          index,
+          number: p.number,
+          label: p.label,
+          polygon: p.polygon,
+          anchor: interiorPoint(p.polygon),
+          guideLines: [],
+        };
+        if (p.fabricId) out.fabricId = p.fabricId;
+        if (p.stripSet) {
+          out.stripSet = p.stripSet;
+          try {
+            out.guideLines = layoutStripSet(p.polygon, p.stripSet).guideLines.flatMap((g) => g.segments.map((seg): [Point, Point] => [seg.a, seg.b]));
+          } catch {
+            // A strip set that does not fit shows no guide lines; the properties panel says why.
+          }
+        }
+        return out;
+      }).sort((p, q) => p.index - q.index);
+    },
+    sewability: (section) => (sewability ? sewability.check(section) : { ok: true }),
+    findOrder: (section) => (sewability ? sewability.findOrder(section) : { ok: false, reason: 'the order search is not available' }),
+    cuttingLine(section, allowanceIn) {
+      try {
+        return sectionCuttingLine(section, allowanceIn);
+      } catch {
+        return null;
+      }
+    },
+    contains: (ring, p) => locatePoint(p, ring) !== 'outside',
+  };
+}

@@ -1,0 +1,315 @@
+import { expandRingRepeat, polygonBounds, type Bounds, type PatternDocument, type Point } from '@seamwright/piecing';
+import type { GeometryPort } from '../analysis/geometry-port';
+import { SectionAnalysis } from '../analysis/section-analysis';
+import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
+import { deleteSection } from '../commands/section-commands';
+import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTarget } from '../snapping/snapping';
+import { DocumentStore } from '../store/document-store';
+import { createTool } from '../tools/create-tool';
+import type { BoardTool, ToolContext, ToolId } from '../tools/tool';
+import { fitBounds, panBy, toDocument, zoomAt, type Viewport } from '../view/viewport';
+import { DEFAULT_BOARD_SETTINGS, type BoardSettings } from './board-settings';
+import { actionFor, TOOL_SHORTCUTS, type BoardKey } from './shortcuts';
+
+/** Pointer details the editor reads (DOM PointerEvent fits). */
+export interface BoardPointerInfo {
+  button?: number;
+  shiftKey?: boolean;
+  altKey?: boolean;
+}
+
+/** Tools a read-only board keeps. */
+const READ_ONLY_TOOLS: ReadonlySet<ToolId> = new Set(['select', 'pan']);
+
+/** Screen pixels within which the pointer catches a vertex, an edge or a handle. */
+const HIT_RADIUS_PX = 8;
+
+/**
+ * The Drafting board without a screen: document store, tools, snapping, view and keyboard. The Konva
+ * layer and the Angular components feed it screen pointer events and draw what it holds.
+ */
+export class BoardEditor {
+  readonly store: DocumentStore;
+  readonly analysis: SectionAnalysis;
+  private settingsValue: BoardSettings = { ...DEFAULT_BOARD_SETTINGS };
+  private view: Viewport = { scale: 40, originX: 40, originY: 40, mirrored: false, mirrorWidthIn: 0 };
+  private size = { width: 800, height: 600 };
+  private current: BoardTool;
+  private cursorValue: Point | null = null;
+  private snapValue: SnapResult | null = null;
+  private panning: Point | null = null;
+  private clipboard: SectionClipboard | null = null;
+  private readOnlyValue = false;
+  private targets: { doc: PatternDocument; exclude: string | undefined; list: SnapTarget[] } | null = null;
+  private edges: { doc: PatternDocument; rings: Point[][] } | null = null;
+  private readonly viewListeners = new Set<() => void>();
+  private readonly ctx: ToolContext;
+
+  constructor(document: PatternDocument, geometry: GeometryPort) {
+    this.store = new DocumentStore(document);
+    this.analysis = new SectionAnalysis(geometry);
+    this.view.mirrorWidthIn = document.canvas.widthIn;
+    const self = this;
+    this.ctx = {
+      store: this.store,
+      analysis: this.analysis,
+      snap: (p, o) => self.snap(p, o?.edges ?? false, o?.excludeSectionId),
+      snapGrid: (p) => snapToGrid(p, self.settingsValue.grid),
+      hitRadiusIn: () => HIT_RADIUS_PX / self.view.scale,
+      activeFabricId: () => self.settingsValue.activeFabricId ?? self.store.document.fabrics[0]?.id ?? null,
+      stripWidthsIn: () => self.settingsValue.stripWidthsIn,
+      ringCount: () => self.settingsValue.ringCount,
+    };
+    this.current = createTool('select', this.ctx);
+  }
+
+  /** The active tool. */
+  get tool(): BoardTool {
+    return this.current;
+  }
+
+  /** The board settings. */
+  get settings(): BoardSettings {
+    return this.settingsValue;
+  }
+
+  /** The current view. */
+  get viewport(): Viewport {
+    return this.view;
+  }
+
+  /** Board size in screen pixels. */
+  get sizePx(): { width: number; height: number } {
+    return this.size;
+  }
+
+  /** The pointer position in document inches (snapped as the active tool would), or null off the board. */
+  get cursor(): Point | null {
+    return this.snapValue?.point ?? this.cursorValue;
+  }
+
+  /** What the last pointer position snapped to. */
+  get lastSnap(): SnapResult | null {
+    return this.snapValue;
+  }
+
+  /** Whether the board only shows the pattern (no drawing tools, no changes). */
+  get readOnly(): boolean {
+    return this.readOnlyValue;
+  }
+
+  /** Calls `listener` when the view, tool, settings or cursor change (the store has its own listeners). */
+  onViewChange(listener: () => void): () => void {
+    this.viewListeners.add(listener);
+    return () => this.viewListeners.delete(listener);
+  }
+
+  /** Makes the board read-only (or editable again). */
+  setReadOnly(readOnly: boolean): void {
+    this.readOnlyValue = readOnly;
+    if (readOnly && !READ_ONLY_TOOLS.has(this.current.id)) this.setTool('select');
+    this.changed();
+  }
+
+  /** Switches tool; whatever the old tool had half done is dropped (the renumber tool keeps its numbers). */
+  setTool(id: ToolId): void {
+    if (this.readOnlyValue && !READ_ONLY_TOOLS.has(id)) return;
+    if (id === this.current.id) return;
+    this.current.cancel();
+    this.current = createTool(id, this.ctx);
+    this.changed();
+  }
+
+  /** Changes board settings. */
+  setSettings(change: Partial<BoardSettings>): void {
+    this.settingsValue = { ...this.settingsValue, ...change };
+    if (change.mirrored !== undefined && change.mirrored !== this.view.mirrored) {
+      this.view = { ...this.view, mirrored: change.mirrored, mirrorWidthIn: this.store.document.canvas.widthIn };
+    }
+    this.changed();
+  }
+
+  /** Tells the editor the board's size in screen pixels. */
+  setSize(width: number, height: number): void {
+    this.size = { width, height };
+    this.changed();
+  }
+
+  /** Sets the view directly (restoring a saved view). */
+  setViewport(view: Viewport): void {
+    this.view = { ...view };
+    this.changed();
+  }
+
+  /** Bounds of everything drawn: the drawing area and every section with its ring copies. */
+  contentBounds(): Bounds {
+    const doc = this.store.document;
+    const points: Point[] = [
+      { x: 0, y: 0 },
+      { x: doc.canvas.widthIn, y: doc.canvas.heightIn },
+    ];
+    for (const s of doc.sections) {
+      const copies = s.ringRepeat ? expandRingRepeat(s) : [s];
+      for (const c of copies) points.push(...this.analysis.outline(c));
+    }
+    return polygonBounds(points);
+  }
+
+  /** Fits the view to the content. */
+  fitToContent(marginPx = 40): void {
+    this.view = fitBounds({ ...this.view, mirrorWidthIn: this.store.document.canvas.widthIn }, this.contentBounds(), this.size.width, this.size.height, marginPx);
+    this.changed();
+  }
+
+  /** Zooms by `factor` about a screen point. */
+  zoomAt(screen: Point, factor: number): void {
+    this.view = zoomAt(this.view, screen, factor);
+    this.changed();
+  }
+
+  /** The wheel: zoom to the cursor. */
+  wheel(screen: Point, deltaY: number): void {
+    this.zoomAt(screen, Math.exp(-deltaY * 0.0015));
+  }
+
+  /** Pointer pressed at a screen position. */
+  pointerDown(screen: Point, info: BoardPointerInfo = {}): void {
+    if (info.button === 1 || info.button === 2 || this.current.id === 'pan') {
+      this.panning = screen;
+      return;
+    }
+    this.current.pointerDown(this.toolPointer(screen, info));
+    this.changed();
+  }
+
+  /** Pointer moved to a screen position. */
+  pointerMove(screen: Point, info: BoardPointerInfo = {}): void {
+    if (this.panning) {
+      this.view = panBy(this.view, screen.x - this.panning.x, screen.y - this.panning.y);
+      this.panning = screen;
+      this.changed();
+      return;
+    }
+    this.current.pointerMove(this.toolPointer(screen, info));
+    this.changed();
+  }
+
+  /** Pointer released at a screen position. */
+  pointerUp(screen: Point, info: BoardPointerInfo = {}): void {
+    if (this.panning) {
+      this.panning = null;
+      return;
+    }
+    this.current.pointerUp(this.toolPointer(screen, info));
+    this.changed();
+  }
+
+  /** Pointer left the board. */
+  pointerLeave(): void {
+    this.cursorValue = null;
+    this.snapValue = null;
+    this.changed();
+  }
+
+  /** A key press; returns whether the board used it (the caller then prevents the default). */
+  keyDown(e: BoardKey): boolean {
+    const action = actionFor(e);
+    if (action) {
+      if (action === 'fit') this.fitToContent();
+      else if (action === 'undo') this.undo();
+      else if (action === 'redo') this.redo();
+      else if (action === 'copy') this.copy();
+      else if (action === 'paste') this.paste();
+      else if (action === 'cut') this.cut();
+      return true;
+    }
+    if (this.current.key(e.key)) {
+      this.changed();
+      return true;
+    }
+    if (!e.ctrlKey && !e.metaKey && !e.altKey) {
+      const tool = TOOL_SHORTCUTS[e.key.toLowerCase()];
+      if (tool) {
+        this.setTool(tool);
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /** Undoes the last step. */
+  undo(): void {
+    if (this.readOnlyValue) return;
+    this.current.cancel();
+    this.store.undo();
+    this.changed();
+  }
+
+  /** Redoes the last undone step. */
+  redo(): void {
+    if (this.readOnlyValue) return;
+    this.store.redo();
+    this.changed();
+  }
+
+  /** Copies the selected section. */
+  copy(): boolean {
+    const id = this.store.selection.sectionId;
+    if (!id) return false;
+    this.clipboard = copySections(this.store.document, [id]);
+    return true;
+  }
+
+  /** Copies and removes the selected section. */
+  cut(): void {
+    const id = this.store.selection.sectionId;
+    if (this.readOnlyValue || !id || !this.copy()) return;
+    this.store.apply('Cut section', (d) => deleteSection(d, id));
+  }
+
+  /** Pastes the copied sections, a little down and right of the originals. */
+  paste(): void {
+    const clip = this.clipboard;
+    if (this.readOnlyValue || !clip || clip.sections.length === 0) return;
+    let ids: string[] = [];
+    this.store.apply('Paste sections', (d) => {
+      const r = pasteSections(d, clip);
+      ids = r.sectionIds;
+      return r.document;
+    });
+    if (ids[0]) this.store.select({ sectionId: ids[0], patchIndex: null });
+    // Paste again lands one more step along.
+    this.clipboard = copySections(this.store.document, ids);
+  }
+
+  /** Whether there is something to paste. */
+  get canPaste(): boolean {
+    return (this.clipboard?.sections.length ?? 0) > 0;
+  }
+
+  private toolPointer(screen: Point, info: BoardPointerInfo) {
+    const point = toDocument(this.view, screen);
+    this.cursorValue = point;
+    this.snapValue = this.snap(point, this.current.id === 'split', this.store.inGesture ? this.store.selection.sectionId ?? undefined : undefined);
+    return { point, shiftKey: info.shiftKey, altKey: info.altKey };
+  }
+
+  private snap(p: Point, edges: boolean, excludeSectionId?: string): SnapResult {
+    const doc = this.store.document;
+    if (!this.targets || this.targets.doc !== doc || this.targets.exclude !== excludeSectionId) {
+      this.targets = { doc, exclude: excludeSectionId, list: collectSnapTargets(doc, excludeSectionId) };
+    }
+    let rings: Point[][] = [];
+    if (edges) {
+      if (!this.edges || this.edges.doc !== doc) {
+        this.edges = { doc, rings: doc.sections.flatMap((s) => this.analysis.patches(s).map((p) => p.polygon)) };
+      }
+      rings = this.edges.rings;
+    }
+    return snapPoint(p, this.targets.list, { grid: this.settingsValue.grid, toPoints: this.settingsValue.snapToPoints, radiusIn: HIT_RADIUS_PX / this.view.scale }, rings);
+  }
+
+  private changed(): void {
+    for (const l of this.viewListeners) l();
+  }
+}

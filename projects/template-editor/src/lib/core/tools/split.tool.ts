@@ -1,0 +1,68 @@
+import { lerp, type Point } from '@seamwright/piecing';
+import { addSeam } from '../commands/section-commands';
+import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
+
+/**
+ * Split: press on a patch edge and drag across the patch to another edge; release to add the seam.
+ * Both ends snap to edges (and vertices). The seam goes to the section under its midpoint.
+ */
+export class SplitTool implements BoardTool {
+  readonly id = 'split' as const;
+  private a: Point | null = null;
+  private b: Point | null = null;
+
+  constructor(private readonly ctx: ToolContext) {}
+
+  get state(): string {
+    return this.a ? 'drawing' : 'idle';
+  }
+
+  get hint(): string {
+    return this.a ? 'Drag across the patch and release on the far edge' : 'Press on a patch edge to start a seam';
+  }
+
+  pointerDown(e: ToolPointer): void {
+    this.a = this.ctx.snap(e.point, { edges: true }).point;
+    this.b = this.a;
+  }
+
+  pointerMove(e: ToolPointer): void {
+    if (this.a) this.b = this.ctx.snap(e.point, { edges: true }).point;
+  }
+
+  pointerUp(e: ToolPointer): void {
+    if (!this.a) return;
+    this.b = this.ctx.snap(e.point, { edges: true }).point;
+    const a = this.a;
+    const b = this.b;
+    this.a = this.b = null;
+    const sectionId = this.targetSection(a, b);
+    if (!sectionId) return;
+    const port = this.ctx.analysis.geometry;
+    this.ctx.store.apply('Split patch', (d) => addSeam(d, sectionId, a, b, port));
+    this.ctx.store.select({ sectionId, patchIndex: null });
+  }
+
+  key(key: string): boolean {
+    if (key === 'Escape') {
+      this.cancel();
+      return true;
+    }
+    return false;
+  }
+
+  cancel(): void {
+    this.a = this.b = null;
+  }
+
+  preview(): ToolPreview | null {
+    if (!this.a || !this.b) return null;
+    return { kind: 'seam', a: this.a, b: this.b, valid: this.targetSection(this.a, this.b) !== null };
+  }
+
+  private targetSection(a: Point, b: Point): string | null {
+    if (Math.hypot(b.x - a.x, b.y - a.y) < Math.max(1 / 32, this.ctx.hitRadiusIn())) return null;
+    const mid = lerp(a, b, 0.5);
+    return this.ctx.analysis.sectionAt(this.ctx.store.document, mid)?.id ?? null;
+  }
+}
