@@ -7,3 +7,4 @@ export * from './shared/rounding';
 export * from './strip-sets/index';
 export * from './cutting-list/index';
 export * from './matching-marks/index';
+export * from './copies/index';
