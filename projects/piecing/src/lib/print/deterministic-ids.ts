@@ -1,0 +1,48 @@
+/**
+ * Values that make PDF output reproducible: a file identifier derived from the input (never random)
+ * and the PDF date string of a fixed creation time.
+ */
+
+/**
+ * A 128-bit hash of a string as 32 hex digits (four 32-bit FNV-1a lanes with different offsets,
+ * cross-mixed at the end). Not cryptographic: it only has to be stable and spread well.
+ */
+export function stableHash128(text: string): string {
+  const lanes = [0x811c9dc5, 0x01000193 ^ 0x9e3779b9, 0x85ebca6b, 0xc2b2ae35];
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    for (let l = 0; l < 4; l++) {
+      lanes[l] ^= code + l;
+      lanes[l] = Math.imul(lanes[l], 0x01000193) >>> 0;
+    }
+  }
+  for (let l = 0; l < 4; l++) {
+    let h = lanes[l] ^ lanes[(l + 1) % 4];
+    h = Math.imul(h ^ (h >>> 16), 0x85ebca6b) >>> 0;
+    h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35) >>> 0;
+    lanes[l] = (h ^ (h >>> 16)) >>> 0;
+  }
+  return lanes.map((v) => v.toString(16).padStart(8, '0')).join('').toUpperCase();
+}
+
+/**
+ * The PDF date string (ISO 32000-1 §7.9.4) of an ISO 8601 time, in UTC: `D:YYYYMMDDHHmmSS+00'00'`.
+ * jsPDF accepts years 1970–2037 only; later times are written as the last second of 2037.
+ */
+export function pdfDateUtc(iso: string): string {
+  const date = new Date(iso);
+  if (Number.isNaN(date.getTime())) throw new RangeError(`not a date: ${iso}`);
+  const limit = Date.UTC(2037, 11, 31, 23, 59, 59);
+  const d = new Date(Math.min(Math.max(date.getTime(), 0), limit));
+  const two = (n: number) => String(n).padStart(2, '0');
+  return `D:${d.getUTCFullYear()}${two(d.getUTCMonth() + 1)}${two(d.getUTCDate())}${two(d.getUTCHours())}${two(d.getUTCMinutes())}${two(d.getUTCSeconds())}+00'00'`;
+}
+
+/** JSON with object keys sorted, so equal values always give equal text. */
+export function canonicalJson(value: unknown): string {
+  return JSON.stringify(value, (_key, v) =>
+    v && typeof v === 'object' && !Array.isArray(v)
+      ? Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, (v as Record<string, unknown>)[k]]))
+      : v,
+  );
+}

@@ -1,0 +1,97 @@
+import type { TilePlacement } from './layout-types';
+import type { RectIn } from './paper';
+import type { PdfPen } from './pdf-pen';
+import { TEST_SQUARE_CM_IN, TEST_SQUARE_IN, type SheetFrame } from './sheet-frame';
+
+/** The line every sheet carries next to its test squares. */
+export const PRINT_AT_ACTUAL_SIZE = 'Print at 100 % / actual size — measure before cutting';
+
+/** What the header of one sheet says. */
+export interface SheetHeading {
+  title: string;
+  pageNumber: number;
+  pageCount: number;
+  /** Second line: the sections on the sheet, or what the sheet holds. */
+  subtitle: string;
+  /** Small note at the right of the second line (mirroring). */
+  note?: string;
+}
+
+const INK = '#000000';
+const MUTED = '#444444';
+
+/** Draws the header band and the test-square block of a sheet. */
+export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHeading): void {
+  const h = frame.header;
+  const right = h.x + h.width;
+  const sheetLabel = `Sheet ${heading.pageNumber} of ${heading.pageCount}`;
+  pen.text(sheetLabel, { x: right, y: h.y + 0.17 }, { sizePt: 11, bold: true, align: 'right' });
+  // Left 45 %: title and subtitle; the middle is kept for tile maps; right: sheet number and notes.
+  pen.text(fitText(pen, heading.title, h.width * 0.45, 11, true), { x: h.x, y: h.y + 0.17 }, { sizePt: 11, bold: true });
+  pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.32 }, { sizePt: 8, colour: MUTED });
+  pen.text(PRINT_AT_ACTUAL_SIZE, { x: h.x, y: h.y + 0.47 }, { sizePt: 8, bold: true });
+  if (heading.note) {
+    const room = h.width - pen.textWidth(PRINT_AT_ACTUAL_SIZE, 8, true) - 0.3;
+    pen.text(fitText(pen, heading.note, room, 7), { x: right, y: h.y + 0.47 }, { sizePt: 7, colour: MUTED, align: 'right' });
+  }
+  pen.segments([{ a: { x: h.x, y: h.y + h.height }, b: { x: right, y: h.y + h.height } }], { widthPt: 0.4, colour: MUTED });
+  drawTestSquares(pen, frame.testBlock);
+}
+
+/**
+ * The 1 in. and 2 cm test squares, each one `re` path with sides of exactly 72 pt and 56.693 pt
+ * (ISO 32000-1 §8.3.2.3: 1 unit = 1/72 in.; 1 in. = 25.4 mm), labelled inside.
+ */
+export function drawTestSquares(pen: PdfPen, block: RectIn): void {
+  const inch = { x: block.x, y: block.y, width: TEST_SQUARE_IN, height: TEST_SQUARE_IN };
+  const cm = {
+    x: block.x + TEST_SQUARE_IN + 0.16,
+    y: block.y + TEST_SQUARE_IN - TEST_SQUARE_CM_IN,
+    width: TEST_SQUARE_CM_IN,
+    height: TEST_SQUARE_CM_IN,
+  };
+  const line = { widthPt: 0.5, colour: INK };
+  pen.rect(inch, line);
+  pen.rect(cm, line);
+  pen.text(['1 in.', 'test square'], { x: inch.x + 0.5, y: inch.y + 0.45 }, { sizePt: 7, bold: true, align: 'center' });
+  pen.text(['2 cm', 'test square'], { x: cm.x + cm.width / 2, y: cm.y + cm.height / 2 - 0.04 }, { sizePt: 7, bold: true, align: 'center' });
+  pen.text('Measure both squares first.', { x: block.x, y: block.y + TEST_SQUARE_IN + 0.1 }, { sizePt: 6, colour: MUTED });
+}
+
+/**
+ * A small map of how a template's tiles join: the grid with the tile on this sheet shaded, each tile
+ * marked with the page it is on; empty grid cells (nothing of the template there) are left blank.
+ */
+export function drawTileMap(pen: PdfPen, area: RectIn, label: string, tile: TilePlacement): void {
+  const labelWidth = pen.textWidth(label, 6, true) + 0.06;
+  const cell = Math.min(0.22, area.height / tile.rows, (area.width - labelWidth) / tile.columns);
+  const x0 = area.x + labelWidth;
+  const y0 = area.y + (area.height - cell * tile.rows) / 2;
+  pen.text(label, { x: area.x, y: area.y + area.height / 2 }, { sizePt: 6, bold: true, baseline: 'middle' });
+  for (let r = 0; r < tile.rows; r++) {
+    for (let c = 0; c < tile.columns; c++) {
+      if (!tile.occupied[r][c]) continue;
+      const here = r + 1 === tile.row && c + 1 === tile.column;
+      const rect = { x: x0 + c * cell, y: y0 + r * cell, width: cell, height: cell };
+      pen.rect(rect, { widthPt: 0.4, colour: INK }, here ? '#c8c8c8' : undefined);
+      const page = tile.pageOf[`${r + 1},${c + 1}`];
+      if (page && cell >= 0.14) {
+        pen.text(String(page), { x: rect.x + cell / 2, y: rect.y + cell / 2 }, { sizePt: 5, align: 'center', baseline: 'middle' });
+      }
+    }
+  }
+}
+
+/** Width a tile map needs in the header for a grid. */
+export function tileMapWidth(pen: PdfPen, label: string, tile: TilePlacement, heightIn: number): number {
+  const cell = Math.min(0.22, heightIn / tile.rows);
+  return pen.textWidth(label, 6, true) + 0.06 + cell * tile.columns;
+}
+
+/** Shortens text with an ellipsis until it fits the width. */
+export function fitText(pen: PdfPen, value: string, widthIn: number, sizePt: number, bold = false): string {
+  if (pen.textWidth(value, sizePt, bold) <= widthIn) return value;
+  let s = value;
+  while (s.length > 1 && pen.textWidth(`${s}…`, sizePt, bold) > widthIn) s = s.slice(0, -1);
+  return `${s}…`;
+}

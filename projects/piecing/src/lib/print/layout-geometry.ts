@@ -1,0 +1,139 @@
+import type { Point } from '../document/index';
+import type { RectIn } from './paper';
+
+/*
+ * Small helpers the sheet layout needs and the shared geometry does not offer: the turn that gives a
+ * template its smallest bounding box, and the extent of a template inside one tile.
+ */
+
+/** Axis-aligned bounding box of points, as a rectangle. */
+export function boundingRect(points: readonly Point[]): RectIn {
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const p of points) {
+    if (p.x < minX) minX = p.x;
+    if (p.y < minY) minY = p.y;
+    if (p.x > maxX) maxX = p.x;
+    if (p.y > maxY) maxY = p.y;
+  }
+  return { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
+}
+
+/** Convex hull (Andrew's monotone chain), counter-clockwise in a y-up sense; collinear points dropped. */
+export function convexHull(points: readonly Point[]): Point[] {
+  const pts = [...points].sort((p, q) => p.x - q.x || p.y - q.y);
+  if (pts.length < 3) return pts;
+  const cross = (o: Point, a: Point, b: Point) => (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x);
+  const lower: Point[] = [];
+  for (const p of pts) {
+    while (lower.length >= 2 && cross(lower[lower.length - 2], lower[lower.length - 1], p) <= 0) lower.pop();
+    lower.push(p);
+  }
+  const upper: Point[] = [];
+  for (let i = pts.length - 1; i >= 0; i--) {
+    const p = pts[i];
+    while (upper.length >= 2 && cross(upper[upper.length - 2], upper[upper.length - 1], p) <= 0) upper.pop();
+    upper.push(p);
+  }
+  lower.pop();
+  upper.pop();
+  return lower.concat(upper);
+}
+
+/**
+ * The turn (radians) that gives the points their smallest-area axis-aligned bounding box. The best
+ * box has one side along an edge of the convex hull (Freeman & Shapira 1975), so only those turns are
+ * tried. Returns 0 when no turn beats the unturned box by more than a hair, so straight-edged
+ * templates drawn square stay square.
+ */
+export function minimumAreaTurn(points: readonly Point[]): number {
+  const hull = convexHull(points);
+  const unturned = boundingRect(hull);
+  let bestArea = unturned.width * unturned.height;
+  let bestTurn = 0;
+  for (let i = 0; i < hull.length; i++) {
+    const a = hull[i];
+    const b = hull[(i + 1) % hull.length];
+    const edgeAngle = Math.atan2(b.y - a.y, b.x - a.x);
+    // Turning by −edgeAngle lays the edge along +x.
+    const turn = normaliseTurn(-edgeAngle);
+    const box = boundingRect(turnPoints(hull, turn));
+    const area = box.width * box.height;
+    if (area < bestArea * (1 - 1e-9)) {
+      bestArea = area;
+      bestTurn = turn;
+    }
+  }
+  return bestTurn;
+}
+
+/** Brings a turn into [0, π/2): a box turned by a quarter turn is the same box. */
+function normaliseTurn(angle: number): number {
+  const quarter = Math.PI / 2;
+  let t = angle % quarter;
+  if (t < 0) t += quarter;
+  if (quarter - t < 1e-12) t = 0;
+  return t;
+}
+
+function turnPoints(points: readonly Point[], angle: number): Point[] {
+  const cos = Math.cos(angle);
+  const sin = Math.sin(angle);
+  return points.map((p) => ({ x: cos * p.x - sin * p.y, y: sin * p.x + cos * p.y }));
+}
+
+/**
+ * Bounding box of the part of a closed ring inside a rectangle (Sutherland–Hodgman clipping against
+ * the rectangle's four sides; exact for the box even when the ring is not convex), or null when the
+ * ring does not reach into the rectangle.
+ */
+export function clippedBounds(ring: readonly Point[], rect: RectIn): RectIn | null {
+  const x0 = rect.x;
+  const y0 = rect.y;
+  const x1 = rect.x + rect.width;
+  const y1 = rect.y + rect.height;
+  let poly: Point[] = [...ring];
+  const sides: Array<[(p: Point) => boolean, (p: Point, q: Point) => Point]> = [
+    [(p) => p.x >= x0, (p, q) => at(p, q, (x0 - p.x) / (q.x - p.x))],
+    [(p) => p.x <= x1, (p, q) => at(p, q, (x1 - p.x) / (q.x - p.x))],
+    [(p) => p.y >= y0, (p, q) => at(p, q, (y0 - p.y) / (q.y - p.y))],
+    [(p) => p.y <= y1, (p, q) => at(p, q, (y1 - p.y) / (q.y - p.y))],
+  ];
+  for (const [inside, cut] of sides) {
+    if (poly.length === 0) return null;
+    const out: Point[] = [];
+    for (let i = 0; i < poly.length; i++) {
+      const cur = poly[i];
+      const prev = poly[(i + poly.length - 1) % poly.length];
+      const curIn = inside(cur);
+      const prevIn = inside(prev);
+      if (curIn) {
+        if (!prevIn) out.push(cut(prev, cur));
+        out.push(cur);
+      } else if (prevIn) {
+        out.push(cut(prev, cur));
+      }
+    }
+    poly = out;
+  }
+  if (poly.length < 3) return null;
+  const box = boundingRect(poly);
+  return box.width > 1e-6 && box.height > 1e-6 ? box : null;
+}
+
+function at(p: Point, q: Point, t: number): Point {
+  return { x: p.x + (q.x - p.x) * t, y: p.y + (q.y - p.y) * t };
+}
+
+/** Shoelace area of a closed ring, square inches. */
+export function ringArea(ring: readonly Point[]): number {
+  let twice = 0;
+  for (let i = 0, n = ring.length; i < n; i++) {
+    const a = ring[i];
+    const b = ring[(i + 1) % n];
+    twice += a.x * b.y - b.x * a.y;
+  }
+  return Math.abs(twice / 2);
+}

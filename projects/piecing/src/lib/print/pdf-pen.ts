@@ -1,0 +1,152 @@
+import { jsPDF } from 'jspdf';
+import type { Point } from '../document/index';
+import { POINTS_PER_INCH, type RectIn } from './paper';
+import type { PrintFonts } from './print-options';
+
+/** Family name the shipped TrueType fonts are registered under in the PDF. */
+export const PDF_FONT_FAMILY = 'Roboto';
+
+/** A stroke style: width in points, dash pattern in points (solid when empty), RGB colour. */
+export interface StrokeStyle {
+  widthPt: number;
+  dashPt?: number[];
+  colour?: string;
+}
+
+/** Text settings: size in points, weight, colour, alignment. */
+export interface TextStyle {
+  sizePt: number;
+  bold?: boolean;
+  colour?: string;
+  align?: 'left' | 'center' | 'right';
+  /** Vertical anchor of the given point. */
+  baseline?: 'alphabetic' | 'middle' | 'top' | 'bottom';
+  /** Counter-clockwise turn in degrees (90 reads upward). */
+  angleDeg?: number;
+}
+
+const pt = (inches: number): number => inches * POINTS_PER_INCH;
+
+/**
+ * Draws on a jsPDF document in inches from the page's top-left corner (y down), always with the
+ * embedded TrueType fonts. Each polygon or polyline is one path (m … l … h) and one paint operator.
+ */
+export class PdfPen {
+  constructor(readonly doc: jsPDF) {}
+
+  /** Strokes a polyline, closed when asked. */
+  polyline(points: readonly Point[], closed: boolean, style: StrokeStyle): void {
+    if (points.length < 2) return;
+    this.setStroke(style);
+    const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
+    for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
+    if (closed) ops.push({ op: 'h', c: [] });
+    this.doc.path(ops);
+    this.doc.stroke();
+  }
+
+  /** Several separate straight lines as one path and one stroke. */
+  segments(lines: ReadonlyArray<{ a: Point; b: Point }>, style: StrokeStyle): void {
+    if (lines.length === 0) return;
+    this.setStroke(style);
+    const ops: Array<{ op: string; c: number[] }> = [];
+    for (const { a, b } of lines) {
+      ops.push({ op: 'm', c: [pt(a.x), pt(a.y)] }, { op: 'l', c: [pt(b.x), pt(b.y)] });
+    }
+    this.doc.path(ops);
+    this.doc.stroke();
+  }
+
+  /** A rectangle (the PDF `re` operator): stroked, filled or both. */
+  rect(r: RectIn, style: StrokeStyle | null, fill?: string): void {
+    if (style) this.setStroke(style);
+    if (fill) this.doc.setFillColor(fill);
+    const mode = style && fill ? 'FD' : fill ? 'F' : 'S';
+    this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), mode);
+  }
+
+  /** A filled polygon without a stroke. */
+  fillPolygon(points: readonly Point[], colour: string): void {
+    if (points.length < 3) return;
+    this.doc.setFillColor(colour);
+    const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
+    for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
+    ops.push({ op: 'h', c: [] });
+    this.doc.path(ops);
+    this.doc.fill();
+  }
+
+  /** A circle, stroked. */
+  circle(centre: Point, radiusIn: number, style: StrokeStyle): void {
+    this.setStroke(style);
+    this.doc.circle(pt(centre.x), pt(centre.y), pt(radiusIn), 'S');
+  }
+
+  /** Text at a point. */
+  text(value: string | string[], at: Point, style: TextStyle): void {
+    this.doc.setFont(PDF_FONT_FAMILY, style.bold ? 'bold' : 'normal');
+    this.doc.setFontSize(style.sizePt);
+    this.doc.setTextColor(style.colour ?? '#000000');
+    this.doc.text(value, pt(at.x), pt(at.y), {
+      align: style.align ?? 'left',
+      baseline: style.baseline ?? 'alphabetic',
+      ...(style.angleDeg ? { angle: style.angleDeg } : {}),
+    });
+  }
+
+  /** Width of a text in inches at a size and weight. */
+  textWidth(value: string, sizePt: number, bold = false): number {
+    this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
+    this.doc.setFontSize(sizePt);
+    return this.doc.getTextWidth(value) / POINTS_PER_INCH;
+  }
+
+  /** Splits text into lines no wider than `widthIn`. */
+  wrap(value: string, widthIn: number, sizePt: number, bold = false): string[] {
+    this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
+    this.doc.setFontSize(sizePt);
+    return this.doc.splitTextToSize(value, pt(widthIn)) as string[];
+  }
+
+  /** Runs `draw` with everything clipped to a rectangle. */
+  clipped(r: RectIn, draw: () => void): void {
+    this.doc.saveGraphicsState();
+    this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), null as unknown as string);
+    this.doc.clip();
+    this.doc.discardPath();
+    draw();
+    this.doc.restoreGraphicsState();
+  }
+
+  private setStroke(style: StrokeStyle): void {
+    this.doc.setLineWidth(style.widthPt);
+    this.doc.setDrawColor(style.colour ?? '#000000');
+    this.doc.setLineDashPattern(style.dashPt ?? [], 0);
+  }
+}
+
+/** Registers the shipped TrueType fonts (regular and bold) with a jsPDF document. */
+export function embedFonts(doc: jsPDF, fonts: PrintFonts): void {
+  const files: Array<[string, Uint8Array, 'normal' | 'bold']> = [
+    ['Roboto-Regular.ttf', fonts.regular, 'normal'],
+    ['Roboto-Bold.ttf', fonts.bold, 'bold'],
+  ];
+  for (const [name, bytes, style] of files) {
+    if (!(bytes instanceof Uint8Array) || bytes.length < 12 || bytes[0] !== 0 || bytes[1] !== 1 || bytes[2] !== 0 || bytes[3] !== 0) {
+      throw new TypeError(`${name}: expected the bytes of a TrueType font file (version 0x00010000)`);
+    }
+    doc.addFileToVFS(name, binaryString(bytes));
+    doc.addFont(name, PDF_FONT_FAMILY, style, undefined, 'Identity-H');
+  }
+  doc.setFont(PDF_FONT_FAMILY, 'normal');
+}
+
+/** The bytes as a "binary string" (one char per byte), the form jsPDF's virtual file system takes. */
+function binaryString(bytes: Uint8Array): string {
+  const parts: string[] = [];
+  const chunk = 0x8000;
+  for (let i = 0; i < bytes.length; i += chunk) {
+    parts.push(String.fromCharCode(...bytes.subarray(i, i + chunk)));
+  }
+  return parts.join('');
+}

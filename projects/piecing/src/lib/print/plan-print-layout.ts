@@ -1,0 +1,229 @@
+import type { Point } from '../document/index';
+import { applyAffine, compose, rotation, translation, type Affine } from './affine';
+import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
+import { packSheets, type PackItem } from './pack-sheets';
+import { printableAreaSqIn, type RectIn } from './paper';
+import { intersectRects, prepareTemplate, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
+import type { PrintOptions } from './print-options';
+import { ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
+import type { PrintTemplate } from './template-model';
+
+/** What one packed piece stands for: a whole copy of a template, or one tile of a copy. */
+interface Piece {
+  prepared: PreparedTemplate;
+  copy: number;
+  grid?: TileGrid;
+  tile?: TileCell;
+}
+
+type LayoutOptions = Pick<PrintOptions, 'paper' | 'marginIn' | 'mirrored' | 'tileOverlapIn'>;
+
+/**
+ * Lays templates out on sheets: each copy is placed whole where it fits one sheet (packed with
+ * others, quarter turns allowed, arcs and wedges turned to their smallest box), and split into
+ * overlapping tiles where it does not. Pure: the same templates and options give the same plan.
+ */
+export function layoutTemplates(templates: readonly PrintTemplate[], options: LayoutOptions): PrintLayout {
+  const { paper, marginIn, mirrored, tileOverlapIn } = options;
+  const portrait = sheetFrame(paper, 'portrait', marginIn);
+  const landscape = sheetFrame(paper, 'landscape', marginIn);
+  const pieces: PackItem<Piece>[] = [];
+  const grids = new Map<string, TileGrid>();
+  for (const template of templates) {
+    if (template.copies < 1) continue;
+    const prepared = prepareTemplate(template, mirrored);
+    const whole = fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape);
+    const grid = whole ? null : chooseTiling(template, mirrored, [portrait, landscape], tileOverlapIn);
+    if (grid) grids.set(template.id, grid);
+    for (let copy = 1; copy <= template.copies; copy++) {
+      if (!grid) {
+        pieces.push({ width: prepared.width, height: prepared.height + CAPTION_IN, quarterTurns: true, data: { prepared, copy } });
+        continue;
+      }
+      for (const tile of grid.tiles) {
+        pieces.push({
+          width: tile.used.width,
+          height: tile.used.height + CAPTION_IN,
+          quarterTurns: false,
+          data: { prepared: grid.prepared, copy, grid, tile },
+        });
+      }
+    }
+  }
+
+  const packed = packSheets(pieces, paper, marginIn);
+  const pageOfTile = new Map<string, number>();
+  packed.forEach((sheet, i) => {
+    for (const p of sheet.items) {
+      if (p.item.data.tile) pageOfTile.set(tileKey(p.item.data.prepared.template.id, p.item.data.copy, p.item.data.tile), i + 2);
+    }
+  });
+
+  const sheets: PlannedSheet[] = packed.map((sheet, i) => {
+    const placements = sheet.items.map((p) =>
+      p.item.data.tile
+        ? placeTile(p.item.data, p.x, p.y, pageOfTile)
+        : placeWhole(p.item.data, p.x, p.y, p.turned),
+    );
+    const sectionLabels = [...new Set(placements.map((pl) => pl.sectionLabel))];
+    return { pageNumber: i + 2, frame: sheet.frame, placements, sectionLabels };
+  });
+
+  const totalTemplateAreaSqIn = templates.reduce((s, t) => s + t.areaSqIn * Math.max(0, t.copies), 0);
+  const areaPerSheet = printableAreaSqIn(paper, marginIn);
+  const summaries: TemplateSummary[] = templates
+    .filter((t) => t.copies >= 1)
+    .map((t) => {
+      const grid = grids.get(t.id);
+      return {
+        templateId: t.id,
+        sectionLabel: t.sectionLabel,
+        copies: t.copies,
+        tilesPerCopy: grid ? grid.tiles.length : 1,
+        ...(grid ? { tileGrid: { rows: grid.rows, columns: grid.columns } } : {}),
+        pageNumbers: sheets.filter((s) => s.placements.some((p) => p.templateId === t.id)).map((s) => s.pageNumber),
+      };
+    });
+  return {
+    paper,
+    marginIn,
+    mirrored,
+    tileOverlapIn,
+    sheets,
+    templateSheetCount: sheets.length,
+    lowerBoundSheets: Math.ceil(totalTemplateAreaSqIn / areaPerSheet - 1e-9),
+    totalTemplateAreaSqIn,
+    printableAreaSqIn: areaPerSheet,
+    templates: summaries,
+  };
+}
+
+function fitsWhole(p: PreparedTemplate, frame: SheetFrame): boolean {
+  const { width: W, height: H } = frame.content;
+  const tb = frame.testBlock;
+  const g = ITEM_GAP_IN;
+  const fits = (w: number, h: number) =>
+    (w <= W && h <= H - tb.height - g) || (w <= W - tb.width - g && h <= H);
+  return fits(p.width, p.height + CAPTION_IN) || fits(p.height + CAPTION_IN, p.width);
+}
+
+/**
+ * Picks the tiling with the fewest tiles (then the least printed area) over both sheet orientations,
+ * two ways of leaving room for the test-square block, and the template unturned or turned a quarter.
+ */
+function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number): TileGrid {
+  let best: { grid: TileGrid; count: number; area: number } | null = null;
+  const g = ITEM_GAP_IN;
+  for (const turn of [0, Math.PI / 2]) {
+    const prepared = prepareTemplate(template, mirrored, turn);
+    for (const frame of frames) {
+      const { width: W, height: H } = frame.content;
+      const tb = frame.testBlock;
+      const cells: Array<[number, number]> = [
+        [W, H - tb.height - g - CAPTION_IN],
+        [W - tb.width - g, H - CAPTION_IN],
+      ];
+      for (const [cw, ch] of cells) {
+        const grid = tileTemplate(prepared, cw, ch, overlapIn);
+        if (!grid) continue;
+        const count = grid.tiles.length;
+        const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
+        if (!best || count < best.count || (count === best.count && area < best.area - 1e-9)) best = { grid, count, area };
+      }
+    }
+  }
+  if (!best) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
+  return best.grid;
+}
+
+function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement {
+  const { prepared } = piece;
+  const w = prepared.width;
+  const h = prepared.height;
+  // Unturned: caption on top. A quarter turn maps the box [0, w] × [0, h] onto [0, h] × [0, w] and
+  // the caption, turned with it, ends up along the left side.
+  const onSheet: Affine = turned
+    ? compose(translation(x + CAPTION_IN + h, y), rotation(Math.PI / 2))
+    : translation(x, y + CAPTION_IN);
+  const rect: RectIn = turned
+    ? { x: x + CAPTION_IN, y, width: h, height: w }
+    : { x, y: y + CAPTION_IN, width: w, height: h };
+  const caption: RectIn = turned ? { x, y, width: CAPTION_IN, height: w } : { x, y, width: w, height: CAPTION_IN };
+  return {
+    templateId: prepared.template.id,
+    sectionLabel: prepared.template.sectionLabel,
+    copy: piece.copy,
+    copies: prepared.template.copies,
+    rect,
+    transform: compose(onSheet, prepared.frame),
+    turnDeg: (prepared.turnDeg + (turned ? 90 : 0)) % 360,
+    caption: { rect: caption, vertical: turned },
+  };
+}
+
+function tileKey(templateId: string, copy: number, tile: { row: number; column: number }): string {
+  return `${templateId}#${copy}#${tile.row},${tile.column}`;
+}
+
+function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, number>): SheetPlacement {
+  const grid = piece.grid!;
+  const tile = piece.tile!;
+  const { prepared } = grid;
+  const content: RectIn = { x, y: y + CAPTION_IN, width: tile.used.width, height: tile.used.height };
+  const onSheet = translation(content.x - tile.used.x, content.y - tile.used.y);
+  const toSheet = (p: Point) => applyAffine(onSheet, p);
+  const occupied = Array.from({ length: grid.rows }, () => Array.from({ length: grid.columns }, () => false));
+  const pageOf: Record<string, number> = {};
+  for (const t of grid.tiles) {
+    occupied[t.row - 1][t.column - 1] = true;
+    pageOf[`${t.row},${t.column}`] = pageOfTile.get(tileKey(prepared.template.id, piece.copy, t)) ?? 0;
+  }
+  const alignmentMarks: Point[] = [];
+  const joinLines: TilePlacement['joinLines'] = [];
+  for (const other of grid.tiles) {
+    const dr = other.row - tile.row;
+    const dc = other.column - tile.column;
+    if (Math.abs(dr) + Math.abs(dc) !== 1) continue;
+    const shared = intersectRects(tile.used, other.used);
+    if (!shared) continue;
+    const neighbour = `row ${other.row}, column ${other.column}`;
+    const horizontal = dc !== 0; // neighbour to the left or right: the shared strip is tall
+    const along = horizontal ? shared.height : shared.width;
+    const fractions = along >= 1.5 ? [0.2, 0.8] : [0.5];
+    for (const f of fractions) {
+      const m = horizontal
+        ? { x: shared.x + shared.width / 2, y: shared.y + shared.height * f }
+        : { x: shared.x + shared.width * f, y: shared.y + shared.height / 2 };
+      alignmentMarks.push(toSheet(m));
+    }
+    // The neighbour's far edge of the shared strip is where its paper ends over this tile.
+    const edge =
+      dc === 1 ? [{ x: other.used.x, y: shared.y }, { x: other.used.x, y: shared.y + shared.height }]
+      : dc === -1 ? [{ x: other.used.x + other.used.width, y: shared.y }, { x: other.used.x + other.used.width, y: shared.y + shared.height }]
+      : dr === 1 ? [{ x: shared.x, y: other.used.y }, { x: shared.x + shared.width, y: other.used.y }]
+      : [{ x: shared.x, y: other.used.y + other.used.height }, { x: shared.x + shared.width, y: other.used.y + other.used.height }];
+    joinLines.push({ a: toSheet(edge[0]), b: toSheet(edge[1]), neighbour });
+  }
+  const firstTile = grid.tiles[0];
+  return {
+    templateId: prepared.template.id,
+    sectionLabel: prepared.template.sectionLabel,
+    copy: piece.copy,
+    copies: prepared.template.copies,
+    rect: content,
+    transform: compose(onSheet, prepared.frame),
+    turnDeg: prepared.turnDeg,
+    caption: { rect: { x, y, width: tile.used.width, height: CAPTION_IN }, vertical: false },
+    tile: {
+      row: tile.row,
+      column: tile.column,
+      rows: grid.rows,
+      columns: grid.columns,
+      occupied,
+      pageOf,
+      first: firstTile.row === tile.row && firstTile.column === tile.column,
+      alignmentMarks,
+      joinLines,
+    },
+  };
+}

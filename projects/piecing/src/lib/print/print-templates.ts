@@ -1,0 +1,108 @@
+import type { PatternDocument, Point, Section } from '../document/index';
+import { derivePatches, locatePoint, polygonCentroid } from '../geometry/index';
+import { sectionSeamAllowance, sectionStripSets } from '../fabrication/index';
+import { ringArea } from './layout-geometry';
+import { planTemplateCopies } from './template-copies';
+import type { PrintOptions } from './print-options';
+import type { PrintPatch, PrintSegment, PrintTemplate } from './template-model';
+
+type TemplateOptions = Pick<PrintOptions, 'foundation' | 'copies' | 'sectionIds'>;
+
+/**
+ * The templates of a print set, one per section of the document (ring-repeated sections are one
+ * template printed several times), with everything the sheet draws: sewing and cutting lines, seams,
+ * patch labels and fabrics, guide lines, matching marks, orientation and copies.
+ */
+export function buildPrintTemplates(document: PatternDocument, options: TemplateOptions): PrintTemplate[] {
+  const wanted = options.sectionIds ? new Set(options.sectionIds) : null;
+  const copies = planTemplateCopies(document, options);
+  const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
+  return document.sections
+    .filter((s) => !wanted || wanted.has(s.id))
+    .map((section) => buildTemplate(section, document, fabricName, copies.get(section.id) ?? 1));
+}
+
+function buildTemplate(section: Section, document: PatternDocument, fabricName: Map<string, string>, copies: number): PrintTemplate {
+  const { sewingLine, cuttingLine } = sectionSeamAllowance(section, document.seamAllowanceIn);
+  const derived = derivePatches(section).patches;
+  const patches: PrintPatch[] = derived.map((p) => ({
+    label: p.label,
+    ...(p.fabricId && fabricName.has(p.fabricId) ? { fabricName: fabricName.get(p.fabricId)! } : {}),
+    ...(p.stripSet ? { stripSetName: p.stripSet.name ?? 'strip set' } : {}),
+    polygon: p.polygon,
+    labelAt: labelPoint(p.polygon),
+  }));
+  const guideLines = sectionStripSets(section, document.seamAllowanceIn, document.piecingMarginIn, derived).flatMap((s) =>
+    s.layout.guideLines.flatMap((g) => g.segments.map((seg) => ({ a: seg.a, b: seg.b }))),
+  );
+  return {
+    id: section.id,
+    sectionId: section.id,
+    sectionLabel: section.label,
+    kind: section.geometry.kind,
+    sewingLine,
+    cuttingLine,
+    seams: interiorSeams(derived.map((p) => p.polygon), sewingLine),
+    patches,
+    guideLines,
+    matchingMarks: [],
+    orientation: orientationOf(section, sewingLine),
+    freeRotation: section.geometry.kind !== 'straight',
+    copies,
+    areaSqIn: ringArea(cuttingLine),
+    ...(section.note ? { note: section.note } : {}),
+  };
+}
+
+/** A point for a patch's label: its centroid, or the middle of its widest chord when that falls outside. */
+function labelPoint(ring: readonly Point[]): Point {
+  const c = polygonCentroid(ring);
+  if (locatePoint(c, ring) === 'inside') return c;
+  let best = ring[0];
+  let bestLen = -1;
+  for (let i = 0; i < ring.length; i++) {
+    for (let j = i + 2; j < ring.length; j++) {
+      const m = { x: (ring[i].x + ring[j].x) / 2, y: (ring[i].y + ring[j].y) / 2 };
+      const len = Math.hypot(ring[j].x - ring[i].x, ring[j].y - ring[i].y);
+      if (len > bestLen && locatePoint(m, ring) === 'inside') {
+        best = m;
+        bestLen = len;
+      }
+    }
+    if (i > 64) break; // enough candidates for a label
+  }
+  return best;
+}
+
+/** Edges of the patches that are not on the section outline: the seams as they were cut. */
+function interiorSeams(polygons: readonly Point[][], outline: readonly Point[]): PrintSegment[] {
+  const seen = new Set<string>();
+  const seams: PrintSegment[] = [];
+  const key = (p: Point) => `${p.x.toFixed(5)},${p.y.toFixed(5)}`;
+  for (const ring of polygons) {
+    for (let i = 0; i < ring.length; i++) {
+      const a = ring[i];
+      const b = ring[(i + 1) % ring.length];
+      const mid = { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
+      if (locatePoint(mid, outline, 1e-6) !== 'inside') continue;
+      const k1 = `${key(a)}|${key(b)}`;
+      const k2 = `${key(b)}|${key(a)}`;
+      if (seen.has(k1) || seen.has(k2)) continue;
+      seen.add(k1);
+      seams.push({ a, b });
+    }
+  }
+  return seams;
+}
+
+/** Arcs and wedges point to their circle's centre; straight sections to the top of the block. */
+function orientationOf(section: Section, sewingLine: readonly Point[]): PrintTemplate['orientation'] {
+  const g = section.geometry;
+  if (g.kind === 'straight') return { direction: { x: 0, y: -1 }, towards: 'top of block' };
+  const from = polygonCentroid(sewingLine);
+  const dx = g.centre.x - from.x;
+  const dy = g.centre.y - from.y;
+  const len = Math.hypot(dx, dy);
+  if (len < 1e-6) return { direction: { x: 0, y: -1 }, towards: 'top of block' };
+  return { direction: { x: dx / len, y: dy / len }, towards: 'centre' };
+}
