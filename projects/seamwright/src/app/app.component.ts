@@ -1,31 +1,90 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { RouterLink, RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { MatIconModule, MatIconRegistry } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatButtonModule } from '@angular/material/button';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { AuthService } from './core/auth.service';
+import { ThemeService } from './core/theme.service';
 
-/** The application shell: top bar and the routed page. */
+/** The application shell: top bar with navigation, theme switch and account menu; the routed page. */
 @Component({
   selector: 'sw-root',
-  imports: [RouterOutlet, RouterLink, MatToolbarModule, MatIconModule, MatButtonModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatIconModule, MatButtonModule, MatMenuModule, MatTooltipModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <mat-toolbar class="sw-topbar">
+    <a class="sw-skip" href="#main">Skip to content</a>
+    <mat-toolbar class="sw-topbar" role="banner">
       <a routerLink="/" class="sw-brand" aria-label="Seamwright home">
         <mat-icon aria-hidden="true">architecture</mat-icon>
         <span>Seamwright</span>
       </a>
+      <nav class="sw-nav" aria-label="Main">
+        @if (auth.signedIn()) {
+          <a mat-button routerLink="/patterns" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Patterns</a>
+        }
+        <a mat-button routerLink="/scale-check" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Scale check</a>
+        @if (auth.user()?.role === 'admin') {
+          <a mat-button routerLink="/admin" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Admin</a>
+        }
+      </nav>
+      <span class="sw-spacer"></span>
+      <button
+        mat-icon-button
+        type="button"
+        (click)="theme.toggle()"
+        [attr.aria-label]="theme.theme() === 'dark' ? 'Use light theme' : 'Use dark theme'"
+        [matTooltip]="theme.theme() === 'dark' ? 'Light theme' : 'Dark theme'"
+      >
+        <mat-icon aria-hidden="true">{{ theme.theme() === 'dark' ? 'light_mode' : 'dark_mode' }}</mat-icon>
+      </button>
+      @if (auth.user(); as user) {
+        <button mat-button type="button" [matMenuTriggerFor]="account" class="sw-account" aria-label="Account menu">
+          <mat-icon aria-hidden="true">account_circle</mat-icon>
+          <span class="sw-account-name">{{ user.displayName }}</span>
+        </button>
+        <mat-menu #account="matMenu">
+          <div class="sw-menu-who" role="presentation">{{ user.email }} · {{ user.role }}</div>
+          <button mat-menu-item type="button" (click)="signOut()"><mat-icon aria-hidden="true">logout</mat-icon>Sign out</button>
+        </mat-menu>
+      } @else {
+        <a mat-button routerLink="/sign-in">Sign in</a>
+      }
     </mat-toolbar>
-    <main class="sw-main"><router-outlet /></main>
+    <main id="main" class="sw-main" tabindex="-1"><router-outlet /></main>
   `,
   styles: `
-    .sw-brand { display: inline-flex; gap: 8px; align-items: center; color: inherit; text-decoration: none; font-weight: 500; }
-    .sw-main { padding: 24px; max-width: 1200px; margin: 0 auto; }
+    :host { display: flex; flex-direction: column; min-height: 100%; }
+    .sw-brand { display: inline-flex; gap: 8px; align-items: center; color: inherit; text-decoration: none; font-weight: 500; margin-right: 16px; }
+    .sw-nav { display: flex; gap: 4px; }
+    .sw-nav a { color: inherit; }
+    .sw-nav a.sw-active { background: color-mix(in srgb, currentColor 16%, transparent); }
+    .sw-spacer { flex: 1; }
+    .sw-account { color: inherit; }
+    .sw-menu-who { padding: 8px 16px; font-size: 0.85rem; opacity: 0.75; }
+    .sw-main { flex: 1; width: 100%; box-sizing: border-box; padding: 24px; max-width: 1280px; margin: 0 auto; outline: none; }
+    .sw-skip { position: absolute; left: -9999px; top: 0; z-index: 10; padding: 8px 12px; background: var(--mat-sys-surface); color: var(--mat-sys-on-surface); }
+    .sw-skip:focus { left: 8px; top: 8px; }
+    @media (max-width: 840px) {
+      .sw-main { padding: 16px 12px; }
+      .sw-account-name { display: none; }
+      .sw-brand span { display: none; }
+    }
   `,
 })
 export class AppComponent {
+  protected readonly auth = inject(AuthService);
+  protected readonly theme = inject(ThemeService);
+  private readonly router = inject(Router);
+
   constructor() {
     // Icons come from the shipped Material Symbols font, not from a web service.
     inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
+    this.auth.load().subscribe({ error: () => undefined });
+  }
+
+  protected signOut(): void {
+    this.auth.signOut().subscribe(() => void this.router.navigate(['/sign-in']));
   }
 }

@@ -1,0 +1,89 @@
+import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { AuthService } from '../core/auth.service';
+import { toApiError } from '../core/api-error';
+import { MIN_PASSWORD_LENGTH, fieldMessage, sameAs } from './form-errors';
+
+/** Choose a new password with the token from the reset e-mail. */
+@Component({
+  selector: 'sw-reset-confirm',
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <mat-card class="sw-auth-card" appearance="outlined">
+      @if (busy()) { <mat-progress-bar mode="indeterminate" aria-label="Saving" /> }
+      <mat-card-header><mat-card-title><h1>Choose a new password</h1></mat-card-title></mat-card-header>
+      <mat-card-content>
+        @if (done()) {
+          <p role="status">Your password is changed. Sign in with the new one.</p>
+        } @else {
+          <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
+            <mat-form-field appearance="outline">
+              <mat-label>New password</mat-label>
+              <input matInput formControlName="password" type="password" autocomplete="new-password" required />
+              <mat-hint>At least {{ minLength }} characters</mat-hint>
+              <mat-error>{{ message('New password', 'password') }}</mat-error>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>New password again</mat-label>
+              <input matInput formControlName="confirm" type="password" autocomplete="new-password" required />
+              <mat-error>{{ message('New password again', 'confirm') }}</mat-error>
+            </mat-form-field>
+            @if (problem()) { <p class="sw-form-error" role="alert">{{ problem() }}</p> }
+            <button mat-flat-button type="submit" [disabled]="busy()">Save the new password</button>
+          </form>
+        }
+      </mat-card-content>
+      <mat-card-actions class="sw-auth-links">
+        <a mat-button routerLink="/sign-in">Sign in</a>
+        @if (!done()) { <a mat-button routerLink="/reset-password">Ask for a new link</a> }
+      </mat-card-actions>
+    </mat-card>
+  `,
+})
+export class ResetConfirmComponent {
+  /** The single-use token from the e-mailed link. */
+  readonly token = input.required<string>();
+  private readonly auth = inject(AuthService);
+  protected readonly minLength = MIN_PASSWORD_LENGTH;
+  protected readonly busy = signal(false);
+  protected readonly done = signal(false);
+  protected readonly problem = signal('');
+  protected readonly form = inject(FormBuilder).nonNullable.group(
+    {
+      password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
+      confirm: ['', Validators.required],
+    },
+    { validators: sameAs('password', 'confirm') },
+  );
+
+  protected message(label: string, name: 'password' | 'confirm'): string {
+    return fieldMessage(label, this.form.controls[name]);
+  }
+
+  protected submit(): void {
+    this.problem.set('');
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.busy.set(true);
+    this.auth.confirmPasswordReset(this.token(), this.form.getRawValue().password).subscribe({
+      next: () => {
+        this.busy.set(false);
+        this.done.set(true);
+      },
+      error: (err: unknown) => {
+        this.busy.set(false);
+        const e = toApiError(err);
+        this.problem.set(e.status === 400 || e.status === 404 || e.status === 410 ? `${e.message}. The link may be used or expired; ask for a new one.` : e.message);
+      },
+    });
+  }
+}

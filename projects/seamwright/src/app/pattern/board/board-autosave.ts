@@ -1,0 +1,115 @@
+import { DestroyRef, computed, inject, signal } from '@angular/core';
+import { Subject, Subscription, debounceTime } from 'rxjs';
+import type { PatternDocument } from '@seamwright/piecing';
+import { PatternsService, StaleSaveError } from '../../resources/patterns.service';
+import { NotifyService } from '../../core/notify.service';
+import type { StaleSaveDetails } from '../../core/api-types';
+import { clearDraft, writeDraft } from './draft-backup';
+
+/** How long after the last change the drawing is saved. */
+export const AUTOSAVE_DELAY_MS = 2500;
+
+export type SaveStatus = 'saved' | 'pending' | 'saving' | 'conflict' | 'error';
+
+/**
+ * Saves the board's document as a new revision a few seconds after the last change. Saves run one
+ * at a time on top of the last revision saved; a stale base stops autosave and reports the conflict.
+ * Every unsaved document is also kept in the browser until the server has it.
+ */
+export class BoardAutosave {
+  private readonly patterns = inject(PatternsService);
+  private readonly notify = inject(NotifyService);
+  private readonly edits = new Subject<void>();
+  private readonly sub: Subscription;
+  private latest: PatternDocument | null = null;
+  private inFlight = false;
+  private patternId = '';
+  private base = 0;
+
+  readonly status = signal<SaveStatus>('saved');
+  /** The other person's revision when a save was refused as stale. */
+  readonly conflict = signal<StaleSaveDetails['latest'] | null>(null);
+  readonly lastSavedRevision = signal(0);
+  /** Whether edits exist that the server does not hold. */
+  readonly dirty = computed(() => this.status() !== 'saved');
+
+  constructor(private readonly onSaved: (document: PatternDocument, revision: number) => void) {
+    this.sub = this.edits.pipe(debounceTime(AUTOSAVE_DELAY_MS)).subscribe(() => this.flush());
+    inject(DestroyRef).onDestroy(() => this.sub.unsubscribe());
+  }
+
+  /** Starts from a document the server holds as `revision`. */
+  reset(patternId: string, revision: number): void {
+    this.patternId = patternId;
+    this.base = revision;
+    this.latest = null;
+    this.lastSavedRevision.set(revision);
+    this.conflict.set(null);
+    this.status.set('saved');
+  }
+
+  /** Records a change on the board; the save follows after a pause. */
+  change(document: PatternDocument): void {
+    this.latest = document;
+    writeDraft(this.patternId, { baseRevision: this.base, savedAt: Date.now(), document });
+    if (this.status() === 'conflict') return;
+    this.status.set('pending');
+    this.edits.next();
+  }
+
+  /** Saves now what is pending (on leaving, or from a "save" button). */
+  flush(): void {
+    const doc = this.latest;
+    if (!doc || this.inFlight || this.status() === 'conflict') return;
+    this.inFlight = true;
+    this.status.set('saving');
+    this.patterns.save(this.patternId, { baseRevision: this.base, document: doc }).subscribe({
+      next: (saved) => {
+        const number = saved.revision.number;
+        this.inFlight = false;
+        this.base = number;
+        this.lastSavedRevision.set(number);
+        this.onSaved(saved.revision.document, number);
+        if (this.latest === doc) {
+          this.latest = null;
+          clearDraft(this.patternId);
+          this.status.set('saved');
+        } else {
+          this.status.set('pending');
+          this.edits.next();
+        }
+      },
+      error: (err: unknown) => {
+        this.inFlight = false;
+        if (err instanceof StaleSaveError) {
+          this.conflict.set(err.latest);
+          this.status.set('conflict');
+          return;
+        }
+        this.status.set('error');
+        this.notify.error(err, 'Not saved (a copy is kept in this browser)');
+      },
+    });
+  }
+
+  /** The unsaved document, if any. */
+  pending(): PatternDocument | null {
+    return this.latest;
+  }
+
+  /** After a conflict: save the user's drawing on top of the other revision (theirs stays in History). */
+  saveOnTopOf(revision: number): void {
+    this.base = revision;
+    this.conflict.set(null);
+    this.status.set('pending');
+    this.flush();
+  }
+
+  /** After a conflict or on reload: forget the pending edits (the browser copy goes too). */
+  discard(): void {
+    this.latest = null;
+    clearDraft(this.patternId);
+    this.conflict.set(null);
+    this.status.set('saved');
+  }
+}

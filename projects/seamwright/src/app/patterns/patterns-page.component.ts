@@ -1,0 +1,157 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { Router, RouterLink } from '@angular/router';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatTableModule } from '@angular/material/table';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
+import { EMPTY, Observable, Subscription, catchError, debounceTime, distinctUntilChanged, filter, from, mergeMap, switchMap } from 'rxjs';
+import type { PatternDocument } from '@seamwright/piecing';
+import { PatternsService } from '../resources/patterns.service';
+import { LoadState } from '../core/load-state';
+import { NotifyService } from '../core/notify.service';
+import { AuthService } from '../core/auth.service';
+import type { Page, PatternListQuery, PatternSummary } from '../core/api-types';
+import { NewPatternChoice, NewPatternDialogComponent } from './new-pattern-dialog.component';
+import { STARTERS } from './starters';
+import { PatternThumbnailComponent } from './pattern-thumbnail.component';
+import { accessLabel } from './access-label';
+
+/** The pattern list: everything the user owns or was invited to, and the trash. */
+@Component({
+  selector: 'sw-patterns-page',
+  imports: [
+    DatePipe, RouterLink, ReactiveFormsModule, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule,
+    MatFormFieldModule, MatInputModule, MatMenuModule, MatProgressBarModule, MatButtonToggleModule, PatternThumbnailComponent,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './patterns-page.component.html',
+  styleUrl: './patterns-page.component.scss',
+})
+export class PatternsPageComponent implements OnInit {
+  private readonly patterns = inject(PatternsService);
+  private readonly notify = inject(NotifyService);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+  protected readonly auth = inject(AuthService);
+  protected readonly accessLabel = accessLabel;
+
+  protected readonly columns = ['thumbnail', 'title', 'sections', 'updated', 'owner', 'access', 'actions'];
+  /** The list query; `page` here is 0-based like the paginator. */
+  protected readonly query = signal<PatternListQuery>({ page: 0, pageSize: 10, sort: 'updated', order: 'desc', q: '', scope: 'all' });
+  protected readonly trashed = computed(() => this.query().scope === 'trash');
+  /** Latest documents fetched for rows the list answer carries none for (thumbnail and section count). */
+  protected readonly documents = signal<ReadonlyMap<string, PatternDocument>>(new Map());
+  private detailsSub: Subscription | null = null;
+  protected readonly state = new LoadState<Page<PatternSummary>>();
+  protected readonly rows = computed(() => this.state.value()?.items ?? []);
+  protected readonly total = computed(() => this.state.value()?.total ?? 0);
+  protected readonly busyId = signal<string | null>(null);
+  protected readonly filter = new FormControl('', { nonNullable: true });
+
+  ngOnInit(): void {
+    this.reload();
+    this.filter.valueChanges
+      .pipe(debounceTime(300), distinctUntilChanged(), takeUntilDestroyed(this.destroyRef))
+      .subscribe((q) => this.update({ q, page: 0 }));
+  }
+
+  protected update(change: Partial<PatternListQuery>): void {
+    this.query.update((q) => ({ ...q, ...change }));
+    this.reload();
+  }
+
+  protected onSort(s: Sort): void {
+    const sort = (s.direction ? s.active : 'updated') as PatternListQuery['sort'];
+    this.update({ sort, order: s.direction || 'desc', page: 0 });
+  }
+
+  protected onPage(e: PageEvent): void {
+    this.update({ page: e.pageIndex, pageSize: e.pageSize });
+  }
+
+  protected reload(): void {
+    // The server numbers pages from 1; the paginator from 0.
+    const q = this.query();
+    this.state.run(this.patterns.list({ ...q, page: q.page + 1 }), (page) => this.fetchDocuments(page.items));
+  }
+
+  /** Row documents for thumbnails and section counts, a few requests at a time. */
+  private fetchDocuments(rows: PatternSummary[]): void {
+    this.detailsSub?.unsubscribe();
+    const known = this.documents();
+    const missing = rows.filter((r) => !r.document && !known.has(r.id + '@' + r.headRevision) && !r.trashedAt);
+    this.detailsSub = from(missing)
+      .pipe(mergeMap((r) => this.patterns.get(r.id).pipe(catchError(() => EMPTY)), 3))
+      .subscribe((d) => {
+        this.documents.update((m) => new Map(m).set(d.pattern.id + '@' + d.revision.number, d.revision.document));
+      });
+  }
+
+  protected documentOf(row: PatternSummary): PatternDocument | undefined {
+    return row.document ?? this.documents().get(row.id + '@' + row.headRevision);
+  }
+
+  protected sectionsOf(row: PatternSummary): number | null {
+    return row.sectionCount ?? this.documentOf(row)?.sections.length ?? null;
+  }
+
+  protected newPattern(): void {
+    this.dialog
+      .open<NewPatternDialogComponent, unknown, NewPatternChoice>(NewPatternDialogComponent, { width: '560px', maxWidth: '95vw' })
+      .afterClosed()
+      .pipe(
+        filter((c): c is NewPatternChoice => !!c),
+        switchMap((c) => {
+          const starter = STARTERS.find((s) => s.id === c.starterId) ?? STARTERS[0];
+          return this.patterns.create(starter.build(c.title));
+        }),
+      )
+      .subscribe({
+        next: (p) => void this.router.navigate(['/patterns', p.pattern.id, 'board']),
+        error: (err: unknown) => this.notify.error(err, 'Could not create the pattern'),
+      });
+  }
+
+  protected duplicate(row: PatternSummary): void {
+    this.act(row, this.patterns.duplicate(row.id), `“${row.title}” duplicated`);
+  }
+
+  protected trash(row: PatternSummary): void {
+    this.act(row, this.patterns.trash(row.id), `“${row.title}” moved to the trash`);
+  }
+
+  protected restore(row: PatternSummary): void {
+    this.act(row, this.patterns.restore(row.id), `“${row.title}” restored`);
+  }
+
+  protected deleteForGood(row: PatternSummary): void {
+    if (!confirm(`Delete “${row.title}” and all its revisions and print sets for good?`)) return;
+    this.act(row, this.patterns.deleteForGood(row.id), `“${row.title}” deleted`);
+  }
+
+  private act(row: PatternSummary, call: Observable<unknown>, done: string): void {
+    this.busyId.set(row.id);
+    call.subscribe({
+      next: () => {
+        this.busyId.set(null);
+        this.notify.info(done);
+        this.reload();
+      },
+      error: (err: unknown) => {
+        this.busyId.set(null);
+        this.notify.error(err);
+      },
+    });
+  }
+}

@@ -1,0 +1,50 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map, switchMap, takeWhile, timer } from 'rxjs';
+import { API } from '../core/api-paths';
+import type { PrintSet } from '../core/api-types';
+
+/** Print sets: make one from a revision, follow its progress, download, delete. */
+@Injectable({ providedIn: 'root' })
+export class PrintSetsService {
+  private readonly http = inject(HttpClient);
+
+  list(patternId: string): Observable<PrintSet[]> {
+    return this.http.get<{ items: PrintSet[] }>(API.printSets(patternId)).pipe(map((r) => r.items));
+  }
+
+  /** Queues a print set of `revision` (the latest when left out). */
+  create(patternId: string, options: object, revision?: number): Observable<PrintSet> {
+    return this.http
+      .post<{ printSet: PrintSet }>(API.printSets(patternId), { options, ...(revision ? { revision } : {}) })
+      .pipe(map((r) => r.printSet));
+  }
+
+  get(patternId: string, setId: string): Observable<PrintSet> {
+    return this.http.get<{ printSet: PrintSet }>(API.printSet(patternId, setId)).pipe(map((r) => r.printSet));
+  }
+
+  /** Polls a print set until it is done or failed, emitting each state (the last one included). */
+  follow(patternId: string, setId: string, everyMs = 600): Observable<PrintSet> {
+    return timer(0, everyMs).pipe(
+      switchMap(() => this.get(patternId, setId)),
+      takeWhile((s) => s.status === 'queued' || s.status === 'rendering', true),
+    );
+  }
+
+  delete(patternId: string, setId: string): Observable<unknown> {
+    return this.http.delete(API.printSet(patternId, setId));
+  }
+
+  /** The file's address, for a plain download link (same origin; the cookie goes along). */
+  fileUrl(patternId: string, setId: string): string {
+    return API.printSetFile(patternId, setId);
+  }
+}
+
+/** A size in bytes as people read it. */
+export const formatBytes = (n: number | null | undefined): string =>
+  n == null ? '' : n < 1024 ? `${n} B` : n < 1024 * 1024 ? `${(n / 1024).toFixed(0)} kB` : `${(n / 1024 / 1024).toFixed(1)} MB`;
+
+/** Progress 0…1 as a whole percentage. */
+export const percent = (p: number): number => Math.round(Math.max(0, Math.min(1, p)) * 100);

@@ -1,0 +1,29 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, catchError, map, throwError } from 'rxjs';
+import { API } from '../core/api-paths';
+import type { Page, PatternWithRevision, Revision, RevisionSummary } from '../core/api-types';
+import { staleSaveOrError } from './patterns.service';
+
+/** A pattern's revisions: list, read one, restore one as a new revision. */
+@Injectable({ providedIn: 'root' })
+export class RevisionsService {
+  private readonly http = inject(HttpClient);
+
+  /** Newest first; `page` is 1-based. */
+  list(patternId: string, page = 1, pageSize = 20): Observable<Page<RevisionSummary>> {
+    const params = new HttpParams().set('page', page).set('pageSize', pageSize);
+    return this.http.get<Page<RevisionSummary>>(API.revisions(patternId), { params });
+  }
+
+  get(patternId: string, n: number): Observable<Revision> {
+    return this.http.get<{ revision: Revision }>(API.revision(patternId, n)).pipe(map((r) => r.revision));
+  }
+
+  /** Makes revision `n`'s document the newest revision, on top of `baseRevision`. */
+  restore(patternId: string, n: number, baseRevision: number): Observable<PatternWithRevision> {
+    return this.http
+      .post<PatternWithRevision>(API.restoreRevision(patternId, n), { baseRevision })
+      .pipe(catchError((err: unknown) => throwError(() => staleSaveOrError(err))));
+  }
+}
