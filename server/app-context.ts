@@ -1,6 +1,7 @@
 import type { Config } from './config';
 import type { DatabaseHandle, Db } from './db/database';
 import type { Mailer } from './services/mailer';
+import type { PrintSetService } from './services/print-sets';
 
 /** Everything a route needs, made once at start and passed down (no module-level state). */
 export interface AppContext {
@@ -9,6 +10,6 @@ export interface AppContext {
   db: Db;
   mailer: Mailer;
   log: (message: string, err?: unknown) => void;
-  /** The print-set renderer (worker threads); absent until started. */
-  printSets?: { close(): Promise<void> };
+  /** The print-set renderer (worker threads). */
+  printSets: PrintSetService;
 }

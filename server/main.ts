@@ -4,6 +4,7 @@ import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
 import { openDatabase } from './db/database';
 import { createSmtpMailer } from './services/mailer';
+import { PrintSetService } from './services/print-sets';
 
 function log(message: string, err?: unknown): void {
   const time = new Date().toISOString();
@@ -16,7 +17,9 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   const config = loadConfig(env);
   const database = openDatabase(config.dataDir);
   const mailer = createSmtpMailer(config);
-  const ctx: AppContext = { config, database, db: database.db, mailer, log };
+  const printSets = new PrintSetService(database.db, config, log);
+  const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
+  printSets.resumeUnfinished();
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -30,6 +33,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     if (closing) return;
     closing = true;
     await new Promise<void>((resolve) => server.close(() => resolve()));
+    await printSets.close();
     mailer.close();
     database.close();
   };

@@ -196,7 +196,10 @@ export const printSets = sqliteTable(
     /** 0…1 while rendering. */
     progress: real('progress').notNull().default(0),
     error: text('error'),
+    /** Pages in the PDF (cover, template sheets, cutting list). */
     sheets: integer('sheets'),
+    /** N: sheets carrying templates (the cover states N against M). */
+    templateSheets: integer('template_sheets'),
     lowerBoundSheets: integer('lower_bound_sheets'),
     bytes: integer('bytes'),
     sha256: text('sha256'),

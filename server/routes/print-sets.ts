@@ -1,7 +1,173 @@
+import fs from 'node:fs';
+import { and, desc, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
+import { z } from 'zod';
+import { printOptionsSchema } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
+import { currentUser } from '../auth/sessions';
+import { newId } from '../auth/tokens';
+import { printSets, users, type PrintSet } from '../db/schema';
+import { HttpError, zodDetails } from '../http/errors';
+import { idSchema, parseOr400 } from '../http/validate';
+import { resolvePatternAccess } from '../services/access';
+import { removeStoredFiles, resolveInData } from '../services/files';
+import { findRevision } from '../services/revisions';
 
-/** Placeholder until the print engine lands. */
-export function printSetsRouter(_ctx: AppContext): Router {
-  return express.Router({ mergeParams: true });
+const createBody = z.strictObject({
+  revision: z.number().int().min(1).optional(),
+  options: z.record(z.string(), z.unknown()).default({}),
+});
+
+const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
+
+function printSetJson(s: PrintSet, creatorName: string) {
+  return {
+    id: s.id,
+    patternId: s.patternId,
+    revision: s.revisionNumber,
+    options: JSON.parse(s.options) as unknown,
+    status: s.status,
+    progress: s.progress,
+    error: s.error,
+    sheets: s.sheets,
+    templateSheets: s.templateSheets,
+    lowerBoundSheets: s.lowerBoundSheets,
+    bytes: s.bytes,
+    sha256: s.sha256,
+    createdBy: { id: s.createdBy, displayName: creatorName },
+    createdAt: s.createdAt.toISOString(),
+    finishedAt: s.finishedAt ? s.finishedAt.toISOString() : null,
+    url: `/api/patterns/${s.patternId}/print-sets/${s.id}/file`,
+  };
+}
+
+/** A file name for the download: ASCII letters, digits and dashes. */
+const fileSlug = (title: string) =>
+  title
+    .normalize('NFKD')
+    .replace(/[^\x20-\x7e]/g, '')
+    .replace(/[^A-Za-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60) || 'print-set';
+
+/** `/api/patterns/:id/print-sets…`: render, list, follow, download and delete print sets. */
+export function printSetsRouter(ctx: AppContext): Router {
+  const { db, config } = ctx;
+  const router = express.Router({ mergeParams: true });
+
+  const findSet = (patternId: string, raw: unknown) => {
+    const setId = parseOr400(idSchema, raw, 'Invalid print-set id');
+    const row = db
+      .select({ set: printSets, creatorName: users.displayName })
+      .from(printSets)
+      .innerJoin(users, eq(users.id, printSets.createdBy))
+      .where(and(eq(printSets.id, setId), eq(printSets.patternId, patternId)))
+      .get();
+    if (!row) throw new HttpError(404, 'Print set not found');
+    return row;
+  };
+
+  router.post('/', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const user = currentUser(req);
+    const body = parseOr400(createBody, req.body ?? {});
+    const revision = findRevision(db, pattern.id, body.revision);
+    if (!revision) throw new HttpError(404, 'Revision not found');
+    // The PDF's date comes from the revision, so the same revision and options give the same bytes.
+    const parsed = printOptionsSchema.safeParse({ ...body.options, createdAt: revision.revision.createdAt.toISOString() });
+    if (!parsed.success) {
+      throw new HttpError(
+        400,
+        'Invalid print options',
+        zodDetails(parsed.error).map((d) => ({ ...d, path: d.path ? `options.${d.path}` : 'options' })),
+      );
+    }
+    const row = db
+      .insert(printSets)
+      .values({
+        id: newId(),
+        patternId: pattern.id,
+        revisionId: revision.revision.id,
+        revisionNumber: revision.revision.number,
+        createdBy: user.id,
+        options: JSON.stringify(parsed.data),
+        status: 'queued',
+        createdAt: new Date(),
+      })
+      .returning()
+      .get();
+    ctx.printSets.enqueue(row.id);
+    res.status(202).json({ printSet: printSetJson(row, user.displayName) });
+  });
+
+  router.get('/', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const rows = db
+      .select({ set: printSets, creatorName: users.displayName })
+      .from(printSets)
+      .innerJoin(users, eq(users.id, printSets.createdBy))
+      .where(eq(printSets.patternId, pattern.id))
+      .orderBy(desc(printSets.createdAt), desc(printSets.id))
+      .all();
+    res.json({ items: rows.map((r) => printSetJson(r.set, r.creatorName)) });
+  });
+
+  router.get('/:setId', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const row = findSet(pattern.id, req.params.setId);
+    res.json({ printSet: printSetJson(row.set, row.creatorName) });
+  });
+
+  router.get('/:setId/events', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const row = findSet(pattern.id, req.params.setId);
+    res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
+    const send = (s: PrintSet) => res.write(`event: progress\ndata: ${JSON.stringify(printSetJson(s, row.creatorName))}\n\n`);
+    const terminal = (s: PrintSet) => s.status === 'done' || s.status === 'failed';
+    send(row.set);
+    if (terminal(row.set)) return void res.end();
+    const onUpdate = (s: PrintSet) => {
+      if (s.id !== row.set.id) return;
+      send(s);
+      if (terminal(s)) stop();
+    };
+    const stop = () => {
+      ctx.printSets.events.off('update', onUpdate);
+      res.end();
+    };
+    ctx.printSets.events.on('update', onUpdate);
+    req.on('close', () => ctx.printSets.events.off('update', onUpdate));
+  });
+
+  router.get('/:setId/file', (req, res, next) => {
+    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { set } = findSet(pattern.id, req.params.setId);
+    if (set.status !== 'done' || !set.storagePath) {
+      throw new HttpError(409, set.status === 'failed' ? 'This print set failed to render' : 'This print set is not ready yet', {
+        status: set.status,
+        progress: set.progress,
+      });
+    }
+    const file = resolveInData(config.dataDir, set.storagePath);
+    if (!fs.existsSync(file)) throw new HttpError(404, 'Print set file not found');
+    const name = `${fileSlug(pattern.title)}-r${set.revisionNumber}.pdf`;
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.sendFile(file, { headers: { 'Content-Type': 'application/pdf' } }, (err) => {
+      if (err && !res.headersSent) next(err);
+    });
+  });
+
+  router.delete('/:setId', async (req, res) => {
+    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const user = currentUser(req);
+    const { set } = findSet(pattern.id, req.params.setId);
+    if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
+    db.delete(printSets).where(eq(printSets.id, set.id)).run();
+    await removeStoredFiles(config.dataDir, [set.storagePath]);
+    res.status(204).end();
+  });
+
+  return router;
 }

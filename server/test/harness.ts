@@ -9,6 +9,7 @@ import type { AppContext } from '../app-context';
 import { loadConfig } from '../config';
 import { openDatabase } from '../db/database';
 import { createSmtpMailer } from '../services/mailer';
+import { PrintSetService } from '../services/print-sets';
 import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
 
 export interface TestServer {
@@ -36,7 +37,9 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   const database = openDatabase(config.dataDir);
   const mailer = createSmtpMailer(config);
   const errors: unknown[] = [];
-  const ctx: AppContext = { config, database, db: database.db, mailer, log: (_m, err) => errors.push(err) };
+  const log = (_m: string, err?: unknown) => errors.push(err);
+  const printSets = new PrintSetService(database.db, config, log);
+  const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
   const app = createApp(ctx);
   return {
     app,
@@ -44,7 +47,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     mail,
     dataDir,
     async close() {
-      await ctx.printSets?.close();
+      await ctx.printSets.close();
       mailer.close();
       database.close();
       await mail.close();

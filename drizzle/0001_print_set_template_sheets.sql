@@ -1,0 +1,1 @@
+ALTER TABLE `print_sets` ADD `template_sheets` integer;

@@ -1,0 +1,151 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import crypto from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+
+let t: TestServer;
+let owner: Client;
+let quilter: Client;
+let stranger: Client;
+let patternId: string;
+
+beforeAll(async () => {
+  t = await startTestServer();
+  owner = await userClient(t.app, 'owner@print.test', 'designer');
+  quilter = await userClient(t.app, 'quilter@print.test', 'quilter');
+  stranger = await userClient(t.app, 'stranger@print.test', 'designer');
+  patternId = await sharedPattern(t, owner, [{ client: quilter, access: 'quilter' }], 'Print block');
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function waitDone(c: Client, setId: string) {
+  for (let i = 0; i < 600; i++) {
+    const res = await c.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200);
+    if (res.body.printSet.status === 'done' || res.body.printSet.status === 'failed') return res.body.printSet;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error('print set did not finish');
+}
+
+const binary = (res: import('superagent').Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+describe('print sets', () => {
+  it('renders a stored revision in a worker, stores the PDF under its maker and serves it to members only', async () => {
+    const made = await quilter.post(`/api/patterns/${patternId}/print-sets`, { options: { paper: 'a4' } }).expect(202);
+    expect(made.body.printSet).toMatchObject({ status: 'queued', revision: 1, options: { paper: 'a4', mirrored: true } });
+    const set = await waitDone(quilter, made.body.printSet.id);
+    expect(set.error).toBeNull();
+    expect(set.status).toBe('done');
+    expect(set.sheets).toBeGreaterThanOrEqual(2);
+    expect(set.lowerBoundSheets).toBeGreaterThanOrEqual(1);
+
+    const file = await quilter.get(set.url).buffer(true).parse(binary).expect(200);
+    expect(file.headers['content-type']).toBe('application/pdf');
+    expect(file.headers['content-disposition']).toBe('attachment; filename="Print-block-r1.pdf"');
+    const bytes: Buffer = file.body;
+    expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(bytes.length).toBe(set.bytes);
+    expect(crypto.createHash('sha256').update(bytes).digest('hex')).toBe(set.sha256);
+    // Read back with Mozilla's reader (pdfjs-dist), not our writer: the page count is what we stored,
+    // and an A4 page is 595.28 × 841.89 pt (ISO 216: 210 × 297 mm; 1 pt = 1/72 in., ISO 32000-1 8.3.2.3).
+    const pdf = await getDocument({ data: new Uint8Array(bytes) }).promise;
+    expect(pdf.numPages).toBe(set.sheets);
+    const [, , w, h] = (await pdf.getPage(1)).view;
+    expect(Math.abs(w - (210 / 25.4) * 72)).toBeLessThan(0.01);
+    expect(Math.abs(h - (297 / 25.4) * 72)).toBeLessThan(0.01);
+    await pdf.destroy();
+
+    // Stored in the data folder under the user who made it.
+    const stored = path.join(t.dataDir, 'print-sets', quilter.user!.id, `${set.id}.pdf`);
+    expect(fs.readFileSync(stored).equals(bytes)).toBe(true);
+    expect(fs.readdirSync(path.dirname(stored)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+
+    await stranger.get(set.url).expect(404);
+    await stranger.get(`/api/patterns/${patternId}/print-sets/${set.id}`).expect(404);
+    await stranger.del(`/api/patterns/${patternId}/print-sets/${set.id}`).expect(404);
+    const list = await owner.get(`/api/patterns/${patternId}/print-sets`).expect(200);
+    expect(list.body.items.map((s: { id: string }) => s.id)).toContain(set.id);
+  });
+
+  it('gives the same bytes for the same revision and options', async () => {
+    const a = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: { paper: 'letter' } }).expect(202);
+    const b = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: { paper: 'letter' } }).expect(202);
+    const [sa, sb] = [await waitDone(owner, a.body.printSet.id), await waitDone(owner, b.body.printSet.id)];
+    expect(sa.status).toBe('done');
+    expect(sa.sha256).toBe(sb.sha256);
+    const front = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: { paper: 'letter', mirrored: false } }).expect(202);
+    const sf = await waitDone(owner, front.body.printSet.id);
+    expect(sf.sha256).not.toBe(sa.sha256);
+  });
+
+  it('streams progress as server-sent events until done', async () => {
+    const made = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+    const res = await owner.get(`/api/patterns/${patternId}/print-sets/${made.body.printSet.id}/events`).buffer(true).parse((r, cb) => {
+      let text = '';
+      r.setEncoding('utf8');
+      r.on('data', (c: string) => (text += c));
+      r.on('end', () => cb(null, text));
+    });
+    expect(res.headers['content-type']).toContain('text/event-stream');
+    const events = String(res.body)
+      .split('\n\n')
+      .filter((e) => e.startsWith('event: progress'))
+      .map((e) => JSON.parse(e.split('\ndata: ')[1]));
+    expect(events.length).toBeGreaterThanOrEqual(1);
+    expect(events.at(-1).status).toBe('done');
+    const progress = events.map((e) => e.progress);
+    expect([...progress].sort((x, y) => x - y)).toEqual(progress);
+  });
+
+  it('rejects bad options with their path, and an unknown revision', async () => {
+    const bad = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: { paper: 'napkin', marginIn: 'wide' } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.details.map((d: { path: string }) => d.path).sort()).toEqual(['options.marginIn', 'options.paper']);
+    await owner.post(`/api/patterns/${patternId}/print-sets`, { revision: 99, options: {} }).expect(404);
+    const notReady = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+    const early = await owner.get(notReady.body.printSet.url);
+    expect([200, 409]).toContain(early.status); // 409 while rendering; a fast machine may finish first
+    await waitDone(owner, notReady.body.printSet.id);
+  });
+
+  it('deletes a print set and its file; only the maker or the owner may', async () => {
+    const made = await quilter.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+    const set = await waitDone(quilter, made.body.printSet.id);
+    const stored = path.join(t.dataDir, 'print-sets', quilter.user!.id, `${set.id}.pdf`);
+    expect(fs.existsSync(stored)).toBe(true);
+    const byOwner = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+    await waitDone(owner, byOwner.body.printSet.id);
+    await quilter.del(`/api/patterns/${patternId}/print-sets/${byOwner.body.printSet.id}`).expect(403);
+    await owner.del(`/api/patterns/${patternId}/print-sets/${set.id}`).expect(204);
+    expect(fs.existsSync(stored)).toBe(false);
+    await quilter.get(set.url).expect(404);
+  });
+
+  it('deleting the pattern for good removes its print-set and upload files', async () => {
+    const id = await sharedPattern(t, owner, [], 'Doomed');
+    const up = await owner.req('post', `/api/patterns/${id}/uploads`).attach('file', TINY_PNG, 'ref.png').expect(201);
+    const image = path.join(t.dataDir, 'uploads', owner.user!.id, `${up.body.upload.id}.png`);
+    expect(fs.existsSync(image)).toBe(true);
+    const made = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202);
+    for (let i = 0; i < 600; i++) {
+      const r = await owner.get(`/api/patterns/${id}/print-sets/${made.body.printSet.id}`);
+      if (r.body.printSet.status === 'done') break;
+      await new Promise((res) => setTimeout(res, 100));
+    }
+    const stored = path.join(t.dataDir, 'print-sets', owner.user!.id, `${made.body.printSet.id}.pdf`);
+    expect(fs.existsSync(stored)).toBe(true);
+    await owner.post(`/api/patterns/${id}/trash`).expect(200);
+    await owner.del(`/api/patterns/${id}`).expect(204);
+    expect(fs.existsSync(stored)).toBe(false);
+    expect(fs.existsSync(image)).toBe(false);
+  });
+});
+
