@@ -1,0 +1,82 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+
+let t: TestServer;
+let owner: Client;
+let id: string;
+beforeAll(async () => {
+  t = await startTestServer();
+  owner = await userClient(t.app, 'owner@uploads.test', 'designer');
+  id = await sharedPattern(t, owner, [], 'Traced block');
+});
+afterAll(async () => {
+  await t.close();
+});
+
+// Magic numbers: JPEG starts FF D8 FF (JFIF/ITU T.81); WebP is a RIFF container with "WEBP" at offset 8
+// (Google's WebP container specification); GIF starts "GIF89a" (GIF 89a specification).
+const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]), Buffer.from('JFIF\0', 'latin1'), Buffer.alloc(64)]);
+const WEBP = Buffer.concat([Buffer.from('RIFF', 'latin1'), Buffer.from([0x24, 0, 0, 0]), Buffer.from('WEBPVP8 ', 'latin1'), Buffer.alloc(40)]);
+const GIF = Buffer.concat([Buffer.from('GIF89a', 'latin1'), Buffer.from([1, 0, 1, 0, 0x80, 0, 0]), Buffer.alloc(20)]);
+
+const upload = (c: Client, data: Buffer, name: string, contentType?: string) =>
+  c.req('post', `/api/patterns/${id}/uploads`).attach('file', data, contentType ? { filename: name, contentType } : name);
+
+describe('reference image uploads', () => {
+  it('accepts PNG, JPEG and WebP by their bytes and serves them back with their type', async () => {
+    for (const [data, name, mime] of [
+      [TINY_PNG, 'ref.png', 'image/png'],
+      [JPEG, 'photo.jpeg', 'image/jpeg'],
+      [WEBP, 'scan.webp', 'image/webp'],
+    ] as const) {
+      const res = await upload(owner, data, name).expect(201);
+      expect(res.body.upload).toMatchObject({ mimeType: mime, bytes: data.length, fileName: name });
+      const file = await owner.get(res.body.upload.url).buffer(true).expect(200);
+      expect(file.headers['content-type']).toBe(mime);
+      expect(file.headers['x-content-type-options']).toBe('nosniff');
+      expect(Buffer.compare(Buffer.from(file.body), data)).toBe(0);
+    }
+  });
+
+  it('answers 415 for a text file renamed .png, an SVG sent as image/png and a GIF', async () => {
+    const text = await upload(owner, Buffer.from('just some text, honest\n'), 'notes.png', 'image/png');
+    expect(text.status).toBe(415);
+    expect(text.body.details.detected).toBe('unknown');
+    const svg = await upload(owner, Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'x.png', 'image/png');
+    expect(svg.status).toBe(415);
+    const gif = await upload(owner, GIF, 'anim.png', 'image/png');
+    expect(gif.status).toBe(415);
+    expect(gif.body.details.detected).toBe('image/gif');
+    const dir = path.join(t.dataDir, 'uploads', owner.user!.id);
+    const stored = fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+    expect(stored.every((f) => /^[A-Za-z0-9_-]{22}\.(png|jpg|webp)$/.test(f))).toBe(true);
+  });
+
+  it('answers 413 above 10 MB and 400 without a file', async () => {
+    const big = Buffer.concat([TINY_PNG, Buffer.alloc(10 * 1024 * 1024)]);
+    const res = await upload(owner, big, 'huge.png');
+    expect(res.status).toBe(413);
+    expect(res.body.error).toBe('The image is larger than 10 MB');
+    const none = await owner.req('post', `/api/patterns/${id}/uploads`).field('other', 'x');
+    expect(none.status).toBe(400);
+    const json = await owner.post(`/api/patterns/${id}/uploads`, { file: 'iVBOR' });
+    expect(json.status).toBe(415);
+  });
+
+  it('stores a hostile file name harmlessly under its own id', async () => {
+    const res = await upload(owner, TINY_PNG, '../../../seamwright.db.png').expect(201);
+    expect(res.body.upload.fileName).not.toContain('/');
+    const file = path.join(t.dataDir, 'uploads', owner.user!.id, `${res.body.upload.id}.png`);
+    expect(fs.readFileSync(file).equals(TINY_PNG)).toBe(true);
+  });
+
+  it('deletes an upload and its file', async () => {
+    const res = await upload(owner, TINY_PNG, 'gone.png').expect(201);
+    const file = path.join(t.dataDir, 'uploads', owner.user!.id, `${res.body.upload.id}.png`);
+    await owner.del(`/api/patterns/${id}/uploads/${res.body.upload.id}`).expect(204);
+    expect(fs.existsSync(file)).toBe(false);
+    await owner.get(res.body.upload.url).expect(404);
+  });
+});
