@@ -10,3 +10,4 @@ export * from './lib/fabrication/index';
 export * from './lib/demo/index';
 export * from './lib/print/index';
 export * from './lib/sewability/index';
+export * from './lib/units/index';
