@@ -3,6 +3,7 @@ import { createApp } from './app';
 import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
 import { openDatabase } from './db/database';
+import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
 
@@ -17,6 +18,11 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   const config = loadConfig(env);
   const database = openDatabase(config.dataDir);
   const mailer = createSmtpMailer(config);
+  if ((config.seedDemo || argv.includes('--seed-demo')) && isEmpty(database.db)) {
+    const report = await seedDemo(database.db, config.bcryptRounds);
+    log(`Seeded demo data: ${report.accountsCreated.length} accounts, patterns: ${report.patternsCreated.join(', ') || 'none'}`);
+    for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
+  }
   const printSets = new PrintSetService(database.db, config, log);
   const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
   printSets.resumeUnfinished();
@@ -37,7 +43,6 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     mailer.close();
     database.close();
   };
-  void argv;
   return { server, port, ctx, close };
 }
 

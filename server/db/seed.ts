@@ -1,0 +1,100 @@
+/**
+ * Demo data (design.md §8, invented): the studio "Fernbrook Patterns" with an admin, a designer and a
+ * quilter, and the demo patterns built by the piecing library, shared with the demo quilter.
+ *
+ * `seedDemo` adds whatever of it is missing (idempotent). The server calls it at start on an empty
+ * database when SEAMWRIGHT_SEED_DEMO=1 or `--seed-demo` is given; `tsx server/db/seed.ts` runs it alone.
+ */
+import { and, eq } from 'drizzle-orm';
+import * as piecing from '@seamwright/piecing';
+import { hashPassword } from '../auth/passwords';
+import { newId } from '../auth/tokens';
+import { loadConfig } from '../config';
+import { createPattern } from '../services/revisions';
+import { openDatabase, type Db } from './database';
+import { members, patterns, users, type Role } from './schema';
+
+/** The demo sign-ins (also in the README). */
+export const DEMO_ACCOUNTS: { email: string; password: string; displayName: string; role: Role }[] = [
+  { email: 'admin@fernbrook.example', password: 'fernbrook-admin', displayName: 'Fernbrook Studio Admin', role: 'admin' },
+  { email: 'designer@fernbrook.example', password: 'fernbrook-designer', displayName: 'Mira Fernbrook', role: 'designer' },
+  { email: 'quilter@fernbrook.example', password: 'fernbrook-quilter', displayName: 'Jonah Pell', role: 'quilter' },
+];
+
+/** Names of the piecing library's demo builders, in seeding order. */
+const DEMO_BUILDERS = ['buildOrchardWheel', 'buildGardenGate'] as const;
+
+export interface SeedReport {
+  accountsCreated: string[];
+  patternsCreated: string[];
+  /** Demo builders the piecing library does not export yet. */
+  buildersMissing: string[];
+}
+
+/** Whether the database holds no user at all. */
+export function isEmpty(db: Db): boolean {
+  return db.select({ id: users.id }).from(users).limit(1).all().length === 0;
+}
+
+/** Adds the missing demo accounts and patterns. */
+export async function seedDemo(db: Db, bcryptRounds: number): Promise<SeedReport> {
+  const report: SeedReport = { accountsCreated: [], patternsCreated: [], buildersMissing: [] };
+  const ids: Record<string, string> = {};
+  for (const a of DEMO_ACCOUNTS) {
+    const existing = db.select().from(users).where(eq(users.email, a.email)).get();
+    if (existing) {
+      ids[a.role] = existing.id;
+      continue;
+    }
+    const id = newId();
+    const passwordHash = await hashPassword(a.password, bcryptRounds);
+    db.insert(users).values({ id, email: a.email, displayName: a.displayName, passwordHash, role: a.role, createdAt: new Date() }).run();
+    ids[a.role] = id;
+    report.accountsCreated.push(a.email);
+  }
+
+  const library = piecing as unknown as Record<string, unknown>;
+  for (const name of DEMO_BUILDERS) {
+    const build = library[name];
+    if (typeof build !== 'function') {
+      report.buildersMissing.push(name);
+      continue;
+    }
+    const document = piecing.readPatternDocument((build as () => unknown)());
+    const owned = db
+      .select({ id: patterns.id })
+      .from(patterns)
+      .where(and(eq(patterns.ownerId, ids['designer']), eq(patterns.title, document.title)))
+      .get();
+    if (owned) continue;
+    db.transaction(
+      (tx) => {
+        const { pattern } = createPattern(tx, ids['designer'], document);
+        tx.insert(members).values({ patternId: pattern.id, userId: ids['quilter'], access: 'quilter', createdAt: new Date() }).run();
+      },
+      { behavior: 'immediate' },
+    );
+    report.patternsCreated.push(document.title);
+  }
+  return report;
+}
+
+const isMain = process.argv[1]?.endsWith('seed.ts');
+if (isMain) {
+  const config = loadConfig();
+  const database = openDatabase(config.dataDir);
+  seedDemo(database.db, config.bcryptRounds)
+    .then((r) => {
+      console.log(`Demo data in ${database.file}:`);
+      console.log(`  accounts created: ${r.accountsCreated.join(', ') || 'none (already there)'}`);
+      console.log(`  patterns created: ${r.patternsCreated.join(', ') || 'none'}`);
+      if (r.buildersMissing.length > 0) console.log(`  not yet in the piecing library: ${r.buildersMissing.join(', ')}`);
+      for (const a of DEMO_ACCOUNTS) console.log(`  sign in: ${a.email} / ${a.password} (${a.role})`);
+      database.close();
+    })
+    .catch((err) => {
+      console.error('Seeding failed:', err);
+      database.close();
+      process.exit(1);
+    });
+}
