@@ -2,20 +2,19 @@
  * Lengths typed by a person and lengths shown to one, through the piecing library's units
  * (the one place that parses "2 3/4 in." or "7 cm" and writes inches as quilters do).
  */
+import { formatInches, parseLength, type InchDenominator } from '@seamwright/piecing';
 
 /** A typed length read into inches, or why it could not be read. */
 export type LengthReading = { ok: true; inches: number } | { ok: false; message: string };
 
-/** Reads a typed length; `defaultUnit` applies when the text names no unit. */
+/** Reads a typed length (fractions, decimals, in./cm/mm); `defaultUnit` applies when the text names none. */
 export function readLength(text: string, defaultUnit: 'in' | 'cm'): LengthReading {
-  const t = text.trim();
-  if (!t) return { ok: false, message: 'Type a length' };
-  const n = Number(t);
-  if (!Number.isFinite(n)) return { ok: false, message: `“${t}” is not a length` };
-  return { ok: true, inches: defaultUnit === 'cm' ? n / 2.54 : n };
+  if (!text.trim()) return { ok: false, message: 'Type what the square measures' };
+  const r = parseLength(text, defaultUnit);
+  return r.ok ? { ok: true, inches: r.inches } : { ok: false, message: r.message.charAt(0).toUpperCase() + r.message.slice(1) };
 }
 
-/** Inches as quilters write them. */
-export function showInches(inches: number): string {
-  return `${Number(inches.toFixed(3))} in.`;
+/** Inches as quilters write them: 2 ¾ in. (to the nearest ⅛ in. unless told otherwise). */
+export function showInches(inches: number, denominator: InchDenominator = 8): string {
+  return formatInches(inches, { style: 'unicode', denominator });
 }

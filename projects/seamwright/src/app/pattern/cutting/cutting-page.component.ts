@@ -1,5 +1,61 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { MatTableModule } from '@angular/material/table';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { buildCuttingList, type CuttingList } from '@seamwright/piecing';
+import { PatternContext } from '../pattern-context.service';
+import { CautionsComponent } from '../../shared/cautions.component';
+import { StripDiagramComponent } from './strip-diagram.component';
+import { showInches } from '../../core/length-text';
 
-/** Cutting list part of the pattern page. */
-@Component({ selector: 'sw-cutting-page', changeDetection: ChangeDetectionStrategy.OnPush, template: `<p>Cutting list</p>` })
-export class CuttingPageComponent {}
+/** Yards as bought: eighths of a yard, e.g. 5 → "⅝ yd". */
+const EIGHTHS = ['', '⅛', '¼', '⅜', '½', '⅝', '¾', '⅞'];
+export function formatYards(eighths: number): string {
+  const whole = Math.floor(eighths / 8);
+  const rest = EIGHTHS[eighths % 8];
+  return `${whole ? whole + (rest ? ' ' : '') : ''}${rest || (whole ? '' : '0')} yd`;
+}
+
+/** The cutting list: per fabric, pieces, strips, strip sets and yardage; printable. */
+@Component({
+  selector: 'sw-cutting-page',
+  imports: [MatTableModule, MatButtonModule, MatIconModule, CautionsComponent, StripDiagramComponent],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './cutting-page.component.html',
+  styleUrl: './cutting-page.component.scss',
+})
+export class CuttingPageComponent {
+  protected readonly ctx = inject(PatternContext);
+  protected readonly inches = showInches;
+  protected readonly yards = formatYards;
+  protected readonly list = computed<CuttingList | { error: string } | null>(() => {
+    const doc = this.ctx.document();
+    if (!doc) return null;
+    try {
+      return buildCuttingList(doc);
+    } catch (err) {
+      return { error: err instanceof Error ? err.message : String(err) };
+    }
+  });
+  protected readonly ok = computed(() => {
+    const l = this.list();
+    return l && !('error' in l) ? l : null;
+  });
+  protected readonly failure = computed(() => {
+    const l = this.list();
+    return l && 'error' in l ? l.error : null;
+  });
+  protected readonly fabricsById = computed(
+    () => new Map((this.ctx.document()?.fabrics ?? []).map((f) => [f.id, { name: f.name, colour: f.colour }] as const)),
+  );
+  protected readonly pieceColumns = ['count', 'size', 'strips', 'patches'];
+  protected readonly stripColumns = ['set', 'finished', 'cut', 'strips'];
+
+  protected fabricName(id: string): string {
+    return this.fabricsById().get(id)?.name ?? id;
+  }
+
+  protected print(): void {
+    window.print();
+  }
+}
