@@ -47,14 +47,17 @@ function expectMarksCoincide(result: SectionMatchingMarks[]): number {
 describe('matchingMarks', () => {
   it('marks coincide on both neighbours of every shared curved edge', () => {
     const result = matchingMarks(ringDocument());
-    // 8 wedge/band stretches of 45° at r = 5 (3.93 in. → 2 parts → 1 mark) and 16 band/points stretches of
-    // 22.5° at r = 8 (3.14 in. → 2 parts → 1 mark): 24 shared marks, each on both sides.
-    expect(expectMarksCoincide(result)).toBe(2 * (8 + 16));
+    // r = 5: circumference 2π·5 = 31.4 in. (CRC tables) / 2 in. ≈ 16 steps, a multiple of the 8-fold rings:
+    // 22.5° apart, 2 marks on each of the 8 wedge/band stretches. r = 8: 50.3 in. / 2 ≈ 25 → 32 steps (the
+    // nearest multiple of 16), 11.25° apart, one on each: 16 + 32 shared marks, each on both sides.
+    expect(expectMarksCoincide(result)).toBe(2 * (16 + 32));
   });
 
   it('still coincides when the outer ring is turned against the one inside it', () => {
     const result = matchingMarks(ringDocument(7));
-    expect(expectMarksCoincide(result)).toBeGreaterThan(2 * 16);
+    // The same 16 + 32 steps; the r = 8 grid now starts midway between the band's and the turned points'
+    // corners (3.5° from each), so no mark falls near a corner and none is lost.
+    expect(expectMarksCoincide(result)).toBe(2 * (16 + 32));
   });
 
   it('puts marks on the exact arcs at equal arc-length spacing', () => {
@@ -65,12 +68,14 @@ describe('matchingMarks', () => {
       expect(Math.hypot(mark.tangent.x, mark.tangent.y)).toBeCloseTo(1, 12);
       expect(mark.tangent.x * mark.normal.x + mark.tangent.y * mark.normal.y).toBeCloseTo(0, 12);
     }
-    // The wedge's arc (r = 5, 45°): s = rθ = 3.927 in. (CRC tables); round(3.927 / 0.5) = 8 parts, 7 marks.
+    // r = 5: 31.4 in. / 0.5 ≈ 63 → 64 steps (a multiple of 8) of 5.625°, s = rθ = 0.4909 in. each (CRC
+    // tables); a 45° wedge arc holds 8 of them, half a step in from its start.
+    const step = (5 * Math.PI) / 32;
     const wedge = result.find((s) => s.sectionId === 'star')!;
-    expect(wedge.marks).toHaveLength(7);
+    expect(wedge.marks).toHaveLength(8);
     const gaps = wedge.marks.slice(1).map((m, i) => m.alongEdgeIn - wedge.marks[i].alongEdgeIn);
-    for (const g of gaps) expect(g).toBeCloseTo((5 * Math.PI) / 4 / 8, 12);
-    expect(wedge.marks[0].alongEdgeIn).toBeCloseTo((5 * Math.PI) / 4 / 8, 12);
+    for (const g of gaps) expect(g).toBeCloseTo(step, 12);
+    expect(wedge.marks[0].alongEdgeIn).toBeCloseTo(step / 2, 12);
   });
 
   it('marks where a neighbour’s seam lands inside an edge', () => {
@@ -88,7 +93,8 @@ describe('matchingMarks', () => {
     const result = matchingMarks(ringDocument());
     const points = result.find((s) => s.sectionId === 'points')!;
     expect(points.instances).toHaveLength(16);
-    expect(points.marks).toBe(points.instances[0].marks);
+    expect(points.marks).toEqual(points.instances[0].marks);
+    for (const inst of points.instances) expect(inst.marks).toHaveLength(points.marks.length);
     const first = points.instances[0].marks.map((m) => m.angleDeg);
     const third = points.instances[2].marks.map((m) => m.angleDeg);
     third.forEach((a, k) => expect(((a - first[k] + 360) % 360)).toBeCloseTo(45, 9));

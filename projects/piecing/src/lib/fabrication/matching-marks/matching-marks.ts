@@ -41,23 +41,29 @@ export interface SectionInstanceMarks {
   marks: MatchingMark[];
 }
 
-/** The matching marks of a section: on its template (copy 0) and on every ring-repeat copy. */
+/** The matching marks of a section: for its template and for every ring-repeat copy. */
 export interface SectionMatchingMarks {
   sectionId: string;
   label: string;
-  /** Marks of the section as drawn (ring-repeat copy 0): what its template carries. */
+  /**
+   * The marks the template carries, placed as the section is drawn (copy 0): the marks every copy has at
+   * the same place (copies around a ring may meet their neighbours differently; those extra marks are
+   * only in `instances`).
+   */
   marks: MatchingMark[];
   instances: SectionInstanceMarks[];
 }
 
 /** Settings for {@link matchingMarks}. */
 export interface MatchingMarkOptions {
-  /** Target distance between marks along a shared edge, in inches (the stretch is divided evenly). */
+  /** Target distance between marks along a shared edge, in inches. */
   spacingIn?: number;
 }
 
 interface CurvedEdge {
-  owner: number;
+  slot: number;
+  sectionIndex: number;
+  copyIndex: number;
   instanceId: string;
   label: string;
   centre: Point;
@@ -65,14 +71,19 @@ interface CurvedEdge {
   startDeg: number;
   sweepDeg: number;
   edge: 'outer' | 'inner';
+  /** Ring-repeat count when the ring turns about this edge's centre (so the marks must repeat with it), else 1. */
+  ringCount: number;
 }
 
 /**
  * Matching marks on every curved edge two sections share (design.md §5.8): arc sections sharing a radius,
- * a wedge's arc against an arc section's inner arc, ring-repeat copies included. Each shared stretch is
- * divided into equal arc lengths close to `spacingIn`, and both neighbours get marks at the same absolute
- * angles, so the marks coincide when the sections are sewn together. Where a neighbour's edge ends inside
- * an edge, that edge also gets a `neighbour-seam` mark.
+ * a wedge's arc against an arc section's inner arc, ring-repeat copies included. Marks lie on a grid of
+ * equal arc-length steps around each shared circle, so both neighbours get marks at the same absolute
+ * angles and they coincide when the sections are sewn together. The number of steps round the circle
+ * is the one closest to circumference / `spacingIn` that is a multiple of every ring-repeat count on that
+ * circle, so every copy of a ring carries the same marks (one template serves them all). Grid points
+ * too near a corner are left out on both sides. Where a neighbour's edge ends inside an edge, that edge
+ * also gets a `neighbour-seam` mark.
  */
 export function matchingMarks(document: Pick<PatternDocument, 'sections'>, options: MatchingMarkOptions = {}): SectionMatchingMarks[] {
   const spacingIn = options.spacingIn ?? DEFAULT_MATCHING_MARK_SPACING_IN;
@@ -81,57 +92,126 @@ export function matchingMarks(document: Pick<PatternDocument, 'sections'>, optio
   const result: SectionMatchingMarks[] = [];
   const slots: MatchingMark[][] = [];
   const edges: CurvedEdge[] = [];
-  for (const section of document.sections) {
+  document.sections.forEach((section, sectionIndex) => {
     const entry: SectionMatchingMarks = { sectionId: section.id, label: section.label, marks: [], instances: [] };
-    expandRingRepeat(section).forEach((copy, index) => {
+    const ring = section.ringRepeat;
+    expandRingRepeat(section).forEach((copy, copyIndex) => {
       const marks: MatchingMark[] = [];
-      entry.instances.push({ instanceId: copy.id, index, marks });
-      const owner = slots.push(marks) - 1;
-      edges.push(...curvedEdges(copy, owner));
-    });
-    entry.marks = entry.instances[0]?.marks ?? [];
-    result.push(entry);
-  }
-
-  // Pair edges on the same circle: sort by radius so only near neighbours in the list are compared.
-  edges.sort((a, b) => a.radiusIn - b.radiusIn);
-  for (let i = 0; i < edges.length; i++) {
-    for (let j = i + 1; j < edges.length && edges[j].radiusIn - edges[i].radiusIn <= SAME_CIRCLE_IN; j++) {
-      const a = edges[i];
-      const b = edges[j];
-      if (a.owner === b.owner || a.edge === b.edge) continue;
-      if (Math.hypot(a.centre.x - b.centre.x, a.centre.y - b.centre.y) > SAME_CIRCLE_IN) continue;
-      for (const [lo, hi] of overlaps(a, b)) markSharedStretch(a, b, lo, hi, spacingIn, slots);
-    }
-  }
-  for (const marks of slots) {
-    marks.sort((m, n) => (m.edge === n.edge ? m.alongEdgeIn - n.alongEdgeIn : m.edge === 'outer' ? -1 : 1));
-    // Two neighbours meeting inside an edge both mark the same point there: keep one mark.
-    for (let k = marks.length - 1; k > 0; k--) {
-      const m = marks[k];
-      const prev = marks[k - 1];
-      if (m.edge === prev.edge && Math.abs(m.alongEdgeIn - prev.alongEdgeIn) < 1e-9 && (m.kind === 'neighbour-seam' || prev.kind === 'neighbour-seam')) {
-        marks.splice(m.kind === 'neighbour-seam' ? k : k - 1, 1);
+      entry.instances.push({ instanceId: copy.id, index: copyIndex, marks });
+      const slot = slots.push(marks) - 1;
+      for (const e of curvedEdges(copy)) {
+        const ringCount = ring && Math.hypot(ring.centre.x - e.centre.x, ring.centre.y - e.centre.y) <= SAME_CIRCLE_IN ? ring.count : 1;
+        edges.push({ ...e, slot, sectionIndex, copyIndex, instanceId: copy.id, label: copy.label, ringCount });
       }
-    }
-  }
+    });
+    result.push(entry);
+  });
+
+  for (const group of groupByCircle(edges)) markCircle(group, spacingIn, slots);
+
+  for (const marks of slots) dedupeAndSort(marks);
+  document.sections.forEach((section, i) => {
+    result[i].marks = templateMarks(result[i].instances, section.ringRepeat ? 360 / section.ringRepeat.count : 0);
+  });
   return result;
 }
 
-function curvedEdges(section: Section, owner: number): CurvedEdge[] {
+function curvedEdges(section: Section): Array<Pick<CurvedEdge, 'centre' | 'radiusIn' | 'startDeg' | 'sweepDeg' | 'edge'>> {
   const g = section.geometry;
-  const base = { owner, instanceId: section.id, label: section.label };
   switch (g.kind) {
     case 'straight':
       return [];
     case 'wedge':
-      return [{ ...base, centre: g.centre, radiusIn: g.radiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'outer' }];
+      return [{ centre: g.centre, radiusIn: g.radiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'outer' }];
     case 'arc':
       return [
-        { ...base, centre: g.centre, radiusIn: g.outerRadiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'outer' },
-        { ...base, centre: g.centre, radiusIn: g.innerRadiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'inner' },
+        { centre: g.centre, radiusIn: g.outerRadiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'outer' },
+        { centre: g.centre, radiusIn: g.innerRadiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'inner' },
       ];
   }
+}
+
+/** Edges on the same circle (centre and radius within SAME_CIRCLE_IN), in document order within a group. */
+function groupByCircle(edges: CurvedEdge[]): CurvedEdge[][] {
+  const sorted = [...edges].sort((a, b) => a.radiusIn - b.radiusIn);
+  const groups: CurvedEdge[][] = [];
+  const used = new Uint8Array(sorted.length);
+  for (let i = 0; i < sorted.length; i++) {
+    if (used[i]) continue;
+    const group = [sorted[i]];
+    used[i] = 1;
+    for (let j = i + 1; j < sorted.length && sorted[j].radiusIn - sorted[i].radiusIn <= SAME_CIRCLE_IN; j++) {
+      if (!used[j] && Math.hypot(sorted[j].centre.x - sorted[i].centre.x, sorted[j].centre.y - sorted[i].centre.y) <= SAME_CIRCLE_IN) {
+        group.push(sorted[j]);
+        used[j] = 1;
+      }
+    }
+    group.sort((a, b) => a.sectionIndex - b.sectionIndex || a.copyIndex - b.copyIndex || (a.edge === b.edge ? 0 : a.edge === 'outer' ? -1 : 1));
+    groups.push(group);
+  }
+  return groups;
+}
+
+function markCircle(group: CurvedEdge[], spacingIn: number, slots: MatchingMark[][]): void {
+  const pairs: Array<{ a: CurvedEdge; b: CurvedEdge; lo: number; hi: number }> = [];
+  for (let i = 0; i < group.length; i++) {
+    for (let j = i + 1; j < group.length; j++) {
+      const a = group[i];
+      const b = group[j];
+      if (a.slot === b.slot || a.edge === b.edge) continue;
+      for (const [lo, hi] of overlaps(a, b)) pairs.push({ a, b, lo, hi });
+    }
+  }
+  if (pairs.length === 0) return;
+
+  const r = group[0].radiusIn;
+  const ringLcm = group.reduce((l, e) => lcm(l, e.ringCount), 1);
+  const base = Math.max(1, Math.round((2 * Math.PI * r) / spacingIn));
+  const steps = ringLcm * Math.max(1, Math.round(base / ringLcm));
+  const stepDeg = 360 / steps;
+  const corners = group.flatMap((e) => (e.sweepDeg >= 360 - SAME_ANGLE_DEG ? [] : [e.startDeg, e.startDeg + e.sweepDeg]));
+  const phaseDeg = gridPhase(corners, stepDeg, group[0].startDeg);
+  // Marks closer than this to any corner on the circle are dropped on both sides (degrees).
+  const cornerGapDeg = Math.min((0.25 / r) * (180 / Math.PI), stepDeg / 4);
+  const nearCorner = (angle: number) => corners.some((c) => Math.abs(((angle - c + 540) % 360) - 180) < cornerGapDeg);
+
+  for (const { a, b, lo, hi } of pairs) {
+    // Grid angles k·step + phase strictly inside (lo, hi).
+    const first = Math.ceil((lo - phaseDeg) / stepDeg - 1e-9);
+    for (let k = first; phaseDeg + k * stepDeg < hi - SAME_ANGLE_DEG; k++) {
+      const angle = phaseDeg + k * stepDeg;
+      if (angle <= lo + SAME_ANGLE_DEG || nearCorner(angle)) continue;
+      slots[a.slot].push(makeMark(a, b, angle, 'spacing'));
+      slots[b.slot].push(makeMark(b, a, angle, 'spacing'));
+    }
+    // A stretch end inside an edge is the neighbour's corner: mark it on the edge that runs on.
+    for (const angle of [lo, hi]) {
+      for (const [self, other] of [[a, b], [b, a]] as const) {
+        if (strictlyInside(self, angle)) slots[self.slot].push(makeMark(self, other, angle, 'neighbour-seam'));
+      }
+    }
+  }
+}
+
+/**
+ * Where the grid starts: in the middle of the widest gap between the corners' angles taken modulo one
+ * step, so the grid points sit as far from every corner as they can (half a step when the corners all
+ * fall on one grid, as around a ring). The ring repeats turn by whole steps, so every copy gets the same.
+ */
+function gridPhase(corners: number[], stepDeg: number, fallbackDeg: number): number {
+  if (corners.length === 0) return fallbackDeg;
+  const residues = corners.map((c) => ((c % stepDeg) + stepDeg) % stepDeg).sort((a, b) => a - b);
+  let bestGap = -1;
+  let phase = fallbackDeg;
+  for (let i = 0; i < residues.length; i++) {
+    const from = residues[i];
+    const to = i + 1 < residues.length ? residues[i + 1] : residues[0] + stepDeg;
+    if (to - from > bestGap + 1e-9) {
+      bestGap = to - from;
+      phase = from + (to - from) / 2;
+    }
+  }
+  return phase;
 }
 
 /** The angular stretches both edges cover, as [lo, hi] in a's frame (lo ≥ a.startDeg, degrees). */
@@ -147,28 +227,9 @@ function overlaps(a: CurvedEdge, b: CurvedEdge): Array<[number, number]> {
   return out;
 }
 
-function markSharedStretch(a: CurvedEdge, b: CurvedEdge, lo: number, hi: number, spacingIn: number, slots: MatchingMark[][]): void {
-  const r = a.radiusIn;
-  const lengthIn = r * degToRad(hi - lo);
-  // Equal parts close to the spacing; at least one mark, in the middle of a short stretch.
-  const parts = Math.max(2, Math.round(lengthIn / spacingIn));
-  for (let i = 1; i < parts; i++) {
-    const angle = lo + ((hi - lo) * i) / parts;
-    slots[a.owner].push(makeMark(a, b, angle, 'spacing'));
-    slots[b.owner].push(makeMark(b, a, angle, 'spacing'));
-  }
-  // A stretch end inside an edge is the neighbour's corner: mark it on the edge that runs on.
-  for (const angle of [lo, hi]) {
-    for (const [self, other] of [[a, b], [b, a]] as const) {
-      if (strictlyInside(self, angle)) slots[self.owner].push(makeMark(self, other, angle, 'neighbour-seam'));
-    }
-  }
-}
-
 function strictlyInside(e: CurvedEdge, angleDeg: number): boolean {
+  if (e.sweepDeg >= 360 - SAME_ANGLE_DEG) return false;
   const rel = normaliseAngleDeg(angleDeg - e.startDeg);
-  const full = e.sweepDeg >= 360 - SAME_ANGLE_DEG;
-  if (full) return false;
   return rel > SAME_ANGLE_DEG && rel < e.sweepDeg - SAME_ANGLE_DEG;
 }
 
@@ -189,4 +250,33 @@ function makeMark(self: CurvedEdge, other: CurvedEdge, angleDeg: number, kind: M
     neighbourId: other.instanceId,
     neighbourLabel: other.label,
   };
+}
+
+function dedupeAndSort(marks: MatchingMark[]): void {
+  marks.sort((m, n) => (m.edge === n.edge ? m.alongEdgeIn - n.alongEdgeIn || (m.kind === n.kind ? 0 : m.kind === 'spacing' ? -1 : 1) : m.edge === 'outer' ? -1 : 1));
+  // Two neighbours meeting inside an edge both mark the point there, and a grid mark may fall on it: keep one.
+  for (let k = marks.length - 1; k > 0; k--) {
+    const m = marks[k];
+    const prev = marks[k - 1];
+    if (m.edge === prev.edge && Math.abs(m.alongEdgeIn - prev.alongEdgeIn) < 1e-9 && m.kind === 'neighbour-seam') marks.splice(k, 1);
+  }
+}
+
+/** Marks of copy 0 that every copy has at the same place relative to itself (copy k turned back by k steps). */
+function templateMarks(instances: SectionInstanceMarks[], ringStepDeg: number): MatchingMark[] {
+  const [first, ...rest] = instances;
+  if (!first) return [];
+  return first.marks.filter((m) =>
+    rest.every((inst) =>
+      inst.marks.some((o) => o.edge === m.edge && o.kind === m.kind && Math.abs(((o.angleDeg - inst.index * ringStepDeg - m.angleDeg + 540) % 360) - 180) < 1e-6),
+    ),
+  );
+}
+
+function gcd(a: number, b: number): number {
+  return b === 0 ? a : gcd(b, a % b);
+}
+
+function lcm(a: number, b: number): number {
+  return (a / gcd(a, b)) * b;
 }
