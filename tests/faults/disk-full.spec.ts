@@ -1,0 +1,153 @@
+/**
+ * Disk full and unwritable data folder (issue: benchmarks, load, faults): the client gets a clear
+ * error, the server does not crash, and no corrupt or half-written file stays behind.
+ *
+ * The tests run as root, where `chmod` does not stop writes, so two other ways are used:
+ * - "disk full": the server runs under a file-size limit (RLIMIT_FSIZE, set with util-linux
+ *   `prlimit --fsize=N --`, which execs the server in place). Node ignores SIGXFSZ, so a write past
+ *   the limit fails with EFBIG, as a write to a full disk fails with ENOSPC (getrlimit(2),
+ *   setrlimit RLIMIT_FSIZE). It hits uploads and the SQLite file alike.
+ * - "unwritable folder": the folder the server writes into is replaced by a plain file of the same
+ *   name, so creating or writing files inside it fails (ENOTDIR/EEXIST) whatever the user.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { signedInClient } from '../support/api-client';
+import { checkDatabase, listFiles, withReadOnlyDatabase } from '../support/database-check';
+import { gridDocument } from '../support/documents';
+import { answerProblem, TINY_PNG, uploadForm } from '../support/fixtures';
+import { startServerProcess, waitForHealth, type ServerProcess } from '../support/server-process';
+
+const started: ServerProcess[] = [];
+afterAll(async () => {
+  for (const s of started) await s.stop();
+});
+
+/** What a clear storage error looks like: a JSON error that says the thing was not stored. */
+const CLEAR_STORAGE_ERROR = /disk|storage|space|full|not (been )?(saved|stored)|could not (be )?(saved|stored|write)|cannot (be )?(saved|stored)/i;
+
+function expectClearStorageError(res: { status: number; text: string; json: any; contentType: string }, what: string) {
+  // A server-side fault may be a 5xx (507 Insufficient Storage fits, RFC 4918 §11.5), but it must be
+  // a JSON error that tells the user their work was not stored — not a bare "Internal server error".
+  expect(res.status, `${what}: ${res.text.slice(0, 200)}`).toBeGreaterThanOrEqual(400);
+  expect(res.contentType, what).toContain('application/json');
+  expect(typeof res.json?.error, what).toBe('string');
+  // Soft, so the checks after it (crash, stray files, integrity) still run and report.
+  expect.soft(res.json.error, `${what}: the error should say the data was not stored`).toMatch(CLEAR_STORAGE_ERROR);
+}
+
+/** A PNG of about `bytes` bytes: a valid 1 × 1 image followed by filler after its end chunk. */
+const bigPng = (bytes: number) => Buffer.concat([TINY_PNG, Buffer.alloc(bytes - TINY_PNG.length, 0x5a)]);
+
+/** Files left in a folder that are neither listed in the database nor the database itself. */
+function strayFiles(dataDir: string, folder: string, known: string[]): string[] {
+  return listFiles(path.join(dataDir, folder))
+    .map((f) => `${folder}/${f}`)
+    .filter((f) => !known.includes(f));
+}
+
+describe('disk full (file-size limit on the server process)', () => {
+  it('an upload bigger than the space left: clear error, no crash, no half-written file, no row', async () => {
+    // 2 MB per file: the database and small images fit, a 3 MB image does not.
+    const server = await startServerProcess({ wrapper: ['prlimit', `--fsize=${2 * 1024 * 1024}`, '--'] });
+    started.push(server);
+    const { client } = await signedInClient(server.baseUrl, 'designer', 'full-disk');
+    const made = await client.post('/api/patterns', { document: gridDocument('Full disk block', 2, 2, 2) });
+    expect(made.status).toBe(201);
+    const id = made.json.pattern.id;
+
+    const small = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(bigPng(200_000)) });
+    expect(small.status, small.text).toBe(201);
+    const big = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(bigPng(3 * 1024 * 1024)) });
+    expect(answerProblem(big) ?? '', 'no stack trace, JSON body').not.toMatch(/stack trace|without JSON/);
+    expectClearStorageError(big, 'upload past the file-size limit');
+
+    // No crash: the same process still answers, and the next small upload works.
+    expect(server.alive(), server.output()).toBe(true);
+    await waitForHealth(server.baseUrl, 5_000);
+    const again = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(bigPng(100_000)) });
+    expect(again.status, again.text).toBe(201);
+    const listed = await client.get(`/api/patterns/${id}/uploads`);
+    expect(listed.json.items.map((u: { id: string }) => u.id).sort()).toEqual([small.json.upload.id, again.json.upload.id].sort());
+
+    await server.kill('SIGKILL');
+    const rows = withReadOnlyDatabase(server.dataDir, (db) => db.prepare('SELECT storage_path AS p, bytes FROM uploads').all() as { p: string; bytes: number }[]);
+    expect(rows).toHaveLength(2);
+    for (const r of rows) expect(fs.statSync(path.join(server.dataDir, r.p)).size).toBe(r.bytes);
+    // No half-written (temporary or truncated) file of the refused upload is left in the folder.
+    expect(strayFiles(server.dataDir, 'uploads', rows.map((r) => r.p))).toEqual([]);
+    expect(checkDatabase(server.dataDir).integrity).toEqual(['ok']);
+  });
+
+  it('saves that outgrow the space left: clear error, no crash, every answered save intact', async () => {
+    // Each save of this document adds about 0.4 MB to the write-ahead log; 3 MB per file stops the
+    // server a few saves in.
+    const limit = 3 * 1024 * 1024;
+    const server = await startServerProcess({ wrapper: ['prlimit', `--fsize=${limit}`, '--'] });
+    started.push(server);
+    const { client } = await signedInClient(server.baseUrl, 'designer', 'full-db');
+    const doc = (n: number) => gridDocument(`Growing block ${n}`, 30, 30, 16);
+    const size = JSON.stringify(doc(0)).length;
+    const made = await client.post('/api/patterns', { document: doc(1) });
+    expect(made.status, made.text).toBe(201);
+    const id = made.json.pattern.id;
+    const acked = new Map<number, string>([[1, 'Growing block 1']]);
+    let head = 1;
+    let failure: Awaited<ReturnType<typeof client.put>> | undefined;
+    for (let i = 2; i <= Math.ceil((2 * limit) / size) + 5 && !failure; i++) {
+      const res = await client.put(`/api/patterns/${id}`, { baseRevision: head, document: doc(i) }, { timeoutMs: 30_000 });
+      if (res.status === 200) {
+        head = res.json.revision.number;
+        acked.set(head, `Growing block ${i}`);
+      } else failure = res;
+    }
+    console.log(`disk full: document ${(size / 1024).toFixed(0)} kB, ${acked.size} saves stored before the limit, then ${failure?.status}: ${failure?.text.slice(0, 160)}`);
+    expect(failure, 'the limit should have been reached').toBeDefined();
+    expectClearStorageError(failure!, 'save past the file-size limit');
+    expect(server.alive(), server.output()).toBe(true);
+    await waitForHealth(server.baseUrl, 5_000);
+    // Reads still work and show the last answered save.
+    const read = await client.get(`/api/patterns/${id}`);
+    expect(read.status).toBe(200);
+    expect(read.json.pattern.headRevision).toBe(head);
+    expect(read.json.revision.document.title).toBe(acked.get(head));
+
+    // Restart without the limit: the database is sound and holds every answered save.
+    await server.kill('SIGKILL');
+    const report = checkDatabase(server.dataDir);
+    expect(report.integrity).toEqual(['ok']);
+    const stored = withReadOnlyDatabase(server.dataDir, (db) =>
+      db.prepare(`SELECT number, json_extract(document, '$.title') AS title FROM revisions WHERE pattern_id = ? ORDER BY number`).all(id) as { number: number; title: string }[],
+    );
+    expect(stored.map((r) => [r.number, r.title])).toEqual([...acked]);
+  });
+});
+
+describe('unwritable data folder (the folder replaced by a file)', () => {
+  it('uploads into a folder that cannot be written: clear error, no crash, nothing stored', async () => {
+    const server = await startServerProcess();
+    started.push(server);
+    const { client } = await signedInClient(server.baseUrl, 'designer', 'blocked');
+    const made = await client.post('/api/patterns', { document: gridDocument('Blocked block', 2, 2, 2) });
+    const id = made.json.pattern.id;
+    const uploads = path.join(server.dataDir, 'uploads');
+    fs.rmSync(uploads, { recursive: true, force: true });
+    fs.writeFileSync(uploads, 'not a folder');
+
+    const res = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(TINY_PNG) });
+    expectClearStorageError(res, 'upload into an unwritable folder');
+    expect(server.alive(), server.output()).toBe(true);
+    const listed = await client.get(`/api/patterns/${id}/uploads`);
+    expect(listed.json.items).toEqual([]);
+    // The rest of the API carries on: saves go to the database, which is still writable.
+    const saved = await client.put(`/api/patterns/${id}`, { baseRevision: 1, document: gridDocument('Blocked block 2', 2, 2, 2) });
+    expect(saved.status, saved.text).toBe(200);
+    expect(fs.readFileSync(uploads, 'utf8')).toBe('not a folder');
+
+    // Put the folder back: uploads work again without a restart.
+    fs.rmSync(uploads);
+    const ok = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(TINY_PNG) });
+    expect(ok.status, ok.text).toBe(201);
+  });
+});
