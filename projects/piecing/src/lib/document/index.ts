@@ -1,3 +1,4 @@
 export * from './pattern-schema';
 export * from './parse-pattern';
 export * from './validate-geometry';
+export * from './json-schema';

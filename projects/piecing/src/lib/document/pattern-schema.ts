@@ -16,13 +16,18 @@ export const FORMAT_VERSION = 1 as const;
 /** Largest coordinate or length accepted, in inches: no quilt section is larger. */
 export const MAX_SIZE_IN = 200;
 
-const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
-const coordinate = finite.refine((v) => Math.abs(v) <= MAX_SIZE_IN, {
-  message: `must be within ±${MAX_SIZE_IN} in.`,
-});
+// Bounds are zod checks (not refinements) so that the exported JSON Schema carries them too.
+// zod 4 numbers already reject NaN and ±Infinity.
+const finite = z.number({ error: 'must be a finite number' });
+const coordinate = finite
+  .min(-MAX_SIZE_IN, { message: `must be within ±${MAX_SIZE_IN} in.` })
+  .max(MAX_SIZE_IN, { message: `must be within ±${MAX_SIZE_IN} in.` });
 const positiveLength = finite
-  .refine((v) => v > 0, { message: 'must be greater than zero' })
-  .refine((v) => v <= MAX_SIZE_IN, { message: `must be at most ${MAX_SIZE_IN} in.` });
+  .gt(0, { message: 'must be greater than zero' })
+  .lte(MAX_SIZE_IN, { message: `must be at most ${MAX_SIZE_IN} in.` });
+const sweep = finite
+  .gt(0, { message: 'must be more than 0° and at most 360°' })
+  .lte(360, { message: 'must be more than 0° and at most 360°' });
 const id = z
   .string()
   .min(1)
@@ -53,7 +58,7 @@ export const arcGeometrySchema = z
     innerRadiusIn: positiveLength,
     outerRadiusIn: positiveLength,
     startAngleDeg: finite,
-    sweepDeg: finite.refine((v) => v > 0 && v <= 360, { message: 'must be more than 0° and at most 360°' }),
+    sweepDeg: sweep,
   })
   .refine((g) => g.innerRadiusIn < g.outerRadiusIn, {
     message: 'inner radius must be smaller than outer radius',
@@ -65,7 +70,7 @@ export const wedgeGeometrySchema = z.object({
   centre: pointSchema,
   radiusIn: positiveLength,
   startAngleDeg: finite,
-  sweepDeg: finite.refine((v) => v > 0 && v <= 360, { message: 'must be more than 0° and at most 360°' }),
+  sweepDeg: sweep,
 });
 
 export const sectionGeometrySchema = z.discriminatedUnion('kind', [
@@ -141,9 +146,9 @@ export const patternDocumentSchema = z
     title: z.string().trim().min(1).max(120),
     /** The unit the user prefers to see; the document itself is always in inches. */
     displayUnit: z.enum(['in', 'cm']).default('in'),
-    seamAllowanceIn: positiveLength.refine((v) => v <= 2, { message: 'must be at most 2 in.' }).default(0.25),
+    seamAllowanceIn: finite.gt(0, { message: 'must be greater than zero' }).lte(2, { message: 'must be at most 2 in.' }).default(0.25),
     /** Extra margin around each rough-cut piece for placement on the foundation. */
-    piecingMarginIn: finite.refine((v) => v >= 0 && v <= 4, { message: 'must be between 0 and 4 in.' }).default(0.5),
+    piecingMarginIn: finite.min(0, { message: 'must be between 0 and 4 in.' }).max(4, { message: 'must be between 0 and 4 in.' }).default(0.5),
     /** How many times the whole pattern is made (blocks in the quilt). */
     blockCount: z.number().int().min(1).max(1000).default(1),
     /** How many pressings a freezer-paper template survives (common practice: about a dozen or more). */

@@ -1,0 +1,38 @@
+import { readFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
+import { parsePatternDocument, type DocumentIssue, type PatternDocument } from '../src/public-api';
+
+/** A pattern file read and validated, or the reasons it could not be. */
+export type PatternFileResult = { ok: true; document: PatternDocument } | { ok: false; messages: string[]; issues?: DocumentIssue[] };
+
+/** Reads a pattern JSON file and validates it with `parsePatternDocument`. Never throws. */
+export async function readPatternFile(path: string, cwd: string): Promise<PatternFileResult> {
+  let text: string;
+  try {
+    text = await readFile(resolve(cwd, path), 'utf8');
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    return { ok: false, messages: [code === 'ENOENT' ? `${path}: no such file` : `${path}: cannot be read (${code ?? String(error)})`] };
+  }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (error) {
+    return { ok: false, messages: [`${path}: not valid JSON (${(error as Error).message})`] };
+  }
+  const parsed = parsePatternDocument(raw);
+  if (parsed.ok) return { ok: true, document: parsed.document };
+  return {
+    ok: false,
+    issues: parsed.issues,
+    messages: [`${path} is not a valid pattern document:`, ...parsed.issues.map((i) => `  ${i.path || '(document)'}: ${i.message}`)],
+  };
+}
+
+/** Splits arguments into flags (`--json`) and positional arguments. */
+export function splitArgs(args: readonly string[]): { flags: Set<string>; positional: string[] } {
+  const flags = new Set<string>();
+  const positional: string[] = [];
+  for (const a of args) (a.startsWith('--') ? flags.add(a) : positional.push(a));
+  return { flags, positional };
+}

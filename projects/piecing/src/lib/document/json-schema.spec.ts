@@ -1,0 +1,49 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { expandRingRepeat } from '../geometry/ring-repeat';
+import { patternJsonSchema, patternJsonSchemaText } from './json-schema';
+import { parsePatternDocument } from './parse-pattern';
+
+const docs = fileURLToPath(new URL('../../../../../docs/', import.meta.url));
+
+describe('JSON Schema', () => {
+  it('the committed docs/pattern-format.schema.json is current (rewrite it with `npm run seamwright -- schema --write`)', () => {
+    expect(readFileSync(`${docs}pattern-format.schema.json`, 'utf8')).toBe(patternJsonSchemaText());
+  });
+
+  it('carries the bounds of the fields', () => {
+    const schema = patternJsonSchema() as any;
+    expect(schema.$schema).toBe('https://json-schema.org/draft/2020-12/schema');
+    expect(schema.required).toEqual(['formatVersion', 'title', 'canvas']);
+    const kinds = schema.properties.sections.items.properties.geometry.oneOf ?? schema.properties.sections.items.properties.geometry.anyOf;
+    const arc = kinds.find((k: any) => k.properties.kind.const === 'arc');
+    expect(arc.properties.outerRadiusIn).toMatchObject({ type: 'number', exclusiveMinimum: 0, maximum: 200 });
+    expect(arc.properties.sweepDeg).toMatchObject({ exclusiveMinimum: 0, maximum: 360 });
+  });
+});
+
+describe('example files in docs/examples', () => {
+  const files = readdirSync(`${docs}examples`).filter((f) => f.endsWith('.json'));
+
+  it('are all valid pattern documents', () => {
+    expect(files.sort()).toEqual(['arc-ring-with-strip-set.json', 'straight-block-three-sections.json', 'unsewable-order.json']);
+    for (const f of files) {
+      const result = parsePatternDocument(JSON.parse(readFileSync(`${docs}examples/${f}`, 'utf8')));
+      expect(result.ok ? [] : result.issues, f).toEqual([]);
+    }
+  });
+
+  it('hold what their names promise', () => {
+    const read = (f: string) => {
+      const r = parsePatternDocument(JSON.parse(readFileSync(`${docs}examples/${f}`, 'utf8')));
+      if (!r.ok) throw new Error(f);
+      return r.document;
+    };
+    expect(read('straight-block-three-sections.json').sections.map((s) => s.geometry.kind)).toEqual(['straight', 'straight', 'straight']);
+    const ring = read('arc-ring-with-strip-set.json');
+    const band = ring.sections.find((s) => s.geometry.kind === 'arc')!;
+    expect(expandRingRepeat(band)).toHaveLength(8);
+    expect(band.patches.some((p) => p.stripSet && p.stripSet.strips.length === 3)).toBe(true);
+  });
+});
