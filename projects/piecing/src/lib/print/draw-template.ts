@@ -38,6 +38,7 @@ export function drawPlacement(pen: PdfPen, placement: SheetPlacement, template: 
       pen.text(patch.label, { x: at.x, y: at.y }, { sizePt: 8, bold: true, align: 'center', baseline: sub ? 'bottom' : 'middle' });
       if (sub) pen.text(sub, { x: at.x, y: at.y + 0.01 }, { sizePt: 6, align: 'center', baseline: 'top' });
     }
+    drawOrientation(pen, placement, template);
     if (placement.tile) drawTileMarks(pen, placement);
   };
   if (placement.tile) pen.clipped(placement.rect, drawBody);
@@ -70,36 +71,87 @@ function drawTileMarks(pen: PdfPen, placement: SheetPlacement): void {
   }
 }
 
-/** Section label, copy tag, orientation arrow and (for tiles) the tile key, in the caption strip. */
-function drawCaption(pen: PdfPen, placement: SheetPlacement, template: PrintTemplate): void {
-  const { rect, vertical } = placement.caption;
+/** The caption text: section, copy (or the two nested copies) and, for tiles, the tile key. */
+export function captionText(placement: SheetPlacement, template: PrintTemplate): string {
   const parts = [`Section ${template.sectionLabel}`];
-  if (placement.copies > 1) parts.push(`copy ${placement.copy} of ${placement.copies}`);
+  if (placement.nestedWith !== undefined) {
+    const [a, b] = [placement.copy, placement.nestedWith].sort((p, q) => p - q);
+    parts.push(`copies ${a} and ${b} of ${placement.copies}`);
+  } else if (placement.copies > 1) {
+    parts.push(`copy ${placement.copy} of ${placement.copies}`);
+  }
   if (placement.tile) parts.push(`row ${placement.tile.row}, column ${placement.tile.column} of ${placement.tile.rows} × ${placement.tile.columns}`);
-  const text = parts.join(' · ');
-  const arrowText = template.orientation.towards;
+  return parts.join(' · ');
+}
+
+function drawCaption(pen: PdfPen, placement: SheetPlacement, template: PrintTemplate): void {
+  if (!placement.caption) return;
+  const { rect, vertical } = placement.caption;
   const size = 6.5;
   const length = vertical ? rect.height : rect.width;
-  const textW = pen.textWidth(text, size, true);
-  const arrowW = 0.22 + pen.textWidth(arrowText, size);
-  const showArrow = textW + 0.12 + arrowW <= length;
-  const shown = showArrow || textW <= length ? text : `${template.sectionLabel}${placement.copies > 1 ? ` ${placement.copy}/${placement.copies}` : ''}`;
-  if (vertical) {
-    pen.text(shown, { x: rect.x + rect.width * 0.72, y: rect.y + rect.height }, { sizePt: size, bold: true, angleDeg: 90 });
-  } else {
-    pen.text(shown, { x: rect.x, y: rect.y + rect.height * 0.72 }, { sizePt: size, bold: true });
+  const full = captionText(placement, template);
+  const text = pen.textWidth(full, size, true) <= length ? full : fitCaption(pen, full, length, size);
+  if (vertical) pen.text(text, { x: rect.x + rect.width * 0.72, y: rect.y + rect.height }, { sizePt: size, bold: true, angleDeg: 90 });
+  else pen.text(text, { x: rect.x, y: rect.y + rect.height * 0.72 }, { sizePt: size, bold: true });
+}
+
+function fitCaption(pen: PdfPen, text: string, widthIn: number, sizePt: number): string {
+  let s = text;
+  while (s.length > 1 && pen.textWidth(`${s}…`, sizePt, true) > widthIn) s = s.slice(0, -1);
+  return `${s}…`;
+}
+
+/**
+ * The orientation arrow inside the template: at the candidate spot (beside a patch label) farthest
+ * from the outline and from every label, pointing to the top of the block or the centre.
+ */
+function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: PrintTemplate): void {
+  const outline = template.sewingLine.map((p) => applyAffine(placement.transform, p));
+  const labels = template.patches.map((p) => applyAffine(placement.transform, p.labelAt));
+  const candidates: Point[] = [];
+  for (const at of labels.slice(0, 40)) {
+    for (const [dx, dy] of [[0, 0.32], [0, -0.3], [0.45, 0], [-0.45, 0]]) candidates.push({ x: at.x + dx, y: at.y + dy });
   }
-  if (!showArrow) return;
+  let best: Point | null = null;
+  let bestScore = 0.12;
+  for (const c of candidates) {
+    if (!insideRing(c, outline)) continue;
+    let score = distanceToRing(c, outline);
+    for (const l of labels) score = Math.min(score, Math.hypot(c.x - l.x, (c.y - l.y) * 1.6) - 0.12);
+    if (score > bestScore) {
+      bestScore = score;
+      best = c;
+    }
+  }
+  if (!best) return;
   const d = unit(applyLinear(placement.transform, template.orientation.direction));
-  const along = textW + 0.12 + 0.09;
-  const centre = vertical
-    ? { x: rect.x + rect.width / 2, y: rect.y + rect.height - along }
-    : { x: rect.x + along, y: rect.y + rect.height / 2 };
-  drawArrow(pen, centre, d, 0.16);
-  const labelAt = vertical
-    ? { x: rect.x + rect.width * 0.72, y: centre.y - 0.13 }
-    : { x: centre.x + 0.13, y: rect.y + rect.height * 0.72 };
-  pen.text(arrowText, labelAt, { sizePt: size, ...(vertical ? { angleDeg: 90 } : {}) });
+  drawArrow(pen, best, d, 0.26);
+  const word = template.orientation.towards === 'centre' ? 'centre' : 'top';
+  pen.text(word, { x: best.x - d.x * 0.2, y: best.y - d.y * 0.2 }, { sizePt: 5, align: 'center', baseline: 'middle', colour: '#333333' });
+}
+
+function insideRing(p: Point, ring: readonly Point[]): boolean {
+  let odd = false;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+    const a = ring[i];
+    const b = ring[j];
+    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
+  }
+  return odd;
+}
+
+function distanceToRing(p: Point, ring: readonly Point[]): number {
+  let best = Infinity;
+  for (let i = 0; i < ring.length; i++) {
+    const a = ring[i];
+    const b = ring[(i + 1) % ring.length];
+    const vx = b.x - a.x;
+    const vy = b.y - a.y;
+    const len2 = vx * vx + vy * vy;
+    const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
+    best = Math.min(best, Math.hypot(a.x + vx * t - p.x, a.y + vy * t - p.y));
+  }
+  return best;
 }
 
 /** An arrow of a length centred on a point, pointing along a unit direction. */

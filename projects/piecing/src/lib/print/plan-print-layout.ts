@@ -3,7 +3,9 @@ import { applyAffine, compose, rotation, translation, type Affine } from './affi
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
 import { packSheets, type PackItem } from './pack-sheets';
 import { printableAreaSqIn, type RectIn } from './paper';
-import { intersectRects, prepareTemplate, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
+import { nestPair, type NestedPair } from './nest-pair';
+import { IDENTITY, MIRROR_X } from './affine';
+import { intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
 import { ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
@@ -14,6 +16,8 @@ interface Piece {
   copy: number;
   grid?: TileGrid;
   tile?: TileCell;
+  /** Set when this piece is two copies (copy and copy + 1) nested head to tail. */
+  pair?: NestedPair;
 }
 
 type LayoutOptions = Pick<PrintOptions, 'paper' | 'marginIn' | 'mirrored' | 'tileOverlapIn'>;
@@ -35,7 +39,13 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     const whole = fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape);
     const grid = whole ? null : chooseTiling(template, mirrored, [portrait, landscape], tileOverlapIn);
     if (grid) grids.set(template.id, grid);
+    const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
     for (let copy = 1; copy <= template.copies; copy++) {
+      if (pair && copy < template.copies) {
+        pieces.push({ width: pair.width, height: pair.height + CAPTION_IN, quarterTurns: true, data: { prepared, copy, pair } });
+        copy++;
+        continue;
+      }
       if (!grid) {
         pieces.push({ width: prepared.width, height: prepared.height + CAPTION_IN, quarterTurns: true, data: { prepared, copy } });
         continue;
@@ -60,9 +70,9 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   });
 
   const sheets: PlannedSheet[] = packed.map((sheet, i) => {
-    const placements = sheet.items.map((p) =>
+    const placements = sheet.items.flatMap((p) =>
       p.item.data.tile
-        ? placeTile(p.item.data, p.x, p.y, pageOfTile)
+        ? [placeTile(p.item.data, p.x, p.y, pageOfTile)]
         : placeWhole(p.item.data, p.x, p.y, p.turned),
     );
     const sectionLabels = [...new Set(placements.map((pl) => pl.sectionLabel))];
@@ -98,7 +108,22 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   };
 }
 
-function fitsWhole(p: PreparedTemplate, frame: SheetFrame): boolean {
+/** Two copies nested head to tail, when that clearly beats two boxes and still fits a sheet. */
+function nestedPairFor(prepared: PreparedTemplate, mirrored: boolean, ...frames: SheetFrame[]): NestedPair | null {
+  const pair = nestPair(
+    prepared.template.cuttingLine,
+    mirrored ? MIRROR_X : IDENTITY,
+    prepared.template.freeRotation,
+    ITEM_GAP_IN,
+    TEMPLATE_CLEARANCE_IN,
+    prepared.width * (prepared.height + CAPTION_IN),
+  );
+  if (!pair) return null;
+  const box = { width: pair.width, height: pair.height } as PreparedTemplate;
+  return frames.some((f) => fitsWhole(box, f)) ? pair : null;
+}
+
+function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
   const g = ITEM_GAP_IN;
@@ -136,10 +161,10 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
   return best.grid;
 }
 
-function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement {
-  const { prepared } = piece;
-  const w = prepared.width;
-  const h = prepared.height;
+function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement[] {
+  const { prepared, pair } = piece;
+  const w = pair ? pair.width : prepared.width;
+  const h = pair ? pair.height : prepared.height;
   // Unturned: caption on top. A quarter turn maps the box [0, w] × [0, h] onto [0, h] × [0, w] and
   // the caption, turned with it, ends up along the left side.
   const onSheet: Affine = turned
@@ -149,16 +174,41 @@ function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetP
     ? { x: x + CAPTION_IN, y, width: h, height: w }
     : { x, y: y + CAPTION_IN, width: w, height: h };
   const caption: RectIn = turned ? { x, y, width: CAPTION_IN, height: w } : { x, y, width: w, height: CAPTION_IN };
-  return {
+  const base = {
     templateId: prepared.template.id,
     sectionLabel: prepared.template.sectionLabel,
-    copy: piece.copy,
     copies: prepared.template.copies,
     rect,
-    transform: compose(onSheet, prepared.frame),
-    turnDeg: (prepared.turnDeg + (turned ? 90 : 0)) % 360,
-    caption: { rect: caption, vertical: turned },
   };
+  const extra = turned ? 90 : 0;
+  if (!pair) {
+    return [
+      {
+        ...base,
+        copy: piece.copy,
+        transform: compose(onSheet, prepared.frame),
+        turnDeg: (prepared.turnDeg + extra) % 360,
+        caption: { rect: caption, vertical: turned },
+      },
+    ];
+  }
+  return [
+    {
+      ...base,
+      copy: piece.copy,
+      transform: compose(onSheet, pair.frames[0]),
+      turnDeg: (pair.turnDeg[0] + extra) % 360,
+      caption: { rect: caption, vertical: turned },
+      nestedWith: piece.copy + 1,
+    },
+    {
+      ...base,
+      copy: piece.copy + 1,
+      transform: compose(onSheet, pair.frames[1]),
+      turnDeg: (pair.turnDeg[1] + extra) % 360,
+      nestedWith: piece.copy,
+    },
+  ];
 }
 
 function tileKey(templateId: string, copy: number, tile: { row: number; column: number }): string {

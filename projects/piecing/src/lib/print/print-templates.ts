@@ -1,6 +1,6 @@
 import type { PatternDocument, Point, Section } from '../document/index';
 import { derivePatches, locatePoint, polygonCentroid } from '../geometry/index';
-import { sectionSeamAllowance, sectionStripSets } from '../fabrication/index';
+import { matchingMarks, sectionSeamAllowance, sectionStripSets, type SectionMatchingMarks } from '../fabrication/index';
 import { ringArea } from './layout-geometry';
 import { planTemplateCopies } from './template-copies';
 import type { PrintOptions } from './print-options';
@@ -17,12 +17,19 @@ export function buildPrintTemplates(document: PatternDocument, options: Template
   const wanted = options.sectionIds ? new Set(options.sectionIds) : null;
   const copies = planTemplateCopies(document, options);
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
+  const marks = new Map(matchingMarks(document).map((m) => [m.sectionId, m]));
   return document.sections
     .filter((s) => !wanted || wanted.has(s.id))
-    .map((section) => buildTemplate(section, document, fabricName, copies.get(section.id) ?? 1));
+    .map((section) => buildTemplate(section, document, fabricName, copies.get(section.id) ?? 1, marks.get(section.id)));
 }
 
-function buildTemplate(section: Section, document: PatternDocument, fabricName: Map<string, string>, copies: number): PrintTemplate {
+function buildTemplate(
+  section: Section,
+  document: PatternDocument,
+  fabricName: Map<string, string>,
+  copies: number,
+  marks: SectionMatchingMarks | undefined,
+): PrintTemplate {
   const { sewingLine, cuttingLine } = sectionSeamAllowance(section, document.seamAllowanceIn);
   const derived = derivePatches(section).patches;
   const patches: PrintPatch[] = derived.map((p) => ({
@@ -45,7 +52,7 @@ function buildTemplate(section: Section, document: PatternDocument, fabricName: 
     seams: interiorSeams(derived.map((p) => p.polygon), sewingLine),
     patches,
     guideLines,
-    matchingMarks: [],
+    matchingMarks: (marks?.marks ?? []).map((m) => ({ at: m.point, normal: m.normal })),
     orientation: orientationOf(section, sewingLine),
     freeRotation: section.geometry.kind !== 'straight',
     copies,
