@@ -44,6 +44,9 @@ export class BoardRenderer {
     container: HTMLDivElement,
     private readonly editor: BoardEditor,
   ) {
+    // The renderer draws exactly the layers that changed; Konva's own redraw on every change would
+    // draw them a second time on the next frame.
+    Konva.autoDrawEnabled = false;
     const { width, height } = editor.sizePx;
     this.stage = new Konva.Stage({ container, width, height, listening: false });
     const view = (): GridView => {
@@ -78,7 +81,7 @@ export class BoardRenderer {
     this.referenceImage?.destroy();
     this.referenceImage = null;
     if (!url) {
-      this.referenceLayer.batchDraw();
+      this.referenceLayer.draw();
       return;
     }
     const img = new Image();
@@ -138,15 +141,13 @@ export class BoardRenderer {
     const fabrics = new Map<string, Fabric>(doc.fabrics.map((f) => [f.id, f]));
     const settingsKey = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabricKey(doc)}`;
     const seen = new Set<string>();
-    doc.sections.forEach((section, z) => {
+    doc.sections.forEach((section) => {
       seen.add(section.id);
       const active = section.id === activeId;
       const key = `${settingsKey}|${active ? `sel:${snap.selection.patchIndex}` : ''}`;
       const old = this.entries.get(section.id);
-      if (old && old.section === section && old.active === active && old.key === key) {
-        if (old.node.zIndex() !== z && !active) old.node.zIndex(Math.min(z, this.staticContent.children.length - 1));
-        return;
-      }
+      // Sections keep the order they were added in; a section going back from the active layer lands on top.
+      if (old && old.section === section && old.active === active && old.key === key) return;
       if (old) {
         old.node.destroy();
         if (old.active) activeDirty = true;
@@ -180,16 +181,16 @@ export class BoardRenderer {
     }
 
     if (viewChanged) {
-      this.gridLayer.batchDraw();
-      this.referenceLayer.batchDraw();
+      this.gridLayer.draw();
+      this.referenceLayer.draw();
       this.draws.grid++;
     }
     if (staticDirty) {
-      this.staticLayer.batchDraw();
+      this.staticLayer.draw();
       this.draws.static++;
     }
     if (activeDirty) {
-      this.activeLayer.batchDraw();
+      this.activeLayer.draw();
       this.draws.active++;
     }
     this.drawOverlay(activeId);
@@ -220,8 +221,8 @@ export class BoardRenderer {
       this.overlayLayer.add(new Konva.Line({ points: [p.x - 6, p.y, p.x + 6, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
       this.overlayLayer.add(new Konva.Line({ points: [p.x, p.y - 6, p.x, p.y + 6], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
     }
-    this.overlayLayer.batchDraw();
-    this.rulerLayer.batchDraw();
+    this.overlayLayer.draw();
+    this.rulerLayer.draw();
     this.draws.overlay++;
   }
 

@@ -35,7 +35,21 @@ function patchFill(p: BoardPatch, fabrics: ReadonlyMap<string, Fabric>): string 
   return (p.fabricId && fabrics.get(p.fabricId)?.colour) || BOARD_COLOURS.emptyPatch;
 }
 
-function addLabel(group: Konva.Group, text: string, at: Point, o: SectionNodeOptions, colour: string = BOARD_COLOURS.label): void {
+/** Smallest patch size on screen, in pixels, that still shows its number. */
+const MIN_LABELLED_PATCH_PX = 26;
+
+function patchSizeIn(polygon: readonly Point[]): number {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const p of polygon) {
+    if (p.x < minX) minX = p.x;
+    if (p.x > maxX) maxX = p.x;
+    if (p.y < minY) minY = p.y;
+    if (p.y > maxY) maxY = p.y;
+  }
+  return Math.min(maxX - minX, maxY - minY);
+}
+
+function addLabel(group: Konva.Group, text: string, at: Point, o: SectionNodeOptions, colour: string = BOARD_COLOURS.label, sizeIn = Infinity): void {
   const s = labelScale(o.scale, o.mirrored);
   const node = new Konva.Text({
     name: 'patch-label',
@@ -56,6 +70,8 @@ function addLabel(group: Konva.Group, text: string, at: Point, o: SectionNodeOpt
   });
   node.offsetX(node.width() / 2);
   node.offsetY(node.height() / 2);
+  node.setAttr('patchSizeIn', sizeIn);
+  node.visible(sizeIn * o.scale >= MIN_LABELLED_PATCH_PX);
   group.add(node);
 }
 
@@ -118,7 +134,7 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
         if (o.selected && o.selectedPatchIndex === p.index) {
           copy.add(new Konva.Line({ name: 'selected-patch', points: flat(p.polygon), closed: true, stroke: BOARD_COLOURS.selection, strokeWidth: 3, strokeScaleEnabled: false, listening: false }));
         }
-        addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label);
+        addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, failing || o.selected ? Infinity : patchSizeIn(p.polygon));
       }
       if (!sewability.ok && sewability.reason) {
         const failing = patches.find((p) => p.number === sewability.failingPatchNumber);
@@ -143,5 +159,9 @@ function addReason(group: Konva.Group, reason: string, at: Point, o: SectionNode
 /** Updates the labels of a section node after a zoom, without rebuilding it. */
 export function rescaleLabels(group: Konva.Group, scale: number, mirrored: boolean): void {
   const s = labelScale(scale, mirrored);
-  group.find('.patch-label, .sewability-reason').forEach((n) => n.scale(s));
+  group.find('.patch-label, .sewability-reason').forEach((n) => {
+    n.scale(s);
+    const sizeIn = n.getAttr('patchSizeIn');
+    if (typeof sizeIn === 'number') n.visible(sizeIn * scale >= MIN_LABELLED_PATCH_PX);
+  });
 }

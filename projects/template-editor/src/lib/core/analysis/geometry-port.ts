@@ -42,8 +42,8 @@ export interface GeometryPort {
   outline(geometry: SectionGeometry): Point[];
   /** The derived patches with their piecing numbers and assignments, in split order (array position = `index`). */
   patches(section: Section): BoardPatch[];
-  /** The sewability check of the section's current order. */
-  sewability(section: Section): BoardSewability;
+  /** The sewability check of the section's current order (`patches`: its derived patches, when known). */
+  sewability(section: Section, patches?: readonly BoardPatch[]): BoardSewability;
   /** A sewable order for the section (patch numbers in sewing order), or why there is none. */
   findOrder(section: Section): BoardOrderSearch;
   /** The cutting line (outline + seam allowance) of a section, or null when it cannot be made. */

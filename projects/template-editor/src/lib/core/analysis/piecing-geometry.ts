@@ -1,5 +1,7 @@
 import {
+  checkSewability,
   derivePatches,
+  findSewableOrder,
   flattenSectionOutline,
   layoutStripSet,
   locatePoint,
@@ -47,14 +49,8 @@ function samePolygon(a: readonly Point[], b: readonly Point[]): boolean {
   return a.length === b.length && a.length > 0 && a[0].x === b[0].x && a[0].y === b[0].y && a[a.length - 1].x === b[b.length - 1].x;
 }
 
-/** Optional sewability functions, wired when `@seamwright/piecing` provides them. */
-export interface SewabilityFunctions {
-  check(section: Section): BoardSewability;
-  findOrder(section: Section): BoardOrderSearch;
-}
-
 /** The geometry port answered by `@seamwright/piecing`. */
-export function piecingGeometry(sewability?: SewabilityFunctions): GeometryPort {
+export function piecingGeometry(): GeometryPort {
   return {
     outline: (geometry) => flattenSectionOutline(geometry),
     patches(section: Section): BoardPatch[] {
@@ -84,8 +80,18 @@ export function piecingGeometry(sewability?: SewabilityFunctions): GeometryPort 
         return out;
       }).sort((p, q) => p.index - q.index);
     },
-    sewability: (section) => (sewability ? sewability.check(section) : { ok: true }),
-    findOrder: (section) => (sewability ? sewability.findOrder(section) : { ok: false, reason: 'the order search is not available' }),
+    sewability(section: Section, patches?: readonly BoardPatch[]): BoardSewability {
+      const verdict = checkSewability(patches ? [...patches].sort((a, b) => a.number - b.number) : section);
+      if (verdict.sewable || !verdict.failure) return { ok: true };
+      return { ok: false, failingPatchNumber: verdict.failure.patchNumber, reason: verdict.failure.message };
+    },
+    findOrder(section: Section): BoardOrderSearch {
+      const r = findSewableOrder(section);
+      if (r.found) return { ok: true, order: r.order };
+      return r.suggestion
+        ? { ok: false, reason: `${r.message} ${r.suggestion.message}`.trim(), suggestedSplit: { a: r.suggestion.from, b: r.suggestion.to } }
+        : { ok: false, reason: r.message };
+    },
     cuttingLine(section, allowanceIn) {
       try {
         return sectionCuttingLine(section, allowanceIn);

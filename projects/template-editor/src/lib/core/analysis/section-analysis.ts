@@ -51,7 +51,7 @@ export class SectionAnalysis {
     const e = this.entry(section);
     if (!e.sewability) {
       try {
-        e.sewability = this.geometry.sewability(section);
+        e.sewability = this.geometry.sewability(section, this.patches(section));
       } catch (err) {
         e.sewability = { ok: false, reason: err instanceof Error ? err.message : String(err) };
       }

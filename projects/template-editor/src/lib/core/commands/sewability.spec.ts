@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { piecingGeometry } from '../analysis/piecing-geometry';
+import { SectionAnalysis } from '../analysis/section-analysis';
+import { emptyPattern, polar } from '../testing/board-fixtures';
+import { applySewableOrder } from './order-commands';
+import { addSection, addSeam, findSection, setPiecingOrder } from './section-commands';
+
+const C = { x: 12, y: 12 };
+const port = piecingGeometry();
+
+/** A 90° arc section 5–8 in. split by radial seams at 22.5°, 45°, 67.5° into four patches. */
+function fourPatchArc() {
+  let { document, sectionId } = addSection(emptyPattern(), { kind: 'arc', centre: C, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 90 }, port);
+  for (const deg of [22.5, 45, 67.5]) document = addSeam(document, sectionId, polar(C, 5, deg), polar(C, 8, deg), port);
+  return { document, sectionId };
+}
+
+function indexAt(document: ReturnType<typeof fourPatchArc>['document'], sectionId: string, deg: number): number {
+  const s = findSection(document, sectionId)!;
+  return new SectionAnalysis(port).patchAt(s, polar(C, 6.5, deg))!.index;
+}
+
+describe('piecing order and sewability on the board', () => {
+  it('finds an order along the arc sewable and a jump across it not, naming the patch and why', () => {
+    const { document, sectionId } = fourPatchArc();
+    const along = setPiecingOrder(document, sectionId, [10, 30, 55, 80].map((d) => indexAt(document, sectionId, d)), port);
+    const analysis = new SectionAnalysis(port);
+    // Each wedge-shaped piece meets the previous one along one radial seam, with all earlier pieces on
+    // one side of it: the design.md §5.3 rule holds at every step.
+    expect(analysis.sewability(findSection(along, sectionId)!)).toEqual({ ok: true });
+    const jump = setPiecingOrder(document, sectionId, [10, 55, 30, 80].map((d) => indexAt(document, sectionId, d)), port);
+    const verdict = analysis.sewability(findSection(jump, sectionId)!);
+    expect(verdict.ok).toBe(false);
+    expect(verdict.failingPatchNumber).toBe(2);
+    expect(verdict.reason).toMatch(/^A2 shares no seam/);
+  });
+
+  it('applies a sewable order in one command when the order is bad', () => {
+    const { document, sectionId } = fourPatchArc();
+    const jump = setPiecingOrder(document, sectionId, [10, 55, 30, 80].map((d) => indexAt(document, sectionId, d)), port);
+    const { document: fixed, result } = applySewableOrder(jump, sectionId, port);
+    expect(result.ok).toBe(true);
+    expect(new SectionAnalysis(port).sewability(findSection(fixed, sectionId)!)).toEqual({ ok: true });
+  });
+
+  it('reports a four-patch (a cross of two seams) as unsewable in any order and suggests a split along a seam', () => {
+    // Whatever the order, the last of four patches meeting at a cross touches two earlier patches along
+    // two perpendicular stretches, so no single straight seam adds it (design.md §5.3; common practice:
+    // a four-patch is pieced as two sections).
+    let { document, sectionId } = addSection(emptyPattern(), { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] }, port);
+    document = addSeam(document, sectionId, { x: 3, y: 0 }, { x: 3, y: 6 }, port);
+    document = addSeam(document, sectionId, { x: 0, y: 3 }, { x: 6, y: 3 }, port);
+    expect(new SectionAnalysis(port).patches(findSection(document, sectionId)!)).toHaveLength(4);
+    const { document: after, result } = applySewableOrder(document, sectionId, port);
+    expect(after).toBe(document);
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.suggestedSplit).toBeDefined();
+    const { a, b } = result.suggestedSplit!;
+    // The suggested cut runs along one of the two seams, from edge to edge.
+    const alongX3 = Math.abs(a.x - 3) < 1e-6 && Math.abs(b.x - 3) < 1e-6 && Math.abs(Math.abs(a.y - b.y) - 6) < 1e-6;
+    const alongY3 = Math.abs(a.y - 3) < 1e-6 && Math.abs(b.y - 3) < 1e-6 && Math.abs(Math.abs(a.x - b.x) - 6) < 1e-6;
+    expect(alongX3 || alongY3).toBe(true);
+  });
+});
