@@ -1,0 +1,66 @@
+import { TestBed } from '@angular/core/testing';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideRouter } from '@angular/router';
+import { ResetConfirmComponent } from './reset-confirm.component';
+import { CsrfTokenService } from '../core/csrf-token.service';
+
+describe('ResetConfirmComponent', () => {
+  function setup() {
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    TestBed.inject(CsrfTokenService).remember('t');
+    const fixture = TestBed.createComponent(ResetConfirmComponent);
+    fixture.componentRef.setInput('token', 'reset-token-1');
+    fixture.detectChanges();
+    const el = fixture.nativeElement as HTMLElement;
+    const inputs = () => Array.from(el.querySelectorAll('input')) as HTMLInputElement[];
+    const type = (i: number, v: string) => {
+      const input = inputs()[i];
+      input.value = v;
+      input.dispatchEvent(new Event('input'));
+      input.dispatchEvent(new Event('blur'));
+    };
+    const submit = async () => {
+      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
+      await fixture.whenStable();
+    };
+    return { fixture, el, type, submit, http: TestBed.inject(HttpTestingController) };
+  }
+
+  it('requires a long enough new password', async () => {
+    const { fixture, el, type, submit } = setup();
+    await fixture.whenStable();
+    type(0, 'abc');
+    await submit();
+    expect(Array.from(el.querySelectorAll('mat-error')).map((e) => e.textContent?.trim())).toEqual([
+      'New password must be at least 10 characters',
+      'New password again is required',
+    ]);
+  });
+
+  it('sends the token with the new password and says so when done', async () => {
+    const { fixture, el, type, submit, http } = setup();
+    await fixture.whenStable();
+    type(0, 'a brand new secret');
+    type(1, 'a brand new secret');
+    await submit();
+    const req = http.expectOne('/api/auth/password-reset/confirm');
+    expect(req.request.body).toEqual({ token: 'reset-token-1', newPassword: 'a brand new secret' });
+    req.flush({ ok: true });
+    await fixture.whenStable();
+    expect(el.querySelector('[role=status]')?.textContent).toContain('Your password is changed');
+  });
+
+  it('explains an expired link', async () => {
+    const { fixture, el, type, submit, http } = setup();
+    await fixture.whenStable();
+    type(0, 'a brand new secret');
+    type(1, 'a brand new secret');
+    await submit();
+    http
+      .expectOne('/api/auth/password-reset/confirm')
+      .flush({ error: 'This reset link is invalid or has expired', details: null }, { status: 400, statusText: 'Bad Request' });
+    await fixture.whenStable();
+    expect(el.querySelector('[role=alert]')?.textContent).toContain('This reset link is invalid or has expired');
+  });
+});
