@@ -2,6 +2,7 @@ import type { Fabric, PatternDocument, StripSet } from '../../document/pattern-s
 import { derivePatches } from '../../geometry/index';
 import { layoutStripSet } from '../strip-sets/strip-set-layout';
 import { YARDAGE_STEP_IN, INCHES_PER_YARD, roundUpToStep } from '../shared/rounding';
+import { PolygonOffsetter } from '../seam-allowance/clipper-offset';
 import { patchRoughCut } from './patch-rough-cut';
 import { planWofStrips } from './wof-strips';
 import type {
@@ -38,6 +39,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
   const problems: CuttingListProblem[] = [];
   const pieceGroups = new Map<string, Map<string, CuttingListPieceGroup>>();
   const stripSetUses = new Map<string, StripSetUse>();
+  const offsetter = new PolygonOffsetter();
 
   for (const section of document.sections) {
     const copies = (section.ringRepeat?.count ?? 1) * blocks;
@@ -69,7 +71,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
         });
         continue;
       }
-      const cut = patchRoughCut(patch.polygon, allowanceIn, marginIn);
+      const cut = patchRoughCut(patch.polygon, allowanceIn, marginIn, offsetter);
       patches.push({
         sectionId: section.id,
         sectionLabel: section.label,

@@ -1,5 +1,5 @@
 import type { Point } from '../../document/pattern-schema';
-import { offsetPolygon } from '../seam-allowance/clipper-offset';
+import { PolygonOffsetter } from '../seam-allowance/clipper-offset';
 import { roundUpToEighthInch } from '../shared/rounding';
 import { minAreaRectangle, type OrientedRectangle } from './min-area-rectangle';
 
@@ -15,9 +15,10 @@ export interface PatchRoughCut {
 /**
  * The rough-cut piece for a patch: the minimum-area rectangle around the patch offset outward by the
  * seam allowance plus the piecing margin (mitre joins, as for cutting lines), sides rounded up to ⅛ in.
+ * Pass an `offsetter` to reuse one across many patches.
  */
-export function patchRoughCut(polygon: readonly Point[], allowanceIn = 0.25, marginIn = 0.5): PatchRoughCut {
-  const grown = offsetPolygon(polygon, allowanceIn + marginIn, 'mitre');
+export function patchRoughCut(polygon: readonly Point[], allowanceIn = 0.25, marginIn = 0.5, offsetter = new PolygonOffsetter()): PatchRoughCut {
+  const grown = offsetter.offsetPolygon(polygon, allowanceIn + marginIn, 'mitre');
   const rectangle = minAreaRectangle(grown.length > 0 ? grown : polygon);
   const a = roundUpToEighthInch(rectangle.alongIn);
   const b = roundUpToEighthInch(rectangle.acrossIn);

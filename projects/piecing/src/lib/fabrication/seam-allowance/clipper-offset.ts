@@ -40,6 +40,59 @@ export function fromIntegerRing(ring: IntegerRing): Point[] {
 }
 
 /**
+ * Offsets polygons with one clipper-lib ClipperOffset, reused from call to call: for batches (every patch
+ * of a cutting list, every template of a print set), where building a fresh offsetter per polygon costs
+ * allocations and garbage collection. Not shared between callers; each batch makes its own.
+ */
+export class PolygonOffsetter {
+  private readonly offset: ClipperLib.ClipperOffset;
+
+  constructor(options: OffsetOptions = {}) {
+    const mitreLimit = options.mitreLimit ?? MITRE_LIMIT;
+    const arcToleranceIn = options.arcToleranceIn ?? CHORD_TOLERANCE_IN;
+    if (!(mitreLimit >= 1)) throw new RangeError(`mitre limit must be at least 1, got ${mitreLimit}`);
+    if (!(arcToleranceIn > 0)) throw new RangeError(`arc tolerance must be a positive number of inches, got ${arcToleranceIn}`);
+    this.offset = new ClipperLib.ClipperOffset(mitreLimit, arcToleranceIn * CLIPPER_SCALE);
+  }
+
+  /**
+   * Offsets integer rings (outer rings and holes, wound opposite ways) by `distanceIn` (outward when
+   * positive). Returns the integer result rings; the input is untouched.
+   */
+  offsetIntegerRings(rings: readonly IntegerRing[], distanceIn: number, join: OffsetJoin = 'mitre'): IntegerRing[] {
+    if (!Number.isFinite(distanceIn)) throw new RangeError(`offset distance must be a finite number of inches, got ${distanceIn}`);
+    this.offset.Clear();
+    // clipper-lib copies the points into its own nodes, so the input stays intact.
+    this.offset.AddPaths(rings as IntegerRing[], JOIN_TYPES[join], ClipperLib.EndType.etClosedPolygon);
+    const solution: IntegerRing[] = [];
+    this.offset.Execute(solution, distanceIn * CLIPPER_SCALE);
+    this.offset.Clear();
+    return solution;
+  }
+
+  /**
+   * Offsets a simple polygon (inches, either winding) by `distanceIn`: outward when positive, inward when
+   * negative. Returns the largest result ring, wound the same way as the input, or an empty array when an
+   * inward offset leaves nothing.
+   */
+  offsetPolygon(points: readonly Point[], distanceIn: number, join: OffsetJoin = 'mitre'): Point[] {
+    const rings = this.offsetIntegerRings([toIntegerRing(points)], distanceIn, join);
+    let best: IntegerRing | undefined;
+    let bestArea = 0;
+    for (const ring of rings) {
+      const area = Math.abs(ClipperLib.Clipper.Area(ring));
+      if (area > bestArea) {
+        bestArea = area;
+        best = ring;
+      }
+    }
+    if (!best) return [];
+    const result = fromIntegerRing(best);
+    return Math.sign(signedArea(result)) === Math.sign(signedArea(points)) ? result : result.reverse();
+  }
+}
+
+/**
  * Offsets integer rings (outer rings and holes, wound opposite ways) by `distanceIn` (outward when
  * positive) with clipper-lib's ClipperOffset. Returns the integer result rings; the input is untouched.
  */
@@ -49,23 +102,13 @@ export function offsetIntegerRings(
   join: OffsetJoin = 'mitre',
   options: OffsetOptions = {},
 ): IntegerRing[] {
-  if (!Number.isFinite(distanceIn)) throw new RangeError(`offset distance must be a finite number of inches, got ${distanceIn}`);
-  const mitreLimit = options.mitreLimit ?? MITRE_LIMIT;
-  const arcToleranceIn = options.arcToleranceIn ?? CHORD_TOLERANCE_IN;
-  if (!(mitreLimit >= 1)) throw new RangeError(`mitre limit must be at least 1, got ${mitreLimit}`);
-  if (!(arcToleranceIn > 0)) throw new RangeError(`arc tolerance must be a positive number of inches, got ${arcToleranceIn}`);
-  const offset = new ClipperLib.ClipperOffset(mitreLimit, arcToleranceIn * CLIPPER_SCALE);
-  // AddPaths keeps a reference; clipper-lib copies points into its own nodes, so the input stays intact.
-  offset.AddPaths(rings as IntegerRing[], JOIN_TYPES[join], ClipperLib.EndType.etClosedPolygon);
-  const solution: IntegerRing[] = [];
-  offset.Execute(solution, distanceIn * CLIPPER_SCALE);
-  return solution;
+  return new PolygonOffsetter(options).offsetIntegerRings(rings, distanceIn, join);
 }
 
 /**
  * Offsets a simple polygon (inches, either winding) by `distanceIn`: outward when positive, inward when
- * negative. Returns the largest result ring, wound the same way as the input, or an empty array when an
- * inward offset leaves nothing.
+ * negative, mitre joins by default (cut off at the mitre limit). Returns the largest result ring, wound
+ * the same way as the input, or an empty array when an inward offset leaves nothing.
  */
 export function offsetPolygon(
   points: readonly Point[],
@@ -73,17 +116,5 @@ export function offsetPolygon(
   join: OffsetJoin = 'mitre',
   options: OffsetOptions = {},
 ): Point[] {
-  const rings = offsetIntegerRings([toIntegerRing(points)], distanceIn, join, options);
-  let best: IntegerRing | undefined;
-  let bestArea = 0;
-  for (const ring of rings) {
-    const area = Math.abs(ClipperLib.Clipper.Area(ring));
-    if (area > bestArea) {
-      bestArea = area;
-      best = ring;
-    }
-  }
-  if (!best) return [];
-  const result = fromIntegerRing(best);
-  return Math.sign(signedArea(result)) === Math.sign(signedArea(points)) ? result : result.reverse();
+  return new PolygonOffsetter(options).offsetPolygon(points, distanceIn, join);
 }
