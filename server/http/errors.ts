@@ -53,7 +53,28 @@ export function errorMiddleware(log: (err: unknown) => void): ErrorRequestHandle
       res.status(status).json({ error: byType ?? byCode ?? 'Bad request', details: null });
       return;
     }
+    const storage = storageProblem(e.code);
+    if (storage) {
+      log(err);
+      res.status(storage.status).json({ error: storage.message, details: null });
+      return;
+    }
     log(err);
     res.status(500).json({ error: 'Internal server error', details: null });
   };
+}
+
+/**
+ * A full or unwritable disk gets a clear answer (nothing was stored) instead of a bare 500:
+ * 507 Insufficient Storage (RFC 4918 §11.5) or 503 when the data folder cannot be written.
+ */
+function storageProblem(code: unknown): { status: number; message: string } | undefined {
+  if (typeof code !== 'string') return undefined;
+  if (code === 'ENOSPC' || code === 'EDQUOT' || code === 'SQLITE_FULL') {
+    return { status: 507, message: 'The server has no space left; nothing was stored' };
+  }
+  if (['EACCES', 'EPERM', 'EROFS', 'ENOTDIR'].includes(code) || code.startsWith('SQLITE_READONLY') || code.startsWith('SQLITE_IOERR') || code === 'SQLITE_CANTOPEN') {
+    return { status: 503, message: 'The server cannot write its data folder; nothing was stored' };
+  }
+  return undefined;
 }
