@@ -1,5 +1,6 @@
 import type { CliCommand } from '../cli-types';
 import { checkCommand } from './check-command';
+import { cuttingListCommand } from './cutting-list-command';
 import { schemaCommand } from './schema-command';
 
 /*
@@ -15,5 +16,6 @@ import { schemaCommand } from './schema-command';
  */
 export const commands: readonly CliCommand[] = [
   checkCommand,
+  cuttingListCommand,
   schemaCommand,
 ];
