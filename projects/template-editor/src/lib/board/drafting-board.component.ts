@@ -4,33 +4,130 @@ import {
   DestroyRef,
   ElementRef,
   afterNextRender,
+  effect,
   inject,
   input,
   viewChild,
 } from '@angular/core';
-import Konva from 'konva';
+import { BoardRenderer } from './konva/board-renderer';
+import { EditorSession } from '../session/editor-session';
 
-/** The Drafting board: a Konva stage the designer draws sections on. */
+/**
+ * The Drafting board: a Konva stage showing the session's pattern. Pointer, wheel and key events go
+ * to the editor core; the renderer draws what the core holds. Focus the board to use the shortcuts.
+ */
 @Component({
   selector: 'sw-drafting-board',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `<div #host class="board-host" role="img" aria-label="Drafting board"></div>`,
-  styles: `:host { display: block; } .board-host { width: 100%; height: 100%; min-height: 320px; }`,
+  template: `<div
+    #host
+    class="board-host"
+    role="application"
+    aria-label="Drafting board"
+    aria-roledescription="drawing board"
+    tabindex="0"
+    [attr.data-tool]="session.toolId()"
+    [attr.data-tool-state]="session.toolState()"
+    (pointerdown)="onPointerDown($event)"
+    (pointermove)="onPointerMove($event)"
+    (pointerup)="onPointerUp($event)"
+    (pointercancel)="onPointerUp($event)"
+    (pointerleave)="onPointerLeave()"
+    (keydown)="onKeyDown($event)"
+    (contextmenu)="$event.preventDefault()"
+  ></div>`,
+  styles: `
+    :host { display: block; position: relative; min-height: 320px; }
+    .board-host { position: absolute; inset: 0; outline: none; touch-action: none; cursor: crosshair; overflow: hidden; }
+    .board-host:focus-visible { box-shadow: inset 0 0 0 2px #1f7a8c; }
+    .board-host[data-tool='pan'] { cursor: grab; }
+    .board-host[data-tool='select'] { cursor: default; }
+  `,
 })
 export class DraftingBoardComponent {
-  /** Board width in CSS pixels. */
-  readonly widthPx = input(640);
-  /** Board height in CSS pixels. */
-  readonly heightPx = input(480);
+  /** URL of a reference image to trace, shown locked and faded under the drawing. */
+  readonly referenceImageUrl = input<string | null | undefined>(null);
 
+  protected readonly session = inject(EditorSession);
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
-  private stage?: Konva.Stage;
+  private renderer?: BoardRenderer;
+  private resizeObserver?: ResizeObserver;
+  private fitted = false;
 
   constructor() {
     afterNextRender(() => {
-      this.stage = new Konva.Stage({ container: this.host().nativeElement, width: this.widthPx(), height: this.heightPx() });
-      this.stage.add(new Konva.Layer());
+      const el = this.host().nativeElement;
+      const ed = this.session.editor;
+      ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
+      this.renderer = new BoardRenderer(el, ed);
+      this.renderer.setReferenceImage(this.referenceImageUrl() ?? null);
+      this.fitOnce();
+      el.addEventListener('wheel', this.onWheel, { passive: false });
+      this.resizeObserver = new ResizeObserver(() => {
+        ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
+        this.renderer?.resize();
+        this.fitOnce();
+      });
+      this.resizeObserver.observe(el);
+      // Tests and the benchmark reach the stage through the host element.
+      (el as HTMLDivElement & { swBoard?: unknown }).swBoard = { editor: ed, renderer: this.renderer };
     });
-    inject(DestroyRef).onDestroy(() => this.stage?.destroy());
+    effect(() => {
+      const url = this.referenceImageUrl() ?? null;
+      this.renderer?.setReferenceImage(url);
+    });
+    effect(() => {
+      // A newly loaded document is shown whole.
+      if (this.session.snapshot().origin === 'load') {
+        this.fitted = false;
+        queueMicrotask(() => this.fitOnce());
+      }
+    });
+    inject(DestroyRef).onDestroy(() => {
+      this.resizeObserver?.disconnect();
+      this.host().nativeElement.removeEventListener('wheel', this.onWheel);
+      this.renderer?.destroy();
+    });
   }
+
+  private fitOnce(): void {
+    const ed = this.session.editor;
+    if (this.fitted || !this.renderer || ed.sizePx.width < 50 || ed.sizePx.height < 50) return;
+    this.fitted = true;
+    ed.fitToContent();
+  }
+
+  private point(e: MouseEvent): { x: number; y: number } {
+    const r = this.host().nativeElement.getBoundingClientRect();
+    return { x: e.clientX - r.left, y: e.clientY - r.top };
+  }
+
+  protected onPointerDown(e: PointerEvent): void {
+    const el = this.host().nativeElement;
+    el.focus({ preventScroll: true });
+    el.setPointerCapture?.(e.pointerId);
+    this.session.editor.pointerDown(this.point(e), { button: e.button, shiftKey: e.shiftKey, altKey: e.altKey });
+  }
+
+  protected onPointerMove(e: PointerEvent): void {
+    this.session.editor.pointerMove(this.point(e), { shiftKey: e.shiftKey, altKey: e.altKey });
+  }
+
+  protected onPointerUp(e: PointerEvent): void {
+    this.host().nativeElement.releasePointerCapture?.(e.pointerId);
+    this.session.editor.pointerUp(this.point(e), { button: e.button, shiftKey: e.shiftKey, altKey: e.altKey });
+  }
+
+  protected onPointerLeave(): void {
+    this.session.editor.pointerLeave();
+  }
+
+  protected onKeyDown(e: KeyboardEvent): void {
+    if (this.session.editor.keyDown(e)) e.preventDefault();
+  }
+
+  private readonly onWheel = (e: WheelEvent): void => {
+    e.preventDefault();
+    this.session.editor.wheel(this.point(e), e.deltaY);
+  };
 }

@@ -15,6 +15,7 @@ export * from './commands/patch-assignments';
 export * from './commands/section-handles';
 export * from './commands/section-commands';
 export * from './commands/order-commands';
+export * from './commands/pattern-commands';
 export * from './clipboard/section-clipboard';
 export * from './snapping/snapping';
 export * from './tools/tool';

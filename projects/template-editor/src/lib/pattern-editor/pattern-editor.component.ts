@@ -1,0 +1,106 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, untracked } from '@angular/core';
+import type { PatternDocument } from '@seamwright/piecing';
+import { DraftingBoardComponent } from '../board/drafting-board.component';
+import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
+import { PropertiesPanelComponent } from '../properties/properties-panel.component';
+import { EditorSession } from '../session/editor-session';
+import { BoardStatusComponent } from '../status/board-status.component';
+import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
+
+/**
+ * The whole pattern editor for the app: toolbar, Drafting board, status line, properties panel and
+ * piecing-order list around one editing session.
+ *
+ * - `[document]` opens a pattern. A document object the editor did not emit itself is loaded (never
+ *   recorded in undo, history cleared); passing back the object it emitted changes nothing.
+ * - `(documentChange)` emits the new document after every change (command, end of a drag, undo, redo).
+ * - `(dirtyChange)` emits whether there are changes since the last load or {@link markSaved}.
+ * - Call {@link markSaved} after a save succeeded.
+ */
+@Component({
+  selector: 'sw-pattern-editor',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [EditorSession],
+  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent],
+  template: `
+    <sw-board-toolbar class="toolbar" />
+    <div class="body">
+      <div class="board-column">
+        <sw-drafting-board class="board" [referenceImageUrl]="referenceImageUrl()" />
+        <sw-board-status />
+      </div>
+      <aside class="side" aria-label="Section details">
+        <sw-properties-panel />
+        <sw-piecing-order />
+      </aside>
+    </div>
+  `,
+  styles: `
+    :host { display: flex; flex-direction: column; height: 100%; min-height: 480px; background: #fbfaf7; }
+    .body { flex: 1; display: flex; min-height: 0; }
+    .board-column { flex: 1; display: flex; flex-direction: column; min-width: 0; }
+    .board { flex: 1; }
+    .side { width: 340px; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
+  `,
+  host: { '(keydown)': 'onKeyDown($event)' },
+})
+export class PatternEditorComponent {
+  /** The pattern to edit (a validated document, e.g. from `parsePatternDocument`). */
+  readonly document = input<PatternDocument | null | undefined>(null);
+  /** Whether the user may only look (quilters, shared patterns): no drawing tools, no changes. */
+  readonly readOnly = input(false);
+  /** URL of the reference image to trace (served by the server), or null. */
+  readonly referenceImageUrl = input<string | null | undefined>(null);
+  /** The document after each change the user made. Loading never emits. */
+  readonly documentChange = output<PatternDocument>();
+  /** Whether there are changes since the last load or save. */
+  readonly dirtyChange = output<boolean>();
+
+  private readonly session = inject(EditorSession);
+  private lastDirty = false;
+
+  constructor() {
+    effect(() => {
+      const doc = this.document();
+      untracked(() => {
+        if (doc && doc !== this.session.editor.store.document) this.session.load(doc);
+      });
+    });
+    effect(() => {
+      const ro = this.readOnly();
+      untracked(() => this.session.editor.setReadOnly(ro));
+    });
+    const stop = this.session.editor.store.subscribe((s) => {
+      // Drags emit once, at their end; loads never.
+      if (s.origin !== 'load' && s.origin !== 'gesture' && !this.session.editor.store.inGesture && s.document !== this.lastEmitted) {
+        this.lastEmitted = s.document;
+        this.documentChange.emit(s.document);
+      }
+      if (s.origin === 'load') this.lastEmitted = s.document;
+      if (s.dirty !== this.lastDirty) {
+        this.lastDirty = s.dirty;
+        this.dirtyChange.emit(s.dirty);
+      }
+    });
+    inject(DestroyRef).onDestroy(stop);
+  }
+
+  private lastEmitted: PatternDocument | null = null;
+
+  /** Tells the editor the document (default: the current one) is saved; dirty becomes false. */
+  markSaved(document?: PatternDocument): void {
+    this.session.editor.store.markSaved(document ?? this.session.editor.store.document);
+  }
+
+  /** The document as it is now. */
+  currentDocument(): PatternDocument {
+    return this.session.editor.store.document;
+  }
+
+  protected onKeyDown(e: KeyboardEvent): void {
+    if (e.defaultPrevented) return;
+    const t = e.target as HTMLElement | null;
+    if (t && (t.closest('input, textarea, select, [contenteditable="true"], mat-select, .mat-mdc-select') !== null)) return;
+    if (this.session.editor.keyDown(e)) e.preventDefault();
+  }
+}

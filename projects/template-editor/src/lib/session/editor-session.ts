@@ -1,0 +1,126 @@
+import { Injectable, computed, signal } from '@angular/core';
+import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
+import {
+  BoardEditor,
+  applySewableOrder,
+  findSection,
+  piecingGeometry,
+  type BoardOrderSearch,
+  type BoardSettings,
+  type DocumentUpdate,
+  type EditorSnapshot,
+  type ToolId,
+} from '../core/public-api';
+
+const PLACEHOLDER = readPatternDocument({ formatVersion: 1, title: 'Untitled pattern', canvas: { widthIn: 12, heightIn: 12 } });
+
+/**
+ * One editing session of a pattern, shared by the board, toolbar, panels and list of one
+ * `<sw-pattern-editor>`: the framework-free {@link BoardEditor} with its state mirrored into signals.
+ * Components read the signals and change things only through the named methods.
+ */
+@Injectable()
+export class EditorSession {
+  /** The editor core. */
+  readonly editor = new BoardEditor(PLACEHOLDER, piecingGeometry());
+  private readonly snapshotState = signal<EditorSnapshot>(this.editor.store.snapshot());
+  private readonly viewTick = signal(0);
+
+  /** The store's latest state. */
+  readonly snapshot = this.snapshotState.asReadonly();
+  /** The current document. */
+  readonly document = computed(() => this.snapshotState().document);
+  /** The current selection. */
+  readonly selection = computed(() => this.snapshotState().selection);
+  /** Whether the document has changes not yet saved. */
+  readonly dirty = computed(() => this.snapshotState().dirty);
+  /** Whether there is a step to undo. */
+  readonly canUndo = computed(() => this.snapshotState().canUndo);
+  /** Whether there is a step to redo. */
+  readonly canRedo = computed(() => this.snapshotState().canRedo);
+  /** The selected section, if any. */
+  readonly selectedSection = computed(() => {
+    const id = this.selection().sectionId;
+    return id ? findSection(this.document(), id) ?? null : null;
+  });
+  /** The selected section's derived patches. */
+  readonly selectedPatches = computed(() => {
+    const s = this.selectedSection();
+    return s ? this.editor.analysis.patches(s) : [];
+  });
+  /** The selected section's sewability. */
+  readonly selectedSewability = computed(() => {
+    const s = this.selectedSection();
+    return s ? this.editor.analysis.sewability(s) : null;
+  });
+  /** Board settings. */
+  readonly settings = computed<BoardSettings>(() => (this.viewTick(), this.editor.settings));
+  /** The active tool's id. */
+  readonly toolId = computed<ToolId>(() => (this.viewTick(), this.editor.tool.id));
+  /** The active tool's state name. */
+  readonly toolState = computed(() => (this.viewTick(), this.editor.tool.state));
+  /** What the active tool asks for next. */
+  readonly toolHint = computed(() => (this.viewTick(), this.editor.tool.hint));
+  /** The pointer position in inches (snapped), or null. */
+  readonly cursor = computed(() => (this.viewTick(), this.editor.cursor));
+  /** Whether the board is read-only. */
+  readonly readOnly = computed(() => (this.viewTick(), this.editor.readOnly));
+  /** The last order search's outcome when it found no order (for the suggested split). */
+  readonly lastOrderSearch = signal<{ sectionId: string; result: BoardOrderSearch } | null>(null);
+
+  constructor() {
+    this.editor.store.subscribe((s) => this.snapshotState.set(s));
+    this.editor.onViewChange(() => this.viewTick.update((n) => n + 1));
+  }
+
+  /** Opens a document (not recorded; the history starts empty). */
+  load(document: PatternDocument): void {
+    this.editor.store.load(document);
+    this.lastOrderSearch.set(null);
+  }
+
+  /** Runs a named command as one undo step. */
+  apply(label: string, update: DocumentUpdate): void {
+    if (this.editor.readOnly) return;
+    this.editor.store.apply(label, update);
+  }
+
+  /** Switches tool. */
+  setTool(id: ToolId): void {
+    this.editor.setTool(id);
+  }
+
+  /** Changes board settings. */
+  setSettings(change: Partial<BoardSettings>): void {
+    this.editor.setSettings(change);
+  }
+
+  /** Undoes the last step. */
+  undo(): void {
+    this.editor.undo();
+  }
+
+  /** Redoes the last undone step. */
+  redo(): void {
+    this.editor.redo();
+  }
+
+  /** Fits the view to the drawing. */
+  fit(): void {
+    this.editor.fitToContent();
+  }
+
+  /** Applies a sewable order to the selected section, or keeps the reason and the suggested split. */
+  applySewableOrder(): BoardOrderSearch | null {
+    const s = this.selectedSection();
+    if (!s || this.editor.readOnly) return null;
+    let outcome: BoardOrderSearch | null = null;
+    this.editor.store.apply('Apply sewable order', (d) => {
+      const r = applySewableOrder(d, s.id, this.editor.analysis.geometry);
+      outcome = r.result;
+      return r.document;
+    });
+    if (outcome) this.lastOrderSearch.set({ sectionId: s.id, result: outcome });
+    return outcome;
+  }
+}

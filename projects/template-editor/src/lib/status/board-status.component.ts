@@ -1,0 +1,26 @@
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { EditorSession } from '../session/editor-session';
+import { cursorReadout } from './cursor-readout';
+
+/** The status line under the board: what the tool wants next and where the pointer is. */
+@Component({
+  selector: 'sw-board-status',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <span class="hint" aria-live="polite">{{ session.toolHint() }}</span>
+    @if (readout(); as r) {
+      <span class="cursor" aria-label="Pointer position"
+        ><span class="quilter">{{ r.quilter }}</span> <span class="exact">({{ r.exact }})</span></span
+      >
+    }
+  `,
+  styles: `
+    :host { display: flex; justify-content: space-between; gap: 12px; padding: 4px 10px; font-size: 12px; background: var(--mat-sys-surface-container-low, #f6f3ee); border-top: 1px solid var(--mat-sys-outline-variant, #d3cabb); min-height: 22px; }
+    .exact { opacity: 0.7; font-variant-numeric: tabular-nums; }
+    .quilter { font-weight: 500; }
+  `,
+})
+export class BoardStatusComponent {
+  protected readonly session = inject(EditorSession);
+  protected readonly readout = computed(() => cursorReadout(this.session.cursor(), this.session.settings().unit));
+}
