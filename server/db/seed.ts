@@ -6,7 +6,7 @@
  * database when SEAMWRIGHT_SEED_DEMO=1 or `--seed-demo` is given; `tsx server/db/seed.ts` runs it alone.
  */
 import { and, eq } from 'drizzle-orm';
-import * as piecing from '@seamwright/piecing';
+import { buildGardenGate, buildOrchardWheel, readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import { hashPassword } from '../auth/passwords';
 import { newId } from '../auth/tokens';
 import { loadConfig } from '../config';
@@ -21,14 +21,12 @@ export const DEMO_ACCOUNTS: { email: string; password: string; displayName: stri
   { email: 'quilter@fernbrook.example', password: 'fernbrook-quilter', displayName: 'Jonah Pell', role: 'quilter' },
 ];
 
-/** Names of the piecing library's demo builders, in seeding order. */
-const DEMO_BUILDERS = ['buildOrchardWheel', 'buildGardenGate'] as const;
+/** The piecing library's demo builders, in seeding order. */
+const DEMO_BUILDERS: (() => unknown)[] = [buildOrchardWheel, buildGardenGate];
 
 export interface SeedReport {
   accountsCreated: string[];
   patternsCreated: string[];
-  /** Demo builders the piecing library does not export yet. */
-  buildersMissing: string[];
 }
 
 /** Whether the database holds no user at all. */
@@ -38,7 +36,7 @@ export function isEmpty(db: Db): boolean {
 
 /** Adds the missing demo accounts and patterns. */
 export async function seedDemo(db: Db, bcryptRounds: number): Promise<SeedReport> {
-  const report: SeedReport = { accountsCreated: [], patternsCreated: [], buildersMissing: [] };
+  const report: SeedReport = { accountsCreated: [], patternsCreated: [] };
   const ids: Record<string, string> = {};
   for (const a of DEMO_ACCOUNTS) {
     const existing = db.select().from(users).where(eq(users.email, a.email)).get();
@@ -53,14 +51,8 @@ export async function seedDemo(db: Db, bcryptRounds: number): Promise<SeedReport
     report.accountsCreated.push(a.email);
   }
 
-  const library = piecing as unknown as Record<string, unknown>;
-  for (const name of DEMO_BUILDERS) {
-    const build = library[name];
-    if (typeof build !== 'function') {
-      report.buildersMissing.push(name);
-      continue;
-    }
-    const document = piecing.readPatternDocument((build as () => unknown)());
+  for (const build of DEMO_BUILDERS) {
+    const document: PatternDocument = readPatternDocument(build());
     const owned = db
       .select({ id: patterns.id })
       .from(patterns)
@@ -88,7 +80,6 @@ if (isMain) {
       console.log(`Demo data in ${database.file}:`);
       console.log(`  accounts created: ${r.accountsCreated.join(', ') || 'none (already there)'}`);
       console.log(`  patterns created: ${r.patternsCreated.join(', ') || 'none'}`);
-      if (r.buildersMissing.length > 0) console.log(`  not yet in the piecing library: ${r.buildersMissing.join(', ')}`);
       for (const a of DEMO_ACCOUNTS) console.log(`  sign in: ${a.email} / ${a.password} (${a.role})`);
       database.close();
     })
