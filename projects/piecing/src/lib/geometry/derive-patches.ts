@@ -1,6 +1,6 @@
 import type { Point, Section, Seam, StripSet } from '../document/pattern-schema';
 import { CHORD_TOLERANCE_IN, GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN, SEAM_REACH_TOLERANCE_IN } from '../tolerance';
-import { polygonArea, locatePoint } from './polygon';
+import { locatePoint, polygonArea, polygonBounds } from './polygon';
 import { flattenSectionOutline } from './section-outline';
 import { lineChords, splitRingAtChord, type Chord } from './split-polygon';
 import { formatPoint } from './vector';
@@ -70,19 +70,24 @@ function applySeam(polygons: Point[][], seam: Seam, reachIn: number): SplitResul
   let crossed = false;
   const full = (c: Chord) => c.from.t >= -reachIn && c.to.t <= lengthIn + reachIn;
   const overlapIn = (c: Chord) => Math.min(c.to.t, lengthIn + reachIn) - Math.max(c.from.t, -reachIn);
-  const splitAll = (ring: Point[]): Point[][] => {
-    const chords = lineChords(ring, seam.a, seam.b).filter((c) => overlapIn(c) > reachIn);
+  const chordsOf = (ring: Point[]) => lineChords(ring, seam.a, seam.b).filter((c) => overlapIn(c) > reachIn);
+  const splitAll = (ring: Point[], chords: Chord[]): Point[][] => {
     for (const chord of chords.filter(full)) {
       const [first, second] = splitRingAtChord(ring, chord);
       if (first.length < 3 || second.length < 3) continue;
       if (polygonArea(first) < MIN_PATCH_AREA_SQ_IN || polygonArea(second) < MIN_PATCH_AREA_SQ_IN) continue;
       crossed = true;
-      return [...splitAll(first), ...splitAll(second)];
+      return [...splitAll(first, chordsOf(first)), ...splitAll(second, chordsOf(second))];
     }
     return [ring];
   };
   for (const ring of polygons) {
-    const chords = lineChords(ring, seam.a, seam.b).filter((c) => overlapIn(c) > reachIn);
+    // Most patches lie wholly to one side of the seam line or far from the seam: skip them cheaply.
+    if (!lineMayCross(ring, seam, lengthIn, reachIn)) {
+      out.push(ring);
+      continue;
+    }
+    const chords = chordsOf(ring);
     for (const chord of chords.filter((c) => !full(c))) {
       const endsInside = chord.from.t < -reachIn ? seam.a : seam.b;
       const gapIn = chord.from.t < -reachIn ? -chord.from.t : chord.to.t - lengthIn;
@@ -93,7 +98,7 @@ function applySeam(polygons: Point[][], seam: Seam, reachIn: number): SplitResul
         message: `seam "${seam.id}" ends inside a patch at ${formatPoint(endsInside)}, ${gapIn.toFixed(3)} in. short of its edge; that patch is not split`,
       });
     }
-    out.push(...splitAll(ring));
+    out.push(...splitAll(ring, chords));
   }
   if (!crossed && problems.length === 0) {
     problems.push({
@@ -104,6 +109,26 @@ function applySeam(polygons: Point[][], seam: Seam, reachIn: number): SplitResul
     });
   }
   return { polygons: out, problems };
+}
+
+/** Whether the seam (extended by the reach tolerance) can meet the inside of the ring: bounding-box tests only. */
+function lineMayCross(ring: readonly Point[], seam: Seam, lengthIn: number, reachIn: number): boolean {
+  const b = polygonBounds(ring);
+  const ux = (seam.b.x - seam.a.x) / lengthIn;
+  const uy = (seam.b.y - seam.a.y) / lengthIn;
+  const ax = seam.a.x - ux * reachIn;
+  const ay = seam.a.y - uy * reachIn;
+  const bx = seam.b.x + ux * reachIn;
+  const by = seam.b.y + uy * reachIn;
+  if (Math.max(ax, bx) < b.minX || Math.min(ax, bx) > b.maxX || Math.max(ay, by) < b.minY || Math.min(ay, by) > b.maxY) return false;
+  let pos = false;
+  let neg = false;
+  for (const [x, y] of [[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY]]) {
+    const d = -uy * (x - seam.a.x) + ux * (y - seam.a.y);
+    if (d >= 0) pos = true;
+    if (d <= 0) neg = true;
+  }
+  return pos && neg;
 }
 
 /**

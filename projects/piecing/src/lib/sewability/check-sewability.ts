@@ -1,7 +1,7 @@
 import type { Section } from '../document/pattern-schema';
 import { derivePatches, type DerivedPatch } from '../geometry/derive-patches';
 import { GEOMETRY_EPSILON_IN, SEAM_REACH_TOLERANCE_IN } from '../tolerance';
-import { canAdd, computeContacts, pointOnLine, type AddCheck, type PatchContacts } from './patch-contacts';
+import { canAdd, computeContacts, pointOnLine, type AddCheck, type ContactGraph } from './patch-contacts';
 import type { SewabilityFailureReason, SewabilityOptions, SewabilityVerdict, SewingStep } from './sewability-types';
 
 /** Patches to check: a section (its patches are derived) or patches derived already. */
@@ -10,7 +10,7 @@ export type SewabilityInput = Section | readonly DerivedPatch[];
 /** The patches of the input, and the precomputed contacts between them. */
 export interface PreparedPatches {
   patches: readonly DerivedPatch[];
-  contacts: PatchContacts[];
+  graph: ContactGraph;
   gapIn: number;
 }
 
@@ -18,12 +18,12 @@ export interface PreparedPatches {
 export function preparePatches(input: SewabilityInput, options: SewabilityOptions = {}): PreparedPatches {
   const patches = Array.isArray(input) ? (input as readonly DerivedPatch[]) : derivePatches(input as Section, { toleranceIn: options.chordToleranceIn }).patches;
   const toleranceIn = options.toleranceIn ?? GEOMETRY_EPSILON_IN;
-  const contacts = computeContacts(
+  const graph = computeContacts(
     patches.map((p) => p.polygon),
     toleranceIn,
     options.minSeamLengthIn ?? SEAM_REACH_TOLERANCE_IN,
   );
-  return { patches, contacts, gapIn: options.minSeamLengthIn ?? SEAM_REACH_TOLERANCE_IN };
+  return { patches, graph, gapIn: options.minSeamLengthIn ?? SEAM_REACH_TOLERANCE_IN };
 }
 
 /** Explains a failed step in words a quilter understands. */
@@ -57,7 +57,7 @@ export function checkSewability(input: SewabilityInput, order?: readonly number[
 
 /** {@link checkSewability} on patches prepared already. */
 export function checkPrepared(prepared: PreparedPatches, order: readonly number[]): SewabilityVerdict {
-  const { patches, contacts, gapIn } = prepared;
+  const { patches, graph, gapIn } = prepared;
   const indexOf = new Map(patches.map((p, i) => [p.number, i]));
   const labels = order.map((n) => patches[indexOf.get(n) ?? -1]?.label ?? `#${n}`);
   const mismatch = orderMismatch(order, patches.map((p) => p.number));
@@ -69,7 +69,7 @@ export function checkPrepared(prepared: PreparedPatches, order: readonly number[
   for (let pos = 0; pos < order.length; pos++) {
     const k = indexOf.get(order[pos])!;
     if (pos > 0) {
-      const check = canAdd(contacts[k], earlier, patches.length, gapIn);
+      const check = canAdd(graph, k, earlier, gapIn);
       if (!check.ok) {
         const earlierLabels = labels.slice(0, pos);
         return {
@@ -80,7 +80,7 @@ export function checkPrepared(prepared: PreparedPatches, order: readonly number[
           failure: { patchNumber: order[pos], label: patches[k].label, position: pos + 1, reason: check.reason, message: explainFailure(prepared, k, check, earlierLabels) },
         };
       }
-      steps.push({ patchNumber: order[pos], label: patches[k].label, from: pointOnLine(contacts[k], check.line, check.from), to: pointOnLine(contacts[k], check.line, check.to) });
+      steps.push({ patchNumber: order[pos], label: patches[k].label, from: pointOnLine(graph, k, check.line, check.from), to: pointOnLine(graph, k, check.line, check.to) });
     }
     earlier[k] = 1;
   }

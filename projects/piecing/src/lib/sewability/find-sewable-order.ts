@@ -16,7 +16,7 @@ export type SubsetSearch = { found: true; order: number[] } | { found: false; li
  * numbering tends to come back unchanged. Returns indices into `prepared.patches`.
  */
 export function searchSubset(prepared: PreparedPatches, subset: readonly number[], maxStates = DEFAULT_MAX_SEARCH_STATES): SubsetSearch {
-  const { patches, contacts, gapIn } = prepared;
+  const { patches, graph, gapIn } = prepared;
   const n = patches.length;
   if (subset.length === 0) return { found: true, order: [] };
   const inSet = new Uint8Array(n);
@@ -46,7 +46,7 @@ export function searchSubset(prepared: PreparedPatches, subset: readonly number[
       if (!inSet[k]) continue;
       inSet[k] = 0;
       if (small) mask ^= 1 << k;
-      const ok = canAdd(contacts[k], inSet, n, gapIn).ok && solve(size - 1);
+      const ok = canAdd(graph, k, inSet, gapIn).ok && solve(size - 1);
       inSet[k] = 1;
       if (small) mask ^= 1 << k;
       if (ok) {

@@ -2,6 +2,7 @@ import type { Point } from '../document/pattern-schema';
 import { formatPoint } from '../geometry/vector';
 import type { PreparedPatches } from './check-sewability';
 import { searchSubset } from './find-sewable-order';
+import { patchSideOfLine } from './patch-contacts';
 import type { SplitSuggestion } from './sewability-types';
 
 interface CandidateLine {
@@ -16,7 +17,8 @@ interface CandidateLine {
  * when there is none.
  */
 export function suggestSplit(prepared: PreparedPatches, maxStates: number): SplitSuggestion | null {
-  const { patches, contacts } = prepared;
+  const { patches, graph } = prepared;
+  const contacts = graph.contacts;
   const n = patches.length;
   const tol = 1e-6;
   const candidates: Array<{ line: CandidateLine; k: number; li: number }> = [];
@@ -24,15 +26,14 @@ export function suggestSplit(prepared: PreparedPatches, maxStates: number): Spli
     Math.abs(a.ux * uy - a.uy * ux) < 1e-9 && Math.abs(-a.uy * (p.x - a.origin.x) + a.ux * (p.y - a.origin.y)) <= tol;
   contacts.forEach((c, k) => {
     c.lines.forEach((l, li) => {
-      if (!l.shared.some((s) => s.length > 0)) return;
+      if (l.shared.size === 0) return;
       if (candidates.some((cand) => sameLine(cand.line, l.origin, l.ux, l.uy))) return;
       candidates.push({ line: { origin: l.origin, ux: l.ux, uy: l.uy }, k, li });
     });
   });
   let best: { suggestion: SplitSuggestion; imbalance: number } | null = null;
   for (const { line, k, li } of candidates) {
-    const l = contacts[k].lines[li];
-    const side = (j: number) => (j === k ? l.ownSide : l.sides[j]);
+    const side = (j: number) => patchSideOfLine(graph, k, li, j);
     const plus: number[] = [];
     const minus: number[] = [];
     let straddles = false;
@@ -57,7 +58,7 @@ export function suggestSplit(prepared: PreparedPatches, maxStates: number): Spli
         const parallel = Math.abs(cl.ux * line.uy - cl.uy * line.ux) < 1e-9;
         if (!parallel || Math.abs(-line.uy * (cl.origin.x - line.origin.x) + line.ux * (cl.origin.y - line.origin.y)) > tol) continue;
         for (const j of minus) {
-          for (const [t0, t1] of cl.shared[j]) {
+          for (const [t0, t1] of cl.shared.get(j) ?? []) {
             for (const t of [t0, t1]) {
               const p = { x: cl.origin.x + cl.ux * t, y: cl.origin.y + cl.uy * t };
               const along = line.ux * (p.x - line.origin.x) + line.uy * (p.y - line.origin.y);
