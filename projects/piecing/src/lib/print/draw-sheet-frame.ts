@@ -28,11 +28,11 @@ export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHea
   pen.text(sheetLabel, { x: right, y: h.y + 0.17 }, { sizePt: 11, bold: true, align: 'right' });
   // Left 45 %: title and subtitle; the middle is kept for tile maps; right: sheet number and notes.
   pen.text(fitText(pen, heading.title, h.width * 0.45, 11, true), { x: h.x, y: h.y + 0.17 }, { sizePt: 11, bold: true });
-  pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.32 }, { sizePt: 8, colour: MUTED });
-  pen.text(PRINT_AT_ACTUAL_SIZE, { x: h.x, y: h.y + 0.47 }, { sizePt: 8, bold: true });
+  pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, colour: MUTED });
+  pen.text(PRINT_AT_ACTUAL_SIZE, { x: h.x, y: h.y + 0.43 }, { sizePt: 8, bold: true });
   if (heading.note) {
     const room = h.width - pen.textWidth(PRINT_AT_ACTUAL_SIZE, 8, true) - 0.3;
-    pen.text(fitText(pen, heading.note, room, 7), { x: right, y: h.y + 0.47 }, { sizePt: 7, colour: MUTED, align: 'right' });
+    pen.text(fitText(pen, heading.note, room, 7), { x: right, y: h.y + 0.43 }, { sizePt: 7, colour: MUTED, align: 'right' });
   }
   pen.segments([{ a: { x: h.x, y: h.y + h.height }, b: { x: right, y: h.y + h.height } }], { widthPt: 0.4, colour: MUTED });
   drawTestSquares(pen, frame.testBlock);
@@ -45,7 +45,7 @@ export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHea
 export function drawTestSquares(pen: PdfPen, block: RectIn): void {
   const inch = { x: block.x, y: block.y, width: TEST_SQUARE_IN, height: TEST_SQUARE_IN };
   const cm = {
-    x: block.x + TEST_SQUARE_IN + 0.16,
+    x: block.x + TEST_SQUARE_IN + 0.12,
     y: block.y + TEST_SQUARE_IN - TEST_SQUARE_CM_IN,
     width: TEST_SQUARE_CM_IN,
     height: TEST_SQUARE_CM_IN,
@@ -53,9 +53,8 @@ export function drawTestSquares(pen: PdfPen, block: RectIn): void {
   const line = { widthPt: 0.5, colour: INK };
   pen.rect(inch, line);
   pen.rect(cm, line);
-  pen.text(['1 in.', 'test square'], { x: inch.x + 0.5, y: inch.y + 0.45 }, { sizePt: 7, bold: true, align: 'center' });
+  pen.text(['1 in.', 'test square', 'measure me'], { x: inch.x + 0.5, y: inch.y + 0.38 }, { sizePt: 7, bold: true, align: 'center' });
   pen.text(['2 cm', 'test square'], { x: cm.x + cm.width / 2, y: cm.y + cm.height / 2 - 0.04 }, { sizePt: 7, bold: true, align: 'center' });
-  pen.text('Measure both squares first.', { x: block.x, y: block.y + TEST_SQUARE_IN + 0.1 }, { sizePt: 6, colour: MUTED });
 }
 
 /**

@@ -110,24 +110,34 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
   const labels = template.patches.map((p) => applyAffine(placement.transform, p.labelAt));
   const candidates: Point[] = [];
   for (const at of labels.slice(0, 40)) {
-    for (const [dx, dy] of [[0, 0.32], [0, -0.3], [0.45, 0], [-0.45, 0]]) candidates.push({ x: at.x + dx, y: at.y + dy });
+    for (const [dx, dy] of [[0, 0.36], [0, -0.42], [0.5, -0.1], [-0.5, -0.1], [0.6, 0.3], [-0.6, 0.3]]) candidates.push({ x: at.x + dx, y: at.y + dy });
   }
   let best: Point | null = null;
   let bestScore = 0.12;
   for (const c of candidates) {
     if (!insideRing(c, outline)) continue;
-    let score = distanceToRing(c, outline);
-    for (const l of labels) score = Math.min(score, Math.hypot(c.x - l.x, (c.y - l.y) * 1.6) - 0.12);
+    let score = Math.min(distanceToRing(c, outline), distanceToRing({ x: c.x, y: c.y + 0.24 }, outline) - 0.1);
+    for (const l of labels) score = Math.min(score, Math.hypot(c.x - l.x, (c.y - l.y) * 1.6) - 0.12, Math.hypot(c.x - l.x, (c.y + 0.24 - l.y) * 1.6) - 0.2);
     if (score > bestScore) {
       bestScore = score;
       best = c;
     }
   }
-  if (!best) return;
+  if (!best) best = centroidOf(outline);
   const d = unit(applyLinear(placement.transform, template.orientation.direction));
   drawArrow(pen, best, d, 0.26);
   const word = template.orientation.towards === 'centre' ? 'centre' : 'top';
   pen.text(word, { x: best.x - d.x * 0.2, y: best.y - d.y * 0.2 }, { sizePt: 5, align: 'center', baseline: 'middle', colour: '#333333' });
+  if (!placement.tile) {
+    // Whole templates have no caption strip: section and copy are written beside the arrow.
+    const tag = placement.copies > 1 ? `${template.sectionLabel} · copy ${placement.copy} of ${placement.copies}` : `Section ${template.sectionLabel}`;
+    pen.text(tag, { x: best.x, y: best.y + 0.24 }, { sizePt: 6, bold: true, align: 'center', baseline: 'middle' });
+  }
+}
+
+function centroidOf(points: readonly Point[]): Point {
+  const box = points.reduce((b, p) => ({ x0: Math.min(b.x0, p.x), y0: Math.min(b.y0, p.y), x1: Math.max(b.x1, p.x), y1: Math.max(b.y1, p.y) }), { x0: Infinity, y0: Infinity, x1: -Infinity, y1: -Infinity });
+  return { x: (box.x0 + box.x1) / 2, y: (box.y0 + box.y1) / 2 };
 }
 
 function insideRing(p: Point, ring: readonly Point[]): boolean {

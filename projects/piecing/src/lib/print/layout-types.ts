@@ -64,10 +64,7 @@ export interface SheetPlacement {
   transform: Affine;
   /** Turn applied to the template on the sheet, degrees (0 … 360), after any mirroring. */
   turnDeg: number;
-  /**
-   * The caption strip: above the drawing, or along its left side (text reading upward) when turned.
-   * Two copies nested head to tail share one caption, carried by the first.
-   */
+  /** The caption strip above a tile (section, copy, tile key). Whole templates carry their label inside. */
   caption?: { rect: RectIn; vertical: boolean };
   /** The copy this one is nested with (same box, turned half a turn), when nested. */
   nestedWith?: number;

@@ -57,7 +57,7 @@ describe('layout of the test medallion on Letter', () => {
     expect(corner.tilesPerCopy).toBeGreaterThan(1);
   });
 
-  it('keeps pieces apart, inside the content area and off the test squares', () => {
+  it('keeps pieces apart, inside the content area, and the test squares clear of every cutting line', () => {
     for (const sheet of layout.sheets) {
       const boxes = new Map<string, RectIn>();
       for (const p of sheet.placements) {
@@ -66,15 +66,24 @@ describe('layout of the test medallion on Letter', () => {
         const r = p.caption ? unionRect(p.rect, p.caption.rect) : p.rect;
         boxes.set(key, boxes.has(key) ? unionRect(boxes.get(key)!, r) : r);
       }
-      const list = [...boxes.values(), sheet.frame.testBlock];
+      const list = [...boxes.values()];
       const c = sheet.frame.content;
-      for (const r of list) {
+      for (const r of [...list, sheet.frame.testBlock]) {
         expect(r.x).toBeGreaterThanOrEqual(c.x - 1e-9);
         expect(r.y).toBeGreaterThanOrEqual(c.y - 1e-9);
         expect(r.x + r.width).toBeLessThanOrEqual(c.x + c.width + 1e-9);
         expect(r.y + r.height).toBeLessThanOrEqual(c.y + c.height + 1e-9);
       }
       for (let i = 0; i < list.length; i++) for (let j = i + 1; j < list.length; j++) expect(disjoint(list[i], list[j], ITEM_GAP_IN - 1e-6)).toBe(true);
+      // The test squares may sit in an empty corner of a template's box, never on its cutting line
+      // (outlines were simplified within 0.02 in. for the search, so allow that twice).
+      const tb = sheet.frame.testBlock;
+      const block = [{ x: tb.x, y: tb.y }, { x: tb.x + tb.width, y: tb.y }, { x: tb.x + tb.width, y: tb.y + tb.height }, { x: tb.x, y: tb.y + tb.height }];
+      for (const p of sheet.placements) {
+        const ring = p.tile ? rectRing(p.rect) : byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q));
+        expect(separated(block, ring, ITEM_GAP_IN - 0.04)).toBe(true);
+        if (p.caption) expect(separated(block, rectRing(p.caption.rect), ITEM_GAP_IN - 0.04)).toBe(true);
+      }
     }
   });
 
@@ -132,4 +141,8 @@ function unionRect(p: RectIn, q: RectIn): RectIn {
   const x = Math.min(p.x, q.x);
   const y = Math.min(p.y, q.y);
   return { x, y, width: Math.max(p.x + p.width, q.x + q.width) - x, height: Math.max(p.y + p.height, q.y + q.height) - y };
+}
+
+function rectRing(r: RectIn) {
+  return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }

@@ -2,6 +2,9 @@
 // maxrects-packer's "main" is a UMD file inside a "type": "module" package, which Node's ESM loader
 // reads as an empty module; its ES build works in Node, vitest and the browser alike.
 import { MaxRectsBin, PACKING_LOGIC, Rectangle } from 'maxrects-packer/dist/maxrects-packer.mjs';
+import type { Point } from '../document/index';
+import { boundingRect } from './layout-geometry';
+import { separated } from './nest-pair';
 import type { PaperName, SheetOrientation } from './paper';
 import { ITEM_GAP_IN, sheetFrame, type SheetFrame } from './sheet-frame';
 
@@ -11,6 +14,8 @@ export interface PackItem<T> {
   height: number;
   quarterTurns: boolean;
   data: T;
+  /** Smaller items this one may be broken into when that fills a sheet better (a nested pair → two copies). */
+  parts?: PackItem<T>[];
 }
 
 /** Where an item landed: top-left in sheet inches, whether turned a quarter turn, placed size. */
@@ -48,7 +53,13 @@ const LOGICS = [PACKING_LOGIC.MAX_EDGE, PACKING_LOGIC.MAX_AREA];
  * moves on with what is left.
  * Deterministic: ties are broken by the fixed try order, never by chance.
  */
-export function packSheets<T>(items: readonly PackItem<T>[], paper: PaperName, marginIn: number): PackedSheet<T>[] {
+/**
+ * The outlines a packed item really covers on the sheet (cutting lines, caption strips), so the test
+ * squares may sit in the empty corners of its box.
+ */
+export type ItemOutlines<T> = (placed: PackedItem<T>) => Point[][];
+
+export function packSheets<T>(items: readonly PackItem<T>[], paper: PaperName, marginIn: number, outlines?: ItemOutlines<T>): PackedSheet<T>[] {
   const frames: Record<SheetOrientation, SheetFrame> = {
     portrait: sheetFrame(paper, 'portrait', marginIn),
     landscape: sheetFrame(paper, 'landscape', marginIn),
@@ -58,38 +69,101 @@ export function packSheets<T>(items: readonly PackItem<T>[], paper: PaperName, m
       throw new RangeError(`a ${item.width.toFixed(2)} × ${item.height.toFixed(2)} in. piece does not fit on one sheet`);
     }
   }
-  const orders = ORDERS.map((order) => [...items].sort(order));
-  const left = new Set<PackItem<T>>(items);
+  // Items still to place, in their original order (orders are re-derived from it each sheet).
+  let left: PackItem<T>[] = [...items];
+  const parentOf = new Map<PackItem<T>, PackItem<T>>();
+  for (const item of items) for (const part of item.parts ?? []) parentOf.set(part, item);
   const sheets: PackedSheet<T>[] = [];
-  while (left.size > 0) {
-    let best: { frame: SheetFrame; tried: Try<T>; area: number } | null = null;
+  while (left.length > 0) {
+    const tries: Array<{ frame: SheetFrame; tried: Try<T> | Omit<Try<T>, 'block'>; area: number }> = [];
+    const whole = left;
+    const broken = left.flatMap((i) => i.parts ?? [i]);
+    const variants = whole.some((i) => i.parts) ? [whole, broken] : [whole];
     for (const orientation of ['portrait', 'landscape'] as const) {
       const frame = frames[orientation];
-      for (const order of orders) {
-        const remaining = order.filter((i) => left.has(i));
+      for (const order of ORDERS) for (const variant of variants) {
+        const remaining = [...variant].sort(order);
         for (const logic of LOGICS) {
-          for (const blockFirst of [true, false]) {
-            const tried = packOne(remaining, frame, logic, blockFirst);
+          for (const block of outlines ? (['first', 'last', 'free'] as const) : (['first', 'last'] as const)) {
+            const tried = packOne(remaining, frame, logic, block);
             if (!tried) continue;
             const area = tried.placed.reduce((s, p) => s + p.width * p.height, 0);
-            if (!best || area > best.area + 1e-9) best = { frame, tried, area };
+            tries.push({ frame, tried, area });
           }
         }
       }
     }
-    if (!best || best.tried.placed.length === 0) throw new RangeError('packing made no progress');
-    for (const p of best.tried.placed) left.delete(p.item);
-    const testBlock = { ...best.frame.testBlock, ...best.tried.block };
-    sheets.push({ frame: { ...best.frame, testBlock }, items: best.tried.placed });
+    // Best first (stable sort keeps the fixed try order on ties); a try that left the test block out
+    // counts only if the block finds a spot clear of the real outlines.
+    tries.sort((a, b) => b.area - a.area);
+    let chosen: { frame: SheetFrame; tried: Try<T> } | null = null;
+    let scans = 0;
+    for (const t of tries) {
+      if ('block' in t.tried) {
+        chosen = { frame: t.frame, tried: t.tried };
+        break;
+      }
+      if (++scans > 4) continue; // scanning is the slow part: only for the few best tries
+      const spot = findBlockSpot(t.frame, t.tried.placed, outlines!);
+      if (spot) {
+        chosen = { frame: t.frame, tried: { placed: t.tried.placed, block: spot } };
+        break;
+      }
+    }
+    if (!chosen || chosen.tried.placed.length === 0) throw new RangeError('packing made no progress');
+    left = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
+    const testBlock = { ...chosen.frame.testBlock, ...chosen.tried.block };
+    sheets.push({ frame: { ...chosen.frame, testBlock }, items: chosen.tried.placed });
   }
   return sheets;
 }
 
-function fitsAlone(item: PackItem<unknown>, frame: SheetFrame): boolean {
-  return (packOne([item], frame, PACKING_LOGIC.MAX_EDGE, true)?.placed.length ?? 0) === 1;
+/** What is left after a sheet took `placed`: whole items gone, broken items down to their unplaced parts. */
+function remainingAfter<T>(left: readonly PackItem<T>[], placed: readonly PackItem<T>[], parentOf: Map<PackItem<T>, PackItem<T>>): PackItem<T>[] {
+  const used = new Set(placed);
+  const out: PackItem<T>[] = [];
+  for (const item of left) {
+    if (used.has(item)) continue;
+    const parts = item.parts?.filter((p) => parentOf.get(p) === item);
+    if (parts && parts.some((p) => used.has(p))) {
+      out.push(...parts.filter((p) => !used.has(p)));
+      continue;
+    }
+    out.push(item);
+  }
+  return out;
 }
 
-function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PACKING_LOGIC, blockFirst: boolean): Try<T> | null {
+function fitsAlone(item: PackItem<unknown>, frame: SheetFrame): boolean {
+  return (packOne([item], frame, PACKING_LOGIC.MAX_EDGE, 'first')?.placed.length ?? 0) === 1;
+}
+
+/** The first spot (row by row from the top-left, 0.1 in. steps) where the test block clears every outline. */
+function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], outlines: ItemOutlines<T>): { x: number; y: number } | null {
+  const c = frame.content;
+  const bw = frame.testBlock.width;
+  const bh = frame.testBlock.height;
+  const obstacles = placed.flatMap((p) => outlines(p)).map((ring) => ({ ring, box: boundingRect(ring) }));
+  const g = ITEM_GAP_IN;
+  const step = 0.1;
+  for (let y = c.y; y + bh <= c.y + c.height + 1e-9; y += step) {
+    for (let x = c.x; x + bw <= c.x + c.width + 1e-9; x += step) {
+      const rect = [{ x, y }, { x: x + bw, y }, { x: x + bw, y: y + bh }, { x, y: y + bh }];
+      let clear = true;
+      for (const o of obstacles) {
+        if (o.box.x > x + bw + g || o.box.x + o.box.width < x - g || o.box.y > y + bh + g || o.box.y + o.box.height < y - g) continue;
+        if (!separated(rect, o.ring, g)) {
+          clear = false;
+          break;
+        }
+      }
+      if (clear) return { x, y };
+    }
+  }
+  return null;
+}
+
+function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PACKING_LOGIC, blockAt: 'first' | 'last' | 'free'): Try<T> | Omit<Try<T>, 'block'> | null {
   const g = ITEM_GAP_IN;
   // Every piece grows by the gap and so does the bin: pieces keep the gap between them, not at the edge.
   const bin = new MaxRectsBin<Rectangle>(frame.content.width + g, frame.content.height + g, 0, {
@@ -101,7 +175,7 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
   });
   const block = new Rectangle(frame.testBlock.width + g, frame.testBlock.height + g);
   block.allowRotation = false;
-  if (blockFirst) bin.add(block);
+  if (blockAt === 'first') bin.add(block);
   const placed: PackedItem<T>[] = [];
   for (const item of items) {
     const rect = new Rectangle(item.width + g, item.height + g);
@@ -117,6 +191,7 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
       height: put.height - g,
     });
   }
-  if (!blockFirst && !bin.add(block)) return null;
+  if (blockAt === 'free') return { placed };
+  if (blockAt === 'last' && !bin.add(block)) return null;
   return { placed, block: { x: frame.content.x + block.x, y: frame.content.y + block.y } };
 }

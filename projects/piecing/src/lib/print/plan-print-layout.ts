@@ -3,7 +3,7 @@ import { applyAffine, compose, rotation, translation, type Affine } from './affi
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
 import { packSheets, type PackItem } from './pack-sheets';
 import { printableAreaSqIn, type RectIn } from './paper';
-import { nestPair, type NestedPair } from './nest-pair';
+import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
 import { intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
@@ -33,6 +33,9 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   const landscape = sheetFrame(paper, 'landscape', marginIn);
   const pieces: PackItem<Piece>[] = [];
   const grids = new Map<string, TileGrid>();
+  // Simplified cutting lines (within 0.02 in.) for finding room for the test squares; the gap is widened to match.
+  const simple = new Map(templates.map((t) => [t.id, simplifyRing(t.cuttingLine, 0.02)]));
+  const outlineOf = (id: string, m: Affine) => simple.get(id)!.map((q) => applyAffine(m, q));
   for (const template of templates) {
     if (template.copies < 1) continue;
     const prepared = prepareTemplate(template, mirrored);
@@ -42,12 +45,19 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
     for (let copy = 1; copy <= template.copies; copy++) {
       if (pair && copy < template.copies) {
-        pieces.push({ width: pair.width, height: pair.height + CAPTION_IN, quarterTurns: true, data: { prepared, copy, pair } });
+        const single = (c: number): PackItem<Piece> => ({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy: c } });
+        pieces.push({
+          width: pair.width,
+          height: pair.height,
+          quarterTurns: true,
+          data: { prepared, copy, pair },
+          parts: [single(copy), single(copy + 1)],
+        });
         copy++;
         continue;
       }
       if (!grid) {
-        pieces.push({ width: prepared.width, height: prepared.height + CAPTION_IN, quarterTurns: true, data: { prepared, copy } });
+        pieces.push({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy } });
         continue;
       }
       for (const tile of grid.tiles) {
@@ -61,7 +71,16 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     }
   }
 
-  const packed = packSheets(pieces, paper, marginIn);
+  const packed = packSheets(pieces, paper, marginIn, (p) => {
+    const placements = p.item.data.tile ? [placeTile(p.item.data, p.x, p.y, new Map())] : placeWhole(p.item.data, p.x, p.y, p.turned);
+    const rings: Point[][] = [];
+    for (const pl of placements) {
+      if (pl.caption) rings.push(rectRing(pl.caption.rect));
+      if (pl.tile) rings.push(rectRing(pl.rect));
+      else rings.push(outlineOf(pl.templateId, pl.transform));
+    }
+    return rings;
+  });
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
     for (const p of sheet.items) {
@@ -116,7 +135,7 @@ function nestedPairFor(prepared: PreparedTemplate, mirrored: boolean, ...frames:
     prepared.template.freeRotation,
     ITEM_GAP_IN,
     TEMPLATE_CLEARANCE_IN,
-    prepared.width * (prepared.height + CAPTION_IN),
+    prepared.width * prepared.height,
   );
   if (!pair) return null;
   const box = { width: pair.width, height: pair.height } as PreparedTemplate;
@@ -129,7 +148,7 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
   const g = ITEM_GAP_IN;
   const fits = (w: number, h: number) =>
     (w <= W && h <= H - tb.height - g) || (w <= W - tb.width - g && h <= H);
-  return fits(p.width, p.height + CAPTION_IN) || fits(p.height + CAPTION_IN, p.width);
+  return fits(p.width, p.height) || fits(p.height, p.width);
 }
 
 /**
@@ -165,15 +184,10 @@ function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetP
   const { prepared, pair } = piece;
   const w = pair ? pair.width : prepared.width;
   const h = pair ? pair.height : prepared.height;
-  // Unturned: caption on top. A quarter turn maps the box [0, w] × [0, h] onto [0, h] × [0, w] and
-  // the caption, turned with it, ends up along the left side.
-  const onSheet: Affine = turned
-    ? compose(translation(x + CAPTION_IN + h, y), rotation(Math.PI / 2))
-    : translation(x, y + CAPTION_IN);
-  const rect: RectIn = turned
-    ? { x: x + CAPTION_IN, y, width: h, height: w }
-    : { x, y: y + CAPTION_IN, width: w, height: h };
-  const caption: RectIn = turned ? { x, y, width: CAPTION_IN, height: w } : { x, y, width: w, height: CAPTION_IN };
+  // A quarter turn maps the box [0, w] × [0, h] onto [0, h] × [0, w]. Whole templates carry their
+  // label inside (see draw-template.ts), so the box is the drawing alone.
+  const onSheet: Affine = turned ? compose(translation(x + h, y), rotation(Math.PI / 2)) : translation(x, y);
+  const rect: RectIn = turned ? { x, y, width: h, height: w } : { x, y, width: w, height: h };
   const base = {
     templateId: prepared.template.id,
     sectionLabel: prepared.template.sectionLabel,
@@ -188,7 +202,6 @@ function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetP
         copy: piece.copy,
         transform: compose(onSheet, prepared.frame),
         turnDeg: (prepared.turnDeg + extra) % 360,
-        caption: { rect: caption, vertical: turned },
       },
     ];
   }
@@ -198,7 +211,6 @@ function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetP
       copy: piece.copy,
       transform: compose(onSheet, pair.frames[0]),
       turnDeg: (pair.turnDeg[0] + extra) % 360,
-      caption: { rect: caption, vertical: turned },
       nestedWith: piece.copy + 1,
     },
     {
@@ -276,4 +288,8 @@ function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, n
       joinLines,
     },
   };
+}
+
+function rectRing(r: RectIn): Point[] {
+  return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }

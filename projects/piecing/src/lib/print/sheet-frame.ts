@@ -6,10 +6,10 @@ import { printableArea, type PaperName, type RectIn, type SheetOrientation } fro
  */
 
 /** Height of the header band (title, "Sheet n of N", sections, the print-at-100 % line). */
-export const HEADER_HEIGHT_IN = 0.5;
+export const HEADER_HEIGHT_IN = 0.46;
 
 /** Gap between the header band and the content area. */
-export const HEADER_GAP_IN = 0.08;
+export const HEADER_GAP_IN = 0.06;
 
 /** Side of the imperial test square: 1 in. */
 export const TEST_SQUARE_IN = 1;
@@ -18,7 +18,7 @@ export const TEST_SQUARE_IN = 1;
 export const TEST_SQUARE_CM_IN = 20 / 25.4;
 
 /** The block holding both test squares and their labels. */
-export const TEST_BLOCK_IN = { width: 2.05, height: 1.12 } as const;
+export const TEST_BLOCK_IN = { width: 1 + 0.12 + 20 / 25.4, height: 1 } as const;
 
 /** Space kept between things packed on a sheet, so neighbouring templates can be cut apart. */
 export const ITEM_GAP_IN = 0.14;
