@@ -204,5 +204,6 @@ function stripSetKey(s: StripSet): string {
 }
 
 function round6(v: number): number {
-  return Math.round(v * 1e6) / 1e6;
+  const r = Math.round(v * 1e6) / 1e6;
+  return r === 0 ? 0 : r;
 }

@@ -43,6 +43,7 @@ describe('rounding', () => {
     expect(roundUpToEighthInch(3.0000000001)).toBe(3);
     expect(roundUpToEighthInch(3.01)).toBe(3.125);
     expect(roundUpToEighthInch(4.376)).toBe(4.5);
+    expect(Object.is(roundUpToStep(0, 4.5), 0)).toBe(true);
   });
 
   it('buys yardage in ⅛ yd steps of 4.5 in.', () => {

@@ -13,7 +13,9 @@ const NOISE = 1e-9;
 /** Rounds `value` up to a whole number of `step`s (both in the same unit), ignoring float noise. */
 export function roundUpToStep(value: number, step: number): number {
   if (!(step > 0)) throw new RangeError(`rounding step must be positive, got ${step}`);
-  return Math.ceil(value / step - NOISE) * step;
+  const rounded = Math.ceil(value / step - NOISE) * step;
+  // Math.ceil(-1e-9) is -0; a length of nothing is plain 0 (JSON would not keep the sign anyway).
+  return rounded === 0 ? 0 : rounded;
 }
 
 /** Rounds a length in inches up to the next ⅛ in. */
