@@ -36,6 +36,8 @@ const envSchema = z.object({
   RATE_LIMIT_WINDOW_MINUTES: intFromEnv(15, 1),
   INVITATION_DAYS: intFromEnv(7, 1, 90),
   PRINT_WORKERS: intFromEnv(1, 1, 8),
+  /** A print set still rendering after this long is stopped and marked failed. */
+  PRINT_TIMEOUT_SECONDS: intFromEnv(900, 5, 86_400),
   /** bcrypt cost factor (2^n rounds); 12 is a common default, tests use 4. */
   BCRYPT_ROUNDS: intFromEnv(12, 4, 15),
 });
@@ -64,6 +66,7 @@ export interface Config {
   };
   invitationDays: number;
   printWorkers: number;
+  printTimeoutSeconds: number;
   bcryptRounds: number;
   /** Whether cookies carry the Secure flag (when the public URL is https). */
   secureCookies: boolean;
@@ -106,6 +109,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
     },
     invitationDays: e.INVITATION_DAYS,
     printWorkers: e.PRINT_WORKERS,
+    printTimeoutSeconds: e.PRINT_TIMEOUT_SECONDS,
     bcryptRounds: e.BCRYPT_ROUNDS,
     secureCookies: publicUrl.startsWith('https://'),
   };

@@ -18,6 +18,7 @@ interface Slot {
   worker: Worker;
   ready: Promise<void>;
   busy: string | null;
+  timer?: NodeJS.Timeout;
 }
 
 /** Renders print sets in worker threads, one job per worker at a time, and stores the PDFs. */
@@ -64,6 +65,7 @@ export class PrintSetService {
   async close(): Promise<void> {
     this.closed = true;
     this.queue.length = 0;
+    for (const s of this.slots) clearTimeout(s.timer);
     await Promise.all(this.slots.map((s) => s.worker.terminate()));
     this.slots.length = 0;
   }
@@ -91,6 +93,7 @@ export class PrintSetService {
     });
     worker.on('message', (m: WorkerMessage) => this.onMessage(slot, m));
     const lost = (why: unknown) => {
+      clearTimeout(slot.timer);
       const job = slot.busy;
       this.slots.splice(this.slots.indexOf(slot), 1);
       if (job) this.fail(job, 'The print worker stopped unexpectedly');
@@ -128,6 +131,16 @@ export class PrintSetService {
     if (!revision) return this.fail(setId, 'The revision is gone');
     slot.busy = setId;
     this.update(setId, { status: 'rendering', progress: 0 });
+    // A render that never ends (a bug, a hostile document) must not hold the queue: stop the worker.
+    slot.timer = setTimeout(() => {
+      if (slot.busy !== setId) return;
+      this.fail(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`);
+      slot.busy = null;
+      this.slots.splice(this.slots.indexOf(slot), 1);
+      void slot.worker.terminate();
+      this.pump();
+    }, this.config.printTimeoutSeconds * 1000);
+    slot.timer.unref();
     const job: RenderJob = {
       type: 'render',
       jobId: setId,
@@ -140,6 +153,7 @@ export class PrintSetService {
 
   private onMessage(slot: Slot, m: WorkerMessage): void {
     if (m.type === 'ready' || m.jobId !== slot.busy) return;
+    if (m.type !== 'progress') clearTimeout(slot.timer);
     if (m.type === 'progress') {
       // Cover and appendix are steps too; keep 1.0 for "stored".
       this.update(m.jobId, { progress: Math.min(0.99, m.done / Math.max(1, m.total)) });
