@@ -2,15 +2,20 @@
  * Disk full and unwritable data folder (issue: benchmarks, load, faults): the client gets a clear
  * error, the server does not crash, and no corrupt or half-written file stays behind.
  *
- * The tests run as root, where `chmod` does not stop writes, so two other ways are used:
- * - "disk full": the server runs under a file-size limit (RLIMIT_FSIZE, set with util-linux
- *   `prlimit --fsize=N --`, which execs the server in place). Node ignores SIGXFSZ, so a write past
- *   the limit fails with EFBIG, as a write to a full disk fails with ENOSPC (getrlimit(2),
- *   setrlimit RLIMIT_FSIZE). It hits uploads and the SQLite file alike.
+ * The tests run as root, where `chmod` does not stop writes, so other ways are used:
+ * - "disk full", two ways, each test run with both:
+ *   a) the data folder on a small tmpfs (`mount -t tmpfs -o size=N`): a real full file system,
+ *      writes fail with ENOSPC. Needs the right to mount (root with CAP_SYS_ADMIN); where mounting
+ *      is refused, (b) is used in its place and the test says so.
+ *   b) the server under a file-size limit (RLIMIT_FSIZE, set with util-linux `prlimit --fsize=N --`,
+ *      which execs the server in place). Node ignores SIGXFSZ, so a write past the limit fails with
+ *      EFBIG (getrlimit(2), RLIMIT_FSIZE). It hits uploads and the SQLite file alike.
  * - "unwritable folder": the folder the server writes into is replaced by a plain file of the same
  *   name, so creating or writing files inside it fails (ENOTDIR/EEXIST) whatever the user.
  */
+import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { signedInClient } from '../support/api-client';
@@ -20,12 +25,17 @@ import { answerProblem, TINY_PNG, uploadForm } from '../support/fixtures';
 import { startServerProcess, waitForHealth, type ServerProcess } from '../support/server-process';
 
 const started: ServerProcess[] = [];
+const mounts: string[] = [];
 afterAll(async () => {
   for (const s of started) await s.stop();
+  for (const dir of mounts) {
+    execFileSync('umount', [dir]);
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
 });
 
 /** What a clear storage error looks like: a JSON error that says the thing was not stored. */
-const CLEAR_STORAGE_ERROR = /disk|storage|space|full|not (been )?(saved|stored)|could not (be )?(saved|stored|write)|cannot (be )?(saved|stored)/i;
+const CLEAR_STORAGE_ERROR = /disk|storage|space|full|nothing (was|has been) (saved|stored)|not (been )?(saved|stored)|could not (be )?(saved|stored|write)|cannot (be )?(saved|stored)/i;
 
 function expectClearStorageError(res: { status: number; text: string; json: any; contentType: string }, what: string) {
   // A server-side fault may be a 5xx (507 Insufficient Storage fits, RFC 4918 §11.5), but it must be
@@ -47,11 +57,34 @@ function strayFiles(dataDir: string, folder: string, known: string[]): string[] 
     .filter((f) => !known.includes(f));
 }
 
-describe('disk full (file-size limit on the server process)', () => {
+type DiskKind = 'tmpfs' | 'prlimit';
+
+/** A server whose data folder can hold about `bytes` (tmpfs) or whose files can grow to `bytes` (prlimit). */
+async function serverOnSmallDisk(kind: DiskKind, bytes: number): Promise<{ server: ServerProcess; how: string }> {
+  if (kind === 'tmpfs') {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'seamwright-small-disk-'));
+    try {
+      execFileSync('mount', ['-t', 'tmpfs', '-o', `size=${bytes},mode=0700`, 'tmpfs', dir], { stdio: 'pipe' });
+      mounts.push(dir);
+      const server = await startServerProcess({ dataDir: dir });
+      started.push(server);
+      return { server, how: `data folder on a ${bytes / 1024 / 1024} MB tmpfs (ENOSPC)` };
+    } catch (err) {
+      fs.rmSync(dir, { recursive: true, force: true });
+      if (mounts.includes(dir)) throw err;
+      console.log(`tmpfs mount refused (${(err as Error).message.split('\n')[0]}): using the file-size limit instead`);
+    }
+  }
+  const server = await startServerProcess({ wrapper: ['prlimit', `--fsize=${bytes}`, '--'] });
+  started.push(server);
+  return { server, how: `RLIMIT_FSIZE ${bytes / 1024 / 1024} MB via prlimit (EFBIG)` };
+}
+
+describe.each<DiskKind>(['tmpfs', 'prlimit'])('disk full (%s)', (kind) => {
   it('an upload bigger than the space left: clear error, no crash, no half-written file, no row', async () => {
-    // 2 MB per file: the database and small images fit, a 3 MB image does not.
-    const server = await startServerProcess({ wrapper: ['prlimit', `--fsize=${2 * 1024 * 1024}`, '--'] });
-    started.push(server);
+    // 2.5 MB: the database and small images fit, a 3 MB image does not.
+    const { server, how } = await serverOnSmallDisk(kind, 2.5 * 1024 * 1024);
+    console.log(`disk full, upload: ${how}`);
     const { client } = await signedInClient(server.baseUrl, 'designer', 'full-disk');
     const made = await client.post('/api/patterns', { document: gridDocument('Full disk block', 2, 2, 2) });
     expect(made.status).toBe(201);
@@ -62,6 +95,10 @@ describe('disk full (file-size limit on the server process)', () => {
     const big = await client.request('POST', `/api/patterns/${id}/uploads`, { body: uploadForm(bigPng(3 * 1024 * 1024)) });
     expect(answerProblem(big) ?? '', 'no stack trace, JSON body').not.toMatch(/stack trace|without JSON/);
     expectClearStorageError(big, 'upload past the file-size limit');
+
+    // Right away: no temporary or partial file of the refused upload is left taking up the space.
+    const leftovers = listFiles(path.join(server.dataDir, 'uploads')).filter((f) => /(^|\/)\.|\.tmp$/.test(f));
+    expect.soft(leftovers, 'temporary files left by the refused upload').toEqual([]);
 
     // No crash: the same process still answers, and the next small upload works.
     expect(server.alive(), server.output()).toBe(true);
@@ -84,8 +121,7 @@ describe('disk full (file-size limit on the server process)', () => {
     // Each save of this document adds about 0.4 MB to the write-ahead log; 3 MB per file stops the
     // server a few saves in.
     const limit = 3 * 1024 * 1024;
-    const server = await startServerProcess({ wrapper: ['prlimit', `--fsize=${limit}`, '--'] });
-    started.push(server);
+    const { server, how } = await serverOnSmallDisk(kind, limit);
     const { client } = await signedInClient(server.baseUrl, 'designer', 'full-db');
     const doc = (n: number) => gridDocument(`Growing block ${n}`, 30, 30, 16);
     const size = JSON.stringify(doc(0)).length;
@@ -102,7 +138,7 @@ describe('disk full (file-size limit on the server process)', () => {
         acked.set(head, `Growing block ${i}`);
       } else failure = res;
     }
-    console.log(`disk full: document ${(size / 1024).toFixed(0)} kB, ${acked.size} saves stored before the limit, then ${failure?.status}: ${failure?.text.slice(0, 160)}`);
+    console.log(`disk full (${how}): document ${(size / 1024).toFixed(0)} kB, ${acked.size} saves stored before the limit, then ${failure?.status}: ${failure?.text.slice(0, 160)}`);
     expect(failure, 'the limit should have been reached').toBeDefined();
     expectClearStorageError(failure!, 'save past the file-size limit');
     expect(server.alive(), server.output()).toBe(true);
