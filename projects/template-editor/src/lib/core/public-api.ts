@@ -34,3 +34,4 @@ export * from './view/grid-lines';
 export * from './editor/board-settings';
 export * from './editor/shortcuts';
 export * from './editor/board-editor';
+export * from './preview/pattern-preview-svg';
