@@ -29,6 +29,16 @@ describe('accounts and sessions', () => {
     expect(replay.body).toEqual({ error: 'Sign in first', details: null });
   });
 
+  it('answers /session with the user or null and a working CSRF token', async () => {
+    const c = await Client.create(t.app);
+    const anon = await c.get('/api/auth/session').expect(200);
+    expect(anon.body.user).toBeNull();
+    await c.signUp('sess@example.test', 'quilter');
+    const signed = await c.get('/api/auth/session').expect(200);
+    expect(signed.body.user).toMatchObject({ email: 'sess@example.test', role: 'quilter' });
+    await c.agent.post('/api/auth/sign-out').set('X-CSRF-Token', signed.body.csrfToken).expect(200);
+  });
+
   it('sets an httpOnly SameSite session cookie', async () => {
     const c = await Client.create(t.app);
     const res = await c.post('/api/auth/sign-up', {

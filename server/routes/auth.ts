@@ -72,6 +72,11 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     res.json({ csrfToken: csrf.issue(req, res) });
   });
 
+  // For the app's start: who is signed in (or null, without a 401 in the browser console) and a token.
+  router.get('/session', (req, res) => {
+    res.json({ user: req.user ? publicUser(req.user) : null, csrfToken: csrf.issue(req, res) });
+  });
+
   router.get('/me', requireUser, (req, res) => {
     res.json({ user: publicUser(currentUser(req)) });
   });
