@@ -1,6 +1,7 @@
 import type { CliCommand } from '../cli-types';
 import { checkCommand } from './check-command';
 import { cuttingListCommand } from './cutting-list-command';
+import { printCommand } from './print-command';
 import { schemaCommand } from './schema-command';
 
 /*
@@ -17,5 +18,6 @@ import { schemaCommand } from './schema-command';
 export const commands: readonly CliCommand[] = [
   checkCommand,
   cuttingListCommand,
+  printCommand,
   schemaCommand,
 ];

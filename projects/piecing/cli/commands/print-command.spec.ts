@@ -1,0 +1,67 @@
+import { mkdtemp, readFile, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { CliIo } from '../cli-types';
+import { runCli } from '../main';
+
+const repoRoot = fileURLToPath(new URL('../../../..', import.meta.url));
+
+async function run(...argv: string[]) {
+  let out = '';
+  let err = '';
+  const io: CliIo = { out: (t) => (out += t), err: (t) => (err += t), cwd: repoRoot };
+  const code = await runCli(argv, io);
+  return { code, out, err };
+}
+
+describe('seamwright print', () => {
+  let dir: string;
+  beforeAll(async () => {
+    dir = await mkdtemp(join(tmpdir(), 'seamwright-print-'));
+  });
+  afterAll(async () => {
+    await rm(dir, { recursive: true, force: true });
+  });
+
+  it('writes an A4 print set that pdfjs-dist reads, at 210 × 297 mm (ISO 216)', async () => {
+    const out = join(dir, 'lantern.pdf');
+    const { code, out: text, err } = await run('print', 'docs/examples/straight-block-three-sections.json', '--paper', 'a4', '--out', out);
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    expect(text).toMatch(/Lantern Block: \d+ sheets written to .*lantern\.pdf \(templates: \d+ sheets? \(at least \d+ by area\); mirrored, a4\)/);
+    const pdf = await pdfjs.getDocument({ data: new Uint8Array(await readFile(out)), verbosity: 0 }).promise;
+    const page = await pdf.getPage(1);
+    // 210 mm and 297 mm at 72 pt per inch, 25.4 mm per inch.
+    expect(page.view[2]).toBeCloseTo((210 / 25.4) * 72, 2);
+    expect(page.view[3]).toBeCloseTo((297 / 25.4) * 72, 2);
+    await pdf.destroy();
+  });
+
+  it('says "as seen from the front" with --front and writes the same bytes twice', async () => {
+    const a = join(dir, 'a.pdf');
+    const b = join(dir, 'b.pdf');
+    const first = await run('print', 'docs/examples/arc-ring-with-strip-set.json', '--front', '--out', a, '--margin', '0.75');
+    expect(first.code).toBe(0);
+    expect(first.out).toContain('as seen from the front, letter');
+    await run('print', 'docs/examples/arc-ring-with-strip-set.json', '--front', '--out', b, '--margin', '0.75');
+    expect(Buffer.compare(await readFile(a), await readFile(b))).toBe(0);
+  });
+
+  it('rejects a paper it does not know and a missing --out, with usage', async () => {
+    const bad = await run('print', 'docs/examples/arc-ring-with-strip-set.json', '--paper', 'b5', '--out', join(dir, 'x.pdf'));
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/paper/);
+    const noOut = await run('print', 'docs/examples/arc-ring-with-strip-set.json');
+    expect(noOut.code).toBe(2);
+    expect(noOut.err).toContain('usage: seamwright print');
+  });
+
+  it('reports an invalid pattern file as invalid input', async () => {
+    const r = await run('print', 'no-such-file.json', '--out', join(dir, 'y.pdf'));
+    expect(r.code).toBe(1);
+    expect(r.err).toContain('no such file');
+  });
+});
