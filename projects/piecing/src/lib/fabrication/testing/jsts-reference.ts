@@ -32,6 +32,11 @@ export function jstsBufferParameters(join: 'mitre' | 'round', mitreLimit = 4, qu
   return params;
 }
 
+/** The jsts buffer of a jsts polygon built already (see {@link toJstsPolygon}) by `distanceIn`. */
+export function jstsBufferPolygon(polygon: ReturnType<typeof toJstsPolygon>, distanceIn: number, params = jstsBufferParameters('mitre')) {
+  return BufferOp.bufferOp(polygon, distanceIn, params);
+}
+
 /** The jsts buffer of a ring by `distanceIn`. */
 export function jstsBuffer(points: readonly Point[], distanceIn: number, params = jstsBufferParameters('mitre')) {
   return BufferOp.bufferOp(toJstsPolygon(points), distanceIn, params);
