@@ -218,3 +218,82 @@ export type Member = typeof members.$inferSelect;
 export type Invitation = typeof invitations.$inferSelect;
 export type Upload = typeof uploads.$inferSelect;
 export type PrintSet = typeof printSets.$inferSelect;
+
+// ---- Pattern shop (issue 9) ----
+
+/** Currencies a shop may sell in (ISO 4217, lower-case as the payment provider writes them). */
+export const SHOP_CURRENCIES = ['usd', 'eur', 'gbp', 'cad', 'aud', 'nzd', 'chf', 'sek', 'nok', 'dkk', 'jpy'] as const;
+export type ShopCurrency = (typeof SHOP_CURRENCIES)[number];
+
+export const ORDER_STATUSES = ['pending', 'paid', 'refunded', 'expired'] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+
+/** A designer's shop: one currency for every listing in it. */
+export const shops = sqliteTable('shops', {
+  ownerId: text('owner_id')
+    .primaryKey()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  currency: text('currency', { enum: SHOP_CURRENCIES }).notNull(),
+  createdAt: createdAt(),
+  updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+});
+
+/** A pattern offered in its owner's shop; the price is in minor units of the shop's currency. */
+export const shopListings = sqliteTable('shop_listings', {
+  patternId: text('pattern_id')
+    .primaryKey()
+    .references(() => patterns.id, { onDelete: 'cascade' }),
+  priceMinor: integer('price_minor').notNull(),
+  description: text('description').notNull(),
+  /** Set while the listing is published; null when withdrawn or never published. */
+  publishedAt: integer('published_at', { mode: 'timestamp_ms' }),
+  createdAt: createdAt(),
+  updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+});
+
+/** One purchase of a pattern: a checkout session at the payment provider and what came of it. */
+export const orders = sqliteTable(
+  'orders',
+  {
+    id: text('id').primaryKey(),
+    buyerId: text('buyer_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    sellerId: text('seller_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    /** Null once the pattern is deleted for good; the title stays for the records. */
+    patternId: text('pattern_id').references(() => patterns.id, { onDelete: 'set null' }),
+    patternTitle: text('pattern_title').notNull(),
+    amountMinor: integer('amount_minor').notNull(),
+    currency: text('currency', { enum: SHOP_CURRENCIES }).notNull(),
+    status: text('status', { enum: ORDER_STATUSES }).notNull(),
+    checkoutSessionId: text('checkout_session_id').unique(),
+    paymentIntentId: text('payment_intent_id'),
+    refundId: text('refund_id'),
+    /** Whether paying this order added the buyer as a quilter (so a refund takes only that away). */
+    grantedAccess: integer('granted_access', { mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+    paidAt: integer('paid_at', { mode: 'timestamp_ms' }),
+    refundRequestedAt: integer('refund_requested_at', { mode: 'timestamp_ms' }),
+    refundedAt: integer('refunded_at', { mode: 'timestamp_ms' }),
+    receiptSentAt: integer('receipt_sent_at', { mode: 'timestamp_ms' }),
+  },
+  (t) => [
+    index('orders_buyer_idx').on(t.buyerId),
+    index('orders_seller_idx').on(t.sellerId),
+    index('orders_pattern_idx').on(t.patternId),
+    index('orders_payment_intent_idx').on(t.paymentIntentId),
+  ],
+);
+
+/** Payment-provider webhook events already handled (each is acted on once). */
+export const paymentEvents = sqliteTable('payment_events', {
+  eventId: text('event_id').primaryKey(),
+  type: text('type').notNull(),
+  receivedAt: integer('received_at', { mode: 'timestamp_ms' }).notNull(),
+});
+
+export type Shop = typeof shops.$inferSelect;
+export type ShopListing = typeof shopListings.$inferSelect;
+export type Order = typeof orders.$inferSelect;
