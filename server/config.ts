@@ -40,6 +40,11 @@ const envSchema = z.object({
   PRINT_TIMEOUT_SECONDS: intFromEnv(900, 5, 86_400),
   /** bcrypt cost factor (2^n rounds); 12 is a common default, tests use 4. */
   BCRYPT_ROUNDS: intFromEnv(12, 4, 15),
+  /** Payment provider (the shop): secret API key and webhook signing secret; the shop is off without them. */
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  /** Where the provider's API answers, e.g. the local fake `http://127.0.0.1:12111`; unset = the real service. */
+  STRIPE_API_BASE: z.url().optional(),
 });
 
 /** The server's settings, read once from the environment. */
@@ -70,6 +75,12 @@ export interface Config {
   bcryptRounds: number;
   /** Whether cookies carry the Secure flag (when the public URL is https). */
   secureCookies: boolean;
+  /** Payment provider settings; `api` is null for the real service's default host. */
+  stripe: {
+    secretKey: string | undefined;
+    webhookSecret: string | undefined;
+    api: { host: string; port: number; protocol: 'http' | 'https' } | null;
+  };
 }
 
 /** Thrown when the environment holds a setting that cannot be used. */
@@ -112,5 +123,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
     printTimeoutSeconds: e.PRINT_TIMEOUT_SECONDS,
     bcryptRounds: e.BCRYPT_ROUNDS,
     secureCookies: publicUrl.startsWith('https://'),
+    stripe: {
+      secretKey: e.STRIPE_SECRET_KEY,
+      webhookSecret: e.STRIPE_WEBHOOK_SECRET,
+      api: e.STRIPE_API_BASE ? stripeApi(e.STRIPE_API_BASE) : null,
+    },
   };
+}
+
+/** Host, port and protocol of the payment provider's API from a base URL. */
+function stripeApi(base: string): { host: string; port: number; protocol: 'http' | 'https' } {
+  const u = new URL(base);
+  const protocol = u.protocol === 'http:' ? 'http' : 'https';
+  return { host: u.hostname, port: u.port ? Number(u.port) : protocol === 'http' ? 80 : 443, protocol };
 }
