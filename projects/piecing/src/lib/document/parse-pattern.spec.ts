@@ -72,6 +72,13 @@ describe('parsePatternDocument', () => {
     expect(issuesOf((d) => (d.sections[0].seams[0].b = { x: 2, y: 0 }))).toEqual([{ path: 'sections.0.seams.0', message: 'seam "s1" has no length: both ends at (2, 0)' }]);
   });
 
+  it('rejects an arc or wedge that reaches past the size limit', () => {
+    expect(issuesOf((d) => (d.sections[1].geometry.centre = { x: 150, y: 10 }))).toEqual([]);
+    expect(issuesOf((d) => {
+      d.sections[1].geometry.centre = { x: 198, y: 10 };
+    })).toEqual([{ path: 'sections.1.geometry.outerRadiusIn', message: 'a circle of radius 3 in. about (198, 10) reaches 201 in. from the origin, beyond the ±200 in. limit' }]);
+  });
+
   it('explains a wrong or future format version and a non-object', () => {
     expect(issuesOf((d) => (d.formatVersion = 2))).toEqual([{ path: 'formatVersion', message: 'version 2 is newer than this program reads (1)' }]);
     expect(issuesOf((d) => delete d.formatVersion)[0].path).toBe('formatVersion');

@@ -3,7 +3,8 @@ import { polygonArea } from '../geometry/polygon';
 import { findSelfCrossing } from '../geometry/self-crossing';
 import { formatPoint } from '../geometry/vector';
 import { GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN } from '../tolerance';
-import type { Section } from './pattern-schema';
+// pattern-schema.ts imports this module too; MAX_SIZE_IN is read only inside functions, so the cycle is harmless.
+import { MAX_SIZE_IN, type Section } from './pattern-schema';
 
 /** A geometry problem in a document: a path (as in zod issues) and a message. */
 export interface GeometryIssue {
@@ -33,6 +34,18 @@ export function validateSectionGeometry(section: Pick<Section, 'geometry' | 'sea
       });
     } else if (ring.length < 3 || polygonArea(ring) < MIN_PATCH_AREA_SQ_IN) {
       issues.push({ path, message: 'outline has no area: its vertices lie on one line or repeat' });
+    }
+  }
+  if (section.geometry.kind !== 'straight') {
+    // A circle may sit anywhere, but no part of it may reach past the size limit.
+    const g = section.geometry;
+    const radiusIn = g.kind === 'arc' ? g.outerRadiusIn : g.radiusIn;
+    const reach = Math.max(Math.abs(g.centre.x) + radiusIn, Math.abs(g.centre.y) + radiusIn);
+    if (reach > MAX_SIZE_IN) {
+      issues.push({
+        path: [...base, 'geometry', g.kind === 'arc' ? 'outerRadiusIn' : 'radiusIn'],
+        message: `a circle of radius ${radiusIn} in. about ${formatPoint(g.centre)} reaches ${Math.round(reach * 1000) / 1000} in. from the origin, beyond the ±${MAX_SIZE_IN} in. limit`,
+      });
     }
   }
   (section.seams ?? []).forEach((seam, j) => {

@@ -112,3 +112,12 @@ export function locatePoint(p: Point, ring: readonly Point[], toleranceIn = GEOM
 export function pointInPolygon(p: Point, ring: readonly Point[], toleranceIn = GEOMETRY_EPSILON_IN): boolean {
   return locatePoint(p, ring, toleranceIn) !== 'outside';
 }
+
+/**
+ * The ring wound so its signed area is positive (turning from +x towards +y: clockwise on screen,
+ * where y points down). Returns a new array; a ring already wound that way comes back as a copy.
+ */
+export function withPositiveWinding(ring: readonly Point[]): Point[] {
+  const copy = ring.map((p) => ({ x: p.x, y: p.y }));
+  return signedArea(ring) < 0 ? copy.reverse() : copy;
+}

@@ -69,3 +69,16 @@ describe('flattenSectionOutline', () => {
     expect(flattenSectionRings(arc).holes).toEqual([]);
   });
 });
+
+describe('outline winding', () => {
+  it('gives every outline positive signed area, whatever the winding of the document', () => {
+    const clockwiseInMath = [{ x: 0, y: 0 }, { x: 0, y: 2 }, { x: 3, y: 2 }, { x: 3, y: 0 }];
+    expect(signedArea(clockwiseInMath)).toBe(-6);
+    const ring = flattenSectionOutline({ kind: 'straight', vertices: clockwiseInMath });
+    expect(signedArea(ring)).toBe(6);
+    expect(ring).toEqual([{ x: 3, y: 0 }, { x: 3, y: 2 }, { x: 0, y: 2 }, { x: 0, y: 0 }]);
+    expect(signedArea(flattenSectionOutline(wedge))).toBeGreaterThan(0);
+    expect(signedArea(flattenSectionOutline({ ...arc, sweepDeg: 360 }))).toBeGreaterThan(0);
+    expect(signedArea(flattenSectionOutline({ ...wedge, sweepDeg: 300 }))).toBeGreaterThan(0);
+  });
+});

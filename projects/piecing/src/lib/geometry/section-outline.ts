@@ -2,6 +2,7 @@ import type { ArcGeometry, Point, SectionGeometry, WedgeGeometry } from '../docu
 import { CHORD_TOLERANCE_IN } from '../tolerance';
 import { flattenArc } from './arc';
 import { cleanRing } from './clean-ring';
+import { withPositiveWinding } from './polygon';
 import { degToRad } from './vector';
 
 /** A flattened outline as an outer ring with holes (only a full 360° arc section has one). */
@@ -19,6 +20,9 @@ export function isFullTurn(sweepDeg: number): boolean {
  * The section outline as one closed ring of points (the closing point is not repeated), with arcs
  * flattened to chords within `toleranceIn`. Vertices of flattened arcs lie on the exact arcs.
  *
+ * Every outline comes back with positive signed area ({@link signedArea}: turning from +x towards +y,
+ * clockwise on screen), whatever the winding of the document's vertices.
+ *
  * - straight: the document vertices, cleaned (duplicates and collinear points dropped);
  * - arc: the outer arc from the start angle through the sweep, then the inner arc back;
  * - wedge: the centre, then the arc from the start angle through the sweep.
@@ -32,7 +36,7 @@ export function isFullTurn(sweepDeg: number): boolean {
 export function flattenSectionOutline(geometry: SectionGeometry, toleranceIn = CHORD_TOLERANCE_IN): Point[] {
   switch (geometry.kind) {
     case 'straight':
-      return cleanRing(geometry.vertices);
+      return withPositiveWinding(cleanRing(geometry.vertices));
     case 'arc':
       return flattenArcOutline(geometry, toleranceIn);
     case 'wedge':
