@@ -90,3 +90,37 @@ export function tinyDocument(title = 'Tiny square'): PatternDocumentInput {
     ],
   };
 }
+
+/** Section letters as quilters write them: A … Z, AA, AB … */
+export function sectionLabel(i: number): string {
+  let s = '';
+  let n = i;
+  do {
+    s = String.fromCharCode(65 + (n % 26)) + s;
+    n = Math.floor(n / 26) - 1;
+  } while (n >= 0);
+  return s;
+}
+
+/**
+ * A document whose print set has about two template sheets per section on Letter paper: `count`
+ * straight sections of 6.5 × 9 in. (with ¼ in. seam allowance they do not fit one 7.5 × 10 in.
+ * printable area with the sheet frame, so each is tiled over two sheets), each split by one seam.
+ */
+export function manySheetsDocument(count: number, title = 'Many sheets'): PatternDocumentInput {
+  const sections = Array.from({ length: count }, (_, i) => {
+    const x = (i % 10) * 8;
+    const y = Math.floor(i / 10) * 10;
+    return {
+      id: `s${i}`,
+      label: sectionLabel(i),
+      geometry: { kind: 'straight' as const, vertices: [{ x, y }, { x: x + 6.5, y }, { x: x + 6.5, y: y + 9 }, { x, y: y + 9 }] },
+      seams: [{ id: 'm', a: { x: x + 3, y }, b: { x: x + 3.5, y: y + 9 } }],
+      patches: [
+        { number: 1, anchor: { x: x + 1, y: y + 4 } },
+        { number: 2, anchor: { x: x + 5, y: y + 4 } },
+      ],
+    };
+  });
+  return { formatVersion: 1, title, canvas: { widthIn: 80, heightIn: Math.ceil(count / 10) * 10 }, sections };
+}

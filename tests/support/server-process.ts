@@ -200,7 +200,13 @@ export async function startServerProcess(options: StartServerOptions = {}): Prom
     return result;
   };
 
-  await spawnOnce();
+  try {
+    await spawnOnce();
+  } catch (err) {
+    if (ownMail) await mail.close();
+    if (ownDataDir && !options.keepDataDir) fs.rmSync(dataDir, { recursive: true, force: true });
+    throw err;
+  }
 
   return {
     baseUrl,
