@@ -126,13 +126,26 @@ export default async function sewabilityBench(): Promise<BenchSection> {
   const check = await timeRuns(() => checkSewability(fanPatches), 9, 2);
   rows.push({ section: 'derivePatches, arc fan (19 seams)', 'findSewableOrder median ms': ms(derive.medianMs), verdict: `${fanPatches.length} patches` });
   rows.push({ section: 'checkSewability, arc fan, given order', 'findSewableOrder median ms': ms(check.medianMs), verdict: checkSewability(fanPatches).sewable ? 'sewable' : 'not sewable' });
+  // A large section for scale: a 360° wedge of radius 199 in. cut by 500 parallel seams (501 patches).
+  const strips: Section = {
+    id: 'big',
+    label: 'Z',
+    geometry: { kind: 'wedge', centre: { x: 0, y: 0 }, radiusIn: 199, startAngleDeg: 0, sweepDeg: 360 },
+    seams: Array.from({ length: 500 }, (_, i) => ({ id: `s${i}`, a: { x: -199 + (i + 0.5) * (398 / 500), y: -200 }, b: { x: -199 + (i + 0.5) * (398 / 500), y: 200 } })),
+    patches: [],
+  };
+  const bigDerive = await timeRuns(() => derivePatches(strips), 3, 1);
+  const bigPatches = derivePatches(strips).patches;
+  const bigSearch = await timeRuns(() => findSewableOrder(bigPatches), 3, 1);
+  rows.push({ section: 'derivePatches, 500 seams across a 199 in. circle', 'findSewableOrder median ms': ms(bigDerive.medianMs), verdict: `${bigPatches.length} patches` });
+  rows.push({ section: 'findSewableOrder, those 501 patches', 'findSewableOrder median ms': ms(bigSearch.medianMs), verdict: findSewableOrder(bigPatches).found ? 'sewable' : 'not sewable' });
   return {
     title: 'Sewability: order search on 20-patch sections',
     rows,
     notes: [
       'Remove-last-patch search with memo over subsets (design.md §5.3); the unsewable case has to rule out every order.',
       '"contacts" is the precomputation of shared edges and sides between all pairs of patches; findSewableOrder includes it.',
-      'Medians of 9 runs after 2 warm-up runs, one process.',
+      'Medians of 9 runs after 2 warm-up runs (3 after 1 for the 501-patch rows), one process.',
     ],
   };
 }

@@ -33,6 +33,9 @@ export async function readPatternFile(path: string, cwd: string): Promise<Patter
 export function splitArgs(args: readonly string[]): { flags: Set<string>; positional: string[] } {
   const flags = new Set<string>();
   const positional: string[] = [];
-  for (const a of args) (a.startsWith('--') ? flags.add(a) : positional.push(a));
+  for (const a of args) {
+    if (a.startsWith('--')) flags.add(a);
+    else positional.push(a);
+  }
   return { flags, positional };
 }

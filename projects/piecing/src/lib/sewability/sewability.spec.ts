@@ -150,7 +150,7 @@ function logCabin(count: number): DerivedPatch[] {
   for (let i = 1; i < count; i++) {
     const w = 0.5;
     const side = i % 4;
-    let next = { ...box };
+    const next = { ...box };
     if (side === 1) { polygons.push(rect(box.x1, box.y0, box.x1 + w, box.y1)); next.x1 += w; }
     if (side === 2) { polygons.push(rect(box.x0, box.y1, box.x1, box.y1 + w)); next.y1 += w; }
     if (side === 3) { polygons.push(rect(box.x0 - w, box.y0, box.x0, box.y1)); next.x0 -= w; }
