@@ -111,6 +111,17 @@ describe('derivePatches', () => {
     expect(problems.map((p) => [p.kind, p.patchNumber])).toEqual([['anchor-shared', 7], ['anchor-outside', 9]]);
   });
 
+  it('splits corner to corner and along the continuation of an edge', () => {
+    const diagonal = derivePatches(section({ seams: [{ id: 'd', a: { x: 0, y: 0 }, b: { x: 6, y: 6 } }] }));
+    expect(diagonal.problems).toEqual([]);
+    expect(diagonal.patches.map((p) => [p.polygon.length, polygonArea(p.polygon)])).toEqual([[3, 18], [3, 18]]);
+    // An L whose inner edge y = 2 is carried on across the inside by the seam.
+    const ell: Section['geometry'] = { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 2 }, { x: 2, y: 2 }, { x: 2, y: 4 }, { x: 0, y: 4 }] };
+    const along = derivePatches(section({ geometry: ell, seams: [{ id: 'e', a: { x: 4, y: 2 }, b: { x: 0, y: 2 } }] }));
+    expect(along.problems).toEqual([]);
+    expect(along.patches.map((p) => polygonArea(p.polygon)).sort((a, b) => a - b)).toEqual([4, 8]);
+  });
+
   it('splits a U-shaped patch crossed twice by one seam into three', () => {
     const u: Section['geometry'] = { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 1, y: 3 }, { x: 2, y: 3 }, { x: 2, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 4 }, { x: 0, y: 4 }] };
     const { patches, problems } = derivePatches(section({ geometry: u, seams: [{ id: 's', a: { x: 0, y: 1 }, b: { x: 3, y: 1 } }] }));
