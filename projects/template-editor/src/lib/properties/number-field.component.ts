@@ -21,7 +21,7 @@ export function readNumberField(text: string, kind: NumberFieldKind, unit: Board
     value = Number(t);
     if (kind === 'count' && !Number.isInteger(value)) return { ok: false, message: 'enter a whole number' };
   }
-  const show = (v: number) => (kind === 'length' ? (unit === 'cm' ? formatCentimetres(v) : formatInches(v)) : kind === 'angle' ? `${v}°` : String(v));
+  const show = (v: number) => (kind === 'length' ? (unit === 'cm' ? formatCentimetres(v) : formatInches(v, { denominator: 32 })) : kind === 'angle' ? `${v}°` : String(v));
   if (value < min) return { ok: false, message: `must be at least ${show(min)}` };
   if (value > max) return { ok: false, message: `must be at most ${show(max)}` };
   return { ok: true, value };
