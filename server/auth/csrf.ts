@@ -50,6 +50,7 @@ export function createCsrf(config: Config): Csrf {
   });
   return {
     protect: doubleCsrfProtection,
-    issue: (req, res) => generateCsrfToken(req, res, { overwrite: true }),
+    // Reuse the cookie's token while it fits the session, so parallel requests never invalidate each other.
+    issue: (req, res) => generateCsrfToken(req, res, { overwrite: false, validateOnReuse: false }),
   };
 }

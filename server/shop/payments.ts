@@ -1,0 +1,31 @@
+import Stripe from 'stripe';
+import type { Config } from '../config';
+import { HttpError } from '../http/errors';
+
+/** The payment provider as the shop uses it: the official SDK client and the webhook secret. */
+export interface Payments {
+  stripe: Stripe;
+  webhookSecret: string;
+}
+
+/**
+ * The SDK client from the settings, or null when the shop has no keys. `config.stripe.api` points the
+ * SDK at another host (the local fake on loopback); without it the SDK talks to the real service.
+ */
+export function createPayments(config: Pick<Config, 'stripe'>): Payments | null {
+  const { secretKey, webhookSecret, api } = config.stripe;
+  if (!secretKey || !webhookSecret) return null;
+  const stripe = new Stripe(secretKey, {
+    ...(api ? { host: api.host, port: api.port, protocol: api.protocol } : {}),
+    maxNetworkRetries: 2,
+    timeout: 20_000,
+    appInfo: { name: 'Seamwright' },
+  });
+  return { stripe, webhookSecret };
+}
+
+/** The payments client, or 503 when the server has no payment keys. */
+export function requirePayments(payments: Payments | null): Payments {
+  if (!payments) throw new HttpError(503, 'Payments are not set up on this server');
+  return payments;
+}
