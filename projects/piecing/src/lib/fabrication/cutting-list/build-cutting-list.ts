@@ -40,6 +40,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
   const pieceGroups = new Map<string, Map<string, CuttingListPieceGroup>>();
   const stripSetUses = new Map<string, StripSetUse>();
   const offsetter = new PolygonOffsetter();
+  const stripSetRows: Array<{ row: CuttingListPatch; key: string }> = [];
 
   for (const section of document.sections) {
     const copies = (section.ringRepeat?.count ?? 1) * blocks;
@@ -57,7 +58,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
         if (!layout.coversPatch) {
           problems.push({ sectionId: section.id, patchLabel: patch.label, message: `strip set "${patch.stripSet.id}" is narrower than patch ${patch.label} across its strips: widen the outer strips` });
         }
-        patches.push({
+        const row: CuttingListPatch = {
           sectionId: section.id,
           sectionLabel: section.label,
           patchLabel: patch.label,
@@ -68,7 +69,9 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
           cutLengthIn: Math.max(layout.sewnWidthIn, layout.subCutLengthIn),
           rectangleAngleDeg: layout.axisAngleDeg,
           count: copies,
-        });
+        };
+        patches.push(row);
+        stripSetRows.push({ row, key });
         continue;
       }
       const cut = patchRoughCut(patch.polygon, allowanceIn, marginIn, offsetter);
@@ -111,16 +114,26 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
   const fabricsById = new Map(document.fabrics.map((f) => [f.id, f]));
   const stripSets: CuttingListStripSet[] = [];
   const stripSetStrips = new Map<string, CuttingListStripSetStrips[]>();
-  for (const use of stripSetUses.values()) {
+  const idsSeen = new Map<string, number>();
+  const listIds = new Map<string, string>();
+  for (const [key, use] of stripSetUses) {
+    // One id used for different strips makes separate sets; the list keeps their ids apart.
+    const seen = (idsSeen.get(use.stripSet.id) ?? 0) + 1;
+    idsSeen.set(use.stripSet.id, seen);
+    const listId = seen === 1 ? use.stripSet.id : `${use.stripSet.id}-${seen}`;
+    listIds.set(key, listId);
+    if (seen > 1) {
+      problems.push({ sectionId: null, patchLabel: use.patchLabels[0] ?? null, message: `strip set id "${use.stripSet.id}" is used for different strips; listed as "${listId}" for ${[...new Set(use.patchLabels)].join(', ')}` });
+    }
     const wof = Math.min(...use.stripSet.strips.map((s) => fabricsById.get(s.fabricId)?.usableWofIn ?? 42));
     let subCutsPerSet = Math.floor(wof / use.subCutLengthIn + 1e-9);
     if (subCutsPerSet < 1) {
-      problems.push({ sectionId: null, patchLabel: use.patchLabels[0] ?? null, message: `strip set "${use.stripSet.id}": its sub-cut of ${use.subCutLengthIn} in. is longer than the usable WOF (${wof} in.); sew the strips along the length of the fabric` });
+      problems.push({ sectionId: null, patchLabel: use.patchLabels[0] ?? null, message: `strip set "${listId}": its sub-cut of ${use.subCutLengthIn} in. is longer than the usable WOF (${wof} in.); sew the strips along the length of the fabric` });
       subCutsPerSet = 1;
     }
     const setCount = Math.ceil(use.count / subCutsPerSet);
     stripSets.push({
-      stripSetId: use.stripSet.id,
+      stripSetId: listId,
       name: use.stripSet.name ?? null,
       strips: use.stripSet.strips.map((s) => ({ fabricId: s.fabricId, finishedWidthIn: s.finishedWidthIn, cutWidthIn: s.finishedWidthIn + 2 * allowanceIn })),
       sewnWidthIn: use.sewnWidthIn,
@@ -132,10 +145,12 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
     });
     use.stripSet.strips.forEach((s, stripIndex) => {
       const list = stripSetStrips.get(s.fabricId) ?? [];
-      list.push({ stripSetId: use.stripSet.id, stripIndex, finishedWidthIn: s.finishedWidthIn, cutWidthIn: s.finishedWidthIn + 2 * allowanceIn, stripCount: setCount });
+      list.push({ stripSetId: listId, stripIndex, finishedWidthIn: s.finishedWidthIn, cutWidthIn: s.finishedWidthIn + 2 * allowanceIn, stripCount: setCount });
       stripSetStrips.set(s.fabricId, list);
     });
   }
+
+  for (const { row, key } of stripSetRows) row.stripSetId = listIds.get(key) ?? row.stripSetId;
 
   const fabrics = document.fabrics.map((f) => fabricCuts(f, [...(pieceGroups.get(f.id)?.values() ?? [])], stripSetStrips.get(f.id) ?? [], problems));
   return {

@@ -250,3 +250,25 @@ describe('buildCuttingList', () => {
     expect(list.fabrics[0].pieceCount).toBe(15);
   });
 });
+
+describe('buildCuttingList with one strip-set id for different strips', () => {
+  it('keeps the sets apart, with distinct ids, and says so', () => {
+    const stripe = (widths: number[]) => ({ id: 'stripe', strips: widths.map((w) => ({ fabricId: 'plum', finishedWidthIn: w })), axisAngleDeg: 0 });
+    const square = (x: number) => [{ x, y: 0 }, { x: x + 3, y: 0 }, { x: x + 3, y: 3 }, { x, y: 3 }];
+    const list = buildCuttingList(
+      readPatternDocument({
+        formatVersion: 1,
+        title: 'Two stripes',
+        canvas: { widthIn: 10, heightIn: 4 },
+        fabrics: [{ id: 'plum', name: 'Plum', colour: '#6d3b5e' }],
+        sections: [
+          { id: 'a', label: 'A', geometry: { kind: 'straight', vertices: square(0) }, patches: [{ number: 1, anchor: { x: 1.5, y: 1.5 }, stripSet: stripe([1.5, 1.5]) }] },
+          { id: 'b', label: 'B', geometry: { kind: 'straight', vertices: square(4) }, patches: [{ number: 1, anchor: { x: 5.5, y: 1.5 }, stripSet: stripe([1, 1, 1]) }] },
+        ],
+      }),
+    );
+    expect(list.stripSets.map((s) => s.stripSetId)).toEqual(['stripe', 'stripe-2']);
+    expect(list.patches.map((p) => p.stripSetId)).toEqual(['stripe', 'stripe-2']);
+    expect(list.problems.map((p) => p.message)).toEqual(['strip set id "stripe" is used for different strips; listed as "stripe-2" for B1']);
+  });
+});
