@@ -16,6 +16,7 @@ import { printSetsRouter } from './routes/print-sets';
 import { revisionsRouter } from './routes/revisions';
 import { sewingLogRouter } from './routes/sewing-log';
 import { uploadsRouter } from './routes/uploads';
+import { mountShop } from './shop/mount-shop';
 
 /** Builds the Express app: security headers, JSON, the API under /api, the built app, errors. */
 export function createApp(ctx: AppContext): Express {
@@ -46,6 +47,7 @@ export function createApp(ctx: AppContext): Express {
   api.use('/patterns/:id/print-sets', printSetsRouter(ctx));
   api.use('/patterns/:id', membersRouter(ctx));
   api.use('/patterns', patternsRouter(ctx));
+  mountShop(app, api, ctx);
   api.use(apiNotFound);
   app.use('/api', api);
 

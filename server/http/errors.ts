@@ -70,7 +70,7 @@ export function errorMiddleware(log: (err: unknown) => void): ErrorRequestHandle
  */
 function storageProblem(code: unknown): { status: number; message: string } | undefined {
   if (typeof code !== 'string') return undefined;
-  if (code === 'ENOSPC' || code === 'EDQUOT' || code === 'SQLITE_FULL') {
+  if (code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' || code === 'SQLITE_FULL') {
     return { status: 507, message: 'The server has no space left; nothing was stored' };
   }
   if (['EACCES', 'EPERM', 'EROFS', 'ENOTDIR'].includes(code) || code.startsWith('SQLITE_READONLY') || code.startsWith('SQLITE_IOERR') || code === 'SQLITE_CANTOPEN') {

@@ -20,15 +20,16 @@ export async function writeFileAtomic(file: string, data: Uint8Array): Promise<v
   const tmp = path.join(dir, `.${path.basename(file)}.${crypto.randomBytes(6).toString('hex')}.tmp`);
   const handle = await fs.promises.open(tmp, 'wx', 0o600);
   try {
-    await handle.writeFile(data);
-    await handle.sync();
-  } finally {
-    await handle.close();
-  }
-  try {
+    try {
+      await handle.writeFile(data);
+      await handle.sync();
+    } finally {
+      await handle.close();
+    }
     await fs.promises.rename(tmp, file);
   } catch (err) {
-    await fs.promises.rm(tmp, { force: true });
+    // A full disk or a size limit leaves a partial temporary file: remove it, keep nothing.
+    await fs.promises.rm(tmp, { force: true }).catch(() => undefined);
     throw err;
   }
   const dirHandle = await fs.promises.open(dir, 'r');

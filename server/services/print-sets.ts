@@ -182,7 +182,7 @@ export class PrintSetService {
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
       this.log('print set could not be stored', err);
-      this.fail(setId, code === 'ENOSPC' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
+      this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
       return;
     }
     const updated = this.update(setId, {

@@ -1,0 +1,207 @@
+import { and, count, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser, requireUser } from '../auth/sessions';
+import type { DbLike } from '../db/database';
+import { members, orders, patterns, revisions, SHOP_CURRENCIES, shopListings, shops, users, type User } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { likeContains, pagingQuery } from '../http/paging';
+import { idSchema, parseOr400 } from '../http/validate';
+import { canDesign, resolvePatternAccess, type Access } from '../services/access';
+import { MAX_PRICE_MINOR, MIN_PRICE_MINOR } from './money';
+import { listingJson } from './shop-json';
+
+const browseQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
+const shopBody = z.strictObject({ currency: z.enum(SHOP_CURRENCIES) });
+const listingBody = z.strictObject({
+  priceMinor: z.number().int().min(MIN_PRICE_MINOR).max(MAX_PRICE_MINOR),
+  description: z.string().trim().min(1, 'is required').max(2000),
+  published: z.boolean(),
+});
+
+/** The listing of a pattern with what a page about it needs; undefined when there is none. */
+export function findListing(db: DbLike, patternId: string) {
+  return db
+    .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName, document: revisions.document })
+    .from(shopListings)
+    .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
+    .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
+    .innerJoin(users, eq(users.id, patterns.ownerId))
+    .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)))
+    .where(eq(shopListings.patternId, patternId))
+    .get();
+}
+
+/** A listing any signed-in user may see: published, of a pattern not in the trash. */
+export function findPublishedListing(db: DbLike, patternId: string) {
+  const found = findListing(db, patternId);
+  return found && found.listing.publishedAt && !found.pattern.trashedAt ? found : undefined;
+}
+
+/** The user's access to a pattern without throwing: owner, member access, or null. */
+export function accessOf(db: DbLike, user: User, pattern: { id: string; ownerId: string }): Access | null {
+  if (pattern.ownerId === user.id) return 'owner';
+  const m = db
+    .select({ access: members.access })
+    .from(members)
+    .where(and(eq(members.patternId, pattern.id), eq(members.userId, user.id)))
+    .get();
+  return m?.access ?? null;
+}
+
+const listingNotFound = () => new HttpError(404, 'Listing not found');
+
+/** `/api/shop` browsing and publishing: published listings, one listing, a designer's shop settings. */
+export function listingsRouter(ctx: AppContext): Router {
+  const { db } = ctx;
+  const router = express.Router();
+  router.use(requireUser);
+
+  router.get('/listings', (req, res) => {
+    const user = currentUser(req);
+    const q = parseOr400(browseQuery, req.query, 'Invalid query');
+    const published = and(isNotNull(shopListings.publishedAt), isNull(patterns.trashedAt));
+    const where = q.q ? and(published, sql`${patterns.title} LIKE ${likeContains(q.q)} ESCAPE '\\'`) : published;
+    const base = () =>
+      db
+        .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName, document: revisions.document })
+        .from(shopListings)
+        .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
+        .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
+        .innerJoin(users, eq(users.id, patterns.ownerId))
+        .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)));
+    const total =
+      db
+        .select({ n: count() })
+        .from(shopListings)
+        .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
+        .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
+        .where(where)
+        .get()?.n ?? 0;
+    const rows = base()
+      .where(where)
+      .orderBy(desc(shopListings.publishedAt), desc(shopListings.patternId))
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize)
+      .all();
+    res.json({
+      items: rows.map((r) =>
+        listingJson(r.listing, {
+          title: r.pattern.title,
+          currency: r.currency,
+          designer: { id: r.pattern.ownerId, displayName: r.designerName },
+          document: r.document,
+          access: accessOf(db, user, r.pattern),
+        }),
+      ),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    });
+  });
+
+  router.get('/listings/:patternId', (req, res) => {
+    const user = currentUser(req);
+    const id = idSchema.safeParse(req.params.patternId);
+    if (!id.success) throw listingNotFound();
+    const found = findListing(db, id.data);
+    // The owner may look at their own listing before publishing it; everybody else sees only published ones.
+    const visible = found && (found.pattern.ownerId === user.id || (found.listing.publishedAt && !found.pattern.trashedAt));
+    if (!found || !visible) throw listingNotFound();
+    res.json({
+      listing: listingJson(found.listing, {
+        title: found.pattern.title,
+        currency: found.currency,
+        designer: { id: found.pattern.ownerId, displayName: found.designerName },
+        document: found.document,
+        access: accessOf(db, user, found.pattern),
+      }),
+    });
+  });
+
+  /** The signed-in designer's shop: its currency and every pattern they own with its listing. */
+  router.get('/mine', (req, res) => {
+    const user = currentUser(req);
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers have a shop');
+    const shop = db.select().from(shops).where(eq(shops.ownerId, user.id)).get();
+    const rows = db
+      .select({ pattern: patterns, listing: shopListings })
+      .from(patterns)
+      .leftJoin(shopListings, eq(shopListings.patternId, patterns.id))
+      .where(and(eq(patterns.ownerId, user.id), isNull(patterns.trashedAt)))
+      .orderBy(sql`${patterns.title} COLLATE NOCASE`, patterns.id)
+      .all();
+    const sold = db
+      .select({ patternId: orders.patternId, n: count() })
+      .from(orders)
+      .where(and(eq(orders.sellerId, user.id), eq(orders.status, 'paid')))
+      .groupBy(orders.patternId)
+      .all();
+    const soldBy = new Map(sold.map((s) => [s.patternId, s.n]));
+    res.json({
+      shop: shop ? { currency: shop.currency } : null,
+      patterns: rows.map((r) => ({
+        patternId: r.pattern.id,
+        title: r.pattern.title,
+        paidOrders: soldBy.get(r.pattern.id) ?? 0,
+        listing: r.listing
+          ? {
+              priceMinor: r.listing.priceMinor,
+              description: r.listing.description,
+              published: r.listing.publishedAt !== null,
+              publishedAt: r.listing.publishedAt ? r.listing.publishedAt.toISOString() : null,
+              updatedAt: r.listing.updatedAt.toISOString(),
+            }
+          : null,
+      })),
+    });
+  });
+
+  router.put('/mine', (req, res) => {
+    const user = currentUser(req);
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers have a shop');
+    const body = parseOr400(shopBody, req.body);
+    const now = new Date();
+    const shop = db
+      .insert(shops)
+      .values({ ownerId: user.id, currency: body.currency, createdAt: now, updatedAt: now })
+      .onConflictDoUpdate({ target: shops.ownerId, set: { currency: body.currency, updatedAt: now } })
+      .returning()
+      .get();
+    res.json({ shop: { currency: shop.currency } });
+  });
+
+  router.put('/listings/:patternId', (req, res) => {
+    const user = currentUser(req);
+    const { pattern } = resolvePatternAccess(db, user, req.params.patternId, 'owner');
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers can sell patterns');
+    const body = parseOr400(listingBody, req.body);
+    if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before listing it');
+    const shop = db.select().from(shops).where(eq(shops.ownerId, user.id)).get();
+    if (!shop) throw new HttpError(409, "Choose your shop's currency first", [{ path: 'currency', message: 'is not set' }]);
+    const now = new Date();
+    const existing = db.select().from(shopListings).where(eq(shopListings.patternId, pattern.id)).get();
+    const publishedAt = body.published ? (existing?.publishedAt ?? now) : null;
+    db.insert(shopListings)
+      .values({ patternId: pattern.id, priceMinor: body.priceMinor, description: body.description, publishedAt, createdAt: now, updatedAt: now })
+      .onConflictDoUpdate({
+        target: shopListings.patternId,
+        set: { priceMinor: body.priceMinor, description: body.description, publishedAt, updatedAt: now },
+      })
+      .run();
+    const found = findListing(db, pattern.id);
+    if (!found) throw new HttpError(500, 'Listing was not stored');
+    res.json({
+      listing: listingJson(found.listing, {
+        title: pattern.title,
+        currency: found.currency,
+        designer: { id: user.id, displayName: user.displayName },
+        document: found.document,
+        access: 'owner',
+      }),
+    });
+  });
+
+  return router;
+}

@@ -1,0 +1,179 @@
+import { and, count, desc, eq, inArray, or, sql } from 'drizzle-orm';
+import express, { type Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../app-context';
+import { currentUser, requireUser } from '../auth/sessions';
+import { newId } from '../auth/tokens';
+import { orders, users } from '../db/schema';
+import { HttpError } from '../http/errors';
+import { pagingQuery } from '../http/paging';
+import { idSchema, parseOr400 } from '../http/validate';
+import { canDesign } from '../services/access';
+import { accessOf, findPublishedListing } from './listings-router';
+import { requirePayments, type Payments } from './payments';
+import { orderJson } from './shop-json';
+
+const pageQuery = z.strictObject({ ...pagingQuery });
+const orderNotFound = () => new HttpError(404, 'Order not found');
+
+/** `/api/shop` buying and selling: checkout, the buyer's purchases, the designer's sales and refunds. */
+export function ordersRouter(ctx: AppContext, payments: Payments | null): Router {
+  const { db, config } = ctx;
+  const router = express.Router();
+  router.use(requireUser);
+
+  router.post('/listings/:patternId/checkout', async (req, res) => {
+    const user = currentUser(req);
+    const id = idSchema.safeParse(req.params.patternId);
+    const found = id.success ? findPublishedListing(db, id.data) : undefined;
+    if (!found) throw new HttpError(404, 'Listing not found');
+    const access = accessOf(db, user, found.pattern);
+    if (access === 'owner') throw new HttpError(409, 'This is your own pattern');
+    if (access) throw new HttpError(409, 'You have this pattern already', { access });
+    const { stripe } = requirePayments(payments);
+    const order = db
+      .insert(orders)
+      .values({
+        id: newId(),
+        buyerId: user.id,
+        sellerId: found.pattern.ownerId,
+        patternId: found.pattern.id,
+        patternTitle: found.pattern.title,
+        amountMinor: found.listing.priceMinor,
+        currency: found.currency,
+        status: 'pending',
+        createdAt: new Date(),
+      })
+      .returning()
+      .get();
+    const pattern = encodeURIComponent(found.pattern.id);
+    let session;
+    try {
+      session = await stripe.checkout.sessions.create(
+        {
+          mode: 'payment',
+          line_items: [
+            {
+              quantity: 1,
+              price_data: {
+                currency: found.currency,
+                unit_amount: found.listing.priceMinor,
+                product_data: { name: found.pattern.title, description: `FPP pattern by ${found.designerName}` },
+              },
+            },
+          ],
+          customer_email: user.email,
+          client_reference_id: order.id,
+          metadata: { orderId: order.id, patternId: found.pattern.id, buyerId: user.id },
+          success_url: `${config.publicUrl}/shop/purchases?order=${encodeURIComponent(order.id)}&session_id={CHECKOUT_SESSION_ID}`,
+          cancel_url: `${config.publicUrl}/shop/patterns/${pattern}?cancelled=1`,
+        },
+        { idempotencyKey: `checkout-${order.id}` },
+      );
+    } catch (err) {
+      ctx.log(`checkout session for order ${order.id} failed`, err);
+      db.delete(orders).where(eq(orders.id, order.id)).run();
+      throw new HttpError(502, 'The payment provider could not be reached; nothing was charged, try again');
+    }
+    if (!session.url) throw new HttpError(502, 'The payment provider gave no checkout page');
+    const stored = db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning().get();
+    res.status(201).json({ order: orderJson(stored), checkoutUrl: session.url });
+  });
+
+  router.get('/purchases', (req, res) => {
+    const user = currentUser(req);
+    const q = parseOr400(pageQuery, req.query, 'Invalid query');
+    const mine = and(eq(orders.buyerId, user.id), inArray(orders.status, ['pending', 'paid', 'refunded']));
+    const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
+    const rows = db
+      .select({ order: orders, sellerName: users.displayName })
+      .from(orders)
+      .innerJoin(users, eq(users.id, orders.sellerId))
+      .where(mine)
+      .orderBy(desc(orders.createdAt), desc(orders.id))
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize)
+      .all();
+    res.json({
+      items: rows.map((r) => orderJson(r.order, { seller: { id: r.order.sellerId, displayName: r.sellerName } })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    });
+  });
+
+  router.get('/sales', (req, res) => {
+    const user = currentUser(req);
+    if (!canDesign(user)) throw new HttpError(403, 'Only designers have sales');
+    const q = parseOr400(pageQuery, req.query, 'Invalid query');
+    const mine = and(eq(orders.sellerId, user.id), inArray(orders.status, ['paid', 'refunded']));
+    const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
+    const rows = db
+      .select({ order: orders, buyerName: users.displayName, buyerEmail: users.email })
+      .from(orders)
+      .innerJoin(users, eq(users.id, orders.buyerId))
+      .where(mine)
+      .orderBy(desc(orders.paidAt), desc(orders.id))
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize)
+      .all();
+    const totals = db
+      .select({ currency: orders.currency, orders: count(), amountMinor: sql<number>`sum(${orders.amountMinor})` })
+      .from(orders)
+      .where(and(eq(orders.sellerId, user.id), eq(orders.status, 'paid')))
+      .groupBy(orders.currency)
+      .all();
+    res.json({
+      items: rows.map((r) => orderJson(r.order, { buyer: { id: r.order.buyerId, displayName: r.buyerName, email: r.buyerEmail } })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+      totals: totals.map((t) => ({ currency: t.currency, orders: t.orders, amountMinor: Number(t.amountMinor) })),
+    });
+  });
+
+  router.get('/orders/:orderId', (req, res) => {
+    const user = currentUser(req);
+    const id = idSchema.safeParse(req.params.orderId);
+    const order = id.success
+      ? db
+          .select()
+          .from(orders)
+          .where(and(eq(orders.id, id.data), or(eq(orders.buyerId, user.id), eq(orders.sellerId, user.id))))
+          .get()
+      : undefined;
+    if (!order) throw orderNotFound();
+    res.json({ order: orderJson(order) });
+  });
+
+  router.post('/sales/:orderId/refund', async (req, res) => {
+    const user = currentUser(req);
+    const id = idSchema.safeParse(req.params.orderId);
+    const order = id.success ? db.select().from(orders).where(and(eq(orders.id, id.data), eq(orders.sellerId, user.id))).get() : undefined;
+    if (!order) throw orderNotFound();
+    if (order.status !== 'paid') throw new HttpError(409, `Only paid orders can be refunded; this one is ${order.status}`);
+    if (order.refundRequestedAt) throw new HttpError(409, 'A refund was asked for already');
+    if (!order.paymentIntentId) throw new HttpError(409, 'This order has no payment to refund');
+    const { stripe } = requirePayments(payments);
+    let refund;
+    try {
+      refund = await stripe.refunds.create(
+        { payment_intent: order.paymentIntentId, metadata: { orderId: order.id } },
+        { idempotencyKey: `refund-${order.id}` },
+      );
+    } catch (err) {
+      ctx.log(`refund for order ${order.id} failed`, err);
+      throw new HttpError(502, 'The payment provider did not take the refund; nothing changed, try again');
+    }
+    // Access is taken back when the provider confirms the refund (charge.refunded webhook).
+    const stored = db
+      .update(orders)
+      .set({ refundRequestedAt: new Date(), refundId: refund.id })
+      .where(eq(orders.id, order.id))
+      .returning()
+      .get();
+    res.status(202).json({ order: orderJson(stored) });
+  });
+
+  return router;
+}
