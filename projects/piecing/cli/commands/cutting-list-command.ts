@@ -1,5 +1,5 @@
 import type { CopyPlan, CuttingList, PatternDocument } from '../../src/public-api';
-import { buildCuttingList, formatInches, formatLength, planCopies } from '../../src/public-api';
+import { buildCuttingList, CM_PER_INCH, formatInches, formatLength, INCHES_PER_YARD, planCopies } from '../../src/public-api';
 import { EXIT_INVALID_INPUT, EXIT_OK, EXIT_USAGE, type CliCommand } from '../cli-types';
 import { readPatternFile, splitArgs } from '../read-pattern-file';
 
@@ -12,8 +12,8 @@ export function formatCuttingList(document: PatternDocument, list: CuttingList, 
   const len = (v: number) => formatLength(v, unit, { style: 'unicode' });
   const bare = (v: number) => formatLength(v, unit, { style: 'unicode', withUnit: false });
   const yards = (inches: number) => {
-    const yd = `${formatInches(inches / 36, { style: 'unicode', withUnit: false })} yd`;
-    return unit === 'cm' ? `${(inches * 0.0254).toFixed(2)} m (${yd})` : `${yd} (${len(inches)})`;
+    const yd = `${formatInches(inches / INCHES_PER_YARD, { style: 'unicode', withUnit: false })} yd`;
+    return unit === 'cm' ? `${((inches * CM_PER_INCH) / 100).toFixed(2)} m (${yd})` : `${yd} (${len(inches)})`;
   };
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const lines: string[] = [];

@@ -1,8 +1,10 @@
+import { INCHES_PER_UNIT } from '../../units/index';
+
 /** One eighth of an inch, the step rough-cut sizes are rounded up to (common practice). */
 export const EIGHTH_IN = 0.125;
 
 /** Inches in a yard: 1 yd = 36 in. exactly (international yard, 1959; NIST Handbook 44). */
-export const INCHES_PER_YARD = 36;
+export const INCHES_PER_YARD = INCHES_PER_UNIT.yd;
 
 /** Yardage is bought in steps of ⅛ yd = 4.5 in. (common practice). */
 export const YARDAGE_STEP_IN = INCHES_PER_YARD / 8;
