@@ -1,0 +1,313 @@
+import crypto from 'node:crypto';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import request from 'supertest';
+import Stripe from 'stripe';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startFakeStripeServer, type FakeStripeServer } from '../dev/fake-stripe-server';
+import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from '../test/harness';
+import { formatMoney } from './money';
+
+const SK = 'sk_test_shop_spec_key';
+const WHSEC = 'whsec_shop_spec_secret';
+
+let fake: FakeStripeServer;
+let t: TestServer;
+let listening: Server;
+let designer: Client;
+let buyer: Client;
+let stranger: Client;
+let listedId: string;
+let draftId: string;
+
+const count = (sqlText: string, ...args: unknown[]) =>
+  (t.ctx.database.sqlite.prepare(sqlText).get(...args) as { n: number }).n;
+/** Everything the webhook may change, to show a refused or replayed event changed nothing. */
+const snapshot = () => ({
+  events: count('SELECT count(*) AS n FROM payment_events'),
+  members: count('SELECT count(*) AS n FROM members'),
+  orders: t.ctx.database.sqlite.prepare('SELECT id, status, paid_at, refunded_at, granted_access FROM orders ORDER BY id').all(),
+  mails: t.mail.messages.length,
+});
+
+const postWebhook = (payload: string, signature?: string) => {
+  const r = request(t.app).post('/api/shop/webhook').set('Content-Type', 'application/json; charset=utf-8');
+  return (signature ? r.set('Stripe-Signature', signature) : r).send(payload);
+};
+
+async function until<T>(probe: () => Promise<T | undefined> | T | undefined, what: string, ms = 10_000): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await probe();
+    if (v !== undefined) return v;
+    if (Date.now() > end) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+beforeAll(async () => {
+  fake = await startFakeStripeServer({ port: 0, webhookSecret: WHSEC, apiKey: SK, retries: 0 });
+  t = await startTestServer({ STRIPE_SECRET_KEY: SK, STRIPE_WEBHOOK_SECRET: WHSEC, STRIPE_API_BASE: fake.url });
+  listening = await new Promise<Server>((resolve) => {
+    const s = t.app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  fake.setWebhookUrl(`http://127.0.0.1:${(listening.address() as AddressInfo).port}/api/shop/webhook`);
+  designer = await userClient(t.app, 'dora@shop.test', 'designer');
+  buyer = await userClient(t.app, 'bea@shop.test', 'quilter');
+  stranger = await userClient(t.app, 'stan@shop.test', 'designer');
+  listedId = (await designer.post('/api/patterns', { document: sampleDocument('Plum Lattice') }).expect(201)).body.pattern.id;
+  draftId = (await designer.post('/api/patterns', { document: sampleDocument('Unfinished Star') }).expect(201)).body.pattern.id;
+});
+
+afterAll(async () => {
+  await new Promise<void>((r) => listening.close(() => r()));
+  await t.close();
+  await fake.close();
+});
+
+describe('money in minor units', () => {
+  it('formats with the currency’s own decimals', () => {
+    // ISO 4217 minor units: USD and EUR have 2 decimals, JPY has none.
+    expect(formatMoney(1250, 'usd')).toBe('$12.50');
+    expect(formatMoney(1500, 'jpy')).toBe('¥1,500');
+    expect(formatMoney(999, 'eur')).toBe('€9.99');
+  });
+});
+
+describe('publishing', () => {
+  it('asks for the shop currency before a listing, and validates price and description', async () => {
+    const early = await designer.put(`/api/shop/listings/${listedId}`, { priceMinor: 1250, description: 'A lattice', published: true });
+    expect(early.status).toBe(409);
+    expect(early.body.error).toMatch(/currency/);
+    expect((await designer.put('/api/shop/mine', { currency: 'xyz' })).status).toBe(400);
+    expect((await designer.put('/api/shop/mine', { currency: 'usd' }).expect(200)).body.shop).toEqual({ currency: 'usd' });
+
+    const fractional = await designer.put(`/api/shop/listings/${listedId}`, { priceMinor: 12.5, description: 'x', published: true });
+    expect(fractional.status).toBe(400);
+    expect(fractional.body.details[0].path).toBe('priceMinor');
+    const tiny = await designer.put(`/api/shop/listings/${listedId}`, { priceMinor: 10, description: 'x', published: true });
+    expect(tiny.status).toBe(400);
+    const blank = await designer.put(`/api/shop/listings/${listedId}`, { priceMinor: 1250, description: '   ', published: true });
+    expect(blank.body.details[0].path).toBe('description');
+  });
+
+  it('lets only the owning designer list a pattern', async () => {
+    expect((await buyer.put('/api/shop/mine', { currency: 'eur' })).status).toBe(403);
+    expect((await buyer.get('/api/shop/mine')).status).toBe(403);
+    // Someone else's pattern is not there for them (404, as everywhere else).
+    expect((await stranger.put(`/api/shop/listings/${listedId}`, { priceMinor: 100, description: 'mine now', published: true })).status).toBe(404);
+    expect((await request(t.app).get('/api/shop/listings')).status).toBe(401);
+  });
+
+  it('publishes one pattern and keeps the other as an unpublished draft', async () => {
+    const put = await designer
+      .put(`/api/shop/listings/${listedId}`, { priceMinor: 1250, description: 'A four-inch lattice block in two patches.', published: true })
+      .expect(200);
+    expect(put.body.listing).toMatchObject({ priceMinor: 1250, currency: 'usd', published: true, sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 } });
+    await designer.put(`/api/shop/listings/${draftId}`, { priceMinor: 900, description: 'Not ready', published: false }).expect(200);
+
+    const browse = (await buyer.get('/api/shop/listings').expect(200)).body;
+    expect(browse.total).toBe(1);
+    expect(browse.items[0]).toMatchObject({ patternId: listedId, title: 'Plum Lattice', priceMinor: 1250, currency: 'usd', access: null });
+    expect(browse.items[0].designer.displayName).toBe('dora');
+    expect((await buyer.get('/api/shop/listings?q=lattice')).body.total).toBe(1);
+    expect((await buyer.get('/api/shop/listings?q=star')).body.total).toBe(0);
+
+    const mine = (await designer.get('/api/shop/mine').expect(200)).body;
+    expect(mine.shop.currency).toBe('usd');
+    expect(mine.patterns.map((p: { title: string; listing: { published: boolean } }) => [p.title, p.listing.published])).toEqual([
+      ['Plum Lattice', true],
+      ['Unfinished Star', false],
+    ]);
+  });
+
+  it('hides an unpublished pattern from buyers: listing, checkout and the pattern itself are 404', async () => {
+    expect((await buyer.get(`/api/shop/listings/${draftId}`)).status).toBe(404);
+    expect((await buyer.post(`/api/shop/listings/${draftId}/checkout`)).status).toBe(404);
+    expect((await buyer.get(`/api/patterns/${draftId}`)).status).toBe(404);
+    expect((await buyer.get('/api/shop/listings/..%2F..%2Fetc')).status).toBe(404);
+    // The owner may look at their own draft listing.
+    expect((await designer.get(`/api/shop/listings/${draftId}`)).body.listing.published).toBe(false);
+    expect(fake.sessions.size).toBe(0);
+  });
+});
+
+describe('buying', () => {
+  let orderId: string;
+  let sessionId: string;
+
+  it('refuses a checkout of your own pattern', async () => {
+    expect((await designer.post(`/api/shop/listings/${listedId}/checkout`)).status).toBe(409);
+  });
+
+  it('creates a checkout session at the provider; an unpaid order gives no access', async () => {
+    const res = await buyer.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    expect(res.body.order).toMatchObject({ status: 'pending', amountMinor: 1250, currency: 'usd', patternTitle: 'Plum Lattice' });
+    orderId = res.body.order.id;
+    expect(res.body.checkoutUrl).toMatch(new RegExp(`^${fake.url}/checkout/cs_test_`));
+    sessionId = res.body.checkoutUrl.split('/').pop();
+    const session = fake.sessions.get(sessionId)!;
+    expect(session).toMatchObject({ amount_total: 1250, currency: 'usd', client_reference_id: orderId, customer_email: 'bea@shop.test' });
+    expect(session.metadata).toEqual({ orderId, patternId: listedId, buyerId: buyer.user!.id });
+
+    expect((await buyer.get(`/api/patterns/${listedId}`)).status).toBe(404);
+    expect((await buyer.get(`/api/patterns/${listedId}/sewing-log`)).status).toBe(404);
+    expect((await buyer.get(`/api/shop/orders/${orderId}`)).body.order.status).toBe('pending');
+    expect((await stranger.get(`/api/shop/orders/${orderId}`)).status).toBe(404);
+  });
+
+  it('pays on the hosted page; the signed webhook grants quilter access once and mails a receipt', async () => {
+    const page = await fetch(`${fake.url}/checkout/${sessionId}`);
+    const html = await page.text();
+    expect(html).toContain('Plum Lattice');
+    expect(html).toContain('$12.50');
+
+    const paid = await fetch(`${fake.url}/checkout/${sessionId}/pay`, { method: 'POST', redirect: 'manual' });
+    expect(paid.status).toBe(303);
+    expect(paid.headers.get('location')).toBe(`http://localhost:4200/shop/purchases?order=${orderId}&session_id=${sessionId}`);
+    expect(fake.events.map((e) => [e.type, e.attempts])).toEqual([['checkout.session.completed', [200]]]);
+
+    const order = (await buyer.get(`/api/shop/orders/${orderId}`).expect(200)).body.order;
+    expect(order).toMatchObject({ status: 'paid', receiptSent: true });
+    const pattern = await buyer.get(`/api/patterns/${listedId}`).expect(200);
+    expect(pattern.body.pattern.access).toBe('quilter');
+    await buyer.get(`/api/patterns/${listedId}/sewing-log`).expect(200);
+    // Quilter access reads and logs but cannot change the design.
+    expect((await buyer.put(`/api/patterns/${listedId}`, { baseRevision: 1, document: sampleDocument('Taken') })).status).toBe(403);
+
+    const mails = t.mail.messages.filter((m) => m.to.includes('bea@shop.test'));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].subject).toBe('Your receipt for "Plum Lattice"');
+    expect(mails[0].text).toContain('Amount paid: $12.50 (USD)');
+    expect(mails[0].text).toContain(`Order: ${orderId}`);
+    expect(mails[0].text).toContain(`http://localhost:4200/patterns/${listedId}`);
+    expect(mails[0].text).toContain('does not calculate or collect taxes');
+
+    expect((await buyer.get('/api/shop/listings')).body.items[0].access).toBe('quilter');
+    expect((await buyer.post(`/api/shop/listings/${listedId}/checkout`)).status).toBe(409);
+    const purchases = (await buyer.get('/api/shop/purchases').expect(200)).body;
+    expect(purchases.items.map((o: { id: string; status: string }) => [o.id, o.status])).toEqual([[orderId, 'paid']]);
+    const sales = (await designer.get('/api/shop/sales').expect(200)).body;
+    expect(sales.items).toHaveLength(1);
+    expect(sales.items[0]).toMatchObject({ id: orderId, status: 'paid', buyer: { email: 'bea@shop.test' } });
+    expect(sales.totals).toEqual([{ currency: 'usd', orders: 1, amountMinor: 1250 }]);
+    expect((await buyer.get('/api/shop/sales')).status).toBe(403);
+    expect((await stranger.get('/api/shop/sales')).body.items).toEqual([]);
+  });
+
+  it('acknowledges a replayed event without acting on it again', async () => {
+    const before = snapshot();
+    const delivered = fake.events[0];
+    const replay = await postWebhook(delivered.payload, delivered.signature).expect(200);
+    expect(replay.body).toEqual({ received: true, duplicate: true });
+    expect(snapshot()).toEqual(before);
+  });
+
+  it('refuses forged events and changes nothing', async () => {
+    const before = snapshot();
+    const delivered = fake.events[0];
+    const event = JSON.parse(delivered.payload);
+    const forged = JSON.stringify({ ...event, id: 'evt_forged_1' });
+    const stripe = new Stripe(SK);
+    const wrongSecret = stripe.webhooks.generateTestHeaderString({ payload: forged, secret: 'whsec_not_ours' });
+    const stale = stripe.webhooks.generateTestHeaderString({ payload: forged, secret: WHSEC, timestamp: Math.floor(Date.now() / 1000) - 3600 });
+
+    // A changed body under the original signature, a signature with another secret, an hour-old
+    // timestamp (the SDK's tolerance is 300 s), garbage, and no signature at all.
+    for (const [payload, signature] of [
+      [forged, delivered.signature],
+      [forged, wrongSecret],
+      [forged, stale],
+      [forged, 't=1,v1=deadbeef'],
+      [forged, undefined],
+    ] as const) {
+      const res = await postWebhook(payload, signature);
+      expect(res.status).toBe(400);
+      expect(res.body.error).toMatch(/signature/i);
+    }
+    expect(snapshot()).toEqual(before);
+  });
+
+  it('accepts a signature made by hand as the provider documents it, and nothing else', async () => {
+    // The provider's documented scheme: v1 = hex HMAC-SHA256 of "<timestamp>.<raw body>" with the
+    // endpoint secret (Stripe docs, "Verify webhook signatures manually"). Computed here with
+    // node:crypto, independently of the SDK that signs the fake's events.
+    const payload = JSON.stringify({ id: 'evt_by_hand', object: 'event', type: 'customer.created', data: { object: { id: 'cus_1', object: 'customer' } } });
+    const ts = Math.floor(Date.now() / 1000);
+    const v1 = crypto.createHmac('sha256', WHSEC).update(`${ts}.${payload}`).digest('hex');
+    const res = await postWebhook(payload, `t=${ts},v1=${v1}`).expect(200);
+    expect(res.body).toEqual({ received: true, duplicate: false });
+    const flipped = v1.slice(0, -1) + (v1.endsWith('0') ? '1' : '0');
+    expect((await postWebhook(payload.replace('evt_by_hand', 'evt_by_hand2'), `t=${ts},v1=${flipped}`)).status).toBe(400);
+  });
+
+  it('ignores a signed completion whose amount does not match the order', async () => {
+    const res = await stranger.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    const session = fake.sessions.get(res.body.checkoutUrl.split('/').pop())!;
+    const before = snapshot();
+    const event = {
+      id: 'evt_wrong_amount',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { ...session, payment_status: 'paid', status: 'complete', amount_total: 1, payment_intent: 'pi_x' } },
+    };
+    const payload = JSON.stringify(event);
+    const signature = new Stripe(SK).webhooks.generateTestHeaderString({ payload, secret: WHSEC });
+    await postWebhook(payload, signature).expect(200);
+    const after = snapshot();
+    expect(after.events).toBe(before.events + 1);
+    expect(after.members).toBe(before.members);
+    expect(after.orders).toEqual(before.orders);
+    expect((await stranger.get(`/api/patterns/${listedId}`)).status).toBe(404);
+  });
+
+  it('refunds through the provider; the refund event takes the access away', async () => {
+    expect((await stranger.post(`/api/shop/sales/${orderId}/refund`)).status).toBe(404);
+    expect((await buyer.post(`/api/shop/sales/${orderId}/refund`)).status).toBe(404);
+    const res = await designer.post(`/api/shop/sales/${orderId}/refund`).expect(202);
+    expect(res.body.order).toMatchObject({ status: 'paid', refundRequested: true });
+    expect((await designer.post(`/api/shop/sales/${orderId}/refund`)).status).toBe(409);
+
+    const order = await until(async () => {
+      const o = (await buyer.get(`/api/shop/orders/${orderId}`)).body.order;
+      return o.status === 'refunded' ? o : undefined;
+    }, 'the refund event');
+    expect(order.refundedAt).not.toBeNull();
+    expect(fake.events.map((e) => e.type)).toEqual(['checkout.session.completed', 'charge.refunded']);
+    expect((await buyer.get(`/api/patterns/${listedId}`)).status).toBe(404);
+    expect((await designer.get('/api/shop/sales')).body.totals).toEqual([]);
+    expect((await buyer.get('/api/shop/purchases')).body.items[0].status).toBe('refunded');
+
+    // The refund event replayed does nothing either.
+    const before = snapshot();
+    const refundEvent = fake.events[1];
+    expect((await postWebhook(refundEvent.payload, refundEvent.signature).expect(200)).body.duplicate).toBe(true);
+    expect(snapshot()).toEqual(before);
+  });
+
+  it('can buy again after a refund', async () => {
+    const res = await buyer.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    await fake.pay(res.body.checkoutUrl.split('/').pop());
+    expect((await buyer.get(`/api/patterns/${listedId}`).expect(200)).body.pattern.access).toBe('quilter');
+  });
+});
+
+describe('without payment keys', () => {
+  it('answers 503 for checkout and webhook, and browsing still works', async () => {
+    const bare = await startTestServer();
+    try {
+      const d = await userClient(bare.app, 'd@bare.test', 'designer');
+      const q = await userClient(bare.app, 'q@bare.test', 'quilter');
+      const id = (await d.post('/api/patterns', { document: sampleDocument('Bare') }).expect(201)).body.pattern.id;
+      await d.put('/api/shop/mine', { currency: 'jpy' }).expect(200);
+      await d.put(`/api/shop/listings/${id}`, { priceMinor: 1500, description: 'Yen', published: true }).expect(200);
+      expect((await q.get('/api/shop/listings')).body.items[0]).toMatchObject({ priceMinor: 1500, currency: 'jpy' });
+      expect((await q.post(`/api/shop/listings/${id}/checkout`)).status).toBe(503);
+      const hook = await request(bare.app).post('/api/shop/webhook').set('Stripe-Signature', 't=1,v1=00').send('{}');
+      expect(hook.status).toBe(503);
+      expect(bare.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM orders').get()).toEqual({ n: 0 });
+    } finally {
+      await bare.close();
+    }
+  });
+});
