@@ -13,6 +13,7 @@ process.env['SW_E2E_DATA_DIR'] ??= mkdtempSync(join(tmpdir(), 'seamwright-e2e-')
 process.env['SW_E2E_PORT'] ??= '4300';
 process.env['SW_E2E_SMTP_PORT'] ??= '2525';
 process.env['SW_E2E_MAIL_HTTP_PORT'] ??= '2580';
+process.env['SW_E2E_STRIPE_PORT'] ??= '2611';
 
 const port = Number(process.env['SW_E2E_PORT']);
 const smtpPort = process.env['SW_E2E_SMTP_PORT'];
@@ -22,6 +23,9 @@ const mailHttpPort = process.env['SW_E2E_MAIL_HTTP_PORT'];
 export const baseURL = `http://127.0.0.1:${port}`;
 /** Base URL of the fake mail server's HTTP inbox. */
 export const mailInboxURL = `http://127.0.0.1:${mailHttpPort}`;
+/** Base URL of the local fake payment provider (API, hosted checkout, `/_fake/events`), and its keys. */
+export const fakeStripeURL = `http://127.0.0.1:${process.env['SW_E2E_STRIPE_PORT']}`;
+export const stripeKeys = { STRIPE_SECRET_KEY: 'sk_test_seamwright_e2e', STRIPE_WEBHOOK_SECRET: 'whsec_seamwright_e2e' };
 
 export default defineConfig({
   testDir: 'e2e',
@@ -59,6 +63,13 @@ export default defineConfig({
       env: { FAKE_SMTP_PORT: smtpPort, FAKE_MAIL_HTTP_PORT: mailHttpPort },
     },
     {
+      command: 'npx tsx server/dev/fake-stripe-server.ts',
+      url: `${fakeStripeURL}/_fake/health`,
+      reuseExistingServer: false,
+      timeout: 60_000,
+      env: { ...stripeKeys, FAKE_STRIPE_PORT: process.env['SW_E2E_STRIPE_PORT']!, FAKE_STRIPE_WEBHOOK_URL: `${baseURL}/api/shop/webhook` },
+    },
+    {
       command: 'npm run start:server',
       url: `${baseURL}/api/health`,
       reuseExistingServer: false,
@@ -72,6 +83,8 @@ export default defineConfig({
         SMTP_PORT: smtpPort,
         MAIL_INBOX_URL: mailInboxURL,
         PUBLIC_URL: baseURL,
+        ...stripeKeys,
+        STRIPE_API_BASE: fakeStripeURL,
       },
     },
   ],

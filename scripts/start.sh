@@ -28,7 +28,9 @@ npx ng build seamwright --no-progress
 echo "Starting the local fake mail server (SMTP $FAKE_SMTP_PORT, inbox $MAIL_INBOX_URL)…"
 npx tsx server/dev/fake-mail-server.ts &
 mail_pid=$!
-trap 'kill $mail_pid 2>/dev/null || true' EXIT INT TERM
+# The shop pays through a local fake payment provider unless real keys are in the environment.
+if [ -z "${STRIPE_SECRET_KEY:-}" ]; then export STRIPE_SECRET_KEY=sk_test_seamwright_local STRIPE_WEBHOOK_SECRET=whsec_seamwright_local STRIPE_API_BASE="http://127.0.0.1:${FAKE_STRIPE_PORT:-12111}" FAKE_STRIPE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/shop/webhook"; npx tsx server/dev/fake-stripe-server.ts & stripe_pid=$!; fi
+trap 'kill $mail_pid ${stripe_pid:-} 2>/dev/null || true' EXIT INT TERM
 
 cat <<MSG
 
