@@ -40,7 +40,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
     .body { flex: 1; display: flex; min-height: 0; }
     .board-column { flex: 1; display: flex; flex-direction: column; min-width: 0; }
     .board { flex: 1; }
-    .side { width: 340px; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
+    .side { width: 360px; flex: none; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
   `,
   host: { '(keydown)': 'onKeyDown($event)' },
 })

@@ -16,7 +16,7 @@ import { cursorReadout } from './cursor-readout';
   `,
   styles: `
     :host { display: flex; justify-content: space-between; gap: 12px; padding: 4px 10px; font-size: 12px; background: var(--mat-sys-surface-container-low, #f6f3ee); border-top: 1px solid var(--mat-sys-outline-variant, #d3cabb); min-height: 22px; }
-    .exact { opacity: 0.7; font-variant-numeric: tabular-nums; }
+    .exact { margin-left: 6px; opacity: 0.7; font-variant-numeric: tabular-nums; }
     .quilter { font-weight: 500; }
   `,
 })

@@ -132,7 +132,7 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
           copy.add(new Konva.Line({ name: 'failing-patch', points: flat(p.polygon), closed: true, stroke: BOARD_COLOURS.failing, strokeWidth: 3, dash: [7, 4], strokeScaleEnabled: false, listening: false }));
         }
         if (o.selected && o.selectedPatchIndex === p.index) {
-          copy.add(new Konva.Line({ name: 'selected-patch', points: flat(p.polygon), closed: true, stroke: BOARD_COLOURS.selection, strokeWidth: 3, strokeScaleEnabled: false, listening: false }));
+          copy.add(new Konva.Line({ name: 'selected-patch', points: flat(p.polygon), closed: true, fill: 'rgba(31,122,140,0.18)', stroke: BOARD_COLOURS.selection, strokeWidth: 1.5, dash: [4, 3], strokeScaleEnabled: false, listening: false }));
         }
         addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, failing || o.selected ? Infinity : patchSizeIn(p.polygon));
       }

@@ -1,0 +1,84 @@
+import { expect, test, type Page } from '@playwright/test';
+import { AuthPage } from './pages/auth.page';
+import { DraftingBoardPage, type InchPoint } from './pages/drafting-board.page';
+import { PatternPage } from './pages/pattern.page';
+import { PatternsPage } from './pages/patterns.page';
+
+/*
+ * The Drafting board in Chromium against the real server: draw an arc section, split it into four
+ * patches, read their numbers and the sewability verdict, renumber to an order that cannot be sewn
+ * and see the warning, undo, reload and find the same drawing. Screens are saved under e2e/artifacts/.
+ */
+
+const run = Date.now().toString(36);
+const designer = { name: 'Bea Board', email: `bea-${run}@example.test`, password: 'arc-split-four-4', role: 'designer' as const };
+const C: InchPoint = { x: 12, y: 12 };
+const polar = (r: number, deg: number): InchPoint => ({ x: C.x + r * Math.cos((deg * Math.PI) / 180), y: C.y + r * Math.sin((deg * Math.PI) / 180) });
+const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/board-${name}.png` });
+
+test('draw an arc section, split it into four patches, renumber, undo and reload', async ({ page }) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize({ width: 1440, height: 960 });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+
+  await new AuthPage(page).signUp(designer);
+  await expect(page.getByRole('heading', { name: 'Patterns' })).toBeVisible();
+  await new PatternsPage(page).create(`Board test ${run}`, 'Blank block');
+  const board = new DraftingBoardPage(page);
+  await board.ready();
+  await shot(page, 'empty');
+
+  // Arc section: press at the centre, drag out to the outer radius along 0°, release; click the
+  // inner radius; click the end angle (90°). The ⅛ in. grid snap makes the numbers exact.
+  await board.tool('a');
+  await expect(board.board()).toHaveAttribute('data-tool', 'arc');
+  await board.drag(C, { x: 20, y: 12 });
+  await expect(board.board()).toHaveAttribute('data-tool-state', 'inner');
+  await board.click({ x: 17, y: 12 });
+  await board.click({ x: 12, y: 18 });
+  await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
+  await expect(page.getByLabel('Inner radius')).toHaveValue('5');
+  await expect(page.getByLabel('Outer radius')).toHaveValue('8');
+  await expect(page.getByLabel('Sweep (°)')).toHaveValue('90');
+  await shot(page, 'arc');
+
+  // Split: three radial seams from the inner to the outer arc.
+  await board.tool('l');
+  for (const deg of [22.5, 45, 67.5]) await board.drag(polar(5, deg), polar(8, deg));
+  expect(await board.counts()).toEqual({ sections: 1, seams: 3 });
+  await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+  await expect.poll(() => board.orderLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+
+  // Renumber along the arc: a sewable order.
+  await board.tool('n');
+  for (const deg of [10, 30, 55, 80]) await board.click(polar(6.5, deg));
+  await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
+  await shot(page, 'split-four');
+
+  // Renumber to an order that jumps across the arc: A2 (at 55°) shares no seam with A1 (at 10°).
+  for (const deg of [10, 55, 30, 80]) await board.click(polar(6.5, deg));
+  await expect(board.verdict()).toHaveText(/cannot be sewn in this order at A2: A2 shares no seam/);
+  await expect(board.verdict()).toHaveAttribute('role', 'alert');
+  await expect(page.locator('li.failing')).toHaveAttribute('data-label', 'A2');
+  await shot(page, 'bad-order');
+
+  // Undo: the whole renumbering was one step.
+  await board.board().focus();
+  await page.keyboard.press('Control+z');
+  await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
+  await shot(page, 'undone');
+
+  // Autosave stores it; a reload brings back the same drawing.
+  await new PatternPage(page).waitForSaved();
+  await page.reload();
+  await board.ready();
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 3 });
+  await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+  await board.tool('v');
+  await board.click(polar(6.5, 45));
+  await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
+  await expect(page.getByLabel('Outer radius')).toHaveValue('8');
+  await shot(page, 'reloaded');
+  expect(errors).toEqual([]);
+});
