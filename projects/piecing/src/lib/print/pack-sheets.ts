@@ -16,6 +16,8 @@ export interface PackItem<T> {
   data: T;
   /** Smaller items this one may be broken into when that fills a sheet better (a nested pair → two copies). */
   parts?: PackItem<T>[];
+  /** Area it really covers (inside its outlines), square inches; its box area when absent. */
+  areaSqIn?: number;
 }
 
 /** Where an item landed: top-left in sheet inches, whether turned a quarter turn, placed size. */
@@ -59,7 +61,23 @@ const LOGICS = [PACKING_LOGIC.MAX_EDGE, PACKING_LOGIC.MAX_AREA];
  */
 export type ItemOutlines<T> = (placed: PackedItem<T>) => Point[][];
 
-export function packSheets<T>(items: readonly PackItem<T>[], paper: PaperName, marginIn: number, outlines?: ItemOutlines<T>): PackedSheet<T>[] {
+/**
+ * Fits more items into the gaps of a packed sheet (looking at real outlines, not boxes). Returns what
+ * it placed, each with the item (or part of an item) of `left` it used up.
+ */
+export type SheetFill<T> = (
+  frame: SheetFrame,
+  placed: readonly PackedItem<T>[],
+  left: readonly PackItem<T>[],
+) => Array<{ taken: PackItem<T>; packed: PackedItem<T> }>;
+
+export function packSheets<T>(
+  items: readonly PackItem<T>[],
+  paper: PaperName,
+  marginIn: number,
+  outlines?: ItemOutlines<T>,
+  fill?: SheetFill<T>,
+): PackedSheet<T>[] {
   const frames: Record<SheetOrientation, SheetFrame> = {
     portrait: sheetFrame(paper, 'portrait', marginIn),
     landscape: sheetFrame(paper, 'landscape', marginIn),
@@ -110,10 +128,24 @@ export function packSheets<T>(items: readonly PackItem<T>[], paper: PaperName, m
         break;
       }
     }
-    if (!chosen || chosen.tried.placed.length === 0) throw new RangeError('packing made no progress');
-    left = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
-    const testBlock = { ...chosen.frame.testBlock, ...chosen.tried.block };
-    sheets.push({ frame: { ...chosen.frame, testBlock }, items: chosen.tried.placed });
+    const results: Array<{ frame: SheetFrame; items: PackedItem<T>[]; taken: PackItem<T>[] }> = [];
+    if (chosen && chosen.tried.placed.length > 0) {
+      // Boxes by maxrects, then the gaps filled by real outlines.
+      const frame = { ...chosen.frame, testBlock: { ...chosen.frame.testBlock, ...chosen.tried.block } };
+      const after = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
+      const extra = fill && after.length > 0 ? fill(frame, chosen.tried.placed, after) : [];
+      results.push({
+        frame,
+        items: [...chosen.tried.placed, ...extra.map((e) => e.packed)],
+        taken: [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)],
+      });
+    }
+    if (results.length === 0) throw new RangeError('packing made no progress');
+    const covered = (r: (typeof results)[number]) => r.items.reduce((s, p) => s + (p.item.areaSqIn ?? p.width * p.height), 0);
+    let best = results[0];
+    for (const r of results.slice(1)) if (covered(r) > covered(best) + 1e-9) best = r;
+    left = remainingAfter(left, best.taken, parentOf);
+    sheets.push({ frame: best.frame, items: best.items });
   }
   return sheets;
 }

@@ -1,11 +1,13 @@
 import type { Point } from '../document/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
-import { packSheets, type PackItem } from './pack-sheets';
+import { packSheets, type PackedItem, type PackItem, type SheetFill } from './pack-sheets';
+import { blockRing, findSpot, occupancyGrid, shapeMask, type ShapeMask } from './raster-fill';
+import { boundingRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
 import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
-import { intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
+import { intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGrid, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
 import { ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
@@ -18,6 +20,8 @@ interface Piece {
   tile?: TileCell;
   /** Set when this piece is two copies (copy and copy + 1) nested head to tail. */
   pair?: NestedPair;
+  /** Set when the piece was fitted into a gap at its own turn: its frame and box replace the prepared ones. */
+  free?: { frame: Affine; width: number; height: number; turnDeg: number };
 }
 
 type LayoutOptions = Pick<PrintOptions, 'paper' | 'marginIn' | 'mirrored' | 'tileOverlapIn'>;
@@ -40,24 +44,25 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     if (template.copies < 1) continue;
     const prepared = prepareTemplate(template, mirrored);
     const whole = fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape);
-    const grid = whole ? null : chooseTiling(template, mirrored, [portrait, landscape], tileOverlapIn);
+    const grid = whole ? null : chooseTiling(template, mirrored, [portrait, landscape], tileOverlapIn, paper, marginIn);
     if (grid) grids.set(template.id, grid);
     const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
     for (let copy = 1; copy <= template.copies; copy++) {
       if (pair && copy < template.copies) {
-        const single = (c: number): PackItem<Piece> => ({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy: c } });
+        const single = (c: number): PackItem<Piece> => ({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy: c }, areaSqIn: template.areaSqIn });
         pieces.push({
           width: pair.width,
           height: pair.height,
           quarterTurns: true,
           data: { prepared, copy, pair },
+          areaSqIn: 2 * template.areaSqIn,
           parts: [single(copy), single(copy + 1)],
         });
         copy++;
         continue;
       }
       if (!grid) {
-        pieces.push({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy } });
+        pieces.push({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy }, areaSqIn: template.areaSqIn });
         continue;
       }
       for (const tile of grid.tiles) {
@@ -71,7 +76,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     }
   }
 
-  const packed = packSheets(pieces, paper, marginIn, (p) => {
+  const outlines = (p: PackedItem<Piece>): Point[][] => {
     const placements = p.item.data.tile ? [placeTile(p.item.data, p.x, p.y, new Map())] : placeWhole(p.item.data, p.x, p.y, p.turned);
     const rings: Point[][] = [];
     for (const pl of placements) {
@@ -80,7 +85,8 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
       else rings.push(outlineOf(pl.templateId, pl.transform));
     }
     return rings;
-  });
+  };
+  const packed = packSheets(pieces, paper, marginIn, outlines, gapFiller(mirrored, outlines));
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
     for (const p of sheet.items) {
@@ -152,27 +158,41 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
 }
 
 /**
- * Picks the tiling with the fewest tiles (then the least printed area) over both sheet orientations,
- * two ways of leaving room for the test-square block, and the template unturned or turned a quarter.
+ * Picks the tiling that packs onto the fewest sheets (then the fewest tiles, then the least printed
+ * area): the smallest grids that fit, and grids a row or column finer (smaller tiles can share
+ * sheets), over the template unturned and turned a quarter. Each candidate's tiles, for every copy,
+ * are packed on their own to count its sheets.
  */
-function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number): TileGrid {
-  let best: { grid: TileGrid; count: number; area: number } | null = null;
+function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid {
+  let best: { grid: TileGrid; sheets: number; count: number; area: number } | null = null;
   const g = ITEM_GAP_IN;
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
+    let minCols = Infinity;
+    let minRows = Infinity;
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
-      const cells: Array<[number, number]> = [
-        [W, H - tb.height - g - CAPTION_IN],
-        [W - tb.width - g, H - CAPTION_IN],
-      ];
-      for (const [cw, ch] of cells) {
+      for (const [cw, ch] of [[W, H - tb.height - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
         if (!grid) continue;
+        minCols = Math.min(minCols, grid.columns);
+        minRows = Math.min(minRows, grid.rows);
+      }
+    }
+    if (!Number.isFinite(minCols)) continue;
+    for (let columns = minCols; columns <= minCols + 2; columns++) {
+      for (let rows = minRows; rows <= minRows + 2; rows++) {
+        if (columns * rows > 400) continue;
+        const grid = tileGrid(prepared, columns, rows, overlapIn);
+        if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
+        const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
+        const sheets = packSheets(items, paper, marginIn).length;
         const count = grid.tiles.length;
         const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
-        if (!best || count < best.count || (count === best.count && area < best.area - 1e-9)) best = { grid, count, area };
+        const better =
+          !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
+        if (better) best = { grid, sheets, count, area };
       }
     }
   }
@@ -180,8 +200,29 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
   return best.grid;
 }
 
+/** Whether a tile (which never turns) fits a sheet beside the test squares. */
+function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
+  const { width: W, height: H } = frame.content;
+  const tb = frame.testBlock;
+  const g = ITEM_GAP_IN;
+  return (w <= W && h <= H - tb.height - g) || (w <= W - tb.width - g && h <= H);
+}
+
 function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement[] {
-  const { prepared, pair } = piece;
+  const { prepared, pair, free } = piece;
+  if (free) {
+    return [
+      {
+        templateId: prepared.template.id,
+        sectionLabel: prepared.template.sectionLabel,
+        copies: prepared.template.copies,
+        copy: piece.copy,
+        rect: { x, y, width: free.width, height: free.height },
+        transform: compose(translation(x, y), free.frame),
+        turnDeg: free.turnDeg,
+      },
+    ];
+  }
   const w = pair ? pair.width : prepared.width;
   const h = pair ? pair.height : prepared.height;
   // A quarter turn maps the box [0, w] × [0, h] onto [0, h] × [0, w]. Whole templates carry their
@@ -292,4 +333,93 @@ function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, n
 
 function rectRing(r: RectIn): Point[] {
   return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
+}
+
+/** Raster cell for fitting templates into gaps, inches. */
+const FILL_CELL_IN = 0.1;
+/** Templates tried per sheet when filling gaps (the largest first). */
+const FILL_TEMPLATES_PER_SHEET = 6;
+
+/**
+ * Fills the gaps of each packed sheet with single copies, at any turn (every 22.5° for arcs and
+ * wedges, quarter turns for straight sections), looking at the real cutting lines on a raster.
+ */
+function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][]): SheetFill<Piece> {
+  const masks = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
+  const shapeAt = (prepared: PreparedTemplate, k: number, turns: number) => {
+    const key = `${prepared.template.id}@${k}/${turns}`;
+    let entry = masks.get(key);
+    if (!entry) {
+      const turn = (2 * Math.PI * k) / turns;
+      const m = compose(rotation(turn), mirrored ? MIRROR_X : IDENTITY);
+      const ring = prepared.template.cuttingLine.map((p) => applyAffine(m, p));
+      const box = boundingRect(ring);
+      const frame = compose(translation(-box.x, -box.y), m);
+      const local = ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y }));
+      entry = { mask: shapeMask(local, FILL_CELL_IN), frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
+      masks.set(key, entry);
+    }
+    return entry;
+  };
+  return (frame, placed, left) => {
+    const grid = occupancyGrid(frame.content, FILL_CELL_IN);
+    // Obstacles were simplified within 0.02 in.: widen the gap to match.
+    const gap = ITEM_GAP_IN + 0.02;
+    for (const p of placed) for (const ring of outlines(p)) blockRing(grid, ring, gap);
+    blockRing(grid, rectRing(frame.testBlock), gap);
+    const byShape = new Map<string, PackItem<Piece>[]>();
+    for (const item of left) {
+      for (const part of item.parts ?? [item]) {
+        if (part.data.pair) continue;
+        const key = part.data.tile ? `${part.data.prepared.template.id}#${part.data.tile.row},${part.data.tile.column}` : part.data.prepared.template.id;
+        const list = byShape.get(key) ?? [];
+        list.push(part);
+        byShape.set(key, list);
+      }
+    }
+    const areaOf = (i: PackItem<Piece>) => i.areaSqIn ?? i.width * i.height;
+    const order = [...byShape.values()].sort((a, b) => areaOf(b[0]) - areaOf(a[0])).slice(0, FILL_TEMPLATES_PER_SHEET);
+    const out: Array<{ taken: PackItem<Piece>; packed: PackedItem<Piece> }> = [];
+    for (const available of order) {
+      if (available[0].data.tile) {
+        // A tile never turns: its box (caption included) is its shape.
+        const mask = shapeMask(rectRing({ x: 0, y: 0, width: available[0].width, height: available[0].height }), FILL_CELL_IN);
+        while (available.length > 0) {
+          const spot = findSpot(grid, mask);
+          if (!spot) break;
+          const taken = available.shift()!;
+          const packedItem: PackedItem<Piece> = { item: taken, x: grid.x0 + spot.col * FILL_CELL_IN, y: grid.y0 + spot.row * FILL_CELL_IN, turned: false, width: taken.width, height: taken.height };
+          out.push({ taken, packed: packedItem });
+          for (const ring of outlines(packedItem)) blockRing(grid, ring, gap);
+        }
+        continue;
+      }
+      const prepared = available[0].data.prepared;
+      const turns = prepared.template.freeRotation ? 16 : 4;
+      while (available.length > 0) {
+        let best: { row: number; col: number; k: number } | null = null;
+        for (let k = 0; k < turns; k++) {
+          const spot = findSpot(grid, shapeAt(prepared, k, turns).mask);
+          if (spot && (!best || spot.row < best.row || (spot.row === best.row && spot.col < best.col))) best = { ...spot, k };
+        }
+        if (!best) break;
+        const taken = available.shift()!;
+        const shape = shapeAt(prepared, best.k, turns);
+        const x = grid.x0 + best.col * FILL_CELL_IN;
+        const y = grid.y0 + best.row * FILL_CELL_IN;
+        const piece: Piece = { prepared, copy: taken.data.copy, free: { frame: shape.frame, width: shape.width, height: shape.height, turnDeg: shape.turnDeg } };
+        const packedItem: PackedItem<Piece> = {
+          item: { width: shape.width, height: shape.height, quarterTurns: false, data: piece, areaSqIn: prepared.template.areaSqIn },
+          x,
+          y,
+          turned: false,
+          width: shape.width,
+          height: shape.height,
+        };
+        out.push({ taken, packed: packedItem });
+        for (const ring of outlines(packedItem)) blockRing(grid, ring, gap);
+      }
+    }
+    return out;
+  };
 }

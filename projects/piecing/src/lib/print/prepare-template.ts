@@ -78,6 +78,11 @@ export function tileTemplate(prepared: PreparedTemplate, maxWidth: number, maxHe
   if (maxWidth <= overlapIn * 2 || maxHeight <= overlapIn * 2) return null;
   const columns = Math.max(1, Math.ceil((prepared.width - overlapIn) / (maxWidth - overlapIn) - 1e-9));
   const rows = Math.max(1, Math.ceil((prepared.height - overlapIn) / (maxHeight - overlapIn) - 1e-9));
+  return tileGrid(prepared, columns, rows, overlapIn);
+}
+
+/** A grid of `columns` × `rows` equal cells over a prepared template, neighbours overlapping by `overlapIn`. */
+export function tileGrid(prepared: PreparedTemplate, columns: number, rows: number, overlapIn: number): TileGrid {
   const cellW = columns === 1 ? prepared.width : (prepared.width + (columns - 1) * overlapIn) / columns;
   const cellH = rows === 1 ? prepared.height : (prepared.height + (rows - 1) * overlapIn) / rows;
   const tiles: TileCell[] = [];

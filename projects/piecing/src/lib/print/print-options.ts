@@ -19,7 +19,7 @@ export const printOptionsSchema = z
     /** Whether templates are printed mirrored (the printed side is the back of the block). */
     mirrored: z.boolean().default(true),
     /** Overlap between neighbouring tiles of a large template, in inches. */
-    tileOverlapIn: z.number().min(MIN_TILE_OVERLAP_IN).max(2).default(0.75),
+    tileOverlapIn: z.number().min(MIN_TILE_OVERLAP_IN).max(2).default(MIN_TILE_OVERLAP_IN),
     /**
      * What the templates are printed on: on paper foundations every use needs its own print; a
      * freezer-paper template is reused for several pressings (design.md §5.6).
