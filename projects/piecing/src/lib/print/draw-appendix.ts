@@ -1,5 +1,5 @@
 import type { PatternDocument } from '../document/index';
-import { patternStripSets, type PatchStripSet } from '../fabrication/index';
+import { buildCuttingList, patternStripSets, type CuttingList, type PatchStripSet } from '../fabrication/index';
 import { derivePatches } from '../geometry/index';
 import { PRINT_CAUTIONS } from './cautions';
 import type { PdfPen } from './pdf-pen';
@@ -15,6 +15,7 @@ export function drawAppendix(pen: PdfPen, document: PatternDocument, _options: P
   const flow = new SheetFlow(pen, newSheet);
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const fabricColour = new Map(document.fabrics.map((f) => [f.id, f.colour]));
+  drawCuttingList(flow, buildCuttingList(document));
 
   flow.heading('Fabric key');
   const usedBy = new Map<string, string[]>();
@@ -56,6 +57,83 @@ export function drawAppendix(pen: PdfPen, document: PatternDocument, _options: P
 
   flow.heading('Cautions');
   for (const caution of PRINT_CAUTIONS) flow.paragraph(`• ${caution}`, 9);
+}
+
+/** The cutting list: yardage per fabric, then every cut (pieces and strip-set strips), then the strip sets. */
+function drawCuttingList(flow: SheetFlow, list: CuttingList): void {
+  flow.heading('Cutting list');
+  flow.paragraph(
+    `Rough-cut sizes include the ${fmtIn(list.seamAllowanceIn)} in. seam allowance and a ${fmtIn(list.piecingMarginIn)} in. piecing margin, ` +
+      `rounded up to ⅛ in.; counts cover ${list.blockCount === 1 ? 'the whole pattern' : `all ${list.blockCount} blocks`}. Strips are cut across the width of fabric (WOF).`,
+    8.5,
+  );
+  flow.table(
+    [
+      { header: 'Fabric', widthIn: 1.9 },
+      { header: 'Buy', widthIn: 1.0, align: 'right' },
+      { header: 'Strips across WOF', widthIn: 1.4, align: 'right' },
+      { header: 'Pieces', widthIn: 0.8, align: 'right' },
+    ],
+    list.fabrics.map((f) => [
+      { text: f.name, swatch: f.colour },
+      `${yards(f.yardageEighths)} yd`,
+      String(f.stripCount),
+      String(f.pieceCount),
+    ]),
+  );
+  const rows: TableCell[][] = [];
+  for (const f of list.fabrics) {
+    for (const g of f.pieces) {
+      const strips =
+        g.stripWidthIn !== null
+          ? `${g.stripCount} × ${fmtIn(g.stripWidthIn)} in. strip${g.stripCount === 1 ? '' : 's'}, ${g.piecesPerStrip} per strip`
+          : `${fmtIn(g.lengthwiseIn)} in. along the length`;
+      rows.push([{ text: f.name, swatch: f.colour }, `${g.count} × ${fmtIn(g.widthIn)} × ${fmtIn(g.lengthIn)} in.`, strips, g.patchLabels.join(', ')]);
+    }
+    for (const st of f.stripSetStrips) {
+      rows.push([
+        { text: f.name, swatch: f.colour },
+        `strip set ${st.stripSetId}, strip ${st.stripIndex + 1}`,
+        `${st.stripCount} × ${fmtIn(st.cutWidthIn)} in. strip${st.stripCount === 1 ? '' : 's'} (finishes ${fmtIn(st.finishedWidthIn)} in.)`,
+        '',
+      ]);
+    }
+  }
+  flow.table(
+    [
+      { header: 'Fabric', widthIn: 1.5 },
+      { header: 'Cut', widthIn: 1.75 },
+      { header: 'From', widthIn: 2.55 },
+      { header: 'For patches', widthIn: flow.width - 5.8 },
+    ],
+    rows,
+  );
+  if (list.stripSets.length > 0) {
+    flow.table(
+      [
+        { header: 'Strip set', widthIn: 1.5 },
+        { header: 'Sewn width', widthIn: 0.95, align: 'right' },
+        { header: 'Sub-cut', widthIn: 0.85, align: 'right' },
+        { header: 'Sub-cuts', widthIn: 0.75, align: 'right' },
+        { header: 'Sets to sew', widthIn: 0.9, align: 'right' },
+        { header: 'For patches', widthIn: flow.width - 4.95 },
+      ],
+      list.stripSets.map((s) => [
+        s.name ?? s.stripSetId,
+        `${fmtIn(s.sewnWidthIn)} in.`,
+        `${fmtIn(s.subCutLengthIn)} in.`,
+        String(s.subCutCount),
+        String(s.setCount),
+        s.patchLabels.join(', '),
+      ]),
+    );
+  }
+  for (const problem of list.problems) flow.paragraph(`Check: ${problem.message}`, 8);
+}
+
+/** Yards from eighths of a yard: 11 → "1⅜". */
+function yards(eighths: number): string {
+  return fmtIn(eighths / 8);
 }
 
 function uniqueStripSets(all: readonly PatchStripSet[]): PatchStripSet[] {

@@ -57,7 +57,7 @@ export function drawCover(
   flow.paragraph('1. Print at 100 % / actual size (turn off "fit to page" and any scaling).', 9);
   flow.paragraph('2. Measure the 1 in. and the 2 cm test square on every sheet before cutting any fabric. If either is off, fix the printer settings and print again.', 9);
   flow.paragraph(
-    `3. Tiled templates: tiles overlap by ${fmtIn(options.tileOverlapIn)} in. Trim one tile along the dashed "edge of …" line, lay it over its neighbour so the ⊕ alignment marks sit on top of each other, and tape. The map in the sheet header shows how the tiles join and which sheet each is on.`,
+    `3. Tiled templates: tiles overlap by ${fmtIn(options.tileOverlapIn)} in. Trim one tile along the dashed "edge of …" line, lay it over its neighbour so the circled-cross alignment marks sit on top of each other, and tape. The map in the sheet header shows how the tiles join and which sheet each is on.`,
     9,
   );
 
@@ -75,7 +75,7 @@ export function drawCover(
   }
   const arrowAt = flow.block(0.22);
   drawArrow(pen, { x: arrowAt.x + 0.3, y: arrowAt.y + 0.1 }, { x: 1, y: 0 }, 0.3);
-  pen.text('Arrow beside the section label: which way the section faces (towards the top of the block or the centre)', { x: arrowAt.x + 0.75, y: arrowAt.y + 0.13 }, { sizePt: 8.5 });
+  pen.text('Arrow inside each template, above its section and copy: which way it faces (towards the top of the block or the centre)', { x: arrowAt.x + 0.75, y: arrowAt.y + 0.13 }, { sizePt: 8.5 });
 
   flow.heading('Where each section is', 11);
   const rows = layout.templates.map((t) => [

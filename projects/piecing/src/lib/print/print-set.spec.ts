@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { planCopies, sectionSeamAllowance } from '../fabrication/index';
+import { buildCuttingList, planCopies, sectionSeamAllowance } from '../fabrication/index';
 import { polygonArea, signedArea } from '../geometry/index';
 import { applyAffine, type Affine } from './affine';
 import { inspectPdf, rectangleSides, signedAreaPt, type PdfPageInfo, type PdfPath } from './pdf-inspect';
@@ -184,8 +184,11 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
     expect(checked).toBe(result.layout.sheets.reduce((s, sh) => s + sh.placements.length, 0));
   });
 
-  it('ends with the fabric key, strip sets and the cautions', () => {
+  it('ends with the cutting list, fabric key, strip sets and the cautions', () => {
     const tail = pages.slice(result.templateSheetCount + 1).map((p) => p.text.join(' ')).join(' ');
+    expect(tail).toContain('Cutting list');
+    // Every fabric of the cutting list is listed with its yardage.
+    for (const f of buildCuttingList(document).fabrics) expect(tail).toContain(f.name);
     expect(tail).toContain('Fabric key');
     expect(tail).toContain('Strip set');
     expect(tail).toContain('Rotary cutters are very sharp');
