@@ -67,7 +67,7 @@ const params = (runs: number) => ({ numRuns: runs, seed: SEED, endOnFailure: tru
 const idArb = () =>
   fc.oneof(
     { weight: 3, arbitrary: fc.stringMatching(/^[A-Za-z0-9_-]{1,64}$/) },
-    { weight: 3, arbitrary: fc.constantFrom(world.patternId, world.uploadId, world.invitationId, world.owner.user!.id, world.partner.user!.id, ...world.sectionIds) },
+    { weight: 3, arbitrary: fc.constantFrom(world.patternId, world.uploadId, world.invitationId, world.printSetId, world.owner.user!.id, world.partner.user!.id, ...world.sectionIds) },
     { weight: 2, arbitrary: fc.string({ maxLength: 80 }).map(encodeURIComponent) },
     { weight: 1, arbitrary: fc.string({ unit: 'grapheme', maxLength: 40 }).map(encodeURIComponent) },
     {
@@ -117,6 +117,7 @@ const ROUTES: [string, string][] = [
   ['POST', '/api/patterns/:id/print-sets'],
   ['GET', '/api/patterns/:id/print-sets/:id2'],
   ['GET', '/api/patterns/:id/print-sets/:id2/file'],
+  ['GET', '/api/patterns/:id/print-sets/:id2/events'],
   ['DELETE', '/api/patterns/:id/print-sets/:id2'],
 ];
 
@@ -274,6 +275,69 @@ describe('fast-check over the API', () => {
       }),
       params(500),
     );
+    await expectHealthy();
+  });
+
+  it('random print-set options: 202 and a finished PDF, or 400 naming the option', async () => {
+    const accepted: string[] = [];
+    const validOption = fc.record(
+      {
+        paper: fc.constantFrom('letter', 'a4', 'a3', 'legal', 'tabloid'),
+        marginIn: fc.integer({ min: 25, max: 150 }).map((v) => v / 100),
+        mirrored: fc.boolean(),
+        tileOverlapIn: fc.integer({ min: 50, max: 200 }).map((v) => v / 100),
+        foundation: fc.constantFrom('paper', 'freezer-paper'),
+        copies: fc.constantFrom('plan', 'single'),
+        sectionIds: fc.subarray(world.sectionIds, { minLength: 1 }),
+        includeCuttingList: fc.boolean(),
+      },
+      { requiredKeys: [] },
+    );
+    const hostileOption = fc.record(
+      {
+        paper: fc.oneof(fc.constantFrom('letter', 'a4', 'a3', 'legal', 'tabloid'), fc.string({ maxLength: 8 }), fc.integer()),
+        marginIn: fc.oneof(fc.double({ min: 0, max: 3, noNaN: true }), fc.constantFrom(0.25, 0.5, 1.5, -1, 1e9), fc.string()),
+        mirrored: fc.oneof(fc.boolean(), fc.constantFrom('yes', 0, null)),
+        tileOverlapIn: fc.oneof(fc.double({ min: 0, max: 3, noNaN: true }), fc.constant(0.75)),
+        foundation: fc.constantFrom('paper', 'freezer-paper', 'vellum', ''),
+        copies: fc.constantFrom('plan', 'single', 'all', 3),
+        sectionIds: fc.oneof(fc.constant(world.sectionIds.slice(0, 2)), fc.array(fc.string({ maxLength: 70 }), { maxLength: 3 }), fc.constant([])),
+        includeCuttingList: fc.boolean(),
+        createdAt: fc.constantFrom('2020-01-01T00:00:00Z', 'yesterday'),
+        fontSize: fc.integer(),
+      },
+      { requiredKeys: [] },
+    );
+    const option = fc.oneof(validOption, hostileOption);
+    const revisionArb = fc.oneof(fc.constant(undefined), fc.constantFrom(1, 2), fc.integer({ min: -2, max: 4 }), fc.string({ maxLength: 4 }));
+    await fc.assert(
+      fc.asyncProperty(option, revisionArb, async (options, revision) => {
+        const res = await send(world.owner, 'POST', `/api/patterns/${world.patternId}/print-sets`, { json: revision === undefined ? { options } : { options, revision } });
+        if (res.status === 202) accepted.push(res.json.printSet.id);
+        else {
+          expect([400, 404], res.text).toContain(res.status);
+          if (res.status === 400) expect(res.json.details.length, res.text).toBeGreaterThan(0);
+        }
+      }),
+      params(150),
+    );
+    // Every accepted print set finishes (bounded wait): none stuck queued or rendering.
+    const statuses = new Map<string, string>();
+    const t0 = Date.now();
+    while (Date.now() - t0 < 180_000) {
+      for (const id of accepted) {
+        if (['done', 'failed'].includes(statuses.get(id) ?? '')) continue;
+        const r = await send(world.owner, 'GET', `/api/patterns/${world.patternId}/print-sets/${id}`);
+        statuses.set(id, r.json.printSet.status);
+        if (r.json.printSet.status === 'failed') console.log(`print set with options ${JSON.stringify(r.json.printSet.options)} failed: ${r.json.printSet.error}`);
+      }
+      if (accepted.every((id) => ['done', 'failed'].includes(statuses.get(id) ?? ''))) break;
+      await new Promise((r) => setTimeout(r, 500));
+    }
+    console.log(`print-set options: ${accepted.length} accepted of 150; ${[...statuses.values()].filter((v) => v === 'done').length} done`);
+    expect(accepted.length).toBeGreaterThan(0);
+    // Options the schema accepted on a valid document render to a PDF.
+    for (const id of accepted) expect(statuses.get(id), id).toBe('done');
     await expectHealthy();
   });
 

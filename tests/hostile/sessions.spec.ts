@@ -132,6 +132,7 @@ describe('CSRF', () => {
     ['POST', `/api/patterns/${w.patternId}/uploads`],
     ['DELETE', `/api/patterns/${w.patternId}/uploads/${w.uploadId}`],
     ['POST', `/api/patterns/${w.patternId}/print-sets`, { options: {} }],
+    ['DELETE', `/api/patterns/${w.patternId}/print-sets/${w.printSetId}`],
     ['POST', '/api/invitations/accept', { token: w.invitationToken }],
     ['PATCH', `/api/admin/users/${w.partner.user!.id}`, { role: 'quilter' }],
   ];
@@ -142,7 +143,9 @@ describe('CSRF', () => {
     const u = await w.owner.get(`/api/patterns/${w.patternId}/uploads`);
     const l = await w.owner.get(`/api/patterns/${w.patternId}/sewing-log`);
     const list = await w.owner.get('/api/patterns?scope=all');
-    return { pattern: p.json.pattern, members: m.json, uploads: u.json, log: l.json, total: list.json.total, me: (await w.owner.get('/api/auth/me')).status };
+    const sets = await w.owner.get(`/api/patterns/${w.patternId}/print-sets`);
+    return {
+      printSets: sets.json.items.map((x: { id: string; status: string }) => [x.id, x.status]), pattern: p.json.pattern, members: m.json, uploads: u.json, log: l.json, total: list.json.total, me: (await w.owner.get('/api/auth/me')).status };
   }
 
   it('every state-changing route without the X-CSRF-Token header answers 403 and changes nothing', async () => {
@@ -222,6 +225,14 @@ describe("another user's ids", () => {
       ['DELETE', `${p}/uploads/${w.uploadId}`],
       ['GET', `${p}/print-sets`],
       ['POST', `${p}/print-sets`, { options: {} }],
+      ['GET', `${p}/print-sets/${w.printSetId}`],
+      ['GET', `${p}/print-sets/${w.printSetId}/events`],
+      ['GET', `${p}/print-sets/${w.printSetId}/file`],
+      ['DELETE', `${p}/print-sets/${w.printSetId}`],
+      // The stranger's own pattern with the owner's print set.
+      ['GET', `/api/patterns/${ownId}/print-sets/${w.printSetId}`],
+      ['GET', `/api/patterns/${ownId}/print-sets/${w.printSetId}/file`],
+      ['DELETE', `/api/patterns/${ownId}/print-sets/${w.printSetId}`],
       // The stranger's own pattern with the owner's upload: still not theirs.
       ['GET', `/api/patterns/${ownId}/uploads/${w.uploadId}/file`],
       ['DELETE', `/api/patterns/${ownId}/uploads/${w.uploadId}`],
@@ -252,6 +263,9 @@ describe("another user's ids", () => {
     const members = await w.owner.get(`${p}/members`);
     expect(members.json.members.map((m: { userId: string; access: string }) => [m.userId, m.access])).toEqual([[w.partner.user!.id, 'co-designer']]);
     expect((await w.owner.get(`${p}/uploads/${w.uploadId}/file`)).status).toBe(200);
+    const pdf = await w.owner.get(`${p}/print-sets/${w.printSetId}/file`);
+    expect(pdf.status).toBe(200);
+    expect(pdf.contentType).toContain('application/pdf');
   });
 
   it('a stranger cannot accept an invitation meant for someone else', async () => {

@@ -25,6 +25,8 @@ export interface World {
   uploadId: string;
   invitationId: string;
   invitationToken: string;
+  /** A finished print set of the pattern. */
+  printSetId: string;
 }
 
 /** Uploads `bytes` as the multipart field `file`. */
@@ -63,7 +65,18 @@ export async function buildWorld(server: ServerProcess, label = 'world'): Promis
   expect(log.status, log.text).toBe(200);
   const up = await owner.request('POST', `/api/patterns/${patternId}/uploads`, { body: uploadForm(TINY_PNG) });
   expect(up.status, up.text).toBe(201);
+  const printed = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: { copies: 'single' } });
+  expect(printed.status, printed.text).toBe(202);
+  const printSetId: string = printed.json.printSet.id;
+  for (let i = 0; i < 600; i++) {
+    const s = await owner.get(`/api/patterns/${patternId}/print-sets/${printSetId}`);
+    if (s.json.printSet.status === 'done') break;
+    if (s.json.printSet.status === 'failed') throw new Error(`world print set failed: ${s.json.printSet.error}`);
+    if (i === 599) throw new Error('world print set did not finish within 60 s');
+    await new Promise((r) => setTimeout(r, 100));
+  }
   return {
+    printSetId,
     owner,
     ownerCredentials,
     partner,
