@@ -9,6 +9,9 @@
  * of patterns, each with its known head revision), so a save is a real new revision, not a 409.
  * Afterwards the stored revisions are counted and compared with the 2xx answers.
  */
+// autocannon ships no types; its declaration lives beside the test helpers.
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference
+/// <reference path="../tests/support/autocannon.d.ts" />
 import autocannon from 'autocannon';
 import os from 'node:os';
 import * as piecing from '@seamwright/piecing';

@@ -150,7 +150,7 @@ export class ApiClient {
 
 let counter = 0;
 /** Credentials for a new test account with a unique address. */
-export function newCredentials(role: 'designer' | 'quilter' = 'designer', name = role): Credentials {
+export function newCredentials(role: 'designer' | 'quilter' = 'designer', name: string = role): Credentials {
   counter++;
   const tag = `${Date.now().toString(36)}${counter}${Math.random().toString(36).slice(2, 6)}`;
   return {

@@ -32,7 +32,7 @@ export interface World {
 /** Uploads `bytes` as the multipart field `file`. */
 export function uploadForm(bytes: Uint8Array, fileName = 'reference.png', type = 'image/png', field = 'file'): FormData {
   const form = new FormData();
-  form.append(field, new Blob([bytes], { type }), fileName);
+  form.append(field, new Blob([new Uint8Array(bytes)], { type }), fileName);
   return form;
 }
 
