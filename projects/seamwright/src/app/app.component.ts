@@ -23,6 +23,7 @@ import { ThemeService } from './core/theme.service';
       <nav class="sw-nav" aria-label="Main">
         @if (auth.signedIn()) {
           <a mat-button routerLink="/patterns" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Patterns</a>
+          <a mat-button routerLink="/shop" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Shop</a>
         }
         <a mat-button routerLink="/scale-check" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Scale check</a>
         @if (auth.user()?.role === 'admin') {

@@ -36,6 +36,7 @@ export const routes: Routes = [
     canActivate: [authGuard],
     loadChildren: () => import('./pattern/pattern.routes').then((m) => m.patternRoutes),
   },
+  { path: 'shop', canActivate: [authGuard], loadChildren: () => import('./shop/shop.routes').then((m) => m.shopRoutes) },
   {
     path: 'scale-check',
     loadComponent: () => import('./scale-check/scale-check.component').then((m) => m.ScaleCheckComponent),
