@@ -5,7 +5,7 @@ import type { RectIn } from './paper';
 import type { PrintTemplate } from './template-model';
 
 /** Clearance kept between a template's cutting line and the edge of its box, inches (line width). */
-export const TEMPLATE_CLEARANCE_IN = 0.04;
+export const TEMPLATE_CLEARANCE_IN = 0.02;
 
 /**
  * A template mirrored (when asked) and turned for the sheet, with its box moved to the origin:

@@ -21,7 +21,7 @@ export const TEST_SQUARE_CM_IN = 20 / 25.4;
 export const TEST_BLOCK_IN = { width: 1 + 0.12 + 20 / 25.4, height: 1 } as const;
 
 /** Space kept between things packed on a sheet, so neighbouring templates can be cut apart. */
-export const ITEM_GAP_IN = 0.14;
+export const ITEM_GAP_IN = 0.1;
 
 /** Depth of the caption strip beside every template print: section label, copy, arrow, tile key. */
 export const CAPTION_IN = 0.2;
