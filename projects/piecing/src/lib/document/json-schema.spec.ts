@@ -19,7 +19,7 @@ describe('JSON Schema', () => {
     const kinds = schema.properties.sections.items.properties.geometry.oneOf ?? schema.properties.sections.items.properties.geometry.anyOf;
     const arc = kinds.find((k: any) => k.properties.kind.const === 'arc');
     expect(arc.properties.outerRadiusIn).toMatchObject({ type: 'number', exclusiveMinimum: 0, maximum: 200 });
-    expect(arc.properties.sweepDeg).toMatchObject({ exclusiveMinimum: 0, maximum: 360 });
+    expect(arc.properties.sweepDeg).toMatchObject({ minimum: 0.01, maximum: 360 });
   });
 });
 

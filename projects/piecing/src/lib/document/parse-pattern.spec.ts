@@ -40,7 +40,7 @@ describe('parsePatternDocument', () => {
   });
 
   it('names the path of each bad field', () => {
-    expect(issuesOf((d) => (d.sections[1].geometry.sweepDeg = 0))).toEqual([{ path: 'sections.1.geometry.sweepDeg', message: 'must be more than 0° and at most 360°' }]);
+    expect(issuesOf((d) => (d.sections[1].geometry.sweepDeg = 0))).toEqual([{ path: 'sections.1.geometry.sweepDeg', message: 'must be at least 0.01° and at most 360°' }]);
     expect(issuesOf((d) => (d.sections[1].geometry.sweepDeg = 360.5))[0].path).toBe('sections.1.geometry.sweepDeg');
     expect(issuesOf((d) => (d.sections[1].geometry.innerRadiusIn = 3))).toEqual([{ path: 'sections.1.geometry.innerRadiusIn', message: 'inner radius must be smaller than outer radius' }]);
     expect(issuesOf((d) => (d.sections[1].geometry.outerRadiusIn = -1)).map((i) => i.path)).toContain('sections.1.geometry.outerRadiusIn');

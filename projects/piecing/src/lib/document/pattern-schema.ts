@@ -25,9 +25,11 @@ const coordinate = finite
 const positiveLength = finite
   .gt(0, { message: 'must be greater than zero' })
   .lte(MAX_SIZE_IN, { message: `must be at most ${MAX_SIZE_IN} in.` });
+/** Narrowest sweep accepted, in degrees: below it a section has no sewable width (and flattening has no chord). */
+export const MIN_SWEEP_DEG = 0.01;
 const sweep = finite
-  .gt(0, { message: 'must be more than 0° and at most 360°' })
-  .lte(360, { message: 'must be more than 0° and at most 360°' });
+  .gte(MIN_SWEEP_DEG, { message: 'must be at least 0.01° and at most 360°' })
+  .lte(360, { message: 'must be at least 0.01° and at most 360°' });
 const id = z
   .string()
   .min(1)
