@@ -107,8 +107,12 @@ function segmentDistance2(a: Point, b: Point, c: Point, d: Point): number {
   return Math.min(pointSegment2(a, c, d), pointSegment2(b, c, d), pointSegment2(c, a, b), pointSegment2(d, a, b));
 }
 
+function orient(p: Point, q: Point, r: Point): number {
+  return (q.x - p.x) * (r.y - p.y) - (q.y - p.y) * (r.x - p.x);
+}
+
 function segmentsCross(a: Point, b: Point, c: Point, d: Point): boolean {
-  const o = (p: Point, q: Point, r: Point) => (q.x - p.x) * (r.y - p.y) - (q.y - p.y) * (r.x - p.x);
+  const o = orient;
   const d1 = o(c, d, a);
   const d2 = o(c, d, b);
   const d3 = o(a, b, c);

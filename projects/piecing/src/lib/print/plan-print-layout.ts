@@ -355,8 +355,9 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
       const ring = prepared.template.cuttingLine.map((p) => applyAffine(m, p));
       const box = boundingRect(ring);
       const frame = compose(translation(-box.x, -box.y), m);
-      const local = ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y }));
-      entry = { mask: shapeMask(local, FILL_CELL_IN), frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
+      // The mask is made from the outline simplified within 0.02 in., grown by the same amount.
+      const local = simplifyRing(ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y })), 0.02);
+      entry = { mask: shapeMask(local, FILL_CELL_IN, 0.02), frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
       masks.set(key, entry);
     }
     return entry;

@@ -51,12 +51,15 @@ export function blockRing(grid: OccupancyGrid, ring: readonly Point[], gapIn: nu
   }
 }
 
-/** The mask of a ring whose box starts at (0, 0). */
-export function shapeMask(ring: readonly Point[], cellIn: number): ShapeMask {
+/**
+ * The mask of a ring whose box starts at (0, 0); `growIn` widens the claim (when the ring is a
+ * simplified stand-in for the real outline, by how far the real one may stray).
+ */
+export function shapeMask(ring: readonly Point[], cellIn: number, growIn = 0): ShapeMask {
   const box = boundingRect(ring);
-  const cols = Math.ceil(box.width / cellIn - 1e-9);
-  const rows = Math.ceil(box.height / cellIn - 1e-9);
-  const half = (cellIn * Math.SQRT2) / 2;
+  const cols = Math.ceil((box.width + growIn) / cellIn - 1e-9);
+  const rows = Math.ceil((box.height + growIn) / cellIn - 1e-9);
+  const half = (cellIn * Math.SQRT2) / 2 + growIn;
   const edge: number[] = [];
   const inner: number[] = [];
   for (let r = 0; r < rows; r++) {
