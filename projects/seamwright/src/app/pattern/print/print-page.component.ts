@@ -11,7 +11,10 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Observable, Subscription, map, of, switchMap } from 'rxjs';
-import { PAPER_NAMES, PAPER_SIZES, planPrintLayout, sheetCountStatement, type PaperName, type PrintLayout, type PrintOptionsInput } from '@seamwright/piecing';
+import {
+  PAPER_NAMES, PAPER_SIZES, buildPrintTemplates, planPrintLayout, printOptionsSchema, sheetCountStatement,
+  type PaperName, type PrintLayout, type PrintOptionsInput, type PrintTemplate,
+} from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { PatternsService } from '../../resources/patterns.service';
 import { PrintSetsService, formatBytes, percent } from '../../resources/print-sets.service';
@@ -76,12 +79,14 @@ export class PrintPageComponent implements OnInit {
     return !!doc && this.formValue().foundation === 'freezer-paper' && this.formValue().pressingsPerTemplate !== doc.pressingsPerTemplate;
   });
 
-  protected readonly layout = computed<{ layout: PrintLayout } | { error: string } | null>(() => {
+  protected readonly layout = computed<{ layout: PrintLayout; templates: ReadonlyMap<string, PrintTemplate> } | { error: string } | null>(() => {
     const doc = this.ctx.document();
     const v = this.formValue();
     if (!doc || this.form.invalid) return null;
     try {
-      return { layout: planPrintLayout({ ...doc, pressingsPerTemplate: v.pressingsPerTemplate }, this.options()) };
+      const planned = { ...doc, pressingsPerTemplate: v.pressingsPerTemplate };
+      const templates = buildPrintTemplates(planned, printOptionsSchema.parse(this.options()));
+      return { layout: planPrintLayout(planned, this.options()), templates: new Map(templates.map((t) => [t.id, t])) };
     } catch (err) {
       return { error: err instanceof Error ? err.message : String(err) };
     }
@@ -89,6 +94,10 @@ export class PrintPageComponent implements OnInit {
   protected readonly plan = computed(() => {
     const l = this.layout();
     return l && 'layout' in l ? l.layout : null;
+  });
+  protected readonly templates = computed(() => {
+    const l = this.layout();
+    return l && 'templates' in l ? l.templates : new Map<string, PrintTemplate>();
   });
   protected readonly planError = computed(() => {
     const l = this.layout();

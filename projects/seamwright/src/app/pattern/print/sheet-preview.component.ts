@@ -1,7 +1,10 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { PlannedSheet } from '@seamwright/piecing';
+import type { PlannedSheet, Point, PrintTemplate, SheetPlacement } from '@seamwright/piecing';
 
-/** One planned sheet, drawn small: margins, header, test squares and where each template print lands. */
+/**
+ * One planned sheet, drawn small from the print layout: margins, header, test squares, and each
+ * template print (cutting line, sewing line, seams) placed by the layout's own transform.
+ */
 @Component({
   selector: 'sw-sheet-preview',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -10,38 +13,77 @@ import type { PlannedSheet } from '@seamwright/piecing';
     @let f = s.frame;
     <figure class="sheet">
       <svg [attr.viewBox]="'0 0 ' + f.widthIn + ' ' + f.heightIn" role="img" [attr.aria-label]="'Sheet ' + s.pageNumber + ': sections ' + s.sectionLabels.join(', ')">
+        <defs>
+          @for (p of s.placements; track $index) {
+            <clipPath [attr.id]="clipId($index)"><rect [attr.x]="p.rect.x" [attr.y]="p.rect.y" [attr.width]="p.rect.width" [attr.height]="p.rect.height" /></clipPath>
+          }
+        </defs>
         <rect class="paper" x="0" y="0" [attr.width]="f.widthIn" [attr.height]="f.heightIn" />
         <rect class="margin" [attr.x]="f.printable.x" [attr.y]="f.printable.y" [attr.width]="f.printable.width" [attr.height]="f.printable.height" />
         <rect class="header" [attr.x]="f.header.x" [attr.y]="f.header.y" [attr.width]="f.header.width" [attr.height]="f.header.height" />
         <rect class="test" [attr.x]="f.testBlock.x" [attr.y]="f.testBlock.y" width="1" height="1" />
         @for (p of s.placements; track $index) {
-          <g>
+          @let t = templates().get(p.templateId);
+          @if (t) {
+            <g [attr.clip-path]="'url(#' + clipId($index) + ')'">
+              <g [attr.transform]="matrix(p.transform)">
+                <polygon class="cut" [attr.points]="points(t.cuttingLine)" />
+                <polygon class="sew" [attr.points]="points(t.sewingLine)" />
+                @for (seam of t.seams; track $index) {
+                  <line class="seam" [attr.x1]="seam.a.x" [attr.y1]="seam.a.y" [attr.x2]="seam.b.x" [attr.y2]="seam.b.y" />
+                }
+              </g>
+            </g>
+          } @else {
             <rect class="print" [attr.x]="p.rect.x" [attr.y]="p.rect.y" [attr.width]="p.rect.width" [attr.height]="p.rect.height" />
-            <text class="label" [attr.x]="p.rect.x + p.rect.width / 2" [attr.y]="p.rect.y + p.rect.height / 2" text-anchor="middle" dominant-baseline="middle"
-              [attr.font-size]="labelSize(p.rect.width, p.rect.height)">{{ p.sectionLabel }}@if (p.tile) {·{{ p.tile.row }},{{ p.tile.column }}}</text>
-          </g>
+          }
+          <text class="label" [attr.x]="captionAt(p).x" [attr.y]="captionAt(p).y" font-size="0.22">
+            {{ p.sectionLabel }} {{ p.copy }}/{{ p.copies }}@if (p.tile) { · tile {{ p.tile.row }},{{ p.tile.column }}}
+          </text>
         }
       </svg>
       <figcaption>Sheet {{ s.pageNumber }} · {{ s.sectionLabels.join(', ') }}</figcaption>
     </figure>
   `,
   styles: `
-    .sheet { margin: 0; width: 150px; }
-    svg { width: 100%; height: auto; display: block; filter: drop-shadow(0 1px 2px rgba(0,0,0,.25)); }
+    .sheet { margin: 0; width: 170px; }
+    svg { width: 100%; height: auto; display: block; box-shadow: 0 1px 3px rgba(0,0,0,.3); }
     .paper { fill: #fff; }
     .margin { fill: none; stroke: #c9bfb6; stroke-width: 0.03; stroke-dasharray: 0.1 0.08; }
     .header { fill: #efe6ea; }
     .test { fill: none; stroke: #222; stroke-width: 0.03; }
     .print { fill: #f3dcea; stroke: #5b2a54; stroke-width: 0.04; }
+    .cut { fill: #f7ecf2; stroke: #5b2a54; stroke-width: 0.04; stroke-dasharray: 0.12 0.06; }
+    .sew { fill: none; stroke: #3a1435; stroke-width: 0.035; }
+    .seam { stroke: #3a1435; stroke-width: 0.03; }
     .label { fill: #3a1435; font-family: Roboto, sans-serif; font-weight: 700; }
-    figcaption { font-size: 0.8rem; margin-top: 4px; color: var(--mat-sys-on-surface-variant); }
+    figcaption { font-size: 0.8rem; margin-top: 6px; color: var(--mat-sys-on-surface-variant); }
   `,
 })
 export class SheetPreviewComponent {
   /** The sheet to draw. */
   readonly sheet = input.required<PlannedSheet>();
+  /** The print templates, by id, as the layout was planned from. */
+  readonly templates = input<ReadonlyMap<string, PrintTemplate>>(new Map());
+  private static next = 0;
+  private readonly uid = `sw-sheet-${SheetPreviewComponent.next++}`;
 
-  protected labelSize(w: number, h: number): number {
-    return Math.max(0.25, Math.min(1, Math.min(w, h) / 3));
+  protected clipId(i: number): string {
+    return `${this.uid}-${i}`;
+  }
+
+  /** The layout's transform written as an SVG matrix (same six numbers, same order). */
+  protected matrix(m: SheetPlacement['transform']): string {
+    return `matrix(${m.a} ${m.b} ${m.c} ${m.d} ${m.e} ${m.f})`;
+  }
+
+  /** Where the print's caption starts: in its caption strip, or at the top-left of the print. */
+  protected captionAt(p: SheetPlacement): Point {
+    const r = p.caption?.rect ?? p.rect;
+    return { x: r.x + 0.05, y: r.y + Math.min(r.height, 0.2) * 0.8 + (p.caption ? 0 : 0.05) };
+  }
+
+  protected points(ring: readonly Point[]): string {
+    return ring.map((p) => `${p.x},${p.y}`).join(' ');
   }
 }
