@@ -74,8 +74,8 @@ export function drawTileMap(pen: PdfPen, area: RectIn, label: string, tile: Tile
       const rect = { x: x0 + c * cell, y: y0 + r * cell, width: cell, height: cell };
       pen.rect(rect, { widthPt: 0.4, colour: INK }, here ? '#c8c8c8' : undefined);
       const page = tile.pageOf[`${r + 1},${c + 1}`];
-      if (page && cell >= 0.14) {
-        pen.text(String(page), { x: rect.x + cell / 2, y: rect.y + cell / 2 }, { sizePt: 5, align: 'center', baseline: 'middle' });
+      if (page && cell >= 0.12) {
+        pen.text(String(page), { x: rect.x + cell / 2, y: rect.y + cell / 2 }, { sizePt: cell >= 0.16 ? 5 : 4, align: 'center', baseline: 'middle' });
       }
     }
   }
