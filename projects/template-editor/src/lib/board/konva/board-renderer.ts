@@ -68,7 +68,7 @@ export class BoardRenderer {
     this.referenceLayer.add(this.referenceContent);
     this.staticLayer.add(this.staticContent);
     this.activeLayer.add(this.activeContent);
-    this.stage.add(this.gridLayer, this.referenceLayer, this.staticLayer, this.activeLayer, this.overlayLayer, this.rulerLayer);
+    this.stage.add(this.gridLayer, this.referenceLayer, this.staticLayer, this.activeLayer, this.rulerLayer, this.overlayLayer);
     this.unsubscribe.push(editor.store.subscribe(() => this.schedule()));
     this.unsubscribe.push(editor.onViewChange(() => this.schedule()));
     this.renderNow();
@@ -115,6 +115,10 @@ export class BoardRenderer {
 
   /** Draws now. */
   renderNow(): void {
+    if (this.frame) {
+      cancelAnimationFrame(this.frame);
+      this.frame = 0;
+    }
     const ed = this.editor;
     const v = ed.viewport;
     const doc = ed.store.document;
@@ -136,15 +140,15 @@ export class BoardRenderer {
       }
     }
 
-    const snap = ed.store.snapshot();
-    const activeId = snap.gestureSectionId ?? snap.selection.sectionId;
+    const selection = ed.store.selection;
+    const activeId = ed.store.gestureSectionId ?? selection.sectionId;
     const fabrics = new Map<string, Fabric>(doc.fabrics.map((f) => [f.id, f]));
     const settingsKey = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabricKey(doc)}`;
     const seen = new Set<string>();
     doc.sections.forEach((section) => {
       seen.add(section.id);
       const active = section.id === activeId;
-      const key = `${settingsKey}|${active ? `sel:${snap.selection.patchIndex}` : ''}`;
+      const key = `${settingsKey}|${active ? `sel:${selection.patchIndex}` : ''}`;
       const old = this.entries.get(section.id);
       // Sections keep the order they were added in; a section going back from the active layer lands on top.
       if (old && old.section === section && old.active === active && old.key === key) return;
@@ -157,7 +161,7 @@ export class BoardRenderer {
         analysis: ed.analysis,
         fabrics,
         selected: active,
-        selectedPatchIndex: active ? snap.selection.patchIndex : null,
+        selectedPatchIndex: active ? selection.patchIndex : null,
         allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
         scale: v.scale,
         mirrored: v.mirrored,
@@ -181,6 +185,7 @@ export class BoardRenderer {
     }
 
     if (viewChanged) {
+      this.rulerLayer.draw();
       this.gridLayer.draw();
       this.referenceLayer.draw();
       this.draws.grid++;
@@ -218,11 +223,13 @@ export class BoardRenderer {
     const cursor = ed.cursor;
     if (cursor) {
       const p = toScreen(v, cursor);
+      // Where the pointer is, marked on both rulers.
+      this.overlayLayer.add(new Konva.Line({ points: [p.x, 0, p.x, RULER_PX], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
+      this.overlayLayer.add(new Konva.Line({ points: [0, p.y, RULER_PX, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
       this.overlayLayer.add(new Konva.Line({ points: [p.x - 6, p.y, p.x + 6, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
       this.overlayLayer.add(new Konva.Line({ points: [p.x, p.y - 6, p.x, p.y + 6], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
     }
     this.overlayLayer.draw();
-    this.rulerLayer.draw();
     this.draws.overlay++;
   }
 

@@ -104,15 +104,6 @@ export function createRulerShape(view: () => GridView): Konva.Shape {
       ctx.fillRect(0, 0, RULER_PX, RULER_PX);
       ctx.fillStyle = BOARD_COLOURS.rulerInk;
       ctx.fillText(v.unit, 4, 7);
-      if (v.cursorPx) {
-        ctx.strokeStyle = BOARD_COLOURS.snap;
-        ctx.beginPath();
-        ctx.moveTo(Math.round(v.cursorPx.x) + 0.5, 0);
-        ctx.lineTo(Math.round(v.cursorPx.x) + 0.5, RULER_PX);
-        ctx.moveTo(0, Math.round(v.cursorPx.y) + 0.5);
-        ctx.lineTo(RULER_PX, Math.round(v.cursorPx.y) + 0.5);
-        ctx.stroke();
-      }
     },
   });
 }

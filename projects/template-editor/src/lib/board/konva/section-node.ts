@@ -134,9 +134,10 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
         if (o.selected && o.selectedPatchIndex === p.index) {
           copy.add(new Konva.Line({ name: 'selected-patch', points: flat(p.polygon), closed: true, fill: 'rgba(31,122,140,0.18)', stroke: BOARD_COLOURS.selection, strokeWidth: 1.5, dash: [4, 3], strokeScaleEnabled: false, listening: false }));
         }
-        addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, failing || o.selected ? Infinity : patchSizeIn(p.polygon));
+        addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, o.selected ? Infinity : patchSizeIn(p.polygon));
       }
-      if (!sewability.ok && sewability.reason) {
+      // The reason in words goes with the selected section; others show the outline and a red number.
+      if (o.selected && !sewability.ok && sewability.reason) {
         const failing = patches.find((p) => p.number === sewability.failingPatchNumber);
         const at = failing?.anchor ?? outline[0];
         if (at) addReason(copy, sewability.reason, at, o);

@@ -1,4 +1,4 @@
-import { expandRingRepeat, polygonBounds, type Bounds, type PatternDocument, type Point } from '@seamwright/piecing';
+import { expandRingRepeat, polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 import type { GeometryPort } from '../analysis/geometry-port';
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
@@ -42,6 +42,7 @@ export class BoardEditor {
   private readOnlyValue = false;
   private targets: { doc: PatternDocument; exclude: string | undefined; list: SnapTarget[] } | null = null;
   private edges: { doc: PatternDocument; rings: Point[][] } | null = null;
+  private readonly targetCache = new WeakMap<Section, SnapTarget[]>();
   private readonly viewListeners = new Set<() => void>();
   private readonly ctx: ToolContext;
 
@@ -297,7 +298,7 @@ export class BoardEditor {
   private snap(p: Point, edges: boolean, excludeSectionId?: string): SnapResult {
     const doc = this.store.document;
     if (!this.targets || this.targets.doc !== doc || this.targets.exclude !== excludeSectionId) {
-      this.targets = { doc, exclude: excludeSectionId, list: collectSnapTargets(doc, excludeSectionId) };
+      this.targets = { doc, exclude: excludeSectionId, list: collectSnapTargets(doc, excludeSectionId, this.targetCache) };
     }
     let rings: Point[][] = [];
     if (edges) {

@@ -1,4 +1,4 @@
-import { pointOnCircle, degToRad, type PatternDocument, type Point } from '@seamwright/piecing';
+import { pointOnCircle, degToRad, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 
 /** Grid snap settings offered on the board. */
 export type GridSnap = 'off' | 'eighth-in' | 'quarter-in' | 'half-in' | 'half-cm';
@@ -45,10 +45,24 @@ export function snapToGrid(p: Point, grid: GridSnap): Point {
 }
 
 /** The points of the document one can snap to: outline vertices, arc corners, seam ends and circle centres. */
-export function collectSnapTargets(document: PatternDocument, excludeSectionId?: string): SnapTarget[] {
+export function collectSnapTargets(document: PatternDocument, excludeSectionId?: string, cache?: WeakMap<Section, SnapTarget[]>): SnapTarget[] {
   const out: SnapTarget[] = [];
   for (const s of document.sections) {
     if (s.id === excludeSectionId) continue;
+    let own = cache?.get(s);
+    if (!own) {
+      own = sectionSnapTargets(s);
+      cache?.set(s, own);
+    }
+    for (const t of own) out.push(t);
+  }
+  return out;
+}
+
+/** The snap targets of one section. */
+export function sectionSnapTargets(s: Section): SnapTarget[] {
+  const out: SnapTarget[] = [];
+  {
     const g = s.geometry;
     if (g.kind === 'straight') {
       for (const v of g.vertices) out.push({ point: v, kind: 'vertex', sectionId: s.id });

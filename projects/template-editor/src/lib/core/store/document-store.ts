@@ -42,6 +42,11 @@ export class DocumentStore {
     return this.gesture !== null;
   }
 
+  /** Id of the section the gesture in progress changes, if any. */
+  get gestureSectionId(): string | null {
+    return this.gesture?.sectionId ?? null;
+  }
+
   /** Whether there is a step to undo. */
   get canUndo(): boolean {
     return this.history.canUndo;
