@@ -44,12 +44,11 @@ export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHea
  */
 export function drawTestSquares(pen: PdfPen, block: RectIn): void {
   const inch = { x: block.x, y: block.y, width: TEST_SQUARE_IN, height: TEST_SQUARE_IN };
-  const cm = {
-    x: block.x + TEST_SQUARE_IN + 0.12,
-    y: block.y + TEST_SQUARE_IN - TEST_SQUARE_CM_IN,
-    width: TEST_SQUARE_CM_IN,
-    height: TEST_SQUARE_CM_IN,
-  };
+  // Side by side when the block is wider than tall, else the 2 cm square below the 1 in. one.
+  const cm =
+    block.width >= block.height
+      ? { x: block.x + TEST_SQUARE_IN + 0.12, y: block.y + TEST_SQUARE_IN - TEST_SQUARE_CM_IN, width: TEST_SQUARE_CM_IN, height: TEST_SQUARE_CM_IN }
+      : { x: block.x, y: block.y + TEST_SQUARE_IN + 0.12, width: TEST_SQUARE_CM_IN, height: TEST_SQUARE_CM_IN };
   const line = { widthPt: 0.5, colour: INK };
   pen.rect(inch, line);
   pen.rect(cm, line);

@@ -110,14 +110,25 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
   const labels = template.patches.map((p) => applyAffine(placement.transform, p.labelAt));
   const candidates: Point[] = [];
   for (const at of labels.slice(0, 40)) {
-    for (const [dx, dy] of [[0, 0.36], [0, -0.42], [0.5, -0.1], [-0.5, -0.1], [0.6, 0.3], [-0.6, 0.3]]) candidates.push({ x: at.x + dx, y: at.y + dy });
+    for (const [dx, dy] of [[0, 0.36], [0, -0.42], [0.5, -0.1], [-0.5, -0.1], [0.6, 0.3], [-0.6, 0.3], [0, 0.7], [0, -0.75], [0.9, 0], [-0.9, 0]]) candidates.push({ x: at.x + dx, y: at.y + dy });
   }
+  const seams = template.seams.map((seg) => [applyAffine(placement.transform, seg.a), applyAffine(placement.transform, seg.b)]);
+  const guides = template.guideLines.map((seg) => [applyAffine(placement.transform, seg.a), applyAffine(placement.transform, seg.b)]);
+  const lines = [...seams, ...guides];
+  const tagHalf = placement.tile ? 0 : 0.42;
   let best: Point | null = null;
-  let bestScore = 0.12;
+  let bestScore = 0.1;
   for (const c of candidates) {
     if (!insideRing(c, outline)) continue;
-    let score = Math.min(distanceToRing(c, outline), distanceToRing({ x: c.x, y: c.y + 0.24 }, outline) - 0.1);
-    for (const l of labels) score = Math.min(score, Math.hypot(c.x - l.x, (c.y - l.y) * 1.6) - 0.12, Math.hypot(c.x - l.x, (c.y + 0.24 - l.y) * 1.6) - 0.2);
+    // Arrow point, and the tag below it (its middle and both ends), kept off the outline, seams and labels.
+    const probes = [c, { x: c.x, y: c.y - 0.13 }, { x: c.x, y: c.y + 0.25 }, { x: c.x - tagHalf, y: c.y + 0.25 }, { x: c.x + tagHalf, y: c.y + 0.25 }];
+    let score = Infinity;
+    for (const p of probes) {
+      if (!insideRing(p, outline)) score = -1;
+      score = Math.min(score, distanceToRing(p, outline) - 0.04);
+      for (const [a, b] of lines) score = Math.min(score, distanceToSegment(p, a, b) - 0.04);
+      for (const l of labels) score = Math.min(score, Math.hypot((p.x - l.x) * 0.7, (p.y - l.y) * 1.6) - 0.16);
+    }
     if (score > bestScore) {
       bestScore = score;
       best = c;
@@ -127,11 +138,11 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
   const d = unit(applyLinear(placement.transform, template.orientation.direction));
   drawArrow(pen, best, d, 0.26);
   const word = template.orientation.towards === 'centre' ? 'centre' : 'top';
-  pen.text(word, { x: best.x - d.x * 0.2, y: best.y - d.y * 0.2 }, { sizePt: 5, align: 'center', baseline: 'middle', colour: '#333333' });
+  pen.text(word, { x: best.x + 0.1 + Math.abs(d.x) * 0.06, y: best.y }, { sizePt: 5, baseline: 'middle', colour: '#333333' });
   if (!placement.tile) {
     // Whole templates have no caption strip: section and copy are written beside the arrow.
     const tag = placement.copies > 1 ? `${template.sectionLabel} · copy ${placement.copy} of ${placement.copies}` : `Section ${template.sectionLabel}`;
-    pen.text(tag, { x: best.x, y: best.y + 0.24 }, { sizePt: 6, bold: true, align: 'center', baseline: 'middle' });
+    pen.text(tag, { x: best.x, y: best.y + 0.25 }, { sizePt: 6, bold: true, align: 'center', baseline: 'middle' });
   }
 }
 
@@ -148,6 +159,14 @@ function insideRing(p: Point, ring: readonly Point[]): boolean {
     if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
   }
   return odd;
+}
+
+function distanceToSegment(p: Point, a: Point, b: Point): number {
+  const vx = b.x - a.x;
+  const vy = b.y - a.y;
+  const len2 = vx * vx + vy * vy;
+  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
+  return Math.hypot(a.x + vx * t - p.x, a.y + vy * t - p.y);
 }
 
 function distanceToRing(p: Point, ring: readonly Point[]): number {

@@ -5,7 +5,7 @@ import { MaxRectsBin, PACKING_LOGIC, Rectangle } from 'maxrects-packer/dist/maxr
 import type { Point } from '../document/index';
 import { boundingRect } from './layout-geometry';
 import { separated } from './nest-pair';
-import type { PaperName, SheetOrientation } from './paper';
+import type { PaperName, RectIn, SheetOrientation } from './paper';
 import { ITEM_GAP_IN, sheetFrame, type SheetFrame } from './sheet-frame';
 
 /** Something to place on a sheet: its size in inches and whether a quarter turn is allowed. */
@@ -38,7 +38,8 @@ export interface PackedSheet<T> {
 
 interface Try<T> {
   placed: PackedItem<T>[];
-  block: { x: number; y: number };
+  /** Where the test squares went; side by side when wider than tall, else one above the other. */
+  block: { x: number; y: number; width: number; height: number };
 }
 
 const ORDERS: Array<(a: PackItem<unknown>, b: PackItem<unknown>) => number> = [
@@ -171,11 +172,14 @@ function fitsAlone(item: PackItem<unknown>, frame: SheetFrame): boolean {
 }
 
 /** The first spot (row by row from the top-left, 0.1 in. steps) where the test block clears every outline. */
-function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], outlines: ItemOutlines<T>): { x: number; y: number } | null {
-  const c = frame.content;
-  const bw = frame.testBlock.width;
-  const bh = frame.testBlock.height;
+function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], outlines: ItemOutlines<T>): Try<T>['block'] | null {
   const obstacles = placed.flatMap((p) => outlines(p)).map((ring) => ({ ring, box: boundingRect(ring) }));
+  const { width, height } = frame.testBlock;
+  return scanBlock(frame, obstacles, width, height) ?? scanBlock(frame, obstacles, height, width);
+}
+
+function scanBlock(frame: SheetFrame, obstacles: Array<{ ring: Point[]; box: RectIn }>, bw: number, bh: number): Try<never>['block'] | null {
+  const c = frame.content;
   const g = ITEM_GAP_IN;
   const step = 0.1;
   for (let y = c.y; y + bh <= c.y + c.height + 1e-9; y += step) {
@@ -189,7 +193,7 @@ function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], o
           break;
         }
       }
-      if (clear) return { x, y };
+      if (clear) return { x, y, width: bw, height: bh };
     }
   }
   return null;
@@ -206,7 +210,8 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
     logic,
   });
   const block = new Rectangle(frame.testBlock.width + g, frame.testBlock.height + g);
-  block.allowRotation = false;
+  // The squares may stand one above the other when that fits better.
+  block.allowRotation = true;
   if (blockAt === 'first') bin.add(block);
   const placed: PackedItem<T>[] = [];
   for (const item of items) {
@@ -225,5 +230,5 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
   }
   if (blockAt === 'free') return { placed };
   if (blockAt === 'last' && !bin.add(block)) return null;
-  return { placed, block: { x: frame.content.x + block.x, y: frame.content.y + block.y } };
+  return { placed, block: { x: frame.content.x + block.x, y: frame.content.y + block.y, width: block.width - g, height: block.height - g } };
 }
