@@ -102,6 +102,21 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
           perfectDrawEnabled: false,
         }),
       );
+      if (p.stripBands) {
+        const ring = p.polygon;
+        const bands = new Konva.Group({
+          listening: false,
+          clipFunc: (ctx) => {
+            ctx.beginPath();
+            ring.forEach((q, i) => (i === 0 ? ctx.moveTo(q.x, q.y) : ctx.lineTo(q.x, q.y)));
+            ctx.closePath();
+          },
+        });
+        for (const band of p.stripBands) {
+          bands.add(new Konva.Line({ points: flat(band.polygon), closed: true, fill: o.fabrics.get(band.fabricId)?.colour ?? BOARD_COLOURS.emptyPatch, listening: false, perfectDrawEnabled: false }));
+        }
+        copy.add(bands);
+      }
       for (const [a, b] of p.guideLines) {
         copy.add(new Konva.Line({ points: [a.x, a.y, b.x, b.y], stroke: BOARD_COLOURS.guideLine, strokeWidth: 1.5, dash: [6, 3], strokeScaleEnabled: false, listening: false }));
       }

@@ -16,6 +16,8 @@ export interface BoardPatch {
   stripSet?: StripSet;
   /** Guide lines of a strip set on this patch, as segments in inches. */
   guideLines: Array<[Point, Point]>;
+  /** The strips of a strip set as bands across the patch (to draw clipped to the patch outline). */
+  stripBands?: Array<{ fabricId: string; polygon: Point[] }>;
 }
 
 /** Result of the sewability check of one section's piecing order. */

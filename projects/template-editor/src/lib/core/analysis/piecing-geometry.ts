@@ -1,5 +1,7 @@
 import {
   checkSewability,
+  degToRad,
+  type StripSetLayout,
   derivePatches,
   findSewableOrder,
   flattenSectionOutline,
@@ -49,6 +51,25 @@ function samePolygon(a: readonly Point[], b: readonly Point[]): boolean {
   return a.length === b.length && a.length > 0 && a[0].x === b[0].x && a[0].y === b[0].y && a[a.length - 1].x === b[b.length - 1].x;
 }
 
+/**
+ * Bands to draw each strip of a laid-out strip set: the strip's finished part across the set, long
+ * enough along the strips to cover the patch (drawing clips them to the patch). The outer strips reach
+ * out to the patch edges, as the fabric does once sewn and trimmed.
+ */
+function stripBands(layout: StripSetLayout, polygon: readonly Point[]): Array<{ fabricId: string; polygon: Point[] }> {
+  const b = polygonBounds(polygon);
+  const reach = Math.hypot(b.maxX - b.minX, b.maxY - b.minY) + 1;
+  const a = degToRad(layout.axisAngleDeg);
+  const u = { x: Math.cos(a), y: Math.sin(a) };
+  const n = { x: -u.y, y: u.x };
+  const at = (along: number, across: number): Point => ({ x: layout.centre.x + u.x * along + n.x * across, y: layout.centre.y + u.y * along + n.y * across });
+  return layout.strips.map((st, i) => {
+    const from = i === 0 ? -reach : st.fromAcrossIn;
+    const to = i === layout.strips.length - 1 ? reach : st.toAcrossIn;
+    return { fabricId: st.fabricId, polygon: [at(-reach, from), at(reach, from), at(reach, to), at(-reach, to)] };
+  });
+}
+
 /** The geometry port answered by `@seamwright/piecing`. */
 export function piecingGeometry(): GeometryPort {
   return {
@@ -72,7 +93,9 @@ export function piecingGeometry(): GeometryPort {
         if (p.stripSet) {
           out.stripSet = p.stripSet;
           try {
-            out.guideLines = layoutStripSet(p.polygon, p.stripSet).guideLines.flatMap((g) => g.segments.map((seg): [Point, Point] => [seg.a, seg.b]));
+            const layout = layoutStripSet(p.polygon, p.stripSet);
+            out.guideLines = layout.guideLines.flatMap((g) => g.segments.map((seg): [Point, Point] => [seg.a, seg.b]));
+            out.stripBands = stripBands(layout, p.polygon);
           } catch {
             // A strip set that does not fit shows no guide lines; the properties panel says why.
           }

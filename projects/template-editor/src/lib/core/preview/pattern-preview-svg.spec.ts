@@ -61,6 +61,24 @@ describe('renderPatternPreviewSvg', () => {
     expect(mirrored).toContain('matrix(-1,0,0,1,24,0)');
   });
 
+  it('draws a strip-set patch as its strips, clipped to the patch', () => {
+    const doc = pattern();
+    const withStrips = {
+      ...doc,
+      fabrics: [...doc.fabrics, { id: 'oat', name: 'Oat', colour: '#e8dcc0', usableWofIn: 42 }],
+      sections: [
+        {
+          ...doc.sections[0],
+          patches: [{ number: 1, anchor: { x: 2, y: 4 }, stripSet: { id: 't1', strips: [{ fabricId: 'plum', finishedWidthIn: 2 }, { fabricId: 'oat', finishedWidthIn: 1 }, { fabricId: 'plum', finishedWidthIn: 2 }], axisAngleDeg: 90, offsetIn: 0 } }],
+        },
+      ],
+    };
+    const root = parse(renderPatternPreviewSvg(withStrips, { widthPx: 480, window: createSVGWindow() })).querySelector('svg')!;
+    expect(root.querySelectorAll('clipPath')).toHaveLength(1);
+    const fills = [...root.querySelectorAll('g[clip-path] polygon')].map((p) => p.getAttribute('fill'));
+    expect(fills).toEqual(['#6b2d5c', '#e8dcc0', '#6b2d5c']);
+  });
+
   it('refuses a width that is not a positive number', () => {
     expect(() => renderPatternPreviewSvg(pattern(), { widthPx: 0, window: createSVGWindow() })).toThrow(/widthPx/);
   });

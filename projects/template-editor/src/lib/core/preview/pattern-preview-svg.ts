@@ -63,6 +63,12 @@ export function renderPatternPreviewSvg(document: PatternDocument, options: Patt
       for (const p of patches) {
         const fill = (p.stripSet ? colours.get(p.stripSet.strips[0]?.fabricId ?? '') : p.fabricId ? colours.get(p.fabricId) : undefined) ?? EMPTY;
         g.polygon(pointsAttr(p.polygon)).fill(fill).stroke({ color: INK, width: strokeIn * 0.6, linejoin: 'round' });
+        if (p.stripBands) {
+          const clip = draw.clip();
+          clip.polygon(pointsAttr(p.polygon));
+          const bands = g.group().clipWith(clip);
+          for (const band of p.stripBands) bands.polygon(pointsAttr(band.polygon)).fill(colours.get(band.fabricId) ?? EMPTY);
+        }
         if (copy === 0) {
           let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
           for (const q of p.polygon) {
