@@ -2,9 +2,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildGardenGate, buildOrchardWheel } from '../demo/index';
 import { planCopies, sectionSeamAllowance } from '../fabrication/index';
 import { polygonArea, signedArea } from '../geometry/index';
-import { inspectPdf, rectangleSides, signedAreaPt, type PdfPageInfo, type PdfPath } from './pdf-inspect';
+import { inspectPdf, rectangleSides, signedAreaPt, type PdfPageInfo, type PdfPath } from './testing/pdf-inspect';
 import { renderPrintSet, type PrintSetResult } from './render-print-set';
-import { readShippedFonts } from './print-test-fixtures';
+import { readShippedFonts } from './testing/print-test-fixtures';
 
 // 1 pt = 1/72 in. (ISO 32000-1 §8.3.2.3); 1 in. = 25.4 mm exactly, so 2 cm = 20 × 72 / 25.4 pt.
 const CM2_PT = (20 * 72) / 25.4;

@@ -6,7 +6,7 @@ import { layoutTemplates } from './plan-print-layout';
 import { planPrintLayout } from './render-print-set';
 import { buildPrintTemplates } from './print-templates';
 import { ITEM_GAP_IN } from './sheet-frame';
-import { asymmetricBlock, testMedallion } from './print-test-fixtures';
+import { asymmetricBlock, testMedallion } from './testing/print-test-fixtures';
 import type { RectIn } from './paper';
 
 const turn = (pts: { x: number; y: number }[], a: number) =>

@@ -2,10 +2,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildCuttingList, planCopies, sectionSeamAllowance } from '../fabrication/index';
 import { polygonArea, signedArea } from '../geometry/index';
 import { applyAffine, type Affine } from './affine';
-import { inspectPdf, rectangleSides, signedAreaPt, type PdfPageInfo, type PdfPath } from './pdf-inspect';
+import { inspectPdf, rectangleSides, signedAreaPt, type PdfPageInfo, type PdfPath } from './testing/pdf-inspect';
 import { renderPrintSet, type PrintSetResult } from './render-print-set';
 import { PAPER_NAMES, type PaperName } from './paper';
-import { asymmetricBlock, readShippedFonts, testMedallion } from './print-test-fixtures';
+import { asymmetricBlock, readShippedFonts, testMedallion } from './testing/print-test-fixtures';
 import type { PatternDocument } from '../document/index';
 
 // Reference values (not taken from our own tables):

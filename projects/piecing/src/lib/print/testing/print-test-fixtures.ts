@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { readPatternDocument, type PatternDocument, type Point } from '../document/index';
-import type { PrintFonts } from './print-options';
+import { readPatternDocument, type PatternDocument, type Point } from '../../document/index';
+import type { PrintFonts } from '../print-options';
 
 /*
  * Test-only helpers (never exported from the library): the shipped fonts read from disk, and small
@@ -10,7 +10,7 @@ import type { PrintFonts } from './print-options';
 
 /** The shipped fonts from the repository's fonts/ folder. */
 export function readShippedFonts(): PrintFonts {
-  const dir = new URL('../../../../../fonts/', import.meta.url);
+  const dir = new URL('../../../../../../fonts/', import.meta.url);
   return {
     regular: new Uint8Array(readFileSync(fileURLToPath(new URL('Roboto-Regular.ttf', dir)))),
     bold: new Uint8Array(readFileSync(fileURLToPath(new URL('Roboto-Bold.ttf', dir)))),
