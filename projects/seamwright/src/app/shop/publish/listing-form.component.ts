@@ -51,7 +51,7 @@ export interface ListingForm {
     .top { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; }
     .top h3 { margin: 8px 0; font: var(--mat-sys-title-medium); }
     .top a { text-decoration: none; }
-    .fields { display: flex; flex-wrap: wrap; gap: 12px; margin-top: 8px; }
+    .fields { display: flex; flex-wrap: wrap; gap: 12px; margin-top: 8px; align-items: flex-start; }
     .price { width: 220px; }
     .desc { flex: 1 1 320px; }
   `,
@@ -88,6 +88,7 @@ export class ListingFormComponent {
     if (!e) return '';
     if (e['server']) return String(e['server']);
     if (e['required']) return 'A price is required';
+    if (e['pattern']) return `Whole ${this.unit()} only`;
     if (e['min']) return `At least ${MIN_PRICE_MINOR} ${this.unit()} (${formatMoney(MIN_PRICE_MINOR, c)})`;
     if (e['max']) return `At most ${formatMoney(MAX_PRICE_MINOR, c)}`;
     return `Whole ${this.unit()} only`;

@@ -27,10 +27,10 @@ import { ListingFormComponent, type ListingForm } from './listing-form.component
     @if (state.loading() && !state.value()) { <mat-progress-bar mode="indeterminate" aria-label="Loading your shop" /> }
     <section class="card" aria-labelledby="currency-title">
       <h2 id="currency-title">Shop currency</h2>
-      <form class="row" (ngSubmit)="saveCurrency()">
+      <form class="row" [formGroup]="currencyForm" (ngSubmit)="saveCurrency()">
         <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>Currency</mat-label>
-          <mat-select [formControl]="currency">
+          <mat-select formControlName="currency">
             @for (c of currencies; track c) { <mat-option [value]="c">{{ c.toUpperCase() }} — {{ names[c] }}</mat-option> }
           </mat-select>
         </mat-form-field>
@@ -71,6 +71,7 @@ export class PublishSettingsComponent implements OnInit {
   protected readonly currencies = SHOP_CURRENCIES;
   protected readonly names = CURRENCY_NAMES;
   protected readonly currency = new FormControl<ShopCurrency>('usd', { nonNullable: true });
+  protected readonly currencyForm = new FormGroup({ currency: this.currency });
   private readonly currencyValue = toSignal(this.currency.valueChanges, { initialValue: this.currency.value });
   protected readonly savingCurrency = signal(false);
   protected readonly saving = signal<string | null>(null);
