@@ -5,6 +5,7 @@
  * `{ error, details }` body and no stack trace — never a 5xx, never a hang (each request has a
  * 10 s limit) and never a crash (the process must still be running and answering health checks).
  */
+import net from 'node:net';
 import fc from 'fast-check';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { ApiClient, type ApiResponse } from '../support/api-client';
@@ -84,6 +85,7 @@ const numberSegmentArb = fc.oneof(fc.integer({ min: -5, max: 5 }).map(String), f
 /** Route templates; `:id` etc. are filled from the arbitraries. */
 const ROUTES: [string, string][] = [
   ['GET', '/api/auth/me'],
+  ['GET', '/api/auth/session'],
   ['POST', '/api/auth/change-password'],
   ['POST', '/api/auth/password-reset'],
   ['POST', '/api/auth/password-reset/confirm'],
@@ -361,7 +363,26 @@ describe('fast-check over the API', () => {
     expect(proto.status).toBe(400);
     const me = await send(c, 'GET', '/api/auth/me');
     expect(me.json.user.role).toBe('designer');
-    // A header-only request with a lying content length is cut off by the server or the client, not a hang.
+    // 100 connections that stall half-way (headers never finished, or a body shorter than its
+    // Content-Length) do not hold up anyone else.
+    const sockets: net.Socket[] = [];
+    for (let i = 0; i < 100; i++) {
+      const sock = net.connect(server.port, '127.0.0.1');
+      sock.on('error', () => undefined);
+      sock.write(
+        i % 2 === 0
+          ? `PUT /api/patterns/${id} HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: application/json\r\nContent-Length: 100000\r\n\r\n{"baseRevision":`
+          : `GET /api/patterns HTTP/1.1\r\nHost: 127.0.0.1\r\nX-Slow: `,
+      );
+      sockets.push(sock);
+    }
+    try {
+      await expectHealthy();
+      const stillServing = await send(c, 'GET', `/api/patterns/${id}`);
+      expect(stillServing.status).toBe(200);
+    } finally {
+      for (const sock of sockets) sock.destroy();
+    }
     const unknownRoute = await send(c, 'GET', '/api/this/does/not/exist');
     expect(unknownRoute.status).toBe(404);
     await expectHealthy();

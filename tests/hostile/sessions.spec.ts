@@ -59,6 +59,9 @@ describe('stolen and forged session cookies', () => {
     expect(me.status).toBe(401);
     expectCleanAnswer(me, 'me after sign-out');
     expect((await thief.get('/api/patterns')).status).toBe(401);
+    const session = await thief.get('/api/auth/session');
+    expect(session.status).toBe(200);
+    expect(session.json.user).toBeNull();
     const read = await thief.get(`/api/patterns/${id}`);
     expect(read.status).toBe(404);
     expect(read.json.error).toBe('Pattern not found');
