@@ -1,6 +1,6 @@
 /**
  * Print sets (issue 4): the demo medallion "Orchard Wheel" and a 1,000-patch stress pattern on
- * Letter — time to render the PDF, peak memory, size, and sheets N against the area lower bound
+ * Letter (and the medallion on Tabloid for comparison) — time to render the PDF, peak memory, size, and sheets N against the area lower bound
  * M = ceil(total template area / printable area). Target on the medallion: N ≤ 1.3 × M (reported,
  * never asserted). Each case runs in its own child process so its peak RSS (getrusage maxRSS) is
  * its own, not the benchmark runner's.
@@ -31,7 +31,8 @@ interface CaseResult {
 /** Child mode: render one case RUNS times and print the figures as JSON. */
 async function child(which: string): Promise<void> {
   const piecing = await import('../projects/piecing/src/public-api');
-  const document = which === 'medallion' ? piecing.buildOrchardWheel() : piecing.buildStressPattern(1000);
+  const document = which.startsWith('medallion') ? piecing.buildOrchardWheel() : piecing.buildStressPattern(1000);
+  const paper = which.endsWith('tabloid') ? 'tabloid' : 'letter';
   const fonts = await piecing.loadPrintFonts((f) => readFile(join(fontsDir, f)));
   let peakHeap = 0;
   const sampler = setInterval(() => (peakHeap = Math.max(peakHeap, process.memoryUsage().heapUsed)), 5);
@@ -39,7 +40,7 @@ async function child(which: string): Promise<void> {
   let last: Awaited<ReturnType<typeof piecing.renderPrintSet>> | null = null;
   for (let i = 0; i < RUNS; i++) {
     const t0 = performance.now();
-    last = await piecing.renderPrintSet(document, { paper: 'letter', createdAt: '2026-12-01T00:00:00Z', fonts });
+    last = await piecing.renderPrintSet(document, { paper, createdAt: '2026-12-01T00:00:00Z', fonts });
     times.push(performance.now() - t0);
   }
   clearInterval(sampler);
@@ -69,16 +70,17 @@ async function runCase(which: string): Promise<CaseResult> {
 export default async function printBench(): Promise<BenchSection> {
   const rows: BenchSection['rows'] = [];
   const notes: string[] = [];
-  for (const [which, label] of [
-    ['medallion', 'Orchard Wheel (demo medallion), paper foundations'],
-    ['stress', 'stress pattern, 1,000 patches'],
+  for (const [which, label, paper] of [
+    ['medallion', 'Orchard Wheel (demo medallion), paper foundations', 'Letter, ½ in. margins'],
+    ['stress', 'stress pattern, 1,000 patches', 'Letter, ½ in. margins'],
+    ['medallion-tabloid', 'Orchard Wheel, for comparison', 'Tabloid, ½ in. margins'],
   ] as const) {
     const r = await runCase(which);
     const t = summarise(r.times);
     const ratio = r.templateSheets / r.lowerBound;
     rows.push({
       case: label,
-      paper: 'Letter, ½ in. margins',
+      paper,
       templates_prints: `${r.templates} / ${r.prints}`,
       render_ms_median: ms(t.medianMs),
       render_ms_min_max: `${ms(t.minMs)}–${ms(t.maxMs)}`,
