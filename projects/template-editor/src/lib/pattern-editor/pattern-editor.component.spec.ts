@@ -76,6 +76,16 @@ describe('PatternEditorComponent', () => {
     expect([...el.querySelectorAll('button')].some((b) => b.textContent?.trim() === 'Undo')).toBe(false);
   });
 
+  it('keeps the undo history when the saved copy of the same drawing comes back, and marks it saved', () => {
+    const { fixture, host, session } = setUp();
+    session.apply('Title', (d) => ({ ...d, title: 'Mine' }));
+    host.doc.set(JSON.parse(JSON.stringify(session.document())));
+    fixture.detectChanges();
+    expect(session.canUndo()).toBe(true);
+    expect(session.dirty()).toBe(false);
+    expect(host.dirty).toEqual([true, false]);
+  });
+
   it('takes a new document from the server as a load: history cleared, not dirty', () => {
     const { fixture, host, session } = setUp();
     session.apply('Title', (d) => ({ ...d, title: 'Mine' }));

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, untracked } from '@angular/core';
 import type { PatternDocument } from '@seamwright/piecing';
 import { DraftingBoardComponent } from '../board/drafting-board.component';
+import { diffValues } from '../core/public-api';
 import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
 import { PropertiesPanelComponent } from '../properties/properties-panel.component';
 import { EditorSession } from '../session/editor-session';
@@ -11,8 +12,9 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
  * The whole pattern editor for the app: toolbar, Drafting board, status line, properties panel and
  * piecing-order list around one editing session.
  *
- * - `[document]` opens a pattern. A document object the editor did not emit itself is loaded (never
- *   recorded in undo, history cleared); passing back the object it emitted changes nothing.
+ * - `[document]` opens a pattern. A different drawing is loaded (never recorded in undo, history
+ *   cleared); the same drawing again (the object it emitted, or an equal copy from the server after a
+ *   save) keeps the history and only marks the document saved.
  * - `(documentChange)` emits the new document after every change (command, end of a drag, undo, redo).
  * - `(dirtyChange)` emits whether there are changes since the last load or {@link markSaved}.
  * - Call {@link markSaved} after a save succeeded.
@@ -63,7 +65,11 @@ export class PatternEditorComponent {
     effect(() => {
       const doc = this.document();
       untracked(() => {
-        if (doc && doc !== this.session.editor.store.document) this.session.load(doc);
+        const store = this.session.editor.store;
+        if (!doc || doc === store.document) return;
+        // The same drawing coming back (e.g. the stored copy after a save) keeps the undo history.
+        if (diffValues(doc, store.document).length === 0) store.markSaved();
+        else this.session.load(doc);
       });
     });
     effect(() => {
