@@ -1,4 +1,4 @@
-import { and, count, desc, eq, inArray, or, sql } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, isNotNull, or, sql } from 'drizzle-orm';
 import express, { type Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
@@ -31,6 +31,12 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     if (access === 'owner') throw new HttpError(409, 'This is your own pattern');
     if (access) throw new HttpError(409, 'You have this pattern already', { access });
     const { stripe } = requirePayments(payments);
+    // A checkout still open for this buyer and pattern is offered again, so one purchase is never paid twice.
+    const open = await openCheckout(stripe, user.id, found.pattern.id);
+    if (open) {
+      res.status(200).json({ order: orderJson(open.order), checkoutUrl: open.url });
+      return;
+    }
     const order = db
       .insert(orders)
       .values({
@@ -79,6 +85,24 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     const stored = db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning().get();
     res.status(201).json({ order: orderJson(stored), checkoutUrl: session.url });
   });
+
+  /** The buyer's newest pending order for the pattern whose checkout session is still open at the provider. */
+  async function openCheckout(stripe: Payments['stripe'], buyerId: string, patternId: string) {
+    const pending = db
+      .select()
+      .from(orders)
+      .where(and(eq(orders.buyerId, buyerId), eq(orders.patternId, patternId), eq(orders.status, 'pending'), isNotNull(orders.checkoutSessionId)))
+      .orderBy(desc(orders.createdAt))
+      .get();
+    if (!pending?.checkoutSessionId) return undefined;
+    try {
+      const session = await stripe.checkout.sessions.retrieve(pending.checkoutSessionId);
+      return session.status === 'open' && session.url ? { order: pending, url: session.url } : undefined;
+    } catch (err) {
+      ctx.log(`checkout session ${pending.checkoutSessionId} could not be read`, err);
+      return undefined;
+    }
+  }
 
   router.get('/purchases', (req, res) => {
     const user = currentUser(req);

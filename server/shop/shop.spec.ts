@@ -292,6 +292,39 @@ describe('buying', () => {
   });
 });
 
+describe('abandoned and repeated checkouts', () => {
+  it('offers a checkout still open again instead of a second one, so nobody pays twice', async () => {
+    const ruth = await userClient(t.app, 'ruth@shop.test', 'quilter');
+    const sessionsBefore = fake.sessions.size;
+    const first = await ruth.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    const again = await ruth.post(`/api/shop/listings/${listedId}/checkout`).expect(200);
+    expect(again.body.checkoutUrl).toBe(first.body.checkoutUrl);
+    expect(again.body.order.id).toBe(first.body.order.id);
+    expect(fake.sessions.size).toBe(sessionsBefore + 1);
+
+    // Cancel on the hosted page goes back to the listing, marked as cancelled; nothing is paid.
+    const sessionId = first.body.checkoutUrl.split('/').pop();
+    const cancel = await fetch(`${fake.url}/checkout/${sessionId}/cancel`, { method: 'POST', redirect: 'manual' });
+    expect(cancel.status).toBe(303);
+    expect(cancel.headers.get('location')).toBe(`http://localhost:4200/shop/patterns/${listedId}?cancelled=1`);
+    expect((await ruth.get(`/api/patterns/${listedId}`)).status).toBe(404);
+
+    // The provider expires the session (after 24 h at the real service; here through the SDK): the order ends.
+    const sdk = new Stripe(SK, { host: '127.0.0.1', port: fake.port, protocol: 'http' });
+    await sdk.checkout.sessions.expire(sessionId);
+    const expired = await until(async () => {
+      const o = (await ruth.get(`/api/shop/orders/${first.body.order.id}`)).body.order;
+      return o.status === 'expired' ? o : undefined;
+    }, 'the expiry event');
+    expect(expired.paidAt).toBeNull();
+    expect((await ruth.get('/api/shop/purchases')).body.items).toEqual([]);
+    const fresh = await ruth.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    expect(fresh.body.checkoutUrl).not.toBe(first.body.checkoutUrl);
+    // The old hosted page is closed.
+    expect((await fetch(first.body.checkoutUrl)).status).toBe(410);
+  });
+});
+
 describe('without payment keys', () => {
   it('answers 503 for checkout and webhook, and browsing still works', async () => {
     const bare = await startTestServer();

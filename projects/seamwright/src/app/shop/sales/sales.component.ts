@@ -26,7 +26,11 @@ import { orderStatusLabel } from '../order-status';
         @for (t of page.totals; track t.currency) {
           <div class="total"><span class="big">{{ money(t.amountMinor, t.currency) }}</span><span class="sw-muted">{{ t.orders }} paid {{ t.orders === 1 ? 'order' : 'orders' }}</span></div>
         } @empty {
-          <p class="sw-muted">No paid orders yet. <a routerLink="/shop/publish">Publish a pattern</a> to start selling.</p>
+          @if (page.items.length) {
+            <p class="sw-muted">No paid orders at the moment: every sale below was refunded.</p>
+          } @else {
+            <p class="sw-muted">No paid orders yet. <a routerLink="/shop/publish">Publish a pattern</a> to start selling.</p>
+          }
         }
       </section>
       <div class="sw-table-wrap">
