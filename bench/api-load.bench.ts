@@ -13,6 +13,8 @@
 // eslint-disable-next-line @typescript-eslint/triple-slash-reference
 /// <reference path="../tests/support/autocannon.d.ts" />
 import autocannon from 'autocannon';
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
 import os from 'node:os';
 import * as piecing from '@seamwright/piecing';
 import { signedInClient } from '../tests/support/api-client';
@@ -24,7 +26,29 @@ const CONNECTIONS = 50;
 const RUNS = 3;
 const SECONDS = 5;
 
-type Result = autocannon.Result;
+type Result = autocannon.Result & { serverCpuMs?: number };
+
+/** Clock ticks per second of /proc/<pid>/stat times (getconf CLK_TCK; 100 on Linux almost always). */
+const CLK_TCK = (() => {
+  try {
+    return Number(execFileSync('getconf', ['CLK_TCK']).toString().trim()) || 100;
+  } catch {
+    return 100;
+  }
+})();
+
+/** CPU time (user + system) the process has used so far, in ms; undefined off Linux. */
+function cpuMs(pid: number | undefined): number | undefined {
+  if (!pid) return undefined;
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    // Fields 14 and 15 of proc(5) (utime, stime), counted from 1 with pid and comm first.
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / CLK_TCK;
+  } catch {
+    return undefined;
+  }
+}
 
 /** The demo "Garden Gate" when the piecing library has its builder, else a 3 × 3 grid block. */
 function benchDocument(title: string): unknown {
@@ -36,8 +60,14 @@ function benchDocument(title: string): unknown {
   return gridDocument(title, 3, 3, 4);
 }
 
+let serverPid: number | undefined;
+
 async function run(opts: autocannon.Options): Promise<Result> {
-  return (await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts })) as Result;
+  const before = cpuMs(serverPid);
+  const result: Result = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
+  const after = cpuMs(serverPid);
+  if (before !== undefined && after !== undefined) result.serverCpuMs = after - before;
+  return result;
 }
 
 function summaryRow(name: string, target: string, results: Result[]) {
@@ -45,6 +75,9 @@ function summaryRow(name: string, target: string, results: Result[]) {
   const total2xx = results.reduce((s, r) => s + r['2xx'], 0);
   const non2xx = results.reduce((s, r) => s + r.non2xx, 0);
   const errors = results.reduce((s, r) => s + r.errors + r.timeouts, 0);
+  const cpu = results.reduce((s, r) => s + (r.serverCpuMs ?? Number.NaN), 0);
+  const answered = results.reduce((s, r) => s + r['2xx'] + r.non2xx, 0);
+  const cpuPerRequest = cpu / answered;
   return {
     scenario: name,
     connections: CONNECTIONS,
@@ -57,6 +90,8 @@ function summaryRow(name: string, target: string, results: Result[]) {
     answers_2xx: total2xx,
     non_2xx: non2xx,
     errors,
+    server_cpu_ms_per_req: Number.isFinite(cpuPerRequest) ? cpuPerRequest.toFixed(2) : 'n/a',
+    one_core_capacity_req_per_s: Number.isFinite(cpuPerRequest) ? Math.round(1000 / cpuPerRequest) : 'n/a',
     target,
   };
 }
@@ -65,6 +100,7 @@ export default async function apiLoad(): Promise<BenchSection> {
   let server: ServerProcess | undefined;
   try {
     server = await startServerProcess({ env: { NODE_ENV: 'production', SEAMWRIGHT_SECRET: 'bench-secret-'.padEnd(48, 'x') } });
+    serverPid = server.child?.pid;
     const { client } = await signedInClient(server.baseUrl, 'designer', 'load');
     const docJson = JSON.stringify(benchDocument('Load block'));
     // 60 patterns to list (three pages of 20) and to save onto.
@@ -151,6 +187,8 @@ export default async function apiLoad(): Promise<BenchSection> {
           'A 409 comes after such a cut-off save, whose pattern head the benchmark did not see advance.',
         `Server: NODE_ENV=production, one process, SQLite WAL, synchronous=NORMAL. Load average (1/5/15 min) at the end: ${load} on ${os.cpus().length} cores — other work on the machine lowers these figures.`,
         'Latency percentiles are autocannon\'s (HdrHistogram) per run; the median of the runs is shown, max is the largest of all runs.',
+        'server_cpu_ms_per_req: CPU time the server process used (user + system, /proc/<pid>/stat) over the timed runs, divided by the answers; ' +
+          'one_core_capacity = 1000 / that: what one core would serve with nothing else on it. It does not depend on other load on the machine, unlike req/s.',
       ],
     };
   } finally {
