@@ -1,3 +1,5 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type TestServer } from './test/harness';
 
@@ -31,6 +33,7 @@ interface Fixture {
   id: string;
   uploadId: string;
   invitationId: string;
+  printSetId: string;
 }
 
 /** A fresh pattern shared with co (co-designer), quilter and extra (quilters), with an upload and an invitation. */
@@ -44,8 +47,21 @@ async function fixture(trashed = false): Promise<Fixture> {
   expect(up.status).toBe(201);
   const inv = await clients.owner.post(`/api/patterns/${id}/invitations`, { email: 'later@matrix.test', access: 'quilter' });
   expect(inv.status).toBe(201);
+  // A finished print set made by the owner, stored as the renderer stores it (rendering itself has its
+  // own tests; here only who may reach it matters).
+  const printSetId = `ps${Math.random().toString(36).slice(2, 12)}`;
+  const storagePath = `print-sets/${clients.owner.user!.id}/${printSetId}.pdf`;
+  fs.mkdirSync(path.join(t.dataDir, path.dirname(storagePath)), { recursive: true });
+  fs.writeFileSync(path.join(t.dataDir, storagePath), '%PDF-1.4\n%%EOF\n');
+  const rev = t.ctx.database.sqlite.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(id) as { id: string };
+  t.ctx.database.sqlite
+    .prepare(
+      `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, sheets, bytes, sha256, storage_path, created_at, finished_at)
+       VALUES (?, ?, ?, 1, ?, '{}', 'done', 1, 1, 15, 'x', ?, ?, ?)`,
+    )
+    .run(printSetId, id, rev.id, clients.owner.user!.id, storagePath, Date.now(), Date.now());
   if (trashed) await clients.owner.post(`/api/patterns/${id}/trash`).expect(200);
-  return { id, uploadId: up.body.upload.id, invitationId: inv.body.invitation.id };
+  return { id, uploadId: up.body.upload.id, invitationId: inv.body.invitation.id, printSetId };
 }
 
 interface Case {
@@ -86,6 +102,10 @@ const CASES: Case[] = [
   { name: 'read upload file', method: 'get', path: (f) => `/api/patterns/${f.id}/uploads/${f.uploadId}/file`, expect: READ },
   { name: 'delete upload', method: 'delete', path: (f) => `/api/patterns/${f.id}/uploads/${f.uploadId}`, expect: EDIT(204) },
   { name: 'list print sets', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets`, expect: READ },
+  { name: 'read print set', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}`, expect: READ },
+  { name: 'follow print set events', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}/events`, expect: READ },
+  { name: 'download print set', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}/file`, expect: READ },
+  { name: "delete the owner's print set", method: 'delete', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}`, expect: { owner: 204, co: 403, quilter: 403, stranger: 404, anon: 404 } },
   { name: 'request print set', method: 'post', path: (f) => `/api/patterns/${f.id}/print-sets`, body: () => ({ options: {} }), expect: { owner: 202, co: 202, quilter: 202, stranger: 404, anon: 404 } },
 ];
 
@@ -118,6 +138,9 @@ describe('access matrix', () => {
     await s.del(`/api/patterns/${mine}/uploads/${theirs.uploadId}`).expect(404);
     await s.del(`/api/patterns/${mine}/invitations/${theirs.invitationId}`).expect(404);
     await s.patch(`/api/patterns/${mine}/members/${clients.quilter.user!.id}`, { access: 'co-designer' }).expect(404);
+    await s.get(`/api/patterns/${mine}/print-sets/${theirs.printSetId}`).expect(404);
+    await s.get(`/api/patterns/${mine}/print-sets/${theirs.printSetId}/file`).expect(404);
+    await s.del(`/api/patterns/${mine}/print-sets/${theirs.printSetId}`).expect(404);
   });
 
   it('signed-out visitors get 401 on the list and create routes', async () => {
