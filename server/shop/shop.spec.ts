@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import fc from 'fast-check';
 import request from 'supertest';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -322,6 +323,34 @@ describe('abandoned and repeated checkouts', () => {
     expect(fresh.body.checkoutUrl).not.toBe(first.body.checkoutUrl);
     // The old hosted page is closed.
     expect((await fetch(first.body.checkoutUrl)).status).toBe(410);
+  });
+});
+
+describe('hostile input', () => {
+  it('never answers 5xx to random bodies on the shop routes or random bytes on the webhook', async () => {
+    const before = snapshot();
+    await fc.assert(
+      fc.asyncProperty(fc.jsonValue(), fc.string({ maxLength: 40 }), async (body, id) => {
+        const target = id.length > 0 ? encodeURIComponent(id) : listedId;
+        for (const res of [
+          await designer.put(`/api/shop/listings/${target}`, { value: body } as object),
+          await designer.put('/api/shop/mine', (typeof body === 'object' && body !== null ? body : { currency: body }) as object),
+          await stranger.post(`/api/shop/listings/${target}/checkout`, {}),
+          await stranger.get(`/api/shop/orders/${target}`),
+          await stranger.post(`/api/shop/sales/${target}/refund`, {}),
+          await postWebhook(JSON.stringify(body), `t=${Math.floor(Date.now() / 1000)},v1=${Buffer.from(id).toString('hex')}`),
+        ]) {
+          expect(res.status, `${res.req.method} ${res.req.path}`).toBeLessThan(500);
+        }
+      }),
+      { numRuns: 40, seed: 9 },
+    );
+    const big = await postWebhook('x'.repeat(300 * 1024), 't=1,v1=00');
+    expect(big.status).toBe(413);
+    // Nothing random reached the orders, members or handled events.
+    const after = snapshot();
+    expect(after.events).toBe(before.events);
+    expect(after.members).toBe(before.members);
   });
 });
 
