@@ -38,7 +38,12 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   const close = async () => {
     if (closing) return;
     closing = true;
-    await new Promise<void>((resolve) => server.close(() => resolve()));
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+    // Idle keep-alive sockets go now; open streams (print-set events) get two seconds.
+    server.closeIdleConnections();
+    const force = setTimeout(() => server.closeAllConnections(), 2000);
+    await closed;
+    clearTimeout(force);
     await printSets.close();
     mailer.close();
     database.close();
