@@ -12,8 +12,6 @@ import { PatternsPage } from './pages/patterns.page';
 
 const run = Date.now().toString(36);
 const designer = { name: 'Bea Board', email: `bea-${run}@example.test`, password: 'arc-split-four-4', role: 'designer' as const };
-const C: InchPoint = { x: 12, y: 12 };
-const polar = (r: number, deg: number): InchPoint => ({ x: C.x + r * Math.cos((deg * Math.PI) / 180), y: C.y + r * Math.sin((deg * Math.PI) / 180) });
 const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/board-${name}.png` });
 
 test('draw an arc section, split it into four patches, renumber, undo and reload', async ({ page }) => {
@@ -29,35 +27,44 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   await board.ready();
   await shot(page, 'empty');
 
+  // The arc goes round the middle of the drawing area, in whole inches so the ⅛ in. snap keeps them.
+  const area = await board.canvas();
+  const m = Math.min(area.widthIn, area.heightIn);
+  const C: InchPoint = { x: Math.round(area.widthIn / 2), y: Math.round(area.heightIn / 2) };
+  const outer = Math.floor(0.45 * m);
+  const inner = Math.floor(0.25 * m);
+  const mid = (inner + outer) / 2;
+  const polar = (r: number, deg: number): InchPoint => ({ x: C.x + r * Math.cos((deg * Math.PI) / 180), y: C.y + r * Math.sin((deg * Math.PI) / 180) });
+
   // Arc section: press at the centre, drag out to the outer radius along 0°, release; click the
   // inner radius; click the end angle (90°). The ⅛ in. grid snap makes the numbers exact.
   await board.tool('a');
   await expect(board.board()).toHaveAttribute('data-tool', 'arc');
-  await board.drag(C, { x: 20, y: 12 });
+  await board.drag(C, polar(outer, 0));
   await expect(board.board()).toHaveAttribute('data-tool-state', 'inner');
-  await board.click({ x: 17, y: 12 });
-  await board.click({ x: 12, y: 18 });
+  await board.click(polar(inner, 0));
+  await board.click(polar(mid, 90));
   await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
-  await expect(page.getByLabel('Inner radius')).toHaveValue('5');
-  await expect(page.getByLabel('Outer radius')).toHaveValue('8');
+  await expect(page.getByLabel('Inner radius')).toHaveValue(String(inner));
+  await expect(page.getByLabel('Outer radius')).toHaveValue(String(outer));
   await expect(page.getByLabel('Sweep (°)')).toHaveValue('90');
   await shot(page, 'arc');
 
   // Split: three radial seams from the inner to the outer arc.
   await board.tool('l');
-  for (const deg of [22.5, 45, 67.5]) await board.drag(polar(5, deg), polar(8, deg));
+  for (const deg of [22.5, 45, 67.5]) await board.drag(polar(inner, deg), polar(outer, deg));
   expect(await board.counts()).toEqual({ sections: 1, seams: 3 });
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
   await expect.poll(() => board.orderLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
 
   // Renumber along the arc: a sewable order.
   await board.tool('n');
-  for (const deg of [10, 30, 55, 80]) await board.click(polar(6.5, deg));
+  for (const deg of [10, 30, 55, 80]) await board.click(polar(mid, deg));
   await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
   await shot(page, 'split-four');
 
   // Renumber to an order that jumps across the arc: A2 (at 55°) shares no seam with A1 (at 10°).
-  for (const deg of [10, 55, 30, 80]) await board.click(polar(6.5, deg));
+  for (const deg of [10, 55, 30, 80]) await board.click(polar(mid, deg));
   await expect(board.verdict()).toHaveText(/cannot be sewn in this order at A2: A2 shares no seam/);
   await expect(board.verdict()).toHaveAttribute('role', 'alert');
   await expect(page.locator('li.failing')).toHaveAttribute('data-label', 'A2');
@@ -76,9 +83,9 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 3 });
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
   await board.tool('v');
-  await board.click(polar(6.5, 45));
+  await board.click(polar(mid, 33));
   await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
-  await expect(page.getByLabel('Outer radius')).toHaveValue('8');
+  await expect(page.getByLabel('Outer radius')).toHaveValue(String(outer));
   await shot(page, 'reloaded');
   expect(errors).toEqual([]);
 });

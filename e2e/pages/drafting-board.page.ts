@@ -81,6 +81,14 @@ export class DraftingBoardPage {
     });
   }
 
+  /** The drawing area of the board's document, in inches. */
+  async canvas(): Promise<{ widthIn: number; heightIn: number }> {
+    return this.page.evaluate(() => {
+      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: { editor: { store: { document: { canvas: { widthIn: number; heightIn: number } } } } } };
+      return el.swBoard.editor.store.document.canvas;
+    });
+  }
+
   /** Number of sections and seams in the board's document. */
   async counts(): Promise<{ sections: number; seams: number }> {
     return this.page.evaluate(() => {
