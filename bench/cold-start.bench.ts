@@ -19,6 +19,23 @@ const ROOT = fileURLToPath(new URL('../', import.meta.url));
 const RUNS = 5;
 const sleep = (t: number) => new Promise((r) => setTimeout(r, t));
 
+/** Clock ticks per second of /proc/<pid>/stat (100 on Linux almost always). */
+const CLK_TCK = 100;
+
+/** CPU ms (user + system) used so far by a process and all its descendants; undefined off Linux. */
+function treeCpuMs(pid: number): number | undefined {
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    let total = ((Number(f[11]) + Number(f[12])) * 1000) / CLK_TCK;
+    const children = fs.readFileSync(`/proc/${pid}/task/${pid}/children`, 'utf8').trim();
+    for (const c of children ? children.split(/\s+/) : []) total += treeCpuMs(Number(c)) ?? 0;
+    return total;
+  } catch {
+    return undefined;
+  }
+}
+
 async function firstAnswer(url: string, deadline: number, alive: () => boolean): Promise<number | undefined> {
   for (let i = 0; i < 100_000 && performance.now() < deadline; i++) {
     if (!alive()) return undefined;
@@ -59,10 +76,11 @@ async function oneStart(dataDir: string, smtpPort: number, seed: boolean) {
   try {
     const health = await firstAnswer(`http://127.0.0.1:${port}/api/health`, t0 + 60_000, () => !exited);
     if (health === undefined) throw new Error(`no health answer within 60 s: ${stderr.slice(-500)}`);
+    const cpuMs = child.pid ? treeCpuMs(child.pid) : undefined;
     const page = fs.existsSync(path.join(ROOT, 'dist/seamwright/browser/index.html'))
       ? await firstAnswer(`http://127.0.0.1:${port}/`, t0 + 60_000, () => !exited)
       : undefined;
-    return { healthMs: health - t0, pageMs: page === undefined ? undefined : page - t0 };
+    return { healthMs: health - t0, pageMs: page === undefined ? undefined : page - t0, cpuMs };
   } finally {
     // tsx runs the server in a child node process: end the whole group.
     const done = new Promise((r) => child.once('exit', r));
@@ -91,13 +109,15 @@ export default async function coldStart(): Promise<BenchSection> {
     // One untimed start warms tsx's transform cache (as any second `npm start` finds it).
     const existing = fresh();
     const warm = await oneStart(existing, mail.smtpPort, true);
-    const freshRuns: { healthMs: number; pageMs?: number }[] = [];
-    const existingRuns: { healthMs: number; pageMs?: number }[] = [];
+    type Run = { healthMs: number; pageMs?: number; cpuMs?: number };
+    const freshRuns: Run[] = [];
+    const existingRuns: Run[] = [];
     for (let i = 0; i < RUNS; i++) {
       freshRuns.push(await oneStart(fresh(), mail.smtpPort, true));
       existingRuns.push(await oneStart(existing, mail.smtpPort, true));
     }
-    const row = (name: string, runs: { healthMs: number; pageMs?: number }[]) => {
+    const row = (name: string, runs: Run[]) => {
+      const cpu = runs.map((r) => r.cpuMs).filter((v): v is number => v !== undefined);
       const h = summarise(runs.map((r) => r.healthMs));
       const pages = runs.map((r) => r.pageMs).filter((v): v is number => v !== undefined);
       const p = pages.length ? summarise(pages) : undefined;
@@ -107,6 +127,7 @@ export default async function coldStart(): Promise<BenchSection> {
         health_median_ms: ms(h.medianMs),
         health_min_max_ms: `${ms(h.minMs)}–${ms(h.maxMs)}`,
         first_page_median_ms: p ? ms(p.medianMs) : 'no build',
+        cpu_to_first_answer_median_ms: cpu.length ? ms(summarise(cpu).medianMs) : 'n/a',
       };
     };
     return {
@@ -115,6 +136,8 @@ export default async function coldStart(): Promise<BenchSection> {
       notes: [
         `First start of this run (tsx transform cache cold or stale): ${ms(warm.healthMs)} ms to /api/health; not counted above.`,
         'NODE_ENV=production, demo seeding on, fake mail server in the benchmark process; timed from spawn to the first 200 answer.',
+        'cpu_to_first_answer: CPU time (user + system, /proc) of tsx and the server process it starts, up to the first answer: what the start costs with the machine to itself, whatever else runs on it.',
+        `Load average (1/5/15 min) at the end: ${os.loadavg().map((v) => v.toFixed(1)).join(' / ')} on ${os.cpus().length} cores.`,
         '`npm start` also runs `ng build seamwright` first (about 15–28 s here, stack notes); that is not part of this figure.',
       ],
     };
