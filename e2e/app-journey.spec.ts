@@ -11,6 +11,7 @@ import { SharePage } from './pages/share.page';
 import { SewingLogPage } from './pages/sewing-log.page';
 import { ScaleCheckPage } from './pages/scale-check.page';
 import { linkIn, waitForMail } from './pages/mail-inbox';
+import { DraftingBoardPage, type InchPoint } from './pages/drafting-board.page';
 
 /*
  * The app's journey against the real server with a fresh database (see playwright.config.ts):
@@ -23,6 +24,8 @@ const designer = { name: 'Dana Designer', email: `dana-${run}@example.test`, pas
 const quilter = { name: 'Quinn Quilter', email: `quinn-${run}@example.test`, password: 'marigold-ink-22', role: 'quilter' as const };
 const stranger = { name: 'Sam Stranger', email: `sam-${run}@example.test`, password: 'nobody-invited-3', role: 'designer' as const };
 
+const C: InchPoint = { x: 12, y: 12 };
+const polar = (r: number, deg: number): InchPoint => ({ x: C.x + r * Math.cos((deg * Math.PI) / 180), y: C.y + r * Math.sin((deg * Math.PI) / 180) });
 const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/app-${name}.png`, fullPage: true });
 
 /** Pages in a PDF, read by Mozilla's pdf.js (an independent reader). */
@@ -60,14 +63,30 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await page.getByRole('button', { name: 'New pattern' }).click();
   await shot(page, 'new-pattern-dialog');
   await page.keyboard.press('Escape');
-  const patternId = await patterns.create('Harvest Ring', 'Ring of eight arcs');
+  const patternId = await patterns.create('Harvest Ring', 'Blank block');
   const patternUrl = `/patterns/${patternId}`;
   const patternPage = new PatternPage(page);
   await expect(patternPage.heading()).toHaveText('Harvest Ring');
+
+  // --- Drafts an arc section (5–8 in., 90°) and splits it into 4 patches with three radial seams.
+  const board = new DraftingBoardPage(page);
+  await board.ready();
+  await board.tool('a');
+  await board.drag(C, { x: 20, y: 12 });
+  await board.click({ x: 17, y: 12 });
+  await board.click({ x: 12, y: 18 });
+  await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
+  await board.tool('l');
+  for (const deg of [22.5, 45, 67.5]) await board.drag(polar(5, deg), polar(8, deg));
+  await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+  const savedRevision = await patternPage.waitForSaved();
+  expect(savedRevision).toBeGreaterThan(1);
   await shot(page, 'board');
 
   // --- Cutting list.
   await patternPage.open('Cutting list');
+  // No fabric is filled in yet: the list says so for each of the four patches rather than guessing.
+  await expect(page.getByRole('region', { name: 'Check these first' })).toContainText('A4');
   await expect(page.getByRole('complementary', { name: 'Cautions' })).toContainText('Rotary cutters are very sharp');
   await shot(page, 'cutting-list');
 
@@ -92,7 +111,8 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
 
   // --- History.
   await patternPage.open('History');
-  await expect(page.getByRole('table', { name: 'Revisions' }).getByRole('row')).toHaveCount(2);
+  // One row per revision (the first, then every autosave) below the header row.
+  await expect(page.getByRole('table', { name: 'Revisions' }).getByRole('row')).toHaveCount(savedRevision + 1);
   await shot(page, 'history');
   await page.getByRole('link', { name: 'Open revision 1 read-only' }).click();
   await expect(page.getByText('Revision 1', { exact: false }).first()).toBeVisible();
@@ -139,7 +159,7 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await q.getByRole('button', { name: 'Accept and open the pattern' }).click();
   await q.waitForURL(new RegExp(`${patternUrl}/board$`));
   await expect(q.getByText('Read-only', { exact: false }).first()).toBeVisible();
-  await expect(new PatternPage(q).parts().getByRole('tab', { name: 'Share' })).toHaveCount(0);
+  await expect(new PatternPage(q).parts().getByRole('tab').filter({ hasText: 'Share' })).toHaveCount(0);
   await shot(q, 'board-read-only');
 
   // --- Logs a section as sewn; the log survives a reload.

@@ -16,7 +16,7 @@ export class PatternPage {
   constructor(private readonly page: Page) {}
 
   async open(part: PatternPart): Promise<void> {
-    await this.parts().getByRole('tab', { name: part }).click();
+    await this.parts().getByRole('tab').filter({ hasText: part }).click();
     await this.page.waitForURL(new RegExp(`/patterns/[^/]+/${PART_PATHS[part]}$`));
   }
 

@@ -10,7 +10,7 @@ export class ScaleCheckPage {
 
   async check(square: 'The 1 in. square' | 'The 2 cm square', measured: string, unit: 'in.' | 'cm'): Promise<void> {
     await this.page.getByRole('radio', { name: square }).click();
-    await this.page.getByRole('group', { name: 'Unit' }).getByRole('radio', { name: unit }).click();
+    await this.page.getByRole('radiogroup', { name: 'Unit' }).getByRole('radio', { name: unit }).click();
     await this.page.getByLabel('It measures').fill(measured);
     await this.page.getByRole('button', { name: 'Check' }).click();
   }

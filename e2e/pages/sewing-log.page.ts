@@ -5,11 +5,11 @@ export class SewingLogPage {
   constructor(private readonly page: Page) {}
 
   async mark(sectionLabel: string, stage: 'Not started' | 'Cut' | 'Sewn' | 'Trimmed'): Promise<void> {
-    await this.page.getByRole('group', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage }).click();
+    await this.page.getByRole('radiogroup', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage }).click();
   }
 
   stageOf(sectionLabel: string, stage: string) {
-    return this.page.getByRole('group', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage });
+    return this.page.getByRole('radiogroup', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage });
   }
 
   progress() {

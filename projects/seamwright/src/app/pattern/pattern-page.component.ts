@@ -46,7 +46,7 @@ const PARTS: PartLink[] = [
         </header>
         <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Parts of the pattern" class="sw-no-print" mat-stretch-tabs="false">
           @for (part of parts(); track part.path) {
-            <a mat-tab-link [routerLink]="part.path" routerLinkActive #rla="routerLinkActive" [active]="rla.isActive" [attr.aria-label]="part.label">
+            <a mat-tab-link [routerLink]="part.path" routerLinkActive #rla="routerLinkActive" [active]="rla.isActive">
               <mat-icon aria-hidden="true" class="tab-icon">{{ part.icon }}</mat-icon>{{ part.label }}
             </a>
           }

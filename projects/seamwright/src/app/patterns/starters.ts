@@ -19,8 +19,8 @@ export const STARTERS: readonly Starter[] = [
   {
     id: 'blank',
     name: 'Blank block',
-    description: 'An empty 12 in. square to draft on.',
-    build: (title) => ({ formatVersion: 1, title, canvas: { widthIn: 12, heightIn: 12 }, fabrics: [], sections: [] }),
+    description: 'An empty 24 in. square to draft on, with three fabrics to fill patches with.',
+    build: (title) => ({ formatVersion: 1, title, canvas: { widthIn: 24, heightIn: 24 }, fabrics, sections: [] }),
   },
   {
     id: 'two-strip-block',
@@ -32,8 +32,18 @@ export const STARTERS: readonly Starter[] = [
       canvas: { widthIn: 8, heightIn: 8 },
       fabrics,
       sections: [
-        { id: 'sec-a', label: 'A', geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 8, y: 0 }, { x: 8, y: 4 }, { x: 0, y: 4 }] } },
-        { id: 'sec-b', label: 'B', geometry: { kind: 'straight', vertices: [{ x: 0, y: 4 }, { x: 8, y: 4 }, { x: 8, y: 8 }, { x: 0, y: 8 }] } },
+        {
+          id: 'sec-a',
+          label: 'A',
+          geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 8, y: 0 }, { x: 8, y: 4 }, { x: 0, y: 4 }] },
+          patches: [{ number: 1, anchor: { x: 4, y: 2 }, fabricId: 'oat' }],
+        },
+        {
+          id: 'sec-b',
+          label: 'B',
+          geometry: { kind: 'straight', vertices: [{ x: 0, y: 4 }, { x: 8, y: 4 }, { x: 8, y: 8 }, { x: 0, y: 8 }] },
+          patches: [{ number: 1, anchor: { x: 4, y: 6 }, fabricId: 'sage' }],
+        },
       ],
     }),
   },
@@ -52,6 +62,8 @@ export const STARTERS: readonly Starter[] = [
           label: 'A',
           geometry: { kind: 'arc', centre: { x: 8, y: 8 }, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 45 },
           ringRepeat: { count: 8, centre: { x: 8, y: 8 } },
+          // Anchor inside the arc: radius 6.5 in. at 22.5°, from the centre (8, 8).
+          patches: [{ number: 1, anchor: { x: 14.005, y: 10.487 }, fabricId: 'plum' }],
         },
       ],
     }),

@@ -33,7 +33,7 @@ export class BoardAutosave {
   /** Whether edits exist that the server does not hold. */
   readonly dirty = computed(() => this.status() !== 'saved');
 
-  constructor(private readonly onSaved: (document: PatternDocument, revision: number) => void) {
+  constructor(private readonly onSaved: (document: PatternDocument, revision: number, settled: boolean) => void) {
     this.sub = this.edits.pipe(debounceTime(AUTOSAVE_DELAY_MS)).subscribe(() => this.flush());
     inject(DestroyRef).onDestroy(() => this.sub.unsubscribe());
   }
@@ -69,8 +69,9 @@ export class BoardAutosave {
         this.inFlight = false;
         this.base = number;
         this.lastSavedRevision.set(number);
-        this.onSaved(saved.revision.document, number);
-        if (this.latest === doc) {
+        const settled = this.latest === doc;
+        this.onSaved(saved.revision.document, number, settled);
+        if (settled) {
           this.latest = null;
           clearDraft(this.patternId);
           this.status.set('saved');

@@ -1,25 +1,29 @@
-import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, input, output, viewChild } from '@angular/core';
 import type { PatternDocument } from '@seamwright/piecing';
+import { PatternEditorComponent } from '@seamwright/template-editor';
 
 /**
  * Where the drafting board's editor sits on the page. The editor comes from
- * '@seamwright/template-editor'; this route's chunk is the only one that loads it (and Konva).
+ * '@seamwright/template-editor'; only the board and history routes load it (and Konva).
  */
 @Component({
   selector: 'sw-board-host',
+  imports: [PatternEditorComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <div class="host" role="region" aria-label="Drafting board">
-      <p>{{ document().sections.length }} sections on a {{ document().canvas.widthIn }} × {{ document().canvas.heightIn }} in. drawing area.</p>
-    </div>
-  `,
-  styles: `.host { min-height: 480px; border: 1px solid var(--sw-card-edge); border-radius: 12px; padding: 16px; }`,
+  template: `<sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" (documentChange)="documentChange.emit($event)" />`,
+  styles: `:host { display: block; } .editor { display: block; min-height: 560px; }`,
 })
 export class BoardHostComponent {
-  /** The document to show and edit. */
+  /** The document to open; a new object loads it into the editor (and clears its undo history). */
   readonly document = input.required<PatternDocument>();
   /** Whether the board only shows the design. */
   readonly readOnly = input(false);
-  /** Every change made on the board. */
+  /** Every change made on the board (a drag emits once, at its end). */
   readonly documentChange = output<PatternDocument>();
+  private readonly editor = viewChild(PatternEditorComponent);
+
+  /** Tells the editor its document is stored (clears its unsaved mark). */
+  markSaved(): void {
+    this.editor()?.markSaved();
+  }
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, HostListener, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, HostListener, computed, effect, inject, signal, untracked, viewChild } from '@angular/core';
 import { DatePipe } from '@angular/common';
 import { Router } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -25,7 +25,13 @@ export class BoardPageComponent implements HasUnsavedChanges {
   private readonly patterns = inject(PatternsService);
   private readonly notify = inject(NotifyService);
   private readonly router = inject(Router);
-  protected readonly autosave = new BoardAutosave((doc, rev) => this.ctx.adopt(doc, rev));
+  protected readonly autosave = new BoardAutosave((doc, rev, settled) => {
+    this.ctx.adopt(doc, rev);
+    if (settled) this.host()?.markSaved();
+  });
+  private readonly host = viewChild(BoardHostComponent);
+  /** The document the editor opened (set on load, on taking another revision, on restoring a draft). */
+  protected readonly opened = signal<PatternDocument | null>(null);
   /** The document on the board, with edits not yet saved. */
   protected readonly working = signal<PatternDocument | null>(null);
   /** A drawing kept in this browser from an earlier visit that never reached the server. */
@@ -55,6 +61,7 @@ export class BoardPageComponent implements HasUnsavedChanges {
         if (!doc || this.autosave.dirty()) return;
         if (rev === this.autosave.lastSavedRevision() && this.working()) return;
         this.working.set(doc);
+        this.opened.set(doc);
         this.autosave.reset(this.ctx.id(), rev);
         const draft = readDraft(this.ctx.id());
         this.leftover.set(draft && this.ctx.canEdit() && JSON.stringify(draft.document) !== JSON.stringify(doc) ? draft : null);
@@ -106,6 +113,7 @@ export class BoardPageComponent implements HasUnsavedChanges {
     if (!confirm('Load the other revision? Your unsaved drawing will be dropped from the board.')) return;
     this.autosave.discard();
     this.working.set(theirs.document);
+    this.opened.set(theirs.document);
     this.autosave.reset(this.ctx.id(), theirs.number);
     this.ctx.adopt(theirs.document, theirs.number);
   }
@@ -120,6 +128,7 @@ export class BoardPageComponent implements HasUnsavedChanges {
     const draft = this.leftover();
     if (!draft) return;
     this.leftover.set(null);
+    this.opened.set(draft.document);
     this.onChange(draft.document);
   }
 

@@ -45,6 +45,10 @@ export class CuttingPageComponent {
     const l = this.list();
     return l && 'error' in l ? l.error : null;
   });
+  protected readonly usedFabrics = computed(() => (this.ok()?.fabrics ?? []).filter((f) => f.pieceCount > 0 || f.stripCount > 0));
+  protected readonly unusedFabrics = computed(() =>
+    (this.ok()?.fabrics ?? []).filter((f) => f.pieceCount === 0 && f.stripCount === 0).map((f) => f.name),
+  );
   protected readonly fabricsById = computed(
     () => new Map((this.ctx.document()?.fabrics ?? []).map((f) => [f.id, { name: f.name, colour: f.colour }] as const)),
   );

@@ -30,6 +30,7 @@ export class SewingLogPageComponent implements OnInit {
   protected readonly sections = computed(() => this.ctx.document()?.sections ?? []);
   private readonly ids = computed(() => this.sections().map((s) => s.id));
   protected readonly progress = computed(() => patternProgress(this.ids(), this.stages()));
+  protected readonly percentDone = computed(() => Math.round(this.progress() * 100));
   protected readonly sewn = computed(() => countAtLeast(this.ids(), this.stages(), 'sewn'));
   protected readonly trimmed = computed(() => countAtLeast(this.ids(), this.stages(), 'trimmed'));
 
