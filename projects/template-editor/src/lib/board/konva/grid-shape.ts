@@ -33,8 +33,16 @@ export function createGridShape(view: () => GridView): Konva.Shape {
       const g = gridLines(v.viewport, v.widthPx, v.heightPx, v.unit);
       for (const major of [false, true]) {
         ctx.beginPath();
-        for (const l of g.vertical) if (l.major === major) (ctx.moveTo(Math.round(l.px) + 0.5, 0), ctx.lineTo(Math.round(l.px) + 0.5, v.heightPx));
-        for (const l of g.horizontal) if (l.major === major) (ctx.moveTo(0, Math.round(l.px) + 0.5), ctx.lineTo(v.widthPx, Math.round(l.px) + 0.5));
+        for (const l of g.vertical) {
+          if (l.major !== major) continue;
+          ctx.moveTo(Math.round(l.px) + 0.5, 0);
+          ctx.lineTo(Math.round(l.px) + 0.5, v.heightPx);
+        }
+        for (const l of g.horizontal) {
+          if (l.major !== major) continue;
+          ctx.moveTo(0, Math.round(l.px) + 0.5);
+          ctx.lineTo(v.widthPx, Math.round(l.px) + 0.5);
+        }
         ctx.strokeStyle = major ? BOARD_COLOURS.gridMajor : BOARD_COLOURS.gridMinor;
         ctx.lineWidth = 1;
         ctx.stroke();

@@ -163,7 +163,11 @@ export function setPiecingOrder(document: PatternDocument, sectionId: string, or
     const derived = port.patches(s);
     const seen = new Set<number>();
     const sequence: number[] = [];
-    for (const i of order) if (i >= 0 && i < derived.length && !seen.has(i)) (seen.add(i), sequence.push(i));
+    for (const i of order) {
+      if (i < 0 || i >= derived.length || seen.has(i)) continue;
+      seen.add(i);
+      sequence.push(i);
+    }
     const rest = derived.map((p, i) => ({ p, i })).filter(({ i }) => !seen.has(i)).sort((x, y) => x.p.number - y.p.number);
     sequence.push(...rest.map(({ i }) => i));
     const patches = materialiseAssignments(derived);

@@ -10,7 +10,9 @@ const port = piecingGeometry();
 
 /** A 90° arc section 5–8 in. split by radial seams at 22.5°, 45°, 67.5° into four patches. */
 function fourPatchArc() {
-  let { document, sectionId } = addSection(emptyPattern(), { kind: 'arc', centre: C, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 90 }, port);
+  const added = addSection(emptyPattern(), { kind: 'arc', centre: C, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 90 }, port);
+  const sectionId = added.sectionId;
+  let document = added.document;
   for (const deg of [22.5, 45, 67.5]) document = addSeam(document, sectionId, polar(C, 5, deg), polar(C, 8, deg), port);
   return { document, sectionId };
 }
@@ -47,7 +49,9 @@ describe('piecing order and sewability on the board', () => {
     // Whatever the order, the last of four patches meeting at a cross touches two earlier patches along
     // two perpendicular stretches, so no single straight seam adds it (design.md §5.3; common practice:
     // a four-patch is pieced as two sections).
-    let { document, sectionId } = addSection(emptyPattern(), { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] }, port);
+    const added = addSection(emptyPattern(), { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] }, port);
+    const sectionId = added.sectionId;
+    let document = added.document;
     document = addSeam(document, sectionId, { x: 3, y: 0 }, { x: 3, y: 6 }, port);
     document = addSeam(document, sectionId, { x: 0, y: 3 }, { x: 6, y: 3 }, port);
     expect(new SectionAnalysis(port).patches(findSection(document, sectionId)!)).toHaveLength(4);

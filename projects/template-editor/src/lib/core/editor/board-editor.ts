@@ -50,16 +50,15 @@ export class BoardEditor {
     this.store = new DocumentStore(document);
     this.analysis = new SectionAnalysis(geometry);
     this.view.mirrorWidthIn = document.canvas.widthIn;
-    const self = this;
     this.ctx = {
       store: this.store,
       analysis: this.analysis,
-      snap: (p, o) => self.snap(p, o?.edges ?? false, o?.excludeSectionId),
-      snapGrid: (p) => snapToGrid(p, self.settingsValue.grid),
-      hitRadiusIn: () => HIT_RADIUS_PX / self.view.scale,
-      activeFabricId: () => self.settingsValue.activeFabricId ?? self.store.document.fabrics[0]?.id ?? null,
-      stripWidthsIn: () => self.settingsValue.stripWidthsIn,
-      ringCount: () => self.settingsValue.ringCount,
+      snap: (p, o) => this.snap(p, o?.edges ?? false, o?.excludeSectionId),
+      snapGrid: (p) => snapToGrid(p, this.settingsValue.grid),
+      hitRadiusIn: () => HIT_RADIUS_PX / this.view.scale,
+      activeFabricId: () => this.settingsValue.activeFabricId ?? this.store.document.fabrics[0]?.id ?? null,
+      stripWidthsIn: () => this.settingsValue.stripWidthsIn,
+      ringCount: () => this.settingsValue.ringCount,
     };
     this.current = createTool('select', this.ctx);
   }
