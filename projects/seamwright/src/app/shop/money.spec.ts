@@ -1,0 +1,16 @@
+import { formatMoney, MINOR_DIGITS } from './money';
+import { SHOP_CURRENCIES } from './shop-types';
+
+describe('formatMoney', () => {
+  it('reads minor units with the currency’s own decimals', () => {
+    // ISO 4217 minor units: 2 for USD, EUR, GBP; 0 for JPY.
+    expect(formatMoney(1250, 'usd')).toBe('$12.50');
+    expect(formatMoney(1250, 'eur')).toBe('€12.50');
+    expect(formatMoney(50, 'gbp')).toBe('£0.50');
+    expect(formatMoney(1500, 'jpy')).toBe('¥1,500');
+  });
+
+  it('knows the decimals of every shop currency', () => {
+    expect(SHOP_CURRENCIES.filter((c) => MINOR_DIGITS[c] !== 2)).toEqual(['jpy']);
+  });
+});
