@@ -28,6 +28,22 @@ const fonts = {
   bold: new Uint8Array(fs.readFileSync(`${REPO_ROOT}fonts/Roboto-Bold.ttf`)),
 };
 
+const SMALL_TRIANGLE_WIDE_ALLOWANCE = {
+  formatVersion: 1 as const,
+  title: '!',
+  seamAllowanceIn: 1,
+  piecingMarginIn: 0,
+  pressingsPerTemplate: 1,
+  canvas: { widthIn: 60, heightIn: 60 },
+  sections: [
+    {
+      id: 'sec0',
+      label: 'A',
+      geometry: { kind: 'straight' as const, vertices: [{ x: 1.922, y: 0 }, { x: 0.28, y: 1.901 }, { x: -1.557, y: 1.127 }] },
+    },
+  ],
+};
+
 function parsed(input: unknown): PatternDocument {
   const result = parsePatternDocument(input);
   if (!result.ok) throw new Error(`the arbitrary made a document the schema refuses: ${JSON.stringify(result.issues)}`);
@@ -120,7 +136,14 @@ describe('random valid documents through the piecing library', () => {
         expect(result.templateSheetCount).toBeGreaterThanOrEqual(result.lowerBoundSheets);
         expect(result.sheetCount).toBeGreaterThan(result.templateSheetCount);
       }),
-      { numRuns: 40, seed: SEED, interruptAfterTimeLimit: 150_000 },
+      {
+        numRuns: 40,
+        seed: SEED,
+        interruptAfterTimeLimit: 150_000,
+        // Found by this property on 2026-12-01: a small triangle with a 1 in. seam allowance made the
+        // sheet packer throw "a 9.48 × 5.20 in. piece does not fit on one sheet". Kept as a fixed case.
+        examples: [[SMALL_TRIANGLE_WIDE_ALLOWANCE, 'letter', false]],
+      },
     );
     console.log(`valid documents: ${rendered} print sets rendered`);
     expect(rendered).toBeGreaterThanOrEqual(10);
