@@ -147,5 +147,47 @@ describe('print sets', () => {
     expect(fs.existsSync(stored)).toBe(false);
     expect(fs.existsSync(image)).toBe(false);
   });
-});
 
+  it('marks a set failed, with the reason, when its revision cannot be rendered; the file answers 409', async () => {
+    const id = await sharedPattern(t, owner, [], 'Broken');
+    // A stored document the current schema refuses (as an old, damaged row would be).
+    t.ctx.database.sqlite.prepare("UPDATE revisions SET document = '{\"formatVersion\": 99}' WHERE pattern_id = ?").run(id);
+    const made = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202);
+    let set = made.body.printSet;
+    for (let i = 0; i < 600 && set.status !== 'done' && set.status !== 'failed'; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      set = (await owner.get(`/api/patterns/${id}/print-sets/${set.id}`).expect(200)).body.printSet;
+    }
+    expect(set.status).toBe('failed');
+    expect(set.error).toContain('formatVersion');
+    const file = await owner.get(set.url);
+    expect(file.status).toBe(409);
+    expect(file.body.error).toBe('This print set failed to render');
+    // The worker survived: the next set renders.
+    const next = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+    expect((await waitDone(owner, next.body.printSet.id)).status).toBe('done');
+  });
+
+  it('picks up sets left queued by a stopped process when the next one starts', async () => {
+    const { PrintSetService } = await import('./services/print-sets');
+    const rev = t.ctx.database.sqlite.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(patternId) as { id: string };
+    const setId = 'leftoverQueuedSet01';
+    t.ctx.database.sqlite
+      .prepare(
+        `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, created_at)
+         VALUES (?, ?, ?, 1, ?, ?, 'rendering', 0.4, ?)`,
+      )
+      .run(setId, patternId, rev.id, owner.user!.id, JSON.stringify({ paper: 'letter', createdAt: '2026-01-01T00:00:00.000Z' }), Date.now());
+    const fresh = new PrintSetService(t.ctx.db, t.ctx.config, () => undefined);
+    try {
+      fresh.resumeUnfinished();
+      await new Promise((r) => setTimeout(r, 50));
+      await fresh.whenIdle();
+    } finally {
+      await fresh.close();
+    }
+    const set = (await owner.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200)).body.printSet;
+    expect(set.status).toBe('done');
+    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${setId}.pdf`))).toBe(true);
+  });
+});
