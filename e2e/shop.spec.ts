@@ -117,6 +117,9 @@ test('a designer publishes, a quilter pays on the checkout page and gets access 
   await star.getByRole('button', { name: 'Save listing' }).click();
   await expect(d.getByText('“Unfinished Star” saved, not published')).toBeVisible();
   await shot(d, 'publish');
+  await d.getByRole('button', { name: 'Use dark theme' }).click();
+  await shot(d, 'publish-dark');
+  await d.getByRole('button', { name: 'Use light theme' }).click();
 
   // --- The quilter: the shop lists only the published pattern; nothing unpaid or unpublished is reachable.
   const quilterCtx = await browser.newContext({ viewport: { width: 1280, height: 860 } });
@@ -144,6 +147,13 @@ test('a designer publishes, a quilter pays on the checkout page and gets access 
   await expect(q.getByRole('heading', { name: 'Lantern Block' })).toBeVisible();
   await expect(q.getByText('1 section · 8 in. × 8 in. finished', { exact: false })).toBeVisible();
   await shot(q, 'detail');
+  await q.setViewportSize({ width: 820, height: 1180 });
+  await shot(q, 'detail-tablet');
+  await q.goto('/shop');
+  await expect(cards.filter({ hasText: 'Lantern Block' })).toBeVisible();
+  await shot(q, 'browse-tablet');
+  await q.getByRole('link', { name: 'View Lantern Block' }).click();
+  await q.setViewportSize({ width: 1280, height: 860 });
   await q.getByRole('button', { name: 'Buy for €12.50' }).click();
   await q.waitForURL(`${fakeStripeURL}/checkout/**`);
   await expect(q.getByRole('heading', { name: 'Confirm your payment' })).toBeVisible();
