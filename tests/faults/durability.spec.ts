@@ -47,7 +47,7 @@ describe('durability under SIGKILL', () => {
     const rng = seededRandom(SEED);
     // Which saves get a kill, and how far into the save it lands.
     const killAt = new Map<number, number>();
-    while (killAt.size < KILLS) killAt.set(5 + Math.floor(rng() * (SAVES - 10)), rng());
+    for (let guard = 0; killAt.size < KILLS && guard < 10_000; guard++) killAt.set(5 + Math.floor(rng() * (SAVES - 10)), rng());
 
     const acked = new Map<number, string>(); // revision number → title it was saved with
     let head = 1;
