@@ -52,7 +52,8 @@ export class DraftingBoardComponent {
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
   private renderer?: BoardRenderer;
   private resizeObserver?: ResizeObserver;
-  private fitted = false;
+  /** Whether the view still follows the board's size (until the user zooms or pans). */
+  private autoFit = true;
 
   constructor() {
     afterNextRender(() => {
@@ -61,12 +62,12 @@ export class DraftingBoardComponent {
       ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
       this.renderer = new BoardRenderer(el, ed);
       this.renderer.setReferenceImage(this.referenceImageUrl() ?? null);
-      this.fitOnce();
+      this.fitIfFollowing();
       el.addEventListener('wheel', this.onWheel, { passive: false });
       this.resizeObserver = new ResizeObserver(() => {
         ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
         this.renderer?.resize();
-        this.fitOnce();
+        this.fitIfFollowing();
       });
       this.resizeObserver.observe(el);
       // Tests and the benchmark reach the stage through the host element.
@@ -79,8 +80,8 @@ export class DraftingBoardComponent {
     effect(() => {
       // A newly loaded document is shown whole.
       if (this.session.snapshot().origin === 'load') {
-        this.fitted = false;
-        queueMicrotask(() => this.fitOnce());
+        this.autoFit = true;
+        queueMicrotask(() => this.fitIfFollowing());
       }
     });
     inject(DestroyRef).onDestroy(() => {
@@ -90,10 +91,9 @@ export class DraftingBoardComponent {
     });
   }
 
-  private fitOnce(): void {
+  private fitIfFollowing(): void {
     const ed = this.session.editor;
-    if (this.fitted || !this.renderer || ed.sizePx.width < 50 || ed.sizePx.height < 50) return;
-    this.fitted = true;
+    if (!this.autoFit || !this.renderer || ed.sizePx.width < 50 || ed.sizePx.height < 50) return;
     ed.fitToContent();
   }
 
@@ -106,6 +106,7 @@ export class DraftingBoardComponent {
     const el = this.host().nativeElement;
     el.focus({ preventScroll: true });
     el.setPointerCapture?.(e.pointerId);
+    if (e.button !== 0 || this.session.toolId() === 'pan') this.autoFit = false;
     this.session.editor.pointerDown(this.point(e), { button: e.button, shiftKey: e.shiftKey, altKey: e.altKey });
   }
 
@@ -128,6 +129,7 @@ export class DraftingBoardComponent {
 
   private readonly onWheel = (e: WheelEvent): void => {
     e.preventDefault();
+    this.autoFit = false;
     this.session.editor.wheel(this.point(e), e.deltaY);
   };
 }
