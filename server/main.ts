@@ -6,6 +6,7 @@ import { openDatabase } from './db/database';
 import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
+import { startHousekeeping } from './services/housekeeping';
 
 function log(message: string, err?: unknown): void {
   const time = new Date().toISOString();
@@ -26,6 +27,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   const printSets = new PrintSetService(database.db, config, log);
   const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
   printSets.resumeUnfinished();
+  const stopHousekeeping = startHousekeeping(database.db, log);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -44,6 +46,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     const force = setTimeout(() => server.closeAllConnections(), 2000);
     await closed;
     clearTimeout(force);
+    stopHousekeeping();
     await printSets.close();
     mailer.close();
     database.close();
