@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
 import { DatePipe } from '@angular/common';
-import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -47,7 +47,7 @@ export class SharePageComponent implements OnInit {
     return fieldMessage('E-mail', this.form.controls.email);
   }
 
-  protected invite(): void {
+  protected invite(directive: FormGroupDirective): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
@@ -58,7 +58,8 @@ export class SharePageComponent implements OnInit {
       next: (inv) => {
         this.sending.set(false);
         this.notify.info(`Invitation sent to ${inv.email}`);
-        this.form.reset({ email: '', access });
+        // resetForm also clears "submitted", so the empty field shows no error after sending.
+        directive.resetForm({ email: '', access });
         this.reload();
       },
       error: (err: unknown) => {
