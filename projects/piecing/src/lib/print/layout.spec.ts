@@ -7,14 +7,13 @@ import { planPrintLayout } from './render-print-set';
 import { buildPrintTemplates } from './print-templates';
 import { ITEM_GAP_IN } from './sheet-frame';
 import { asymmetricBlock, testMedallion } from './testing/print-test-fixtures';
+import { buildOrchardWheel } from '../demo/index';
+import { readPatternDocument } from '../document/index';
 import type { RectIn } from './paper';
 
 const turn = (pts: { x: number; y: number }[], a: number) =>
   pts.map((p) => ({ x: Math.cos(a) * p.x - Math.sin(a) * p.y, y: Math.sin(a) * p.x + Math.cos(a) * p.y }));
 
-function disjoint(p: RectIn, q: RectIn, gap: number): boolean {
-  return p.x + p.width + gap <= q.x + 1e-9 || q.x + q.width + gap <= p.x + 1e-9 || p.y + p.height + gap <= q.y + 1e-9 || q.y + q.height + gap <= p.y + 1e-9;
-}
 
 describe('minimum-area turn', () => {
   it('turns a 4 × 1 rectangle drawn at 30° back square to the axes', () => {
@@ -57,32 +56,26 @@ describe('layout of the test medallion on Letter', () => {
     expect(corner.tilesPerCopy).toBeGreaterThan(1);
   });
 
-  it('keeps pieces apart, inside the content area, and the test squares clear of every cutting line', () => {
+  it('keeps every print inside the content area, clear of the others and of the test squares', () => {
     for (const sheet of layout.sheets) {
-      const boxes = new Map<string, RectIn>();
-      for (const p of sheet.placements) {
-        // Nested copies share a box; the caption strip belongs to the box.
-        const key = `${p.templateId}#${Math.min(p.copy, p.nestedWith ?? p.copy)}#${p.tile ? `${p.tile.row},${p.tile.column}` : ''}`;
-        const r = p.caption ? unionRect(p.rect, p.caption.rect) : p.rect;
-        boxes.set(key, boxes.has(key) ? unionRect(boxes.get(key)!, r) : r);
-      }
-      const list = [...boxes.values()];
       const c = sheet.frame.content;
-      for (const r of [...list, sheet.frame.testBlock]) {
+      for (const r of [...sheet.placements.map((p) => p.rect), sheet.frame.testBlock]) {
         expect(r.x).toBeGreaterThanOrEqual(c.x - 1e-9);
         expect(r.y).toBeGreaterThanOrEqual(c.y - 1e-9);
         expect(r.x + r.width).toBeLessThanOrEqual(c.x + c.width + 1e-9);
         expect(r.y + r.height).toBeLessThanOrEqual(c.y + c.height + 1e-9);
       }
-      for (let i = 0; i < list.length; i++) for (let j = i + 1; j < list.length; j++) expect(disjoint(list[i], list[j], ITEM_GAP_IN - 1e-6)).toBe(true);
-      // The test squares may sit in an empty corner of a template's box, never on its cutting line
-      // (outlines were simplified within 0.02 in. for the search, so allow that twice).
-      const tb = sheet.frame.testBlock;
-      const block = [{ x: tb.x, y: tb.y }, { x: tb.x + tb.width, y: tb.y }, { x: tb.x + tb.width, y: tb.y + tb.height }, { x: tb.x, y: tb.y + tb.height }];
-      for (const p of sheet.placements) {
-        const ring = p.tile ? rectRing(p.rect) : byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q));
-        expect(separated(block, ring, ITEM_GAP_IN - 0.04)).toBe(true);
-        if (p.caption) expect(separated(block, rectRing(p.caption.rect), ITEM_GAP_IN - 0.04)).toBe(true);
+      // What each print really covers: its cutting line (a tile: its clip rectangle), and its caption strip.
+      const groups = sheet.placements.map((p) => [
+        p.tile ? rectRing(p.rect) : byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q)),
+        ...(p.caption ? [rectRing(p.caption.rect)] : []),
+      ]);
+      groups.push([rectRing(sheet.frame.testBlock)]);
+      // Gap between prints (0.1 in.); outlines were simplified within 0.02 in. for the gap search, so allow that twice.
+      for (let i = 0; i < groups.length; i++) {
+        for (let j = i + 1; j < groups.length; j++) {
+          for (const a of groups[i]) for (const b of groups[j]) expect(separated(a, b, ITEM_GAP_IN - 0.04)).toBe(true);
+        }
       }
     }
   });
@@ -137,12 +130,55 @@ describe('layout of a small block', () => {
   });
 });
 
-function unionRect(p: RectIn, q: RectIn): RectIn {
-  const x = Math.min(p.x, q.x);
-  const y = Math.min(p.y, q.y);
-  return { x, y, width: Math.max(p.x + p.width, q.x + q.width) - x, height: Math.max(p.y + p.height, q.y + q.height) - y };
-}
 
 function rectRing(r: RectIn) {
   return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }
+
+describe('layout of the demo medallion and of edge cases', () => {
+  it('keeps every Orchard Wheel print clear of the others on Letter and on A4 with 1 in. margins', () => {
+    const document = buildOrchardWheel();
+    const templates = new Map(buildPrintTemplates(document, { foundation: 'paper', copies: 'plan' }).map((t) => [t.id, t]));
+    for (const options of [{ paper: 'letter' as const }, { paper: 'a4' as const, marginIn: 1 }]) {
+      const layout = planPrintLayout(document, options);
+      for (const sheet of layout.sheets) {
+        const groups = sheet.placements.map((p) => [
+          p.tile ? rectRing(p.rect) : templates.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q)),
+          ...(p.caption ? [rectRing(p.caption.rect)] : []),
+        ]);
+        groups.push([rectRing(sheet.frame.testBlock)]);
+        for (let i = 0; i < groups.length; i++) {
+          for (let j = i + 1; j < groups.length; j++) {
+            for (const a of groups[i]) for (const b of groups[j]) expect(separated(a, b, ITEM_GAP_IN - 0.04)).toBe(true);
+          }
+        }
+      }
+    }
+  });
+
+  it('plans no template sheets for an empty pattern, and a bound of 0', () => {
+    const layout = planPrintLayout(readPatternDocument({ formatVersion: 1, title: 'Empty', canvas: { widthIn: 4, heightIn: 4 } }));
+    expect(layout.templateSheetCount).toBe(0);
+    expect(Object.is(layout.lowerBoundSheets, 0)).toBe(true);
+  });
+
+  it('tiles a 60 × 45 in. section on Letter with every tile inside the content area', () => {
+    const document = readPatternDocument({
+      formatVersion: 1,
+      title: 'Wall hanging',
+      canvas: { widthIn: 60, heightIn: 45 },
+      sections: [{ id: 'a', label: 'A', geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 60, y: 0 }, { x: 60, y: 45 }, { x: 0, y: 45 }] } }],
+    });
+    const layout = planPrintLayout(document, { paper: 'letter' });
+    const summary = layout.templates[0];
+    // 60.5 × 45.5 in. with ¼ in. allowance: at least 61 / 7.5 × 46 / 9.5 cells, so more than 30 tiles.
+    expect(summary.tilesPerCopy).toBeGreaterThan(30);
+    expect(layout.templateSheetCount).toBeGreaterThanOrEqual(layout.lowerBoundSheets);
+    for (const sheet of layout.sheets) {
+      for (const p of sheet.placements) {
+        expect(p.rect.x + p.rect.width).toBeLessThanOrEqual(sheet.frame.content.x + sheet.frame.content.width + 1e-9);
+        expect(p.rect.y + p.rect.height).toBeLessThanOrEqual(sheet.frame.content.y + sheet.frame.content.height + 1e-9);
+      }
+    }
+  });
+});

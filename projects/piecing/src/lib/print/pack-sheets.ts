@@ -210,8 +210,8 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
     logic,
   });
   const block = new Rectangle(frame.testBlock.width + g, frame.testBlock.height + g);
-  // The squares may stand one above the other when that fits better.
-  block.allowRotation = true;
+  // Placed first, the squares sit side by side top-left; placed last they may stand one above the other.
+  block.allowRotation = blockAt !== 'first';
   if (blockAt === 'first') bin.add(block);
   const placed: PackedItem<T>[] = [];
   for (const item of items) {

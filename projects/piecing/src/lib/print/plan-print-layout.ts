@@ -126,7 +126,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     tileOverlapIn,
     sheets,
     templateSheetCount: sheets.length,
-    lowerBoundSheets: Math.ceil(totalTemplateAreaSqIn / areaPerSheet - 1e-9),
+    lowerBoundSheets: Math.max(0, Math.ceil(totalTemplateAreaSqIn / areaPerSheet - 1e-9)),
     totalTemplateAreaSqIn,
     printableAreaSqIn: areaPerSheet,
     templates: summaries,
@@ -168,32 +168,35 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
   const g = ITEM_GAP_IN;
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
-    let minCols = Infinity;
-    let minRows = Infinity;
+    // The smallest grid for each sheet orientation and each way of leaving room for the test squares.
+    const bases: Array<[number, number]> = [];
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
       for (const [cw, ch] of [[W, H - tb.height - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
-        if (!grid) continue;
-        minCols = Math.min(minCols, grid.columns);
-        minRows = Math.min(minRows, grid.rows);
+        if (grid && !bases.some(([c, r]) => c === grid.columns && r === grid.rows)) bases.push([grid.columns, grid.rows]);
       }
     }
-    if (!Number.isFinite(minCols)) continue;
-    for (let columns = minCols; columns <= minCols + 2; columns++) {
-      for (let rows = minRows; rows <= minRows + 2; rows++) {
-        if (columns * rows > 400) continue;
+    const seen = new Set<string>();
+    for (const [minCols, minRows] of bases) {
+    // Trial packing is only worth its time for modest grids; a huge template takes the smallest grid.
+    const trials = minCols * minRows * template.copies <= 120;
+    for (let columns = minCols; columns <= (trials ? minCols + 2 : minCols); columns++) {
+      for (let rows = minRows; rows <= (trials ? minRows + 2 : minRows); rows++) {
+        if (seen.has(`${columns}x${rows}`)) continue;
+        seen.add(`${columns}x${rows}`);
         const grid = tileGrid(prepared, columns, rows, overlapIn);
         if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
         const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
-        const sheets = packSheets(items, paper, marginIn).length;
+        const sheets = trials ? packSheets(items, paper, marginIn).length : items.length;
         const count = grid.tiles.length;
         const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
         const better =
           !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
         if (better) best = { grid, sheets, count, area };
       }
+    }
     }
   }
   if (!best) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
@@ -371,8 +374,9 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
     const byShape = new Map<string, PackItem<Piece>[]>();
     for (const item of left) {
       for (const part of item.parts ?? [item]) {
-        if (part.data.pair) continue;
-        const key = part.data.tile ? `${part.data.prepared.template.id}#${part.data.tile.row},${part.data.tile.column}` : part.data.prepared.template.id;
+        // Tiles are rectangles: the box packing already places them as well as a raster would.
+        if (part.data.pair || part.data.tile) continue;
+        const key = part.data.prepared.template.id;
         const list = byShape.get(key) ?? [];
         list.push(part);
         byShape.set(key, list);
@@ -382,19 +386,6 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
     const order = [...byShape.values()].sort((a, b) => areaOf(b[0]) - areaOf(a[0])).slice(0, FILL_TEMPLATES_PER_SHEET);
     const out: Array<{ taken: PackItem<Piece>; packed: PackedItem<Piece> }> = [];
     for (const available of order) {
-      if (available[0].data.tile) {
-        // A tile never turns: its box (caption included) is its shape.
-        const mask = shapeMask(rectRing({ x: 0, y: 0, width: available[0].width, height: available[0].height }), FILL_CELL_IN);
-        while (available.length > 0) {
-          const spot = findSpot(grid, mask);
-          if (!spot) break;
-          const taken = available.shift()!;
-          const packedItem: PackedItem<Piece> = { item: taken, x: grid.x0 + spot.col * FILL_CELL_IN, y: grid.y0 + spot.row * FILL_CELL_IN, turned: false, width: taken.width, height: taken.height };
-          out.push({ taken, packed: packedItem });
-          for (const ring of outlines(packedItem)) blockRing(grid, ring, gap);
-        }
-        continue;
-      }
       const prepared = available[0].data.prepared;
       const turns = prepared.template.freeRotation ? 16 : 4;
       while (available.length > 0) {
