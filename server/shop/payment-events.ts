@@ -43,8 +43,16 @@ export function handlePaymentEvent(db: Db, event: Stripe.Event): EventOutcome {
   );
 }
 
+/** The order a session pays for: by session id, else by the order id it carries (if no other session took it). */
+function orderOfSession(tx: Tx, session: Stripe.Checkout.Session): Order | undefined {
+  const bySession = tx.select().from(orders).where(eq(orders.checkoutSessionId, session.id)).get();
+  if (bySession || !session.client_reference_id) return bySession;
+  const byRef = tx.select().from(orders).where(eq(orders.id, session.client_reference_id)).get();
+  return byRef && byRef.checkoutSessionId === null ? byRef : undefined;
+}
+
 function completeOrder(tx: Tx, session: Stripe.Checkout.Session): EventOutcome {
-  const order = tx.select().from(orders).where(eq(orders.checkoutSessionId, session.id)).get();
+  const order = orderOfSession(tx, session);
   if (!order) return { kind: 'ignored', reason: 'no order for this checkout session' };
   if (session.payment_status !== 'paid') return { kind: 'ignored', reason: `payment status is ${session.payment_status}` };
   if (order.status !== 'pending') return { kind: 'ignored', reason: `order is already ${order.status}` };
@@ -64,7 +72,7 @@ function completeOrder(tx: Tx, session: Stripe.Checkout.Session): EventOutcome {
   }
   const paid = tx
     .update(orders)
-    .set({ status: 'paid', paidAt: new Date(), paymentIntentId: idOf(session.payment_intent), grantedAccess: granted })
+    .set({ status: 'paid', paidAt: new Date(), checkoutSessionId: session.id, paymentIntentId: idOf(session.payment_intent), grantedAccess: granted })
     .where(eq(orders.id, order.id))
     .returning()
     .get();

@@ -372,4 +372,24 @@ describe('without payment keys', () => {
       await bare.close();
     }
   });
+
+  it('answers 502 and keeps no order when the provider cannot be reached', async () => {
+    const gone = await startFakeStripeServer({ port: 0, webhookSecret: WHSEC, apiKey: SK });
+    const deadBase = gone.url;
+    await gone.close();
+    const cut = await startTestServer({ STRIPE_SECRET_KEY: SK, STRIPE_WEBHOOK_SECRET: WHSEC, STRIPE_API_BASE: deadBase });
+    try {
+      const d = await userClient(cut.app, 'd@cut.test', 'designer');
+      const q = await userClient(cut.app, 'q@cut.test', 'quilter');
+      const id = (await d.post('/api/patterns', { document: sampleDocument('Cut off') }).expect(201)).body.pattern.id;
+      await d.put('/api/shop/mine', { currency: 'gbp' }).expect(200);
+      await d.put(`/api/shop/listings/${id}`, { priceMinor: 800, description: 'Pence', published: true }).expect(200);
+      const res = await q.post(`/api/shop/listings/${id}/checkout`);
+      expect(res.status).toBe(502);
+      expect(res.body.error).toMatch(/nothing was charged/);
+      expect(cut.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM orders').get()).toEqual({ n: 0 });
+    } finally {
+      await cut.close();
+    }
+  });
 });
