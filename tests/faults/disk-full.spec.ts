@@ -1,5 +1,6 @@
 /**
- * Disk full and unwritable data folder (issue: benchmarks, load, faults): the client gets a clear
+ * Disk full and unwritable data folder (issue: benchmarks, load, faults) — uploads, saves and print
+ * sets: the client gets a clear
  * error, the server does not crash, and no corrupt or half-written file stays behind.
  *
  * The tests run as root, where `chmod` does not stop writes, so other ways are used:
@@ -19,9 +20,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { signedInClient } from '../support/api-client';
-import { checkDatabase, listFiles, withReadOnlyDatabase } from '../support/database-check';
-import { gridDocument } from '../support/documents';
-import { answerProblem, TINY_PNG, uploadForm } from '../support/fixtures';
+import { checkDatabase, listFiles, sha256OfFile, withReadOnlyDatabase } from '../support/database-check';
+import { gridDocument, manySheetsDocument } from '../support/documents';
+import { answerProblem, expectCleanAnswer, TINY_PNG, uploadForm } from '../support/fixtures';
 import { startServerProcess, waitForHealth, type ServerProcess } from '../support/server-process';
 
 const started: ServerProcess[] = [];
@@ -29,7 +30,11 @@ const mounts: string[] = [];
 afterAll(async () => {
   for (const s of started) await s.stop();
   for (const dir of mounts) {
-    execFileSync('umount', [dir]);
+    try {
+      execFileSync('umount', [dir], { stdio: 'pipe' });
+    } catch {
+      // unmounted by the test already
+    }
     fs.rmSync(dir, { recursive: true, force: true });
   }
 });
@@ -187,3 +192,65 @@ describe('unwritable data folder (the folder replaced by a file)', () => {
     expect(ok.status, ok.text).toBe(201);
   });
 });
+
+describe('print sets on a full disk', () => {
+  it('a PDF that does not fit: the print set fails with a clear message, no file is left, the next one works', async () => {
+    const server = await startServerProcess();
+    started.push(server);
+    const { client } = await signedInClient(server.baseUrl, 'designer', 'full-print');
+    const made = await client.post('/api/patterns', { document: manySheetsDocument(40, 'Full disk print') });
+    expect(made.status, made.text).toBe(201);
+    const id = made.json.pattern.id;
+
+    // Only the print-set folder is full: a 64 kB tmpfs mounted on it (ENOSPC), the database stays
+    // writable. Where mounting is refused, the folder is replaced by a file instead (ENOTDIR).
+    const folder = path.join(server.dataDir, 'print-sets');
+    fs.mkdirSync(folder, { recursive: true });
+    let how = 'print-sets folder on a 64 kB tmpfs (ENOSPC)';
+    try {
+      execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=65536,mode=0700', 'tmpfs', folder], { stdio: 'pipe' });
+      mounts.push(folder);
+    } catch {
+      how = 'print-sets folder replaced by a file (ENOTDIR)';
+      fs.rmSync(folder, { recursive: true, force: true });
+      fs.writeFileSync(folder, 'not a folder');
+    }
+    const first = await client.post(`/api/patterns/${id}/print-sets`, { options: { copies: 'single' } });
+    expect(first.status, first.text).toBe(202);
+    const failed = await settle(client, id, first.json.printSet.id);
+    console.log(`print set on a full disk (${how}): ${failed.status}, "${failed.error}"`);
+    expect(failed.status).toBe('failed');
+    expect(failed.error).toMatch(CLEAR_STORAGE_ERROR);
+    expect(failed.sha256).toBeNull();
+    expect(server.alive(), server.output()).toBe(true);
+    const download = await client.get(`/api/patterns/${id}/print-sets/${first.json.printSet.id}/file`);
+    expect(download.status).toBe(409);
+    expectCleanAnswer(download, 'download of a failed print set');
+    // Nothing half-written stays on the full disk.
+    if (fs.statSync(folder).isDirectory()) expect(listFiles(folder)).toEqual([]);
+
+    // Space again: the next print set renders and stores a whole file.
+    if (mounts.includes(folder)) execFileSync('umount', [folder]);
+    else fs.rmSync(folder);
+    const second = await client.post(`/api/patterns/${id}/print-sets`, { options: { copies: 'single' } });
+    const done = await settle(client, id, second.json.printSet.id);
+    expect(done.status, done.error ?? '').toBe('done');
+    await server.kill('SIGKILL');
+    const row = withReadOnlyDatabase(server.dataDir, (db) =>
+      db.prepare('SELECT storage_path AS p, sha256, bytes FROM print_sets WHERE id = ?').get(second.json.printSet.id) as { p: string; sha256: string; bytes: number },
+    );
+    expect(sha256OfFile(path.join(server.dataDir, row.p))).toBe(row.sha256);
+    expect(fs.statSync(path.join(server.dataDir, row.p)).size).toBe(row.bytes);
+  });
+});
+
+/** Polls a print set until it is done or failed (bounded: 3 minutes). */
+async function settle(client: Awaited<ReturnType<typeof signedInClient>>['client'], patternId: string, setId: string) {
+  for (let i = 0; i < 900; i++) {
+    const res = await client.get(`/api/patterns/${patternId}/print-sets/${setId}`);
+    const set = res.json?.printSet;
+    if (set && (set.status === 'done' || set.status === 'failed')) return set;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`print set ${setId} did not settle within 3 minutes`);
+}
