@@ -1,7 +1,7 @@
 /**
  * Disk full and unwritable data folder (issue: benchmarks, load, faults) — uploads, saves and print
- * sets: the client gets a clear
- * error, the server does not crash, and no corrupt or half-written file stays behind.
+ * sets: the client gets a clear error, the server does not crash, and no corrupt or half-written
+ * file stays behind.
  *
  * The tests run as root, where `chmod` does not stop writes, so other ways are used:
  * - "disk full", two ways, each test run with both:
