@@ -22,14 +22,18 @@ function cookieOptions(config: Config): CookieOptions {
 }
 
 /** Starts a session for `userId`, sets the cookie, and returns the token's hash. */
-export function startSession(db: Db, config: Config, res: Response, userId: string): string {
+export function startSession(db: DbLike, config: Config, res: Response, userId: string): string {
   const token = randomToken();
   const tokenHash = hashToken(token);
   const now = Date.now();
   const expiresAt = new Date(now + config.sessionDays * 86_400_000);
-  db.insert(sessions).values({ tokenHash, userId, createdAt: new Date(now), expiresAt }).run();
-  // Drop this user's expired sessions while we are here.
-  db.delete(sessions).where(and(eq(sessions.userId, userId), lt(sessions.expiresAt, new Date(now)))).run();
+  const write = (tx: DbLike) => {
+    tx.insert(sessions).values({ tokenHash, userId, createdAt: new Date(now), expiresAt }).run();
+    // Drop this user's expired sessions while we are here.
+    tx.delete(sessions).where(and(eq(sessions.userId, userId), lt(sessions.expiresAt, new Date(now)))).run();
+  };
+  // One transaction (a savepoint when the caller is already inside one).
+  (db as Db).transaction((tx) => write(tx));
   res.cookie(SESSION_COOKIE, token, { ...cookieOptions(config), expires: expiresAt });
   return tokenHash;
 }

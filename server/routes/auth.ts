@@ -40,15 +40,22 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     const body = parseOr400(signUpBody, req.body);
     const passwordHash = await hashPassword(body.password, config.bcryptRounds);
     const id = newId();
-    const created = db
-      .insert(users)
-      .values({ id, email: body.email, displayName: body.displayName, passwordHash, role: body.role, createdAt: new Date() })
-      .onConflictDoNothing({ target: users.email })
-      .returning()
-      .get();
-    if (!created) throw new HttpError(409, 'An account with this e-mail already exists', [{ path: 'email', message: 'already registered' }]);
     if (req.sessionTokenHash) endSession(db, config, res, req.sessionTokenHash);
-    req.sessionTokenHash = startSession(db, config, res, created.id);
+    // The account and its first session in one transaction.
+    const { created, tokenHash } = db.transaction(
+      (tx) => {
+        const row = tx
+          .insert(users)
+          .values({ id, email: body.email, displayName: body.displayName, passwordHash, role: body.role, createdAt: new Date() })
+          .onConflictDoNothing({ target: users.email })
+          .returning()
+          .get();
+        if (!row) throw new HttpError(409, 'An account with this e-mail already exists', [{ path: 'email', message: 'already registered' }]);
+        return { created: row, tokenHash: startSession(tx, config, res, row.id) };
+      },
+      { behavior: 'immediate' },
+    );
+    req.sessionTokenHash = tokenHash;
     req.user = created;
     res.status(201).json({ user: publicUser(created), csrfToken: csrf.issue(req, res) });
   });
