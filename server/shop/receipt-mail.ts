@@ -26,3 +26,18 @@ export function receiptMail(order: Order, buyerName: string, designerName: strin
       `<p><a href="${escapeHtml(link)}">Open the pattern</a></p></body></html>`,
   };
 }
+
+/** Tells the buyer a purchase was refunded and the access it gave has ended. */
+export function refundMail(order: Order, buyerName: string) {
+  const amount = formatMoney(order.amountMinor, order.currency);
+  const lines = [
+    `Hello ${buyerName},`,
+    `your purchase of "${order.patternTitle}" (order ${order.id}) was refunded: ${amount} goes back to you through the payment provider.`,
+    'The quilter access that came with the purchase has ended. Print sets you downloaded stay on your computer.',
+  ];
+  return {
+    subject: `Refund for "${order.patternTitle}"`,
+    text: `${lines.join('\n\n')}\n`,
+    html: '<!doctype html><html><body style="font-family:sans-serif">' + lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('') + '</body></html>',
+  };
+}

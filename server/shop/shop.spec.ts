@@ -278,6 +278,9 @@ describe('buying', () => {
     expect((await buyer.get(`/api/patterns/${listedId}`)).status).toBe(404);
     expect((await designer.get('/api/shop/sales')).body.totals).toEqual([]);
     expect((await buyer.get('/api/shop/purchases')).body.items[0].status).toBe('refunded');
+    const notice = await until(() => t.mail.messages.find((m) => m.subject === 'Refund for "Plum Lattice"'), 'the refund mail');
+    expect(notice.to).toEqual(['bea@shop.test']);
+    expect(notice.text).toContain('$12.50 goes back to you');
 
     // The refund event replayed does nothing either.
     const before = snapshot();
@@ -323,6 +326,28 @@ describe('abandoned and repeated checkouts', () => {
     expect(fresh.body.checkoutUrl).not.toBe(first.body.checkoutUrl);
     // The old hosted page is closed.
     expect((await fetch(first.body.checkoutUrl)).status).toBe(410);
+  });
+});
+
+describe('exactly once', () => {
+  it('acts on one event delivered five times at once exactly once', async () => {
+    const kim = await userClient(t.app, 'kim@shop.test', 'quilter');
+    const res = await kim.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
+    const session = fake.sessions.get(res.body.checkoutUrl.split('/').pop())!;
+    const payload = JSON.stringify({
+      id: 'evt_burst_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_burst_1' } },
+    });
+    const signature = new Stripe(SK).webhooks.generateTestHeaderString({ payload, secret: WHSEC });
+    const members = count('SELECT count(*) AS n FROM members WHERE user_id = ?', kim.user!.id);
+    const answers = await Promise.all(Array.from({ length: 5 }, () => postWebhook(payload, signature)));
+    expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200]);
+    expect(answers.filter((a) => a.body.duplicate === false)).toHaveLength(1);
+    expect(count('SELECT count(*) AS n FROM members WHERE user_id = ?', kim.user!.id)).toBe(members + 1);
+    expect(t.mail.messages.filter((m) => m.to.includes('kim@shop.test'))).toHaveLength(1);
+    expect((await kim.get(`/api/shop/orders/${res.body.order.id}`)).body.order.status).toBe('paid');
   });
 });
 

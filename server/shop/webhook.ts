@@ -6,7 +6,7 @@ import { orders, users, type Order } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { handlePaymentEvent } from './payment-events';
 import { requirePayments, type Payments } from './payments';
-import { receiptMail } from './receipt-mail';
+import { receiptMail, refundMail } from './receipt-mail';
 
 /** Largest webhook body taken (events are a few kB). */
 const WEBHOOK_BODY_LIMIT = '256kb';
@@ -33,6 +33,7 @@ export function webhookHandlers(ctx: AppContext, payments: Payments | null): Req
     const outcome = handlePaymentEvent(ctx.db, event);
     if (outcome.kind === 'ignored') ctx.log(`webhook ${event.id} (${event.type}) ignored: ${outcome.reason}`);
     if (outcome.kind === 'paid') await sendReceipt(ctx, outcome.order);
+    if (outcome.kind === 'refunded') await sendRefundNotice(ctx, outcome.order);
     // Duplicates are acknowledged (2xx) so the provider stops retrying, but change nothing.
     res.json({ received: true, duplicate: outcome.kind === 'duplicate' });
   };
@@ -50,5 +51,16 @@ async function sendReceipt(ctx: AppContext, order: Order): Promise<void> {
     ctx.db.update(orders).set({ receiptSentAt: new Date() }).where(eq(orders.id, order.id)).run();
   } catch (err) {
     ctx.log(`receipt mail for order ${order.id} failed`, err);
+  }
+}
+
+/** E-mails the buyer that the refund went through; failures are logged. */
+async function sendRefundNotice(ctx: AppContext, order: Order): Promise<void> {
+  const buyer = ctx.db.select().from(users).where(eq(users.id, order.buyerId)).get();
+  if (!buyer) return;
+  try {
+    await ctx.mailer.send({ to: buyer.email, ...refundMail(order, buyer.displayName) });
+  } catch (err) {
+    ctx.log(`refund mail for order ${order.id} failed`, err);
   }
 }
