@@ -20,17 +20,20 @@ const listingBody = z.strictObject({
   published: z.boolean(),
 });
 
-/** The listing of a pattern with what a page about it needs; undefined when there is none. */
-export function findListing(db: DbLike, patternId: string) {
+/** Listings joined with their pattern, shop currency, designer name and latest document. */
+function listingRows(db: DbLike) {
   return db
     .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName, document: revisions.document })
     .from(shopListings)
     .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
     .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
     .innerJoin(users, eq(users.id, patterns.ownerId))
-    .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)))
-    .where(eq(shopListings.patternId, patternId))
-    .get();
+    .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)));
+}
+
+/** The listing of a pattern with what a page about it needs; undefined when there is none. */
+export function findListing(db: DbLike, patternId: string) {
+  return listingRows(db).where(eq(shopListings.patternId, patternId)).get();
 }
 
 /** A listing any signed-in user may see: published, of a pattern not in the trash. */
@@ -63,14 +66,6 @@ export function listingsRouter(ctx: AppContext): Router {
     const q = parseOr400(browseQuery, req.query, 'Invalid query');
     const published = and(isNotNull(shopListings.publishedAt), isNull(patterns.trashedAt));
     const where = q.q ? and(published, sql`${patterns.title} LIKE ${likeContains(q.q)} ESCAPE '\\'`) : published;
-    const base = () =>
-      db
-        .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName, document: revisions.document })
-        .from(shopListings)
-        .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
-        .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
-        .innerJoin(users, eq(users.id, patterns.ownerId))
-        .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)));
     const total =
       db
         .select({ n: count() })
@@ -79,7 +74,7 @@ export function listingsRouter(ctx: AppContext): Router {
         .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
         .where(where)
         .get()?.n ?? 0;
-    const rows = base()
+    const rows = listingRows(db)
       .where(where)
       .orderBy(desc(shopListings.publishedAt), desc(shopListings.patternId))
       .limit(q.pageSize)
