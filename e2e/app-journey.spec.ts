@@ -45,6 +45,12 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   const page = await designerCtx.newPage();
   const consoleErrors: string[] = [];
   page.on('console', (m) => m.type() === 'error' && consoleErrors.push(m.text()));
+  // No dialog is expected on this path (the leave-unsaved question is tested in app-conflict.spec.ts).
+  const dialogs: string[] = [];
+  page.on('dialog', (d) => {
+    dialogs.push(d.message());
+    void d.dismiss();
+  });
 
   // --- The designer signs up.
   const auth = new AuthPage(page);
@@ -223,6 +229,7 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await expect(page.getByRole('heading', { name: 'Development mail inbox' })).toBeVisible();
   await shot(page, 'admin');
 
+  expect(dialogs).toEqual([]);
   expect(consoleErrors.filter((e) => !/status of 40[14]/.test(e))).toEqual([]);
   await designerCtx.close();
 });
