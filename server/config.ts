@@ -38,6 +38,8 @@ const envSchema = z.object({
   PRINT_WORKERS: intFromEnv(1, 1, 8),
   /** A print set still rendering after this long is stopped and marked failed. */
   PRINT_TIMEOUT_SECONDS: intFromEnv(900, 5, 86_400),
+  /** Print sets one user may have queued or rendering at once. */
+  PRINT_QUEUE_PER_USER: intFromEnv(10, 1, 1000),
   /** bcrypt cost factor (2^n rounds); 12 is a common default, tests use 4. */
   BCRYPT_ROUNDS: intFromEnv(12, 4, 15),
   /** Payment provider (the shop): secret API key and webhook signing secret; the shop is off without them. */
@@ -72,6 +74,7 @@ export interface Config {
   invitationDays: number;
   printWorkers: number;
   printTimeoutSeconds: number;
+  printQueuePerUser: number;
   bcryptRounds: number;
   /** Whether cookies carry the Secure flag (when the public URL is https). */
   secureCookies: boolean;
@@ -121,6 +124,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
     invitationDays: e.INVITATION_DAYS,
     printWorkers: e.PRINT_WORKERS,
     printTimeoutSeconds: e.PRINT_TIMEOUT_SECONDS,
+    printQueuePerUser: e.PRINT_QUEUE_PER_USER,
     bcryptRounds: e.BCRYPT_ROUNDS,
     secureCookies: publicUrl.startsWith('https://'),
     stripe: {

@@ -12,7 +12,7 @@ let stranger: Client;
 let patternId: string;
 
 beforeAll(async () => {
-  t = await startTestServer();
+  t = await startTestServer({ PRINT_QUEUE_PER_USER: '4' });
   owner = await userClient(t.app, 'owner@print.test', 'designer');
   quilter = await userClient(t.app, 'quilter@print.test', 'quilter');
   stranger = await userClient(t.app, 'stranger@print.test', 'designer');
@@ -189,5 +189,30 @@ describe('print sets', () => {
     const set = (await owner.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200)).body.printSet;
     expect(set.status).toBe('done');
     expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${setId}.pdf`))).toBe(true);
+  });
+
+  it('answers 429 when a user already has as many sets waiting as allowed', async () => {
+    const sql = t.ctx.database.sqlite;
+    const rev = sql.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(patternId) as { id: string };
+    // Four sets waiting (rows only, so none finishes during the test); PRINT_QUEUE_PER_USER=4.
+    const add = sql.prepare(
+      `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, created_at)
+       VALUES (?, ?, ?, 1, ?, '{}', 'queued', 0, ?)`,
+    );
+    for (let i = 0; i < 4; i++) add.run(`waitingSet${i}`, patternId, rev.id, stranger.user!.id, Date.now());
+    sql.prepare("INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, 'quilter', ?)").run(patternId, stranger.user!.id, Date.now());
+    try {
+      const refused = await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} });
+      expect(refused.status).toBe(429);
+      expect(refused.body.details).toEqual({ waiting: 4 });
+      // Other users are not held up by one user's queue.
+      await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+      sql.prepare("DELETE FROM print_sets WHERE id = 'waitingSet0'").run();
+      await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
+      await t.ctx.printSets.whenIdle();
+    } finally {
+      sql.prepare("DELETE FROM print_sets WHERE id LIKE 'waitingSet%'").run();
+      sql.prepare('DELETE FROM members WHERE pattern_id = ? AND user_id = ?').run(patternId, stranger.user!.id);
+    }
   });
 });

@@ -1,5 +1,5 @@
 import fs from 'node:fs';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Router } from 'express';
 import { z } from 'zod';
 import { printOptionsSchema } from '@seamwright/piecing';
@@ -71,6 +71,15 @@ export function printSetsRouter(ctx: AppContext): Router {
     const { pattern } = resolvePatternAccess(db, req.user, pid(req));
     const user = currentUser(req);
     const body = parseOr400(createBody, req.body ?? {});
+    const waiting =
+      db
+        .select({ n: count() })
+        .from(printSets)
+        .where(and(eq(printSets.createdBy, user.id), inArray(printSets.status, ['queued', 'rendering'])))
+        .get()?.n ?? 0;
+    if (waiting >= config.printQueuePerUser) {
+      throw new HttpError(429, 'Too many print sets are still rendering; wait for them to finish', { waiting });
+    }
     const revision = findRevision(db, pattern.id, body.revision);
     if (!revision) throw new HttpError(404, 'Revision not found');
     // The PDF's date comes from the revision, so the same revision and options give the same bytes.
