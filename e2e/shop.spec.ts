@@ -154,8 +154,18 @@ test('a designer publishes, a quilter pays on the checkout page and gets access 
   await shot(q, 'browse-tablet');
   await q.getByRole('link', { name: 'View Lantern Block' }).click();
   await q.setViewportSize({ width: 1280, height: 860 });
+  // First the buyer changes their mind on the checkout page; nothing is charged.
   await q.getByRole('button', { name: 'Buy for €12.50' }).click();
   await q.waitForURL(`${fakeStripeURL}/checkout/**`);
+  const firstCheckout = q.url();
+  await q.getByRole('button', { name: 'Cancel and go back' }).click();
+  await q.waitForURL(new RegExp(`/shop/patterns/${listedId}\\?cancelled=1$`));
+  await expect(q.getByText('Checkout was cancelled; nothing was charged.')).toBeVisible();
+  await shot(q, 'detail-cancelled');
+  // Buying again offers the same open checkout, so one purchase can never be paid twice.
+  await q.getByRole('button', { name: 'Buy for €12.50' }).click();
+  await q.waitForURL(`${fakeStripeURL}/checkout/**`);
+  expect(q.url()).toBe(firstCheckout);
   await expect(q.getByRole('heading', { name: 'Confirm your payment' })).toBeVisible();
   await expect(q.getByTestId('total')).toHaveText('€12.50');
   await expect(q.getByText(quilter.email)).toBeVisible();
