@@ -7,7 +7,8 @@ import { PatternsPage } from './pages/patterns.page';
 /*
  * The Drafting board in Chromium against the real server: draw an arc section, split it into four
  * patches, read their numbers and the sewability verdict, renumber to an order that cannot be sewn
- * and see the warning, undo, reload and find the same drawing. Screens are saved under e2e/artifacts/.
+ * (clicking patches on the board, then dragging in the piecing-order list) and see the warning, undo,
+ * reload and find the same drawing. Screens are saved under e2e/artifacts/.
  */
 
 const run = Date.now().toString(36);
@@ -75,6 +76,15 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   await page.keyboard.press('Control+z');
   await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
   await shot(page, 'undone');
+
+  // Reorder in the list instead: A4 dragged up to second place cannot be sewn there either.
+  await board.dragInList(3, 1);
+  await expect.poll(() => board.orderLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+  await expect(board.verdict()).toHaveText(/cannot be sewn in this order at A2/);
+  await shot(page, 'list-reorder');
+  await board.board().focus();
+  await page.keyboard.press('Control+z');
+  await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
 
   // Autosave stores it; a reload brings back the same drawing.
   await new PatternPage(page).waitForSaved();

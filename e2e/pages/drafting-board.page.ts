@@ -108,6 +108,19 @@ export class DraftingBoardPage {
     return this.orderList().locator('li').evaluateAll((items) => items.map((li) => li.getAttribute('data-label') ?? ''));
   }
 
+  /** Drags the patch at `from` in the piecing-order list by its handle onto the place of `to` (CDK drag and drop). */
+  async dragInList(from: number, to: number): Promise<void> {
+    const items = this.orderList().locator('li');
+    const handle = (await items.nth(from).locator('.handle').boundingBox())!;
+    const target = (await items.nth(to).boundingBox())!;
+    const x = handle.x + handle.width / 2;
+    await this.page.mouse.move(x, handle.y + handle.height / 2);
+    await this.page.mouse.down();
+    await this.page.mouse.move(x, handle.y + (to < from ? -10 : 10), { steps: 5 });
+    await this.page.mouse.move(x, to < from ? target.y + 4 : target.y + target.height - 4, { steps: 10 });
+    await this.page.mouse.up();
+  }
+
   /** The sewability verdict of the selected section. */
   verdict(): Locator {
     return this.page.getByTestId('sewability');
