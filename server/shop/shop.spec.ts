@@ -7,6 +7,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startFakeStripeServer, type FakeStripeServer } from '../dev/fake-stripe-server';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from '../test/harness';
+import { seedDemoShop } from './demo-shop';
 import { formatMoney } from './money';
 
 const SK = 'sk_test_shop_spec_key';
@@ -377,6 +378,18 @@ describe('hostile input', () => {
     const after = snapshot();
     expect(after.events).toBe(before.events);
     expect(after.members).toBe(before.members);
+  });
+});
+
+describe('demo shop', () => {
+  it('opens a shop and publishes listings once, for the demo seed', async () => {
+    const demo = await userClient(t.app, 'fern@shop.test', 'designer');
+    const id = (await demo.post('/api/patterns', { document: sampleDocument('Garden Gate') }).expect(201)).body.pattern.id;
+    const listing = { patternId: id, priceMinor: 1800, description: 'An 8 in. block in three sections.' };
+    seedDemoShop(t.ctx.db, demo.user!.id, 'usd', [listing]);
+    seedDemoShop(t.ctx.db, demo.user!.id, 'eur', [{ ...listing, priceMinor: 1 }]);
+    const seen = (await buyer.get(`/api/shop/listings/${id}`).expect(200)).body.listing;
+    expect(seen).toMatchObject({ priceMinor: 1800, currency: 'usd', published: true });
   });
 });
 

@@ -1,0 +1,24 @@
+import type { DbLike } from '../db/database';
+import { shopListings, shops, type ShopCurrency } from '../db/schema';
+
+/** A listing to seed for the demo studio (invented data). */
+export interface DemoListing {
+  patternId: string;
+  priceMinor: number;
+  description: string;
+}
+
+/**
+ * Opens the demo designer's shop in `currency` and publishes `listings`, for `npm start`'s demo data.
+ * Existing rows are left as they are, so seeding twice changes nothing.
+ */
+export function seedDemoShop(db: DbLike, ownerId: string, currency: ShopCurrency, listings: DemoListing[]): void {
+  const now = new Date();
+  db.insert(shops).values({ ownerId, currency, createdAt: now, updatedAt: now }).onConflictDoNothing().run();
+  for (const l of listings) {
+    db.insert(shopListings)
+      .values({ patternId: l.patternId, priceMinor: l.priceMinor, description: l.description, publishedAt: now, createdAt: now, updatedAt: now })
+      .onConflictDoNothing()
+      .run();
+  }
+}
