@@ -39,7 +39,7 @@ const envSchema = z.object({
   /** A print set still rendering after this long is stopped and marked failed. */
   PRINT_TIMEOUT_SECONDS: intFromEnv(900, 5, 86_400),
   /** Print sets one user may have queued or rendering at once. */
-  PRINT_QUEUE_PER_USER: intFromEnv(10, 1, 1000),
+  PRINT_QUEUE_PER_USER: intFromEnv(200, 1, 10_000),
   /** bcrypt cost factor (2^n rounds); 12 is a common default, tests use 4. */
   BCRYPT_ROUNDS: intFromEnv(12, 4, 15),
   /** Payment provider (the shop): secret API key and webhook signing secret; the shop is off without them. */
