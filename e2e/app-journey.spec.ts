@@ -76,6 +76,8 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
 
   // --- Drafts an arc section (5–8 in., 90°) and splits it into 4 patches with three radial seams.
   const board = new DraftingBoardPage(page);
+  // Tall enough that the whole board stays on screen while the panel beside it grows.
+  await page.setViewportSize({ width: 1366, height: 1500 });
   await board.ready();
   await board.tool('a');
   await board.drag(C, { x: 20, y: 12 });
@@ -85,14 +87,25 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await board.tool('l');
   for (const deg of [22.5, 45, 67.5]) await board.drag(polar(5, deg), polar(8, deg));
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
+  // Fills the four patches with the selected fabric (Plum, the first of the pattern's fabrics).
+  await board.tool('f');
+  // One at a time: the board may re-fit its view when the panel beside it grows.
+  for (const [i, deg] of [10, 30, 55, 80].entries()) {
+    await board.click(polar(6.5, deg));
+    await expect(board.orderList().getByText('Plum')).toHaveCount(i + 1);
+  }
   const savedRevision = await patternPage.waitForSaved();
   expect(savedRevision).toBeGreaterThan(1);
   await shot(page, 'board');
+  await page.setViewportSize({ width: 1366, height: 900 });
 
   // --- Cutting list.
   await patternPage.open('Cutting list');
-  // No fabric is filled in yet: the list says so for each of the four patches rather than guessing.
-  await expect(page.getByRole('region', { name: 'Check these first' })).toContainText('A4');
+  // The four Plum patches are cut from Plum; the unused fabrics are named, not listed as empty tables.
+  const plum = page.getByRole('region', { name: 'Plum' });
+  await expect(plum).toContainText('4 pieces');
+  await expect(plum.getByRole('table', { name: 'Pieces of Plum' })).toContainText('A1');
+  await expect(page.getByText('Not used by any patch: Oat, Sage.')).toBeVisible();
   await expect(page.getByRole('complementary', { name: 'Cautions' })).toContainText('Rotary cutters are very sharp');
   await shot(page, 'cutting-list');
 
@@ -109,6 +122,7 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   expect(download.suggestedFilename()).toMatch(/\.pdf$/);
   const pdfFile = join(test.info().outputDir, download.suggestedFilename());
   await download.saveAs(pdfFile);
+  await download.saveAs('e2e/artifacts/app-print-set.pdf');
   const pages = await pdfPageCount(pdfFile);
   expect(pages).toBe(reportedPages);
   // Cover + template sheets (+ cutting list): more pages than template sheets previewed.
