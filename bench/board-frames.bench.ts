@@ -63,6 +63,8 @@ window.runDrag = (frames) => new Promise((resolve) => {
   editor.pointerDown(start, { button: 0 });
   const stamps = [];
   const work = [];
+  const moves = [];
+  const draws = [];
   const draws0 = { ...renderer.draws };
   const depth0 = editor.store.undoDepth;
   let i = 0;
@@ -70,14 +72,18 @@ window.runDrag = (frames) => new Promise((resolve) => {
     stamps.push(ts);
     if (i >= frames) {
       editor.pointerUp(start, { button: 0 });
-      resolve({ stamps, work, draws: { static: renderer.draws.static - draws0.static, active: renderer.draws.active - draws0.active }, undoSteps: editor.store.undoDepth - depth0 });
+      resolve({ stamps, work, moves, drawsMs: draws, draws: { static: renderer.draws.static - draws0.static, active: renderer.draws.active - draws0.active }, undoSteps: editor.store.undoDepth - depth0 });
       return;
     }
     const w0 = performance.now();
     const a = (i / 60) * Math.PI * 2;
     editor.pointerMove({ x: start.x + Math.cos(a) * 60, y: start.y + Math.sin(a) * 40 }, {});
+    const w1 = performance.now();
     renderer.renderNow();
-    work.push(performance.now() - w0);
+    const w2 = performance.now();
+    work.push(w2 - w0);
+    moves.push(w1 - w0);
+    draws.push(w2 - w1);
     i++;
     requestAnimationFrame(step);
   };
@@ -122,18 +128,22 @@ export default async function boardFrames(): Promise<BenchSection> {
     // Warm-up drag, then the measured one.
     await page.evaluate(() => (window as unknown as { runDrag: (n: number) => Promise<unknown> }).runDrag(30));
     const result = await page.evaluate(() =>
-      (window as unknown as { runDrag: (n: number) => Promise<{ stamps: number[]; work: number[]; draws: { static: number; active: number }; undoSteps: number }> }).runDrag(240),
+      (window as unknown as { runDrag: (n: number) => Promise<{ stamps: number[]; work: number[]; moves: number[]; drawsMs: number[]; draws: { static: number; active: number }; undoSteps: number }> }).runDrag(240),
     );
     const shot = process.env['BOARD_BENCH_SCREENSHOT'];
     if (shot) await page.screenshot({ path: shot });
     const frames = result.stamps.slice(1).map((t, i) => t - result.stamps[i]);
     const f = summarise(frames);
     const w = summarise(result.work);
+    const mv = summarise(result.moves);
+    const dr = summarise(result.drawsMs);
     return {
       title: 'Drafting board: frame time while dragging a vertex (headless Chromium, Konva 10.9.1)',
       rows: [
         { measure: 'frame interval (rAF timestamps)', frames: f.runs, medianMs: ms(f.medianMs), p95Ms: ms(f.p95Ms), maxMs: ms(f.maxMs) },
         { measure: 'work per frame (pointer move + draw)', frames: w.runs, medianMs: ms(w.medianMs), p95Ms: ms(w.p95Ms), maxMs: ms(w.maxMs) },
+        { measure: '… editor core: pointer move (snap, command, patches, sewability)', frames: mv.runs, medianMs: ms(mv.medianMs), p95Ms: ms(mv.p95Ms), maxMs: ms(mv.maxMs) },
+        { measure: '… Konva: rebuild and draw the active layer and overlay', frames: dr.runs, medianMs: ms(dr.medianMs), p95Ms: ms(dr.p95Ms), maxMs: ms(dr.maxMs) },
       ],
       notes: [
         `${info.patchCount} patches in ${info.sectionCount} sections (${info.unsewable} failing the sewability check); first draw ${ms(info.firstDrawMs)} ms.`,
