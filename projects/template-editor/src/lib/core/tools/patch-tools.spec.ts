@@ -153,6 +153,9 @@ describe('Fabric fill and strip set tools', () => {
       { fabricId: 'oat', finishedWidthIn: 1 },
       { fabricId: 'sage', finishedWidthIn: 2 },
     ]);
+    // Two strip seams, each drawn as a guide line across the patch (laid out by the piecing library).
+    expect(patchAtAngle(ed, 55).guideLines).toHaveLength(2);
+    expect(patchAtAngle(ed, 55).stripBands?.map((b) => b.fabricId)).toEqual(['plum', 'oat', 'sage']);
     play(ed, click(p.x, p.y, { altKey: true }));
     expect(patchAtAngle(ed, 55).stripSet).toBeUndefined();
   });

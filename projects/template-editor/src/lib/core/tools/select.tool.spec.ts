@@ -43,6 +43,25 @@ describe('Select tool', () => {
     expect(ed.analysis.patches(s)).toHaveLength(2);
   });
 
+  it('reshapes an arc section by its handles: outer radius, then end angle', () => {
+    const ed = testEditor();
+    ed.setTool('arc');
+    play(ed, [['down', 12, 12], ['move', 20, 12], ['up', 20, 12], ...click(17, 12), ...click(12, 20)]);
+    ed.setTool('select');
+    ed.setSettings({ grid: 'off', snapToPoints: false });
+    // The outer-radius handle sits on the outer arc at mid-sweep (45°).
+    const r = 8 * Math.SQRT1_2;
+    play(ed, [['down', 12 + r, 12 + r], ['move', 12 + 9 * Math.SQRT1_2, 12 + 9 * Math.SQRT1_2], ['up', 12 + 9 * Math.SQRT1_2, 12 + 9 * Math.SQRT1_2]]);
+    let g = ed.store.document.sections[0].geometry;
+    expect(g.kind === 'arc' && g.outerRadiusIn).toBeCloseTo(9, 9);
+    // The end handle is at 90° on the outer arc; drag it round to 60°.
+    const end60 = { x: 12 + 9 * Math.cos(Math.PI / 3), y: 12 + 9 * Math.sin(Math.PI / 3) };
+    play(ed, [['down', 12, 21], ['move', end60.x, end60.y], ['up', end60.x, end60.y]]);
+    g = ed.store.document.sections[0].geometry;
+    expect(g.kind === 'arc' && g.sweepDeg).toBeCloseTo(60, 9);
+    expect(ed.store.undoDepth).toBe(3);
+  });
+
   it('clears the selection on a click on empty board and deletes the selection with Delete', () => {
     const ed = withSquare();
     play(ed, click(4, 4));
