@@ -16,8 +16,8 @@ import {
   findRevision,
   ownerName,
   patternJson,
-  revisionJson,
   saveRevision,
+  sendPatternWithRevision,
   validDocument,
 } from '../services/revisions';
 
@@ -82,20 +82,14 @@ export function patternsRouter(ctx: AppContext): Router {
     const body = parseOr400(createBody, req.body);
     const document = validDocument(body.document);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
-    res.status(201).json({
-      pattern: patternJson(pattern, user.displayName, 'owner'),
-      revision: revisionJson(revision, user.displayName),
-    });
+    sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
   });
 
   router.get('/:id', (req, res) => {
     const { pattern, access } = resolvePatternAccess(db, req.user, req.params.id);
     const latest = findRevision(db, pattern.id);
     if (!latest) throw new HttpError(500, 'Pattern has no revision');
-    res.json({
-      pattern: patternJson(pattern, ownerName(db, pattern.ownerId), access),
-      revision: revisionJson(latest.revision, latest.authorName),
-    });
+    sendPatternWithRevision(res, 200, patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName);
   });
 
   router.put('/:id', (req, res) => {
@@ -106,10 +100,7 @@ export function patternsRouter(ctx: AppContext): Router {
     const saved = db.transaction((tx) => saveRevision(tx, req.params.id, body.baseRevision, document, user.id), {
       behavior: 'immediate',
     });
-    res.json({
-      pattern: patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access),
-      revision: revisionJson(saved.revision, user.displayName),
-    });
+    sendPatternWithRevision(res, 200, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   router.post('/:id/duplicate', async (req, res) => {
@@ -147,10 +138,7 @@ export function patternsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    res.status(201).json({
-      pattern: patternJson(created.pattern, user.displayName, 'owner'),
-      revision: revisionJson(created.revision, user.displayName),
-    });
+    sendPatternWithRevision(res, 201, patternJson(created.pattern, user.displayName, 'owner'), created.revision, user.displayName);
   });
 
   router.post('/:id/trash', (req, res) => {

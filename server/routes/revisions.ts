@@ -8,7 +8,7 @@ import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
 import { resolvePatternAccess } from '../services/access';
-import { findRevision, ownerName, patternJson, revisionJson, revisionSummary, saveRevision } from '../services/revisions';
+import { findRevision, ownerName, patternJson, revisionJsonText, revisionSummary, saveRevision, sendPatternWithRevision } from '../services/revisions';
 
 const listQuery = z.strictObject(pagingQuery);
 const numberParam = z.coerce.number().int().min(1).max(1_000_000_000);
@@ -40,7 +40,7 @@ export function revisionsRouter(ctx: AppContext): Router {
     const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
     const found = findRevision(db, pattern.id, number);
     if (!found) throw new HttpError(404, 'Revision not found');
-    res.json({ revision: revisionJson(found.revision, found.authorName) });
+    res.type('application/json').send(`{"revision":${revisionJsonText(found.revision, found.authorName)}}`);
   });
 
   router.post('/:number/restore', (req, res) => {
@@ -56,10 +56,7 @@ export function revisionsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    res.status(201).json({
-      pattern: patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access),
-      revision: revisionJson(saved.revision, user.displayName),
-    });
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   return router;

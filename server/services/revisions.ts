@@ -33,6 +33,26 @@ export function revisionJson(r: Revision, authorName: string) {
   return { ...revisionSummary(r, authorName), document: JSON.parse(r.document) as PatternDocument };
 }
 
+/**
+ * A revision as JSON text with its stored document spliced in as is: the document was written by
+ * JSON.stringify after validation, so parsing and re-serialising it on every read would only cost time.
+ */
+export function revisionJsonText(r: Revision, authorName: string): string {
+  const meta = JSON.stringify(revisionSummary(r, authorName));
+  return `${meta.slice(0, -1)},"document":${r.document}}`;
+}
+
+/** Sends `{ pattern, revision }` (the answer of reads and saves) without re-serialising the document. */
+export function sendPatternWithRevision(
+  res: { status(code: number): { type(t: string): { send(body: string): unknown } } },
+  status: number,
+  pattern: ReturnType<typeof patternJson>,
+  revision: Revision,
+  authorName: string,
+): void {
+  res.status(status).type('application/json').send(`{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`);
+}
+
 export function patternJson(p: Pattern, ownerName: string, access: Access) {
   return {
     id: p.id,
