@@ -111,6 +111,30 @@ describe('stolen and forged session cookies', () => {
   });
 });
 
+describe('guessing passwords', () => {
+  it('after 10 failed sign-ins an account answers 429 with Retry-After, even to the right password, in any letter case', async () => {
+    const { credentials } = await signedInClient(server.baseUrl, 'designer', 'guessed');
+    const guesser = new ApiClient(server.baseUrl);
+    for (let i = 0; i < 10; i++) {
+      const res = await guesser.signIn(credentials.email, `wrong-password-${i}`);
+      expect(res.status, `guess ${i + 1}`).toBe(401);
+      expect(res.json.error).toBe('Wrong e-mail or password');
+    }
+    for (const email of [credentials.email, credentials.email.toUpperCase(), ` ${credentials.email} `]) {
+      const limited = await guesser.signIn(email, credentials.password);
+      expect(limited.status, email).toBe(429);
+      expectCleanAnswer(limited, 'rate-limited sign-in');
+      expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(0);
+      expect(limited.json.details.retryAfterSeconds).toBe(Number(limited.headers.get('retry-after')));
+    }
+    expect(guesser.user).toBeUndefined();
+    // Another account from the same address is not locked out by it.
+    const other = await signedInClient(server.baseUrl, 'designer', 'bystander');
+    const fresh = new ApiClient(server.baseUrl);
+    expect((await fresh.signIn(other.credentials.email, other.credentials.password)).status).toBe(200);
+  });
+});
+
 describe('CSRF', () => {
   /** Every state-changing route, with real ids of the world so only the token stands in the way. */
   const routes = (w: World): [string, string, unknown?][] => [
