@@ -53,6 +53,11 @@ export class EditorSession {
     const s = this.selectedSection();
     return s ? this.editor.analysis.sewability(s) : null;
   });
+  /** Problems with the selected section's seams, in words. */
+  readonly selectedProblems = computed(() => {
+    const s = this.selectedSection();
+    return s ? this.editor.analysis.problems(s) : [];
+  });
   /** Board settings. */
   readonly settings = computed<BoardSettings>(() => (this.viewTick(), this.editor.settings));
   /** The active tool's id. */

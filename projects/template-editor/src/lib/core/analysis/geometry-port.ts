@@ -44,6 +44,8 @@ export interface GeometryPort {
   outline(geometry: SectionGeometry): Point[];
   /** The derived patches with their piecing numbers and assignments, in split order (array position = `index`). */
   patches(section: Section): BoardPatch[];
+  /** Problems with the section's seams or patch assignments, in words (a seam that stops short …). */
+  problems(section: Section): string[];
   /** The sewability check of the section's current order (`patches`: its derived patches, when known). */
   sewability(section: Section, patches?: readonly BoardPatch[]): BoardSewability;
   /** A sewable order for the section (patch numbers in sewing order), or why there is none. */

@@ -103,6 +103,7 @@ export function piecingGeometry(): GeometryPort {
         return out;
       }).sort((p, q) => p.index - q.index);
     },
+    problems: (section) => derivePatches(section).problems.map((p) => p.message),
     sewability(section: Section, patches?: readonly BoardPatch[]): BoardSewability {
       const verdict = checkSewability(patches ? [...patches].sort((a, b) => a.number - b.number) : section);
       if (verdict.sewable || !verdict.failure) return { ok: true };

@@ -3,6 +3,7 @@ import type { BoardPatch, BoardSewability, GeometryPort } from './geometry-port'
 
 interface Entry {
   outline?: Point[];
+  problems?: string[];
   patches?: BoardPatch[];
   sewability?: BoardSewability;
 }
@@ -44,6 +45,19 @@ export class SectionAnalysis {
       }
     }
     return e.patches;
+  }
+
+  /** Problems with the seams or patch assignments, in words. */
+  problems(section: Section): string[] {
+    const e = this.entry(section);
+    if (!e.problems) {
+      try {
+        e.problems = this.geometry.problems(section);
+      } catch (err) {
+        e.problems = [err instanceof Error ? err.message : String(err)];
+      }
+    }
+    return e.problems;
   }
 
   /** The sewability check of the current order. */

@@ -67,3 +67,14 @@ describe('piecing order and sewability on the board', () => {
     expect(alongX3 || alongY3).toBe(true);
   });
 });
+
+describe('seam problems on the board', () => {
+  it('names a seam that stops short of the patch edge', () => {
+    const added = addSection(emptyPattern(), { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] }, port);
+    const s = findSection(added.document, added.sectionId)!;
+    const withStub = { ...s, seams: [{ id: 'stub', a: { x: 3, y: 0 }, b: { x: 3, y: 4 } }] };
+    const problems = new SectionAnalysis(port).problems(withStub);
+    expect(problems).toHaveLength(1);
+    expect(problems[0]).toMatch(/seam "stub" ends inside a patch at .*2\.000 in\. short/);
+  });
+});

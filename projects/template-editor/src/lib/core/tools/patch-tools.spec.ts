@@ -68,6 +68,18 @@ describe('Split tool', () => {
     expect(ed.store.undoDepth).toBe(1);
   });
 
+  it('refuses a seam that stops inside the patch, and says why', () => {
+    const { ed } = withArc();
+    ed.setTool('split');
+    ed.setSettings({ snapToPoints: false });
+    const a = polar(C, 5, 45);
+    const b = polar(C, 6.5, 45);
+    play(ed, [['down', a.x, a.y], ['move', b.x, b.y], ['up', b.x, b.y]]);
+    expect(ed.store.document.sections[0].seams).toHaveLength(0);
+    expect(ed.store.undoDepth).toBe(1);
+    expect(ed.tool.hint).toMatch(/splits no patch/);
+  });
+
   it('splits an arc section into four patches numbered A1…A4, one undo step per seam', () => {
     const { ed, section } = withFourPatches();
     const patches = ed.analysis.patches(section());

@@ -10,6 +10,7 @@ export class SplitTool implements BoardTool {
   readonly id = 'split' as const;
   private a: Point | null = null;
   private b: Point | null = null;
+  private refused: string | null = null;
 
   constructor(private readonly ctx: ToolContext) {}
 
@@ -18,10 +19,12 @@ export class SplitTool implements BoardTool {
   }
 
   get hint(): string {
-    return this.a ? 'Drag across the patch and release on the far edge' : 'Press on a patch edge to start a seam';
+    if (this.a) return 'Drag across the patch and release on the far edge';
+    return this.refused ?? 'Press on a patch edge to start a seam';
   }
 
   pointerDown(e: ToolPointer): void {
+    this.refused = null;
     this.a = this.ctx.snap(e.point, { edges: true }).point;
     this.b = this.a;
   }
@@ -38,9 +41,19 @@ export class SplitTool implements BoardTool {
     this.a = this.b = null;
     const sectionId = this.targetSection(a, b);
     if (!sectionId) return;
-    const port = this.ctx.analysis.geometry;
-    this.ctx.store.apply('Split patch', (d) => addSeam(d, sectionId, a, b, port));
-    this.ctx.store.select({ sectionId, patchIndex: null });
+    const { store, analysis } = this.ctx;
+    const port = analysis.geometry;
+    const before = store.document.sections.find((s) => s.id === sectionId);
+    const next = addSeam(store.document, sectionId, a, b, port);
+    const after = next.sections.find((s) => s.id === sectionId);
+    // A seam that splits nothing (it stops short of an edge, or runs along one) is not added.
+    if (!before || !after || analysis.patches(after).length <= analysis.patches(before).length) {
+      this.refused = 'That seam splits no patch: start and end it on patch edges, right across the patch';
+      return;
+    }
+    this.refused = null;
+    store.apply('Split patch', () => next);
+    store.select({ sectionId, patchIndex: null });
   }
 
   key(key: string): boolean {
