@@ -158,7 +158,7 @@ describe('password reset by e-mail', () => {
 describe('rate limits', () => {
   let r: TestServer;
   beforeAll(async () => {
-    r = await startTestServer({ SIGNIN_LIMIT_PER_ACCOUNT: '3', SIGNIN_LIMIT_PER_ADDRESS: '8', RESET_LIMIT_PER_ACCOUNT: '2' });
+    r = await startTestServer({ SIGNIN_LIMIT_PER_ACCOUNT: '3', SIGNIN_LIMIT_PER_ADDRESS: '8', RESET_LIMIT_PER_ACCOUNT: '2', RESET_LIMIT_PER_ADDRESS: '5' });
   });
   afterAll(async () => {
     await r.close();
@@ -187,5 +187,9 @@ describe('rate limits', () => {
     const s: number[] = [];
     for (let i = 0; i < 3; i++) s.push((await c.post('/api/auth/password-reset', { email: 'fay@example.test' })).status);
     expect(s).toEqual([202, 202, 429]);
+    // Per address (RESET_LIMIT_PER_ADDRESS=5): the three above count, so two more accounts and then no more.
+    const more: number[] = [];
+    for (const email of ['g1@example.test', 'g2@example.test', 'g3@example.test']) more.push((await c.post('/api/auth/password-reset', { email })).status);
+    expect(more).toEqual([202, 202, 429]);
   });
 });
