@@ -1,5 +1,6 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject } from '@angular/core';
+import { filter } from 'rxjs';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { MatIconModule, MatIconRegistry } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatButtonModule } from '@angular/material/button';
@@ -83,6 +84,21 @@ export class AppComponent {
     // Icons come from the shipped Material Symbols font, not from a web service.
     inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
     this.auth.load().subscribe({ error: () => undefined });
+    this.focusMainOnPageChange();
+  }
+
+  /**
+   * After moving to another page, keyboard and screen-reader users start at the page's content,
+   * not at the top bar. Switching parts of one pattern keeps the focus where it is (on the tabs).
+   */
+  private focusMainOnPageChange(): void {
+    let lastPage = '';
+    const sub = this.router.events.pipe(filter((e): e is NavigationEnd => e instanceof NavigationEnd)).subscribe((e) => {
+      const page = e.urlAfterRedirects.split(/[?#]/)[0].split('/').slice(0, 3).join('/');
+      if (lastPage && page !== lastPage) document.getElementById('main')?.focus({ preventScroll: true });
+      lastPage = page;
+    });
+    inject(DestroyRef).onDestroy(() => sub.unsubscribe());
   }
 
   protected signOut(): void {
