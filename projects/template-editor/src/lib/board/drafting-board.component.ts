@@ -75,6 +75,7 @@ export class DraftingBoardComponent {
     });
     effect(() => {
       const url = this.referenceImageUrl() ?? null;
+      this.session.referenceImageShown.set(url !== null && url !== '');
       this.renderer?.setReferenceImage(url);
     });
     effect(() => {

@@ -78,8 +78,12 @@ export class EditorSession {
     this.editor.onViewChange(() => this.viewTick.update((n) => n + 1));
   }
 
+  /** Whether the board shows a reference image (the toolbar then offers its fading). */
+  readonly referenceImageShown = signal(false);
+
   /** Opens a document (not recorded; the history starts empty). */
   load(document: PatternDocument): void {
+    if (document.referenceImage) this.editor.setSettings({ referenceOpacity: document.referenceImage.opacity });
     this.editor.store.load(document);
     this.lastOrderSearch.set(null);
   }

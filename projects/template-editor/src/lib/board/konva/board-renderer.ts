@@ -180,8 +180,11 @@ export class BoardRenderer {
     }
 
     if (this.referenceImage) {
-      const opacity = doc.referenceImage?.opacity ?? ed.settings.referenceOpacity;
-      if (this.referenceImage.opacity() !== opacity) this.referenceImage.opacity(opacity);
+      const opacity = ed.settings.referenceOpacity;
+      if (this.referenceImage.opacity() !== opacity) {
+        this.referenceImage.opacity(opacity);
+        if (!viewChanged) this.referenceLayer.draw();
+      }
     }
 
     if (viewChanged) {
