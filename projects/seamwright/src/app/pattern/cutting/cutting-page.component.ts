@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { buildCuttingList, type CuttingList } from '@seamwright/piecing';
+import { YARDAGE_STEP_IN, buildCuttingList, type CuttingList } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { StripDiagramComponent } from './strip-diagram.component';
@@ -54,6 +54,11 @@ export class CuttingPageComponent {
   );
   protected readonly pieceColumns = ['count', 'size', 'strips', 'patches'];
   protected readonly stripColumns = ['set', 'finished', 'cut', 'strips'];
+
+  /** Eighths of a yard in a total that is already a sum of ⅛ yd (4 ½ in.) steps. */
+  protected totalEighths(totalIn: number): number {
+    return Math.round(totalIn / YARDAGE_STEP_IN);
+  }
 
   protected fabricName(id: string): string {
     return this.fabricsById().get(id)?.name ?? id;
