@@ -31,6 +31,14 @@ describe('demo data (design.md §8)', () => {
     await signedIn('admin');
   });
 
+  it("publishes Garden Gate in the studio's shop, once", async () => {
+    const quilter = await signedIn('quilter');
+    const listed = await quilter.get('/api/shop/listings').expect(200);
+    expect(listed.body.items.map((l: { title: string; priceMinor: number; currency: string }) => [l.title, l.priceMinor, l.currency])).toEqual([
+      ['Garden Gate', 900, 'usd'],
+    ]);
+  });
+
   it('gives the designer both patterns and shares them with the demo quilter as quilter', async () => {
     const designer = await signedIn('designer');
     const own = await designer.get('/api/patterns?scope=owned&sort=title&order=asc').expect(200);

@@ -11,6 +11,7 @@ import { hashPassword } from '../auth/passwords';
 import { newId } from '../auth/tokens';
 import { loadConfig } from '../config';
 import { createPattern } from '../services/revisions';
+import { seedDemoShop } from '../shop/demo-shop';
 import { openDatabase, type Db } from './database';
 import { members, patterns, users, type Role } from './schema';
 
@@ -51,6 +52,7 @@ export async function seedDemo(db: Db, bcryptRounds: number): Promise<SeedReport
     report.accountsCreated.push(a.email);
   }
 
+  const patternIds: Record<string, string> = {};
   for (const build of DEMO_BUILDERS) {
     const document: PatternDocument = readPatternDocument(build());
     const owned = db
@@ -58,15 +60,31 @@ export async function seedDemo(db: Db, bcryptRounds: number): Promise<SeedReport
       .from(patterns)
       .where(and(eq(patterns.ownerId, ids['designer']), eq(patterns.title, document.title)))
       .get();
-    if (owned) continue;
+    if (owned) {
+      patternIds[document.title] = owned.id;
+      continue;
+    }
     db.transaction(
       (tx) => {
         const { pattern } = createPattern(tx, ids['designer'], document);
         tx.insert(members).values({ patternId: pattern.id, userId: ids['quilter'], access: 'quilter', createdAt: new Date() }).run();
+        patternIds[document.title] = pattern.id;
       },
       { behavior: 'immediate' },
     );
     report.patternsCreated.push(document.title);
+  }
+
+  // The studio's shop sells the small block (invented price and wording).
+  const gate = patternIds['Garden Gate'];
+  if (gate) {
+    seedDemoShop(db, ids['designer'], 'usd', [
+      {
+        patternId: gate,
+        priceMinor: 900,
+        description: 'An 8 in. straight-seam block in three sections: a good first foundation-pieced pattern.',
+      },
+    ]);
   }
   return report;
 }
