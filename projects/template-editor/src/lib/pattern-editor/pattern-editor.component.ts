@@ -38,7 +38,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
     </div>
   `,
   styles: `
-    :host { display: flex; flex-direction: column; height: calc(100vh - 160px); min-height: 480px; background: #fbfaf7; }
+    :host { display: flex; flex-direction: column; height: calc(100vh - 240px); min-height: 480px; background: #fbfaf7; }
     /* A definite height by default, so a long side panel scrolls instead of stretching the board; the app may set its own. */
     .body { flex: 1; display: flex; min-height: 0; }
     .board-column { flex: 1; display: flex; flex-direction: column; min-width: 0; }
