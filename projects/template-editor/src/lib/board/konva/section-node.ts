@@ -1,5 +1,5 @@
 import Konva from 'konva';
-import { expandRingRepeat, type Fabric, type Point, type Section } from '@seamwright/piecing';
+import type { Fabric, Point, Section } from '@seamwright/piecing';
 import type { BoardPatch, BoardSewability, SectionAnalysis } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 
@@ -82,7 +82,7 @@ function addLabel(group: Konva.Group, text: string, at: Point, o: SectionNodeOpt
  */
 export function createSectionNode(section: Section, o: SectionNodeOptions): Konva.Group {
   const group = new Konva.Group({ name: 'section', id: `section-${section.id}`, listening: false });
-  const placements = section.ringRepeat ? expandRingRepeat(section) : [section];
+  const placements = o.analysis.placements(section);
   const sewability: BoardSewability = o.analysis.sewability(section);
   placements.forEach((placement, copyIndex) => {
     const copy = new Konva.Group({ listening: false, opacity: copyIndex === 0 ? 1 : 0.55 });

@@ -1,7 +1,8 @@
-import type { PatternDocument, Point, Section } from '@seamwright/piecing';
+import { expandRingRepeat, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 import type { BoardPatch, BoardSewability, GeometryPort } from './geometry-port';
 
 interface Entry {
+  placements?: Section[];
   outline?: Point[];
   problems?: string[];
   patches?: BoardPatch[];
@@ -73,18 +74,37 @@ export class SectionAnalysis {
     return e.sewability;
   }
 
-  /** The topmost section whose outline holds `p`, or null. */
-  sectionAt(document: PatternDocument, p: Point): Section | null {
+  /** The section as drawn followed by its ring-repeat copies (just the section without a repeat). */
+  placements(section: Section): Section[] {
+    const e = this.entry(section);
+    return (e.placements ??= section.ringRepeat ? expandRingRepeat(section) : [section]);
+  }
+
+  /**
+   * The topmost section whose outline holds `p`, or null. With `copies` (the default) a click on a
+   * ring-repeat copy finds the section it copies.
+   */
+  sectionAt(document: PatternDocument, p: Point, options: { copies?: boolean } = {}): Section | null {
+    const copies = options.copies ?? true;
     for (let i = document.sections.length - 1; i >= 0; i--) {
       const s = document.sections[i];
       if (this.geometry.contains(this.outline(s), p)) return s;
+      if (copies && s.ringRepeat && this.placements(s).slice(1).some((c) => this.geometry.contains(this.outline(c), p))) return s;
     }
     return null;
   }
 
-  /** The patch of `section` that holds `p`, or null. */
+  /**
+   * The patch of `section` that holds `p`, or null; on a ring-repeat copy, the section's own patch
+   * that the copied one repeats (same split order, so the same index).
+   */
   patchAt(section: Section, p: Point): BoardPatch | null {
     for (const patch of this.patches(section)) if (this.geometry.contains(patch.polygon, p)) return patch;
+    if (!section.ringRepeat) return null;
+    const own = this.patches(section);
+    for (const copy of this.placements(section).slice(1)) {
+      for (const patch of this.patches(copy)) if (this.geometry.contains(patch.polygon, p)) return own[patch.index] ?? null;
+    }
     return null;
   }
 }

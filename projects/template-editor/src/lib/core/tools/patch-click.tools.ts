@@ -78,7 +78,8 @@ export class DeleteTool extends ClickTool {
 
   pointerDown(e: ToolPointer): void {
     const { store, analysis } = this.ctx;
-    const section = analysis.sectionAt(store.document, e.point);
+    // Only the section as drawn: a click on a ring-repeat copy must not delete by accident.
+    const section = analysis.sectionAt(store.document, e.point, { copies: false });
     if (!section) return;
     const r = this.ctx.hitRadiusIn();
     const seam = section.seams.find((m) => distanceToSegment(e.point, m.a, m.b) <= r);

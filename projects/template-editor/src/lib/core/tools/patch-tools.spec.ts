@@ -186,6 +186,31 @@ describe('Ring repeat and delete tools', () => {
     expect(ed.tool.state).toBe('idle');
   });
 
+  it('lets a click on a ring-repeat copy select the section and fill the patch it repeats', () => {
+    const { ed } = withArc();
+    ed.setTool('split');
+    play(ed, radialSeam(45));
+    ed.setTool('ring');
+    ed.setSettings({ ringCount: 4 });
+    const inside = polar(C, 6.5, 45);
+    play(ed, [...click(inside.x, inside.y), ...click(12, 12)]);
+    // The copy turned by 90° covers 90°…180°; its half at 160° repeats the section's half at 70°.
+    ed.setTool('fill');
+    ed.setSettings({ activeFabricId: 'oat' });
+    const onCopy = polar(C, 6.5, 160);
+    play(ed, click(onCopy.x, onCopy.y));
+    expect(patchAtAngle(ed, 70).fabricId).toBe('oat');
+    expect(patchAtAngle(ed, 20).fabricId).toBeUndefined();
+    ed.setTool('select');
+    ed.store.select({ sectionId: null, patchIndex: null });
+    play(ed, click(onCopy.x, onCopy.y));
+    expect(ed.store.selection.sectionId).toBe(ed.store.document.sections[0].id);
+    // Split and delete act on the section as drawn only.
+    ed.setTool('delete');
+    play(ed, click(onCopy.x, onCopy.y));
+    expect(ed.store.document.sections).toHaveLength(1);
+  });
+
   it('deletes a seam when clicked on it, else the section', () => {
     const { ed, section } = withFourPatches();
     ed.setTool('delete');
