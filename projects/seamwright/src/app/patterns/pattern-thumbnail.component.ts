@@ -1,8 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { DomSanitizer, SafeHtml } from '@angular/platform-browser';
 import { MatIconModule } from '@angular/material/icon';
 import type { PatternDocument } from '@seamwright/piecing';
-import { previewSvg } from './preview-svg';
+
+type Renderer = (doc: PatternDocument) => string | null;
+/** The preview renderer pulls in the geometry library: fetched once, after the list is on screen. */
+let renderer: Promise<Renderer> | null = null;
+const loadRenderer = () => (renderer ??= import('./preview-svg').then((m) => m.previewSvg));
 
 /** A small picture of a pattern (drawn by the board's preview renderer), or a plain mark without a document. */
 @Component({
@@ -29,10 +33,19 @@ export class PatternThumbnailComponent {
   /** The pattern's title, for the picture's label. */
   readonly title = input('');
   private readonly sanitizer = inject(DomSanitizer);
+  private readonly render = signal<Renderer | null>(null);
+
+  constructor() {
+    loadRenderer().then(
+      (r) => this.render.set(r),
+      () => undefined,
+    );
+  }
 
   protected readonly svg = computed<SafeHtml | null>(() => {
     const doc = this.document();
-    const markup = doc ? previewSvg(doc) : null;
+    const render = this.render();
+    const markup = doc && render ? render(doc) : null;
     // The renderer builds the markup from a validated document with svg.js: no user HTML passes through.
     return markup ? this.sanitizer.bypassSecurityTrustHtml(markup) : null;
   });
