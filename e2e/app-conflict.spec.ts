@@ -4,6 +4,7 @@ import { PatternsPage } from './pages/patterns.page';
 import { PatternPage } from './pages/pattern.page';
 import { DraftingBoardPage } from './pages/drafting-board.page';
 
+
 /*
  * Two editors of one pattern: the second one's autosave is stale (409). The app says someone else
  * saved, keeps the drawing, and keeping a copy makes a new pattern of it. Leaving with unsaved
@@ -65,6 +66,40 @@ test('a stale save shows who saved, keeps the drawing and can keep it as a copy;
   await new PatternPage(first).parts().getByRole('tab').filter({ hasText: 'Cutting list' }).click();
   await expect.poll(() => asked).toContain('not saved yet');
   expect(new URL(first.url()).pathname).toMatch(/\/board$/);
-  await new PatternPage(first).waitForSaved();
+  const latest = await new PatternPage(first).waitForSaved();
+
+  // History: restore revision 1 as a new revision; the old ones stay.
+  first.on('dialog', (d) => void d.accept());
+  await new PatternPage(first).open('History');
+  await first.getByRole('button', { name: 'Restore revision 1' }).click();
+  await first.waitForURL(/\/board$/);
+  await new PatternPage(first).open('History');
+  const rows = first.getByRole('table', { name: 'Revisions' }).getByRole('row');
+  await expect(rows).toHaveCount(latest + 2);
+  await expect(rows.nth(1)).toContainText('Restored from revision 1');
+  await shot(first, 'history-restored');
+
+  // The list: duplicate, move the copy to the trash, restore it from there.
+  const list = new PatternsPage(first);
+  await list.goto();
+  await first.getByRole('button', { name: 'Actions for Gate Study', exact: true }).click();
+  await first.getByRole('menuitem', { name: 'Duplicate' }).click();
+  await expect(first.getByRole('link', { name: 'Gate Study (copy)' })).toBeVisible();
+  await first.getByRole('button', { name: 'Actions for Gate Study (copy)' }).click();
+  await first.getByRole('menuitem', { name: 'Move to trash' }).click();
+  await expect(first.getByRole('link', { name: 'Gate Study (copy)' })).toHaveCount(0);
+  await first.getByRole('radio', { name: 'Trash' }).click();
+  await expect(first.getByRole('heading', { name: 'Trash' })).toBeVisible();
+  await expect(first.getByRole('cell', { name: 'Gate Study (copy)', exact: true })).toBeVisible();
+  await shot(first, 'patterns-trash');
+  await first.getByRole('button', { name: 'Actions for Gate Study (copy)' }).click();
+  await first.getByRole('menuitem', { name: 'Restore' }).click();
+  await expect(first.getByText('The trash is empty.')).toBeVisible();
+  await first.getByRole('radio', { name: 'All' }).click();
+  await expect(first.getByRole('link', { name: 'Gate Study (copy)' })).toBeVisible();
+  // Search narrows the list by title.
+  await first.getByLabel('Search titles').fill('my copy');
+  await expect(first.getByRole('link', { name: 'Gate Study (my copy)' })).toBeVisible();
+  await expect(first.getByRole('link', { name: 'Gate Study', exact: true })).toHaveCount(0);
   await ctx.close();
 });
