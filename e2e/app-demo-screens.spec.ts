@@ -49,4 +49,12 @@ test('the demo medallion: cutting list with strip sets drawn, print preview, sew
   await new PatternPage(page).open('Drafting board');
   await page.getByRole('application', { name: 'Drafting board' }).waitFor();
   await shot(page, 'board');
+
+  // The dark theme on the busiest screens.
+  await page.getByRole('button', { name: 'Use dark theme' }).click();
+  await expect(page.locator('html')).toHaveClass(/sw-dark/);
+  await shot(page, 'board-dark');
+  await new PatternPage(page).open('Cutting list');
+  await expect(page.locator('sw-strip-diagram svg').first()).toBeVisible();
+  await shot(page, 'cutting-list-dark');
 });

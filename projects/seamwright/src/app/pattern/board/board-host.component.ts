@@ -11,7 +11,16 @@ import { PatternEditorComponent } from '@seamwright/template-editor';
   imports: [PatternEditorComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `<sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" (documentChange)="documentChange.emit($event)" />`,
-  styles: `:host { display: block; } .editor { display: block; min-height: 560px; }`,
+  styles: `
+    :host { display: block; }
+    .editor { display: block; min-height: 560px; }
+    /* The editor paints its own light surfaces; in the dark theme use the theme's instead. */
+    :host-context(html.sw-dark) ::ng-deep sw-pattern-editor { background: var(--mat-sys-surface) !important; }
+    :host-context(html.sw-dark) ::ng-deep sw-pattern-editor .side {
+      background: var(--mat-sys-surface-container-low) !important;
+      border-left-color: var(--sw-card-edge) !important;
+    }
+  `,
 })
 export class BoardHostComponent {
   /** The document to open; a new object loads it into the editor (and clears its undo history). */
