@@ -1,3 +1,4 @@
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference -- ambient types for the ES build, a type-only file
 /// <reference path="./maxrects-packer-esm.d.ts" />
 // maxrects-packer's "main" is a UMD file inside a "type": "module" package, which Node's ESM loader
 // reads as an empty module; its ES build works in Node, vitest and the browser alike.
