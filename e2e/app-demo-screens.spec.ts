@@ -50,6 +50,19 @@ test('the demo medallion: cutting list with strip sets drawn, print preview, sew
   await page.getByRole('application', { name: 'Drafting board' }).waitFor();
   await shot(page, 'board');
 
+  // A reference image to trace: uploaded, then named by the document (autosaved as a new revision).
+  // A 1 × 1 PNG (PNG signature and chunks per ISO/IEC 15948), built inline.
+  const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
+  await page.getByLabel('Image to trace').setInputFiles({ name: 'sketch.png', mimeType: 'image/png', buffer: png });
+  await expect(page.getByText('Tracing “sketch.png”')).toBeVisible();
+  expect(await new PatternPage(page).waitForSaved()).toBe(2);
+  const stored = (await (await page.request.get(`/api/patterns/${pattern.id}`)).json()) as {
+    revision: { document: { referenceImage?: { uploadId: string; widthIn: number } } };
+  };
+  expect(stored.revision.document.referenceImage?.widthIn).toBe(26);
+  const image = await page.request.get(`/api/patterns/${pattern.id}/uploads/${stored.revision.document.referenceImage!.uploadId}/file`);
+  expect(image.headers()['content-type']).toBe('image/png');
+
   // The dark theme on the busiest screens.
   await page.getByRole('button', { name: 'Use dark theme' }).click();
   await expect(page.locator('html')).toHaveClass(/sw-dark/);

@@ -31,6 +31,8 @@ export const API = {
   acceptInvitation: '/api/invitations/accept',
   sewingLog: (id: string) => `${p(id)}/sewing-log`,
   sewingLogSection: (id: string, sectionId: string) => `${p(id)}/sewing-log/${encodeURIComponent(sectionId)}`,
+  uploads: (id: string) => `${p(id)}/uploads`,
+  uploadFile: (id: string, uploadId: string) => `${p(id)}/uploads/${encodeURIComponent(uploadId)}/file`,
   printSets: (id: string) => `${p(id)}/print-sets`,
   printSet: (id: string, setId: string) => `${p(id)}/print-sets/${encodeURIComponent(setId)}`,
   printSetFile: (id: string, setId: string) => `${p(id)}/print-sets/${encodeURIComponent(setId)}/file`,

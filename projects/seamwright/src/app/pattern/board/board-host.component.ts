@@ -10,7 +10,7 @@ import { PatternEditorComponent } from '@seamwright/template-editor';
   selector: 'sw-board-host',
   imports: [PatternEditorComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `<sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" (documentChange)="documentChange.emit($event)" />`,
+  template: `<sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" [referenceImageUrl]="referenceImageUrl()" (documentChange)="documentChange.emit($event)" />`,
   styles: `
     :host { display: block; }
     .editor { display: block; min-height: 560px; }
@@ -27,6 +27,8 @@ export class BoardHostComponent {
   readonly document = input.required<PatternDocument>();
   /** Whether the board only shows the design. */
   readonly readOnly = input(false);
+  /** Address of the image traced under the drawing, if any. */
+  readonly referenceImageUrl = input<string | null>(null);
   /** Every change made on the board (a drag emits once, at its end). */
   readonly documentChange = output<PatternDocument>();
   private readonly editor = viewChild(PatternEditorComponent);

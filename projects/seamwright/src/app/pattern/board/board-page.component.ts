@@ -11,6 +11,7 @@ import { BoardAutosave } from './board-autosave';
 import { HasUnsavedChanges } from './unsaved-changes.guard';
 import { DraftBackup, clearDraft, readDraft } from './draft-backup';
 import { BoardHostComponent } from './board-host.component';
+import { MAX_REFERENCE_IMAGE_BYTES, REFERENCE_IMAGE_TYPES, UploadsService } from '../../resources/uploads.service';
 
 /** The Drafting board part of the pattern page: the editor, autosave, and what to do on a conflict. */
 @Component({
@@ -25,6 +26,14 @@ export class BoardPageComponent implements HasUnsavedChanges {
   private readonly patterns = inject(PatternsService);
   private readonly notify = inject(NotifyService);
   private readonly router = inject(Router);
+  private readonly uploads = inject(UploadsService);
+  protected readonly imageTypes = REFERENCE_IMAGE_TYPES.join(',');
+  protected readonly uploading = signal(false);
+  /** The traced image's address, when the drawing has one. */
+  protected readonly referenceImageUrl = computed(() => {
+    const ref = this.working()?.referenceImage;
+    return ref ? this.uploads.fileUrl(this.ctx.id(), ref.uploadId) : null;
+  });
   protected readonly autosave = new BoardAutosave((doc, rev, settled) => {
     this.ctx.adopt(doc, rev);
     if (settled) this.host()?.markSaved();
@@ -84,6 +93,40 @@ export class BoardPageComponent implements HasUnsavedChanges {
     if (this.readOnly()) return;
     this.working.set(doc);
     this.autosave.change(doc);
+  }
+
+  /** Uploads an image to trace and puts it under the drawing, as wide as the drawing area. */
+  protected traceImage(input: HTMLInputElement): void {
+    const file = input.files?.[0];
+    input.value = '';
+    const doc = this.working();
+    if (!file || !doc) return;
+    if (!REFERENCE_IMAGE_TYPES.includes(file.type)) {
+      this.notify.error(new Error('Choose a PNG, JPEG or WebP image'));
+      return;
+    }
+    if (file.size > MAX_REFERENCE_IMAGE_BYTES) {
+      this.notify.error(new Error('The image is larger than 10 MB'));
+      return;
+    }
+    this.uploading.set(true);
+    this.uploads.upload(this.ctx.id(), file).subscribe({
+      next: (upload) => {
+        this.uploading.set(false);
+        const next: PatternDocument = {
+          ...doc,
+          referenceImage: { uploadId: upload.id, origin: { x: 0, y: 0 }, widthIn: doc.canvas.widthIn, opacity: 0.4 },
+        };
+        // Loading the new document into the editor starts a fresh undo history; the drawing itself is unchanged.
+        this.opened.set(next);
+        this.onChange(next);
+        this.notify.info(`Tracing “${upload.fileName}”`);
+      },
+      error: (err: unknown) => {
+        this.uploading.set(false);
+        this.notify.error(err, 'Image not uploaded');
+      },
+    });
   }
 
   protected saveNow(): void {
