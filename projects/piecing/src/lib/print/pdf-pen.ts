@@ -1,4 +1,4 @@
-import { jsPDF } from 'jspdf';
+import type { jsPDF } from 'jspdf';
 import type { Point } from '../document/index';
 import { POINTS_PER_INCH, type RectIn } from './paper';
 import type { PrintFonts } from './print-options';

@@ -1,4 +1,4 @@
-import { jsPDF } from 'jspdf';
+import type { jsPDF } from 'jspdf';
 import type { PatternDocument } from '../document/index';
 import { drawAppendix } from './draw-appendix';
 import { drawCover } from './draw-cover';
@@ -65,8 +65,11 @@ export async function renderPrintSet(
     await new Promise<void>((resolve) => setTimeout(resolve, 0));
   };
 
+  // jsPDF is loaded only when a PDF is written, so pages that import the library for geometry or
+  // layout (the board, the cutting list, the sheet preview) do not carry it.
+  const { jsPDF: JsPdf } = await import('jspdf');
   const coverFrame = sheetFrame(opts.paper, 'portrait', opts.marginIn);
-  const doc = new jsPDF({
+  const doc = new JsPdf({
     unit: 'pt',
     format: [coverFrame.widthIn * POINTS_PER_INCH, coverFrame.heightIn * POINTS_PER_INCH],
     orientation: 'portrait',
