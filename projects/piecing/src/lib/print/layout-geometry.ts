@@ -1,4 +1,6 @@
 import type { Point } from '../document/index';
+import { convexHull } from '../fabrication/cutting-list/min-area-rectangle';
+import { polygonBounds } from '../geometry/index';
 import type { RectIn } from './paper';
 
 /*
@@ -8,38 +10,8 @@ import type { RectIn } from './paper';
 
 /** Axis-aligned bounding box of points, as a rectangle. */
 export function boundingRect(points: readonly Point[]): RectIn {
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
-  for (const p of points) {
-    if (p.x < minX) minX = p.x;
-    if (p.y < minY) minY = p.y;
-    if (p.x > maxX) maxX = p.x;
-    if (p.y > maxY) maxY = p.y;
-  }
-  return { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
-}
-
-/** Convex hull (Andrew's monotone chain), counter-clockwise in a y-up sense; collinear points dropped. */
-export function convexHull(points: readonly Point[]): Point[] {
-  const pts = [...points].sort((p, q) => p.x - q.x || p.y - q.y);
-  if (pts.length < 3) return pts;
-  const cross = (o: Point, a: Point, b: Point) => (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x);
-  const lower: Point[] = [];
-  for (const p of pts) {
-    while (lower.length >= 2 && cross(lower[lower.length - 2], lower[lower.length - 1], p) <= 0) lower.pop();
-    lower.push(p);
-  }
-  const upper: Point[] = [];
-  for (let i = pts.length - 1; i >= 0; i--) {
-    const p = pts[i];
-    while (upper.length >= 2 && cross(upper[upper.length - 2], upper[upper.length - 1], p) <= 0) upper.pop();
-    upper.push(p);
-  }
-  lower.pop();
-  upper.pop();
-  return lower.concat(upper);
+  const b = polygonBounds(points);
+  return { x: b.minX, y: b.minY, width: b.maxX - b.minX, height: b.maxY - b.minY };
 }
 
 /**
