@@ -15,9 +15,9 @@ describe('AcceptInvitationComponent', () => {
     fixture.componentRef.setInput('token', 'tok-9');
     fixture.detectChanges();
     const http = TestBed.inject(HttpTestingController);
-    const me = http.expectOne('/api/auth/me');
+    const me = http.expectOne('/api/auth/session');
     if (signedIn) me.flush({ user: { id: 'u3', email: 'jonah@example.test', displayName: 'Jonah', role: 'quilter', disabled: false, createdAt: '' } });
-    else me.flush({ error: 'Not signed in', details: null }, { status: 401, statusText: 'Unauthorized' });
+    else me.flush({ user: null, csrfToken: 'anon' });
     http.expectOne('/api/invitations/tok-9').flush({ invitation });
     await fixture.whenStable();
     return { fixture, http, el: fixture.nativeElement as HTMLElement };
@@ -50,7 +50,7 @@ describe('AcceptInvitationComponent', () => {
     fixture.componentRef.setInput('token', 'old');
     fixture.detectChanges();
     const http = TestBed.inject(HttpTestingController);
-    http.expectOne('/api/auth/me').flush({ error: 'Not signed in', details: null }, { status: 401, statusText: 'Unauthorized' });
+    http.expectOne('/api/auth/session').flush({ error: 'Not signed in', details: null }, { status: 401, statusText: 'Unauthorized' });
     http.expectOne('/api/invitations/old').flush({ error: 'Invitation not found', details: null }, { status: 404, statusText: 'Not Found' });
     await fixture.whenStable();
     expect((fixture.nativeElement as HTMLElement).querySelector('[role=alert]')?.textContent).toContain('expired or been withdrawn');

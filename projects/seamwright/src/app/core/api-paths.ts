@@ -10,6 +10,8 @@ export const API = {
   csrf: '/api/auth/csrf',
   changePassword: '/api/auth/change-password',
   me: '/api/auth/me',
+  /** Who is signed in, or null, with a CSRF token: answered 200 either way (no 401 in the console). */
+  session: '/api/auth/session',
   signIn: '/api/auth/sign-in',
   signUp: '/api/auth/sign-up',
   signOut: '/api/auth/sign-out',

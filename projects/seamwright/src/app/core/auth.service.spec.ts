@@ -17,18 +17,28 @@ describe('AuthService', () => {
     ctl = TestBed.inject(HttpTestingController);
   });
 
-  it('takes a 401 from "who am I" as signed out', () => {
+  it('takes a session answer without a user as signed out, and keeps its CSRF token', () => {
     let user: unknown = 'unset';
     auth.load().subscribe((u) => (user = u));
-    ctl.expectOne('/api/auth/me').flush({ error: 'Not signed in', details: null }, { status: 401, statusText: 'Unauthorized' });
+    ctl.expectOne('/api/auth/session').flush({ user: null, csrfToken: 'anon-token' });
     expect(user).toBeNull();
     expect(auth.signedIn()).toBe(false);
+    let token = '';
+    TestBed.inject(CsrfTokenService).get().subscribe((t) => (token = t));
+    expect(token).toBe('anon-token');
+  });
+
+  it('takes a 401 from the session probe as signed out', () => {
+    let user: unknown = 'unset';
+    auth.load().subscribe((u) => (user = u));
+    ctl.expectOne('/api/auth/session').flush({ error: 'Not signed in', details: null }, { status: 401, statusText: 'Unauthorized' });
+    expect(user).toBeNull();
   });
 
   it('asks the server once however many guards ask', () => {
     auth.load().subscribe();
     auth.load().subscribe();
-    ctl.expectOne('/api/auth/me').flush({ user: ada });
+    ctl.expectOne('/api/auth/session').flush({ user: ada, csrfToken: 't' });
     expect(auth.user()?.displayName).toBe('Ada');
     expect(auth.canDesign()).toBe(true);
   });

@@ -30,7 +30,8 @@ export class AuthService {
 
   /** Asks the server who is signed in (once; later calls share the answer). */
   load(): Observable<User | null> {
-    this.loaded$ ??= this.http.get<{ user: User | null }>(API.me).pipe(
+    this.loaded$ ??= this.http.get<{ user: User | null; csrfToken?: string }>(API.session).pipe(
+      tap((r) => this.csrf.remember(r.csrfToken)),
       map((r) => r.user ?? null),
       catchError((err: unknown) => (err instanceof HttpErrorResponse && err.status === 401 ? of(null) : throwError(() => toApiError(err)))),
       tap((u) => this.current.set(u)),

@@ -11,7 +11,7 @@ export const sessionExpiredInterceptor: HttpInterceptorFn = (req, next) => {
   const router = inject(Router);
   return next(req).pipe(
     catchError((err: unknown) => {
-      if (err instanceof HttpErrorResponse && err.status === 401 && req.url !== API.me && req.url !== API.signIn && auth.signedIn()) {
+      if (err instanceof HttpErrorResponse && err.status === 401 && req.url !== API.me && req.url !== API.session && req.url !== API.signIn && auth.signedIn()) {
         auth.forget();
         void router.navigate(['/sign-in'], { queryParams: { next: router.url } });
       }
