@@ -32,14 +32,11 @@ mail_pid=$!
 if [ -z "${STRIPE_SECRET_KEY:-}" ]; then export STRIPE_SECRET_KEY=sk_test_seamwright_local STRIPE_WEBHOOK_SECRET=whsec_seamwright_local STRIPE_API_BASE="http://127.0.0.1:${FAKE_STRIPE_PORT:-12111}" FAKE_STRIPE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/shop/webhook"; npx tsx server/dev/fake-stripe-server.ts & stripe_pid=$!; fi
 trap 'kill $mail_pid ${stripe_pid:-} 2>/dev/null || true' EXIT INT TERM
 
-cat <<MSG
-
-  Seamwright: $PUBLIC_URL
-  Demo sign-in (studio "Fernbrook Patterns"):
-    designer  designer@fernbrook.example / fernbrook-designer
-    quilter   quilter@fernbrook.example  / fernbrook-quilter
-    admin     admin@fernbrook.example    / fernbrook-admin
-  Mail sent by the app: $MAIL_INBOX_URL
-
-MSG
+echo
+echo "  Seamwright: $PUBLIC_URL"
+echo "  Demo sign-in (studio \"Fernbrook Patterns\"):"
+# The accounts come from the seed itself, so this list cannot drift from what is in the database.
+node --import tsx -e "import('./server/db/seed.ts').then((m) => { for (const a of m.DEMO_ACCOUNTS) console.log('    ' + a.role.padEnd(9) + ' ' + a.email + ' / ' + a.password); })"
+echo "  Mail sent by the app: $MAIL_INBOX_URL"
+echo
 npx tsx server/main.ts
