@@ -62,8 +62,10 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
 
   router.post('/sign-in', ...limits.signIn, async (req, res) => {
     const body = parseOr400(signInBody, req.body);
+    // Awaited for every sign-in, known e-mail or not, so the one-time cost of making it tells nothing.
+    const fallback = await decoy();
     const user = db.select().from(users).where(eq(users.email, body.email)).get();
-    const ok = await verifyPassword(body.password, user?.passwordHash ?? decoy);
+    const ok = await verifyPassword(body.password, user?.passwordHash ?? fallback);
     if (!user || !ok) throw new HttpError(401, 'Wrong e-mail or password');
     if (user.disabled) throw new HttpError(403, 'This account is disabled');
     if (req.sessionTokenHash) endSession(db, config, res, req.sessionTokenHash);
