@@ -53,9 +53,9 @@ export function createGridShape(view: () => GridView): Konva.Shape {
   });
 }
 
-function label(value: number, unit: BoardUnit): string {
-  const rounded = Math.round(value * 1000) / 1000;
-  return unit === 'in' ? `${rounded}` : `${rounded}`;
+/** A ruler number: the grid value in the board unit, to three decimals at most. */
+function label(value: number): string {
+  return `${Math.round(value * 1000) / 1000}`;
 }
 
 /** The rulers along the top and left edges with the cursor marked, in screen space. */
@@ -87,7 +87,7 @@ export function createRulerShape(view: () => GridView): Konva.Shape {
         const x = Math.round(l.px) + 0.5;
         ctx.moveTo(x, l.major ? 8 : 17);
         ctx.lineTo(x, RULER_PX);
-        if (l.major) ctx.fillText(label(l.value, v.unit), x + 2, 2);
+        if (l.major) ctx.fillText(label(l.value), x + 2, 2);
       }
       ctx.stroke();
       ctx.save();
@@ -104,7 +104,7 @@ export function createRulerShape(view: () => GridView): Konva.Shape {
         ctx.save();
         ctx.translate(2, Math.round(l.px) + 2);
         ctx.rotate(Math.PI / 2);
-        ctx.fillText(label(l.value, v.unit), 0, -10);
+        ctx.fillText(label(l.value), 0, -10);
         ctx.restore();
       }
       ctx.restore();
