@@ -1,5 +1,7 @@
 import type { Point } from '../document/index';
+import { distanceToSegment, polygonBounds } from '../geometry/index';
 import { applyAffine, applyLinear } from './affine';
+import { distanceToRing, insideRing } from './layout-geometry';
 import type { SheetPlacement } from './layout-types';
 import type { PdfPen, StrokeStyle } from './pdf-pen';
 import type { PrintTemplate } from './template-model';
@@ -134,7 +136,10 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
       best = c;
     }
   }
-  if (!best) best = centroidOf(outline);
+  if (!best) {
+    const box = polygonBounds(outline);
+    best = { x: (box.minX + box.maxX) / 2, y: (box.minY + box.maxY) / 2 };
+  }
   const d = unit(applyLinear(placement.transform, template.orientation.direction));
   drawArrow(pen, best, d, 0.26);
   const word = template.orientation.towards === 'centre' ? 'centre' : 'top';
@@ -146,42 +151,6 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
   }
 }
 
-function centroidOf(points: readonly Point[]): Point {
-  const box = points.reduce((b, p) => ({ x0: Math.min(b.x0, p.x), y0: Math.min(b.y0, p.y), x1: Math.max(b.x1, p.x), y1: Math.max(b.y1, p.y) }), { x0: Infinity, y0: Infinity, x1: -Infinity, y1: -Infinity });
-  return { x: (box.x0 + box.x1) / 2, y: (box.y0 + box.y1) / 2 };
-}
-
-function insideRing(p: Point, ring: readonly Point[]): boolean {
-  let odd = false;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const a = ring[i];
-    const b = ring[j];
-    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
-  }
-  return odd;
-}
-
-function distanceToSegment(p: Point, a: Point, b: Point): number {
-  const vx = b.x - a.x;
-  const vy = b.y - a.y;
-  const len2 = vx * vx + vy * vy;
-  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
-  return Math.hypot(a.x + vx * t - p.x, a.y + vy * t - p.y);
-}
-
-function distanceToRing(p: Point, ring: readonly Point[]): number {
-  let best = Infinity;
-  for (let i = 0; i < ring.length; i++) {
-    const a = ring[i];
-    const b = ring[(i + 1) % ring.length];
-    const vx = b.x - a.x;
-    const vy = b.y - a.y;
-    const len2 = vx * vx + vy * vy;
-    const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
-    best = Math.min(best, Math.hypot(a.x + vx * t - p.x, a.y + vy * t - p.y));
-  }
-  return best;
-}
 
 /** An arrow of a length centred on a point, pointing along a unit direction. */
 export function drawArrow(pen: PdfPen, centre: Point, d: Point, lengthIn: number): void {

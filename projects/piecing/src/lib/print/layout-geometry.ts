@@ -99,13 +99,38 @@ function at(p: Point, q: Point, t: number): Point {
   return { x: p.x + (q.x - p.x) * t, y: p.y + (q.y - p.y) * t };
 }
 
-/** Shoelace area of a closed ring, square inches. */
-export function ringArea(ring: readonly Point[]): number {
-  let twice = 0;
-  for (let i = 0, n = ring.length; i < n; i++) {
+/**
+ * Whether `p` lies strictly inside the closed ring by the even–odd crossing rule, with no boundary
+ * tolerance. The sheet packing probes it for thousands of raster cells, so unlike the shared
+ * `pointInPolygon` it does not measure the distance to every edge as well.
+ */
+export function insideRing(p: Point, ring: readonly Point[]): boolean {
+  let odd = false;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
     const a = ring[i];
-    const b = ring[(i + 1) % n];
-    twice += a.x * b.y - b.x * a.y;
+    const b = ring[j];
+    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
   }
-  return Math.abs(twice / 2);
+  return odd;
+}
+
+/** Squared distance from `p` to the segment a–b, square inches (no square root, for comparisons). */
+export function pointSegmentDistanceSq(p: Point, a: Point, b: Point): number {
+  const vx = b.x - a.x;
+  const vy = b.y - a.y;
+  const len2 = vx * vx + vy * vy;
+  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
+  const dx = a.x + vx * t - p.x;
+  const dy = a.y + vy * t - p.y;
+  return dx * dx + dy * dy;
+}
+
+/** Distance from `p` to the nearest edge of the closed ring, inches. */
+export function distanceToRing(p: Point, ring: readonly Point[]): number {
+  let best = Infinity;
+  for (let i = 0; i < ring.length; i++) {
+    const d = pointSegmentDistanceSq(p, ring[i], ring[(i + 1) % ring.length]);
+    if (d < best) best = d;
+  }
+  return Math.sqrt(best);
 }

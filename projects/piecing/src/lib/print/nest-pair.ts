@@ -1,6 +1,6 @@
 import type { Point } from '../document/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
-import { boundingRect } from './layout-geometry';
+import { boundingRect, insideRing, pointSegmentDistanceSq } from './layout-geometry';
 
 /** Two copies of a template laid so they interlock: head to tail (the second turned half a turn) or stacked. */
 export interface NestedPair {
@@ -99,12 +99,12 @@ export function separated(p: readonly Point[], q: readonly Point[], gap: number)
       if (segmentDistance2(a, b, c, d) < gap2) return false;
     }
   }
-  return !inside(p[0], q) && !inside(q[0], p);
+  return !insideRing(p[0], q) && !insideRing(q[0], p);
 }
 
 function segmentDistance2(a: Point, b: Point, c: Point, d: Point): number {
   if (segmentsCross(a, b, c, d)) return 0;
-  return Math.min(pointSegment2(a, c, d), pointSegment2(b, c, d), pointSegment2(c, a, b), pointSegment2(d, a, b));
+  return Math.min(pointSegmentDistanceSq(a, c, d), pointSegmentDistanceSq(b, c, d), pointSegmentDistanceSq(c, a, b), pointSegmentDistanceSq(d, a, b));
 }
 
 function orient(p: Point, q: Point, r: Point): number {
@@ -118,26 +118,6 @@ function segmentsCross(a: Point, b: Point, c: Point, d: Point): boolean {
   const d3 = o(a, b, c);
   const d4 = o(a, b, d);
   return ((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0));
-}
-
-function pointSegment2(p: Point, a: Point, b: Point): number {
-  const vx = b.x - a.x;
-  const vy = b.y - a.y;
-  const len2 = vx * vx + vy * vy;
-  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
-  const dx = a.x + vx * t - p.x;
-  const dy = a.y + vy * t - p.y;
-  return dx * dx + dy * dy;
-}
-
-function inside(p: Point, ring: readonly Point[]): boolean {
-  let odd = false;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const a = ring[i];
-    const b = ring[j];
-    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
-  }
-  return odd;
 }
 
 /** Douglas–Peucker simplification of a closed ring; every dropped point lies within `tol` of the result. */
@@ -165,7 +145,7 @@ function simplifyOpen(points: readonly Point[], tol: number): Point[] {
   let index = -1;
   let maxD = -1;
   for (let i = 1; i < points.length - 1; i++) {
-    const d = pointSegment2(points[i], a, b);
+    const d = pointSegmentDistanceSq(points[i], a, b);
     if (d > maxD) {
       maxD = d;
       index = i;

@@ -1,7 +1,6 @@
 import type { PatternDocument, Point, Section } from '../document/index';
-import { derivePatches, locatePoint, polygonCentroid } from '../geometry/index';
+import { derivePatches, locatePoint, polygonArea, polygonCentroid } from '../geometry/index';
 import { matchingMarks, sectionSeamAllowance, sectionStripSets, type SectionMatchingMarks } from '../fabrication/index';
-import { ringArea } from './layout-geometry';
 import { planTemplateCopies } from './template-copies';
 import type { PrintOptions } from './print-options';
 import type { PrintPatch, PrintSegment, PrintTemplate } from './template-model';
@@ -56,7 +55,7 @@ function buildTemplate(
     orientation: orientationOf(section, sewingLine),
     freeRotation: section.geometry.kind !== 'straight',
     copies,
-    areaSqIn: ringArea(cuttingLine),
+    areaSqIn: polygonArea(cuttingLine),
     ...(section.note ? { note: section.note } : {}),
   };
 }

@@ -1,5 +1,5 @@
 import type { Point } from '../document/index';
-import { boundingRect } from './layout-geometry';
+import { boundingRect, distanceToRing, insideRing } from './layout-geometry';
 import type { RectIn } from './paper';
 
 /*
@@ -93,29 +93,3 @@ export function findSpot(grid: OccupancyGrid, mask: ShapeMask): { row: number; c
   return null;
 }
 
-function insideRing(p: Point, ring: readonly Point[]): boolean {
-  let odd = false;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const a = ring[i];
-    const b = ring[j];
-    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
-  }
-  return odd;
-}
-
-function distanceToRing(p: Point, ring: readonly Point[]): number {
-  let best = Infinity;
-  for (let i = 0; i < ring.length; i++) {
-    const a = ring[i];
-    const b = ring[(i + 1) % ring.length];
-    const vx = b.x - a.x;
-    const vy = b.y - a.y;
-    const len2 = vx * vx + vy * vy;
-    const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * vx + (p.y - a.y) * vy) / len2)) : 0;
-    const dx = a.x + vx * t - p.x;
-    const dy = a.y + vy * t - p.y;
-    const d = dx * dx + dy * dy;
-    if (d < best) best = d;
-  }
-  return Math.sqrt(best);
-}
