@@ -2,18 +2,15 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { YARDAGE_STEP_IN, buildCuttingList, type CuttingList } from '@seamwright/piecing';
+import { YARDAGE_STEP_IN, buildCuttingList, formatInches, type CuttingList } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { StripDiagramComponent } from './strip-diagram.component';
 import { showInches } from '../../core/length-text';
 
-/** Yards as bought: eighths of a yard, e.g. 5 → "⅝ yd". */
-const EIGHTHS = ['', '⅛', '¼', '⅜', '½', '⅝', '¾', '⅞'];
+/** Yards as bought, from eighths of a yard: 5 → "⅝ yd", 11 → "1 ⅜ yd". */
 export function formatYards(eighths: number): string {
-  const whole = Math.floor(eighths / 8);
-  const rest = EIGHTHS[eighths % 8];
-  return `${whole ? whole + (rest ? ' ' : '') : ''}${rest || (whole ? '' : '0')} yd`;
+  return `${formatInches(eighths / 8, { style: 'unicode', denominator: 8, withUnit: false })} yd`;
 }
 
 /** The cutting list: per fabric, pieces, strips, strip sets and yardage; printable. */
