@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
 import { toApiError } from '../core/api-error';
+import { afterSignIn } from './after-sign-in';
 import { fieldMessage } from './form-errors';
 
 /** Sign in with e-mail and password. */
@@ -69,8 +70,7 @@ export class SignInComponent {
     this.auth.signIn(email.trim(), password).subscribe({
       next: () => {
         this.busy.set(false);
-        const next = this.next();
-        void this.router.navigateByUrl(next && next.startsWith('/') && !next.startsWith('//') ? next : '/patterns');
+        void this.router.navigateByUrl(afterSignIn(this.next()));
       },
       error: (err: unknown) => {
         this.busy.set(false);

@@ -9,6 +9,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
 import { toApiError } from '../core/api-error';
+import { afterSignIn } from './after-sign-in';
 import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from './form-errors';
 
 /** Create an account as a designer or a quilter. */
@@ -94,8 +95,7 @@ export class SignUpComponent {
     this.auth.signUp({ displayName: displayName.trim(), email: email.trim(), password, role }).subscribe({
       next: () => {
         this.busy.set(false);
-        const next = this.next();
-        void this.router.navigateByUrl(next && next.startsWith('/') && !next.startsWith('//') ? next : '/patterns');
+        void this.router.navigateByUrl(afterSignIn(this.next()));
       },
       error: (err: unknown) => {
         this.busy.set(false);
