@@ -1,5 +1,6 @@
 import type { Point } from '../document/pattern-schema';
 import { GEOMETRY_EPSILON_IN } from '../tolerance';
+import { foldsBackAt } from './fold-back';
 import { distance, distanceToSegment } from './vector';
 
 /**
@@ -43,13 +44,6 @@ export function cleanRing(ring: readonly Point[], toleranceIn = GEOMETRY_EPSILON
 }
 
 function isSpikeTip(prev: Point, p: Point, next: Point, toleranceIn: number): boolean {
-  const ax = p.x - prev.x;
-  const ay = p.y - prev.y;
-  const bx = next.x - p.x;
-  const by = next.y - p.y;
-  const la = Math.hypot(ax, ay);
-  const lb = Math.hypot(bx, by);
-  if (la === 0 || lb === 0) return true;
-  const crossAB = Math.abs(ax * by - ay * bx) / Math.max(la, lb);
-  return crossAB <= toleranceIn && ax * bx + ay * by < 0;
+  if ((prev.x === p.x && prev.y === p.y) || (next.x === p.x && next.y === p.y)) return true;
+  return foldsBackAt(prev, p, next, toleranceIn);
 }

@@ -1,6 +1,8 @@
 import type { Point } from '../document/pattern-schema';
 import { GEOMETRY_EPSILON_IN } from '../tolerance';
+import { foldsBackAt } from './fold-back';
 import { segmentIntersection } from './segment';
+import { distance } from './vector';
 
 /** Where an outline crosses or touches itself: edge i runs from vertex i to vertex i + 1. */
 export interface SelfCrossing {
@@ -40,14 +42,8 @@ export function findSelfCrossing(ring: readonly Point[], toleranceIn = GEOMETRY_
     const prev = ring[(i - 1 + n) % n];
     const p = ring[i];
     const next = ring[(i + 1) % n];
-    const ax = p.x - prev.x;
-    const ay = p.y - prev.y;
-    const bx = next.x - p.x;
-    const by = next.y - p.y;
-    const la = Math.hypot(ax, ay);
-    const lb = Math.hypot(bx, by);
-    if (la > 0 && lb > 0 && Math.abs(ax * by - ay * bx) / Math.max(la, lb) <= toleranceIn && ax * bx + ay * by < 0) {
-      return { edgeA: (i - 1 + n) % n, edgeB: i, point: la < lb ? prev : next };
+    if (foldsBackAt(prev, p, next, toleranceIn)) {
+      return { edgeA: (i - 1 + n) % n, edgeB: i, point: distance(prev, p) < distance(p, next) ? prev : next };
     }
   }
   return null;
