@@ -1,6 +1,6 @@
 import { arcGeometrySchema, degToRad, distance, pointOnCircle, normaliseAngleDeg, type ArcGeometry, type Point } from '@seamwright/piecing';
-import { addSection } from '../commands/section-commands';
 import { angleTo } from '../commands/section-handles';
+import { addDrawnSection, parseTypedGeometry, type TypedResult } from './add-drawn-section';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
 type ArcStage = 'idle' | 'outer' | 'inner' | 'sweep';
@@ -101,14 +101,11 @@ export class ArcSectionTool implements BoardTool {
    * Adds an arc section from typed numbers; returns the problem in words when they do not make one
    * (the document stays as it is).
    */
-  commitTyped(values: TypedArc): { ok: true; sectionId: string } | { ok: false; message: string } {
-    const parsed = arcGeometrySchema.safeParse({ kind: 'arc', ...values });
-    if (!parsed.success) {
-      const issue = parsed.error.issues[0];
-      return { ok: false, message: `${issue.path.join('.') || 'arc'}: ${issue.message}` };
-    }
+  commitTyped(values: TypedArc): TypedResult {
+    const parsed = parseTypedGeometry(arcGeometrySchema, { kind: 'arc', ...values });
+    if (!parsed.ok) return parsed;
     this.stage = 'idle';
-    return { ok: true, sectionId: this.add(parsed.data) };
+    return { ok: true, sectionId: addDrawnSection(this.ctx, 'Add arc section', parsed.geometry) };
   }
 
   private minRadius(): number {
@@ -142,19 +139,6 @@ export class ArcSectionTool implements BoardTool {
   private commit(): void {
     const g = this.geometry();
     this.stage = 'idle';
-    if (!arcGeometrySchema.safeParse(g).success) return;
-    this.add(g);
-  }
-
-  private add(g: ArcGeometry): string {
-    const { store, analysis } = this.ctx;
-    let id = '';
-    store.apply('Add arc section', (d) => {
-      const r = addSection(d, g, analysis.geometry);
-      id = r.sectionId;
-      return r.document;
-    });
-    store.select({ sectionId: id, patchIndex: null });
-    return id;
+    if (arcGeometrySchema.safeParse(g).success) addDrawnSection(this.ctx, 'Add arc section', g);
   }
 }

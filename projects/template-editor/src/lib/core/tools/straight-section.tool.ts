@@ -1,5 +1,5 @@
 import type { Point } from '@seamwright/piecing';
-import { addSection } from '../commands/section-commands';
+import { addDrawnSection } from './add-drawn-section';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
 /**
@@ -80,13 +80,6 @@ export class StraightSectionTool implements BoardTool {
     const vertices = this.points.map((p) => ({ x: p.x, y: p.y }));
     this.points = [];
     this.cursor = null;
-    const { store, analysis } = this.ctx;
-    let newId = '';
-    store.apply('Add straight section', (d) => {
-      const r = addSection(d, { kind: 'straight', vertices }, analysis.geometry);
-      newId = r.sectionId;
-      return r.document;
-    });
-    if (newId) store.select({ sectionId: newId, patchIndex: null });
+    addDrawnSection(this.ctx, 'Add straight section', { kind: 'straight', vertices });
   }
 }

@@ -1,6 +1,6 @@
 import { degToRad, distance, normaliseAngleDeg, pointOnCircle, wedgeGeometrySchema, type Point, type WedgeGeometry } from '@seamwright/piecing';
-import { addSection } from '../commands/section-commands';
 import { angleTo } from '../commands/section-handles';
+import { addDrawnSection, parseTypedGeometry, type TypedResult } from './add-drawn-section';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
 type WedgeStage = 'idle' | 'radius' | 'sweep';
@@ -83,14 +83,11 @@ export class WedgeSectionTool implements BoardTool {
   }
 
   /** Adds a wedge section from typed numbers, or says what is wrong with them. */
-  commitTyped(values: TypedWedge): { ok: true; sectionId: string } | { ok: false; message: string } {
-    const parsed = wedgeGeometrySchema.safeParse({ kind: 'wedge', ...values });
-    if (!parsed.success) {
-      const issue = parsed.error.issues[0];
-      return { ok: false, message: `${issue.path.join('.') || 'wedge'}: ${issue.message}` };
-    }
+  commitTyped(values: TypedWedge): TypedResult {
+    const parsed = parseTypedGeometry(wedgeGeometrySchema, { kind: 'wedge', ...values });
+    if (!parsed.ok) return parsed;
     this.stage = 'idle';
-    return { ok: true, sectionId: this.add(parsed.data) };
+    return { ok: true, sectionId: addDrawnSection(this.ctx, 'Add wedge section', parsed.geometry) };
   }
 
   private track(p: Point): void {
@@ -109,18 +106,6 @@ export class WedgeSectionTool implements BoardTool {
   private commit(): void {
     const g = this.geometry();
     this.stage = 'idle';
-    if (wedgeGeometrySchema.safeParse(g).success) this.add(g);
-  }
-
-  private add(g: WedgeGeometry): string {
-    const { store, analysis } = this.ctx;
-    let id = '';
-    store.apply('Add wedge section', (d) => {
-      const r = addSection(d, g, analysis.geometry);
-      id = r.sectionId;
-      return r.document;
-    });
-    store.select({ sectionId: id, patchIndex: null });
-    return id;
+    if (wedgeGeometrySchema.safeParse(g).success) addDrawnSection(this.ctx, 'Add wedge section', g);
   }
 }
