@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parsePatternDocument, type DocumentIssue, type PatternDocument } from '../src/public-api';
+import { EXIT_INVALID_INPUT, EXIT_USAGE, type CliIo } from './cli-types';
 
 /** A pattern file read and validated, or the reasons it could not be. */
 export type PatternFileResult = { ok: true; document: PatternDocument } | { ok: false; messages: string[]; issues?: DocumentIssue[] };
@@ -38,4 +39,30 @@ export function splitArgs(args: readonly string[]): { flags: Set<string>; positi
     else positional.push(a);
   }
   return { flags, positional };
+}
+
+/**
+ * The common start of a `<pattern.json> [--json]` command: checks the command line and reads the
+ * pattern, writing the usage or the reasons the file is invalid (as JSON with `--json`). Resolves to
+ * the pattern and whether JSON was asked for, or to the exit code to stop with.
+ */
+export async function readPatternCommand(
+  commandName: string,
+  args: readonly string[],
+  io: CliIo,
+): Promise<{ document: PatternDocument; json: boolean } | number> {
+  const { flags, positional } = splitArgs(args);
+  const unknown = [...flags].filter((f) => f !== '--json');
+  if (positional.length !== 1 || unknown.length > 0) {
+    io.err(`usage: seamwright ${commandName} <pattern.json> [--json]${unknown.length ? ` (unknown option ${unknown.join(', ')})` : ''}\n`);
+    return EXIT_USAGE;
+  }
+  const json = flags.has('--json');
+  const file = await readPatternFile(positional[0], io.cwd);
+  if (!file.ok) {
+    if (json) io.out(`${JSON.stringify({ valid: false, messages: file.messages, issues: file.issues ?? [] }, null, 2)}\n`);
+    else io.err(`${file.messages.join('\n')}\n`);
+    return EXIT_INVALID_INPUT;
+  }
+  return { document: file.document, json };
 }

@@ -1,7 +1,7 @@
 import type { PatternDocument, Section } from '../../src/public-api';
 import { checkSewability, derivePatches, findSewableOrder, ringRepeatTransforms } from '../../src/public-api';
-import { EXIT_INVALID_INPUT, EXIT_OK, EXIT_USAGE, type CliCommand } from '../cli-types';
-import { readPatternFile, splitArgs } from '../read-pattern-file';
+import { EXIT_OK, type CliCommand } from '../cli-types';
+import { readPatternCommand } from '../read-pattern-file';
 
 /** The verdict on one section, as printed with --json. */
 export interface SectionVerdict {
@@ -66,24 +66,15 @@ export const checkCommand: CliCommand = {
   usage: '<pattern.json> [--json]',
   summary: 'validate a pattern and give the sewability verdict of each section',
   async run(args, io) {
-    const { flags, positional } = splitArgs(args);
-    const unknown = [...flags].filter((f) => f !== '--json');
-    if (positional.length !== 1 || unknown.length > 0) {
-      io.err(`usage: seamwright check <pattern.json> [--json]${unknown.length ? ` (unknown option ${unknown.join(', ')})` : ''}\n`);
-      return EXIT_USAGE;
-    }
-    const file = await readPatternFile(positional[0], io.cwd);
-    if (!file.ok) {
-      if (flags.has('--json')) io.out(`${JSON.stringify({ valid: false, messages: file.messages, issues: file.issues ?? [] }, null, 2)}\n`);
-      else io.err(`${file.messages.join('\n')}\n`);
-      return EXIT_INVALID_INPUT;
-    }
-    const verdicts = checkPattern(file.document);
-    if (flags.has('--json')) {
-      io.out(`${JSON.stringify({ valid: true, title: file.document.title, sections: verdicts }, null, 2)}\n`);
+    const read = await readPatternCommand('check', args, io);
+    if (typeof read === 'number') return read;
+    const { document, json } = read;
+    const verdicts = checkPattern(document);
+    if (json) {
+      io.out(`${JSON.stringify({ valid: true, title: document.title, sections: verdicts }, null, 2)}\n`);
     } else {
       const sewable = verdicts.filter((v) => v.sewableAsNumbered).length;
-      io.out(`${file.document.title}: ${verdicts.length} section${verdicts.length === 1 ? '' : 's'}, ${sewable} sewable as numbered\n`);
+      io.out(`${document.title}: ${verdicts.length} section${verdicts.length === 1 ? '' : 's'}, ${sewable} sewable as numbered\n`);
       for (const v of verdicts) io.out(`${describe(v).join('\n')}\n`);
     }
     return EXIT_OK;

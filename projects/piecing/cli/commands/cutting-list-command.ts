@@ -1,7 +1,7 @@
 import type { CopyPlan, CuttingList, PatternDocument } from '../../src/public-api';
 import { buildCuttingList, CM_PER_INCH, formatInches, formatLength, INCHES_PER_YARD, planCopies } from '../../src/public-api';
-import { EXIT_INVALID_INPUT, EXIT_OK, EXIT_USAGE, type CliCommand } from '../cli-types';
-import { readPatternFile, splitArgs } from '../read-pattern-file';
+import { EXIT_OK, type CliCommand } from '../cli-types';
+import { readPatternCommand } from '../read-pattern-file';
 
 /** Shown with every printed cutting list (design.md §9). */
 export const CUTTING_CAUTION = 'Caution: rotary cutters are very sharp. Close the blade after every cut and cut away from your body.';
@@ -67,22 +67,13 @@ export const cuttingListCommand: CliCommand = {
   usage: '<pattern.json> [--json]',
   summary: 'print the cutting list: pieces, WOF strips, strip sets, yardage and template copies',
   async run(args, io) {
-    const { flags, positional } = splitArgs(args);
-    const unknown = [...flags].filter((f) => f !== '--json');
-    if (positional.length !== 1 || unknown.length > 0) {
-      io.err(`usage: seamwright cutting-list <pattern.json> [--json]${unknown.length ? ` (unknown option ${unknown.join(', ')})` : ''}\n`);
-      return EXIT_USAGE;
-    }
-    const file = await readPatternFile(positional[0], io.cwd);
-    if (!file.ok) {
-      if (flags.has('--json')) io.out(`${JSON.stringify({ valid: false, messages: file.messages, issues: file.issues ?? [] }, null, 2)}\n`);
-      else io.err(`${file.messages.join('\n')}\n`);
-      return EXIT_INVALID_INPUT;
-    }
-    const list = buildCuttingList(file.document);
-    const copies = planCopies(file.document);
-    if (flags.has('--json')) io.out(`${JSON.stringify({ valid: true, cuttingList: list, copies }, null, 2)}\n`);
-    else io.out(formatCuttingList(file.document, list, copies));
+    const read = await readPatternCommand('cutting-list', args, io);
+    if (typeof read === 'number') return read;
+    const { document, json } = read;
+    const list = buildCuttingList(document);
+    const copies = planCopies(document);
+    if (json) io.out(`${JSON.stringify({ valid: true, cuttingList: list, copies }, null, 2)}\n`);
+    else io.out(formatCuttingList(document, list, copies));
     return EXIT_OK;
   },
 };
