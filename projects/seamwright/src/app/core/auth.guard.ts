@@ -1,15 +1,20 @@
 import { inject } from '@angular/core';
-import { CanActivateFn, Router } from '@angular/router';
+import { CanActivateFn, Router, UrlTree } from '@angular/router';
 import { map } from 'rxjs';
 import { AuthService } from './auth.service';
 import type { Role } from './api-types';
+
+/** The sign-in page, set to come back to `url` afterwards. */
+function signInFirst(router: Router, url: string): UrlTree {
+  return router.createUrlTree(['/sign-in'], { queryParams: { next: url } });
+}
 
 /** Lets signed-in users through; others go to sign-in and come back afterwards. */
 export const authGuard: CanActivateFn = (_route, state) => {
   const router = inject(Router);
   return inject(AuthService)
     .load()
-    .pipe(map((user) => (user ? true : router.createUrlTree(['/sign-in'], { queryParams: { next: state.url } }))));
+    .pipe(map((user) => (user ? true : signInFirst(router, state.url))));
 };
 
 /** Lets only users with one of `roles` through; others see "not found". */
@@ -21,7 +26,7 @@ export const roleGuard =
       .load()
       .pipe(
         map((user) => {
-          if (!user) return router.createUrlTree(['/sign-in'], { queryParams: { next: state.url } });
+          if (!user) return signInFirst(router, state.url);
           return roles.includes(user.role) ? true : router.createUrlTree(['/not-found']);
         }),
       );
