@@ -1,5 +1,5 @@
 import type { PatternDocument } from '../document/index';
-import { buildCuttingList, patternStripSets, type CuttingList, type PatchStripSet } from '../fabrication/index';
+import { buildCuttingList, sectionStripSets, type CuttingList, type PatchStripSet } from '../fabrication/index';
 import { derivePatches } from '../geometry/index';
 import { PRINT_CAUTIONS } from './cautions';
 import type { PdfPen } from './pdf-pen';
@@ -16,12 +16,14 @@ export function drawAppendix(pen: PdfPen, document: PatternDocument, _options: P
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const fabricColour = new Map(document.fabrics.map((f) => [f.id, f.colour]));
   drawCuttingList(flow, buildCuttingList(document));
+  // Each section's patches, derived once for both the fabric key and the strip sets.
+  const patchesBySection = document.sections.map((section) => derivePatches(section).patches);
 
   flow.heading('Fabric key');
   const usedBy = new Map<string, string[]>();
-  for (const section of document.sections) {
+  document.sections.forEach((section, i) => {
     const uses = (section.ringRepeat?.count ?? 1) * document.blockCount;
-    for (const patch of derivePatches(section).patches) {
+    for (const patch of patchesBySection[i]) {
       const ids = patch.stripSet ? patch.stripSet.strips.map((s) => s.fabricId) : patch.fabricId ? [patch.fabricId] : [];
       for (const id of new Set(ids)) {
         const list = usedBy.get(id) ?? [];
@@ -29,7 +31,7 @@ export function drawAppendix(pen: PdfPen, document: PatternDocument, _options: P
         usedBy.set(id, list);
       }
     }
-  }
+  });
   flow.table(
     [
       { header: 'Fabric', widthIn: 1.9 },
@@ -45,7 +47,9 @@ export function drawAppendix(pen: PdfPen, document: PatternDocument, _options: P
     ]),
   );
 
-  const sets = uniqueStripSets(patternStripSets(document));
+  const sets = uniqueStripSets(
+    document.sections.flatMap((section, i) => sectionStripSets(section, document.seamAllowanceIn, document.piecingMarginIn, patchesBySection[i])),
+  );
   if (sets.length > 0) {
     flow.heading('Strip sets');
     flow.paragraph(
