@@ -5,6 +5,8 @@ interface Entry {
   placements?: Section[];
   outline?: Point[];
   problems?: string[];
+  /** What the port's `patches` answered: the patches, or what it threw. */
+  derived?: { patches: BoardPatch[] } | { error: unknown };
   patches?: BoardPatch[];
   sewability?: BoardSewability;
 }
@@ -16,8 +18,35 @@ interface Entry {
  */
 export class SectionAnalysis {
   private readonly cache = new WeakMap<Section, Entry>();
+  /**
+   * The geometry port for commands and tools: the given one, except that `patches` is derived once per
+   * section object (a command on a section the board has drawn reuses the board's patches; it throws
+   * again what it threw the first time).
+   */
+  readonly geometry: GeometryPort;
 
-  constructor(readonly geometry: GeometryPort) {}
+  constructor(port: GeometryPort) {
+    this.geometry = {
+      outline: (geometry) => port.outline(geometry),
+      patches: (section) => {
+        const e = this.entry(section);
+        if (!e.derived) {
+          try {
+            e.derived = { patches: port.patches(section) };
+          } catch (error) {
+            e.derived = { error };
+          }
+        }
+        if ('error' in e.derived) throw e.derived.error;
+        return e.derived.patches;
+      },
+      problems: (section) => port.problems(section),
+      sewability: (section, patches) => port.sewability(section, patches),
+      findOrder: (section) => port.findOrder(section),
+      cuttingLine: (section, allowanceIn) => port.cuttingLine(section, allowanceIn),
+      contains: (ring, p) => port.contains(ring, p),
+    };
+  }
 
   private entry(section: Section): Entry {
     let e = this.cache.get(section);
