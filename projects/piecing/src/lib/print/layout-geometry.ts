@@ -1,6 +1,7 @@
 import type { Point } from '../document/index';
 import { convexHull } from '../fabrication/cutting-list/min-area-rectangle';
 import { polygonBounds } from '../geometry/index';
+import { applyAffine, rotation } from './affine';
 import type { RectIn } from './paper';
 
 /*
@@ -51,9 +52,8 @@ function normaliseTurn(angle: number): number {
 }
 
 function turnPoints(points: readonly Point[], angle: number): Point[] {
-  const cos = Math.cos(angle);
-  const sin = Math.sin(angle);
-  return points.map((p) => ({ x: cos * p.x - sin * p.y, y: sin * p.x + cos * p.y }));
+  const turn = rotation(angle);
+  return points.map((p) => applyAffine(turn, p));
 }
 
 /**
