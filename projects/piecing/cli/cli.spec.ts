@@ -3,17 +3,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CliIo } from './cli-types';
-import { runCli } from './main';
+import { runCliCollecting } from './testing/run-cli-collecting';
 
 const repoRoot = fileURLToPath(new URL('../../..', import.meta.url));
 
-async function run(...argv: string[]) {
-  let out = '';
-  let err = '';
-  const io: CliIo = { out: (t) => (out += t), err: (t) => (err += t), cwd: repoRoot };
-  const code = await runCli(argv, io);
-  return { code, out, err };
+function run(...argv: string[]) {
+  return runCliCollecting(repoRoot, argv);
 }
 
 describe('seamwright check', () => {

@@ -3,8 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildCuttingList, buildOrchardWheel, planCopies } from '../../src/public-api';
-import type { CliIo } from '../cli-types';
-import { runCli } from '../main';
+import { runCliCollecting } from '../testing/run-cli-collecting';
 
 describe('seamwright cutting-list', () => {
   let dir: string;
@@ -18,12 +17,8 @@ describe('seamwright cutting-list', () => {
     await rm(dir, { recursive: true, force: true });
   });
 
-  async function run(...argv: string[]) {
-    let out = '';
-    let err = '';
-    const io: CliIo = { out: (t) => (out += t), err: (t) => (err += t), cwd: dir };
-    const code = await runCli(argv, io);
-    return { code, out, err };
+  function run(...argv: string[]) {
+    return runCliCollecting(dir, argv);
   }
 
   it('prints fabrics with yardage, the strip set, template copies and the rotary-cutter caution', async () => {
