@@ -1,14 +1,14 @@
-import { pointOnCircle, degToRad, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
+import { CM_PER_INCH, distance, pointOnCircle, degToRad, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 
 /** Grid snap settings offered on the board. */
 export type GridSnap = 'off' | 'eighth-in' | 'quarter-in' | 'half-in' | 'half-cm';
 
-/** Step of each grid snap, in inches (1 in. = 2.54 cm exactly, NIST HB 44). */
+/** Step of each grid snap, in inches. */
 export const GRID_SNAP_STEP_IN: Record<Exclude<GridSnap, 'off'>, number> = {
   'eighth-in': 1 / 8,
   'quarter-in': 1 / 4,
   'half-in': 1 / 2,
-  'half-cm': 0.5 / 2.54,
+  'half-cm': 0.5 / CM_PER_INCH,
 };
 
 /** What a snapped point landed on. */
@@ -99,7 +99,7 @@ export function snapToEdges(p: Point, rings: ReadonlyArray<readonly Point[]>, ra
   for (const ring of rings) {
     for (let i = 0, n = ring.length; i < n; i++) {
       const q = nearestOnSegment(p, ring[i], ring[(i + 1) % n]);
-      const d = Math.hypot(q.x - p.x, q.y - p.y);
+      const d = distance(q, p);
       if (d <= bestD) {
         bestD = d;
         best = q;
@@ -118,7 +118,7 @@ export function snapPoint(p: Point, targets: readonly SnapTarget[], options: Sna
     let best: SnapTarget | null = null;
     let bestD = options.radiusIn;
     for (const t of targets) {
-      const d = Math.hypot(t.point.x - p.x, t.point.y - p.y);
+      const d = distance(t.point, p);
       if (d <= bestD) {
         bestD = d;
         best = t;

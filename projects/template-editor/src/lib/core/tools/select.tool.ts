@@ -1,4 +1,4 @@
-import type { Point } from '@seamwright/piecing';
+import { distance, type Point } from '@seamwright/piecing';
 import { deleteSection, findSection, moveSection, moveSectionHandle } from '../commands/section-commands';
 import { sectionHandles, type SectionHandle } from '../commands/section-handles';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
@@ -33,7 +33,7 @@ export class SelectTool implements BoardTool {
     const selected = store.selection.sectionId ? findSection(store.document, store.selection.sectionId) : undefined;
     if (selected) {
       const r = this.ctx.hitRadiusIn();
-      const handle = sectionHandles(selected.geometry).find((h) => Math.hypot(h.point.x - e.point.x, h.point.y - e.point.y) <= r);
+      const handle = sectionHandles(selected.geometry).find((h) => distance(h.point, e.point) <= r);
       if (handle) {
         store.beginGesture('Move point', selected.id);
         this.s = { name: 'dragging-handle', sectionId: selected.id, handle };
@@ -55,7 +55,7 @@ export class SelectTool implements BoardTool {
     const { store } = this.ctx;
     const s = this.s;
     if (s.name === 'pressing') {
-      if (Math.hypot(e.point.x - s.start.x, e.point.y - s.start.y) < this.ctx.hitRadiusIn() / 2) return;
+      if (distance(e.point, s.start) < this.ctx.hitRadiusIn() / 2) return;
       store.beginGesture('Move section', s.sectionId);
       this.s = { name: 'dragging-section', sectionId: s.sectionId, start: s.start, applied: { x: 0, y: 0 } };
       this.pointerMove(e);

@@ -1,4 +1,4 @@
-import { lerp, type Point } from '@seamwright/piecing';
+import { distance, lerp, type Point } from '@seamwright/piecing';
 import { addSeam } from '../commands/section-commands';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
@@ -74,7 +74,7 @@ export class SplitTool implements BoardTool {
   }
 
   private targetSection(a: Point, b: Point): string | null {
-    if (Math.hypot(b.x - a.x, b.y - a.y) < Math.max(1 / 32, this.ctx.hitRadiusIn())) return null;
+    if (distance(a, b) < Math.max(1 / 32, this.ctx.hitRadiusIn())) return null;
     const mid = lerp(a, b, 0.5);
     // Seams go on the section as drawn, not on its ring-repeat copies.
     return this.ctx.analysis.sectionAt(this.ctx.store.document, mid, { copies: false })?.id ?? null;

@@ -1,4 +1,4 @@
-import type { Point } from '@seamwright/piecing';
+import { distance, type Point } from '@seamwright/piecing';
 import { addDrawnSection } from './add-drawn-section';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
@@ -32,13 +32,13 @@ export class StraightSectionTool implements BoardTool {
     const p = this.ctx.snap(e.point).point;
     if (this.points.length >= 3) {
       const first = this.points[0];
-      if (Math.hypot(p.x - first.x, p.y - first.y) <= this.ctx.hitRadiusIn()) {
+      if (distance(p, first) <= this.ctx.hitRadiusIn()) {
         this.commit();
         return;
       }
     }
     const last = this.points[this.points.length - 1];
-    if (last && Math.hypot(p.x - last.x, p.y - last.y) < 1e-9) return;
+    if (last && distance(p, last) < 1e-9) return;
     this.points.push(p);
     this.cursor = p;
   }

@@ -1,10 +1,8 @@
+import { CM_PER_INCH } from '@seamwright/piecing';
 import { toDocument, type Viewport } from './viewport';
 
 /** The unit the board's grid and read-outs use. */
 export type BoardUnit = 'in' | 'cm';
-
-/** 1 in. = 2.54 cm exactly (international inch, 1959; NIST HB 44). */
-export const CM_PER_IN = 2.54;
 
 /** One grid line, in screen pixels. */
 export interface GridLine {
@@ -30,7 +28,7 @@ const CM_STEPS = [0.5, 1, 2, 5, 10, 20, 50];
 
 /** The smallest step of the unit whose lines are at least `minGapPx` apart, and a major step over it. */
 export function gridSteps(scalePxPerIn: number, unit: BoardUnit, minGapPx = 10): { minor: number; major: number } {
-  const pxPerUnit = unit === 'in' ? scalePxPerIn : scalePxPerIn / CM_PER_IN;
+  const pxPerUnit = unit === 'in' ? scalePxPerIn : scalePxPerIn / CM_PER_INCH;
   const steps = unit === 'in' ? INCH_STEPS : CM_STEPS;
   const minor = steps.find((s) => s * pxPerUnit >= minGapPx) ?? steps[steps.length - 1];
   const majorBase = unit === 'in' ? 1 : 5;
@@ -53,7 +51,7 @@ function lines(fromUnit: number, toUnit: number, step: number, major: number, to
 /** The grid lines visible in a widthPx × heightPx view. */
 export function gridLines(v: Viewport, widthPx: number, heightPx: number, unit: BoardUnit): GridLines {
   const { minor, major } = gridSteps(v.scale, unit);
-  const k = unit === 'in' ? 1 : CM_PER_IN;
+  const k = unit === 'in' ? 1 : CM_PER_INCH;
   const tl = toDocument(v, { x: 0, y: 0 });
   const br = toDocument(v, { x: widthPx, y: heightPx });
   const xPx = (valueUnit: number) => {
