@@ -1,4 +1,4 @@
-import { and, eq, gt, lt, ne } from 'drizzle-orm';
+import { and, eq, gt, lt, ne, sql } from 'drizzle-orm';
 import type { CookieOptions, RequestHandler, Response } from 'express';
 import type { Config } from '../config';
 import type { Db, DbLike } from '../db/database';
@@ -54,16 +54,18 @@ export function endUserSessions(db: DbLike, userId: string, keepTokenHash?: stri
 
 /** Reads the session cookie and sets `req.user` when it names a live session of an enabled user. */
 export function loadSession(db: Db): RequestHandler {
+  // Runs on every request: prepared once. Placeholders bypass the column's Date mapping, so `now` is in ms.
+  const liveSession = db
+    .select({ user: users })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(and(eq(sessions.tokenHash, sql.placeholder('tokenHash')), gt(sessions.expiresAt, sql.placeholder('now'))))
+    .prepare();
   return (req, _res, next) => {
     const token: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof token === 'string' && token.length > 0 && token.length <= 100) {
       const tokenHash = hashToken(token);
-      const row = db
-        .select({ user: users })
-        .from(sessions)
-        .innerJoin(users, eq(users.id, sessions.userId))
-        .where(and(eq(sessions.tokenHash, tokenHash), gt(sessions.expiresAt, new Date())))
-        .get();
+      const row = liveSession.get({ tokenHash, now: Date.now() });
       if (row && !row.user.disabled) {
         req.user = row.user;
         req.sessionTokenHash = tokenHash;

@@ -1,5 +1,6 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
+import { preparedPerDb } from '../db/prepared';
 import { members, patterns, type Pattern, type User } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema } from '../http/validate';
@@ -18,6 +19,16 @@ export interface PatternAccess {
 /** The one answer for a pattern someone may not see: the same whether it exists or not. */
 export const patternNotFound = () => new HttpError(404, 'Pattern not found');
 
+/** Every route's access check runs these. */
+const accessQueries = preparedPerDb((db) => ({
+  pattern: db.select().from(patterns).where(eq(patterns.id, sql.placeholder('id'))).prepare(),
+  membership: db
+    .select({ access: members.access })
+    .from(members)
+    .where(and(eq(members.patternId, sql.placeholder('patternId')), eq(members.userId, sql.placeholder('userId'))))
+    .prepare(),
+}));
+
 /**
  * Finds the pattern and the user's access to it. Anonymous users, strangers, malformed ids and
  * (for everyone but the owner) trashed patterns all get the same 404. A member whose access is too
@@ -26,16 +37,13 @@ export const patternNotFound = () => new HttpError(404, 'Pattern not found');
 export function resolvePatternAccess(db: DbLike, user: User | undefined, patternId: unknown, need: Need = 'read'): PatternAccess {
   if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
   const id = patternId as string;
-  const pattern = db.select().from(patterns).where(eq(patterns.id, id)).get();
+  const q = accessQueries(db);
+  const pattern = q.pattern.get({ id });
   if (!pattern) throw patternNotFound();
   let access: Access;
   if (pattern.ownerId === user.id) access = 'owner';
   else {
-    const m = db
-      .select({ access: members.access })
-      .from(members)
-      .where(and(eq(members.patternId, id), eq(members.userId, user.id)))
-      .get();
+    const m = q.membership.get({ patternId: id, userId: user.id });
     if (!m || pattern.trashedAt) throw patternNotFound();
     access = m.access;
   }

@@ -1,6 +1,7 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
 import type { DbLike } from '../db/database';
+import { preparedPerDb } from '../db/prepared';
 import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { newId } from '../auth/tokens';
@@ -68,17 +69,27 @@ export function patternJson(p: Pattern, ownerName: string, access: Access) {
 
 /** A revision with its author's name, by pattern and number (latest when number is omitted). */
 export function findRevision(db: DbLike, patternId: string, number?: number) {
-  const q = db
-    .select({ revision: revisions, authorName: users.displayName })
-    .from(revisions)
-    .innerJoin(users, eq(users.id, revisions.authorId));
-  if (number === undefined) return q.where(eq(revisions.patternId, patternId)).orderBy(desc(revisions.number)).limit(1).get();
-  return q.where(and(eq(revisions.patternId, patternId), eq(revisions.number, number))).get();
+  const q = revisionQueries(db);
+  return number === undefined ? q.latest.get({ patternId }) : q.numbered.get({ patternId, number });
 }
 
 export function ownerName(db: DbLike, ownerId: string): string {
-  return db.select({ n: users.displayName }).from(users).where(eq(users.id, ownerId)).get()?.n ?? '';
+  return revisionQueries(db).displayName.get({ id: ownerId })?.n ?? '';
 }
+
+/** The read path runs these on every pattern load. */
+const revisionQueries = preparedPerDb((db) => {
+  const withAuthor = () =>
+    db.select({ revision: revisions, authorName: users.displayName }).from(revisions).innerJoin(users, eq(users.id, revisions.authorId));
+  const patternId = sql.placeholder('patternId');
+  return {
+    latest: withAuthor().where(eq(revisions.patternId, patternId)).orderBy(desc(revisions.number)).limit(1).prepare(),
+    numbered: withAuthor()
+      .where(and(eq(revisions.patternId, patternId), eq(revisions.number, sql.placeholder('number'))))
+      .prepare(),
+    displayName: db.select({ n: users.displayName }).from(users).where(eq(users.id, sql.placeholder('id'))).prepare(),
+  };
+});
 
 /** Creates a pattern with revision 1 in one transaction. */
 export function createPattern(db: DbLike, ownerId: string, document: PatternDocument) {
