@@ -1,5 +1,5 @@
 import type { Point, Section, SectionGeometry } from '../document/pattern-schema';
-import { degToRad, rotatePoint } from './vector';
+import { degToRad, radToDeg, rotatePoint } from './vector';
 
 /** One placement of a ring-repeated section: copy `index` (0 is the drawn section) turned by `angleDeg`. */
 export interface RingTransform {
@@ -33,7 +33,7 @@ export function normaliseAngleDeg(angleDeg: number): number {
 
 /** The section geometry turned by `angleRad` about `centre`. */
 export function rotateGeometry(geometry: SectionGeometry, centre: Point, angleRad: number): SectionGeometry {
-  const angleDeg = (angleRad * 180) / Math.PI;
+  const angleDeg = radToDeg(angleRad);
   const turnAngle = (a: number) => (angleRad === 0 ? a : normaliseAngleDeg(a + angleDeg));
   switch (geometry.kind) {
     case 'straight':
@@ -55,7 +55,7 @@ export function rotateGeometry(geometry: SectionGeometry, centre: Point, angleRa
 
 /** The whole section (outline, seams, patch anchors, strip-set directions) turned by `angleRad` about `centre`. */
 export function rotateSection(section: Section, centre: Point, angleRad: number): Section {
-  const angleDeg = (angleRad * 180) / Math.PI;
+  const angleDeg = radToDeg(angleRad);
   return {
     ...section,
     geometry: rotateGeometry(section.geometry, centre, angleRad),

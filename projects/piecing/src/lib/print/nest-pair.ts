@@ -1,4 +1,5 @@
 import type { Point } from '../document/index';
+import { radToDeg } from '../geometry/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
 import { boundingRect, insideRing, pointSegmentDistanceSq } from './layout-geometry';
 
@@ -66,7 +67,7 @@ export function nestPair(ring: readonly Point[], base: Affine, freeRotation: boo
   const realA = ring.map((p) => applyAffine(frameA, p));
   const realB = ring.map((p) => applyAffine(frameB, p));
   if (!separated(realA, realB, gapIn)) return null;
-  const deg = (t: number) => ((((t * 180) / Math.PI) % 360) + 360) % 360;
+  const deg = (t: number) => ((radToDeg(t) % 360) + 360) % 360;
   return {
     frames: [frameA, frameB],
     turnDeg: [deg(best.turn), deg(best.turn + best.flip)],

@@ -1,4 +1,5 @@
 import type { Point } from '../document/index';
+import { radToDeg } from '../geometry/index';
 import { applyAffine, compose, IDENTITY, MIRROR_X, rotation, translation, type Affine } from './affine';
 import { boundingRect, clippedBounds, minimumAreaTurn } from './layout-geometry';
 import type { RectIn } from './paper';
@@ -37,7 +38,7 @@ export function prepareTemplate(template: PrintTemplate, mirrored: boolean, extr
   return {
     template,
     frame,
-    turnDeg: normaliseDeg((turn * 180) / Math.PI),
+    turnDeg: normaliseDeg(radToDeg(turn)),
     width: box.width + 2 * TEMPLATE_CLEARANCE_IN,
     height: box.height + 2 * TEMPLATE_CLEARANCE_IN,
     quarterTurns: true,

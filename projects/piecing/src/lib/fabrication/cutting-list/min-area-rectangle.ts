@@ -1,5 +1,5 @@
 import type { Point } from '../../document/pattern-schema';
-import { cross, subtract } from '../../geometry/index';
+import { cross, radToDeg, subtract } from '../../geometry/index';
 
 /** A rectangle at any angle, in inches. */
 export interface OrientedRectangle {
@@ -57,7 +57,7 @@ export function minAreaRectangle(points: readonly Point[]): OrientedRectangle {
     const b = hull[h - 1];
     const length = Math.hypot(b.x - a.x, b.y - a.y);
     const angle = length > 0 ? Math.atan2(b.y - a.y, b.x - a.x) : 0;
-    return { corners: [a, b, b, a].map((p) => ({ ...p })), alongIn: length, acrossIn: 0, angleDeg: normalise180((angle * 180) / Math.PI), areaSqIn: 0 };
+    return { corners: [a, b, b, a].map((p) => ({ ...p })), alongIn: length, acrossIn: 0, angleDeg: normalise180(radToDeg(angle)), areaSqIn: 0 };
   }
   const at = (k: number) => hull[k % h];
   let best: { area: number; i: number; e: Point; lo: number; hi: number; height: number } | undefined;
@@ -92,7 +92,7 @@ export function minAreaRectangle(points: readonly Point[]): OrientedRectangle {
     corners: [corner(lo, 0), corner(hi, 0), corner(hi, height), corner(lo, height)],
     alongIn: hi - lo,
     acrossIn: height,
-    angleDeg: normalise180((Math.atan2(e.y, e.x) * 180) / Math.PI),
+    angleDeg: normalise180(radToDeg(Math.atan2(e.y, e.x))),
     areaSqIn: area,
   };
 }
