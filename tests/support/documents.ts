@@ -10,15 +10,6 @@ import type { PatternDocumentInput } from '@seamwright/piecing';
  * seam into two patches, plus `arcs` arc sections of a ring (5–6 in.) around the block's centre.
  */
 export function gridDocument(title: string, cols = 3, rows = 3, arcs = 4): PatternDocumentInput {
-  const labels = (i: number) => {
-    let s = '';
-    let n = i;
-    do {
-      s = String.fromCharCode(65 + (n % 26)) + s;
-      n = Math.floor(n / 26) - 1;
-    } while (n >= 0);
-    return s;
-  };
   const sections: NonNullable<PatternDocumentInput['sections']> = [];
   for (let r = 0; r < rows; r++) {
     for (let c = 0; c < cols; c++) {
@@ -27,7 +18,7 @@ export function gridDocument(title: string, cols = 3, rows = 3, arcs = 4): Patte
       const y = r * 2;
       sections.push({
         id: `s${i}`,
-        label: labels(i),
+        label: sectionLabel(i),
         geometry: {
           kind: 'straight',
           vertices: [
@@ -50,7 +41,7 @@ export function gridDocument(title: string, cols = 3, rows = 3, arcs = 4): Patte
     const i = cols * rows + k;
     sections.push({
       id: `a${k}`,
-      label: labels(i),
+      label: sectionLabel(i),
       geometry: {
         kind: 'arc',
         centre,
