@@ -1,9 +1,7 @@
-import { degToRad, distance, normaliseAngleDeg, pointOnCircle, wedgeGeometrySchema, type Point, type WedgeGeometry } from '@seamwright/piecing';
-import { angleTo } from '../commands/section-handles';
+import { wedgeGeometrySchema, type Point, type WedgeGeometry } from '@seamwright/piecing';
 import { addDrawnSection, parseTypedGeometry, type TypedResult } from './add-drawn-section';
-import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
-
-type WedgeStage = 'idle' | 'radius' | 'sweep';
+import { CentredSectionTool } from './centred-section.tool';
+import type { ToolContext } from './tool';
 
 /** The numbers of a wedge section as typed into the board. */
 export type TypedWedge = Omit<WedgeGeometry, 'kind'>;
@@ -12,19 +10,12 @@ export type TypedWedge = Omit<WedgeGeometry, 'kind'>;
  * Wedge section: press at the centre and drag out to the radius (the drag direction is the start
  * angle), release; move round to the end angle and click. Or type the numbers.
  */
-export class WedgeSectionTool implements BoardTool {
+export class WedgeSectionTool extends CentredSectionTool<'radius' | 'sweep'> {
   readonly id = 'wedge' as const;
-  private stage: WedgeStage = 'idle';
-  private centre: Point = { x: 0, y: 0 };
-  private radius = 0;
-  private start = 0;
   private sweep = 45;
-  private dragged = false;
 
-  constructor(private readonly ctx: ToolContext) {}
-
-  get state(): string {
-    return this.stage;
+  constructor(ctx: ToolContext) {
+    super(ctx, 'radius', 'sweep');
   }
 
   get hint(): string {
@@ -35,53 +26,6 @@ export class WedgeSectionTool implements BoardTool {
         : 'Click at the end angle';
   }
 
-  pointerDown(e: ToolPointer): void {
-    const p = this.ctx.snap(e.point).point;
-    if (this.stage === 'idle') {
-      this.centre = p;
-      this.radius = 0;
-      this.dragged = false;
-      this.stage = 'radius';
-    } else if (this.stage === 'radius') {
-      this.track(p);
-      if (this.radius > 1 / 16) this.stage = 'sweep';
-    } else {
-      this.track(p);
-      this.commit();
-    }
-  }
-
-  pointerMove(e: ToolPointer): void {
-    if (this.stage === 'idle') return;
-    this.dragged = true;
-    this.track(this.ctx.snap(e.point).point);
-  }
-
-  pointerUp(e: ToolPointer): void {
-    if (this.stage === 'radius' && this.dragged) {
-      this.track(this.ctx.snap(e.point).point);
-      if (this.radius > 1 / 16) this.stage = 'sweep';
-    }
-  }
-
-  key(key: string): boolean {
-    if (key === 'Escape') {
-      this.cancel();
-      return true;
-    }
-    return false;
-  }
-
-  cancel(): void {
-    this.stage = 'idle';
-  }
-
-  preview(): ToolPreview | null {
-    if (this.stage === 'idle' || this.radius <= 0) return null;
-    if (this.stage === 'radius') return { kind: 'polyline', points: [this.centre, pointOnCircle(this.centre, this.radius, degToRad(this.start))], closed: false };
-    return { kind: 'geometry', geometry: this.geometry() };
-  }
-
   /** Adds a wedge section from typed numbers, or says what is wrong with them. */
   commitTyped(values: TypedWedge): TypedResult {
     const parsed = parseTypedGeometry(wedgeGeometrySchema, { kind: 'wedge', ...values });
@@ -90,22 +34,22 @@ export class WedgeSectionTool implements BoardTool {
     return { ok: true, sectionId: addDrawnSection(this.ctx, 'Add wedge section', parsed.geometry) };
   }
 
-  private track(p: Point): void {
-    if (this.stage === 'radius') {
-      this.radius = distance(this.centre, p);
-      this.start = angleTo(this.centre, p);
-    } else if (this.stage === 'sweep') {
-      this.sweep = normaliseAngleDeg(angleTo(this.centre, p) - this.start) || 360;
-    }
+  protected minRadius(): number {
+    return 1 / 16;
   }
 
-  private geometry(): WedgeGeometry {
-    return { kind: 'wedge', centre: { ...this.centre }, radiusIn: this.radius, startAngleDeg: this.start, sweepDeg: this.sweep };
+  protected laterTrack(p: Point): void {
+    this.sweep = this.sweepTo(p);
   }
 
-  private commit(): void {
+  protected laterDown(p: Point): void {
+    this.laterTrack(p);
     const g = this.geometry();
     this.stage = 'idle';
     if (wedgeGeometrySchema.safeParse(g).success) addDrawnSection(this.ctx, 'Add wedge section', g);
+  }
+
+  protected geometry(): WedgeGeometry {
+    return { kind: 'wedge', centre: { ...this.centre }, radiusIn: this.radius, startAngleDeg: this.start, sweepDeg: this.sweep };
   }
 }
