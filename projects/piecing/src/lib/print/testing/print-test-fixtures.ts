@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { readPatternDocument, type PatternDocument, type Point } from '../../document/index';
+import { degToRad, pointOnCircle } from '../../geometry/index';
 import type { PrintFonts } from '../print-options';
 
 /*
@@ -44,10 +45,7 @@ export function asymmetricBlock(): PatternDocument {
 
 /** Points of a quarter circle from angle a0 to a1 (degrees) at radius r about c. */
 function arcPoints(c: Point, r: number, a0: number, a1: number, n: number): Point[] {
-  return Array.from({ length: n + 1 }, (_, i) => {
-    const a = ((a0 + ((a1 - a0) * i) / n) * Math.PI) / 180;
-    return { x: c.x + r * Math.cos(a), y: c.y + r * Math.sin(a) };
-  });
+  return Array.from({ length: n + 1 }, (_, i) => pointOnCircle(c, r, degToRad(a0 + ((a1 - a0) * i) / n)));
 }
 
 /**
