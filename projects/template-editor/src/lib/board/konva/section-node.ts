@@ -1,5 +1,5 @@
 import Konva from 'konva';
-import type { Fabric, Point, Section } from '@seamwright/piecing';
+import { polygonBounds, type Fabric, type Point, type Section } from '@seamwright/piecing';
 import type { BoardPatch, BoardSewability, SectionAnalysis } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 
@@ -38,15 +38,10 @@ function patchFill(p: BoardPatch, fabrics: ReadonlyMap<string, Fabric>): string 
 /** Smallest patch size on screen, in pixels, that still shows its number. */
 const MIN_LABELLED_PATCH_PX = 26;
 
+/** The smaller side of a patch's bounding box, in inches. */
 function patchSizeIn(polygon: readonly Point[]): number {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of polygon) {
-    if (p.x < minX) minX = p.x;
-    if (p.x > maxX) maxX = p.x;
-    if (p.y < minY) minY = p.y;
-    if (p.y > maxY) maxY = p.y;
-  }
-  return Math.min(maxX - minX, maxY - minY);
+  const b = polygonBounds(polygon);
+  return Math.min(b.maxX - b.minX, b.maxY - b.minY);
 }
 
 function addLabel(group: Konva.Group, text: string, at: Point, o: SectionNodeOptions, colour: string = BOARD_COLOURS.label, sizeIn = Infinity): void {
