@@ -1,4 +1,4 @@
-import { expandRingRepeat, polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
+import { polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 import type { GeometryPort } from '../analysis/geometry-port';
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
@@ -148,10 +148,7 @@ export class BoardEditor {
       { x: 0, y: 0 },
       { x: doc.canvas.widthIn, y: doc.canvas.heightIn },
     ];
-    for (const s of doc.sections) {
-      const copies = s.ringRepeat ? expandRingRepeat(s) : [s];
-      for (const c of copies) points.push(...this.analysis.outline(c));
-    }
+    for (const s of doc.sections) for (const c of this.analysis.placements(s)) points.push(...this.analysis.outline(c));
     return polygonBounds(points);
   }
 

@@ -1,5 +1,5 @@
 import { SVG, registerWindow } from '@svgdotjs/svg.js';
-import { expandRingRepeat, type PatternDocument, type Point } from '@seamwright/piecing';
+import { polygonBounds, type PatternDocument, type Point } from '@seamwright/piecing';
 import { piecingGeometry } from '../analysis/piecing-geometry';
 import { SectionAnalysis } from '../analysis/section-analysis';
 
@@ -56,8 +56,7 @@ export function renderPatternPreviewSvg(document: PatternDocument, options: Patt
   const labels: Array<{ text: string; at: Point; sizeIn: number }> = [];
 
   for (const section of document.sections) {
-    const placements = section.ringRepeat ? expandRingRepeat(section) : [section];
-    placements.forEach((placement, copy) => {
+    analysis.placements(section).forEach((placement, copy) => {
       const g = content.group().attr({ 'data-section': section.label });
       const patches = analysis.patches(placement);
       for (const p of patches) {
@@ -70,14 +69,8 @@ export function renderPatternPreviewSvg(document: PatternDocument, options: Patt
           for (const band of p.stripBands) bands.polygon(pointsAttr(band.polygon)).fill(colours.get(band.fabricId) ?? EMPTY);
         }
         if (copy === 0) {
-          let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
-          for (const q of p.polygon) {
-            minX = Math.min(minX, q.x);
-            maxX = Math.max(maxX, q.x);
-            minY = Math.min(minY, q.y);
-            maxY = Math.max(maxY, q.y);
-          }
-          labels.push({ text: p.label, at: p.anchor, sizeIn: Math.min(maxX - minX, maxY - minY) });
+          const b = polygonBounds(p.polygon);
+          labels.push({ text: p.label, at: p.anchor, sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY) });
         }
       }
       const outline = analysis.outline(placement);
