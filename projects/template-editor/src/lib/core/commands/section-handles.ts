@@ -16,6 +16,11 @@ export function angleTo(centre: Point, p: Point): number {
   return normaliseAngleDeg(radToDeg(Math.atan2(p.y - centre.y, p.x - centre.x)));
 }
 
+/** The sweep (degrees) from `startDeg` round to the direction from `centre` to `p`, in (0, 360]. */
+export function sweepTo(centre: Point, startDeg: number, p: Point): number {
+  return normaliseAngleDeg(angleTo(centre, p) - startDeg) || 360;
+}
+
 /** The handles of a section geometry. */
 export function sectionHandles(g: SectionGeometry): SectionHandle[] {
   switch (g.kind) {
@@ -64,8 +69,7 @@ export function moveHandle(g: SectionGeometry, handle: Pick<SectionHandle, 'kind
     return { ...g, startAngleDeg: a, sweepDeg: Math.max(MIN_SWEEP_DEG, sweep) };
   }
   if (handle.kind === 'end') {
-    const sweep = normaliseAngleDeg(a - g.startAngleDeg) || 360;
-    return { ...g, sweepDeg: Math.max(MIN_SWEEP_DEG, sweep) };
+    return { ...g, sweepDeg: Math.max(MIN_SWEEP_DEG, sweepTo(g.centre, g.startAngleDeg, pt)) };
   }
   if (g.kind === 'wedge') return handle.kind === 'radius' ? { ...g, radiusIn: Math.max(MIN_RADIUS_IN, r) } : g;
   if (handle.kind === 'outer') return { ...g, outerRadiusIn: Math.max(g.innerRadiusIn + MIN_RADIUS_IN, r) };

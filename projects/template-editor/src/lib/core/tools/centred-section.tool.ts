@@ -1,5 +1,5 @@
-import { degToRad, distance, normaliseAngleDeg, pointOnCircle, type Point, type SectionGeometry } from '@seamwright/piecing';
-import { angleTo } from '../commands/section-handles';
+import { degToRad, distance, pointOnCircle, type Point, type SectionGeometry } from '@seamwright/piecing';
+import { angleTo, sweepTo } from '../commands/section-handles';
 import type { BoardTool, ToolContext, ToolId, ToolPointer, ToolPreview } from './tool';
 
 /**
@@ -90,7 +90,7 @@ export abstract class CentredSectionTool<Stage extends string> implements BoardT
 
   /** The sweep from the start angle round to the direction of `p`, in (0, 360]. */
   protected sweepTo(p: Point): number {
-    return normaliseAngleDeg(angleTo(this.centre, p) - this.start) || 360;
+    return sweepTo(this.centre, this.start, p);
   }
 
   private setRadius(p: Point): void {
