@@ -1,5 +1,6 @@
 import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
-import { baseURL, fakeStripeURL, mailInboxURL } from '../playwright.config';
+import { baseURL, fakeStripeURL } from '../playwright.config';
+import { mailsTo } from './pages/mail-inbox';
 
 /*
  * The pattern shop against the real server, the local fake mail server and the local fake payment
@@ -15,23 +16,12 @@ const quilter = { name: 'Ivy Quilter', email: `ivy-${run}@example.test`, passwor
 
 const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/shop-${name}.png`, fullPage: true });
 
-interface CaughtMail {
-  id: string;
-  to: string[];
-  subject: string;
-  text: string;
-}
 interface DeliveredEvent {
   id: string;
   type: string;
   payload: string;
   signature: string;
   attempts: number[];
-}
-
-async function mailsTo(address: string): Promise<CaughtMail[]> {
-  const res = await fetch(`${mailInboxURL}/api/messages?to=${encodeURIComponent(address)}`);
-  return (await res.json()) as CaughtMail[];
 }
 
 async function deliveredEvents(): Promise<DeliveredEvent[]> {

@@ -12,14 +12,19 @@ export interface CaughtMail {
   date: string;
 }
 
+/** Every message to `to` caught so far, oldest first, from the fake mail server's HTTP API. */
+export async function mailsTo(to: string): Promise<CaughtMail[]> {
+  const res = await fetch(`${mailInboxURL}/api/messages?to=${encodeURIComponent(to)}`);
+  return (await res.json()) as CaughtMail[];
+}
+
 /** Waits for the newest message to `to` whose subject matches, from the fake mail server's HTTP API. */
 export async function waitForMail(to: string, subject: RegExp): Promise<CaughtMail> {
   let found: CaughtMail | undefined;
   await expect
     .poll(
       async () => {
-        const res = await fetch(`${mailInboxURL}/api/messages?to=${encodeURIComponent(to)}`);
-        const all = (await res.json()) as CaughtMail[];
+        const all = await mailsTo(to);
         found = all.filter((m) => subject.test(m.subject)).at(-1);
         return !!found;
       },
