@@ -5,7 +5,8 @@ import { separated } from './nest-pair';
 import { layoutTemplates } from './plan-print-layout';
 import { planPrintLayout } from './render-print-set';
 import { buildPrintTemplates } from './print-templates';
-import { ITEM_GAP_IN } from './sheet-frame';
+import { equalSpans, prepareTemplate, tileGridFromSpans } from './prepare-template';
+import { CAPTION_IN, ITEM_GAP_IN } from './sheet-frame';
 import { asymmetricBlock, testMedallion } from './testing/print-test-fixtures';
 import { buildOrchardWheel } from '../demo/index';
 import { readPatternDocument } from '../document/index';
@@ -135,7 +136,47 @@ function rectRing(r: RectIn) {
   return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }
 
+describe('tile spans', () => {
+  it('cuts a length into equal spans that overlap by the overlap and cover it end to end', () => {
+    // 10 in. in 3 spans overlapping ½ in.: each span (10 + 2 × 0.5) / 3 = 11/3 in. (worked by hand).
+    const spans = equalSpans(10, 3, 0.5);
+    expect(spans[0][0]).toBe(0);
+    expect(spans[2][1]).toBeCloseTo(10, 12);
+    for (const [a, b] of spans) expect(b - a).toBeCloseTo(11 / 3, 12);
+    for (let k = 1; k < spans.length; k++) expect(spans[k - 1][1] - spans[k][0]).toBeCloseTo(0.5, 12);
+  });
+
+  it('leaves out the cells an L-shaped template does not reach, and trims the others to what they hold', () => {
+    const l = [{ x: 0, y: 0 }, { x: 8, y: 0 }, { x: 8, y: 2 }, { x: 2, y: 2 }, { x: 2, y: 8 }, { x: 0, y: 8 }];
+    const template = { id: 'l', sectionLabel: 'L', cuttingLine: l, freeRotation: false } as Parameters<typeof prepareTemplate>[0];
+    const prepared = prepareTemplate(template, false);
+    const half = prepared.width / 2;
+    const grid = tileGridFromSpans(prepared, [[0, half + 0.25], [half - 0.25, prepared.width]], [[0, half + 0.25], [half - 0.25, prepared.height]], 0.5);
+    // The L's far corner cell (row 2, column 2) holds nothing.
+    expect(grid.tiles.map((t) => `${t.row},${t.column}`)).toEqual(['1,1', '1,2', '2,1']);
+    const right = grid.tiles.find((t) => t.column === 2)!;
+    // Only the arm, 2 in. deep plus the 0.02 in. clearance, is printed on the right-hand tile.
+    expect(right.used.height).toBeCloseTo(2 + 2 * 0.02, 9);
+  });
+});
+
 describe('layout of the demo medallion and of edge cases', () => {
+  it('splits each Orchard Wheel corner into at most four tiles on Letter, each fitting a sheet with its caption', () => {
+    // Equal 2 × 4 cells took six tiles per corner; cutting the first or last row and column as large
+    // as a sheet takes needs fewer joins for the quilter.
+    const layout = planPrintLayout(buildOrchardWheel(), { paper: 'letter' });
+    const corner = layout.templates.find((t) => t.sectionLabel === 'D')!;
+    expect(corner.tilesPerCopy).toBeGreaterThan(1);
+    expect(corner.tilesPerCopy).toBeLessThanOrEqual(4);
+    for (const sheet of layout.sheets) {
+      const c = sheet.frame.content;
+      for (const p of sheet.placements.filter((q) => q.tile)) {
+        expect(p.rect.width).toBeLessThanOrEqual(c.width + 1e-9);
+        expect(p.rect.height + CAPTION_IN).toBeLessThanOrEqual(c.height + 1e-9);
+      }
+    }
+  });
+
   it('keeps every Orchard Wheel print clear of the others on Letter and on A4 with 1 in. margins', () => {
     const document = buildOrchardWheel();
     const templates = new Map(buildPrintTemplates(document, { foundation: 'paper', copies: 'plan' }).map((t) => [t.id, t]));

@@ -7,7 +7,7 @@ import { boundingRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
 import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
-import { intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGrid, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
+import { equalSpans, intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGridFromSpans, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
 import { ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
@@ -170,33 +170,48 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
     const prepared = prepareTemplate(template, mirrored, turn);
     // The smallest grid for each sheet orientation and each way of leaving room for the test squares.
     const bases: Array<[number, number]> = [];
+    const limits: Array<[number, number]> = [];
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
       for (const [cw, ch] of [[W, H - tb.height - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
+        limits.push([cw, ch]);
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
         if (grid && !bases.some(([c, r]) => c === grid.columns && r === grid.rows)) bases.push([grid.columns, grid.rows]);
       }
     }
-    const seen = new Set<string>();
+    // Equal cells: the smallest grids that fit, and grids a row or column finer.
+    const candidates: Array<{ columns: Array<[number, number]>; rows: Array<[number, number]> }> = [];
     for (const [minCols, minRows] of bases) {
-    // Trial packing is only worth its time for modest grids; a huge template takes the smallest grid.
-    const trials = minCols * minRows * template.copies <= 120;
-    for (let columns = minCols; columns <= (trials ? minCols + 2 : minCols); columns++) {
-      for (let rows = minRows; rows <= (trials ? minRows + 2 : minRows); rows++) {
-        if (seen.has(`${columns}x${rows}`)) continue;
-        seen.add(`${columns}x${rows}`);
-        const grid = tileGrid(prepared, columns, rows, overlapIn);
-        if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
-        const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
-        const sheets = trials ? packSheets(items, paper, marginIn).length : items.length;
-        const count = grid.tiles.length;
-        const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
-        const better =
-          !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
-        if (better) best = { grid, sheets, count, area };
+      // Trial packing is only worth its time for modest grids; a huge template takes the smallest grid.
+      const extra = minCols * minRows * template.copies <= 120 ? 2 : 0;
+      for (let columns = minCols; columns <= minCols + extra; columns++) {
+        for (let rows = minRows; rows <= minRows + extra; rows++) {
+          candidates.push({ columns: equalSpans(prepared.width, columns, overlapIn), rows: equalSpans(prepared.height, rows, overlapIn) });
+        }
       }
     }
+    // Uneven cells: the first (or last) column and row as large as a sheet takes, the rest equal.
+    for (const [cw, ch] of limits) {
+      for (const columns of longEndSpans(prepared.width, cw, overlapIn)) {
+        for (const rows of longEndSpans(prepared.height, ch, overlapIn)) candidates.push({ columns, rows });
+      }
+    }
+    const seen = new Set<string>();
+    for (const { columns, rows } of candidates) {
+      const key = [...columns, ...rows].map(([a, b]) => `${a.toFixed(4)}-${b.toFixed(4)}`).join(',') + `|${columns.length}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      const grid = tileGridFromSpans(prepared, columns, rows, overlapIn);
+      if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
+      const trials = columns.length * rows.length * template.copies <= 160;
+      const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
+      const sheets = trials ? packSheets(items, paper, marginIn).length : items.length;
+      const count = grid.tiles.length;
+      const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
+      const better =
+        !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
+      if (better) best = { grid, sheets, count, area };
     }
   }
   if (!best) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
@@ -204,6 +219,22 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
 }
 
 /** Whether a tile (which never turns) fits a sheet beside the test squares. */
+/**
+ * Cuts of [0, length] into the fewest overlapping spans of at most `max` with the first (or the
+ * last) span as long as allowed and the rest equal; none when one span is enough.
+ */
+function longEndSpans(length: number, max: number, overlapIn: number): Array<Array<[number, number]>> {
+  const limit = max - 1e-6;
+  if (limit <= overlapIn * 2 || length <= limit) return [];
+  const fewest = Math.ceil((length - overlapIn) / (limit - overlapIn) - 1e-9);
+  const rest = equalSpans(length - limit + overlapIn, fewest - 1, overlapIn);
+  const shift = limit - overlapIn;
+  return [
+    [[0, limit], ...rest.map(([a, b]) => [a + shift, b + shift] as [number, number])],
+    [...rest, [length - limit, length] as [number, number]],
+  ];
+}
+
 function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;

@@ -84,18 +84,30 @@ export function tileTemplate(prepared: PreparedTemplate, maxWidth: number, maxHe
 
 /** A grid of `columns` × `rows` equal cells over a prepared template, neighbours overlapping by `overlapIn`. */
 export function tileGrid(prepared: PreparedTemplate, columns: number, rows: number, overlapIn: number): TileGrid {
-  const cellW = columns === 1 ? prepared.width : (prepared.width + (columns - 1) * overlapIn) / columns;
-  const cellH = rows === 1 ? prepared.height : (prepared.height + (rows - 1) * overlapIn) / rows;
+  return tileGridFromSpans(prepared, equalSpans(prepared.width, columns, overlapIn), equalSpans(prepared.height, rows, overlapIn), overlapIn);
+}
+
+/** `count` equal spans over [0, length], neighbours overlapping by `overlapIn`. */
+export function equalSpans(length: number, count: number, overlapIn: number): Array<[number, number]> {
+  const cell = count === 1 ? length : (length + (count - 1) * overlapIn) / count;
+  return Array.from({ length: count }, (_, k) => [k * (cell - overlapIn), k * (cell - overlapIn) + cell] as [number, number]);
+}
+
+/**
+ * A grid over a prepared template from its column spans (x from–to) and row spans (y from–to), which
+ * the caller makes overlap. Cells the cutting line does not reach are left out; every other cell is
+ * trimmed to what it holds.
+ */
+export function tileGridFromSpans(prepared: PreparedTemplate, columns: ReadonlyArray<[number, number]>, rows: ReadonlyArray<[number, number]>, overlapIn: number): TileGrid {
   const tiles: TileCell[] = [];
-  for (let r = 0; r < rows; r++) {
-    for (let c = 0; c < columns; c++) {
-      const cell: RectIn = { x: c * (cellW - overlapIn), y: r * (cellH - overlapIn), width: cellW, height: cellH };
+  rows.forEach(([y0, y1], r) => {
+    columns.forEach(([x0, x1], c) => {
+      const cell: RectIn = { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
       const reached = clippedBounds(prepared.ring, cell);
-      if (!reached) continue;
-      tiles.push({ row: r + 1, column: c + 1, cell, used: grow(reached, cell) });
-    }
-  }
-  return { prepared, rows, columns, overlapIn, tiles };
+      if (reached) tiles.push({ row: r + 1, column: c + 1, cell, used: grow(reached, cell) });
+    });
+  });
+  return { prepared, rows: rows.length, columns: columns.length, overlapIn, tiles };
 }
 
 /** The reached box grown by the clearance, kept inside the cell. */
