@@ -1,16 +1,17 @@
 import fs from 'node:fs';
-import { and, asc, count, desc, eq, isNotNull, isNull, or, sql } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { members, patterns, printSets, uploads, users } from '../db/schema';
+import { patterns, printSets, uploads } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { likeContains, pagingQuery } from '../http/paging';
+import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
-import { canDesign, resolvePatternAccess, type Access } from '../services/access';
+import { canDesign, resolvePatternAccess } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
+import { listPatterns } from '../services/pattern-list';
 import {
   createPattern,
   findRevision,
@@ -40,40 +41,7 @@ export function patternsRouter(ctx: AppContext): Router {
   router.get('/', requireUser, (req, res) => {
     const user = currentUser(req);
     const q = parseOr400(listQuery, req.query, 'Invalid query');
-    const membership = and(eq(members.patternId, patterns.id), eq(members.userId, user.id));
-    const scopeWhere = {
-      all: and(or(eq(patterns.ownerId, user.id), isNotNull(members.userId)), isNull(patterns.trashedAt)),
-      owned: and(eq(patterns.ownerId, user.id), isNull(patterns.trashedAt)),
-      shared: and(isNotNull(members.userId), isNull(patterns.trashedAt)),
-      trash: and(eq(patterns.ownerId, user.id), isNotNull(patterns.trashedAt)),
-    }[q.scope];
-    const where = q.q ? and(scopeWhere, sql`${patterns.title} LIKE ${likeContains(q.q)} ESCAPE '\\'`) : scopeWhere;
-    const direction = q.order === 'asc' ? asc : desc;
-    const sortColumn = {
-      updated: patterns.updatedAt,
-      created: patterns.createdAt,
-      title: sql`${patterns.title} COLLATE NOCASE`,
-    }[q.sort];
-    const total =
-      db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).get()?.n ?? 0;
-    const rows = db
-      .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access })
-      .from(patterns)
-      .leftJoin(members, membership)
-      .innerJoin(users, eq(users.id, patterns.ownerId))
-      .where(where)
-      .orderBy(direction(sortColumn), direction(patterns.id))
-      .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize)
-      .all();
-    res.json({
-      items: rows.map((r) =>
-        patternJson(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access),
-      ),
-      total,
-      page: q.page,
-      pageSize: q.pageSize,
-    });
+    res.json(listPatterns(db, user, q));
   });
 
   router.post('/', requireUser, (req, res) => {
