@@ -193,3 +193,38 @@ describe('rate limits', () => {
     expect(more).toEqual([202, 202, 429]);
   });
 });
+
+describe('sign-up rate limit', () => {
+  let r: TestServer;
+  beforeAll(async () => {
+    r = await startTestServer({ SIGNUP_LIMIT_PER_ADDRESS: '3' });
+  });
+  afterAll(async () => {
+    await r.close();
+  });
+
+  it('counts every sign-up attempt from an address, refused or not, and answers 429 with Retry-After', async () => {
+    const c = await Client.create(r.app);
+    const body = (email: string) => ({ email, password: 'a long enough password', displayName: 'New', role: 'quilter' });
+    const attempt = async (email: string) => {
+      const res = await c.post('/api/auth/sign-up', body(email));
+      // A new account starts a new session with its own CSRF token.
+      if (res.status === 201) c.csrfToken = res.body.csrfToken;
+      return res;
+    };
+    const statuses: number[] = [];
+    statuses.push((await attempt('first@example.test')).status);
+    // A duplicate is refused (409) and still counts: it cost a password hash too.
+    statuses.push((await attempt('first@example.test')).status);
+    // The refused duplicate signed nobody out: the first account's session still answers.
+    const me = await c.get('/api/auth/me');
+    expect(me.status).toBe(200);
+    expect(me.body.user.email).toBe('first@example.test');
+    statuses.push((await attempt('second@example.test')).status);
+    const blocked = await attempt('third@example.test');
+    statuses.push(blocked.status);
+    expect(statuses).toEqual([201, 409, 201, 429]);
+    expect(blocked.headers['retry-after']).toBe('900');
+    expect(blocked.body.error).toMatch(/too many attempts/i);
+  });
+});

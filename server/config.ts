@@ -33,6 +33,8 @@ const envSchema = z.object({
   /** Password-reset requests allowed per account / per address in the window. */
   RESET_LIMIT_PER_ACCOUNT: intFromEnv(5, 1),
   RESET_LIMIT_PER_ADDRESS: intFromEnv(20, 1),
+  /** Sign-up attempts allowed per address in the window (each one hashes a password). */
+  SIGNUP_LIMIT_PER_ADDRESS: intFromEnv(20, 1),
   RATE_LIMIT_WINDOW_MINUTES: intFromEnv(15, 1),
   INVITATION_DAYS: intFromEnv(7, 1, 90),
   PRINT_WORKERS: intFromEnv(1, 1, 8),
@@ -70,6 +72,7 @@ export interface Config {
     signInPerAddress: number;
     resetPerAccount: number;
     resetPerAddress: number;
+    signUpPerAddress: number;
   };
   invitationDays: number;
   printWorkers: number;
@@ -120,6 +123,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
       signInPerAddress: e.SIGNIN_LIMIT_PER_ADDRESS,
       resetPerAccount: e.RESET_LIMIT_PER_ACCOUNT,
       resetPerAddress: e.RESET_LIMIT_PER_ADDRESS,
+      signUpPerAddress: e.SIGNUP_LIMIT_PER_ADDRESS,
     },
     invitationDays: e.INVITATION_DAYS,
     printWorkers: e.PRINT_WORKERS,

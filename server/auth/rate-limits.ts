@@ -24,7 +24,10 @@ function limiter(config: Config, limit: number, key: (req: Request) => string, o
   });
 }
 
-/** Rate limits for sign-in (failed attempts) and password-reset requests, per account and per address. */
+/**
+ * Rate limits for sign-in (failed attempts) and password-reset requests, per account and per address,
+ * and for sign-ups (every attempt: each costs a password hash) per address.
+ */
 export function createRateLimits(config: Config) {
   const address = (req: Request) => ipKeyGenerator(req.ip ?? '0.0.0.0');
   const l = config.limits;
@@ -37,5 +40,6 @@ export function createRateLimits(config: Config) {
       limiter(config, l.resetPerAddress, (r) => `ip:${address(r)}`, false),
       limiter(config, l.resetPerAccount, (r) => `acct:${accountKey(r)}`, false),
     ],
+    signUp: [limiter(config, l.signUpPerAddress, (r) => `ip:${address(r)}`, false)],
   };
 }

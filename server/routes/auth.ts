@@ -7,7 +7,7 @@ import { decoyHash, hashPassword, verifyPassword } from '../auth/passwords';
 import { createRateLimits } from '../auth/rate-limits';
 import { currentUser, endSession, endUserSessions, publicUser, requireUser, startSession } from '../auth/sessions';
 import { hashToken, newId, randomToken } from '../auth/tokens';
-import { passwordResets, users } from '../db/schema';
+import { passwordResets, sessions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { emailSchema, parseOr400, passwordSchema } from '../http/validate';
 import { passwordResetMail } from '../services/mail-templates';
@@ -36,12 +36,13 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     res.json({ csrfToken: csrf.issue(req, res) });
   });
 
-  router.post('/sign-up', async (req, res) => {
+  router.post('/sign-up', ...limits.signUp, async (req, res) => {
     const body = parseOr400(signUpBody, req.body);
     const passwordHash = await hashPassword(body.password, config.bcryptRounds);
     const id = newId();
-    if (req.sessionTokenHash) endSession(db, config, res, req.sessionTokenHash);
-    // The account and its first session in one transaction.
+    const previous = req.sessionTokenHash;
+    // The account and its first session in one transaction; a session the browser already had ends
+    // only when the account is made (a refused sign-up signs nobody out). The new cookie replaces it.
     const { created, tokenHash } = db.transaction(
       (tx) => {
         const row = tx
@@ -51,6 +52,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
           .returning()
           .get();
         if (!row) throw new HttpError(409, 'An account with this e-mail already exists', [{ path: 'email', message: 'already registered' }]);
+        if (previous) tx.delete(sessions).where(eq(sessions.tokenHash, previous)).run();
         return { created: row, tokenHash: startSession(tx, config, res, row.id) };
       },
       { behavior: 'immediate' },
