@@ -48,6 +48,7 @@ import { ThemeService } from './core/theme.service';
         </button>
         <mat-menu #account="matMenu">
           <div class="sw-menu-who" role="presentation">{{ user.email }} · {{ user.role }}</div>
+          <a mat-menu-item routerLink="/account/password"><mat-icon aria-hidden="true">key</mat-icon>Change password</a>
           <button mat-menu-item type="button" (click)="signOut()"><mat-icon aria-hidden="true">logout</mat-icon>Sign out</button>
         </mat-menu>
       } @else {

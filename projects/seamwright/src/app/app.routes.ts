@@ -36,6 +36,12 @@ export const routes: Routes = [
     canActivate: [authGuard],
     loadChildren: () => import('./pattern/pattern.routes').then((m) => m.patternRoutes),
   },
+  {
+    path: 'account/password',
+    canActivate: [authGuard],
+    loadComponent: () => import('./account/change-password.component').then((m) => m.ChangePasswordComponent),
+    title: 'Change password · Seamwright',
+  },
   { path: 'shop', canActivate: [authGuard], loadChildren: () => import('./shop/shop.routes').then((m) => m.shopRoutes) },
   {
     path: 'scale-check',
