@@ -7,8 +7,7 @@ import { AuthService } from '../core/auth.service';
 import { CsrfTokenService } from '../core/csrf-token.service';
 import { csrfInterceptor } from '../core/csrf.interceptor';
 import { sessionExpiredInterceptor } from '../core/session-expired.interceptor';
-
-const inputs = (el: HTMLElement) => Array.from(el.querySelectorAll('input')) as HTMLInputElement[];
+import { formDriver } from '../testing/form-driver';
 
 describe('ChangePasswordComponent', () => {
   async function setup() {
@@ -23,27 +22,16 @@ describe('ChangePasswordComponent', () => {
     const fixture = TestBed.createComponent(ChangePasswordComponent);
     fixture.detectChanges();
     await fixture.whenStable();
-    const el = fixture.nativeElement as HTMLElement;
-    const inputs = () => Array.from(el.querySelectorAll('input')) as HTMLInputElement[];
-    const type = (i: number, v: string) => {
-      const input = inputs()[i];
-      input.value = v;
-      input.dispatchEvent(new Event('input'));
-      input.dispatchEvent(new Event('blur'));
-    };
-    const submit = async () => {
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
-    };
-    return { fixture, el, type, submit, http, auth };
+    const { el, type, submit, errors, errorOf, values } = formDriver(fixture);
+    return { fixture, el, type, submit, errors, errorOf, values, http, auth };
   }
 
   it('asks for the current password and a long enough new one, typed twice alike', async () => {
-    const { el, type, submit, http } = await setup();
-    type(1, 'short');
-    type(2, 'different');
+    const { type, submit, errors, http } = await setup();
+    type('New password', 'short');
+    type('New password again', 'different');
     await submit();
-    expect(Array.from(el.querySelectorAll('mat-error')).map((e) => e.textContent?.trim())).toEqual([
+    expect(errors()).toEqual([
       'Current password is required',
       'New password must be at least 10 characters',
       'The two passwords do not match',
@@ -52,11 +40,11 @@ describe('ChangePasswordComponent', () => {
   });
 
   it('sends both passwords and says the other sessions were signed out', async () => {
-    const { fixture, el, type, submit, http } = await setup();
+    const { fixture, el, type, submit, errors, values, http } = await setup();
     expect(el.textContent).toContain('Signed in as mira@example.test');
-    type(0, 'the old secret');
-    type(1, 'a brand new secret');
-    type(2, 'a brand new secret');
+    type('Current password', 'the old secret');
+    type('New password', 'a brand new secret');
+    type('New password again', 'a brand new secret');
     await submit();
     const req = http.expectOne('/api/auth/change-password');
     expect(req.request.body).toEqual({ currentPassword: 'the old secret', newPassword: 'a brand new secret' });
@@ -66,22 +54,22 @@ describe('ChangePasswordComponent', () => {
     expect(el.querySelector('[role=status]')?.textContent).toContain('Your password is changed');
     // The emptied form is ready for another change, not full of "required" errors.
     fixture.detectChanges();
-    expect(inputs(el).map((i) => i.value)).toEqual(['', '', '']);
-    expect(el.querySelectorAll('mat-error').length).toBe(0);
+    expect(values()).toEqual(['', '', '']);
+    expect(errors()).toEqual([]);
   });
 
   it('puts a wrong current password on its field and keeps the user signed in', async () => {
-    const { fixture, el, type, submit, http, auth } = await setup();
+    const { fixture, type, submit, errorOf, http, auth } = await setup();
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate');
-    type(0, 'not the password');
-    type(1, 'a brand new secret');
-    type(2, 'a brand new secret');
+    type('Current password', 'not the password');
+    type('New password', 'a brand new secret');
+    type('New password again', 'a brand new secret');
     await submit();
     http
       .expectOne('/api/auth/change-password')
       .flush({ error: 'The current password is wrong', details: [{ path: 'currentPassword', message: 'does not match' }] }, { status: 401, statusText: 'Unauthorized' });
     await fixture.whenStable();
-    expect(el.querySelector('mat-error')?.textContent?.trim()).toBe('does not match');
+    expect(errorOf('Current password')).toBe('does not match');
     expect(auth.signedIn()).toBe(true);
     expect(navigate).not.toHaveBeenCalled();
   });

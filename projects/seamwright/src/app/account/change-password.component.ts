@@ -9,11 +9,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
 import { toApiError, type FieldIssue } from '../core/api-error';
 import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from '../auth/form-errors';
+import { NewPasswordFieldsComponent } from '../auth/new-password-fields.component';
 
 /** Change the password of the signed-in account; the server signs out its other sessions. */
 @Component({
   selector: 'sw-change-password',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule],
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule, NewPasswordFieldsComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <mat-card class="sw-auth-card" appearance="outlined">
@@ -30,17 +31,7 @@ import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from '..
             <input matInput formControlName="currentPassword" type="password" autocomplete="current-password" required />
             <mat-error>{{ message('Current password', 'currentPassword') }}</mat-error>
           </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>New password</mat-label>
-            <input matInput formControlName="newPassword" type="password" autocomplete="new-password" required />
-            <mat-hint>At least {{ minLength }} characters</mat-hint>
-            <mat-error>{{ message('New password', 'newPassword') }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>New password again</mat-label>
-            <input matInput formControlName="confirm" type="password" autocomplete="new-password" required />
-            <mat-error>{{ message('New password again', 'confirm') }}</mat-error>
-          </mat-form-field>
+          <sw-new-password-fields />
           @if (problem()) { <p class="sw-form-error" role="alert">{{ problem() }}</p> }
           <button mat-flat-button type="submit" [disabled]="busy()">Change password</button>
         </form>
@@ -54,20 +45,19 @@ import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from '..
 })
 export class ChangePasswordComponent {
   protected readonly auth = inject(AuthService);
-  protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly busy = signal(false);
   protected readonly done = signal(false);
   protected readonly problem = signal('');
   protected readonly form = inject(FormBuilder).nonNullable.group(
     {
       currentPassword: ['', Validators.required],
-      newPassword: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
+      password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
       confirm: ['', Validators.required],
     },
-    { validators: sameAs('newPassword', 'confirm') },
+    { validators: sameAs('password', 'confirm') },
   );
 
-  protected message(label: string, name: 'currentPassword' | 'newPassword' | 'confirm'): string {
+  protected message(label: string, name: 'currentPassword'): string {
     return fieldMessage(label, this.form.controls[name]);
   }
 
@@ -78,7 +68,7 @@ export class ChangePasswordComponent {
       this.form.markAllAsTouched();
       return;
     }
-    const { currentPassword, newPassword } = this.form.getRawValue();
+    const { currentPassword, password: newPassword } = this.form.getRawValue();
     this.busy.set(true);
     this.auth.changePassword(currentPassword, newPassword).subscribe({
       next: () => {
@@ -90,7 +80,8 @@ export class ChangePasswordComponent {
       error: (err: unknown) => {
         this.busy.set(false);
         const e = toApiError(err);
-        const issues = Array.isArray(e.details) ? (e.details as FieldIssue[]) : [];
+        // The server names the new password `newPassword`; here its control is `password`.
+        const issues = (Array.isArray(e.details) ? (e.details as FieldIssue[]) : []).map((i) => (i.path === 'newPassword' ? { ...i, path: 'password' } : i));
         const rest = applyServerIssues(this.form, issues);
         if (issues.length === 0 || rest.length > 0) this.problem.set(e.message);
       },

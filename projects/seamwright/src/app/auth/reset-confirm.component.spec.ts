@@ -4,6 +4,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter } from '@angular/router';
 import { ResetConfirmComponent } from './reset-confirm.component';
 import { CsrfTokenService } from '../core/csrf-token.service';
+import { formDriver } from '../testing/form-driver';
 
 describe('ResetConfirmComponent', () => {
   function setup() {
@@ -12,27 +13,16 @@ describe('ResetConfirmComponent', () => {
     const fixture = TestBed.createComponent(ResetConfirmComponent);
     fixture.componentRef.setInput('token', 'reset-token-1');
     fixture.detectChanges();
-    const el = fixture.nativeElement as HTMLElement;
-    const inputs = () => Array.from(el.querySelectorAll('input')) as HTMLInputElement[];
-    const type = (i: number, v: string) => {
-      const input = inputs()[i];
-      input.value = v;
-      input.dispatchEvent(new Event('input'));
-      input.dispatchEvent(new Event('blur'));
-    };
-    const submit = async () => {
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
-    };
-    return { fixture, el, type, submit, http: TestBed.inject(HttpTestingController) };
+    const { el, type, submit, errors } = formDriver(fixture);
+    return { fixture, el, type, submit, errors, http: TestBed.inject(HttpTestingController) };
   }
 
   it('requires a long enough new password', async () => {
-    const { fixture, el, type, submit } = setup();
+    const { fixture, type, submit, errors } = setup();
     await fixture.whenStable();
-    type(0, 'abc');
+    type('New password', 'abc');
     await submit();
-    expect(Array.from(el.querySelectorAll('mat-error')).map((e) => e.textContent?.trim())).toEqual([
+    expect(errors()).toEqual([
       'New password must be at least 10 characters',
       'New password again is required',
     ]);
@@ -41,8 +31,8 @@ describe('ResetConfirmComponent', () => {
   it('sends the token with the new password and says so when done', async () => {
     const { fixture, el, type, submit, http } = setup();
     await fixture.whenStable();
-    type(0, 'a brand new secret');
-    type(1, 'a brand new secret');
+    type('New password', 'a brand new secret');
+    type('New password again', 'a brand new secret');
     await submit();
     const req = http.expectOne('/api/auth/password-reset/confirm');
     expect(req.request.body).toEqual({ token: 'reset-token-1', newPassword: 'a brand new secret' });
@@ -54,8 +44,8 @@ describe('ResetConfirmComponent', () => {
   it('explains an expired link', async () => {
     const { fixture, el, type, submit, http } = setup();
     await fixture.whenStable();
-    type(0, 'a brand new secret');
-    type(1, 'a brand new secret');
+    type('New password', 'a brand new secret');
+    type('New password again', 'a brand new secret');
     await submit();
     http
       .expectOne('/api/auth/password-reset/confirm')

@@ -3,17 +3,16 @@ import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
+import { NewPasswordFieldsComponent } from './new-password-fields.component';
 import { toApiError } from '../core/api-error';
-import { MIN_PASSWORD_LENGTH, fieldMessage, sameAs } from './form-errors';
+import { MIN_PASSWORD_LENGTH, sameAs } from './form-errors';
 
 /** Choose a new password with the token from the reset e-mail. */
 @Component({
   selector: 'sw-reset-confirm',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule],
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatButtonModule, MatProgressBarModule, NewPasswordFieldsComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <mat-card class="sw-auth-card" appearance="outlined">
@@ -24,17 +23,7 @@ import { MIN_PASSWORD_LENGTH, fieldMessage, sameAs } from './form-errors';
           <p role="status">Your password is changed. Sign in with the new one.</p>
         } @else {
           <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-            <mat-form-field appearance="outline">
-              <mat-label>New password</mat-label>
-              <input matInput formControlName="password" type="password" autocomplete="new-password" required />
-              <mat-hint>At least {{ minLength }} characters</mat-hint>
-              <mat-error>{{ message('New password', 'password') }}</mat-error>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
-              <mat-label>New password again</mat-label>
-              <input matInput formControlName="confirm" type="password" autocomplete="new-password" required />
-              <mat-error>{{ message('New password again', 'confirm') }}</mat-error>
-            </mat-form-field>
+            <sw-new-password-fields />
             @if (problem()) { <p class="sw-form-error" role="alert">{{ problem() }}</p> }
             <button mat-flat-button type="submit" [disabled]="busy()">Save the new password</button>
           </form>
@@ -51,7 +40,6 @@ export class ResetConfirmComponent {
   /** The single-use token from the e-mailed link. */
   readonly token = input.required<string>();
   private readonly auth = inject(AuthService);
-  protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly busy = signal(false);
   protected readonly done = signal(false);
   protected readonly problem = signal('');
@@ -63,9 +51,6 @@ export class ResetConfirmComponent {
     { validators: sameAs('password', 'confirm') },
   );
 
-  protected message(label: string, name: 'password' | 'confirm'): string {
-    return fieldMessage(label, this.form.controls[name]);
-  }
 
   protected submit(): void {
     this.problem.set('');

@@ -4,6 +4,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter, Router } from '@angular/router';
 import { SignInComponent } from './sign-in.component';
 import { csrfInterceptor } from '../core/csrf.interceptor';
+import { formDriver } from '../testing/form-driver';
 
 function setup() {
   TestBed.configureTestingModule({
@@ -11,21 +12,8 @@ function setup() {
   });
   const fixture = TestBed.createComponent(SignInComponent);
   fixture.detectChanges();
-  const el = fixture.nativeElement as HTMLElement;
   const http = TestBed.inject(HttpTestingController);
-  const type = (label: string, value: string) => {
-    const input = Array.from(el.querySelectorAll('mat-form-field'))
-      .find((f) => f.querySelector('mat-label')?.textContent?.trim() === label)
-      ?.querySelector('input') as HTMLInputElement;
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-    input.dispatchEvent(new Event('blur'));
-  };
-  const submit = async () => {
-    (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-    await fixture.whenStable();
-  };
-  const errors = () => Array.from(el.querySelectorAll('mat-error')).map((e) => e.textContent?.trim());
+  const { el, type, submit, errors } = formDriver(fixture);
   return { fixture, el, http, type, submit, errors };
 }
 

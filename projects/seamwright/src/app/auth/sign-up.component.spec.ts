@@ -4,26 +4,14 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter } from '@angular/router';
 import { SignUpComponent } from './sign-up.component';
 import { CsrfTokenService } from '../core/csrf-token.service';
+import { formDriver } from '../testing/form-driver';
 
 function setup() {
   TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
   TestBed.inject(CsrfTokenService).remember('t');
   const fixture = TestBed.createComponent(SignUpComponent);
   fixture.detectChanges();
-  const el = fixture.nativeElement as HTMLElement;
-  const field = (label: string) =>
-    Array.from(el.querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')?.textContent?.trim() === label)!;
-  const type = (label: string, value: string) => {
-    const input = field(label).querySelector('input') as HTMLInputElement;
-    input.value = value;
-    input.dispatchEvent(new Event('input'));
-    input.dispatchEvent(new Event('blur'));
-  };
-  const submit = async () => {
-    (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-    await fixture.whenStable();
-  };
-  const errorOf = (label: string) => field(label).querySelector('mat-error')?.textContent?.trim() ?? '';
+  const { el, type, submit, errorOf } = formDriver(fixture);
   return { fixture, el, type, submit, errorOf, http: TestBed.inject(HttpTestingController) };
 }
 

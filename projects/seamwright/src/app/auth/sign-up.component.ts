@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
+import { NewPasswordFieldsComponent } from './new-password-fields.component';
 import { toApiError } from '../core/api-error';
 import { afterSignIn } from './after-sign-in';
 import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from './form-errors';
@@ -15,7 +16,7 @@ import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from './
 /** Create an account as a designer or a quilter. */
 @Component({
   selector: 'sw-sign-up',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatRadioModule, MatProgressBarModule],
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatRadioModule, MatProgressBarModule, NewPasswordFieldsComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <mat-card class="sw-auth-card" appearance="outlined">
@@ -33,17 +34,7 @@ import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from './
             <input matInput formControlName="email" type="email" autocomplete="email" required />
             <mat-error>{{ message('E-mail', 'email') }}</mat-error>
           </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>Password</mat-label>
-            <input matInput formControlName="password" type="password" autocomplete="new-password" required />
-            <mat-hint>At least {{ minLength }} characters</mat-hint>
-            <mat-error>{{ message('Password', 'password') }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>Password again</mat-label>
-            <input matInput formControlName="confirm" type="password" autocomplete="new-password" required />
-            <mat-error>{{ message('Password again', 'confirm') }}</mat-error>
-          </mat-form-field>
+          <sw-new-password-fields label="Password" />
           <fieldset class="sw-fieldset">
             <legend>I will mostly</legend>
             <mat-radio-group formControlName="role" aria-label="Account type" class="sw-radio-column">
@@ -66,7 +57,6 @@ export class SignUpComponent {
   readonly next = input<string | undefined>();
   private readonly auth = inject(AuthService);
   private readonly router = inject(Router);
-  protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly busy = signal(false);
   protected readonly problem = signal('');
   protected readonly form = inject(FormBuilder).nonNullable.group(
@@ -80,7 +70,7 @@ export class SignUpComponent {
     { validators: sameAs('password', 'confirm') },
   );
 
-  protected message(label: string, name: 'displayName' | 'email' | 'password' | 'confirm'): string {
+  protected message(label: string, name: 'displayName' | 'email'): string {
     return fieldMessage(label, this.form.controls[name]);
   }
 
