@@ -218,7 +218,6 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
   return best.grid;
 }
 
-/** Whether a tile (which never turns) fits a sheet beside the test squares. */
 /**
  * Cuts of [0, length] into the fewest overlapping spans of at most `max` with the first (or the
  * last) span as long as allowed and the rest equal; none when one span is enough.
@@ -235,6 +234,7 @@ function longEndSpans(length: number, max: number, overlapIn: number): Array<Arr
   ];
 }
 
+/** Whether a tile (which never turns) fits a sheet beside the test squares. */
 function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
