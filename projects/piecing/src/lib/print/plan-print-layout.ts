@@ -159,9 +159,10 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
 
 /**
  * Picks the tiling that packs onto the fewest sheets (then the fewest tiles, then the least printed
- * area): the smallest grids that fit, and grids a row or column finer (smaller tiles can share
- * sheets), over the template unturned and turned a quarter. Each candidate's tiles, for every copy,
- * are packed on their own to count its sheets.
+ * area): the smallest equal grids that fit, equal grids a row or column finer (smaller tiles can
+ * share sheets), and grids whose first or last row and column are as large as a sheet takes (the
+ * rest of the template in fewer, smaller tiles), over the template unturned and turned a quarter.
+ * Each candidate's tiles, for every copy, are packed on their own to count its sheets.
  */
 function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid {
   let best: { grid: TileGrid; sheets: number; count: number; area: number } | null = null;
