@@ -8,8 +8,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
 import { toApiError, type FieldIssue } from '../core/api-error';
-import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from '../auth/form-errors';
-import { NewPasswordFieldsComponent } from '../auth/new-password-fields.component';
+import { applyServerIssues, fieldMessage } from '../auth/form-errors';
+import { NewPasswordFieldsComponent, newPasswordControls, newPasswordsMatch } from '../auth/new-password-fields.component';
 
 /** Change the password of the signed-in account; the server signs out its other sessions. */
 @Component({
@@ -51,10 +51,9 @@ export class ChangePasswordComponent {
   protected readonly form = inject(FormBuilder).nonNullable.group(
     {
       currentPassword: ['', Validators.required],
-      password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
-      confirm: ['', Validators.required],
+      ...newPasswordControls(),
     },
-    { validators: sameAs('password', 'confirm') },
+    { validators: newPasswordsMatch },
   );
 
   protected message(label: string, name: 'currentPassword'): string {

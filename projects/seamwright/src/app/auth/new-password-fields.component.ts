@@ -1,17 +1,29 @@
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
-import { ControlContainer, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
+import { ControlContainer, FormGroupDirective, ReactiveFormsModule, Validators, type ValidatorFn } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MIN_PASSWORD_LENGTH, fieldMessage } from './form-errors';
+import { MIN_PASSWORD_LENGTH, fieldMessage, sameAs } from './form-errors';
+
+/** The controls the fields below bind to, for the host's FormBuilder group (longest: bcrypt's 72 bytes). */
+export function newPasswordControls(): { password: [string, ValidatorFn[]]; confirm: [string, ValidatorFn] } {
+  return {
+    password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
+    confirm: ['', Validators.required],
+  };
+}
+
+/** The host group's validator: the two new passwords must match. */
+export const newPasswordsMatch = sameAs('password', 'confirm');
 
 /**
  * The "choose a password" pair of fields (the password and the same again) inside the host's form,
- * whose group holds controls named `password` and `confirm` (see `sameAs`). Used by sign-up, the
+ * whose group holds `newPasswordControls()` and `newPasswordsMatch`. Used by sign-up, the
  * reset link and the change-password screen.
  */
 @Component({
   selector: 'sw-new-password-fields',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule],
+  // Default, not OnPush: the errors shown follow the host form's submit, which no input of this component carries.
   changeDetection: ChangeDetectionStrategy.Default,
   // The controls belong to the host's form: errors show when it is submitted.
   viewProviders: [{ provide: ControlContainer, useFactory: () => inject(FormGroupDirective, { skipSelf: true }) }],

@@ -1,13 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
-import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
-import { NewPasswordFieldsComponent } from './new-password-fields.component';
+import { NewPasswordFieldsComponent, newPasswordControls, newPasswordsMatch } from './new-password-fields.component';
 import { toApiError } from '../core/api-error';
-import { MIN_PASSWORD_LENGTH, sameAs } from './form-errors';
 
 /** Choose a new password with the token from the reset e-mail. */
 @Component({
@@ -45,12 +44,10 @@ export class ResetConfirmComponent {
   protected readonly problem = signal('');
   protected readonly form = inject(FormBuilder).nonNullable.group(
     {
-      password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
-      confirm: ['', Validators.required],
+      ...newPasswordControls(),
     },
-    { validators: sameAs('password', 'confirm') },
+    { validators: newPasswordsMatch },
   );
-
 
   protected submit(): void {
     this.problem.set('');

@@ -8,10 +8,10 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthService } from '../core/auth.service';
-import { NewPasswordFieldsComponent } from './new-password-fields.component';
+import { NewPasswordFieldsComponent, newPasswordControls, newPasswordsMatch } from './new-password-fields.component';
 import { toApiError } from '../core/api-error';
 import { afterSignIn } from './after-sign-in';
-import { MIN_PASSWORD_LENGTH, applyServerIssues, fieldMessage, sameAs } from './form-errors';
+import { applyServerIssues, fieldMessage } from './form-errors';
 
 /** Create an account as a designer or a quilter. */
 @Component({
@@ -63,11 +63,10 @@ export class SignUpComponent {
     {
       displayName: ['', [Validators.required, Validators.maxLength(80)]],
       email: ['', [Validators.required, Validators.email]],
-      password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(72)]],
-      confirm: ['', Validators.required],
+      ...newPasswordControls(),
       role: ['designer' as 'designer' | 'quilter', Validators.required],
     },
-    { validators: sameAs('password', 'confirm') },
+    { validators: newPasswordsMatch },
   );
 
   protected message(label: string, name: 'displayName' | 'email'): string {
