@@ -95,6 +95,17 @@ export const revisions = sqliteTable(
       .references(() => users.id),
     /** The revision this one was restored from, when it is a restore. */
     restoredFrom: integer('restored_from'),
+    /** The editing session (one opening of the board) that sent this save; null for other saves. */
+    editSession: text('edit_session'),
+    /**
+     * Number of the first revision of the run of saves this one belongs to: consecutive saves of one
+     * editing session by one author share it, and History shows them as one row. Null (revisions from
+     * before grouping) counts as the revision's own number.
+     */
+    groupStart: integer('group_start'),
+    /** Set when the revision was saved as a named version; a version is always a row of its own. */
+    versionName: text('version_name'),
+    versionNote: text('version_note'),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('revisions_pattern_number_idx').on(t.patternId, t.number)],
