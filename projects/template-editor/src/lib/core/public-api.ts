@@ -36,3 +36,4 @@ export * from './editor/board-settings';
 export * from './editor/shortcuts';
 export * from './editor/board-editor';
 export * from './preview/pattern-preview-svg';
+export * from './preview/front-view-svg';

@@ -1,0 +1,194 @@
+import {
+  degToRad,
+  derivePatches,
+  expandRingRepeat,
+  flattenSectionOutline,
+  layoutStripSet,
+  locatePoint,
+  polygonBounds,
+  polygonCentroid,
+  type DerivedPatch,
+  type PatternDocument,
+  type Point,
+  type Section,
+} from '@seamwright/piecing';
+
+/** Options of {@link renderFrontViewSvg}. */
+export interface FrontViewSvgOptions {
+  /** Whether to write patch labels (A1, A2 …). Default true. */
+  labels?: boolean;
+}
+
+const INK = '#34312c';
+const LIGHT_INK = '#fffdf8';
+const EMPTY = '#ffffff';
+const PAPER = '#fffdf8';
+/** Line widths in inches: seams hairline-thin, section outlines twice as heavy. */
+const SEAM_IN = 0.015;
+const OUTLINE_IN = 0.035;
+/** Label text height in inches, largest and smallest. */
+const LABEL_MAX_IN = 0.3;
+const LABEL_MIN_IN = 0.08;
+
+const num = (v: number) => String(+v.toFixed(4));
+
+function escapeXml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c] ?? c);
+}
+
+function pathData(ring: readonly Point[]): string {
+  return `M${ring.map((p) => `${num(p.x)} ${num(p.y)}`).join('L')}Z`;
+}
+
+function pointsAttr(ring: readonly Point[]): string {
+  return ring.map((p) => `${num(p.x)},${num(p.y)}`).join(' ');
+}
+
+/**
+ * A point inside the ring to write its label at: the centroid when it lies inside (every convex
+ * patch), otherwise the middle of the widest inside stretch of a horizontal line across the ring.
+ */
+function labelPoint(ring: readonly Point[]): Point {
+  const c = polygonCentroid(ring);
+  if (locatePoint(c, ring) === 'inside') return c;
+  const b = polygonBounds(ring);
+  let best: Point = c;
+  let width = 0;
+  for (const fraction of [0.5, 0.35, 0.65, 0.2, 0.8]) {
+    const y = b.minY + (b.maxY - b.minY) * fraction;
+    const xs: number[] = [];
+    for (let i = 0, n = ring.length; i < n; i++) {
+      const p = ring[i];
+      const q = ring[(i + 1) % n];
+      if (p.y > y !== q.y > y) xs.push(p.x + ((y - p.y) * (q.x - p.x)) / (q.y - p.y));
+    }
+    xs.sort((u, v) => u - v);
+    for (let i = 0; i + 1 < xs.length; i += 2) {
+      if (xs[i + 1] - xs[i] > width) {
+        width = xs[i + 1] - xs[i];
+        best = { x: (xs[i] + xs[i + 1]) / 2, y };
+      }
+    }
+  }
+  return best;
+}
+
+/** Dark ink on light fabric, light ink on dark fabric (relative luminance of sRGB, WCAG 2 definition). */
+function inkOn(fill: string): string {
+  const channel = (hex: string) => {
+    const c = parseInt(hex, 16) / 255;
+    return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  };
+  const l = 0.2126 * channel(fill.slice(1, 3)) + 0.7152 * channel(fill.slice(3, 5)) + 0.0722 * channel(fill.slice(5, 7));
+  return l < 0.18 ? LIGHT_INK : INK;
+}
+
+/** The strips of a strip-set patch as bands long enough to cover it (drawn clipped to the patch). */
+function stripBands(patch: DerivedPatch): Array<{ fabricId: string; ring: Point[] }> {
+  if (!patch.stripSet) return [];
+  let layout;
+  try {
+    layout = layoutStripSet(patch.polygon, patch.stripSet);
+  } catch {
+    return [];
+  }
+  const b = polygonBounds(patch.polygon);
+  const reach = Math.hypot(b.maxX - b.minX, b.maxY - b.minY) + 1;
+  const a = degToRad(layout.axisAngleDeg);
+  const u = { x: Math.cos(a), y: Math.sin(a) };
+  const n = { x: -u.y, y: u.x };
+  const at = (along: number, across: number): Point => ({ x: layout.centre.x + u.x * along + n.x * across, y: layout.centre.y + u.y * along + n.y * across });
+  return layout.strips.map((st, i) => {
+    const from = i === 0 ? -reach : st.fromAcrossIn;
+    const to = i === layout.strips.length - 1 ? reach : st.toAcrossIn;
+    return { fabricId: st.fabricId, ring: [at(-reach, from), at(reach, from), at(reach, to), at(-reach, to)] };
+  });
+}
+
+function patchesOf(section: Section): DerivedPatch[] {
+  try {
+    return derivePatches(section).patches;
+  } catch {
+    return [];
+  }
+}
+
+function outlineOf(section: Section): Point[] {
+  try {
+    return flattenSectionOutline(section.geometry);
+  } catch {
+    return [];
+  }
+}
+
+/**
+ * The front view of a pattern as a stand-alone SVG file at true size: `width` and `height` in inches
+ * (the drawing area), a viewBox in inches, every patch one `<path data-patch="A1">` filled with its
+ * fabric (strip-set patches with their strips, clipped to the patch), ring-repeat copies, section
+ * outlines, and patch labels. Seen from the front, as the finished block is (see docs/pattern-format.md).
+ * Plain string output: works the same in a browser and in Node.
+ */
+export function renderFrontViewSvg(document: PatternDocument, options: FrontViewSvgOptions = {}): string {
+  const { widthIn, heightIn } = document.canvas;
+  const colours = new Map(document.fabrics.map((f) => [f.id, f.colour]));
+  const defs: string[] = [];
+  const body: string[] = [];
+  const labels: string[] = [];
+  let patchCount = 0;
+
+  for (const section of document.sections) {
+    const placements = section.ringRepeat ? expandRingRepeat(section) : [section];
+    placements.forEach((placement, copy) => {
+      const group: string[] = [];
+      for (const patch of patchesOf(placement)) {
+        patchCount++;
+        const id = `patch-${placement.id}-${patch.number}`;
+        const d = pathData(patch.polygon);
+        const bands = stripBands(patch);
+        const attrs = `id="${id}" data-patch="${escapeXml(patch.label)}" d="${d}" stroke="${INK}" stroke-width="${SEAM_IN}" stroke-linejoin="round"`;
+        let fill = EMPTY;
+        if (bands.length) {
+          defs.push(`<clipPath id="clip-${id}"><use href="#${id}"/></clipPath>`);
+          group.push(
+            `<g clip-path="url(#clip-${id})">${bands.map((band) => `<polygon points="${pointsAttr(band.ring)}" fill="${colours.get(band.fabricId) ?? EMPTY}"/>`).join('')}</g>`,
+          );
+          group.push(`<path ${attrs} fill="none"/>`);
+          fill = colours.get(patch.stripSet?.strips[0]?.fabricId ?? '') ?? EMPTY;
+        } else {
+          fill = (patch.fabricId && colours.get(patch.fabricId)) || EMPTY;
+          group.push(`<path ${attrs} fill="${fill}"/>`);
+        }
+        if (copy === 0 && options.labels !== false) {
+          const b = polygonBounds(patch.polygon);
+          const sizeIn = Math.max(LABEL_MIN_IN, Math.min(LABEL_MAX_IN, 0.3 * Math.min(b.maxX - b.minX, b.maxY - b.minY)));
+          const at = labelPoint(patch.polygon);
+          labels.push(
+            `<text x="${num(at.x)}" y="${num(at.y + sizeIn * 0.35)}" font-size="${num(sizeIn)}" fill="${inkOn(fill)}">${escapeXml(patch.label)}</text>`,
+          );
+        }
+      }
+      const outline = outlineOf(placement);
+      if (outline.length > 2) {
+        group.push(`<polygon points="${pointsAttr(outline)}" fill="none" stroke="${INK}" stroke-width="${OUTLINE_IN}" stroke-linejoin="round"/>`);
+      }
+      body.push(`<g data-section="${escapeXml(section.label)}" data-copy="${copy + 1}">${group.join('')}</g>`);
+    });
+  }
+
+  const title = escapeXml(document.title);
+  const description = `Front view, ${num(widthIn)} × ${num(heightIn)} in., ${document.sections.length} sections, ${patchCount} patches`;
+  return [
+    '<?xml version="1.0" encoding="UTF-8"?>',
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${num(widthIn)}in" height="${num(heightIn)}in" viewBox="0 0 ${num(widthIn)} ${num(heightIn)}" role="img" aria-label="${title}">`,
+    `<title>${title}</title>`,
+    `<desc>${description}</desc>`,
+    defs.length ? `<defs>${defs.join('')}</defs>` : '',
+    `<rect width="${num(widthIn)}" height="${num(heightIn)}" fill="${PAPER}"/>`,
+    ...body,
+    labels.length ? `<g font-family="Roboto, Arial, sans-serif" text-anchor="middle">${labels.join('')}</g>` : '',
+    '</svg>',
+  ]
+    .filter((line) => line !== '')
+    .join('\n')
+    .concat('\n');
+}
