@@ -8,6 +8,7 @@ import { derivePatches, splitSection } from './derive-patches';
 import { flattenSectionOutline } from './section-outline';
 import { locatePoint, polygonArea, polygonCentroid } from './polygon';
 import { findSelfCrossing } from './self-crossing';
+import { distanceToSegment } from './vector';
 
 // jsts (a port of the JTS Topology Suite) as an independent reference for areas of cut-off pieces.
 const factory = new GeometryFactory();
@@ -191,5 +192,60 @@ describe('derivePatches', () => {
       }),
       { numRuns: 200 },
     );
+  });
+
+  it('gives patches of a fan from one corner distinct identities and label points inside each', () => {
+    // Two seams fanning from (0,0) across an 8 in. square: three triangles-and-quads that share the
+    // first point and the last x, which once made two of them look the same.
+    const fan = section({
+      geometry: square(8),
+      seams: [
+        { id: 's1', a: { x: 0, y: 0 }, b: { x: 8, y: 2 } },
+        { id: 's2', a: { x: 0, y: 0 }, b: { x: 8, y: 4 } },
+      ],
+    });
+    const { patches, problems } = derivePatches(fan);
+    expect(problems).toEqual([]);
+    expect(patches.map((p) => p.index).sort()).toEqual([0, 1, 2]);
+    // Areas by the shoelace formula on the known vertices: 0.5·8·2, 0.5·8·2, 64 − 16.
+    const areaByIndex = [...patches].sort((a, b) => a.index - b.index).map((p) => polygonArea(p.polygon));
+    expect(areaByIndex.slice().sort((a, b) => a - b)).toEqual([8, 8, 48]);
+    for (const p of patches) {
+      expect(locatePoint(p.labelPoint, p.polygon)).toBe('inside');
+      for (const q of patches) if (q !== p) expect(locatePoint(p.labelPoint, q.polygon)).toBe('outside');
+    }
+    // The identity is the split order: the same split gives the same index for the same polygon.
+    const { polygons } = splitSection(fan);
+    for (const p of patches) expect(polygons[p.index]).toEqual(p.polygon);
+  });
+
+  it('keeps identities when numbers change, and numbers a given split without splitting again', () => {
+    const base = section({ seams: [{ id: 's1', a: { x: 2, y: 0 }, b: { x: 2, y: 6 } }] });
+    const split = splitSection(base);
+    const renumbered = { ...base, patches: [{ number: 1, anchor: { x: 4, y: 3 } }, { number: 2, anchor: { x: 1, y: 3 } }] };
+    const a = derivePatches(base).patches;
+    const b = derivePatches(renumbered, { split }).patches;
+    const byIndex = (ps: typeof a) => Object.fromEntries(ps.map((p) => [p.index, p.label]));
+    const right = split.polygons.findIndex((ring) => locatePoint({ x: 4, y: 3 }, ring) === 'inside');
+    // Unassigned patches are numbered in split order; the assignments swap the numbers, not the identities.
+    expect(byIndex(a)).toEqual({ 0: 'A1', 1: 'A2' });
+    expect(byIndex(b)).toEqual({ [right]: 'A1', [1 - right]: 'A2' });
+    expect(b.find((p) => p.label === 'A1')!.polygon).toEqual(a.find((p) => p.index === right)!.polygon);
+    expect(b.find((p) => p.index === 1)!.polygon).toBe(split.polygons[1]);
+  });
+
+  it('puts the label point of an L-shaped patch inside it, where the centroid is not', () => {
+    // An L: 6 × 6 square without its 5 × 5 top-right part. Centroid (by the composite-area formula)
+    // lies outside. The pole of inaccessibility is the centre of the largest circle inside: in the corner
+    // block, touching x = 0, y = 6 and the reflex corner (1, 5), so r = √2·(1 − r), r = 2 − √2.
+    const ell = section({
+      geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 1, y: 5 }, { x: 6, y: 5 }, { x: 6, y: 6 }, { x: 0, y: 6 }] },
+    });
+    const [p] = derivePatches(ell).patches;
+    expect(locatePoint(polygonCentroid(p.polygon), p.polygon)).toBe('outside');
+    expect(locatePoint(p.labelPoint, p.polygon)).toBe('inside');
+    const ring = p.polygon;
+    const clearance = Math.min(...ring.map((a, i) => distanceToSegment(p.labelPoint, a, ring[(i + 1) % ring.length])));
+    expect(Math.abs(clearance - (2 - Math.SQRT2))).toBeLessThan(0.01);
   });
 });

@@ -1,5 +1,6 @@
 import type { Point, Section, Seam, StripSet } from '../document/pattern-schema';
 import { CHORD_TOLERANCE_IN, GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN, SEAM_REACH_TOLERANCE_IN } from '../tolerance';
+import { patchLabelPoint } from './label-point';
 import { locatePoint, polygonArea, polygonBounds } from './polygon';
 import { flattenSectionOutline } from './section-outline';
 import { lineChords, splitRingAtChord, type Chord } from './split-polygon';
@@ -7,6 +8,13 @@ import { formatPoint } from './vector';
 
 /** One patch of a section, derived from its outline and seams. */
 export interface DerivedPatch {
+  /**
+   * The patch's identity: its place in the order the seams split the outline (0-based). It depends only
+   * on the outline and the seams, so it stays put while numbers, fabrics and strip sets change.
+   */
+  index: number;
+  /** Where the label goes and where a click finds the patch: the pole of inaccessibility, inside the patch. */
+  labelPoint: Point;
   /** Piecing-order number, 1 … */
   number: number;
   /** Section letter + number, as quilters write it: `A1`. */
@@ -35,11 +43,19 @@ export interface DerivePatchesOptions {
   toleranceIn?: number;
   /** How near a seam end must come to a patch edge to count as reaching it, in inches. */
   reachToleranceIn?: number;
+  /**
+   * The section's split, when the caller already has it (same outline and seams, e.g. cached by the
+   * board while only the assignments changed): derivePatches then numbers it without splitting again.
+   */
+  split?: SplitResult;
 }
 
 /** The patch polygons and problems of a section before numbering. */
 export interface SplitResult {
+  /** Patch outlines in split order (array position = the patch's `index`). */
   polygons: Point[][];
+  /** The label point of each polygon ({@link patchLabelPoint}). */
+  labelPoints: Point[];
   problems: SeamProblem[];
 }
 
@@ -57,10 +73,10 @@ export function splitSection(section: Pick<Section, 'geometry' | 'seams'>, optio
     polygons = result.polygons;
     problems.push(...result.problems);
   }
-  return { polygons, problems };
+  return { polygons, labelPoints: polygons.map((ring) => patchLabelPoint(ring)), problems };
 }
 
-function applySeam(polygons: Point[][], seam: Seam, reachIn: number): SplitResult {
+function applySeam(polygons: Point[][], seam: Seam, reachIn: number): Omit<SplitResult, 'labelPoints'> {
   const lengthIn = Math.hypot(seam.b.x - seam.a.x, seam.b.y - seam.a.y);
   if (!(lengthIn > GEOMETRY_EPSILON_IN)) {
     return { polygons, problems: [{ kind: 'seam-crosses-nothing', seamId: seam.id, point: seam.a, message: `seam "${seam.id}" has no length (both ends at ${formatPoint(seam.a)})` }] };
@@ -139,10 +155,14 @@ function lineMayCross(ring: readonly Point[], seam: Seam, lengthIn: number, reac
  * Never throws for a schema-valid section.
  */
 export function derivePatches(section: Section, options: DerivePatchesOptions = {}): { patches: DerivedPatch[]; problems: SeamProblem[] } {
-  const { polygons, problems } = splitSection(section, options);
+  const split = options.split ?? splitSection(section, options);
+  const { polygons, labelPoints } = split;
+  const problems = split.problems.slice();
   const assigned: Array<Section['patches'][number] | undefined> = polygons.map(() => undefined);
-  for (const assignment of section.patches) {
-    let index = polygons.findIndex((ring) => locatePoint(assignment.anchor, ring) === 'inside');
+  section.patches.forEach((assignment, k) => {
+    // Assignments written by the board come in split order: try the patch at the same place first.
+    let index = k < polygons.length && locatePoint(assignment.anchor, polygons[k]) === 'inside' ? k : -1;
+    if (index < 0) index = polygons.findIndex((ring) => locatePoint(assignment.anchor, ring) === 'inside');
     if (index < 0) index = polygons.findIndex((ring) => locatePoint(assignment.anchor, ring) === 'boundary');
     if (index < 0) {
       problems.push({
@@ -151,7 +171,7 @@ export function derivePatches(section: Section, options: DerivePatchesOptions = 
         point: assignment.anchor,
         message: `patch ${section.label}${assignment.number}: its anchor ${formatPoint(assignment.anchor)} lies in no patch of section ${section.label}`,
       });
-      continue;
+      return;
     }
     const holder = assigned[index];
     if (holder) {
@@ -161,10 +181,10 @@ export function derivePatches(section: Section, options: DerivePatchesOptions = 
         point: assignment.anchor,
         message: `patch ${section.label}${assignment.number}: its anchor ${formatPoint(assignment.anchor)} is in the same patch as ${section.label}${holder.number}'s; ${section.label}${assignment.number} is ignored`,
       });
-      continue;
+      return;
     }
     assigned[index] = assignment;
-  }
+  });
   const used = new Set(assigned.filter((a) => a !== undefined).map((a) => a.number));
   let next = 1;
   const patches: DerivedPatch[] = polygons.map((polygon, i) => {
@@ -176,7 +196,7 @@ export function derivePatches(section: Section, options: DerivePatchesOptions = 
       number = next;
       used.add(number);
     }
-    const patch: DerivedPatch = { number, label: `${section.label}${number}`, polygon };
+    const patch: DerivedPatch = { index: i, labelPoint: labelPoints[i], number, label: `${section.label}${number}`, polygon };
     if (assignment?.fabricId) patch.fabricId = assignment.fabricId;
     if (assignment?.stripSet) patch.stripSet = assignment.stripSet;
     return patch;

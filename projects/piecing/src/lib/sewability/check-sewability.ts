@@ -1,22 +1,25 @@
 import type { Section } from '../document/pattern-schema';
 import { derivePatches, type DerivedPatch } from '../geometry/derive-patches';
+
+/** What the sewability check reads of a patch: its number, label and outline. */
+export type SewabilityPatch = Pick<DerivedPatch, 'number' | 'label' | 'polygon'>;
 import { GEOMETRY_EPSILON_IN, SEAM_REACH_TOLERANCE_IN } from '../tolerance';
 import { canAdd, computeContacts, pointOnLine, type AddCheck, type ContactGraph } from './patch-contacts';
 import type { SewabilityFailureReason, SewabilityOptions, SewabilityVerdict, SewingStep } from './sewability-types';
 
 /** Patches to check: a section (its patches are derived) or patches derived already. */
-export type SewabilityInput = Section | readonly DerivedPatch[];
+export type SewabilityInput = Section | readonly SewabilityPatch[];
 
 /** The patches of the input, and the precomputed contacts between them. */
 export interface PreparedPatches {
-  patches: readonly DerivedPatch[];
+  patches: readonly SewabilityPatch[];
   graph: ContactGraph;
   gapIn: number;
 }
 
 /** Derives (when given a section) and precomputes what the check and the search need. */
 export function preparePatches(input: SewabilityInput, options: SewabilityOptions = {}): PreparedPatches {
-  const patches = Array.isArray(input) ? (input as readonly DerivedPatch[]) : derivePatches(input as Section, { toleranceIn: options.chordToleranceIn }).patches;
+  const patches = Array.isArray(input) ? (input as readonly SewabilityPatch[]) : derivePatches(input as Section, { toleranceIn: options.chordToleranceIn }).patches;
   const toleranceIn = options.toleranceIn ?? GEOMETRY_EPSILON_IN;
   const graph = computeContacts(
     patches.map((p) => p.polygon),

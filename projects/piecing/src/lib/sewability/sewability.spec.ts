@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Point, Section } from '../document/pattern-schema';
-import { derivePatches, type DerivedPatch } from '../geometry/derive-patches';
+import { derivePatches } from '../geometry/derive-patches';
+import type { SewabilityPatch } from './check-sewability';
 import { lineChords, splitRingAtChord } from '../geometry/split-polygon';
 import { polygonArea, polygonCentroid } from '../geometry/polygon';
 
@@ -9,7 +10,7 @@ import { checkSewability } from './check-sewability';
 import { findSewableOrder } from './find-sewable-order';
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];
-const patchesOf = (label: string, polygons: Point[][]): DerivedPatch[] => polygons.map((polygon, i) => ({ number: i + 1, label: `${label}${i + 1}`, polygon }));
+const patchesOf = (label: string, polygons: Point[][]): SewabilityPatch[] => polygons.map((polygon, i) => ({ number: i + 1, label: `${label}${i + 1}`, polygon }));
 
 /** 6 × 6 square: seam x = 2 first, then y = 3 across the right part. Patches A1 left, A2 top right, A3 bottom right. */
 const ell: Section = {
@@ -144,7 +145,7 @@ describe('findSewableOrder', () => {
 });
 
 /** Patches of a log cabin: each new strip covers one whole side of everything before it. */
-function logCabin(count: number): DerivedPatch[] {
+function logCabin(count: number): SewabilityPatch[] {
   let box = { x0: 0, y0: 0, x1: 1, y1: 1 };
   const polygons: Point[][] = [rect(0, 0, 1, 1)];
   for (let i = 1; i < count; i++) {
@@ -186,7 +187,7 @@ function splitAt(ring: Point[], a: Point, b: Point): Point[][] {
 }
 
 /** Brute force, independent of the search: extends sewable prefixes one patch at a time. */
-function someSewableOrder(patches: DerivedPatch[], prefix: number[]): boolean {
+function someSewableOrder(patches: SewabilityPatch[], prefix: number[]): boolean {
   if (prefix.length === patches.length) return true;
   return patches.some((p) => {
     if (prefix.includes(p.number)) return false;
