@@ -2,3 +2,4 @@ export * from './pattern-schema';
 export * from './parse-pattern';
 export * from './validate-geometry';
 export * from './json-schema';
+export * from './scale-pattern';
