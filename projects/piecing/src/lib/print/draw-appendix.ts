@@ -1,5 +1,5 @@
 import type { PatternDocument } from '../document/index';
-import { buildCuttingList, sectionStripSets, type CuttingList, type PatchStripSet } from '../fabrication/index';
+import { buildCuttingList, sectionStripSets, stripSetDisplayName, type CuttingList, type PatchStripSet } from '../fabrication/index';
 import { derivePatches } from '../geometry/index';
 import { PRINT_CAUTIONS } from './cautions';
 import type { PdfPen } from './pdf-pen';
@@ -97,7 +97,7 @@ function drawCuttingList(flow: SheetFlow, list: CuttingList): void {
     for (const st of f.stripSetStrips) {
       rows.push([
         { text: f.name, swatch: f.colour },
-        `strip set ${st.stripSetId}, strip ${st.stripIndex + 1}`,
+        `${setName(list, st.stripSetId)}, strip ${st.stripIndex + 1}`,
         `${st.stripCount} × ${fmtIn(st.cutWidthIn)} in. strip${st.stripCount === 1 ? '' : 's'} (finishes ${fmtIn(st.finishedWidthIn)} in.)`,
         '',
       ]);
@@ -123,7 +123,7 @@ function drawCuttingList(flow: SheetFlow, list: CuttingList): void {
         { header: 'For patches', widthIn: flow.width - 4.95 },
       ],
       list.stripSets.map((s) => [
-        s.name ?? s.stripSetId,
+        stripSetDisplayName(s.name, s.patchLabels),
         `${fmtIn(s.sewnWidthIn)} in.`,
         `${fmtIn(s.subCutLengthIn)} in.`,
         String(s.subCutCount),
@@ -133,6 +133,12 @@ function drawCuttingList(flow: SheetFlow, list: CuttingList): void {
     );
   }
   for (const problem of list.problems) flow.paragraph(`Check: ${problem.message}`, 8);
+}
+
+/** What quilters call the cutting list's strip set `listId`: its name, or the patches it fills. */
+function setName(list: CuttingList, listId: string): string {
+  const set = list.stripSets.find((s) => s.stripSetId === listId);
+  return set ? stripSetDisplayName(set.name, set.patchLabels) : 'Strip set';
 }
 
 /** Yards from eighths of a yard: 11 → "1⅜". */
@@ -160,7 +166,9 @@ function drawStripSet(
   const { layout } = set;
   const stripsIn = layout.strips.length * 0.28 + 0.75;
   const top = flow.block(stripsIn);
-  pen.text(`Strip set ${layout.stripSetId} — patch ${set.patchLabel}`, { x: top.x, y: top.y + 0.15 }, { sizePt: 9, bold: true });
+  // An unnamed set reads "Strip set for B1" already; a named one says which patch it fills.
+  const title = layout.stripSetName?.trim() ? `${layout.stripSetName.trim()} — patch ${set.patchLabel}` : stripSetDisplayName(null, [set.patchLabel]);
+  pen.text(title, { x: top.x, y: top.y + 0.15 }, { sizePt: 9, bold: true });
   pen.text(
     `sewn width ${fmtIn(layout.sewnWidthIn)} in. (finishes ${fmtIn(layout.finishedWidthIn)} in.) · sub-cut ${fmtIn(layout.subCutLengthIn)} in. long`,
     { x: top.x, y: top.y + 0.32 },

@@ -1,6 +1,7 @@
 import type { Fabric, PatternDocument, StripSet } from '../../document/pattern-schema';
 import { derivePatches } from '../../geometry/index';
 import { layoutStripSet } from '../strip-sets/strip-set-layout';
+import { stripSetDisplayName } from '../strip-sets/strip-set-name';
 import { YARDAGE_STEP_IN, INCHES_PER_YARD, roundUpToStep } from '../shared/rounding';
 import { PolygonOffsetter } from '../seam-allowance/clipper-offset';
 import { patchRoughCut } from './patch-rough-cut';
@@ -56,7 +57,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
         use.patchLabels.push(patch.label);
         stripSetUses.set(key, use);
         if (!layout.coversPatch) {
-          problems.push({ sectionId: section.id, patchLabel: patch.label, message: `strip set "${patch.stripSet.id}" is narrower than patch ${patch.label} across its strips: widen the outer strips` });
+          problems.push({ sectionId: section.id, patchLabel: patch.label, message: `${stripSetDisplayName(patch.stripSet.name, [patch.label])} is narrower than patch ${patch.label} across its strips: widen the outer strips` });
         }
         const row: CuttingListPatch = {
           sectionId: section.id,
@@ -128,7 +129,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
     const wof = Math.min(...use.stripSet.strips.map((s) => fabricsById.get(s.fabricId)?.usableWofIn ?? 42));
     let subCutsPerSet = Math.floor(wof / use.subCutLengthIn + 1e-9);
     if (subCutsPerSet < 1) {
-      problems.push({ sectionId: null, patchLabel: use.patchLabels[0] ?? null, message: `strip set "${listId}": its sub-cut of ${use.subCutLengthIn} in. is longer than the usable WOF (${wof} in.); sew the strips along the length of the fabric` });
+      problems.push({ sectionId: null, patchLabel: use.patchLabels[0] ?? null, message: `${stripSetDisplayName(use.stripSet.name, use.patchLabels)}: its sub-cut of ${use.subCutLengthIn} in. is longer than the usable WOF (${wof} in.); sew the strips along the length of the fabric` });
       subCutsPerSet = 1;
     }
     const setCount = Math.ceil(use.count / subCutsPerSet);

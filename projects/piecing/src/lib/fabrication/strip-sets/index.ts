@@ -1,2 +1,3 @@
 export * from './strip-set-layout';
 export * from './section-guide-lines';
+export * from './strip-set-name';

@@ -1,6 +1,7 @@
 import type { PatternDocument, Section } from '../../document/pattern-schema';
 import { derivePatches, type DerivedPatch } from '../../geometry/index';
 import { layoutStripSet, type StripSetLayout } from './strip-set-layout';
+import { stripSetDisplayName } from './strip-set-name';
 
 /** The strip set laid on one patch of a section, with its guide lines. */
 export interface PatchStripSet {
@@ -24,17 +25,18 @@ export function sectionStripSets(section: Section, allowanceIn = 0.25, marginIn 
     if (!patch.stripSet) continue;
     const layout = layoutStripSet(patch.polygon, patch.stripSet, allowanceIn, marginIn);
     const problems: string[] = [];
+    const name = stripSetDisplayName(layout.stripSetName, [patch.label]);
     if (!layout.coversPatch) {
       const span = layout.patchAcross.maxIn - layout.patchAcross.minIn;
       problems.push(
-        `strip set "${layout.stripSetId}" on patch ${patch.label} is ${fmt(layout.finishedWidthIn)} in. wide but the patch spans ` +
+        `${name} on patch ${patch.label} is ${fmt(layout.finishedWidthIn)} in. wide but the patch spans ` +
           `${fmt(span)} in. across its strips (from ${fmt(layout.patchAcross.minIn)} to ${fmt(layout.patchAcross.maxIn)} in. ` +
           `about its centre line): widen the outer strips or move the set`,
       );
     }
     for (const g of layout.guideLines) {
       if (g.segments.length === 0) {
-        problems.push(`strip seam ${g.seamNumber} of strip set "${layout.stripSetId}" falls outside patch ${patch.label}: a strip does not show`);
+        problems.push(`strip seam ${g.seamNumber} of ${name} falls outside patch ${patch.label}: a strip does not show`);
       }
     }
     out.push({ sectionId: section.id, patchLabel: patch.label, patchNumber: patch.number, layout, problems });

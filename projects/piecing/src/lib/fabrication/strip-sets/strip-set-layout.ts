@@ -30,6 +30,8 @@ export interface StripPlacement {
 /** A strip set placed on one patch: strips, guide lines and the sub-cut the patch takes. */
 export interface StripSetLayout {
   stripSetId: string;
+  /** The name the designer gave the set, or null (show {@link stripSetDisplayName}, never the id). */
+  stripSetName: string | null;
   /** Direction of the strips, degrees from +x towards +y. */
   axisAngleDeg: number;
   /** A point on the set's centre line: the patch centroid moved across by the set's offset. */
@@ -113,6 +115,7 @@ export function layoutStripSet(polygon: readonly Point[], stripSet: StripSet, al
   const patchExtentAlongIn = maxAlong - minAlong;
   return {
     stripSetId: stripSet.id,
+    stripSetName: stripSet.name ?? null,
     axisAngleDeg: stripSet.axisAngleDeg ?? 0,
     centre,
     strips,
