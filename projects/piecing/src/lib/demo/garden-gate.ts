@@ -51,7 +51,7 @@ export function buildGardenGate(): PatternDocument {
     },
   ];
   return {
-    formatVersion: 1,
+    formatVersion: 2,
     title: 'Garden Gate',
     displayUnit: 'in',
     seamAllowanceIn: 0.25,

@@ -24,7 +24,7 @@ const UP_DEG = -90; // straight up on screen (y points down)
  */
 export function buildOrchardWheel(): PatternDocument {
   return {
-    formatVersion: 1,
+    formatVersion: 2,
     title: 'Orchard Wheel',
     displayUnit: 'in',
     seamAllowanceIn: 0.25,

@@ -54,7 +54,7 @@ export function buildStressPattern(patchCount = 1000): PatternDocument {
     });
   }
   return {
-    formatVersion: 1,
+    formatVersion: 2,
     title: `Stress pattern, ${patchCount} patches`,
     displayUnit: 'in',
     seamAllowanceIn: 0.25,

@@ -80,7 +80,7 @@ describe('parsePatternDocument', () => {
   });
 
   it('explains a wrong or future format version and a non-object', () => {
-    expect(issuesOf((d) => (d.formatVersion = 2))).toEqual([{ path: 'formatVersion', message: 'version 2 is newer than this program reads (1)' }]);
+    expect(issuesOf((d) => (d.formatVersion = 3))).toEqual([{ path: 'formatVersion', message: 'version 3 is newer than this program reads (2)' }]);
     expect(issuesOf((d) => delete d.formatVersion)[0].path).toBe('formatVersion');
     expect(parsePatternDocument([])).toEqual({ ok: false, issues: [{ path: '', message: 'a pattern document must be a JSON object' }] });
     expect(() => readPatternDocument({ formatVersion: 1 })).toThrow(PatternValidationError);

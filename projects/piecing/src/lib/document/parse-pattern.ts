@@ -21,9 +21,13 @@ export class PatternValidationError extends Error {
 
 /**
  * Upgrades an older document, step by step, to the current format version. Each step takes a document
- * of version n and returns one of version n + 1. Version 1 is the first, so there are no steps yet.
+ * of version n and returns one of version n + 1 (a new object; the input is untouched).
  */
-const migrations: Record<number, (doc: Record<string, unknown>) => Record<string, unknown>> = {};
+const migrations: Record<number, (doc: Record<string, unknown>) => Record<string, unknown>> = {
+  // 1 → 2: straight sections may have curved edges (`bulges`). Every version 1 edge is straight, which
+  // version 2 says by leaving `bulges` out, so only the version changes.
+  1: (doc) => ({ ...doc, formatVersion: 2 }),
+};
 
 /** Brings a raw document up to {@link FORMAT_VERSION}, or returns an issue when it cannot. */
 export function migratePatternDocument(raw: unknown): { ok: true; value: unknown } | { ok: false; issues: DocumentIssue[] } {

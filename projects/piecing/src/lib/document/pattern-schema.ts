@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { validatePatternGeometry } from './validate-geometry';
 
 /**
- * The pattern document, format version 1.
+ * The pattern document, format version 2 (version 1 documents are upgraded on reading).
  *
  * Conventions (see docs/pattern-format.md):
  * - every length is in inches (`…In`), whatever unit the user prefers to see;
@@ -11,7 +11,10 @@ import { validatePatternGeometry } from './validate-geometry';
  * - angles are in degrees (`…Deg`), measured from +x towards +y (clockwise on screen);
  * - sections are drawn as seen from the front of the block; print sets mirror them.
  */
-export const FORMAT_VERSION = 1 as const;
+export const FORMAT_VERSION = 2 as const;
+
+/** Every format version this program reads; older ones are upgraded by `migratePatternDocument`. */
+export const READABLE_FORMAT_VERSIONS = [1, 2] as const;
 
 /** Largest coordinate or length accepted, in inches: no quilt section is larger. */
 export const MAX_SIZE_IN = 200;
@@ -47,11 +50,46 @@ export const fabricSchema = z.object({
   usableWofIn: positiveLength.default(42),
 });
 
-export const straightGeometrySchema = z.object({
-  kind: z.literal('straight'),
-  /** Outline vertices in order (either winding); the ring is closed implicitly. */
-  vertices: z.array(pointSchema).min(3).max(2000),
-});
+/**
+ * Largest |bulge| of a curved edge: 1 is a half circle. An edge curving further would wrap back past
+ * its own ends, which no foundation-pieced section needs (a rounder outline is a wedge or arc section).
+ */
+export const MAX_BULGE = 1;
+
+/**
+ * The curve of one edge of a straight section, as its bulge b = tan(θ/4), θ the signed angle the edge
+ * turns through about its circle's centre going from its first vertex to the next: 0 is a straight
+ * edge, ±1 a half circle. Positive θ turns the document's positive way (from +x towards +y, clockwise on
+ * screen), so a positive bulge lies to the left of the direction of travel as seen on screen; on an
+ * outline wound clockwise on screen that is outward (a convex edge), on one wound the other way inward.
+ */
+const bulge = finite
+  .min(-MAX_BULGE, { message: `must be between -${MAX_BULGE} and ${MAX_BULGE} (a half circle)` })
+  .max(MAX_BULGE, { message: `must be between -${MAX_BULGE} and ${MAX_BULGE} (a half circle)` });
+
+export const straightGeometrySchema = z
+  .object({
+    kind: z.literal('straight'),
+    /** Outline vertices in order (either winding); the ring is closed implicitly. */
+    vertices: z.array(pointSchema).min(3).max(2000),
+    /**
+     * Optional curve of each edge, one per vertex: edge i runs from vertex i to vertex i + 1 (the last
+     * back to the first). Missing means every edge is straight. See {@link MAX_BULGE} and `bulge` above.
+     */
+    bulges: z
+      .array(bulge)
+      .max(2000)
+      .optional()
+      .meta({
+        description:
+          'Curve of each edge, one per vertex: edge i runs from vertex i to vertex i + 1. Bulge = tan(θ/4), θ the signed angle the edge ' +
+          'turns about its circle\'s centre, positive from +x towards +y (clockwise on screen); 0 is straight, ±1 a half circle.',
+      }),
+  })
+  .refine((g) => g.bulges === undefined || g.bulges.length === g.vertices.length, {
+    message: 'must have one bulge per vertex (edge i runs from vertex i to vertex i + 1)',
+    path: ['bulges'],
+  });
 
 export const arcGeometrySchema = z
   .object({
@@ -144,7 +182,9 @@ export const referenceImageSchema = z.object({
 
 export const patternDocumentSchema = z
   .object({
-    formatVersion: z.literal(FORMAT_VERSION),
+    // A version 1 document is a version 2 document without curved edges, so the schema reads both and
+    // always answers the current version (parsePatternDocument upgrades step by step before this).
+    formatVersion: z.literal(READABLE_FORMAT_VERSIONS).transform((): typeof FORMAT_VERSION => FORMAT_VERSION),
     title: z.string().trim().min(1).max(120),
     /** The unit the user prefers to see; the document itself is always in inches. */
     displayUnit: z.enum(['in', 'cm']).default('in'),

@@ -1,10 +1,11 @@
 import { cleanRing } from '../geometry/clean-ring';
+import { distanceToEdge, flattenStraightEdges, hasCurvedEdges, sectionEdges, straightSectionSignedArea, type SectionEdge } from '../geometry/curved-edge';
 import { polygonArea } from '../geometry/polygon';
 import { findSelfCrossing } from '../geometry/self-crossing';
 import { formatPoint } from '../geometry/vector';
 import { GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN } from '../tolerance';
 // pattern-schema.ts imports this module too; MAX_SIZE_IN is read only inside functions, so the cycle is harmless.
-import { MAX_SIZE_IN, type Section } from './pattern-schema';
+import { MAX_SIZE_IN, type Section, type StraightGeometry } from './pattern-schema';
 
 /** A geometry problem in a document: a path (as in zod issues) and a message. */
 export interface GeometryIssue {
@@ -14,13 +15,16 @@ export interface GeometryIssue {
 
 /**
  * Checks what the field-by-field schema cannot: that straight outlines have an area and do not cross or
- * touch themselves (the message gives the coordinates), and that seams have a length. Arc and wedge
- * outlines are simple by construction once their radii and sweep are valid.
+ * touch themselves (the message gives the coordinates), that curved edges have two distinct ends and stay
+ * within the size limit, and that seams have a length. Arc and wedge outlines are simple by construction
+ * once their radii and sweep are valid.
  */
 export function validateSectionGeometry(section: Pick<Section, 'geometry' | 'seams'>, sectionIndex: number): GeometryIssue[] {
   const issues: GeometryIssue[] = [];
   const base: Array<string | number> = ['sections', sectionIndex];
-  if (section.geometry.kind === 'straight') {
+  if (section.geometry.kind === 'straight' && section.geometry.bulges && hasCurvedEdges(section.geometry)) {
+    issues.push(...validateCurvedOutline(section.geometry, [...base, 'geometry']));
+  } else if (section.geometry.kind === 'straight') {
     const ring = cleanRing(section.geometry.vertices);
     const path = [...base, 'geometry', 'vertices'];
     // Crossing first: a bow tie's two lobes cancel out and would look like "no area".
@@ -54,6 +58,59 @@ export function validateSectionGeometry(section: Pick<Section, 'geometry' | 'sea
     }
   });
   return issues;
+}
+
+/**
+ * A straight outline with curved edges: each curved edge joins two distinct points, no point of the
+ * curves reaches past the size limit, and the outline (curves flattened) neither crosses itself nor
+ * lacks area. A crossing is reported with its point and the document edges that meet there.
+ */
+function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | number>): GeometryIssue[] {
+  const edges = sectionEdges(geometry);
+  const issues: GeometryIssue[] = [];
+  for (const edge of edges) {
+    if (edge.bulge !== 0 && !edge.arc) {
+      issues.push({ path: [...path, 'bulges', edge.index], message: `edge ${edge.index} has no length (both ends at ${formatPoint(edge.from)}), so it cannot curve` });
+    }
+  }
+  if (issues.length > 0) return issues;
+  const points = flattenStraightEdges(geometry);
+  const far = points.find((p) => Math.abs(p.x) > MAX_SIZE_IN || Math.abs(p.y) > MAX_SIZE_IN);
+  if (far) {
+    const edge = nearestEdge(edges, far);
+    return [{ path: [...path, 'bulges', edge.index], message: `${describeEdge(edge)} reaches ${formatPoint(far)}, beyond the ±${MAX_SIZE_IN} in. limit` }];
+  }
+  const ring = cleanRing(points);
+  const crossing = ring.length >= 4 ? findSelfCrossing(ring) : null;
+  if (crossing) {
+    const n = ring.length;
+    const chordMid = (i: number) => ({ x: (ring[i].x + ring[(i + 1) % n].x) / 2, y: (ring[i].y + ring[(i + 1) % n].y) / 2 });
+    const a = nearestEdge(edges, chordMid(crossing.edgeA));
+    const b = nearestEdge(edges, chordMid(crossing.edgeB));
+    const meets = a.index === b.index ? 'meets itself' : `meets ${describeEdge(b)}`;
+    return [{ path: [...path, 'vertices'], message: `outline crosses itself at ${formatPoint(crossing.point)}: ${describeEdge(a)} ${meets}` }];
+  }
+  if (ring.length < 3 || Math.abs(straightSectionSignedArea(geometry)) < MIN_PATCH_AREA_SQ_IN || polygonArea(ring) < MIN_PATCH_AREA_SQ_IN) {
+    return [{ path: [...path, 'vertices'], message: 'outline has no area: its vertices and curves enclose nothing' }];
+  }
+  return [];
+}
+
+function nearestEdge(edges: readonly SectionEdge[], p: { x: number; y: number }): SectionEdge {
+  let best = edges[0];
+  let bestDistance = Infinity;
+  for (const edge of edges) {
+    const d = distanceToEdge(p, edge);
+    if (d < bestDistance) {
+      best = edge;
+      bestDistance = d;
+    }
+  }
+  return best;
+}
+
+function describeEdge(edge: SectionEdge): string {
+  return `${edge.arc ? 'curved ' : ''}edge ${edge.index} ${formatPoint(edge.from)}–${formatPoint(edge.to)}`;
 }
 
 /** {@link validateSectionGeometry} for every section of a document. */

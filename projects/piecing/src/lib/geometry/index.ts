@@ -9,6 +9,7 @@ export * from './clean-ring';
 export * from './self-crossing';
 export * from './arc';
 export * from './curved-edge';
+export * from './edge-circles';
 export * from './section-outline';
 export * from './ring-repeat';
 export * from './split-polygon';

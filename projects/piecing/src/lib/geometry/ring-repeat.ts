@@ -37,7 +37,12 @@ export function rotateGeometry(geometry: SectionGeometry, centre: Point, angleRa
   const turnAngle = (a: number) => (angleRad === 0 ? a : normaliseAngleDeg(a + angleDeg));
   switch (geometry.kind) {
     case 'straight':
-      return { kind: 'straight', vertices: geometry.vertices.map((v) => rotatePoint(v, centre, angleRad)) };
+      // A turn keeps the sense of every curve, so the bulges stay as they are.
+      return {
+        kind: 'straight',
+        vertices: geometry.vertices.map((v) => rotatePoint(v, centre, angleRad)),
+        ...(geometry.bulges ? { bulges: geometry.bulges.slice() } : {}),
+      };
     case 'arc':
       return {
         ...geometry,

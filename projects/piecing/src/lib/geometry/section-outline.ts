@@ -2,6 +2,7 @@ import type { ArcGeometry, Point, SectionGeometry, WedgeGeometry } from '../docu
 import { CHORD_TOLERANCE_IN } from '../tolerance';
 import { flattenArc } from './arc';
 import { cleanRing } from './clean-ring';
+import { flattenStraightEdges, straightSectionSignedArea } from './curved-edge';
 import { withPositiveWinding } from './polygon';
 import { degToRad } from './vector';
 
@@ -23,7 +24,8 @@ export function isFullTurn(sweepDeg: number): boolean {
  * Every outline comes back with positive signed area ({@link signedArea}: turning from +x towards +y,
  * clockwise on screen), whatever the winding of the document's vertices.
  *
- * - straight: the document vertices, cleaned (duplicates and collinear points dropped);
+ * - straight: the document vertices, curved edges flattened like arcs (their points on the exact arcs),
+ *   then cleaned (duplicates and collinear points dropped);
  * - arc: the outer arc from the start angle through the sweep, then the inner arc back;
  * - wedge: the centre, then the arc from the start angle through the sweep.
  *
@@ -36,7 +38,7 @@ export function isFullTurn(sweepDeg: number): boolean {
 export function flattenSectionOutline(geometry: SectionGeometry, toleranceIn = CHORD_TOLERANCE_IN): Point[] {
   switch (geometry.kind) {
     case 'straight':
-      return withPositiveWinding(cleanRing(geometry.vertices));
+      return withPositiveWinding(cleanRing(geometry.bulges ? flattenStraightEdges(geometry, toleranceIn) : geometry.vertices));
     case 'arc':
       return flattenArcOutline(geometry, toleranceIn);
     case 'wedge':
@@ -75,12 +77,14 @@ function flattenWedgeOutline(g: WedgeGeometry, toleranceIn: number): Point[] {
 }
 
 /**
- * Exact area of the section, in square inches: the polygon area for straight sections, θ(R² − r²)/2 for
- * arc sections and θr²/2 for wedges (θ in radians).
+ * Exact area of the section, in square inches: the polygon area for straight sections, plus or minus the
+ * circular segment r²(θ − sin θ)/2 of each curved edge (plus where it bulges out, minus where it bulges
+ * in), θ(R² − r²)/2 for arc sections and θr²/2 for wedges (θ in radians).
  */
 export function exactSectionArea(geometry: SectionGeometry): number {
   switch (geometry.kind) {
     case 'straight': {
+      if (geometry.bulges) return Math.abs(straightSectionSignedArea(geometry));
       const ring = cleanRing(geometry.vertices);
       let twice = 0;
       for (let i = 0; i < ring.length; i++) {

@@ -1,5 +1,5 @@
 import type { PatternDocument, Point, Section } from '../../document/pattern-schema';
-import { degToRad, expandRingRepeat, normaliseAngleDeg, pointOnCircle } from '../../geometry/index';
+import { degToRad, expandRingRepeat, normaliseAngleDeg, pointOnCircle, radToDeg, sectionEdges, straightSectionSignedArea } from '../../geometry/index';
 
 /** Default distance between matching marks along a shared curved edge, in inches. */
 export const DEFAULT_MATCHING_MARK_SPACING_IN = 2;
@@ -21,7 +21,9 @@ export interface MatchingMark {
   normal: Point;
   /** Which curved edge of this section: `outer` (the section lies inside the circle) or `inner`. */
   edge: 'outer' | 'inner';
-  /** Arc length from the start of this section's edge (at its start angle), in inches. */
+  /** On a straight section's curved edge: which edge (edge i runs from vertex i to vertex i + 1). */
+  edgeIndex?: number;
+  /** Arc length from the start of this section's edge (at its smaller angle), in inches. */
   alongEdgeIn: number;
   /**
    * `spacing`: one of the equally spaced marks of the shared stretch, on both neighbours.
@@ -71,13 +73,15 @@ interface CurvedEdge {
   startDeg: number;
   sweepDeg: number;
   edge: 'outer' | 'inner';
+  edgeIndex?: number;
   /** Ring-repeat count when the ring turns about this edge's centre (so the marks must repeat with it), else 1. */
   ringCount: number;
 }
 
 /**
  * Matching marks on every curved edge two sections share (design.md §5.8): arc sections sharing a radius,
- * a wedge's arc against an arc section's inner arc, ring-repeat copies included. Marks lie on a grid of
+ * a wedge's arc against an arc section's inner arc, a straight section's curved edge against either (a
+ * corner whose edge follows a ring), ring-repeat copies included. Marks lie on a grid of
  * equal arc-length steps around each shared circle, so both neighbours get marks at the same absolute
  * angles and they coincide when the sections are sewn together. The number of steps round the circle
  * is the one closest to circumference / `spacingIn` that is a multiple of every ring-repeat count on that
@@ -116,11 +120,26 @@ export function matchingMarks(document: Pick<PatternDocument, 'sections'>, optio
   return result;
 }
 
-function curvedEdges(section: Section): Array<Pick<CurvedEdge, 'centre' | 'radiusIn' | 'startDeg' | 'sweepDeg' | 'edge'>> {
+function curvedEdges(section: Section): Array<Pick<CurvedEdge, 'centre' | 'radiusIn' | 'startDeg' | 'sweepDeg' | 'edge' | 'edgeIndex'>> {
   const g = section.geometry;
   switch (g.kind) {
-    case 'straight':
-      return [];
+    case 'straight': {
+      // A curve turning the way the outline winds bulges out of the section: the section lies inside its circle.
+      const winding = Math.sign(straightSectionSignedArea(g));
+      return sectionEdges(g).flatMap((e) => {
+        if (!e.arc) return [];
+        const { centre, radiusIn, startRad, sweepRad } = e.arc;
+        const fromRad = sweepRad > 0 ? startRad : startRad + sweepRad;
+        return [{
+          centre,
+          radiusIn,
+          startDeg: normaliseAngleDeg(radToDeg(fromRad)),
+          sweepDeg: radToDeg(Math.abs(sweepRad)),
+          edge: Math.sign(sweepRad) === winding ? 'outer' : 'inner',
+          edgeIndex: e.index,
+        }];
+      });
+    }
     case 'wedge':
       return [{ centre: g.centre, radiusIn: g.radiusIn, startDeg: normaliseAngleDeg(g.startAngleDeg), sweepDeg: g.sweepDeg, edge: 'outer' }];
     case 'arc':
@@ -245,6 +264,7 @@ function makeMark(self: CurvedEdge, other: CurvedEdge, angleDeg: number, kind: M
     tangent: { x: -radial.y, y: radial.x },
     normal: self.edge === 'outer' ? radial : { x: -radial.x, y: -radial.y },
     edge: self.edge,
+    ...(self.edgeIndex !== undefined ? { edgeIndex: self.edgeIndex } : {}),
     alongEdgeIn: self.radiusIn * degToRad(along > self.sweepDeg + SAME_ANGLE_DEG ? along - 360 : along),
     kind,
     neighbourId: other.instanceId,
@@ -253,12 +273,16 @@ function makeMark(self: CurvedEdge, other: CurvedEdge, angleDeg: number, kind: M
 }
 
 function dedupeAndSort(marks: MatchingMark[]): void {
-  marks.sort((m, n) => (m.edge === n.edge ? m.alongEdgeIn - n.alongEdgeIn || (m.kind === n.kind ? 0 : m.kind === 'spacing' ? -1 : 1) : m.edge === 'outer' ? -1 : 1));
+  marks.sort((m, n) =>
+    m.edge === n.edge
+      ? (m.edgeIndex ?? 0) - (n.edgeIndex ?? 0) || m.alongEdgeIn - n.alongEdgeIn || (m.kind === n.kind ? 0 : m.kind === 'spacing' ? -1 : 1)
+      : m.edge === 'outer' ? -1 : 1,
+  );
   // Two neighbours meeting inside an edge both mark the point there, and a grid mark may fall on it: keep one.
   for (let k = marks.length - 1; k > 0; k--) {
     const m = marks[k];
     const prev = marks[k - 1];
-    if (m.edge === prev.edge && Math.abs(m.alongEdgeIn - prev.alongEdgeIn) < 1e-9 && m.kind === 'neighbour-seam') marks.splice(k, 1);
+    if (m.edge === prev.edge && m.edgeIndex === prev.edgeIndex && Math.abs(m.alongEdgeIn - prev.alongEdgeIn) < 1e-9 && m.kind === 'neighbour-seam') marks.splice(k, 1);
   }
 }
 
