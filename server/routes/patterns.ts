@@ -12,6 +12,7 @@ import { parseOr400 } from '../http/validate';
 import { canDesign, resolvePatternAccess } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { listPatterns } from '../services/pattern-list';
+import { editSessionSchema } from '../services/revision-groups';
 import {
   createPattern,
   findRevision,
@@ -30,7 +31,7 @@ const listQuery = z.strictObject({
   scope: z.enum(['all', 'owned', 'shared', 'trash']).default('all'),
 });
 const createBody = z.strictObject({ document: z.unknown() });
-const saveBody = z.strictObject({ baseRevision: z.number().int().min(1), document: z.unknown() });
+const saveBody = z.strictObject({ baseRevision: z.number().int().min(1), document: z.unknown(), editSession: editSessionSchema.optional() });
 const duplicateBody = z.strictObject({ title: z.string().trim().min(1).max(120).optional() });
 
 /** Patterns: list, create, read, save, duplicate, trash, restore, delete. */
@@ -65,7 +66,7 @@ export function patternsRouter(ctx: AppContext): Router {
     const user = currentUser(req);
     const body = parseOr400(saveBody, req.body);
     const document = validDocument(body.document);
-    const saved = db.transaction((tx) => saveRevision(tx, req.params.id, body.baseRevision, document, user.id), {
+    const saved = db.transaction((tx) => saveRevision(tx, req.params.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
     });
     sendPatternWithRevision(res, 200, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);

@@ -1,4 +1,5 @@
-import { count, desc, eq } from 'drizzle-orm';
+import { and, count, desc, eq, gte, lte } from 'drizzle-orm';
+import type { PatternDocument } from '@seamwright/piecing';
 import express, { type Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
@@ -8,13 +9,34 @@ import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
 import { resolvePatternAccess } from '../services/access';
-import { findRevision, ownerName, patternJson, revisionJsonText, revisionSummary, saveRevision, sendPatternWithRevision } from '../services/revisions';
+import { editSessionSchema, listRevisionGroups } from '../services/revision-groups';
+import {
+  findRevision,
+  ownerName,
+  patternJson,
+  revisionJsonText,
+  revisionSummary,
+  saveRevision,
+  sendPatternWithRevision,
+  validDocument,
+} from '../services/revisions';
 
-const listQuery = z.strictObject(pagingQuery);
 const numberParam = z.coerce.number().int().min(1).max(1_000_000_000);
+const listQuery = z
+  .strictObject({ ...pagingQuery, from: numberParam.optional(), to: numberParam.optional() })
+  .refine((q) => q.from === undefined || q.to === undefined || q.from <= q.to, { message: 'from must not be after to', path: ['from'] });
+const groupsQuery = z.strictObject(pagingQuery);
 const restoreBody = z.strictObject({ baseRevision: z.number().int().min(1) });
+const versionBody = z.strictObject({
+  baseRevision: z.number().int().min(1),
+  name: z.string().trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
+  note: z.string().trim().max(500, 'must be at most 500 characters').optional(),
+  /** The document to keep; the latest revision's when omitted. */
+  document: z.unknown().optional(),
+  editSession: editSessionSchema.optional(),
+});
 
-/** `/api/patterns/:id/revisions…`: list, read, restore. */
+/** `/api/patterns/:id/revisions…`: list, runs of saves, read, save a named version, restore. */
 export function revisionsRouter(ctx: AppContext): Router {
   const { db } = ctx;
   const router = express.Router({ mergeParams: true });
@@ -22,17 +44,49 @@ export function revisionsRouter(ctx: AppContext): Router {
   router.get('/', (req, res) => {
     const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
     const q = parseOr400(listQuery, req.query, 'Invalid query');
-    const total = db.select({ n: count() }).from(revisions).where(eq(revisions.patternId, pattern.id)).get()?.n ?? 0;
+    const where = and(
+      eq(revisions.patternId, pattern.id),
+      q.from === undefined ? undefined : gte(revisions.number, q.from),
+      q.to === undefined ? undefined : lte(revisions.number, q.to),
+    );
+    const total = db.select({ n: count() }).from(revisions).where(where).get()?.n ?? 0;
     const rows = db
       .select({ revision: revisions, authorName: users.displayName })
       .from(revisions)
       .innerJoin(users, eq(users.id, revisions.authorId))
-      .where(eq(revisions.patternId, pattern.id))
+      .where(where)
       .orderBy(desc(revisions.number))
       .limit(q.pageSize)
       .offset((q.page - 1) * q.pageSize)
       .all();
     res.json({ items: rows.map((r) => revisionSummary(r.revision, r.authorName)), total, page: q.page, pageSize: q.pageSize });
+  });
+
+  router.get('/groups', (req, res) => {
+    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const q = parseOr400(groupsQuery, req.query, 'Invalid query');
+    res.json(listRevisionGroups(db, pattern.id, q.page, q.pageSize));
+  });
+
+  router.post('/', (req, res) => {
+    const { pattern, access } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id, 'edit');
+    const user = currentUser(req);
+    const body = parseOr400(versionBody, req.body);
+    const document = body.document === undefined ? undefined : validDocument(body.document);
+    const version = { name: body.name, note: body.note ? body.note : null };
+    const saved = db.transaction(
+      (tx) => {
+        let doc = document;
+        if (!doc) {
+          const head = findRevision(tx, pattern.id);
+          if (!head) throw new HttpError(500, 'Pattern has no revision');
+          doc = JSON.parse(head.revision.document) as PatternDocument;
+        }
+        return saveRevision(tx, pattern.id, body.baseRevision, doc, user.id, { version, editSession: body.editSession });
+      },
+      { behavior: 'immediate' },
+    );
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   router.get('/:number', (req, res) => {
@@ -52,7 +106,7 @@ export function revisionsRouter(ctx: AppContext): Router {
       (tx) => {
         const found = findRevision(tx, pattern.id, number);
         if (!found) throw new HttpError(404, 'Revision not found');
-        return saveRevision(tx, pattern.id, body.baseRevision, JSON.parse(found.revision.document), user.id, number);
+        return saveRevision(tx, pattern.id, body.baseRevision, JSON.parse(found.revision.document), user.id, { restoredFrom: number });
       },
       { behavior: 'immediate' },
     );

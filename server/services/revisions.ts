@@ -6,6 +6,7 @@ import { patterns, revisions, users, type Pattern, type Revision } from '../db/s
 import { HttpError } from '../http/errors';
 import { newId } from '../auth/tokens';
 import type { Access } from './access';
+import { groupStartOf, versionJson } from './revision-groups';
 
 /** Validates a pattern document with the piecing library's schema; 400 with the bad paths otherwise. */
 export function validDocument(raw: unknown): PatternDocument {
@@ -26,6 +27,7 @@ export function revisionSummary(r: Revision, authorName: string) {
     number: r.number,
     author: { id: r.authorId, displayName: authorName },
     restoredFrom: r.restoredFrom,
+    version: versionJson(r),
     createdAt: r.createdAt.toISOString(),
   };
 }
@@ -102,10 +104,20 @@ export function createPattern(db: DbLike, ownerId: string, document: PatternDocu
     .get();
   const revision = db
     .insert(revisions)
-    .values({ id: newId(), patternId: id, number: 1, document: JSON.stringify(document), authorId: ownerId, createdAt: now })
+    .values({ id: newId(), patternId: id, number: 1, document: JSON.stringify(document), authorId: ownerId, groupStart: 1, createdAt: now })
     .returning()
     .get();
   return { pattern, revision };
+}
+
+/** What a save records beside its document. */
+export interface SaveExtras {
+  /** The revision a restore copies. */
+  restoredFrom?: number | null;
+  /** The editing session that sends the save (autosave from one opening of the board). */
+  editSession?: string | null;
+  /** Makes the revision a named version. */
+  version?: { name: string; note: string | null } | null;
 }
 
 /**
@@ -119,7 +131,7 @@ export function saveRevision(
   baseRevision: number,
   document: PatternDocument,
   authorId: string,
-  restoredFrom: number | null = null,
+  extras: SaveExtras = {},
 ) {
   const pattern = tx.select().from(patterns).where(eq(patterns.id, patternId)).get();
   if (!pattern) throw new HttpError(404, 'Pattern not found');
@@ -132,9 +144,29 @@ export function saveRevision(
   }
   const now = new Date();
   const number = pattern.headRevision + 1;
+  const head = tx
+    .select({ number: revisions.number, authorId: revisions.authorId, editSession: revisions.editSession, versionName: revisions.versionName, groupStart: revisions.groupStart })
+    .from(revisions)
+    .where(and(eq(revisions.patternId, patternId), eq(revisions.number, pattern.headRevision)))
+    .get();
+  const editSession = extras.editSession ?? null;
+  const version = extras.version ?? null;
+  const groupStart = groupStartOf(head, { number, authorId, editSession, named: version !== null });
   const revision = tx
     .insert(revisions)
-    .values({ id: newId(), patternId, number, document: JSON.stringify(document), authorId, restoredFrom, createdAt: now })
+    .values({
+      id: newId(),
+      patternId,
+      number,
+      document: JSON.stringify(document),
+      authorId,
+      restoredFrom: extras.restoredFrom ?? null,
+      editSession,
+      groupStart,
+      versionName: version?.name ?? null,
+      versionNote: version?.note ?? null,
+      createdAt: now,
+    })
     .returning()
     .get();
   const updated = tx
