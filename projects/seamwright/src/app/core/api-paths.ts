@@ -24,6 +24,7 @@ export const API = {
   restore: (id: string) => `${p(id)}/restore`,
   revisions: (id: string) => `${p(id)}/revisions`,
   revision: (id: string, n: number) => `${p(id)}/revisions/${n}`,
+  revisionGroups: (id: string) => `${p(id)}/revisions/groups`,
   restoreRevision: (id: string, n: number) => `${p(id)}/revisions/${n}/restore`,
   members: (id: string) => `${p(id)}/members`,
   member: (id: string, userId: string) => `${p(id)}/members/${encodeURIComponent(userId)}`,

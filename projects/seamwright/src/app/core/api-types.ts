@@ -68,7 +68,36 @@ export interface RevisionSummary {
   number: number;
   author: PersonRef;
   restoredFrom: number | null;
+  /** Set when the revision was saved as a named version. */
+  version: RevisionVersion | null;
   createdAt: string;
+}
+
+/** The name and note of a named version. */
+export interface RevisionVersion {
+  name: string;
+  note: string | null;
+}
+
+/** One row of History: consecutive saves of one editing session and author (a version or restore is alone). */
+export interface RevisionGroup {
+  first: number;
+  last: number;
+  count: number;
+  author: PersonRef;
+  startedAt: string;
+  endedAt: string;
+  version: RevisionVersion | null;
+  restoredFrom: number | null;
+}
+
+/** Saves a named version: `document` when the board holds unsaved changes, else the latest revision's. */
+export interface SaveVersionBody {
+  baseRevision: number;
+  name: string;
+  note?: string;
+  document?: PatternDocumentInput;
+  editSession?: string;
 }
 
 export interface Revision extends RevisionSummary {
@@ -84,6 +113,8 @@ export interface PatternWithRevision {
 export interface SaveRevisionBody {
   baseRevision: number;
   document: PatternDocumentInput;
+  /** The board's editing session: its consecutive saves form one row in History. */
+  editSession?: string;
 }
 
 /** The `details` of a 409 on save: the revision that was saved in between. */
