@@ -16,6 +16,7 @@ export * from './commands/section-handles';
 export * from './commands/section-commands';
 export * from './commands/order-commands';
 export * from './commands/pattern-commands';
+export * from './commands/pattern-settings';
 export * from './commands/reference-image';
 export * from './clipboard/section-clipboard';
 export * from './snapping/snapping';
