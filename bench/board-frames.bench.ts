@@ -15,7 +15,7 @@ import { ms, summarise, type BenchSection } from './bench-kit';
 const root = fileURLToPath(new URL('..', import.meta.url));
 
 const HARNESS = `
-import { BoardEditor, piecingGeometry } from '@seamwright/template-editor-core';
+import { BoardEditor } from '@seamwright/template-editor-core';
 import { BoardRenderer } from './projects/template-editor/src/lib/board/konva/board-renderer';
 import { readPatternDocument } from '@seamwright/piecing';
 
@@ -41,7 +41,7 @@ for (let r = 0; r < ROWS; r++) for (let c = 0; c < COLS; c++) {
 }
 const doc = readPatternDocument({ formatVersion: 1, title: 'Bench', canvas: { widthIn: 26, heightIn: 21 }, fabrics, sections });
 const container = document.getElementById('board');
-const editor = new BoardEditor(doc, piecingGeometry());
+const editor = new BoardEditor(doc);
 editor.setSize(1280, 900);
 const t0 = performance.now();
 const renderer = new BoardRenderer(container, editor);

@@ -2,14 +2,14 @@
  * Sewability benchmark: order search on 20-patch sections (design.md §5.3). Medians over repeated runs;
  * nothing here fails on a time.
  */
-import type { DerivedPatch, Point, Section } from '../projects/piecing/src/public-api';
+import type { SewabilityPatch, Point, Section } from '../projects/piecing/src/public-api';
 import { checkSewability, derivePatches, findSewableOrder, preparePatches, searchSubset } from '../projects/piecing/src/public-api';
 import { ms, timeRuns, type BenchSection } from './bench-kit';
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];
 
 /** A log cabin: each strip covers one whole side of all before it. Sewable; numbers shuffled. */
-function logCabin(count: number, label = 'A'): DerivedPatch[] {
+function logCabin(count: number, label = 'A'): SewabilityPatch[] {
   let box = { x0: 0, y0: 0, x1: 1, y1: 1 };
   const polygons: Point[][] = [rect(0, 0, 1, 1)];
   for (let i = 1; i < count; i++) {
@@ -28,7 +28,7 @@ function logCabin(count: number, label = 'A'): DerivedPatch[] {
 }
 
 /** 20 patches: a pinwheel (unsewable) beside 15 strips: the search must rule out every order. */
-function stuckSection(): DerivedPatch[] {
+function stuckSection(): SewabilityPatch[] {
   const pinwheel = [rect(0, 0, 2, 1), rect(2, 0, 3, 2), rect(1, 2, 3, 3), rect(0, 1, 1, 3), rect(1, 1, 2, 2)].map((p) => p.map((q) => ({ x: q.x - 10, y: q.y })));
   const strips = Array.from({ length: 15 }, (_, i) => rect(-7 + i * 0.5, 0, -6.5 + i * 0.5, 3));
   return [...pinwheel, ...strips].map((polygon, i) => ({ number: i + 1, label: `B${i + 1}`, polygon }));
@@ -39,7 +39,7 @@ function stuckSection(): DerivedPatch[] {
  * The strips can come off in very many orders, so the search visits thousands of subsets before it
  * can say that no order exists.
  */
-function hexagonWithStrips(): DerivedPatch[] {
+function hexagonWithStrips(): SewabilityPatch[] {
   const c = { x: 12, y: 12 };
   const v = Array.from({ length: 6 }, (_, i) => ({ x: c.x + 3 * Math.cos((i * Math.PI) / 3), y: c.y + 3 * Math.sin((i * Math.PI) / 3) }));
   const polygons: Point[][] = [
@@ -97,7 +97,7 @@ export default async function sewabilityBench(): Promise<BenchSection> {
   const stuck = stuckSection();
   const fan = arcFan();
   const fanPatches = derivePatches(fan).patches;
-  const cases: Array<{ name: string; patches: DerivedPatch[] }> = [
+  const cases: Array<{ name: string; patches: SewabilityPatch[] }> = [
     { name: 'log cabin, 20 patches (sewable)', patches: cabin },
     { name: 'arc section fan, 20 patches (sewable)', patches: fanPatches },
     { name: 'pinwheel + 15 strips, 20 patches (unsewable)', patches: stuck },

@@ -1,3 +1,4 @@
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference -- polylabel ships no types; this ambient file gives them
 /// <reference path="./polylabel.d.ts" />
 import polylabel from 'polylabel';
 import type { Point } from '../document/pattern-schema';

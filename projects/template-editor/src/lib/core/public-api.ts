@@ -3,8 +3,7 @@
  * tools as small state machines, snapping, view maths and copy/paste. No Angular, no Konva.
  * Imported inside the library by relative paths and in tests as '@seamwright/template-editor-core'.
  */
-export * from './analysis/geometry-port';
-export * from './analysis/piecing-geometry';
+export * from './analysis/board-patch';
 export * from './analysis/section-analysis';
 export * from './history/document-diff';
 export * from './history/history';

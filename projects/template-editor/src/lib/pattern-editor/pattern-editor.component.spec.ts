@@ -44,7 +44,7 @@ describe('PatternEditorComponent', () => {
 
   it('emits each change and the dirty state, and undo back to the loaded document is clean', async () => {
     const { fixture, host, session, el } = setUp();
-    session.apply('Add', (d) => addSection(d, { kind: 'wedge', centre: { x: 6, y: 6 }, radiusIn: 4, startAngleDeg: 0, sweepDeg: 45 }, session.editor.analysis.geometry).document);
+    session.apply('Add', (d) => addSection(d, { kind: 'wedge', centre: { x: 6, y: 6 }, radiusIn: 4, startAngleDeg: 0, sweepDeg: 45 }, session.editor.analysis).document);
     expect(host.changes).toHaveLength(1);
     expect(host.changes[0].sections[0].geometry.kind).toBe('wedge');
     expect(host.dirty).toEqual([true]);

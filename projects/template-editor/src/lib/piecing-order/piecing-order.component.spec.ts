@@ -10,13 +10,13 @@ const polar = (r: number, deg: number) => ({ x: C.x + r * Math.cos((deg * Math.P
 function setUp() {
   TestBed.configureTestingModule({ providers: [EditorSession] });
   const session = TestBed.inject(EditorSession);
-  const port = session.editor.analysis.geometry;
+  const analysis = session.editor.analysis;
   let doc = readPatternDocument({ formatVersion: 1, title: 'Order', canvas: { widthIn: 24, heightIn: 24 }, fabrics: [] });
-  const added = addSection(doc, { kind: 'arc', centre: C, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 90 }, port);
+  const added = addSection(doc, { kind: 'arc', centre: C, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 90 }, analysis);
   doc = added.document;
-  for (const deg of [22.5, 45, 67.5]) doc = addSeam(doc, added.sectionId, polar(5, deg), polar(8, deg), port);
+  for (const deg of [22.5, 45, 67.5]) doc = addSeam(doc, added.sectionId, polar(5, deg), polar(8, deg), analysis);
   const indexAt = (deg: number) => session.editor.analysis.patchAt(doc.sections[0], polar(6.5, deg))!.index;
-  doc = setPiecingOrder(doc, added.sectionId, [10, 30, 55, 80].map(indexAt), port);
+  doc = setPiecingOrder(doc, added.sectionId, [10, 30, 55, 80].map(indexAt), analysis);
   session.load(doc);
   session.editor.store.select({ sectionId: added.sectionId });
   const fixture = TestBed.createComponent(PiecingOrderComponent);

@@ -34,7 +34,7 @@ export class PiecingOrderComponent {
     if (!s || e.previousIndex === e.currentIndex || this.session.readOnly()) return;
     const list = [...this.ordered()];
     moveItemInArray(list, e.previousIndex, e.currentIndex);
-    this.session.apply('Reorder patches', (d) => setPiecingOrder(d, s.id, list.map((p) => p.index), this.session.editor.analysis.geometry));
+    this.session.apply('Reorder patches', (d) => setPiecingOrder(d, s.id, list.map((p) => p.index), this.session.editor.analysis));
   }
 
   protected move(p: BoardPatch, by: -1 | 1): void {

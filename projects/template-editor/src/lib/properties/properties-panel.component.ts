@@ -62,7 +62,7 @@ export class PropertiesPanelComponent {
       return;
     }
     this.geometryError.set(null);
-    this.session.apply('Change section', (d) => setSectionGeometry(d, s.id, parsed.data, this.session.editor.analysis.geometry));
+    this.session.apply('Change section', (d) => setSectionGeometry(d, s.id, parsed.data, this.session.editor.analysis));
   }
 
   protected changeCentre(axis: 'x' | 'y', value: number): void {
@@ -111,7 +111,7 @@ export class PropertiesPanelComponent {
     const s = this.section();
     const p = this.patch();
     if (!s || !p) return;
-    this.session.apply('Fill patch', (d) => setPatchFabric(d, s.id, p.index, fabricId ?? undefined, this.session.editor.analysis.geometry));
+    this.session.apply('Fill patch', (d) => setPatchFabric(d, s.id, p.index, fabricId ?? undefined, this.session.editor.analysis));
   }
 
   protected applyStripSet(widthsText: string, angleDeg: number): void {
@@ -133,7 +133,7 @@ export class PropertiesPanelComponent {
     const strips: StripSet = old
       ? { ...old, axisAngleDeg: angleDeg, strips: widths.map((w, i) => ({ fabricId: old.strips[i]?.fabricId ?? fabrics[i % fabrics.length].id, finishedWidthIn: w })) }
       : makeStripSet(fabrics, widths, angleDeg);
-    this.session.apply('Strip set', (d) => setPatchStripSet(d, s.id, p.index, strips, this.session.editor.analysis.geometry));
+    this.session.apply('Strip set', (d) => setPatchStripSet(d, s.id, p.index, strips, this.session.editor.analysis));
   }
 
   protected setStripFabric(stripIndex: number, fabricId: string): void {
@@ -142,13 +142,13 @@ export class PropertiesPanelComponent {
     if (!s || !p?.stripSet) return;
     const strips = p.stripSet.strips.map((st, i) => (i === stripIndex ? { ...st, fabricId } : st));
     const next = { ...p.stripSet, strips };
-    this.session.apply('Strip fabric', (d) => setPatchStripSet(d, s.id, p.index, next, this.session.editor.analysis.geometry));
+    this.session.apply('Strip fabric', (d) => setPatchStripSet(d, s.id, p.index, next, this.session.editor.analysis));
   }
 
   protected removeStripSet(): void {
     const s = this.section();
     const p = this.patch();
-    if (s && p) this.session.apply('Remove strip set', (d) => setPatchStripSet(d, s.id, p.index, undefined, this.session.editor.analysis.geometry));
+    if (s && p) this.session.apply('Remove strip set', (d) => setPatchStripSet(d, s.id, p.index, undefined, this.session.editor.analysis));
   }
 
   protected changePattern(change: Parameters<typeof setPatternSettings>[1]): void {

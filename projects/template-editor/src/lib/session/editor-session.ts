@@ -4,7 +4,6 @@ import {
   BoardEditor,
   applySewableOrder,
   findSection,
-  piecingGeometry,
   type BoardOrderSearch,
   type BoardSettings,
   type DocumentUpdate,
@@ -22,7 +21,7 @@ const PLACEHOLDER = readPatternDocument({ formatVersion: 1, title: 'Untitled pat
 @Injectable()
 export class EditorSession {
   /** The editor core. */
-  readonly editor = new BoardEditor(PLACEHOLDER, piecingGeometry());
+  readonly editor = new BoardEditor(PLACEHOLDER);
   private readonly snapshotState = signal<EditorSnapshot>(this.editor.store.snapshot());
   private readonly viewTick = signal(0);
 
@@ -125,7 +124,7 @@ export class EditorSession {
     if (!s || this.editor.readOnly) return null;
     let outcome: BoardOrderSearch | null = null;
     this.editor.store.apply('Apply sewable order', (d) => {
-      const r = applySewableOrder(d, s.id, this.editor.analysis.geometry);
+      const r = applySewableOrder(d, s.id, this.editor.analysis);
       outcome = r.result;
       return r.document;
     });

@@ -252,7 +252,7 @@ export class BoardRenderer {
         }
         return;
       case 'geometry': {
-        const outline = this.editor.analysis.geometry.outline(preview.geometry);
+        const outline = this.editor.analysis.outline(preview);
         this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat(outline), closed: true, fill: 'rgba(31,122,140,0.12)', stroke: BOARD_COLOURS.preview, strokeWidth: 2, dash: [6, 4], listening: false }));
         return;
       }

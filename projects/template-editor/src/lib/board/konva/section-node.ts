@@ -132,7 +132,7 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
       }),
     );
     if (o.allowanceIn !== null) {
-      const cut = o.analysis.geometry.cuttingLine(placement, o.allowanceIn);
+      const cut = o.analysis.cuttingLine(placement, o.allowanceIn);
       if (cut) copy.add(new Konva.Line({ name: 'cutting-line', points: flat(cut), closed: true, stroke: BOARD_COLOURS.cuttingLine, strokeWidth: 1, dash: [8, 4], strokeScaleEnabled: false, listening: false }));
     }
     if (copyIndex === 0) {
@@ -144,12 +144,12 @@ export function createSectionNode(section: Section, o: SectionNodeOptions): Konv
         if (o.selected && o.selectedPatchIndex === p.index) {
           copy.add(new Konva.Line({ name: 'selected-patch', points: flat(p.polygon), closed: true, fill: 'rgba(31,122,140,0.18)', stroke: BOARD_COLOURS.selection, strokeWidth: 1.5, dash: [4, 3], strokeScaleEnabled: false, listening: false }));
         }
-        addLabel(copy, p.label, p.anchor, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, o.selected ? Infinity : patchSizeIn(p.polygon));
+        addLabel(copy, p.label, p.labelPoint, o, failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, o.selected ? Infinity : patchSizeIn(p.polygon));
       }
       // The reason in words goes with the selected section; others show the outline and a red number.
       if (o.selected && !sewability.ok && sewability.reason) {
         const failing = patches.find((p) => p.number === sewability.failingPatchNumber);
-        const at = failing?.anchor ?? outline[0];
+        const at = failing?.labelPoint ?? outline[0];
         if (at) addReason(copy, sewability.reason, at, o);
       }
     }

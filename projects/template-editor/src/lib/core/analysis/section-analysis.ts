@@ -1,93 +1,123 @@
-import { expandRingRepeat, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
-import type { BoardPatch, BoardSewability, GeometryPort } from './geometry-port';
+import {
+  checkSewability,
+  derivePatches,
+  expandRingRepeat,
+  findSewableOrder,
+  flattenSectionOutline,
+  locatePoint,
+  sectionCuttingLine,
+  splitSection,
+  type PatternDocument,
+  type Point,
+  type Seam,
+  type Section,
+  type SectionGeometry,
+  type SplitResult,
+} from '@seamwright/piecing';
+import { toBoardPatch, type BoardOrderSearch, type BoardPatch, type BoardSewability } from './board-patch';
 
 interface Entry {
   placements?: Section[];
-  outline?: Point[];
-  problems?: string[];
-  /** What the port's `patches` answered: the patches, or what it threw. */
-  derived?: { patches: BoardPatch[] } | { error: unknown };
-  patches?: BoardPatch[];
+  /** What deriving the patches gave: the patches and problems, or what it threw. */
+  derived?: { patches: BoardPatch[]; problems: string[] } | { error: unknown };
   sewability?: BoardSewability;
 }
 
+type Split = SplitResult | { error: unknown };
+
 /**
- * Derived facts about sections (outline, patches, sewability), computed through the geometry port
- * once per section object. Sections are immutable, so a changed section is a new object and gets new
- * facts; an unchanged one keeps its cached ones.
+ * Derived facts about sections (outline, patches, problems, sewability), computed by
+ * `@seamwright/piecing` once per section object. Sections are immutable, so a changed section is a new
+ * object and gets new facts; an unchanged one keeps its cached ones. The split of an outline by its
+ * seams is kept per (geometry, seams) pair, so a command that only changes numbers, fabrics or strip
+ * sets (or a drag frame that first derives the bare section, then the assigned one) splits once.
  */
 export class SectionAnalysis {
-  private readonly cache = new WeakMap<Section, Entry>();
-  /**
-   * The geometry port for commands and tools: the given one, except that `patches` is derived once per
-   * section object (a command on a section the board has drawn reuses the board's patches; it throws
-   * again what it threw the first time).
-   */
-  readonly geometry: GeometryPort;
+  private readonly entries = new WeakMap<Section, Entry>();
+  private readonly outlines = new WeakMap<SectionGeometry, Point[]>();
+  private readonly splits = new WeakMap<SectionGeometry, WeakMap<readonly Seam[], Split>>();
+  private splitCount = 0;
 
-  constructor(port: GeometryPort) {
-    this.geometry = {
-      outline: (geometry) => port.outline(geometry),
-      patches: (section) => {
-        const e = this.entry(section);
-        if (!e.derived) {
-          try {
-            e.derived = { patches: port.patches(section) };
-          } catch (error) {
-            e.derived = { error };
-          }
-        }
-        if ('error' in e.derived) throw e.derived.error;
-        return e.derived.patches;
-      },
-      problems: (section) => port.problems(section),
-      sewability: (section, patches) => port.sewability(section, patches),
-      findOrder: (section) => port.findOrder(section),
-      cuttingLine: (section, allowanceIn) => port.cuttingLine(section, allowanceIn),
-      contains: (ring, p) => port.contains(ring, p),
-    };
+  /** How many times an outline was split by its seams (the costly step), for tests and the benchmark. */
+  get splitsMade(): number {
+    return this.splitCount;
   }
 
   private entry(section: Section): Entry {
-    let e = this.cache.get(section);
+    let e = this.entries.get(section);
     if (!e) {
       e = {};
-      this.cache.set(section, e);
+      this.entries.set(section, e);
     }
     return e;
   }
 
-  /** The flattened outline. */
-  outline(section: Section): Point[] {
-    const e = this.entry(section);
-    return (e.outline ??= this.geometry.outline(section.geometry));
+  /** The flattened outline of a section. */
+  outline(section: Pick<Section, 'geometry'>): Point[] {
+    let o = this.outlines.get(section.geometry);
+    if (!o) {
+      o = flattenSectionOutline(section.geometry);
+      this.outlines.set(section.geometry, o);
+    }
+    return o;
   }
 
-  /** The derived, numbered patches. */
-  patches(section: Section): BoardPatch[] {
-    const e = this.entry(section);
-    if (!e.patches) {
+  private split(section: Section): SplitResult {
+    let bySeams = this.splits.get(section.geometry);
+    if (!bySeams) {
+      bySeams = new WeakMap();
+      this.splits.set(section.geometry, bySeams);
+    }
+    let s = bySeams.get(section.seams);
+    if (!s) {
+      this.splitCount++;
       try {
-        e.patches = this.geometry.patches(section);
-      } catch {
-        // A half-drawn or invalid outline has no patches yet; the board shows the outline alone.
-        e.patches = [];
+        s = splitSection(section);
+      } catch (error) {
+        s = { error };
+      }
+      bySeams.set(section.seams, s);
+    }
+    if ('error' in s) throw s.error;
+    return s;
+  }
+
+  /**
+   * The derived, numbered patches in split order (array position = `index`); throws what piecing threw
+   * for an outline that cannot be split (commands then keep what they had).
+   */
+  derive(section: Section): BoardPatch[] {
+    const e = this.entry(section);
+    if (!e.derived) {
+      try {
+        const { patches, problems } = derivePatches(section, { split: this.split(section) });
+        e.derived = { patches: patches.map(toBoardPatch).sort((p, q) => p.index - q.index), problems: problems.map((p) => p.message) };
+      } catch (error) {
+        e.derived = { error };
       }
     }
-    return e.patches;
+    if ('error' in e.derived) throw e.derived.error;
+    return e.derived.patches;
+  }
+
+  /** The derived patches in split order, or none for a half-drawn or invalid outline (the board shows the outline alone). */
+  patches(section: Section): BoardPatch[] {
+    try {
+      return this.derive(section);
+    } catch {
+      return [];
+    }
   }
 
   /** Problems with the seams or patch assignments, in words. */
   problems(section: Section): string[] {
-    const e = this.entry(section);
-    if (!e.problems) {
-      try {
-        e.problems = this.geometry.problems(section);
-      } catch (err) {
-        e.problems = [err instanceof Error ? err.message : String(err)];
-      }
+    try {
+      this.derive(section);
+    } catch (err) {
+      return [err instanceof Error ? err.message : String(err)];
     }
-    return e.problems;
+    const d = this.entry(section).derived;
+    return d && 'problems' in d ? d.problems : [];
   }
 
   /** The sewability check of the current order. */
@@ -95,12 +125,31 @@ export class SectionAnalysis {
     const e = this.entry(section);
     if (!e.sewability) {
       try {
-        e.sewability = this.geometry.sewability(section, this.patches(section));
+        const verdict = checkSewability([...this.derive(section)].sort((a, b) => a.number - b.number));
+        e.sewability = verdict.sewable || !verdict.failure ? { ok: true } : { ok: false, failingPatchNumber: verdict.failure.patchNumber, reason: verdict.failure.message };
       } catch (err) {
         e.sewability = { ok: false, reason: err instanceof Error ? err.message : String(err) };
       }
     }
     return e.sewability;
+  }
+
+  /** A sewable order for the section (patch numbers in sewing order), or why there is none. */
+  findOrder(section: Section): BoardOrderSearch {
+    const r = findSewableOrder(section);
+    if (r.found) return { ok: true, order: r.order };
+    return r.suggestion
+      ? { ok: false, reason: `${r.message} ${r.suggestion.message}`.trim(), suggestedSplit: { a: r.suggestion.from, b: r.suggestion.to } }
+      : { ok: false, reason: r.message };
+  }
+
+  /** The cutting line (outline + seam allowance) of a section, or null when it cannot be made. */
+  cuttingLine(section: Section, allowanceIn: number): Point[] | null {
+    try {
+      return sectionCuttingLine(section, allowanceIn);
+    } catch {
+      return null;
+    }
   }
 
   /** The section as drawn followed by its ring-repeat copies (just the section without a repeat). */
@@ -117,8 +166,8 @@ export class SectionAnalysis {
     const copies = options.copies ?? true;
     for (let i = document.sections.length - 1; i >= 0; i--) {
       const s = document.sections[i];
-      if (this.geometry.contains(this.outline(s), p)) return s;
-      if (copies && s.ringRepeat && this.placements(s).slice(1).some((c) => this.geometry.contains(this.outline(c), p))) return s;
+      if (holds(this.outline(s), p)) return s;
+      if (copies && s.ringRepeat && this.placements(s).slice(1).some((c) => holds(this.outline(c), p))) return s;
     }
     return null;
   }
@@ -128,12 +177,18 @@ export class SectionAnalysis {
    * that the copied one repeats (same split order, so the same index).
    */
   patchAt(section: Section, p: Point): BoardPatch | null {
-    for (const patch of this.patches(section)) if (this.geometry.contains(patch.polygon, p)) return patch;
-    if (!section.ringRepeat) return null;
     const own = this.patches(section);
+    const inside = own.find((patch) => locatePoint(p, patch.polygon) === 'inside') ?? own.find((patch) => holds(patch.polygon, p));
+    if (inside) return inside;
+    if (!section.ringRepeat) return null;
     for (const copy of this.placements(section).slice(1)) {
-      for (const patch of this.patches(copy)) if (this.geometry.contains(patch.polygon, p)) return own[patch.index] ?? null;
+      for (const patch of this.patches(copy)) if (holds(patch.polygon, p)) return own[patch.index] ?? null;
     }
     return null;
   }
+}
+
+/** Whether `p` lies inside or on `ring`. */
+function holds(ring: readonly Point[], p: Point): boolean {
+  return locatePoint(p, ring) !== 'outside';
 }

@@ -1,15 +1,16 @@
 import type { PatternDocument } from '@seamwright/piecing';
-import type { BoardOrderSearch, GeometryPort } from '../analysis/geometry-port';
+import type { BoardOrderSearch } from '../analysis/board-patch';
+import type { SectionAnalysis } from '../analysis/section-analysis';
 import { applyOrderByNumbers, findSection } from './section-commands';
 
 /**
  * Looks for a sewable order of a section and applies it when there is one. Without one the document
  * stays as it is and the result carries the reason and, when the search found it, a suggested split.
  */
-export function applySewableOrder(document: PatternDocument, sectionId: string, port: GeometryPort): { document: PatternDocument; result: BoardOrderSearch } {
+export function applySewableOrder(document: PatternDocument, sectionId: string, analysis: SectionAnalysis): { document: PatternDocument; result: BoardOrderSearch } {
   const section = findSection(document, sectionId);
   if (!section) return { document, result: { ok: false, reason: 'no such section' } };
-  const result = port.findOrder(section);
+  const result = analysis.findOrder(section);
   if (!result.ok) return { document, result };
-  return { document: applyOrderByNumbers(document, sectionId, result.order, port), result };
+  return { document: applyOrderByNumbers(document, sectionId, result.order, analysis), result };
 }

@@ -1,8 +1,9 @@
-import type { PatchAssignment, Section } from '@seamwright/piecing';
-import type { BoardPatch, GeometryPort } from '../analysis/geometry-port';
+import { locatePoint, type PatchAssignment, type Section } from '@seamwright/piecing';
+import type { BoardPatch } from '../analysis/board-patch';
+import type { SectionAnalysis } from '../analysis/section-analysis';
 
 function assignmentOf(p: BoardPatch, number: number): PatchAssignment {
-  const a: PatchAssignment = { number, anchor: { x: p.anchor.x, y: p.anchor.y } };
+  const a: PatchAssignment = { number, anchor: { x: p.labelPoint.x, y: p.labelPoint.y } };
   if (p.fabricId) a.fabricId = p.fabricId;
   if (p.stripSet) a.stripSet = p.stripSet;
   return a;
@@ -19,17 +20,17 @@ export function materialiseAssignments(patches: readonly BoardPatch[]): PatchAss
  * after a split, both halves inherit the fabric of the patch they came from, the first keeps its number
  * and the second takes the next free one.
  */
-export function syncAssignments(geometry: GeometryPort, before: Section | null, after: Section): PatchAssignment[] {
+export function syncAssignments(analysis: SectionAnalysis, before: Section | null, after: Section): PatchAssignment[] {
   let fresh: BoardPatch[];
   try {
-    fresh = geometry.patches({ ...after, patches: [] });
+    fresh = analysis.derive({ ...after, patches: [] });
   } catch {
     return after.patches;
   }
   if (!before) return materialiseAssignments(fresh);
   let old: BoardPatch[];
   try {
-    old = geometry.patches(before);
+    old = analysis.derive(before);
   } catch {
     return materialiseAssignments(fresh);
   }
@@ -39,7 +40,7 @@ export function syncAssignments(geometry: GeometryPort, before: Section | null, 
   const usedNumbers = new Set<number>();
   let next = Math.max(0, ...old.map((p) => p.number)) + 1;
   const out = fresh.map((p) => {
-    const parent = old.find((o) => geometry.contains(o.polygon, p.anchor));
+    const parent = old.find((o) => locatePoint(p.labelPoint, o.polygon) !== 'outside');
     let number: number;
     if (parent && !usedNumbers.has(parent.number)) number = parent.number;
     else number = next++;

@@ -1,5 +1,5 @@
 import type { Fabric, PatternDocument, Point, RingRepeat, Section, SectionGeometry, StripSet } from '@seamwright/piecing';
-import type { GeometryPort } from '../analysis/geometry-port';
+import type { SectionAnalysis } from '../analysis/section-analysis';
 import { newId, nextSectionLabel } from './ids';
 import { materialiseAssignments, syncAssignments } from './patch-assignments';
 import { moveHandle, translateGeometry, type SectionHandle } from './section-handles';
@@ -28,26 +28,26 @@ function replaceSection(document: PatternDocument, sectionId: string, change: (s
 export function addSection(
   document: PatternDocument,
   geometry: SectionGeometry,
-  geometryPort: GeometryPort,
+  analysis: SectionAnalysis,
 ): { document: PatternDocument; sectionId: string } {
   const section: Section = { id: newId('s'), label: nextSectionLabel(document), geometry, seams: [], patches: [] };
-  section.patches = syncAssignments(geometryPort, null, section);
+  section.patches = syncAssignments(analysis, null, section);
   return { document: { ...document, sections: [...document.sections, section] }, sectionId: section.id };
 }
 
 /** Replaces a section's geometry; patch numbers, fabrics and strip sets follow. */
-export function setSectionGeometry(document: PatternDocument, sectionId: string, geometry: SectionGeometry, port: GeometryPort): PatternDocument {
+export function setSectionGeometry(document: PatternDocument, sectionId: string, geometry: SectionGeometry, analysis: SectionAnalysis): PatternDocument {
   return replaceSection(document, sectionId, (s) => {
     const next = { ...s, geometry };
-    return { ...next, patches: syncAssignments(port, s, next) };
+    return { ...next, patches: syncAssignments(analysis, s, next) };
   });
 }
 
 /** Moves vertex `index` of a straight section to `point`. */
-export function moveVertex(document: PatternDocument, sectionId: string, index: number, point: Point, port: GeometryPort): PatternDocument {
+export function moveVertex(document: PatternDocument, sectionId: string, index: number, point: Point, analysis: SectionAnalysis): PatternDocument {
   const s = findSection(document, sectionId);
   if (!s || s.geometry.kind !== 'straight') return document;
-  return setSectionGeometry(document, sectionId, moveHandle(s.geometry, { kind: 'vertex', index }, point), port);
+  return setSectionGeometry(document, sectionId, moveHandle(s.geometry, { kind: 'vertex', index }, point), analysis);
 }
 
 /** Moves any handle of a section (vertex, centre, radius, angle) to `point`. */
@@ -56,11 +56,11 @@ export function moveSectionHandle(
   sectionId: string,
   handle: Pick<SectionHandle, 'kind' | 'index'>,
   point: Point,
-  port: GeometryPort,
+  analysis: SectionAnalysis,
 ): PatternDocument {
   const s = findSection(document, sectionId);
   if (!s) return document;
-  return setSectionGeometry(document, sectionId, moveHandle(s.geometry, handle, point), port);
+  return setSectionGeometry(document, sectionId, moveHandle(s.geometry, handle, point), analysis);
 }
 
 /** Moves a whole section (outline, seams, patch anchors) by (dx, dy). */
@@ -82,19 +82,19 @@ export function deleteSection(document: PatternDocument, sectionId: string): Pat
 }
 
 /** Adds a straight seam a–b to a section; the patch it crosses splits in two. */
-export function addSeam(document: PatternDocument, sectionId: string, a: Point, b: Point, port: GeometryPort): PatternDocument {
+export function addSeam(document: PatternDocument, sectionId: string, a: Point, b: Point, analysis: SectionAnalysis): PatternDocument {
   return replaceSection(document, sectionId, (s) => {
     const next = { ...s, seams: [...s.seams, { id: newId('m'), a: { x: a.x, y: a.y }, b: { x: b.x, y: b.y } }] };
-    return { ...next, patches: syncAssignments(port, s, next) };
+    return { ...next, patches: syncAssignments(analysis, s, next) };
   });
 }
 
 /** Removes a seam from a section; the two patches it split join again. */
-export function deleteSeam(document: PatternDocument, sectionId: string, seamId: string, port: GeometryPort): PatternDocument {
+export function deleteSeam(document: PatternDocument, sectionId: string, seamId: string, analysis: SectionAnalysis): PatternDocument {
   return replaceSection(document, sectionId, (s) => {
     if (!s.seams.some((m) => m.id === seamId)) return s;
     const next = { ...s, seams: s.seams.filter((m) => m.id !== seamId) };
-    return { ...next, patches: syncAssignments(port, s, next) };
+    return { ...next, patches: syncAssignments(analysis, s, next) };
   });
 }
 
@@ -116,11 +116,11 @@ function changePatch(
   document: PatternDocument,
   sectionId: string,
   patchIndex: number,
-  port: GeometryPort,
+  analysis: SectionAnalysis,
   change: (p: ReturnType<typeof materialiseAssignments>[number]) => ReturnType<typeof materialiseAssignments>[number],
 ): PatternDocument {
   return replaceSection(document, sectionId, (s) => {
-    const patches = materialiseAssignments(port.patches(s));
+    const patches = materialiseAssignments(analysis.derive(s));
     if (patchIndex < 0 || patchIndex >= patches.length) return s;
     patches[patchIndex] = change(patches[patchIndex]);
     return { ...s, patches };
@@ -128,17 +128,17 @@ function changePatch(
 }
 
 /** Fills a patch with a fabric of the pattern (undefined clears it). */
-export function setPatchFabric(document: PatternDocument, sectionId: string, patchIndex: number, fabricId: string | undefined, port: GeometryPort): PatternDocument {
+export function setPatchFabric(document: PatternDocument, sectionId: string, patchIndex: number, fabricId: string | undefined, analysis: SectionAnalysis): PatternDocument {
   if (fabricId && !document.fabrics.some((f) => f.id === fabricId)) return document;
-  return changePatch(document, sectionId, patchIndex, port, (p) => {
+  return changePatch(document, sectionId, patchIndex, analysis, (p) => {
     const { fabricId: _old, ...rest } = p;
     return fabricId ? { ...rest, fabricId } : rest;
   });
 }
 
 /** Puts a strip set on a patch (undefined removes it). */
-export function setPatchStripSet(document: PatternDocument, sectionId: string, patchIndex: number, stripSet: StripSet | undefined, port: GeometryPort): PatternDocument {
-  return changePatch(document, sectionId, patchIndex, port, (p) => {
+export function setPatchStripSet(document: PatternDocument, sectionId: string, patchIndex: number, stripSet: StripSet | undefined, analysis: SectionAnalysis): PatternDocument {
+  return changePatch(document, sectionId, patchIndex, analysis, (p) => {
     const { stripSet: _old, ...rest } = p;
     return stripSet ? { ...rest, stripSet } : rest;
   });
@@ -158,9 +158,9 @@ export function makeStripSet(fabrics: ReadonlyArray<Pick<Fabric, 'id'>>, widthsI
  * Sets the piecing order: `order` lists derived patch indices in sewing order (first sewn first).
  * Patches left out follow in their present order.
  */
-export function setPiecingOrder(document: PatternDocument, sectionId: string, order: readonly number[], port: GeometryPort): PatternDocument {
+export function setPiecingOrder(document: PatternDocument, sectionId: string, order: readonly number[], analysis: SectionAnalysis): PatternDocument {
   return replaceSection(document, sectionId, (s) => {
-    const derived = port.patches(s);
+    const derived = analysis.derive(s);
     const seen = new Set<number>();
     const sequence: number[] = [];
     for (const i of order) {
@@ -177,10 +177,10 @@ export function setPiecingOrder(document: PatternDocument, sectionId: string, or
 }
 
 /** Applies a sewable order given as patch numbers in sewing order (as the order search returns it). */
-export function applyOrderByNumbers(document: PatternDocument, sectionId: string, numbers: readonly number[], port: GeometryPort): PatternDocument {
+export function applyOrderByNumbers(document: PatternDocument, sectionId: string, numbers: readonly number[], analysis: SectionAnalysis): PatternDocument {
   const s = findSection(document, sectionId);
   if (!s) return document;
-  const derived = port.patches(s);
+  const derived = analysis.derive(s);
   const order = numbers.map((n) => derived.findIndex((p) => p.number === n)).filter((i) => i >= 0);
-  return setPiecingOrder(document, sectionId, order, port);
+  return setPiecingOrder(document, sectionId, order, analysis);
 }

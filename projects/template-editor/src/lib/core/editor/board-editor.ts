@@ -1,5 +1,4 @@
 import { polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
-import type { GeometryPort } from '../analysis/geometry-port';
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
 import { deleteSection } from '../commands/section-commands';
@@ -46,9 +45,9 @@ export class BoardEditor {
   private readonly viewListeners = new Set<() => void>();
   private readonly ctx: ToolContext;
 
-  constructor(document: PatternDocument, geometry: GeometryPort) {
+  constructor(document: PatternDocument) {
     this.store = new DocumentStore(document);
-    this.analysis = new SectionAnalysis(geometry);
+    this.analysis = new SectionAnalysis();
     this.view.mirrorWidthIn = document.canvas.widthIn;
     this.ctx = {
       store: this.store,

@@ -1,6 +1,5 @@
 import { SVG, registerWindow } from '@svgdotjs/svg.js';
 import { polygonBounds, type PatternDocument, type Point } from '@seamwright/piecing';
-import { piecingGeometry } from '../analysis/piecing-geometry';
 import { SectionAnalysis } from '../analysis/section-analysis';
 
 /** Options of {@link renderPatternPreviewSvg}. */
@@ -43,7 +42,7 @@ export function renderPatternPreviewSvg(document: PatternDocument, options: Patt
   const widthPx = Math.round(options.widthPx);
   const heightPx = Math.max(1, Math.round((options.widthPx * heightIn) / widthIn));
   const pxPerIn = widthPx / widthIn;
-  const analysis = new SectionAnalysis(piecingGeometry());
+  const analysis = new SectionAnalysis();
   const colours = new Map(document.fabrics.map((f) => [f.id, f.colour]));
 
   const draw = SVG().size(widthPx, heightPx).viewbox(0, 0, widthIn, heightIn);
@@ -70,7 +69,7 @@ export function renderPatternPreviewSvg(document: PatternDocument, options: Patt
         }
         if (copy === 0) {
           const b = polygonBounds(p.polygon);
-          labels.push({ text: p.label, at: p.anchor, sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY) });
+          labels.push({ text: p.label, at: p.labelPoint, sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY) });
         }
       }
       const outline = analysis.outline(placement);

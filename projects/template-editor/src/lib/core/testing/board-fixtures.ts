@@ -1,5 +1,4 @@
 import { readPatternDocument, type PatternDocument, type Point } from '@seamwright/piecing';
-import { piecingGeometry } from '../analysis/piecing-geometry';
 import { BoardEditor } from '../editor/board-editor';
 import { toScreen } from '../view/viewport';
 
@@ -20,7 +19,7 @@ export function emptyPattern(): PatternDocument {
 
 /** A board editor at 100 px per inch with the origin at the top-left corner, snapping to ⅛ in. */
 export function testEditor(document: PatternDocument = emptyPattern()): BoardEditor {
-  const editor = new BoardEditor(document, piecingGeometry());
+  const editor = new BoardEditor(document);
   editor.setSize(2400, 2400);
   editor.setViewport({ scale: 100, originX: 0, originY: 0, mirrored: false, mirrorWidthIn: document.canvas.widthIn });
   return editor;

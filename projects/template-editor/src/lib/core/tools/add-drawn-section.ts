@@ -10,7 +10,7 @@ export function addDrawnSection(ctx: ToolContext, label: string, geometry: Secti
   const { store, analysis } = ctx;
   let id = '';
   store.apply(label, (d) => {
-    const r = addSection(d, geometry, analysis.geometry);
+    const r = addSection(d, geometry, analysis);
     id = r.sectionId;
     return r.document;
   });

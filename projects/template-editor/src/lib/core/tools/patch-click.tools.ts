@@ -38,8 +38,8 @@ export class FabricFillTool extends ClickTool {
     const hit = this.patchAt(e);
     const fabricId = e.altKey ? undefined : this.ctx.activeFabricId() ?? undefined;
     if (!hit || (!fabricId && !e.altKey)) return;
-    const port = this.ctx.analysis.geometry;
-    this.ctx.store.apply('Fill patch', (d) => setPatchFabric(d, hit.section.id, hit.patch.index, fabricId, port));
+    const analysis = this.ctx.analysis;
+    this.ctx.store.apply('Fill patch', (d) => setPatchFabric(d, hit.section.id, hit.patch.index, fabricId, analysis));
     this.ctx.store.select({ sectionId: hit.section.id, patchIndex: hit.patch.index });
   }
 }
@@ -56,9 +56,9 @@ export class StripSetTool extends ClickTool {
     const hit = this.patchAt(e);
     if (!hit) return;
     const doc = this.ctx.store.document;
-    const port = this.ctx.analysis.geometry;
+    const analysis = this.ctx.analysis;
     if (e.altKey) {
-      this.ctx.store.apply('Remove strip set', (d) => setPatchStripSet(d, hit.section.id, hit.patch.index, undefined, port));
+      this.ctx.store.apply('Remove strip set', (d) => setPatchStripSet(d, hit.section.id, hit.patch.index, undefined, analysis));
       return;
     }
     const widths = this.ctx.stripWidthsIn();
@@ -66,7 +66,7 @@ export class StripSetTool extends ClickTool {
     const first = Math.max(0, doc.fabrics.findIndex((f) => f.id === this.ctx.activeFabricId()));
     const fabrics = [...doc.fabrics.slice(first), ...doc.fabrics.slice(0, first)];
     const stripSet = makeStripSet(fabrics, widths);
-    this.ctx.store.apply('Add strip set', (d) => setPatchStripSet(d, hit.section.id, hit.patch.index, stripSet, port));
+    this.ctx.store.apply('Add strip set', (d) => setPatchStripSet(d, hit.section.id, hit.patch.index, stripSet, analysis));
     this.ctx.store.select({ sectionId: hit.section.id, patchIndex: hit.patch.index });
   }
 }
@@ -84,7 +84,7 @@ export class DeleteTool extends ClickTool {
     const r = this.ctx.hitRadiusIn();
     const seam = section.seams.find((m) => distanceToSegment(e.point, m.a, m.b) <= r);
     if (seam) {
-      store.apply('Delete seam', (d) => deleteSeam(d, section.id, seam.id, analysis.geometry));
+      store.apply('Delete seam', (d) => deleteSeam(d, section.id, seam.id, analysis));
       return;
     }
     store.apply('Delete section', (d) => deleteSection(d, section.id));

@@ -43,7 +43,7 @@ export class RenumberTool implements BoardTool {
     this.order.push(patch.index);
     const id = section.id;
     const order = [...this.order];
-    store.apply('Renumber patches', (d) => setPiecingOrder(d, id, order, analysis.geometry));
+    store.apply('Renumber patches', (d) => setPiecingOrder(d, id, order, analysis));
     const s = findSection(store.document, id);
     if (s && this.order.length >= analysis.patches(s).length) this.finish();
   }

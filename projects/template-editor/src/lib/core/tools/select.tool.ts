@@ -72,7 +72,7 @@ export class SelectTool implements BoardTool {
     }
     if (s.name === 'dragging-handle') {
       const snapped = this.ctx.snap(e.point, { excludeSectionId: s.sectionId }).point;
-      store.apply('Move point', (d) => moveSectionHandle(d, s.sectionId, s.handle, snapped, this.ctx.analysis.geometry));
+      store.apply('Move point', (d) => moveSectionHandle(d, s.sectionId, s.handle, snapped, this.ctx.analysis));
     }
   }
 

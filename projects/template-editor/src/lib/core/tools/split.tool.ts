@@ -42,9 +42,8 @@ export class SplitTool implements BoardTool {
     const sectionId = this.targetSection(a, b);
     if (!sectionId) return;
     const { store, analysis } = this.ctx;
-    const port = analysis.geometry;
     const before = store.document.sections.find((s) => s.id === sectionId);
-    const next = addSeam(store.document, sectionId, a, b, port);
+    const next = addSeam(store.document, sectionId, a, b, analysis);
     const after = next.sections.find((s) => s.id === sectionId);
     // A seam that splits nothing (it stops short of an edge, or runs along one) is not added.
     if (!before || !after || analysis.patches(after).length <= analysis.patches(before).length) {
