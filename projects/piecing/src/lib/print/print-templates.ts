@@ -36,7 +36,7 @@ function buildTemplate(
     ...(p.fabricId && fabricName.has(p.fabricId) ? { fabricName: fabricName.get(p.fabricId)! } : {}),
     ...(p.stripSet ? { stripSetName: p.stripSet.name ?? 'strip set' } : {}),
     polygon: p.polygon,
-    labelAt: labelPoint(p.polygon),
+    labelAt: p.labelPoint,
   }));
   const guideLines = sectionStripSets(section, document.seamAllowanceIn, document.piecingMarginIn, derived).flatMap((s) =>
     s.layout.guideLines.flatMap((g) => g.segments.map((seg) => ({ a: seg.a, b: seg.b }))),
@@ -58,26 +58,6 @@ function buildTemplate(
     areaSqIn: polygonArea(cuttingLine),
     ...(section.note ? { note: section.note } : {}),
   };
-}
-
-/** A point for a patch's label: its centroid, or the middle of its widest chord when that falls outside. */
-function labelPoint(ring: readonly Point[]): Point {
-  const c = polygonCentroid(ring);
-  if (locatePoint(c, ring) === 'inside') return c;
-  let best = ring[0];
-  let bestLen = -1;
-  for (let i = 0; i < ring.length; i++) {
-    for (let j = i + 2; j < ring.length; j++) {
-      const m = { x: (ring[i].x + ring[j].x) / 2, y: (ring[i].y + ring[j].y) / 2 };
-      const len = Math.hypot(ring[j].x - ring[i].x, ring[j].y - ring[i].y);
-      if (len > bestLen && locatePoint(m, ring) === 'inside') {
-        best = m;
-        bestLen = len;
-      }
-    }
-    if (i > 64) break; // enough candidates for a label
-  }
-  return best;
 }
 
 /** Edges of the patches that are not on the section outline: the seams as they were cut. */
