@@ -1,9 +1,10 @@
 import { DestroyRef, computed, inject, signal } from '@angular/core';
-import { Subject, Subscription, debounceTime } from 'rxjs';
+import { Observable, Subject, Subscription, debounceTime } from 'rxjs';
 import type { PatternDocument } from '@seamwright/piecing';
 import { PatternsService, StaleSaveError } from '../../resources/patterns.service';
+import { RevisionHistoryService } from '../../resources/revision-history.service';
 import { NotifyService } from '../../core/notify.service';
-import type { StaleSaveDetails } from '../../core/api-types';
+import type { PatternWithRevision, Revision, StaleSaveDetails } from '../../core/api-types';
 import { clearDraft, writeDraft } from './draft-backup';
 
 /** How long after the last change the drawing is saved. */
@@ -11,20 +12,33 @@ export const AUTOSAVE_DELAY_MS = 2500;
 
 export type SaveStatus = 'saved' | 'pending' | 'saving' | 'conflict' | 'error';
 
+/** A random id for one opening of the board (getRandomValues works outside secure contexts too). */
+export function newEditSessionId(): string {
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  return Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
+}
+
 /**
  * Saves the board's document as a new revision a few seconds after the last change. Saves run one
  * at a time on top of the last revision saved; a stale base stops autosave and reports the conflict.
- * Every unsaved document is also kept in the browser until the server has it.
+ * Every unsaved document is also kept in the browser until the server has it. Every save carries
+ * this board's editing session, so History shows them as one row (docs/api.md, "Revisions").
  */
 export class BoardAutosave {
   private readonly patterns = inject(PatternsService);
+  private readonly history = inject(RevisionHistoryService);
   private readonly notify = inject(NotifyService);
   private readonly edits = new Subject<void>();
   private readonly sub: Subscription;
   private latest: PatternDocument | null = null;
   private inFlight = false;
+  /** Work waiting for the save in flight (a named version asked for meanwhile). */
+  private queued: Array<() => void> = [];
   private patternId = '';
   private base = 0;
+
+  /** This opening of the board; sent with every save. */
+  readonly editSession = newEditSessionId();
 
   readonly status = signal<SaveStatus>('saved');
   /** The other person's revision when a save was refused as stale. */
@@ -61,9 +75,51 @@ export class BoardAutosave {
   flush(): void {
     const doc = this.latest;
     if (!doc || this.inFlight || this.status() === 'conflict') return;
+    this.send(doc, this.patterns.save(this.patternId, { baseRevision: this.base, document: doc, editSession: this.editSession }));
+  }
+
+  /**
+   * Stores the board as a named version: with the unsaved drawing when there is one (so it is not
+   * saved twice), else the last saved revision's document. Waits for a save in flight; refused while
+   * a conflict is open. Resolves with the new revision.
+   */
+  saveVersion(version: { name: string; note?: string }): Promise<Revision> {
+    return new Promise<Revision>((resolve, reject) => {
+      const run = () => {
+        if (this.status() === 'conflict') {
+          reject(new Error('Someone else saved first: choose what to do with your drawing, then save the version'));
+          return;
+        }
+        const doc = this.latest;
+        const note = version.note?.trim();
+        this.send(
+          doc,
+          this.history.saveVersion(this.patternId, {
+            baseRevision: this.base,
+            name: version.name,
+            ...(note ? { note } : {}),
+            ...(doc ? { document: doc } : {}),
+            editSession: this.editSession,
+          }),
+          resolve,
+          reject,
+        );
+      };
+      if (this.inFlight) this.queued.push(run);
+      else run();
+    });
+  }
+
+  /** Sends one save of `doc` (null: the server's latest document) and moves the base on. */
+  private send(
+    doc: PatternDocument | null,
+    request: Observable<PatternWithRevision>,
+    done?: (revision: Revision) => void,
+    failed?: (err: unknown) => void,
+  ): void {
     this.inFlight = true;
     this.status.set('saving');
-    this.patterns.save(this.patternId, { baseRevision: this.base, document: doc }).subscribe({
+    request.subscribe({
       next: (saved) => {
         const number = saved.revision.number;
         this.inFlight = false;
@@ -79,16 +135,21 @@ export class BoardAutosave {
           this.status.set('pending');
           this.edits.next();
         }
+        done?.(saved.revision);
+        this.queued.shift()?.();
       },
       error: (err: unknown) => {
         this.inFlight = false;
         if (err instanceof StaleSaveError) {
           this.conflict.set(err.latest);
           this.status.set('conflict');
-          return;
+        } else {
+          this.status.set(this.latest ? 'error' : 'saved');
+          // A failed named version has its own message in its dialog.
+          if (!failed) this.notify.error(err, 'Not saved (a copy is kept in this browser)');
         }
-        this.status.set('error');
-        this.notify.error(err, 'Not saved (a copy is kept in this browser)');
+        failed?.(err);
+        this.queued.shift()?.();
       },
     });
   }

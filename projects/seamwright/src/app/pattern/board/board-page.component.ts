@@ -11,13 +11,14 @@ import { BoardAutosave } from './board-autosave';
 import { HasUnsavedChanges } from './unsaved-changes.guard';
 import { DraftBackup, clearDraft, readDraft } from './draft-backup';
 import { BoardHostComponent } from './board-host.component';
+import { SaveVersionButtonComponent } from './save-version-button.component';
 import { PatternFileMenuComponent } from './pattern-file-menu.component';
 import { MAX_REFERENCE_IMAGE_BYTES, REFERENCE_IMAGE_TYPES, UploadsService } from '../../resources/uploads.service';
 
 /** The Drafting board part of the pattern page: the editor, autosave, and what to do on a conflict. */
 @Component({
   selector: 'sw-board-page',
-  imports: [DatePipe, MatButtonModule, MatIconModule, BoardHostComponent, PatternFileMenuComponent],
+  imports: [DatePipe, MatButtonModule, MatIconModule, BoardHostComponent, PatternFileMenuComponent, SaveVersionButtonComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './board-page.component.html',
   styleUrl: './board-page.component.scss',
