@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,11 +10,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { Observable, Subscription, map, of, switchMap } from 'rxjs';
-import {
-  PAPER_NAMES, PAPER_SIZES, buildPrintTemplates, planPrintLayout, printOptionsSchema, sheetCountStatement,
-  type PaperName, type PrintLayout, type PrintOptionsInput, type PrintTemplate,
-} from '@seamwright/piecing';
+import { Observable, Subscription, combineLatest, debounceTime, map, of, startWith, switchMap, tap } from 'rxjs';
+import { PAPER_NAMES, PAPER_SIZES, sheetCountStatement, type PaperName, type PatternDocument, type PrintOptionsInput } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { PatternsService } from '../../resources/patterns.service';
 import { PrintSetsService, formatBytes, percent } from '../../resources/print-sets.service';
@@ -23,9 +20,28 @@ import { NotifyService } from '../../core/notify.service';
 import type { PrintSet } from '../../core/api-types';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { SheetPreviewComponent } from './sheet-preview.component';
+import { PrintPreviewPlanner } from './print-preview-planner';
+import type { PreviewRequest, PreviewResult, PreviewTemplate } from './print-preview-plan';
 
 /** Sheets shown in the preview before "and N more". */
 const PREVIEW_SHEETS = 12;
+
+/** Quiet time after the last form change before the preview is planned again, ms. */
+export const PREVIEW_DEBOUNCE_MS = 250;
+
+/** The form's values that are print options. */
+interface PrintForm {
+  paper: PaperName;
+  marginIn: number;
+  view: 'mirrored' | 'front';
+  foundation: 'paper' | 'freezer-paper';
+  copies: 'plan' | 'single';
+  includeCuttingList: boolean;
+}
+
+function printOptions(v: PrintForm): PrintOptionsInput {
+  return { paper: v.paper, marginIn: v.marginIn, mirrored: v.view === 'mirrored', foundation: v.foundation, copies: v.copies, includeCuttingList: v.includeCuttingList };
+}
 
 /** Print: options, a preview of the sheets, making a print set, and the stored print sets. */
 @Component({
@@ -35,6 +51,7 @@ const PREVIEW_SHEETS = 12;
     MatSelectModule, MatSlideToggleModule, CautionsComponent, SheetPreviewComponent,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [PrintPreviewPlanner],
   templateUrl: './print-page.component.html',
   styleUrl: './print-page.component.scss',
 })
@@ -43,6 +60,7 @@ export class PrintPageComponent implements OnInit {
   private readonly patterns = inject(PatternsService);
   private readonly printSets = inject(PrintSetsService);
   private readonly notify = inject(NotifyService);
+  private readonly planner = inject(PrintPreviewPlanner);
   protected readonly papers = PAPER_NAMES.map((n) => PAPER_SIZES[n]);
   protected readonly percent = percent;
   protected readonly formatBytes = formatBytes;
@@ -62,46 +80,28 @@ export class PrintPageComponent implements OnInit {
   protected readonly starting = signal(false);
   private follow: Subscription | null = null;
 
-  protected readonly options = computed<PrintOptionsInput>(() => {
-    const v = this.formValue();
-    return {
-      paper: v.paper,
-      marginIn: v.marginIn,
-      mirrored: v.view === 'mirrored',
-      foundation: v.foundation,
-      copies: v.copies,
-      includeCuttingList: v.includeCuttingList,
-    };
-  });
+  protected readonly options = computed(() => printOptions(this.formValue()));
 
   protected readonly pressingsChanged = computed(() => {
     const doc = this.ctx.document();
     return !!doc && this.formValue().foundation === 'freezer-paper' && this.formValue().pressingsPerTemplate !== doc.pressingsPerTemplate;
   });
 
-  protected readonly layout = computed<{ layout: PrintLayout; templates: ReadonlyMap<string, PrintTemplate> } | { error: string } | null>(() => {
-    const doc = this.ctx.document();
-    const v = this.formValue();
-    if (!doc || this.form.invalid) return null;
-    try {
-      const planned = { ...doc, pressingsPerTemplate: v.pressingsPerTemplate };
-      const templates = buildPrintTemplates(planned, printOptionsSchema.parse(this.options()));
-      return { layout: planPrintLayout(planned, this.options()), templates: new Map(templates.map((t) => [t.id, t])) };
-    } catch (err) {
-      return { error: err instanceof Error ? err.message : String(err) };
-    }
-  });
+  /** The latest planned preview (kept on screen while the next one is planned), or null. */
+  private readonly result = signal<PreviewResult | null>(null);
+  /** Whether a plan for the current options is on its way (the form changed since the last answer). */
+  protected readonly planning = signal(false);
   protected readonly plan = computed(() => {
-    const l = this.layout();
-    return l && 'layout' in l ? l.layout : null;
+    const r = this.result();
+    return r && 'layout' in r ? r.layout : null;
   });
   protected readonly templates = computed(() => {
-    const l = this.layout();
-    return l && 'templates' in l ? l.templates : new Map<string, PrintTemplate>();
+    const r = this.result();
+    return new Map<string, PreviewTemplate>(r && 'templates' in r ? r.templates.map((t) => [t.id, t]) : []);
   });
   protected readonly planError = computed(() => {
-    const l = this.layout();
-    return l && 'error' in l ? l.error : null;
+    const r = this.result();
+    return r && 'error' in r ? r.error : null;
   });
   protected readonly previewSheets = computed(() => this.plan()?.sheets.slice(0, PREVIEW_SHEETS) ?? []);
   protected readonly statement = computed(() => {
@@ -111,6 +111,27 @@ export class PrintPageComponent implements OnInit {
 
   constructor() {
     inject(DestroyRef).onDestroy(() => this.follow?.unsubscribe());
+    // Every change of the document or the form asks for a plan; a burst of changes asks once, after
+    // it settles, and a newer request drops the answer of an older one (switchMap unsubscribes it).
+    combineLatest([toObservable(this.ctx.document), this.form.valueChanges.pipe(startWith(null))])
+      .pipe(
+        map(([doc]) => this.previewRequest(doc)),
+        tap(() => this.planning.set(true)),
+        debounceTime(PREVIEW_DEBOUNCE_MS),
+        switchMap((request) => (request ? this.planner.plan(request) : of(null))),
+        takeUntilDestroyed(),
+      )
+      .subscribe((result) => {
+        this.result.set(result);
+        this.planning.set(false);
+      });
+  }
+
+  /** What to plan for the current form, or null when there is nothing valid to plan. */
+  private previewRequest(doc: PatternDocument | null): Omit<PreviewRequest, 'id'> | null {
+    if (!doc || this.form.invalid) return null;
+    const v = this.form.getRawValue();
+    return { document: doc, options: printOptions(v), pressingsPerTemplate: v.pressingsPerTemplate, sheetsShown: PREVIEW_SHEETS };
   }
 
   ngOnInit(): void {

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { PlannedSheet, Point, PrintTemplate, SheetPlacement } from '@seamwright/piecing';
+import type { PlannedSheet, Point, SheetPlacement } from '@seamwright/piecing';
+import type { PreviewTemplate } from './print-preview-plan';
 
 /**
  * One planned sheet, drawn small from the print layout: margins, header, test squares, and each
@@ -63,8 +64,8 @@ import type { PlannedSheet, Point, PrintTemplate, SheetPlacement } from '@seamwr
 export class SheetPreviewComponent {
   /** The sheet to draw. */
   readonly sheet = input.required<PlannedSheet>();
-  /** The print templates, by id, as the layout was planned from. */
-  readonly templates = input<ReadonlyMap<string, PrintTemplate>>(new Map());
+  /** The lines of the print templates, by id, as the layout was planned from. */
+  readonly templates = input<ReadonlyMap<string, PreviewTemplate>>(new Map());
   private static next = 0;
   private readonly uid = `sw-sheet-${SheetPreviewComponent.next++}`;
 
