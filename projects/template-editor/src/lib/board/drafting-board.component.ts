@@ -37,7 +37,7 @@ import { EditorSession } from '../session/editor-session';
     (contextmenu)="$event.preventDefault()"
   ></div>`,
   styles: `
-    :host { display: block; position: relative; min-height: 320px; }
+    :host { display: block; position: relative; min-height: 0; }
     .board-host { position: absolute; inset: 0; outline: none; touch-action: none; cursor: crosshair; overflow: hidden; }
     .board-host:focus-visible { box-shadow: inset 0 0 0 2px #1f7a8c; }
     .board-host[data-tool='pan'] { cursor: grab; }
@@ -52,8 +52,14 @@ export class DraftingBoardComponent {
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
   private renderer?: BoardRenderer;
   private resizeObserver?: ResizeObserver;
-  /** Whether the view still follows the board's size (until the user zooms or pans). */
-  private autoFit = true;
+  /**
+   * Whether the view still has to be fitted to a newly opened pattern (done once the board has a
+   * usable size). Nothing else fits the view by itself: resizing keeps scale and offset.
+   */
+  private fitPending = true;
+  /** Pointers pressed on the board, for a two-finger pinch. */
+  private readonly touches = new Map<number, { x: number; y: number }>();
+  private pinchDistance: number | null = null;
 
   constructor() {
     afterNextRender(() => {
@@ -62,12 +68,12 @@ export class DraftingBoardComponent {
       ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
       this.renderer = new BoardRenderer(el, ed);
       this.renderer.setReferenceImage(this.referenceImageUrl() ?? null);
-      this.fitIfFollowing();
+      this.fitIfPending();
       el.addEventListener('wheel', this.onWheel, { passive: false });
       this.resizeObserver = new ResizeObserver(() => {
         ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
         this.renderer?.resize();
-        this.fitIfFollowing();
+        this.fitIfPending();
       });
       this.resizeObserver.observe(el);
       // Tests and the benchmark reach the stage through the host element.
@@ -79,10 +85,10 @@ export class DraftingBoardComponent {
       this.renderer?.setReferenceImage(url);
     });
     effect(() => {
-      // A newly loaded document is shown whole.
+      // A newly opened document is shown whole, once.
       if (this.session.snapshot().origin === 'load') {
-        this.autoFit = true;
-        queueMicrotask(() => this.fitIfFollowing());
+        this.fitPending = true;
+        queueMicrotask(() => this.fitIfPending());
       }
     });
     inject(DestroyRef).onDestroy(() => {
@@ -92,9 +98,10 @@ export class DraftingBoardComponent {
     });
   }
 
-  private fitIfFollowing(): void {
+  private fitIfPending(): void {
     const ed = this.session.editor;
-    if (!this.autoFit || !this.renderer || ed.sizePx.width < 50 || ed.sizePx.height < 50) return;
+    if (!this.fitPending || !this.renderer || ed.sizePx.width < 50 || ed.sizePx.height < 50) return;
+    this.fitPending = false;
     ed.fitToContent();
   }
 
@@ -107,17 +114,44 @@ export class DraftingBoardComponent {
     const el = this.host().nativeElement;
     el.focus({ preventScroll: true });
     el.setPointerCapture?.(e.pointerId);
-    if (e.button !== 0 || this.session.toolId() === 'pan') this.autoFit = false;
+    if (e.pointerType === 'touch') {
+      this.touches.set(e.pointerId, this.point(e));
+      if (this.touches.size === 2) {
+        // A second finger: the gesture becomes a pinch; whatever the first finger began is dropped.
+        this.session.editor.tool.cancel();
+        this.pinchDistance = this.spread();
+        return;
+      }
+    }
     this.session.editor.pointerDown(this.point(e), { button: e.button, shiftKey: e.shiftKey, altKey: e.altKey });
   }
 
   protected onPointerMove(e: PointerEvent): void {
+    if (this.touches.has(e.pointerId)) this.touches.set(e.pointerId, this.point(e));
+    if (this.pinchDistance !== null && this.touches.size === 2) {
+      const d = this.spread();
+      const [a, b] = [...this.touches.values()];
+      if (this.pinchDistance > 0 && d > 0) this.session.editor.zoomAt({ x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 }, d / this.pinchDistance);
+      this.pinchDistance = d;
+      return;
+    }
     this.session.editor.pointerMove(this.point(e), { shiftKey: e.shiftKey, altKey: e.altKey });
   }
 
   protected onPointerUp(e: PointerEvent): void {
     this.host().nativeElement.releasePointerCapture?.(e.pointerId);
+    const wasPinch = this.pinchDistance !== null;
+    this.touches.delete(e.pointerId);
+    if (wasPinch) {
+      if (this.touches.size < 2) this.pinchDistance = null;
+      return;
+    }
     this.session.editor.pointerUp(this.point(e), { button: e.button, shiftKey: e.shiftKey, altKey: e.altKey });
+  }
+
+  private spread(): number {
+    const [a, b] = [...this.touches.values()];
+    return a && b ? Math.hypot(a.x - b.x, a.y - b.y) : 0;
   }
 
   protected onPointerLeave(): void {
@@ -130,7 +164,6 @@ export class DraftingBoardComponent {
 
   private readonly onWheel = (e: WheelEvent): void => {
     e.preventDefault();
-    this.autoFit = false;
-    this.session.editor.wheel(this.point(e), e.deltaY);
+    this.session.editor.wheel(this.point(e), e.deltaY, e.ctrlKey);
   };
 }

@@ -38,12 +38,23 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
     </div>
   `,
   styles: `
-    :host { display: flex; flex-direction: column; height: calc(100vh - 240px); min-height: 480px; background: #fbfaf7; }
-    /* A definite height by default, so a long side panel scrolls instead of stretching the board; the app may set its own. */
-    .body { flex: 1; display: flex; min-height: 0; }
-    .board-column { flex: 1; display: flex; flex-direction: column; min-width: 0; }
-    .board { flex: 1; }
-    .side { width: 360px; flex: none; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
+    /*
+     * The board has a size of its own: the editor takes a definite height (the app may set another),
+     * the board fills what the toolbar, status line and side column leave, and the side column
+     * scrolls. Nothing in the side column can change the board's size, so the view never moves
+     * under the pointer when a panel grows.
+     */
+    :host {
+      display: grid;
+      grid-template-rows: auto minmax(0, 1fr);
+      height: calc(100vh - 240px);
+      min-height: 480px;
+      background: #fbfaf7;
+    }
+    .body { display: grid; grid-template-columns: minmax(0, 1fr) 360px; min-height: 0; }
+    .board-column { display: grid; grid-template-rows: minmax(0, 1fr) auto; min-width: 0; min-height: 0; }
+    .board { min-height: 0; }
+    .side { min-height: 0; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
   `,
   host: { '(keydown)': 'onKeyDown($event)' },
 })

@@ -13,7 +13,8 @@ import { PatternEditorComponent } from '@seamwright/template-editor';
   template: `<sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" [referenceImageUrl]="referenceImageUrl()" (documentChange)="documentChange.emit($event)" />`,
   styles: `
     :host { display: block; }
-    .editor { display: block; min-height: 560px; }
+    /* The editor lays itself out (a grid of a definite height); only its height is chosen here. */
+    .editor { height: max(560px, calc(100vh - 260px)); }
     /* The editor paints its own light surfaces; in the dark theme use the theme's instead. */
     :host-context(html.sw-dark) ::ng-deep sw-pattern-editor { background: var(--mat-sys-surface) !important; }
     :host-context(html.sw-dark) ::ng-deep sw-pattern-editor .side {

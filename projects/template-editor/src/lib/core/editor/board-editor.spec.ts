@@ -25,6 +25,38 @@ describe('BoardEditor', () => {
     expect(after.y).toBeCloseTo(before.y, 9);
   });
 
+  it('keeps scale and offset when the board is resized: the point under the pointer stays put', () => {
+    const ed = testEditor();
+    const view = { ...ed.viewport };
+    const pointer = { x: 300, y: 200 };
+    const under = toDocument(ed.viewport, pointer);
+    for (const [w, h] of [[1200, 300], [640, 900], [2400, 2400]]) {
+      ed.setSize(w, h);
+      expect(ed.viewport).toEqual(view);
+      expect(toDocument(ed.viewport, pointer)).toEqual(under);
+    }
+  });
+
+  it('zooms with + and − about the pointer, or the middle of the board when the pointer is off it; 0 fits', () => {
+    const ed = testEditor();
+    ed.setSize(1000, 600);
+    const pointer = { x: 250, y: 410 };
+    ed.pointerMove(pointer);
+    const under = toDocument(ed.viewport, pointer);
+    expect(ed.keyDown({ key: '+' })).toBe(true);
+    expect(ed.viewport.scale).toBeCloseTo(125, 9);
+    expect(toDocument(ed.viewport, pointer).x).toBeCloseTo(under.x, 9);
+    expect(toDocument(ed.viewport, pointer).y).toBeCloseTo(under.y, 9);
+    ed.pointerLeave();
+    const middle = toDocument(ed.viewport, { x: 500, y: 300 });
+    expect(ed.keyDown({ key: '-' })).toBe(true);
+    expect(ed.viewport.scale).toBeCloseTo(100, 9);
+    expect(toDocument(ed.viewport, { x: 500, y: 300 }).x).toBeCloseTo(middle.x, 9);
+    expect(ed.keyDown({ key: '0' })).toBe(true);
+    // The empty 24 in. drawing area in 600 − 2 · 40 px of height: 520 / 24 px per inch.
+    expect(ed.viewport.scale).toBeCloseTo(520 / 24, 9);
+  });
+
   it('fits the drawing area and the sections into the view', () => {
     const ed = testEditor();
     ed.setSize(1000, 500);

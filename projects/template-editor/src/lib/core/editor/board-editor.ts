@@ -20,6 +20,9 @@ export interface BoardPointerInfo {
 /** Tools a read-only board keeps. */
 const READ_ONLY_TOOLS: ReadonlySet<ToolId> = new Set(['select', 'pan']);
 
+/** Zoom step of the + and − keys. */
+const KEY_ZOOM_FACTOR = 1.25;
+
 /** Screen pixels within which the pointer catches a vertex, an edge or a handle. */
 const HIT_RADIUS_PX = 8;
 
@@ -35,6 +38,8 @@ export class BoardEditor {
   private size = { width: 800, height: 600 };
   private current: BoardTool;
   private cursorValue: Point | null = null;
+  /** Where the pointer is on the board, in screen pixels (null when it is off the board). */
+  private pointerScreen: Point | null = null;
   private snapValue: SnapResult | null = null;
   private panning: Point | null = null;
   private clipboard: SectionClipboard | null = null;
@@ -128,8 +133,12 @@ export class BoardEditor {
     this.changed();
   }
 
-  /** Tells the editor the board's size in screen pixels. */
+  /**
+   * Tells the editor the board's size in screen pixels. The view keeps its scale and offset: what is
+   * under the pointer stays there (only zoom, pan, Fit and opening a pattern move the view).
+   */
   setSize(width: number, height: number): void {
+    if (width === this.size.width && height === this.size.height) return;
     this.size = { width, height };
     this.changed();
   }
@@ -163,13 +172,19 @@ export class BoardEditor {
     this.changed();
   }
 
-  /** The wheel: zoom to the cursor. */
-  wheel(screen: Point, deltaY: number): void {
-    this.zoomAt(screen, Math.exp(-deltaY * 0.0015));
+  /** The wheel: zoom to the cursor. A pinch on a touchpad comes as a wheel with Ctrl and smaller steps. */
+  wheel(screen: Point, deltaY: number, pinch = false): void {
+    this.zoomAt(screen, Math.exp(-deltaY * (pinch ? 0.01 : 0.0015)));
+  }
+
+  /** Zooms in (factor > 1) or out about the pointer when it is on the board, else about the board's middle. */
+  zoomStep(factor: number): void {
+    this.zoomAt(this.pointerScreen ?? { x: this.size.width / 2, y: this.size.height / 2 }, factor);
   }
 
   /** Pointer pressed at a screen position. */
   pointerDown(screen: Point, info: BoardPointerInfo = {}): void {
+    this.pointerScreen = screen;
     if (info.button === 1 || info.button === 2 || this.current.id === 'pan') {
       this.panning = screen;
       return;
@@ -180,6 +195,7 @@ export class BoardEditor {
 
   /** Pointer moved to a screen position. */
   pointerMove(screen: Point, info: BoardPointerInfo = {}): void {
+    this.pointerScreen = screen;
     if (this.panning) {
       this.view = panBy(this.view, screen.x - this.panning.x, screen.y - this.panning.y);
       this.panning = screen;
@@ -202,6 +218,7 @@ export class BoardEditor {
 
   /** Pointer left the board. */
   pointerLeave(): void {
+    this.pointerScreen = null;
     this.cursorValue = null;
     this.snapValue = null;
     this.changed();
@@ -212,6 +229,8 @@ export class BoardEditor {
     const action = actionFor(e);
     if (action) {
       if (action === 'fit') this.fitToContent();
+      else if (action === 'zoom-in') this.zoomStep(KEY_ZOOM_FACTOR);
+      else if (action === 'zoom-out') this.zoomStep(1 / KEY_ZOOM_FACTOR);
       else if (action === 'undo') this.undo();
       else if (action === 'redo') this.redo();
       else if (action === 'copy') this.copy();

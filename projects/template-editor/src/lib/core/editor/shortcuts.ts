@@ -25,7 +25,7 @@ export interface BoardKey {
 }
 
 /** Editor actions bound to keys with Ctrl (or ⌘). */
-export type BoardAction = 'undo' | 'redo' | 'copy' | 'paste' | 'cut' | 'fit';
+export type BoardAction = 'undo' | 'redo' | 'copy' | 'paste' | 'cut' | 'fit' | 'zoom-in' | 'zoom-out';
 
 /** The action a key press asks for, if any. */
 export function actionFor(e: BoardKey): BoardAction | null {
@@ -37,5 +37,7 @@ export function actionFor(e: BoardKey): BoardAction | null {
   if (mod && k === 'v') return 'paste';
   if (mod && k === 'x') return 'cut';
   if (!mod && (k === '0' || (e.shiftKey && k === '!'))) return 'fit';
+  if (!mod && (k === '+' || k === '=')) return 'zoom-in';
+  if (!mod && (k === '-' || k === '_')) return 'zoom-out';
   return null;
 }
