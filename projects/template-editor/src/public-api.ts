@@ -17,6 +17,10 @@
  * Keys on the board: V select, H pan, S straight, A arc, W wedge, L split, R ring repeat, F fill,
  * T strip set, N renumber, D delete, 0 fit; Ctrl+Z undo, Ctrl+Shift+Z / Ctrl+Y redo, Ctrl+C/X/V.
  *
+ * Inside `<sw-pattern-editor>` (it shares that editor's session), `<sw-pattern-settings-panel />` edits the
+ * whole pattern: sewing numbers, fabrics, strip-set names and resizing, and warns about sections outside
+ * the drawing area.
+ *
  * `renderPatternPreviewSvg(document, { widthPx })` returns an SVG string of the pattern (thumbnails,
  * SVG download); in Node pass an svgdom window (see pattern-preview-svg.ts).
  */
@@ -26,6 +30,7 @@ export * from './lib/session/editor-session';
 export * from './lib/toolbar/board-toolbar.component';
 export * from './lib/properties/properties-panel.component';
 export * from './lib/properties/number-field.component';
+export * from './lib/pattern-settings/pattern-settings-panel.component';
 export * from './lib/piecing-order/piecing-order.component';
 export * from './lib/status/board-status.component';
 export * from './lib/status/cursor-readout';
