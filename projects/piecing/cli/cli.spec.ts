@@ -34,6 +34,14 @@ describe('seamwright check', () => {
     expect(out).toContain('Section B (arc, 3 patches, ring repeat ×8): sewable in its numbered order');
   });
 
+  it('checks a corner whose edge follows a ring, counting its curved edge', async () => {
+    const { code, out, err } = await run('check', 'docs/examples/corner-following-a-ring.json');
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    expect(out).toContain('Garden Corner: 2 sections, 2 sewable as numbered');
+    expect(out).toContain('Section B (straight, 1 curved edge, 3 patches): sewable in its numbered order');
+  });
+
   it('exits 0 for a valid file whose order cannot be sewn, naming the patch, an order that works, and a cut', async () => {
     const { code, out } = await run('check', 'docs/examples/unsewable-order.json');
     expect(code).toBe(0);

@@ -1,5 +1,5 @@
 import type { PatternDocument, Section } from '../../src/public-api';
-import { checkSewability, derivePatches, findSewableOrder, ringRepeatTransforms } from '../../src/public-api';
+import { checkSewability, derivePatches, findSewableOrder, ringRepeatTransforms, sectionEdges } from '../../src/public-api';
 import { EXIT_OK, type CliCommand } from '../cli-types';
 import { readPatternCommand } from '../read-pattern-file';
 
@@ -11,6 +11,8 @@ export interface SectionVerdict {
   patchCount: number;
   /** Copies around the ring (1 without a ring repeat). */
   ringCopies: number;
+  /** Curved edges of a straight section's outline (0 for arc and wedge sections, whose curves are their kind). */
+  curvedEdges: number;
   /** Whether the patches can be sewn in their numbered order. */
   sewableAsNumbered: boolean;
   /** Why not, naming the first failing patch. */
@@ -34,6 +36,7 @@ export function checkPattern(document: PatternDocument): SectionVerdict[] {
       kind: section.geometry.kind,
       patchCount: patches.length,
       ringCopies: ringRepeatTransforms(section).length,
+      curvedEdges: section.geometry.kind === 'straight' ? sectionEdges(section.geometry).filter((e) => e.arc).length : 0,
       sewableAsNumbered: verdict.sewable,
       problems: problems.map((p) => p.message),
     };
@@ -49,7 +52,8 @@ export function checkPattern(document: PatternDocument): SectionVerdict[] {
 
 function describe(v: SectionVerdict): string[] {
   const copies = v.ringCopies > 1 ? `, ring repeat ×${v.ringCopies}` : '';
-  const head = `Section ${v.label} (${v.kind}, ${v.patchCount} patch${v.patchCount === 1 ? '' : 'es'}${copies}): `;
+  const curves = v.curvedEdges > 0 ? `, ${v.curvedEdges} curved edge${v.curvedEdges === 1 ? '' : 's'}` : '';
+  const head = `Section ${v.label} (${v.kind}${curves}, ${v.patchCount} patch${v.patchCount === 1 ? '' : 'es'}${copies}): `;
   const lines: string[] = [];
   if (v.sewableAsNumbered) lines.push(`${head}sewable in its numbered order`);
   else {

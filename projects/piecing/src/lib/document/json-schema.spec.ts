@@ -1,7 +1,9 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { sectionEdges } from '../geometry/curved-edge';
 import { expandRingRepeat } from '../geometry/ring-repeat';
+import { distance } from '../geometry/vector';
 import { patternJsonSchema, patternJsonSchemaText } from './json-schema';
 import { parsePatternDocument } from './parse-pattern';
 
@@ -27,7 +29,7 @@ describe('example files in docs/examples', () => {
   const files = readdirSync(`${docs}examples`).filter((f) => f.endsWith('.json'));
 
   it('are all valid pattern documents', () => {
-    expect(files.sort()).toEqual(['arc-ring-with-strip-set.json', 'straight-block-three-sections.json', 'unsewable-order.json']);
+    expect(files.sort()).toEqual(['arc-ring-with-strip-set.json', 'corner-following-a-ring.json', 'straight-block-three-sections.json', 'unsewable-order.json']);
     for (const f of files) {
       const result = parsePatternDocument(JSON.parse(readFileSync(`${docs}examples/${f}`, 'utf8')));
       expect(result.ok ? [] : result.issues, f).toEqual([]);
@@ -45,5 +47,12 @@ describe('example files in docs/examples', () => {
     const band = ring.sections.find((s) => s.geometry.kind === 'arc')!;
     expect(expandRingRepeat(band)).toHaveLength(8);
     expect(band.patches.some((p) => p.stripSet && p.stripSet.strips.length === 3)).toBe(true);
+    // The corner's curved edge lies on the quarter circle's arc: both ends on it, its centre at the circle's.
+    const [quarter, corner] = read('corner-following-a-ring.json').sections;
+    if (quarter.geometry.kind !== 'wedge' || corner.geometry.kind !== 'straight') throw new Error('kinds');
+    const curved = sectionEdges(corner.geometry).filter((e) => e.arc);
+    expect(curved.map((e) => e.index)).toEqual([4]);
+    expect(distance(curved[0].arc!.centre, quarter.geometry.centre)).toBeLessThan(1e-12);
+    expect(curved[0].arc!.radiusIn).toBeCloseTo(quarter.geometry.radiusIn, 12);
   });
 });
