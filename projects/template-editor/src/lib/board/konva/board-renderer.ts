@@ -32,6 +32,8 @@ export class BoardRenderer {
   private readonly entries = new Map<string, SectionEntry>();
   private referenceImage: Konva.Image | null = null;
   private referenceUrl: string | null = null;
+  /** Placement and opacity the trace image was last drawn with. */
+  private referenceKey = '';
   private frame = 0;
   private lastViewKey = '';
   private lastScale = 0;
@@ -74,12 +76,16 @@ export class BoardRenderer {
     this.renderNow();
   }
 
-  /** Shows (or hides, with null) a reference image to trace, locked under the drawing. */
+  /**
+   * Shows (or hides, with null) the image to trace, locked under the drawing. Where it sits, how wide
+   * it is and how opaque follow the document's `referenceImage` on every render.
+   */
   setReferenceImage(url: string | null): void {
     if (url === this.referenceUrl) return;
     this.referenceUrl = url;
     this.referenceImage?.destroy();
     this.referenceImage = null;
+    this.referenceKey = '';
     if (!url) {
       this.referenceLayer.draw();
       return;
@@ -87,15 +93,28 @@ export class BoardRenderer {
     const img = new Image();
     img.onload = () => {
       if (this.referenceUrl !== url) return;
-      const doc = this.editor.store.document;
-      const ref = doc.referenceImage;
-      const widthIn = ref?.widthIn ?? doc.canvas.widthIn;
-      const heightIn = (widthIn * img.naturalHeight) / Math.max(1, img.naturalWidth);
-      this.referenceImage = new Konva.Image({ name: 'reference-image', image: img, x: ref?.origin.x ?? 0, y: ref?.origin.y ?? 0, width: widthIn, height: heightIn, listening: false });
+      this.referenceImage = new Konva.Image({ name: 'reference-image', image: img, listening: false });
       this.referenceContent.add(this.referenceImage);
       this.renderNow();
     };
     img.src = url;
+  }
+
+  /** Places the trace image as the document says; returns whether anything changed. */
+  private placeReferenceImage(doc: PatternDocument): boolean {
+    const node = this.referenceImage;
+    if (!node) return false;
+    const ref = doc.referenceImage;
+    const key = ref ? `${ref.origin.x}|${ref.origin.y}|${ref.widthIn}|${ref.opacity}` : 'none';
+    if (key === this.referenceKey) return false;
+    this.referenceKey = key;
+    node.visible(!!ref);
+    if (ref) {
+      const img = node.image() as HTMLImageElement;
+      // The image keeps its proportions: its height follows its width.
+      node.setAttrs({ x: ref.origin.x, y: ref.origin.y, width: ref.widthIn, height: (ref.widthIn * img.naturalHeight) / Math.max(1, img.naturalWidth), opacity: ref.opacity });
+    }
+    return true;
   }
 
   /** Resizes the stage to the editor's size. */
@@ -179,13 +198,7 @@ export class BoardRenderer {
       else staticDirty = true;
     }
 
-    if (this.referenceImage) {
-      const opacity = ed.settings.referenceOpacity;
-      if (this.referenceImage.opacity() !== opacity) {
-        this.referenceImage.opacity(opacity);
-        if (!viewChanged) this.referenceLayer.draw();
-      }
-    }
+    if (this.placeReferenceImage(doc) && !viewChanged) this.referenceLayer.draw();
 
     if (viewChanged) {
       this.rulerLayer.draw();
