@@ -30,6 +30,7 @@ export * from './lib/session/editor-session';
 export * from './lib/toolbar/board-toolbar.component';
 export * from './lib/properties/properties-panel.component';
 export * from './lib/properties/number-field.component';
+export * from './lib/trace-image/trace-image-panel.component';
 export * from './lib/pattern-settings/pattern-settings-panel.component';
 export * from './lib/piecing-order/piecing-order.component';
 export * from './lib/status/board-status.component';
