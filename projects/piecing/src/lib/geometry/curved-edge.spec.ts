@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { Point, Section, StraightGeometry } from '../document/pattern-schema';
 import { CHORD_TOLERANCE_IN } from '../tolerance';
 import { bulgeToSweepRad, edgeArc, flattenStraightEdges, sectionEdges, straightSectionSignedArea, sweepRadToBulge } from './curved-edge';
-import { circlesOfSections, circlesThrough, fitEdgeToCircle } from './edge-circles';
+import { circlesOfSections, circlesThrough, edgesOnCircles, fitEdgeToCircle } from './edge-circles';
 import { polygonArea, signedArea } from './polygon';
 import { expandRingRepeat } from './ring-repeat';
 import { exactSectionArea, flattenSectionOutline } from './section-outline';
@@ -182,5 +182,14 @@ describe('fitting an edge to a circle', () => {
     const on = circlesThrough(circles, { x: 15, y: 10 }, { x: 10, y: 15 });
     expect(on.map((c) => c.instanceId)).toEqual(['band']);
     expect(circlesThrough(circles, { x: 15.1, y: 10 }, { x: 10, y: 15 })).toEqual([]);
+    // A corner drawn outside the band: its edge from (10, 15) to (15, 10) has both ends on the r = 5 circle.
+    const corner: StraightGeometry = { kind: 'straight', vertices: [{ x: 15, y: 10 }, { x: 15, y: 15 }, { x: 10, y: 15 }] };
+    const found = edgesOnCircles(corner, circles);
+    expect(found.map((f) => [f.edgeIndex, f.circle.instanceId])).toEqual([[2, 'band']]);
+    const fit = fitEdgeToCircle(corner, found[0].edgeIndex, found[0].circle);
+    if (!fit.ok) throw new Error(fit.message);
+    // Standard mensuration: the 5 in. square less a quarter disc of radius 5, 25 − 25π/4.
+    expect(exactSectionArea(fit.geometry)).toBeCloseTo(25 - (25 * Math.PI) / 4, 12);
+    expect(edgesOnCircles(fit.geometry, circles)).toEqual([]);
   });
 });

@@ -67,6 +67,28 @@ export function circlesThrough<C extends Circle>(circles: readonly C[], a: Point
     .map((x) => x.c);
 }
 
+/** A straight edge whose two ends lie on a circle: a candidate for {@link fitEdgeToCircle}. */
+export interface EdgeOnCircle<C extends Circle = Circle> {
+  edgeIndex: number;
+  /** The circle that fits the ends best. */
+  circle: C;
+}
+
+/**
+ * The straight edges of a straight section whose two ends both lie on one of `circles` (within
+ * `toleranceIn`), with the best-fitting circle: where a corner drawn against a ring could follow it.
+ * Curved edges are left out (they already follow a circle).
+ */
+export function edgesOnCircles<C extends Circle>(geometry: StraightGeometry, circles: readonly C[], toleranceIn = SEAM_REACH_TOLERANCE_IN): Array<EdgeOnCircle<C>> {
+  const out: Array<EdgeOnCircle<C>> = [];
+  for (const edge of sectionEdges(geometry)) {
+    if (edge.bulge !== 0 || distance(edge.from, edge.to) <= toleranceIn) continue;
+    const [best] = circlesThrough(circles, edge.from, edge.to, toleranceIn);
+    if (best) out.push({ edgeIndex: edge.index, circle: best });
+  }
+  return out;
+}
+
 /** The outcome of {@link fitEdgeToCircle}. */
 export type FitEdgeResult =
   | { ok: true; geometry: StraightGeometry }
