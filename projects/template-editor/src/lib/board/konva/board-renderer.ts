@@ -112,7 +112,9 @@ export class BoardRenderer {
     if (ref) {
       const img = node.image() as HTMLImageElement;
       // The image keeps its proportions: its height follows its width.
-      node.setAttrs({ x: ref.origin.x, y: ref.origin.y, width: ref.widthIn, height: (ref.widthIn * img.naturalHeight) / Math.max(1, img.naturalWidth), opacity: ref.opacity });
+      node.position(ref.origin);
+      node.size({ width: ref.widthIn, height: (ref.widthIn * img.naturalHeight) / Math.max(1, img.naturalWidth) });
+      node.opacity(ref.opacity);
     }
     return true;
   }

@@ -61,7 +61,7 @@ export class ReferenceScaleTool implements Omit<BoardTool, 'id'> {
     this.pointer = e.point;
   }
 
-  pointerUp(): void {}
+  pointerUp(_e?: ToolPointer): void {}
 
   key(key: string): boolean {
     if (key !== 'Escape' || this.state === 'idle') return false;
