@@ -12,31 +12,43 @@ export interface SelfCrossing {
 }
 
 /**
- * Finds the first place where two non-adjacent edges of the closed ring meet (cross, touch or overlap),
- * or null when the ring is simple. O(n²) with a bounding-box shortcut; outlines have at most a few
- * thousand vertices.
+ * Finds the first place (the pair of edges i < j with the smallest i, then the smallest j) where two
+ * non-adjacent edges of the closed ring meet (cross, touch or overlap), or null when the ring is simple.
+ * Edges are swept in order of their leftmost x, so only edges whose x ranges overlap are compared: close
+ * to O(n log n) for outlines, whose edges seldom share x ranges widely (flattened curves give thousands).
  */
 export function findSelfCrossing(ring: readonly Point[], toleranceIn = GEOMETRY_EPSILON_IN): SelfCrossing | null {
   const n = ring.length;
   if (n < 4) return null;
+  const minX = new Float64Array(n);
+  const maxX = new Float64Array(n);
+  const minY = new Float64Array(n);
+  const maxY = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const a1 = ring[i];
-    const a2 = ring[(i + 1) % n];
-    const aMinX = Math.min(a1.x, a2.x) - toleranceIn;
-    const aMaxX = Math.max(a1.x, a2.x) + toleranceIn;
-    const aMinY = Math.min(a1.y, a2.y) - toleranceIn;
-    const aMaxY = Math.max(a1.y, a2.y) + toleranceIn;
-    for (let j = i + 2; j < n; j++) {
-      if (i === 0 && j === n - 1) continue; // adjacent through the closing edge
-      const b1 = ring[j];
-      const b2 = ring[(j + 1) % n];
-      if (Math.max(b1.x, b2.x) < aMinX || Math.min(b1.x, b2.x) > aMaxX) continue;
-      if (Math.max(b1.y, b2.y) < aMinY || Math.min(b1.y, b2.y) > aMaxY) continue;
-      const hit = segmentIntersection(a1, a2, b1, b2, toleranceIn);
-      if (hit.kind === 'point') return { edgeA: i, edgeB: j, point: hit.point };
-      if (hit.kind === 'overlap') return { edgeA: i, edgeB: j, point: hit.from };
+    const a = ring[i];
+    const b = ring[(i + 1) % n];
+    minX[i] = Math.min(a.x, b.x) - toleranceIn;
+    maxX[i] = Math.max(a.x, b.x) + toleranceIn;
+    minY[i] = Math.min(a.y, b.y) - toleranceIn;
+    maxY[i] = Math.max(a.y, b.y) + toleranceIn;
+  }
+  const order = Array.from({ length: n }, (_, i) => i).sort((p, q) => minX[p] - minX[q]);
+  let best: SelfCrossing | null = null;
+  for (let s = 0; s < n; s++) {
+    const e = order[s];
+    for (let t = s + 1; t < n && minX[order[t]] <= maxX[e]; t++) {
+      const f = order[t];
+      const i = Math.min(e, f);
+      const j = Math.max(e, f);
+      if (j - i < 2 || (i === 0 && j === n - 1)) continue; // the same edge or adjacent ones
+      if (best && (i > best.edgeA || (i === best.edgeA && j >= best.edgeB))) continue; // cannot come first
+      if (maxY[j] < minY[i] || minY[j] > maxY[i]) continue;
+      const hit = segmentIntersection(ring[i], ring[(i + 1) % n], ring[j], ring[(j + 1) % n], toleranceIn);
+      if (hit.kind === 'point') best = { edgeA: i, edgeB: j, point: hit.point };
+      else if (hit.kind === 'overlap') best = { edgeA: i, edgeB: j, point: hit.from };
     }
   }
+  if (best) return best;
   // Adjacent edges that fold back over each other also make a ring non-simple.
   for (let i = 0; i < n; i++) {
     const prev = ring[(i - 1 + n) % n];
