@@ -32,7 +32,33 @@ class HostComponent {
   readonly changes: number[] = [];
 }
 
+@Component({
+  imports: [NumberFieldComponent],
+  template: `<sw-number-field label="Start angle (°)" kind="angle" [value]="angle()" (valueChange)="changes.push($event)" />
+    <sw-number-field label="Corner x" [value]="length()" (valueChange)="changes.push($event)" />`,
+})
+class DecimalsHostComponent {
+  readonly angle = signal(247.380135);
+  readonly length = signal(1 / 3);
+  readonly changes: number[] = [];
+}
+
 describe('NumberFieldComponent', () => {
+  it('shows at most 3 decimals and never writes the rounded value back untouched', async () => {
+    const fixture = TestBed.createComponent(DecimalsHostComponent);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const angle = fixture.nativeElement.querySelector('input[aria-label="Start angle (°)"]') as HTMLInputElement;
+    const length = fixture.nativeElement.querySelector('input[aria-label="Corner x"]') as HTMLInputElement;
+    expect(angle.value).toBe('247.38');
+    expect(length.value).toBe('0.333');
+    angle.dispatchEvent(new Event('blur'));
+    length.dispatchEvent(new Event('blur'));
+    fixture.detectChanges();
+    await fixture.whenStable();
+    expect(fixture.componentInstance.changes).toEqual([]);
+  });
+
   it('shows the value as quilters write it, emits inches on Enter and explains bad input', async () => {
     const fixture = TestBed.createComponent(HostComponent);
     fixture.detectChanges();

@@ -93,10 +93,12 @@ export class NumberFieldComponent {
   }
 
   private format(v: number): string {
-    if (this.kind() !== 'length') return String(Math.round(v * 1e6) / 1e6);
+    // At most 3 decimals: 0.001° and 0.001 in. are far below what a quilter can cut or sew. The stored
+    // value keeps its precision; the field only shows it rounded (an untouched field never writes back).
+    if (this.kind() !== 'length') return String(Math.round(v * 1000) / 1000);
     if (this.unit() === 'cm') return formatCentimetres(v, 2, false);
     // Exact eighths read as quilters write them; anything else keeps its decimals.
     const eighths = v * 8;
-    return Math.abs(eighths - Math.round(eighths)) < 1e-9 ? formatInches(v, { withUnit: false }) : String(Math.round(v * 10000) / 10000);
+    return Math.abs(eighths - Math.round(eighths)) < 1e-9 ? formatInches(v, { withUnit: false }) : String(Math.round(v * 1000) / 1000);
   }
 }

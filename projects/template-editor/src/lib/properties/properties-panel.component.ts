@@ -14,6 +14,7 @@ import {
   setRingRepeat,
   setSectionGeometry,
   updateSectionDetails,
+  setSeamEnd,
 } from '../core/public-api';
 import { EditorSession } from '../session/editor-session';
 import { NumberFieldComponent } from './number-field.component';
@@ -63,6 +64,14 @@ export class PropertiesPanelComponent {
     }
     this.geometryError.set(null);
     this.session.apply('Change section', (d) => setSectionGeometry(d, s.id, parsed.data, this.session.editor.analysis));
+  }
+
+  protected changeSeamEnd(seamId: string, end: 'a' | 'b', axis: 'x' | 'y', value: number): void {
+    const s = this.section();
+    const seam = s?.seams.find((m) => m.id === seamId);
+    if (!s || !seam) return;
+    const point = { ...seam[end], [axis]: value };
+    this.session.apply('Move seam end', (d) => setSeamEnd(d, s.id, seamId, end, point, this.session.editor.analysis));
   }
 
   protected changeCentre(axis: 'x' | 'y', value: number): void {

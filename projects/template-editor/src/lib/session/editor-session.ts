@@ -118,6 +118,11 @@ export class EditorSession {
     this.editor.fitToContent();
   }
 
+  /** Zooms in (factor > 1) or out about the middle of the board. */
+  zoom(factor: number): void {
+    this.editor.zoomStep(factor);
+  }
+
   /** Applies a sewable order to the selected section, or keeps the reason and the suggested split. */
   applySewableOrder(): BoardOrderSearch | null {
     const s = this.selectedSection();

@@ -7,7 +7,11 @@ import { cursorReadout } from './cursor-readout';
   selector: 'sw-board-status',
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <span class="hint" aria-live="polite">{{ session.toolHint() }}</span>
+    @if (session.readOnly()) {
+      <span class="hint">Read-only: drag with the middle button or the Pan tool (H) to move, the wheel or + and − to zoom, 0 to fit.</span>
+    } @else {
+      <span class="hint" aria-live="polite">{{ session.toolHint() }}</span>
+    }
     @if (readout(); as r) {
       <span class="cursor" aria-label="Pointer position"
         ><span class="quilter">{{ r.quilter }}</span> <span class="exact">({{ r.exact }})</span></span

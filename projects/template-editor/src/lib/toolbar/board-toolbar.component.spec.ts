@@ -51,4 +51,26 @@ describe('BoardToolbarComponent', () => {
     expect(session.settings().unit).toBe('cm');
     expect(session.settings().grid).toBe('half-cm');
   });
+
+  it('shows no snap controls on a read-only board, and keeps the view controls', () => {
+    const { fixture, session, el } = setUp();
+    const labels = () => [...el.querySelectorAll('mat-slide-toggle')].map((t) => t.textContent?.trim());
+    expect(labels()).toEqual(['Snap to points', 'Snap angles', 'Seam allowance', 'Mirrored']);
+    expect(el.querySelector('mat-select[aria-label="Grid snap"]')).not.toBeNull();
+    session.editor.setReadOnly(true);
+    fixture.detectChanges();
+    expect(labels()).toEqual(['Seam allowance', 'Mirrored']);
+    expect(el.querySelector('mat-select[aria-label="Grid snap"]')).toBeNull();
+    expect(el.querySelector('button[aria-label="Zoom in"]')).not.toBeNull();
+  });
+
+  it('zooms in and out about the middle of the board', () => {
+    const { fixture, session, el } = setUp();
+    const before = session.editor.viewport.scale;
+    (el.querySelector('button[aria-label="Zoom in"]') as HTMLButtonElement).click();
+    fixture.detectChanges();
+    expect(session.editor.viewport.scale).toBeCloseTo(before * 1.25, 9);
+    (el.querySelector('button[aria-label="Zoom out"]') as HTMLButtonElement).click();
+    expect(session.editor.viewport.scale).toBeCloseTo(before, 9);
+  });
 });

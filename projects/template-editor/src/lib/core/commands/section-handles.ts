@@ -13,7 +13,8 @@ export interface SectionHandle {
 
 /** Direction (degrees, document sense) from `centre` to `p`, in [0, 360). */
 export function angleTo(centre: Point, p: Point): number {
-  return normaliseAngleDeg(radToDeg(Math.atan2(p.y - centre.y, p.x - centre.x)));
+  // Rounded to 1e-9° so a point placed at a snapped angle reads back as that angle, not 44.99999999999.
+  return normaliseAngleDeg(Math.round(radToDeg(Math.atan2(p.y - centre.y, p.x - centre.x)) * 1e9) / 1e9);
 }
 
 /** The sweep (degrees) from `startDeg` round to the direction from `centre` to `p`, in (0, 360]. */

@@ -2,6 +2,7 @@ import { polygonBounds, type Bounds, type PatternDocument, type Point, type Sect
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
 import { deleteSection } from '../commands/section-commands';
+import { snapDirectionDeg, snapSweepDeg } from '../snapping/angle-snap';
 import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTarget } from '../snapping/snapping';
 import { DocumentStore } from '../store/document-store';
 import { createTool } from '../tools/create-tool';
@@ -59,6 +60,7 @@ export class BoardEditor {
       analysis: this.analysis,
       snap: (p, o) => this.snap(p, o?.edges ?? false, o?.excludeSectionId),
       snapGrid: (p) => snapToGrid(p, this.settingsValue.grid),
+      snapAngle: (deg, centre, kind) => this.snapAngle(deg, centre, kind),
       hitRadiusIn: () => HIT_RADIUS_PX / this.view.scale,
       activeFabricId: () => this.settingsValue.activeFabricId ?? this.store.document.fabrics[0]?.id ?? null,
       stripWidthsIn: () => this.settingsValue.stripWidthsIn,
@@ -307,6 +309,14 @@ export class BoardEditor {
     this.cursorValue = point;
     this.snapValue = this.snap(point, this.current.id === 'split', this.store.inGesture ? this.store.selection.sectionId ?? undefined : undefined);
     return { point, shiftKey: info.shiftKey, altKey: info.altKey };
+  }
+
+  private snapAngle(deg: number, centre: Point, kind: 'direction' | 'sweep'): number {
+    if (!this.settingsValue.snapAngles) return deg;
+    const near = (q: Point) => Math.hypot(q.x - centre.x, q.y - centre.y) < 1e-6;
+    const divisions = [this.settingsValue.ringCount];
+    for (const s of this.store.document.sections) if (s.ringRepeat && near(s.ringRepeat.centre)) divisions.push(s.ringRepeat.count);
+    return kind === 'direction' ? snapDirectionDeg(deg, divisions) : snapSweepDeg(deg, divisions);
   }
 
   private snap(p: Point, edges: boolean, excludeSectionId?: string): SnapResult {

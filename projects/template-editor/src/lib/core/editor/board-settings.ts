@@ -7,6 +7,8 @@ export interface BoardSettings {
   grid: GridSnap;
   /** Whether to snap to vertices, seam ends and circle centres. */
   snapToPoints: boolean;
+  /** Whether start angles and sweeps snap (ring divisions, 7.5° steps). */
+  snapAngles: boolean;
   /** Whether the cutting line (seam allowance) is drawn around each section. */
   showSeamAllowance: boolean;
   /** Whether the board shows the drawing mirrored, as the printed templates are. */
@@ -26,6 +28,7 @@ export const DEFAULT_BOARD_SETTINGS: BoardSettings = {
   unit: 'in',
   grid: 'eighth-in',
   snapToPoints: true,
+  snapAngles: true,
   showSeamAllowance: false,
   mirrored: false,
   activeFabricId: null,

@@ -88,9 +88,9 @@ export abstract class CentredSectionTool<Stage extends string> implements BoardT
   /** Called as the drag-out radius changes (an arc keeps its inner radius at half of it). */
   protected radiusChanged(): void {}
 
-  /** The sweep from the start angle round to the direction of `p`, in (0, 360]. */
+  /** The sweep from the start angle round to the direction of `p`, in (0, 360], snapped when angle snapping is on. */
   protected sweepTo(p: Point): number {
-    return sweepTo(this.centre, this.start, p);
+    return this.ctx.snapAngle(sweepTo(this.centre, this.start, p), this.centre, 'sweep');
   }
 
   private setRadius(p: Point): void {
@@ -104,7 +104,7 @@ export abstract class CentredSectionTool<Stage extends string> implements BoardT
       return;
     }
     this.radius = distance(this.centre, p);
-    this.start = angleTo(this.centre, p);
+    this.start = this.ctx.snapAngle(angleTo(this.centre, p), this.centre, 'direction');
     this.radiusChanged();
   }
 }

@@ -106,3 +106,56 @@ describe('Wedge section tool', () => {
     expect(g.kind === 'wedge' && g.sweepDeg).toBeCloseTo(45, 9);
   });
 });
+
+describe('Angle snapping while drawing', () => {
+  const C = { x: 12, y: 12 };
+
+  it('snaps a mouse-drawn wedge to 7.5° steps, and leaves it as drawn with angle snapping off', () => {
+    const ed = testEditor();
+    ed.setSettings({ grid: 'off', snapToPoints: false });
+    ed.setTool('wedge');
+    // Press at the centre, drag out to 6 in. at 247.38°, then click the end at 247.38° + 61.2°.
+    play(ed, [['down', C.x, C.y], ['move', polar(C, 6, 247.38).x, polar(C, 6, 247.38).y], ['up', polar(C, 6, 247.38).x, polar(C, 6, 247.38).y]]);
+    const end = polar(C, 6, 247.38 + 61.2);
+    play(ed, [['move', end.x, end.y], ...click(end.x, end.y)]);
+    const g = ed.store.document.sections[0].geometry;
+    expect(g.kind === 'wedge' && [g.startAngleDeg, g.sweepDeg]).toEqual([247.5, 60]);
+
+    const raw = testEditor();
+    raw.setSettings({ grid: 'off', snapToPoints: false, snapAngles: false });
+    raw.setTool('wedge');
+    play(raw, [['down', C.x, C.y], ['move', polar(C, 6, 247.38).x, polar(C, 6, 247.38).y], ['up', polar(C, 6, 247.38).x, polar(C, 6, 247.38).y]]);
+    play(raw, [['move', end.x, end.y], ...click(end.x, end.y)]);
+    const r = raw.store.document.sections[0].geometry;
+    expect(r.kind === 'wedge' && r.startAngleDeg).toBeCloseTo(247.38, 6);
+  });
+
+  it('snaps to the divisions of a ring repeat around the same centre (360/7)', () => {
+    const ed = testEditor();
+    ed.setSettings({ grid: 'off', snapToPoints: false, ringCount: 7 });
+    ed.setTool('arc');
+    const out = polar(C, 8, 52);
+    play(ed, [['down', C.x, C.y], ['move', out.x, out.y], ['up', out.x, out.y]]);
+    play(ed, click(polar(C, 5, 52).x, polar(C, 5, 52).y));
+    const end = polar(C, 6.5, 52 + 50.9);
+    play(ed, [['move', end.x, end.y], ...click(end.x, end.y)]);
+    const g = ed.store.document.sections[0].geometry;
+    if (g.kind !== 'arc') throw new Error('expected an arc');
+    expect(g.startAngleDeg).toBeCloseTo(360 / 7, 9);
+    expect(g.sweepDeg).toBeCloseTo(360 / 7, 9);
+  });
+
+  it('snaps the end handle of a selected wedge to a 7.5° sweep', () => {
+    const ed = testEditor();
+    ed.setSettings({ grid: 'off', snapToPoints: false });
+    ed.setTool('wedge');
+    play(ed, [['down', C.x, C.y], ['move', C.x + 6, C.y], ['up', C.x + 6, C.y]]);
+    play(ed, [['move', C.x, C.y + 6], ...click(C.x, C.y + 6)]);
+    ed.setTool('select');
+    const from = polar(C, 6, 90);
+    const to = polar(C, 6, 121.3);
+    play(ed, [['down', from.x, from.y], ['move', to.x, to.y], ['up', to.x, to.y]]);
+    const g = ed.store.document.sections[0].geometry;
+    expect(g.kind === 'wedge' && [g.startAngleDeg, g.sweepDeg]).toEqual([0, 120]);
+  });
+});

@@ -1,6 +1,6 @@
-import { distance, type Point } from '@seamwright/piecing';
+import { degToRad, distance, pointOnCircle, type Point } from '@seamwright/piecing';
 import { deleteSection, findSection, moveSection, moveSectionHandle } from '../commands/section-commands';
-import { sectionHandles, type SectionHandle } from '../commands/section-handles';
+import { angleTo, sectionHandles, sweepTo, type SectionHandle } from '../commands/section-handles';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
 type SelectState =
@@ -71,7 +71,7 @@ export class SelectTool implements BoardTool {
       return;
     }
     if (s.name === 'dragging-handle') {
-      const snapped = this.ctx.snap(e.point, { excludeSectionId: s.sectionId }).point;
+      const snapped = this.snapAngles(s.sectionId, s.handle, this.ctx.snap(e.point, { excludeSectionId: s.sectionId }).point);
       store.apply('Move point', (d) => moveSectionHandle(d, s.sectionId, s.handle, snapped, this.ctx.analysis));
     }
   }
@@ -108,5 +108,17 @@ export class SelectTool implements BoardTool {
   preview(): ToolPreview | null {
     return null;
   }
-}
 
+  /** A start or end handle's point moved so its angle (start) or the sweep (end) snaps, at the same distance from the centre. */
+  private snapAngles(sectionId: string, handle: SectionHandle, p: Point): Point {
+    const g = findSection(this.ctx.store.document, sectionId)?.geometry;
+    if (!g || g.kind === 'straight' || (handle.kind !== 'start' && handle.kind !== 'end')) return p;
+    const r = distance(g.centre, p);
+    if (r === 0) return p;
+    const deg =
+      handle.kind === 'start'
+        ? this.ctx.snapAngle(angleTo(g.centre, p), g.centre, 'direction')
+        : g.startAngleDeg + this.ctx.snapAngle(sweepTo(g.centre, g.startAngleDeg, p), g.centre, 'sweep');
+    return pointOnCircle(g.centre, r, degToRad(deg));
+  }
+}

@@ -26,6 +26,11 @@ export interface ToolContext {
   readonly analysis: SectionAnalysis;
   /** Snaps a raw pointer position (grid, points; edges when asked). */
   snap(p: Point, options?: { edges?: boolean; excludeSectionId?: string }): SnapResult;
+  /**
+   * Snaps a direction or a sweep (degrees) about `centre` when angle snapping is on: to the divisions
+   * of the ring repeats around that centre and the ring tool's count, else to 7.5° steps.
+   */
+  snapAngle(angleDeg: number, centre: Point, kind: 'direction' | 'sweep'): number;
   /** Rounds to the grid step alone (for moves of whole sections). */
   snapGrid(p: Point): Point;
   /** Hit radius in inches at the current zoom (a few screen pixels). */
