@@ -4,6 +4,7 @@ import { Router } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { PatternDocument } from '@seamwright/piecing';
+import { setReferenceImage } from '@seamwright/template-editor';
 import { PatternContext } from '../pattern-context.service';
 import { PatternsService } from '../../resources/patterns.service';
 import { NotifyService } from '../../core/notify.service';
@@ -97,7 +98,7 @@ export class BoardPageComponent implements HasUnsavedChanges {
     this.autosave.change(doc);
   }
 
-  /** Uploads an image to trace and puts it under the drawing, as wide as the drawing area. */
+  /** Uploads an image to trace and puts it under the drawing, as wide as the drawing area (an undoable step). */
   protected traceImage(input: HTMLInputElement): void {
     const file = input.files?.[0];
     input.value = '';
@@ -115,13 +116,8 @@ export class BoardPageComponent implements HasUnsavedChanges {
     this.uploads.upload(this.ctx.id(), file).subscribe({
       next: (upload) => {
         this.uploading.set(false);
-        const next: PatternDocument = {
-          ...doc,
-          referenceImage: { uploadId: upload.id, origin: { x: 0, y: 0 }, widthIn: doc.canvas.widthIn, opacity: 0.4 },
-        };
-        // Loading the new document into the editor starts a fresh undo history; the drawing itself is unchanged.
-        this.opened.set(next);
-        this.onChange(next);
+        // One undo step in the editor (its change reaches autosave like any other); the history stays.
+        if (!this.host()?.apply('Trace image', (d) => setReferenceImage(d, upload.id))) return;
         this.notify.info(`Tracing “${upload.fileName}”`);
       },
       error: (err: unknown) => {
