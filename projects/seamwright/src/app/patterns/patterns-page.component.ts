@@ -25,6 +25,7 @@ import { NewPatternChoice, NewPatternDialogComponent } from './new-pattern-dialo
 import { STARTERS } from './starters';
 import { PatternThumbnailComponent } from './pattern-thumbnail.component';
 import { accessLabel } from './access-label';
+import { OpenPatternFileComponent } from './open-pattern-file.component';
 
 /** The pattern list: everything the user owns or was invited to, and the trash. */
 @Component({
@@ -32,6 +33,7 @@ import { accessLabel } from './access-label';
   imports: [
     DatePipe, RouterLink, ReactiveFormsModule, MatTableModule, MatSortModule, MatPaginatorModule, MatButtonModule, MatIconModule,
     MatFormFieldModule, MatInputModule, MatMenuModule, MatProgressBarModule, MatButtonToggleModule, PatternThumbnailComponent,
+    OpenPatternFileComponent,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './patterns-page.component.html',
