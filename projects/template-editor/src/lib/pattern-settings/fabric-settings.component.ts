@@ -17,6 +17,7 @@ import { EditorSession } from '../session/editor-session';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatFormFieldModule, MatInputModule, NumberFieldComponent],
   template: `
+    <p class="muted">Usable width: what is left of the width of fabric once the selvages are trimmed; strips are cut across it.</p>
     <ul class="fabrics" aria-label="Fabrics">
       @for (f of rows(); track f.id) {
         <li class="fabric" [attr.aria-label]="f.name">
@@ -31,7 +32,7 @@ import { EditorSession } from '../session/editor-session';
               <mat-hint class="error" role="alert">{{ error }}</mat-hint>
             }
           </mat-form-field>
-          <sw-number-field class="wof" [label]="'Usable width of fabric'" [value]="f.usableWofIn" [unit]="unit()" [min]="1" [max]="maxWof" [readOnly]="ro()" (valueChange)="change(f.id, { usableWofIn: $event })" />
+          <sw-number-field class="wof" label="Usable width" [value]="f.usableWofIn" [unit]="unit()" [min]="1" [max]="maxWof" [readOnly]="ro()" (valueChange)="change(f.id, { usableWofIn: $event })" />
           @if (!ro()) {
             <div class="remove">
               <button
@@ -62,10 +63,10 @@ import { EditorSession } from '../session/editor-session';
   styles: `
     :host { display: block; }
     .fabrics { list-style: none; margin: 0 0 8px; padding: 0; }
-    .fabric { display: grid; grid-template-columns: auto minmax(0, 1fr); gap: 4px 8px; align-items: start; padding: 8px 0; border-bottom: 1px solid var(--mat-sys-outline-variant); }
+    .fabric { display: grid; grid-template-columns: auto minmax(0, 1fr) 7rem; gap: 4px 8px; align-items: start; padding: 8px 0 4px; border-bottom: 1px solid var(--mat-sys-outline-variant); }
     .colour { display: flex; flex-direction: column; align-items: center; font: var(--mat-sys-label-small); color: var(--mat-sys-on-surface-variant); }
     .colour input { width: 40px; height: 32px; padding: 0; border: 1px solid var(--mat-sys-outline); border-radius: 4px; background: var(--mat-sys-surface); cursor: pointer; }
-    .wof, .remove { grid-column: 2; }
+    .remove { grid-column: 2 / span 2; }
     .remove { display: flex; align-items: center; gap: 8px; flex-wrap: wrap; }
     .muted { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
     .error { color: var(--mat-sys-error); }

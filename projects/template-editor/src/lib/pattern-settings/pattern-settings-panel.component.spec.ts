@@ -99,7 +99,7 @@ describe('PatternSettingsPanelComponent', () => {
   it('changes a fabric usable width, typed as quilters write it', () => {
     const { session, el } = setUp();
     const sage = el.querySelector('li[aria-label="Sage"]')!;
-    const input = sage.querySelector<HTMLInputElement>('input[aria-label="Usable width of fabric"]')!;
+    const input = sage.querySelector<HTMLInputElement>('input[aria-label="Usable width"]')!;
     input.value = '40 1/2';
     input.dispatchEvent(new Event('input'));
     input.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter' }));

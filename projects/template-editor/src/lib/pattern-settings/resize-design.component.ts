@@ -21,7 +21,7 @@ const ISSUES_SHOWN = 4;
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatCheckboxModule, NumberFieldComponent],
   template: `
-    <p class="muted">Finished size now {{ show(canvas().widthIn) }} × {{ show(canvas().heightIn) }}.</p>
+    <p class="muted">Finished size now: {{ show(canvas().widthIn) }} × {{ show(canvas().heightIn) }}</p>
     <div class="grid">
       <sw-number-field label="New finished width" [value]="width()" [unit]="unit()" [min]="0.5" [max]="maxSize" [readOnly]="ro()" (valueChange)="setWidth($event)" />
       <sw-number-field label="New finished height" [value]="height()" [unit]="unit()" [min]="0.5" [max]="maxSize" [readOnly]="ro()" (valueChange)="setHeight($event)" />
