@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, 
 import type { PatternDocument } from '@seamwright/piecing';
 import { DraftingBoardComponent } from '../board/drafting-board.component';
 import { diffValues } from '../core/public-api';
+import { PatternSettingsPanelComponent } from '../pattern-settings/pattern-settings-panel.component';
 import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
 import { PropertiesPanelComponent } from '../properties/properties-panel.component';
 import { EditorSession } from '../session/editor-session';
@@ -23,7 +24,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
   selector: 'sw-pattern-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [EditorSession],
-  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent],
+  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent],
   template: `
     <sw-board-toolbar class="toolbar" />
     <div class="body">
@@ -34,6 +35,12 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
       <aside class="side" aria-label="Section details">
         <sw-properties-panel />
         <sw-piecing-order />
+        @if (!readOnly()) {
+          <details class="settings">
+            <summary>Pattern settings</summary>
+            <sw-pattern-settings-panel />
+          </details>
+        }
       </aside>
     </div>
   `,
@@ -55,6 +62,9 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
     .board-column { display: grid; grid-template-rows: minmax(0, 1fr) auto; min-width: 0; min-height: 0; }
     .board { min-height: 0; }
     .side { min-height: 0; overflow-y: auto; border-left: 1px solid #d3cabb; background: #fffdf8; }
+    .settings { border-top: 1px solid #d3cabb; }
+    .settings > summary { cursor: pointer; padding: 12px 16px; font-weight: 500; }
+    .settings > summary:focus-visible { outline: 2px solid var(--mat-sys-primary, #1f7a8c); outline-offset: -2px; }
   `,
   host: { '(keydown)': 'onKeyDown($event)' },
 })
