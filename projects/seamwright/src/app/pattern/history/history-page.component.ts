@@ -3,83 +3,84 @@ import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { PatternContext } from '../pattern-context.service';
-import { RevisionsService } from '../../resources/revisions.service';
+import { RevisionHistoryService } from '../../resources/revision-history.service';
 import { LoadState } from '../../core/load-state';
-import type { Page, RevisionSummary } from '../../core/api-types';
+import type { Page, RevisionGroup } from '../../core/api-types';
 import { RevisionRestore } from './revision-restore';
+import { RevisionRunComponent } from './revision-run.component';
+import { runRangeLabel, sameDay, savesLabel } from './run-labels';
 
-/** History: every revision with its author and time; open one read-only or restore it. */
+/** A row of the History table: a run of saves, or the opened list of a run's saves below it. */
+export interface HistoryRow {
+  kind: 'run' | 'saves';
+  run: RevisionGroup;
+}
+
+/**
+ * History: the revisions in runs of saves (one sitting at the board, one author), named versions on
+ * rows of their own; open a run to see each save, open any revision read-only or restore it.
+ */
 @Component({
   selector: 'sw-history-page',
-  imports: [DatePipe, RouterLink, MatTableModule, MatButtonModule, MatPaginatorModule, MatProgressBarModule],
+  imports: [DatePipe, RouterLink, MatTableModule, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, RevisionRunComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <div class="sw-table-wrap">
-      @if (state.loading()) { <mat-progress-bar mode="indeterminate" aria-label="Loading revisions" /> }
-      <table mat-table [dataSource]="rows()" aria-label="Revisions">
-        <ng-container matColumnDef="number">
-          <th mat-header-cell *matHeaderCellDef>Revision</th>
-          <td mat-cell *matCellDef="let r">
-            {{ r.number }}
-            @if (r.number === ctx.revision()) { <span class="latest">latest</span> }
-          </td>
-        </ng-container>
-        <ng-container matColumnDef="author">
-          <th mat-header-cell *matHeaderCellDef>Saved by</th>
-          <td mat-cell *matCellDef="let r">{{ r.author.displayName }}</td>
-        </ng-container>
-        <ng-container matColumnDef="createdAt">
-          <th mat-header-cell *matHeaderCellDef>When</th>
-          <td mat-cell *matCellDef="let r"><time [attr.datetime]="r.createdAt">{{ r.createdAt | date: 'd MMM y, HH:mm:ss' }}</time></td>
-        </ng-container>
-        <ng-container matColumnDef="note">
-          <th mat-header-cell *matHeaderCellDef>Note</th>
-          <td mat-cell *matCellDef="let r">@if (r.restoredFrom) { Restored from revision {{ r.restoredFrom }} }</td>
-        </ng-container>
-        <ng-container matColumnDef="actions">
-          <th mat-header-cell *matHeaderCellDef><span class="sw-sr-only">Actions</span></th>
-          <td mat-cell *matCellDef="let r" class="actions">
-            <a mat-button [routerLink]="['..', 'history', r.number]" [attr.aria-label]="'Open revision ' + r.number + ' read-only'">Open</a>
-            @if (ctx.canEdit() && r.number !== ctx.revision()) {
-              <button mat-stroked-button type="button" (click)="restore.restore(r.number)" [disabled]="restore.busy()" [attr.aria-label]="'Restore revision ' + r.number">Restore</button>
-            }
-          </td>
-        </ng-container>
-        <tr mat-header-row *matHeaderRowDef="columns"></tr>
-        <tr mat-row *matRowDef="let row; columns: columns"></tr>
-      </table>
-      <mat-paginator [length]="state.value()?.total ?? 0" [pageIndex]="page() - 1" [pageSize]="20" [hidePageSize]="true" (page)="onPage($event)" aria-label="Pages of revisions" />
-    </div>
-    <p class="sw-muted">Every save is kept. Restoring makes an old revision the newest one; nothing is overwritten.</p>
-  `,
-  styles: `
-    table { width: 100%; }
-    .latest { margin-left: 8px; padding: 1px 8px; border-radius: 8px; font-size: 0.75rem; background: var(--mat-sys-primary-container); color: var(--mat-sys-on-primary-container); }
-    .actions { white-space: nowrap; text-align: right; }
-  `,
+  templateUrl: './history-page.component.html',
+  styleUrl: './history-page.component.scss',
 })
 export class HistoryPageComponent implements OnInit {
   protected readonly ctx = inject(PatternContext);
-  private readonly revisions = inject(RevisionsService);
-  protected readonly state = new LoadState<Page<RevisionSummary>>();
-  protected readonly rows = computed(() => this.state.value()?.items ?? []);
+  private readonly history = inject(RevisionHistoryService);
+  protected readonly state = new LoadState<Page<RevisionGroup>>();
   protected readonly page = signal(1);
+  protected readonly pageSize = 20;
+  /** First revision numbers of the runs whose saves are shown. */
+  protected readonly opened = signal<ReadonlySet<number>>(new Set());
+  protected readonly rows = computed<HistoryRow[]>(() =>
+    (this.state.value()?.items ?? []).flatMap((run) =>
+      this.opened().has(run.first) ? [{ kind: 'run' as const, run }, { kind: 'saves' as const, run }] : [{ kind: 'run' as const, run }],
+    ),
+  );
   protected readonly columns = ['number', 'author', 'createdAt', 'note', 'actions'];
   protected readonly restore = new RevisionRestore(() => this.reload());
+  protected readonly rangeLabel = runRangeLabel;
+  protected readonly savesLabel = savesLabel;
+  protected readonly sameDay = sameDay;
+  protected readonly isRunRow = (_i: number, row: HistoryRow) => row.kind === 'run';
+  protected readonly isSavesRow = (_i: number, row: HistoryRow) => row.kind === 'saves';
+  /** Keeps a run's row (and the focus on its button) when its saves open or close. */
+  protected readonly trackRow = (_i: number, row: HistoryRow) => `${row.kind}:${row.run.first}`;
 
   ngOnInit(): void {
     this.reload();
   }
 
+  protected isOpen(run: RevisionGroup): boolean {
+    return this.opened().has(run.first);
+  }
+
+  protected savesId(run: RevisionGroup): string {
+    return `saves-of-${run.first}`;
+  }
+
+  protected toggle(run: RevisionGroup): void {
+    this.opened.update((s) => {
+      const next = new Set(s);
+      if (!next.delete(run.first)) next.add(run.first);
+      return next;
+    });
+  }
+
   protected onPage(e: PageEvent): void {
     this.page.set(e.pageIndex + 1);
+    this.opened.set(new Set());
     this.reload();
   }
 
   private reload(): void {
-    this.state.run(this.revisions.list(this.ctx.id(), this.page(), 20));
+    this.state.run(this.history.groups(this.ctx.id(), this.page(), this.pageSize));
   }
 }

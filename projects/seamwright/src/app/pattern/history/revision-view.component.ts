@@ -32,9 +32,22 @@ import { RevisionRestore } from './revision-restore';
             <button mat-flat-button type="button" (click)="restore.restore(rev.number)" [disabled]="restore.busy()">Restore this revision</button>
           }
         </div>
+        @if (rev.version; as version) {
+          <section class="version" aria-label="Named version">
+            <p class="version-title"><mat-icon aria-hidden="true">bookmark</mat-icon><span class="tag">Version</span> <strong>{{ version.name }}</strong></p>
+            @if (version.note) { <p class="note">{{ version.note }}</p> }
+          </section>
+        }
         <sw-board-host [document]="rev.document" [readOnly]="true" />
       }
     }
+  `,
+  styles: `
+    .version { margin: 0 0 12px; padding: 8px 16px; border-radius: 12px; border-left: 4px solid var(--mat-sys-primary); background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); }
+    .version p { margin: 0; }
+    .version-title { display: flex; align-items: center; gap: 6px; }
+    .tag { font: var(--mat-sys-label-large); text-transform: uppercase; letter-spacing: 0.04em; }
+    .note { margin-top: 4px; white-space: pre-line; }
   `,
 })
 export class RevisionViewComponent {
