@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, input, output, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, inject, input, output, viewChild } from '@angular/core';
 import type { PatternDocument } from '@seamwright/piecing';
 import { EditorSession, PatternEditorComponent, TraceImagePanelComponent, toDocument, type DocumentUpdate } from '@seamwright/template-editor';
 
@@ -18,11 +18,7 @@ import { EditorSession, PatternEditorComponent, TraceImagePanelComponent, toDocu
     }
     <sw-pattern-editor class="editor" [document]="document()" [readOnly]="readOnly()" [referenceImageUrl]="referenceImageUrl()" (documentChange)="documentChange.emit($event)" />
   `,
-  host: {
-    '(pointerdown.capture)': 'pickOnBoard($event)',
-    '(pointerup.capture)': 'swallowPickRelease($event)',
-    '(keydown.escape)': 'tracePanel()?.cancelScale()',
-  },
+  host: { '(keydown.escape)': 'tracePanel()?.cancelScale()' },
   styles: `
     :host { display: block; }
     .trace { border-bottom: 1px solid var(--sw-card-edge, var(--mat-sys-outline-variant)); background: var(--mat-sys-surface-container-low); color: var(--mat-sys-on-surface); }
@@ -51,6 +47,19 @@ export class BoardHostComponent {
   protected readonly tracePanel = viewChild(TraceImagePanelComponent);
   private pickPointer: number | null = null;
 
+  constructor() {
+    // Capture phase: the pick must see the click before the board's own tool does.
+    const el = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
+    const down = (e: PointerEvent) => this.pickOnBoard(e);
+    const up = (e: PointerEvent) => this.swallowPickRelease(e);
+    el.addEventListener('pointerdown', down, { capture: true });
+    el.addEventListener('pointerup', up, { capture: true });
+    inject(DestroyRef).onDestroy(() => {
+      el.removeEventListener('pointerdown', down, { capture: true });
+      el.removeEventListener('pointerup', up, { capture: true });
+    });
+  }
+
   /** Tells the editor its document is stored (clears its unsaved mark). */
   markSaved(): void {
     this.editor()?.markSaved();
@@ -68,7 +77,7 @@ export class BoardHostComponent {
    * While the trace panel waits for scale points, a click on the board is a picked point (in the
    * board's inches), not an action of the board's tool.
    */
-  protected pickOnBoard(e: PointerEvent): void {
+  private pickOnBoard(e: PointerEvent): void {
     const panel = this.tracePanel();
     const session = this.session();
     const board = (e.target as Element | null)?.closest<HTMLElement>('[role=application][aria-label="Drafting board"]');
@@ -80,7 +89,7 @@ export class BoardHostComponent {
     panel.pickAt(toDocument(session.editor.viewport, { x: e.clientX - r.left, y: e.clientY - r.top }));
   }
 
-  protected swallowPickRelease(e: PointerEvent): void {
+  private swallowPickRelease(e: PointerEvent): void {
     if (e.pointerId !== this.pickPointer) return;
     this.pickPointer = null;
     e.stopPropagation();
