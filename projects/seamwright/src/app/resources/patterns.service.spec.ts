@@ -5,7 +5,7 @@ import { PatternsService, StaleSaveError } from './patterns.service';
 import { RevisionsService } from './revisions.service';
 import type { Revision } from '../core/api-types';
 
-const doc = { formatVersion: 1 as const, title: 'Orchard Wheel', canvas: { widthIn: 24, heightIn: 24 } };
+const doc = { formatVersion: 2 as const, title: 'Orchard Wheel', canvas: { widthIn: 24, heightIn: 24 } };
 
 describe('PatternsService', () => {
   let svc: PatternsService;
