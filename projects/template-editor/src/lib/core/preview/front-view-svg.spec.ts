@@ -27,7 +27,7 @@ function pattern() {
               id: 'plum-sand',
               strips: [
                 { fabricId: 'plum', finishedWidthIn: 1 },
-                { fabricId: 'sand', finishedWidthIn: 1 },
+                { fabricId: 'sand', finishedWidthIn: 2 },
               ],
               axisAngleDeg: 90,
             },
@@ -113,6 +113,8 @@ describe('renderFrontViewSvg', () => {
     expect(texts.map((t) => t.textContent)).toEqual(['A1', 'A2', 'B1']);
     // Plum is dark: light ink. The empty B1 is white: dark ink.
     expect(texts[0].getAttribute('fill')).toBe('#fffdf8');
+    // A2's label, at its centre, sits on the sand strip (the wider one, across the middle): dark ink.
+    expect(texts[1].getAttribute('fill')).toBe('#34312c');
     expect(texts[2].getAttribute('fill')).toBe('#34312c');
     expect(Number(texts[0].getAttribute('x'))).toBeCloseTo(2.5, 9);
     expect(renderFrontViewSvg(pattern(), { labels: false })).not.toContain('<text');

@@ -153,7 +153,6 @@ export function renderFrontViewSvg(document: PatternDocument, options: FrontView
             `<g clip-path="url(#clip-${id})">${bands.map((band) => `<polygon points="${pointsAttr(band.ring)}" fill="${colours.get(band.fabricId) ?? EMPTY}"/>`).join('')}</g>`,
           );
           group.push(`<path ${attrs} fill="none"/>`);
-          fill = colours.get(patch.stripSet?.strips[0]?.fabricId ?? '') ?? EMPTY;
         } else {
           fill = (patch.fabricId && colours.get(patch.fabricId)) || EMPTY;
           group.push(`<path ${attrs} fill="${fill}"/>`);
@@ -162,6 +161,9 @@ export function renderFrontViewSvg(document: PatternDocument, options: FrontView
           const b = polygonBounds(patch.polygon);
           const sizeIn = Math.max(LABEL_MIN_IN, Math.min(LABEL_MAX_IN, 0.3 * Math.min(b.maxX - b.minX, b.maxY - b.minY)));
           const at = labelPoint(patch.polygon);
+          // On a strip set the label sits on one strip: its ink must read on that strip's fabric.
+          const under = bands.find((band) => locatePoint(at, band.ring) !== 'outside');
+          if (under) fill = colours.get(under.fabricId) ?? EMPTY;
           labels.push(
             `<text x="${num(at.x)}" y="${num(at.y + sizeIn * 0.35)}" font-size="${num(sizeIn)}" fill="${inkOn(fill)}">${escapeXml(patch.label)}</text>`,
           );
