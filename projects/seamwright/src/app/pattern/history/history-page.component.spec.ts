@@ -47,10 +47,14 @@ describe('HistoryPageComponent', () => {
     await fixture.whenStable();
     const el = fixture.nativeElement as HTMLElement;
     const table = el.querySelector('table[aria-label=Revisions]') as HTMLTableElement;
-    // Each row as its cells' text, " | " between cells.
+    // Each row as its cells' text, " | " between cells; a cell of controls as their words, " / " between them.
+    const words = (e: Element) => e.textContent!.replace(/expand_(more|less)/, '').replace(/\s+/g, ' ').trim();
     const rows = () =>
       Array.from(table.querySelectorAll(':scope > tbody > tr')).map((tr) =>
-        Array.from(tr.children, (td) => td.textContent!.replace(/\s+/g, ' ').trim()).join(' | '),
+        Array.from(tr.children, (td) => {
+          const controls = td.querySelectorAll('button, a');
+          return controls.length ? Array.from(controls, words).join(' / ') : words(td);
+        }).join(' | '),
       );
     const button = (name: string) => Array.from(el.querySelectorAll('button, a')).find((b) => b.getAttribute('aria-label') === name) as HTMLElement | undefined;
     return { fixture, el, http, table, rows, button };
@@ -64,9 +68,9 @@ describe('HistoryPageComponent', () => {
     const at = (iso: string, format: string) => formatDate(iso, format, 'en-US');
     expect(r[0]).toBe(`Revision 13 latest | Ada | ${at('2026-12-03T14:33:00Z', 'd MMM y, HH:mm:ss')} | Restored from revision 3 | Open`);
     expect(r[2]).toBe(
-      `Revisions 4–11 | Ada | ${at('2026-12-03T14:04:00Z', 'd MMM y, HH:mm')}–${at('2026-12-03T14:31:00Z', 'HH:mm')} | 8 saves in one sitting | expand_moreShow 8 saves Open Restore`,
+      `Revisions 4–11 | Ada | ${at('2026-12-03T14:04:00Z', 'd MMM y, HH:mm')}–${at('2026-12-03T14:31:00Z', 'HH:mm')} | 8 saves in one sitting | Show 8 saves / Open / Restore`,
     );
-    expect(r[3]).toBe(`Revision 1 | Ada | ${at('2026-12-03T14:31:00Z', 'd MMM y, HH:mm:ss')} |  | Open Restore`);
+    expect(r[3]).toBe(`Revision 1 | Ada | ${at('2026-12-03T14:31:00Z', 'd MMM y, HH:mm:ss')} |  | Open / Restore`);
   });
 
   it('sets a named version apart with an icon and the word Version, its name and its note', async () => {
