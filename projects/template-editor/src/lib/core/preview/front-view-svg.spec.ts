@@ -26,8 +26,8 @@ function pattern() {
             stripSet: {
               id: 'plum-sand',
               strips: [
-                { fabricId: 'plum', finishedWidthIn: 1 },
-                { fabricId: 'sand', finishedWidthIn: 2 },
+                { fabricId: 'sand', finishedWidthIn: 1 },
+                { fabricId: 'plum', finishedWidthIn: 2 },
               ],
               axisAngleDeg: 90,
             },
@@ -103,7 +103,7 @@ describe('renderFrontViewSvg', () => {
     const a2 = svg.querySelector('path[data-patch="A2"]');
     expect(a2?.getAttribute('fill')).toBe('none');
     const clipped = svg.querySelector(`g[clip-path="url(#clip-${a2?.getAttribute('id')})"]`);
-    expect([...(clipped?.querySelectorAll('polygon') ?? [])].map((p) => p.getAttribute('fill'))).toEqual(['#6b2d5c', '#e8dcc0']);
+    expect([...(clipped?.querySelectorAll('polygon') ?? [])].map((p) => p.getAttribute('fill'))).toEqual(['#e8dcc0', '#6b2d5c']);
     expect(svg.querySelector(`clipPath#clip-${a2?.getAttribute('id')} use`)?.getAttribute('href')).toBe(`#${a2?.getAttribute('id')}`);
   });
 
@@ -113,8 +113,9 @@ describe('renderFrontViewSvg', () => {
     expect(texts.map((t) => t.textContent)).toEqual(['A1', 'A2', 'B1']);
     // Plum is dark: light ink. The empty B1 is white: dark ink.
     expect(texts[0].getAttribute('fill')).toBe('#fffdf8');
-    // A2's label, at its centre, sits on the sand strip (the wider one, across the middle): dark ink.
-    expect(texts[1].getAttribute('fill')).toBe('#34312c');
+    // A2's label, at its centre, sits on the plum strip (the wider one, across the middle), not on the
+    // sand strip listed first: light ink.
+    expect(texts[1].getAttribute('fill')).toBe('#fffdf8');
     expect(texts[2].getAttribute('fill')).toBe('#34312c');
     expect(Number(texts[0].getAttribute('x'))).toBeCloseTo(2.5, 9);
     expect(renderFrontViewSvg(pattern(), { labels: false })).not.toContain('<text');
