@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { YARDAGE_STEP_IN, buildCuttingList, formatInches, type CuttingList } from '@seamwright/piecing';
+import { YARDAGE_STEP_IN, buildCuttingList, formatInches, stripSetDisplayName, type CuttingList } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { StripDiagramComponent } from './strip-diagram.component';
@@ -49,6 +49,10 @@ export class CuttingPageComponent {
   protected readonly fabricsById = computed(
     () => new Map((this.ctx.document()?.fabrics ?? []).map((f) => [f.id, { name: f.name, colour: f.colour }] as const)),
   );
+  /** What quilters call each strip set of the list: its name, or the patches it fills; never its id. */
+  protected readonly stripSetNames = computed(
+    () => new Map((this.ok()?.stripSets ?? []).map((s) => [s.stripSetId, stripSetDisplayName(s.name, s.patchLabels)] as const)),
+  );
   protected readonly pieceColumns = ['count', 'size', 'strips', 'patches'];
   protected readonly stripColumns = ['set', 'finished', 'cut', 'strips'];
 
@@ -59,6 +63,10 @@ export class CuttingPageComponent {
 
   protected fabricName(id: string): string {
     return this.fabricsById().get(id)?.name ?? id;
+  }
+
+  protected stripSetName(listId: string): string {
+    return this.stripSetNames().get(listId) ?? 'Strip set';
   }
 
   protected print(): void {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, effect, inject, input, viewChild } from '@angular/core';
 import { SVG, type Svg } from '@svgdotjs/svg.js';
-import type { CuttingListStripSet } from '@seamwright/piecing';
+import { stripSetDisplayName, type CuttingListStripSet } from '@seamwright/piecing';
 import { showInches } from '../../core/length-text';
 
 /** Pixels per inch of the drawing (the picture scales to its box; this only sets proportions). */
@@ -29,7 +29,7 @@ export class StripDiagramComponent {
   protected label(): string {
     const s = this.stripSet();
     const strips = s.strips.map((st) => `${this.fabrics().get(st.fabricId)?.name ?? st.fabricId} cut ${showInches(st.cutWidthIn)}`).join(', ');
-    return `Strip set ${s.name ?? s.stripSetId}: ${strips}; ${s.subCutsPerSet} sub-cuts of ${showInches(s.subCutLengthIn)} from each sewn set`;
+    return `${stripSetDisplayName(s.name, s.patchLabels)}: ${strips}; ${s.subCutsPerSet} sub-cuts of ${showInches(s.subCutLengthIn)} from each sewn set`;
   }
 
   constructor() {

@@ -1,0 +1,71 @@
+import { signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { readPatternDocument, scalePattern, type PatternDocument } from '@seamwright/piecing';
+import { PatternContext } from '../pattern-context.service';
+import { CuttingPageComponent } from './cutting-page.component';
+
+/** A 4 in. square split in two: A1 Plum, A2 a two-strip set with the internal id "t-lz9q". */
+function pattern(name?: string): PatternDocument {
+  return readPatternDocument({
+    formatVersion: 1,
+    title: 'Strips',
+    canvas: { widthIn: 4, heightIn: 4 },
+    fabrics: [
+      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
+      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
+    ],
+    sections: [
+      {
+        id: 'sq',
+        label: 'A',
+        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 4 }, { x: 0, y: 4 }] },
+        seams: [{ id: 's1', a: { x: 2, y: -0.05 }, b: { x: 2, y: 4.05 } }],
+        patches: [
+          { number: 1, anchor: { x: 1, y: 2 }, fabricId: 'plum' },
+          { number: 2, anchor: { x: 3, y: 2 }, stripSet: { id: 't-lz9q', ...(name ? { name } : {}), strips: [{ fabricId: 'oat', finishedWidthIn: 2 }, { fabricId: 'plum', finishedWidthIn: 2 }] } },
+        ],
+      },
+    ],
+  });
+}
+
+function render(doc: PatternDocument) {
+  const document = signal<PatternDocument | null>(doc);
+  TestBed.configureTestingModule({ providers: [{ provide: PatternContext, useValue: { document } }] });
+  const fixture = TestBed.createComponent(CuttingPageComponent);
+  fixture.detectChanges();
+  return { el: fixture.nativeElement as HTMLElement, document, fixture };
+}
+
+describe('CuttingPageComponent', () => {
+  // jsdom lays out no SVG text: svg.js asks for a text's box to place it; give it an empty one.
+  beforeAll(() => {
+    const proto = SVGElement.prototype as unknown as { getBBox?: () => DOMRect };
+    proto.getBBox ??= () => ({ x: 0, y: 0, width: 0, height: 0 }) as DOMRect;
+  });
+
+  it('calls an unnamed strip set by the patch it fills, never by its id', () => {
+    const { el } = render(pattern());
+    expect(el.textContent).not.toContain('t-lz9q');
+    expect(el.querySelector('section.stripset h3')?.textContent?.trim()).toBe('Strip set for A2');
+    expect(el.querySelector('section.stripset')?.getAttribute('aria-label')).toBe('Strip set for A2');
+    const rows = [...el.querySelectorAll('table[aria-label="Strip-set strips of Oat"] td')].map((td) => td.textContent?.trim());
+    expect(rows[0]).toBe('Strip set for A2, strip 1');
+    expect(el.querySelector('sw-strip-diagram [role="img"]')?.getAttribute('aria-label')).toMatch(/^Strip set for A2: Oat cut/);
+  });
+
+  it('shows the name a designer gave', () => {
+    const { el } = render(pattern('Dawn stripes'));
+    expect(el.querySelector('section.stripset h3')?.textContent?.trim()).toBe('Dawn stripes');
+    expect(el.textContent).toContain('Dawn stripes, strip 2');
+  });
+
+  it('follows a resized design: strips cut at the new finished width plus the same allowance', () => {
+    const { el, document, fixture } = render(pattern());
+    document.set(scalePattern(pattern(), 1.5));
+    fixture.detectChanges();
+    // 2 in. strips at 1.5× finish at 3 in. and are cut 3 + 2 × ¼ = 3½ in. wide.
+    const cells = [...el.querySelectorAll('table[aria-label="Strip-set strips of Oat"] td')].map((td) => td.textContent?.trim());
+    expect(cells.slice(1, 3)).toEqual(['3 in.', '3 ½ in.']);
+  });
+});
