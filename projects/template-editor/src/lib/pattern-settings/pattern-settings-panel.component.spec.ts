@@ -153,6 +153,19 @@ describe('PatternSettingsPanelComponent', () => {
     expect(session.document()).toEqual(before);
   });
 
+  it('fits the design inside a size out of proportion, saying so', () => {
+    const { session, el, button, type, fixture } = setUp(readPatternDocument(buildGardenGate()));
+    el.querySelector<HTMLInputElement>('mat-checkbox input')!.click();
+    fixture.detectChanges();
+    type('New finished width', '16');
+    type('New finished height', '12');
+    const preview = el.querySelector('[data-testid="resize-preview"]')!.textContent!.replace(/\s+/g, ' ').trim();
+    expect(preview).toBe('Everything scales by k = 1.5 (lengths × 1.5, areas × 2.25), to fit inside the new size; the drawing area becomes 16 in. × 12 in.');
+    button('Apply new size').click();
+    expect(session.document().canvas).toEqual({ widthIn: 16, heightIn: 12 });
+    expect(session.document().sections[2].geometry).toMatchObject({ vertices: [{ x: 0, y: 8.25 }, { x: 12, y: 8.25 }, { x: 12, y: 12 }, { x: 0, y: 12 }] });
+  });
+
   it('shows why a size cannot be applied and leaves the design as it was', () => {
     const { session, el, button, type, fixture } = setUp(readPatternDocument({ ...buildGardenGate(), canvas: { widthIn: 1, heightIn: 1 } }));
     type('New finished width', '150');

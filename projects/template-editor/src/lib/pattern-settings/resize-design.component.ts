@@ -31,7 +31,7 @@ const ISSUES_SHOWN = 4;
       @if (factor() === 1) {
         Type a new width or height to resize.
       } @else {
-        Everything scales by <strong>k = {{ factorText() }}</strong> (lengths × {{ factorText() }}, areas × {{ areaText() }})@if (!proportional()) {, to fit inside the new size; the drawing area becomes {{ show(width()) }} × {{ show(height()) }}}.
+        Everything scales by <strong>k = {{ factorText() }}</strong> (lengths × {{ factorText() }}, areas × {{ areaText() }}){{ fitText() }}
       }
     </p>
     <p class="muted hint">
@@ -82,6 +82,12 @@ export class ResizeDesignComponent {
   protected readonly sameSize = computed(() => this.width() === this.canvas().widthIn && this.height() === this.canvas().heightIn);
   protected readonly factorText = computed(() => trim(this.factor(), 4));
   protected readonly areaText = computed(() => trim(this.factor() ** 2, 4));
+  /** The end of the preview: a full stop, or how a size out of proportion is met. */
+  protected readonly fitText = computed(() => {
+    if (this.proportional()) return '.';
+    const text = `, to fit inside the new size; the drawing area becomes ${this.show(this.width())} × ${this.show(this.height())}`;
+    return text.endsWith('.') ? text : `${text}.`;
+  });
 
   constructor() {
     // A new drawing area (opened, resized, undone) starts the form from it.
