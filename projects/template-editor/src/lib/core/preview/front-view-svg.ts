@@ -6,7 +6,6 @@ import {
   layoutStripSet,
   locatePoint,
   polygonBounds,
-  polygonCentroid,
   type DerivedPatch,
   type PatternDocument,
   type Point,
@@ -42,35 +41,6 @@ function pathData(ring: readonly Point[]): string {
 
 function pointsAttr(ring: readonly Point[]): string {
   return ring.map((p) => `${num(p.x)},${num(p.y)}`).join(' ');
-}
-
-/**
- * A point inside the ring to write its label at: the centroid when it lies inside (every convex
- * patch), otherwise the middle of the widest inside stretch of a horizontal line across the ring.
- */
-function labelPoint(ring: readonly Point[]): Point {
-  const c = polygonCentroid(ring);
-  if (locatePoint(c, ring) === 'inside') return c;
-  const b = polygonBounds(ring);
-  let best: Point = c;
-  let width = 0;
-  for (const fraction of [0.5, 0.35, 0.65, 0.2, 0.8]) {
-    const y = b.minY + (b.maxY - b.minY) * fraction;
-    const xs: number[] = [];
-    for (let i = 0, n = ring.length; i < n; i++) {
-      const p = ring[i];
-      const q = ring[(i + 1) % n];
-      if (p.y > y !== q.y > y) xs.push(p.x + ((y - p.y) * (q.x - p.x)) / (q.y - p.y));
-    }
-    xs.sort((u, v) => u - v);
-    for (let i = 0; i + 1 < xs.length; i += 2) {
-      if (xs[i + 1] - xs[i] > width) {
-        width = xs[i + 1] - xs[i];
-        best = { x: (xs[i] + xs[i + 1]) / 2, y };
-      }
-    }
-  }
-  return best;
 }
 
 /** Dark ink on light fabric, light ink on dark fabric (relative luminance of sRGB, WCAG 2 definition). */
@@ -125,7 +95,7 @@ function outlineOf(section: Section): Point[] {
  * The front view of a pattern as a stand-alone SVG file at true size: `width` and `height` in inches
  * (the drawing area), a viewBox in inches, every patch one `<path data-patch="A1">` filled with its
  * fabric (strip-set patches with their strips, clipped to the patch), ring-repeat copies, section
- * outlines, and patch labels. Seen from the front, as the finished block is (see docs/pattern-format.md).
+ * outlines, and patch labels at each patch's label point. Seen from the front, as the finished block is (see docs/pattern-format.md).
  * Plain string output: works the same in a browser and in Node.
  */
 export function renderFrontViewSvg(document: PatternDocument, options: FrontViewSvgOptions = {}): string {
@@ -160,7 +130,7 @@ export function renderFrontViewSvg(document: PatternDocument, options: FrontView
         if (copy === 0 && options.labels !== false) {
           const b = polygonBounds(patch.polygon);
           const sizeIn = Math.max(LABEL_MIN_IN, Math.min(LABEL_MAX_IN, 0.3 * Math.min(b.maxX - b.minX, b.maxY - b.minY)));
-          const at = labelPoint(patch.polygon);
+          const at = patch.labelPoint;
           // On a strip set the label sits on one strip: its ink must read on that strip's fabric.
           const under = bands.find((band) => locatePoint(at, band.ring) !== 'outside');
           if (under) fill = colours.get(under.fabricId) ?? EMPTY;
