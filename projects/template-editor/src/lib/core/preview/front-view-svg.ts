@@ -1,16 +1,14 @@
 import {
-  degToRad,
   derivePatches,
   expandRingRepeat,
   flattenSectionOutline,
-  layoutStripSet,
   locatePoint,
   polygonBounds,
-  type DerivedPatch,
   type PatternDocument,
   type Point,
   type Section,
 } from '@seamwright/piecing';
+import { toBoardPatch, type BoardPatch } from '../analysis/board-patch';
 
 /** Options of {@link renderFrontViewSvg}. */
 export interface FrontViewSvgOptions {
@@ -53,31 +51,9 @@ function inkOn(fill: string): string {
   return l < 0.18 ? LIGHT_INK : INK;
 }
 
-/** The strips of a strip-set patch as bands long enough to cover it (drawn clipped to the patch). */
-function stripBands(patch: DerivedPatch): Array<{ fabricId: string; ring: Point[] }> {
-  if (!patch.stripSet) return [];
-  let layout;
+function patchesOf(section: Section): BoardPatch[] {
   try {
-    layout = layoutStripSet(patch.polygon, patch.stripSet);
-  } catch {
-    return [];
-  }
-  const b = polygonBounds(patch.polygon);
-  const reach = Math.hypot(b.maxX - b.minX, b.maxY - b.minY) + 1;
-  const a = degToRad(layout.axisAngleDeg);
-  const u = { x: Math.cos(a), y: Math.sin(a) };
-  const n = { x: -u.y, y: u.x };
-  const at = (along: number, across: number): Point => ({ x: layout.centre.x + u.x * along + n.x * across, y: layout.centre.y + u.y * along + n.y * across });
-  return layout.strips.map((st, i) => {
-    const from = i === 0 ? -reach : st.fromAcrossIn;
-    const to = i === layout.strips.length - 1 ? reach : st.toAcrossIn;
-    return { fabricId: st.fabricId, ring: [at(-reach, from), at(reach, from), at(reach, to), at(-reach, to)] };
-  });
-}
-
-function patchesOf(section: Section): DerivedPatch[] {
-  try {
-    return derivePatches(section).patches;
+    return derivePatches(section).patches.map(toBoardPatch);
   } catch {
     return [];
   }
@@ -114,13 +90,13 @@ export function renderFrontViewSvg(document: PatternDocument, options: FrontView
         patchCount++;
         const id = `patch-${placement.id}-${patch.number}`;
         const d = pathData(patch.polygon);
-        const bands = stripBands(patch);
+        const bands = patch.stripBands ?? [];
         const attrs = `id="${id}" data-patch="${escapeXml(patch.label)}" d="${d}" stroke="${INK}" stroke-width="${SEAM_IN}" stroke-linejoin="round"`;
         let fill = EMPTY;
         if (bands.length) {
           defs.push(`<clipPath id="clip-${id}"><use href="#${id}"/></clipPath>`);
           group.push(
-            `<g clip-path="url(#clip-${id})">${bands.map((band) => `<polygon points="${pointsAttr(band.ring)}" fill="${colours.get(band.fabricId) ?? EMPTY}"/>`).join('')}</g>`,
+            `<g clip-path="url(#clip-${id})">${bands.map((band) => `<polygon points="${pointsAttr(band.polygon)}" fill="${colours.get(band.fabricId) ?? EMPTY}"/>`).join('')}</g>`,
           );
           group.push(`<path ${attrs} fill="none"/>`);
         } else {
@@ -132,7 +108,7 @@ export function renderFrontViewSvg(document: PatternDocument, options: FrontView
           const sizeIn = Math.max(LABEL_MIN_IN, Math.min(LABEL_MAX_IN, 0.3 * Math.min(b.maxX - b.minX, b.maxY - b.minY)));
           const at = patch.labelPoint;
           // On a strip set the label sits on one strip: its ink must read on that strip's fabric.
-          const under = bands.find((band) => locatePoint(at, band.ring) !== 'outside');
+          const under = bands.find((band) => locatePoint(at, band.polygon) !== 'outside');
           if (under) fill = colours.get(under.fabricId) ?? EMPTY;
           labels.push(
             `<text x="${num(at.x)}" y="${num(at.y + sizeIn * 0.35)}" font-size="${num(sizeIn)}" fill="${inkOn(fill)}">${escapeXml(patch.label)}</text>`,
