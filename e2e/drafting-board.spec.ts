@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { derivePatches, locatePoint, readPatternDocument, type PatternDocumentInput } from '../projects/piecing/src/public-api';
 import { AuthPage } from './pages/auth.page';
 import { DraftingBoardPage, type InchPoint } from './pages/drafting-board.page';
 import { PatternPage } from './pages/pattern.page';
@@ -97,5 +98,64 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   await expect(board.verdict()).toHaveText(/Section A can be sewn in this order/);
   await expect(page.getByLabel('Outer radius')).toHaveValue(String(outer));
   await shot(page, 'reloaded');
+  expect(errors).toEqual([]);
+});
+
+test('select, split twice at once from one corner, fill each patch, and find each fill saved on its own patch', async ({ page }) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize({ width: 1440, height: 960 });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  const fan = { name: 'Fen Fan', email: `fen-${run}@example.test`, password: 'fan-from-a-corner-2', role: 'designer' as const };
+  await new AuthPage(page).signUp(fan);
+  await expect(page.getByRole('heading', { name: 'Patterns' })).toBeVisible();
+  await new PatternsPage(page).create(`Fan test ${run}`, 'Blank block');
+  const board = new DraftingBoardPage(page);
+  await board.ready();
+
+  // An 8 in. square from (2, 2) to (10, 10), closed on its first corner.
+  await board.tool('s');
+  for (const p of [{ x: 2, y: 2 }, { x: 10, y: 2 }, { x: 10, y: 10 }, { x: 2, y: 10 }, { x: 2, y: 2 }]) await board.click(p);
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 0 });
+
+  // Select it (the side panel grows with its corners), then at once two seams fanning from (2, 2).
+  await board.tool('v');
+  await board.click({ x: 6, y: 6 });
+  await expect(page.getByRole('heading', { name: /Section A/ })).toBeVisible();
+  const view = await board.viewport();
+  await board.tool('l');
+  await board.drag({ x: 2, y: 2 }, { x: 10, y: 4 });
+  await board.drag({ x: 2, y: 2 }, { x: 10, y: 6 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 2 });
+  await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3']);
+  // The view never moved while the panel changed.
+  expect(await board.viewport()).toEqual(view);
+
+  // Fill each patch with its own fabric: above the first seam, between the seams, below the second.
+  const inside = { above: { x: 9, y: 2.8 }, between: { x: 9, y: 4.6 }, below: { x: 4, y: 8 } };
+  const fabricOf = { above: 'plum', between: 'oat', below: 'sage' } as const;
+  const names = { plum: 'Plum', oat: 'Oat', sage: 'Sage' } as const;
+  await board.tool('f');
+  for (const where of ['above', 'between', 'below'] as const) {
+    await page.getByRole('combobox', { name: 'Fabric to fill with' }).click();
+    await page.getByRole('option', { name: names[fabricOf[where]] }).click();
+    await board.click(inside[where]);
+  }
+  await expect.poll(() => board.patchFabrics()).toEqual(['oat', 'plum', 'sage']);
+
+  // The saved document: each click point lies in the patch that carries its fabric (piecing derives them).
+  await new PatternPage(page).waitForSaved();
+  const id = /\/patterns\/([^/]+)\//.exec(page.url())![1];
+  await expect
+    .poll(async () => {
+      const stored = (await (await page.request.get(`/api/patterns/${id}`)).json()) as { revision: { document: PatternDocumentInput } };
+      const doc = readPatternDocument(stored.revision.document);
+      const { patches } = derivePatches(doc.sections[0]);
+      return Object.fromEntries(
+        (Object.keys(inside) as Array<keyof typeof inside>).map((where) => [where, patches.find((p) => locatePoint(inside[where], p.polygon) === 'inside')?.fabricId ?? null]),
+      );
+    })
+    .toEqual(fabricOf);
+  await shot(page, 'fan-filled');
   expect(errors).toEqual([]);
 });

@@ -81,6 +81,23 @@ export class DraftingBoardPage {
     });
   }
 
+  /** The board's view (scale and offset), to check it did not move. */
+  async viewport(): Promise<{ scale: number; originX: number; originY: number }> {
+    return this.page.evaluate(() => {
+      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: BoardHandle };
+      const { scale, originX, originY } = el.swBoard.editor.viewport;
+      return { scale, originX, originY };
+    });
+  }
+
+  /** The fabric ids of the first section's patch assignments, sorted (what the board's document holds). */
+  async patchFabrics(): Promise<string[]> {
+    return this.page.evaluate(() => {
+      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: { editor: { store: { document: { sections: Array<{ patches: Array<{ fabricId?: string }> }> } } } } };
+      return (el.swBoard.editor.store.document.sections[0]?.patches ?? []).map((p) => p.fabricId ?? '').sort();
+    });
+  }
+
   /** The drawing area of the board's document, in inches. */
   async canvas(): Promise<{ widthIn: number; heightIn: number }> {
     return this.page.evaluate(() => {
@@ -111,6 +128,9 @@ export class DraftingBoardPage {
   /** Drags the patch at `from` in the piecing-order list by its handle onto the place of `to` (CDK drag and drop). */
   async dragInList(from: number, to: number): Promise<void> {
     const items = this.orderList().locator('li');
+    // The side column scrolls: bring the list into view before reading positions.
+    await items.nth(Math.max(from, to)).scrollIntoViewIfNeeded();
+    await items.nth(Math.min(from, to)).scrollIntoViewIfNeeded();
     const handle = (await items.nth(from).locator('.handle').boundingBox())!;
     const target = (await items.nth(to).boundingBox())!;
     const x = handle.x + handle.width / 2;

@@ -14,6 +14,7 @@ export * from './commands/patch-assignments';
 export * from './commands/section-handles';
 export * from './commands/section-commands';
 export * from './commands/seam-commands';
+export * from './commands/ring-edges';
 export * from './commands/order-commands';
 export * from './commands/pattern-commands';
 export * from './commands/pattern-settings';

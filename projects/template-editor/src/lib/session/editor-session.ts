@@ -82,7 +82,6 @@ export class EditorSession {
 
   /** Opens a document (not recorded; the history starts empty). */
   load(document: PatternDocument): void {
-    if (document.referenceImage) this.editor.setSettings({ referenceOpacity: document.referenceImage.opacity });
     this.editor.store.load(document);
     this.lastOrderSearch.set(null);
   }

@@ -61,6 +61,7 @@ export class BoardEditor {
       snap: (p, o) => this.snap(p, o?.edges ?? false, o?.excludeSectionId),
       snapGrid: (p) => snapToGrid(p, this.settingsValue.grid),
       snapAngle: (deg, centre, kind) => this.snapAngle(deg, centre, kind),
+      snapsToPoints: () => this.settingsValue.snapToPoints,
       hitRadiusIn: () => HIT_RADIUS_PX / this.view.scale,
       activeFabricId: () => this.settingsValue.activeFabricId ?? this.store.document.fabrics[0]?.id ?? null,
       stripWidthsIn: () => this.settingsValue.stripWidthsIn,

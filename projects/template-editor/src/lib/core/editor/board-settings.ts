@@ -19,8 +19,6 @@ export interface BoardSettings {
   stripWidthsIn: number[];
   /** Copies around the circle the ring tool makes (the original included). */
   ringCount: number;
-  /** Opacity of the reference image, 0…1. */
-  referenceOpacity: number;
 }
 
 /** Settings a new board starts with. */
@@ -34,5 +32,4 @@ export const DEFAULT_BOARD_SETTINGS: BoardSettings = {
   activeFabricId: null,
   stripWidthsIn: [1.5, 0.5, 1.5],
   ringCount: 8,
-  referenceOpacity: 0.4,
 };

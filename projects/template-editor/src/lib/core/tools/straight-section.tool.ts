@@ -1,10 +1,12 @@
 import { distance, type Point } from '@seamwright/piecing';
+import { followRingEdges } from '../commands/ring-edges';
 import { addDrawnSection } from './add-drawn-section';
 import type { BoardTool, ToolContext, ToolPointer, ToolPreview } from './tool';
 
 /**
  * Straight section: click the vertices one by one; click the first vertex again (or press Enter) to
- * close the outline. Backspace takes back the last vertex, Escape drops the outline.
+ * close the outline. Backspace takes back the last vertex, Escape drops the outline. With snapping to
+ * points on, an edge whose corners sit on a ring and cut through it follows the ring's circle.
  */
 export class StraightSectionTool implements BoardTool {
   readonly id = 'straight' as const;
@@ -80,6 +82,9 @@ export class StraightSectionTool implements BoardTool {
     const vertices = this.points.map((p) => ({ x: p.x, y: p.y }));
     this.points = [];
     this.cursor = null;
-    addDrawnSection(this.ctx, 'Add straight section', { kind: 'straight', vertices });
+    const drawn = { kind: 'straight' as const, vertices };
+    // Corners snapped onto a ring: the edge between them follows the ring's circle exactly.
+    const geometry = this.ctx.snapsToPoints() ? followRingEdges(this.ctx.store.document, drawn) : drawn;
+    addDrawnSection(this.ctx, 'Add straight section', geometry);
   }
 }

@@ -31,6 +31,8 @@ export interface ToolContext {
    * of the ring repeats around that centre and the ring tool's count, else to 7.5° steps.
    */
   snapAngle(angleDeg: number, centre: Point, kind: 'direction' | 'sweep'): number;
+  /** Whether snapping to points is on (corners then also follow the rings they sit on). */
+  snapsToPoints(): boolean;
   /** Rounds to the grid step alone (for moves of whole sections). */
   snapGrid(p: Point): Point;
   /** Hit radius in inches at the current zoom (a few screen pixels). */
