@@ -60,12 +60,13 @@ describe('CuttingPageComponent', () => {
     expect(el.textContent).toContain('Dawn stripes, strip 2');
   });
 
-  it('follows a resized design: strips cut at the new finished width plus the same allowance', () => {
+  it('follows a resized design: strips cut at the new finished width plus the same allowance, to the sixteenth', () => {
     const { el, document, fixture } = render(pattern());
-    document.set(scalePattern(pattern(), 1.5));
+    document.set(scalePattern(pattern(), 1.28125));
     fixture.detectChanges();
-    // 2 in. strips at 1.5× finish at 3 in. and are cut 3 + 2 × ¼ = 3½ in. wide.
+    // 2 in. strips at 1.28125× finish at 2 9/16 in. and are cut 2 9/16 + 2 × ¼ = 3 1/16 in. wide: shown to the
+    // sixteenth, not rounded to an eighth a quilter would cut wrong.
     const cells = [...el.querySelectorAll('table[aria-label="Strip-set strips of Oat"] td')].map((td) => td.textContent?.trim());
-    expect(cells.slice(1, 3)).toEqual(['3 in.', '3 ½ in.']);
+    expect(cells.slice(1, 3)).toEqual(['2 ⁹⁄₁₆ in.', '3 ¹⁄₁₆ in.']);
   });
 });
