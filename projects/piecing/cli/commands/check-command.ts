@@ -25,7 +25,7 @@ export interface SectionVerdict {
   problems: string[];
 }
 
-/** Checks every section of a pattern (design.md §5.3). */
+/** Checks every section of a pattern (docs/design-notes.md#sewability). */
 export function checkPattern(document: PatternDocument): SectionVerdict[] {
   return document.sections.map((section) => {
     const { patches, problems } = derivePatches(section);

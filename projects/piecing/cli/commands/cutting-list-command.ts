@@ -3,7 +3,7 @@ import { buildCuttingList, CM_PER_INCH, formatInches, formatLength, INCHES_PER_Y
 import { EXIT_OK, type CliCommand } from '../cli-types';
 import { readPatternCommand } from '../read-pattern-file';
 
-/** Shown with every printed cutting list (design.md §9). */
+/** Shown with every printed cutting list (docs/design-notes.md#cautions). */
 export const CUTTING_CAUTION = 'Caution: rotary cutters are very sharp. Close the blade after every cut and cut away from your body.';
 
 /** The cutting list as text, in the pattern's display unit. */

@@ -3,7 +3,7 @@
  * these values as defaults.
  */
 
-/** Largest distance (sagitta) between an exact arc and the chords that stand for it, in inches (design.md §5.1). */
+/** Largest distance (sagitta) between an exact arc and the chords that stand for it, in inches (docs/design-notes.md#arc-flattening). */
 export const CHORD_TOLERANCE_IN = 0.002;
 
 /** Lengths closer than this are treated as equal, in inches. */

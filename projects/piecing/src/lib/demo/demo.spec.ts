@@ -41,7 +41,7 @@ describe.each([
 describe('Orchard Wheel', () => {
   const doc = buildOrchardWheel();
 
-  it('is the medallion of design.md §8: 8 star wedges r 5, 8 stripe arcs 5–8, 16 point arcs 8–11, 4 corners in 26 in.', () => {
+  it('is the demo medallion (docs/design-notes.md#demo-data): 8 star wedges r 5, 8 stripe arcs 5–8, 16 point arcs 8–11, 4 corners in 26 in.', () => {
     expect(doc.canvas).toEqual({ widthIn: 26, heightIn: 26 });
     const [star, band, points, corner] = doc.sections;
     expect(star.geometry).toMatchObject({ kind: 'wedge', radiusIn: 5, sweepDeg: 45 });

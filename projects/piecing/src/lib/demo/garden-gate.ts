@@ -9,7 +9,7 @@ const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [
 ];
 
 /**
- * "Garden Gate", the demo block (design.md §8, invented): an 8 in. straight-seam block in three
+ * "Garden Gate", the demo block (invented, docs/design-notes.md#demo-data): an 8 in. straight-seam block in three
  * sections — A, a roof (a goose triangle with sky either side); B, the gate with its centre bar; C, a
  * path widening towards the viewer between two beds. Each section is sewn 1, 2, 3.
  */

@@ -16,7 +16,7 @@ const CENTRE: Point = { x: 13, y: 13 };
 const UP_DEG = -90; // straight up on screen (y points down)
 
 /**
- * "Orchard Wheel", the demo medallion (design.md §8, invented): an 8-point star of wedges at the centre
+ * "Orchard Wheel", the demo medallion (invented, docs/design-notes.md#demo-data): an 8-point star of wedges at the centre
  * (radius 5 in.), a ring of 8 arc sections (5–8 in.) each carrying a pieced centre stripe (strip set Plum
  * 2 in. + Oat 1 in. + Plum 2 in.) with guide lines, a ring of 16 arc sections (8–11 in.) of points, and 4
  * straight corner sections squaring the 22 in. circle to a 26 in. block. Each ring is one section with a

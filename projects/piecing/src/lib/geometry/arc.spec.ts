@@ -4,7 +4,7 @@ import { arcLength, arcSegmentCount, flattenArc, GeometryInputError, sagitta } f
 import { distance } from './vector';
 
 describe('arc flattening', () => {
-  it('follows n = ceil(θ / (2·acos(1 − ε/r))) (design.md §5.1)', () => {
+  it('follows n = ceil(θ / (2·acos(1 − ε/r))) (docs/design-notes.md#arc-flattening)', () => {
     // r = 8 in., a 45° arc, ε = 0.002 in.: 2·acos(1 − 0.00025) = 0.0447232… rad, θ = 0.785398… → 17.56 → 18.
     expect(arcSegmentCount(8, Math.PI / 4)).toBe(18);
     expect(arcSegmentCount(8, Math.PI / 4, CHORD_TOLERANCE_IN)).toBe(Math.ceil((Math.PI / 4) / (2 * Math.acos(1 - 0.002 / 8))));

@@ -16,7 +16,7 @@ export class GeometryInputError extends RangeError {
 /**
  * Number of equal chords needed so that an arc of `radiusIn` sweeping `sweepRad` strays from its chords
  * by at most `toleranceIn` (the sagitta r(1 − cos(φ/2)) of each chord's angle φ):
- * n = ceil(θ / (2·acos(1 − ε/r))) (design.md §5.1). At least one chord, and at least three for a full
+ * n = ceil(θ / (2·acos(1 − ε/r))) (docs/design-notes.md#arc-flattening). At least one chord, and at least three for a full
  * circle; at most {@link MAX_ARC_SEGMENTS}.
  */
 export function arcSegmentCount(radiusIn: number, sweepRad: number, toleranceIn = CHORD_TOLERANCE_IN): number {

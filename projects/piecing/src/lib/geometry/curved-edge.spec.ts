@@ -115,7 +115,7 @@ describe('curved edges of straight sections', () => {
 
   it('flattens a curved edge into as many chords as an arc of the same radius and sweep', () => {
     const g = squareWithConcaveCorner(4, 4);
-    // n = ceil(θ / (2·acos(1 − ε/r))) (design.md §5.1): θ = π/2, r = 4, ε = 0.002.
+    // n = ceil(θ / (2·acos(1 − ε/r))) (docs/design-notes.md#arc-flattening): θ = π/2, r = 4, ε = 0.002.
     const n = Math.ceil(Math.PI / 2 / (2 * Math.acos(1 - CHORD_TOLERANCE_IN / 4)) - 1e-9);
     expect(flattenStraightEdges(g)).toHaveLength(3 + n - 1);
     expect(flattenStraightEdges(g, 0.1).length).toBeLessThan(3 + n - 1);

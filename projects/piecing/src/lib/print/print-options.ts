@@ -22,7 +22,7 @@ export const printOptionsSchema = z
     tileOverlapIn: z.number().min(MIN_TILE_OVERLAP_IN).max(2).default(MIN_TILE_OVERLAP_IN),
     /**
      * What the templates are printed on: on paper foundations every use needs its own print; a
-     * freezer-paper template is reused for several pressings (design.md §5.6).
+     * freezer-paper template is reused for several pressings (docs/design-notes.md#copies).
      */
     foundation: z.enum(['paper', 'freezer-paper']).default('paper'),
     /** Whether each template is printed as many times as the copies plan says, or once. */

@@ -3,7 +3,7 @@ import { planCopies } from '../fabrication/index';
 import type { PrintOptions } from './print-options';
 
 /**
- * How many prints of each section's template the set holds, from the copies plan (design.md §5.6):
+ * How many prints of each section's template the set holds, from the copies plan (docs/design-notes.md#copies):
  * on paper foundations one per use (templates needed), on freezer paper the printed copies; or one
  * each when the caller asks for single copies. Keyed by section id.
  */

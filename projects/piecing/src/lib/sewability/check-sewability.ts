@@ -48,7 +48,7 @@ export function explainFailure(prepared: PreparedPatches, k: number, check: Excl
 
 /**
  * Checks whether the patches can be sewn in `order` (patch numbers; default: ascending numbers), per
- * design.md §5.3: for every k ≥ 2, patch k meets the union of patches 1 … k−1 along one straight
+ * docs/design-notes.md#sewability: for every k ≥ 2, patch k meets the union of patches 1 … k−1 along one straight
  * segment and that union lies entirely on one side of the line through it (and patch k on the other).
  * Names the first failing patch and why. Never throws for valid patches; an order that does not list
  * every patch exactly once is reported as `order-mismatch`.

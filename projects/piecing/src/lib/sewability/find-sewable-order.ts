@@ -10,7 +10,7 @@ export const DEFAULT_MAX_SEARCH_STATES = 200_000;
 export type SubsetSearch = { found: true; order: number[] } | { found: false; limitHit: boolean };
 
 /**
- * Remove-last-patch search with memo over subsets (design.md §5.3): a set S of patches can be sewn when
+ * Remove-last-patch search with memo over subsets (docs/design-notes.md#sewability): a set S of patches can be sewn when
  * some k in S can be sewn last onto S \ {k} and S \ {k} can be sewn. Subsets found unsewable are
  * remembered, so each is examined once. Highest numbers are tried last-first, so a sewable designer's
  * numbering tends to come back unchanged. Returns indices into `prepared.patches`.

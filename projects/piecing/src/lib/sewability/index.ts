@@ -1,4 +1,4 @@
-/* Sewability check and order search (design.md §5.3). */
+/* Sewability check and order search (docs/design-notes.md#sewability). */
 export * from './sewability-types';
 export * from './check-sewability';
 export * from './find-sewable-order';

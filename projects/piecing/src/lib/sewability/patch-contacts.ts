@@ -163,7 +163,7 @@ export type AddCheck =
   | { ok: false; reason: 'no-shared-seam' | 'not-one-straight-seam' | 'earlier-patches-both-sides' | 'patch-crosses-seam-line'; culprit?: number };
 
 /**
- * Whether patch `k` can be sewn onto the union of the patches marked in `earlier` (design.md §5.3): it
+ * Whether patch `k` can be sewn onto the union of the patches marked in `earlier` (docs/design-notes.md#sewability): it
  * meets them along one straight stretch, they all lie on one side of that line, and it on the other.
  */
 export function canAdd(graph: ContactGraph, k: number, earlier: ArrayLike<number>, gapIn: number): AddCheck {

@@ -1,6 +1,6 @@
 import type { Point } from '../document/pattern-schema';
 
-/** Why a patch cannot be sewn at its place in the order (design.md §5.3). */
+/** Why a patch cannot be sewn at its place in the order (docs/design-notes.md#sewability). */
 export type SewabilityFailureReason =
   /** The patch shares no seam (no stretch of edge) with the patches sewn before it. */
   | 'no-shared-seam'

@@ -13,8 +13,8 @@ const section = (id: string, label: string, count?: number): Section => ({
 
 describe('planCopies', () => {
   it('a ring of 8 identical sections needs the template 8 times; one freezer-paper copy lasts 16 pressings', () => {
-    // design.md §1/§5.6: templates needed = sections × ring repeats; printed = ceil(uses / pressings).
-    // 16 pressings per template is one practitioner's rule of thumb (common practice, design.md §7).
+    // docs/design-notes.md#copies: templates needed = sections × ring repeats; printed = ceil(uses / pressings).
+    // 16 pressings per template is one practitioner's rule of thumb (common practice, docs/design-notes.md#common-practice).
     const plan = planCopies({ sections: [section('a', 'A', 8), section('b', 'B')], blockCount: 1, pressingsPerTemplate: 16 });
     expect(plan.sections).toEqual([
       { sectionId: 'a', label: 'A', perBlock: 8, templatesNeeded: 8, printedCopies: 1 },

@@ -23,7 +23,7 @@ export interface CopyPlan {
 }
 
 /**
- * How many of each template the pattern needs (design.md §5.6): templates needed = ring repeats × blocks
+ * How many of each template the pattern needs (docs/design-notes.md#copies): templates needed = ring repeats × blocks
  * per section; printed freezer-paper copies = ceil(uses / pressings per template), since one freezer-paper
  * template is pressed on, sewn and peeled off again until it stops sticking. `pressingsPerTemplate`
  * overrides the document's setting.

@@ -25,7 +25,7 @@ interface StripSetUse {
 }
 
 /**
- * The cutting list of a pattern (design.md §5.5): per patch the rough-cut rectangle (minimum-area
+ * The cutting list of a pattern (docs/design-notes.md#cutting-list): per patch the rough-cut rectangle (minimum-area
  * rectangle of patch + allowance + piecing margin, rounded up to ⅛ in.); per fabric the pieces, the
  * strips across its usable WOF (pieces per strip = floor(WOF / piece length)), the strip-set strips, the
  * total strip length and the yardage rounded up to ⅛ yd; every count multiplied by ring repeats and by

@@ -59,7 +59,7 @@ describe('rounding', () => {
 
 describe('planWofStrips', () => {
   it('sixteen 3 in. squares from 42 in. usable WOF take 2 strips, 14 per strip', () => {
-    // Common practice (design.md §7): floor(42 / 3) = 14 per strip, ceil(16 / 14) = 2 strips.
+    // Common practice (docs/design-notes.md#common-practice): floor(42 / 3) = 14 per strip, ceil(16 / 14) = 2 strips.
     expect(planWofStrips({ widthIn: 3, lengthIn: 3, count: 16 }, 42)).toEqual({
       stripWidthIn: 3,
       pieceLengthIn: 3,
@@ -130,7 +130,7 @@ describe('minAreaRectangle', () => {
 
 describe('patchRoughCut', () => {
   it('a 3 in. finished square with ¼ in. allowance and ½ in. margin is cut 4½ in. square', () => {
-    // (w + 2d) with d = allowance + margin = ¾ in. (design.md §7, mitre offset of a rectangle).
+    // (w + 2d) with d = allowance + margin = ¾ in. (docs/design-notes.md#published, mitre offset of a rectangle).
     const cut = patchRoughCut([{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 3 }, { x: 0, y: 3 }], 0.25, 0.5);
     expect(cut).toMatchObject({ widthIn: 4.5, lengthIn: 4.5 });
   });
@@ -167,7 +167,7 @@ describe('buildCuttingList', () => {
   }
 
   it('sixteen 2½ in. finished squares are sixteen 3 in. squares: 2 strips of 14 from 42 in. WOF', () => {
-    // Common practice (design.md §7): 3 in. squares, 14 per 42 in. strip, 16 take 2 strips.
+    // Common practice (docs/design-notes.md#common-practice): 3 in. squares, 14 per 42 in. strip, 16 take 2 strips.
     const list = buildCuttingList(readPatternDocument(gridDocument()));
     expect(list.problems).toEqual([]);
     expect(list.patches).toHaveLength(16);

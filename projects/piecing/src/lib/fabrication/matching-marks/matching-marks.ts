@@ -79,7 +79,7 @@ interface CurvedEdge {
 }
 
 /**
- * Matching marks on every curved edge two sections share (design.md §5.8): arc sections sharing a radius,
+ * Matching marks on every curved edge two sections share (docs/design-notes.md#matching-marks): arc sections sharing a radius,
  * a wedge's arc against an arc section's inner arc, a straight section's curved edge against either (a
  * corner whose edge follows a ring), ring-repeat copies included. Marks lie on a grid of
  * equal arc-length steps around each shared circle, so both neighbours get marks at the same absolute

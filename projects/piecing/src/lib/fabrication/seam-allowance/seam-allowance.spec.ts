@@ -87,7 +87,7 @@ const skylinePolygon = fc
 
 describe('offsetPolygon', () => {
   it('mitre offset of a 3 × 3 in. square by ¼ in. has area 12.25 sq in.', () => {
-    // Reference: (w + 2d)(h + 2d) = 3.5 × 3.5 = 12.25 (design.md §7, rectangle with mitre joins).
+    // Reference: (w + 2d)(h + 2d) = 3.5 × 3.5 = 12.25 (docs/design-notes.md#published, rectangle with mitre joins).
     expect(polygonArea(offsetPolygon(square3, 0.25))).toBeCloseTo(12.25, 10);
     // The same square wound the other way gives the same offset, wound like its input.
     const reversed = [...square3].reverse();
@@ -114,7 +114,7 @@ describe('offsetPolygon', () => {
     ['triangle', [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 1, y: 3 }]],
     ['2 × 7 rectangle', [{ x: 0, y: 0 }, { x: 7, y: 0 }, { x: 7, y: 2 }, { x: 0, y: 2 }]],
   ])('round-join offset of a %s matches the Steiner formula A + Pd + πd² within the chord error', (_name, ring) => {
-    // Reference: Steiner formula for the outer parallel body of a convex polygon (design.md §7).
+    // Reference: Steiner formula for the outer parallel body of a convex polygon (docs/design-notes.md#published).
     for (const d of [0.25, 0.375, 0.75 / 2.54]) {
       const steiner = polygonArea(ring) + polygonPerimeter(ring) * d + Math.PI * d * d;
       const area = polygonArea(offsetPolygon(ring, d, 'round'));
@@ -197,7 +197,7 @@ describe('sectionSeamAllowance', () => {
 
   it.each([0.25, 0.375, 0.75 / 2.54])('cutting line of an arc section stays within the chord tolerance of r ± %f in.', (d) => {
     // Reference: the exact offset of an arc of radius r by d is the arc of radius r ± d (concentric
-    // circles); the cutting line may stray from it by at most the chord tolerance (design.md §5.4).
+    // circles); the cutting line may stray from it by at most the chord tolerance (docs/design-notes.md#seam-allowance).
     const g = arcSection.geometry as Extract<Section['geometry'], { kind: 'arc' }>;
     const { cuttingLine } = sectionSeamAllowance(arcSection, d);
     let outer = 0;

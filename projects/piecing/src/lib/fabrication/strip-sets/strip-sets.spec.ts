@@ -20,7 +20,7 @@ const set = (widths: number[], axisAngleDeg = 0, offsetIn = 0): StripSet => ({
 
 describe('strip widths', () => {
   it('a ⅞ in. strip sewn between two seams finishes at ⅜ in. with ¼ in. seams', () => {
-    // Common practice: a strip sewn on both long edges finishes ½ in. narrower than cut (design.md §7).
+    // Common practice: a strip sewn on both long edges finishes ½ in. narrower than cut (docs/design-notes.md#common-practice).
     expect(stripFinishedWidthIn(0.875, 0.25)).toBe(0.375);
     expect(stripCutWidthIn(0.375, 0.25)).toBe(0.875);
     // With a ⅜ in. allowance a strip loses ¾ in.
