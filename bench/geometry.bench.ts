@@ -1,5 +1,5 @@
 /**
- * Geometry and cutting benchmark (design.md §5.4–§5.5): seam-allowance offsets of 10,000 flattened arc
+ * Geometry and cutting benchmark (docs/design-notes.md#seam-allowance and #cutting-list): seam-allowance offsets of 10,000 flattened arc
  * sections and 10,000 quads by ¼ in. with clipper-lib (our offsets) against jsts buffers (JTS port) in the
  * same run, mitre joins with the same limit on both, runs interleaved; and the full cutting list of a
  * 1,000-patch pattern. Targets: offsets ≥ 1.5× faster than jsts; cutting list < 200 ms. Medians; nothing

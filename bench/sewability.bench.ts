@@ -1,5 +1,5 @@
 /**
- * Sewability benchmark: order search on 20-patch sections (design.md §5.3). Medians over repeated runs;
+ * Sewability benchmark: order search on 20-patch sections (docs/design-notes.md#sewability). Medians over repeated runs;
  * nothing here fails on a time.
  */
 import type { SewabilityPatch, Point, Section } from '../projects/piecing/src/public-api';
@@ -143,7 +143,7 @@ export default async function sewabilityBench(): Promise<BenchSection> {
     title: 'Sewability: order search on 20-patch sections',
     rows,
     notes: [
-      'Remove-last-patch search with memo over subsets (design.md §5.3); the unsewable case has to rule out every order.',
+      'Remove-last-patch search with memo over subsets (docs/design-notes.md#sewability); the unsewable case has to rule out every order.',
       '"contacts" is the precomputation of shared edges and sides between all pairs of patches; findSewableOrder includes it.',
       'Medians of 9 runs after 2 warm-up runs (3 after 1 for the 501-patch rows), one process.',
     ],

@@ -4,7 +4,7 @@ import { AuthPage } from './pages/auth.page';
 import { PatternPage } from './pages/pattern.page';
 
 /*
- * The invented demo medallion (design.md §8, built by the piecing library) through the app's
+ * The invented demo medallion (docs/design-notes.md#demo-data, built by the piecing library) through the app's
  * cutting list, strip-set diagrams, print preview and sewing log. Screens go to e2e/artifacts/.
  */
 

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type TestServer } from './test/harness';
 
 /**
- * The access matrix (design.md §3): for every route about one pattern, what the owner, a co-designer,
+ * The access matrix (docs/design-notes.md#roles-and-access): for every route about one pattern, what the owner, a co-designer,
  * a quilter, a stranger and a signed-out visitor get. Strangers and visitors always get 404.
  */
 type Actor = 'owner' | 'co' | 'quilter' | 'stranger' | 'anon';

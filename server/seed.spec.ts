@@ -19,7 +19,7 @@ const signedIn = async (role: string) => {
   return c;
 };
 
-describe('demo data (design.md §8)', () => {
+describe('demo data (docs/design-notes.md#demo-data)', () => {
   it('creates the Fernbrook accounts and demo patterns once', async () => {
     expect(isEmpty(t.ctx.db)).toBe(true);
     const first = await seedDemo(t.ctx.db, 4);
@@ -51,7 +51,7 @@ describe('demo data (design.md §8)', () => {
     ]);
     const wheelId = shared.body.items[1].id;
     const wheel = await quilter.get(`/api/patterns/${wheelId}`).expect(200);
-    // The medallion's fabrics (design.md §8).
+    // The medallion's fabrics (docs/design-notes.md#demo-data).
     expect(wheel.body.revision.document.fabrics.map((f: { name: string }) => f.name)).toEqual(['Plum', 'Oat', 'Sage', 'Marigold', 'Ink']);
     await quilter.put(`/api/patterns/${wheelId}`, { baseRevision: 1, document: wheel.body.revision.document }).expect(403);
   });

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
-/** Account roles (design.md §3). */
+/** Account roles (docs/design-notes.md#roles-and-access). */
 export const ROLES = ['admin', 'designer', 'quilter'] as const;
 export type Role = (typeof ROLES)[number];
 

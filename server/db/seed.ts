@@ -1,5 +1,5 @@
 /**
- * Demo data (design.md §8, invented): the studio "Fernbrook Patterns" with an admin, a designer and a
+ * Demo data (invented, docs/design-notes.md#demo-data): the studio "Fernbrook Patterns" with an admin, a designer and a
  * quilter, and the demo patterns built by the piecing library, shared with the demo quilter.
  *
  * `seedDemo` adds whatever of it is missing (idempotent). The server calls it at start on an empty

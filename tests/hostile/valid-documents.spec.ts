@@ -82,7 +82,7 @@ describe('random valid documents through the piecing library', () => {
           const search = findSewableOrder(section, { maxSearchStates: 5000 });
           if (search.found) {
             seen.ordersFound++;
-            // An order the search found must pass the check (design.md §5.3).
+            // An order the search found must pass the check (docs/design-notes.md#sewability).
             expect(checkSewability(section, search.order).sewable).toBe(true);
           } else expect(search.message).toBeTruthy();
           expect(expandRingRepeat(section)).toHaveLength(section.ringRepeat?.count ?? 1);
@@ -92,19 +92,19 @@ describe('random valid documents through the piecing library', () => {
         expect(list.title).toBe(doc.title);
         for (const f of list.fabrics) {
           expect(Number.isFinite(f.yardageIn)).toBe(true);
-          // Yardage is bought in ⅛ yd = 4.5 in. steps (design.md §7, common practice), never less than cut.
+          // Yardage is bought in ⅛ yd = 4.5 in. steps (common practice, docs/design-notes.md#common-practice), never less than cut.
           expect(f.yardageIn + 1e-9).toBeGreaterThanOrEqual(f.fabricLengthIn);
           expect(f.yardageEighths).toBe(Math.round(f.yardageIn / 4.5));
         }
         for (const p of list.patches) {
           expect(p.cutWidthIn).toBeGreaterThan(0);
           expect(p.cutWidthIn).toBeLessThanOrEqual(p.cutLengthIn + 1e-9);
-          // Rough cuts are rounded up to ⅛ in. (design.md §5.5).
+          // Rough cuts are rounded up to ⅛ in. (docs/design-notes.md#cutting-list).
           expect(Math.abs(p.cutWidthIn * 8 - Math.round(p.cutWidthIn * 8))).toBeLessThan(1e-6);
         }
         const copies = planCopies(doc);
         for (const s of copies.sections) {
-          // templates = ring repeats × blocks; printed freezer-paper copies = ceil(uses / pressings) (design.md §5.6).
+          // templates = ring repeats × blocks; printed freezer-paper copies = ceil(uses / pressings) (docs/design-notes.md#copies).
           const section = doc.sections.find((x) => x.id === s.sectionId)!;
           expect(s.templatesNeeded).toBe((section.ringRepeat?.count ?? 1) * doc.blockCount);
           expect(s.printedCopies).toBe(Math.ceil(s.templatesNeeded / doc.pressingsPerTemplate));

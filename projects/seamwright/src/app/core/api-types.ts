@@ -3,7 +3,7 @@
  */
 import type { PatternDocument, PatternDocumentInput } from '@seamwright/piecing';
 
-/** Account roles (design.md §3). */
+/** Account roles (docs/design-notes.md#roles-and-access). */
 export type Role = 'admin' | 'designer' | 'quilter';
 /** A user's access to one pattern. */
 export type PatternAccess = 'owner' | 'co-designer' | 'quilter';

@@ -14,7 +14,7 @@ describe('judgeScale', () => {
     expect(v.kind !== 'true' && v.advice.join(' ')).toContain('100 %');
   });
 
-  it('catches a typical fit-to-page shrink of 97 % (design.md §7: "commonly a few per cent")', () => {
+  it('catches a typical fit-to-page shrink of 97 % (common practice, docs/design-notes.md#common-practice: a few per cent)', () => {
     expect(judgeScale(0.97, 1).kind).toBe('shrunk');
   });
 

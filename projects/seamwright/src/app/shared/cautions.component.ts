@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-/** The cautions of the product (design.md §9), by topic. */
+/** The cautions of the product (docs/design-notes.md#cautions), by topic. */
 export type CautionTopic = 'print' | 'cutter' | 'iron' | 'freezer-paper';
 
 const CAUTIONS: Record<CautionTopic, { icon: string; title: string; text: string }> = {

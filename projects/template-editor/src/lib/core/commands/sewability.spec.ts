@@ -27,7 +27,7 @@ describe('piecing order and sewability on the board', () => {
     const along = setPiecingOrder(document, sectionId, [10, 30, 55, 80].map((d) => indexAt(document, sectionId, d)), shared);
     const analysis = new SectionAnalysis();
     // Each wedge-shaped piece meets the previous one along one radial seam, with all earlier pieces on
-    // one side of it: the design.md §5.3 rule holds at every step.
+    // one side of it: the rule in docs/design-notes.md#sewability holds at every step.
     expect(analysis.sewability(findSection(along, sectionId)!)).toEqual({ ok: true });
     const jump = setPiecingOrder(document, sectionId, [10, 55, 30, 80].map((d) => indexAt(document, sectionId, d)), shared);
     const verdict = analysis.sewability(findSection(jump, sectionId)!);
@@ -46,7 +46,7 @@ describe('piecing order and sewability on the board', () => {
 
   it('reports a four-patch (a cross of two seams) as unsewable in any order and suggests a split along a seam', () => {
     // Whatever the order, the last of four patches meeting at a cross touches two earlier patches along
-    // two perpendicular stretches, so no single straight seam adds it (design.md §5.3; common practice:
+    // two perpendicular stretches, so no single straight seam adds it (docs/design-notes.md#sewability; common practice:
     // a four-patch is pieced as two sections).
     const added = addSection(emptyPattern(), { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] }, shared);
     const sectionId = added.sectionId;
