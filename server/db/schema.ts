@@ -111,6 +111,27 @@ export const revisions = sqliteTable(
   (t) => [uniqueIndex('revisions_pattern_number_idx').on(t.patternId, t.number)],
 );
 
+/**
+ * What the pattern list shows of a pattern's latest revision, worked out from its document once and
+ * kept here: a cache, refilled when the head revision or the preview renderer's version moves on
+ * (server/services/pattern-list.ts).
+ */
+export const patternPreviews = sqliteTable('pattern_previews', {
+  patternId: text('pattern_id')
+    .primaryKey()
+    .references(() => patterns.id, { onDelete: 'cascade' }),
+  /** The revision these facts were taken from. */
+  revisionNumber: integer('revision_number').notNull(),
+  /** Version of the renderer that drew `svg`; an older one is drawn again. */
+  rendererVersion: integer('renderer_version').notNull(),
+  sectionCount: integer('section_count').notNull(),
+  widthIn: real('width_in').notNull(),
+  heightIn: real('height_in').notNull(),
+  displayUnit: text('display_unit', { enum: ['in', 'cm'] }).notNull(),
+  /** A small SVG picture of the pattern; null when it could not be drawn. */
+  svg: text('svg'),
+});
+
 export const members = sqliteTable(
   'members',
   {
