@@ -9,24 +9,13 @@ import type { Point } from '../projects/piecing/src/public-api';
 import { buildCuttingList, buildStressPattern, flattenSectionOutline, MITRE_LIMIT, PolygonOffsetter, toIntegerRing } from '../projects/piecing/src/public-api';
 import { jstsBufferParameters, jstsBufferPolygon, jstsBufferRing, toJstsPolygon } from '../projects/piecing/src/lib/fabrication/testing/jsts-reference';
 import { ms, summarise, timeRuns, type BenchSection } from './bench-kit';
+import { seededRandom } from '../tests/support/random';
 
 const COUNT = 10_000;
 const ALLOWANCE_IN = 0.25;
 
-/** Deterministic pseudo-random numbers (mulberry32), so every run offsets the same shapes. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 function arcSections(count: number): Point[][] {
-  const rnd = random(1);
+  const rnd = seededRandom(1);
   return Array.from({ length: count }, () => {
     const inner = 2 + rnd() * 8;
     return flattenSectionOutline({
@@ -41,7 +30,7 @@ function arcSections(count: number): Point[][] {
 }
 
 function quads(count: number): Point[][] {
-  const rnd = random(2);
+  const rnd = seededRandom(2);
   return Array.from({ length: count }, () => {
     const x = rnd() * 40;
     const y = rnd() * 40;

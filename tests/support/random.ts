@@ -1,6 +1,7 @@
 /**
- * A small seeded pseudo-random generator (mulberry32) so fault schedules are reproducible:
- * the same seed gives the same kill moments. Set FAULT_SEED to replay a failing run.
+ * The one seeded pseudo-random generator (mulberry32) of the tests and benchmarks: the same seed
+ * gives the same numbers, so fault schedules (kill moments) and benchmark shapes repeat from run to
+ * run. Set FAULT_SEED to replay a failing fault run.
  */
 export function seededRandom(seed: number): () => number {
   let a = seed >>> 0;
