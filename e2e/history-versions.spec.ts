@@ -89,4 +89,5 @@ test('autosaves of one sitting share a History row; a named version with a note 
   const named = page.getByRole('region', { name: 'Named version' });
   await expect(named).toContainText('Ready for a test block');
   await expect(named).toContainText('Three seams; strips cut 1 in. and 2 in.');
+  await shot(page, 'history-version-view');
 });
