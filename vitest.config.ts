@@ -2,8 +2,14 @@ import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
 
 const alias = {
-  // Vite ignores tsconfig "paths" in plain vitest: mirror them here.
+  // Vite ignores tsconfig "paths" in plain vitest: mirror them here. An alias also matches the paths
+  // below it and the first match wins, so each '/testing' entry comes before its library's.
+  '@seamwright/piecing/testing': fileURLToPath(new URL('./projects/piecing/src/testing.ts', import.meta.url)),
   '@seamwright/piecing': fileURLToPath(new URL('./projects/piecing/src/public-api.ts', import.meta.url)),
+  '@seamwright/template-editor/testing': fileURLToPath(
+    new URL('./projects/template-editor/src/testing.ts', import.meta.url),
+  ),
+  '@seamwright/template-editor': fileURLToPath(new URL('./projects/template-editor/src/public-api.ts', import.meta.url)),
   '@seamwright/template-editor-core': fileURLToPath(
     new URL('./projects/template-editor/src/lib/core/public-api.ts', import.meta.url),
   ),

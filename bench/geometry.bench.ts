@@ -6,8 +6,8 @@
  * here fails on a time.
  */
 import type { Point } from '../projects/piecing/src/public-api';
-import { buildCuttingList, buildStressPattern, flattenSectionOutline, MITRE_LIMIT, PolygonOffsetter, toIntegerRing } from '../projects/piecing/src/public-api';
-import { jstsBufferParameters, jstsBufferPolygon, jstsBufferRing, toJstsPolygon } from '../projects/piecing/src/lib/fabrication/testing/jsts-reference';
+import { buildCuttingList, flattenSectionOutline } from '../projects/piecing/src/public-api';
+import { buildStressPattern, jstsBufferParameters, jstsBufferPolygon, jstsBufferRing, MITRE_LIMIT, PolygonOffsetter, toIntegerRing, toJstsPolygon } from '../projects/piecing/src/testing';
 import { ms, summarise, timeRuns, type BenchSection } from './bench-kit';
 import { seededRandom } from '../tests/support/random';
 

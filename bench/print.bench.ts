@@ -31,7 +31,8 @@ interface CaseResult {
 /** Child mode: render one case RUNS times and print the figures as JSON. */
 async function child(which: string): Promise<void> {
   const piecing = await import('../projects/piecing/src/public-api');
-  const document = which.startsWith('medallion') ? piecing.buildOrchardWheel() : piecing.buildStressPattern(1000);
+  const { buildStressPattern } = await import('../projects/piecing/src/testing');
+  const document = which.startsWith('medallion') ? piecing.buildOrchardWheel() : buildStressPattern(1000);
   const paper = which.endsWith('tabloid') ? 'tabloid' : 'letter';
   const fonts = await piecing.loadPrintFonts((f) => readFile(join(fontsDir, f)));
   let peakHeap = 0;

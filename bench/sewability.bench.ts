@@ -2,8 +2,9 @@
  * Sewability benchmark: order search on 20-patch sections (docs/design-notes.md#sewability). Medians over repeated runs;
  * nothing here fails on a time.
  */
-import type { SewabilityPatch, Point, Section } from '../projects/piecing/src/public-api';
-import { checkSewability, derivePatches, findSewableOrder, preparePatches, searchSubset } from '../projects/piecing/src/public-api';
+import type { Point, Section } from '../projects/piecing/src/public-api';
+import { checkSewability, derivePatches, findSewableOrder } from '../projects/piecing/src/public-api';
+import { preparePatches, searchSubset, type SewabilityPatch } from '../projects/piecing/src/testing';
 import { ms, timeRuns, type BenchSection } from './bench-kit';
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];

@@ -1,13 +1,139 @@
 /*
  * Public API of @seamwright/piecing: the pattern document, geometry, sewability, seam allowance,
- * cutting list and print sets. Import from '@seamwright/piecing' only, never from deep paths.
- * Each folder keeps its own index.ts; add exports there, not here.
+ * cutting list and print sets. Import from '@seamwright/piecing' only, never from deep paths
+ * (lint enforces it). An explicit list: what the editor, the app, the server and the command line
+ * use, plus the document and its readers. Names that only tests and benchmarks need are in
+ * './testing' ('@seamwright/piecing/testing'). To publish a name, add it to its group here.
  */
-export * from './lib/tolerance';
-export * from './lib/document/index';
-export * from './lib/geometry/index';
-export * from './lib/fabrication/index';
-export * from './lib/demo/index';
-export * from './lib/print/index';
-export * from './lib/sewability/index';
-export * from './lib/units/index';
+
+/** The pattern document: format version, zod schemas, types, reading and migrating, JSON Schema. */
+export {
+  FORMAT_VERSION,
+  MAX_SIZE_IN,
+  patternDocumentSchema,
+  sectionGeometrySchema,
+  arcGeometrySchema,
+  wedgeGeometrySchema,
+  parsePatternDocument,
+  readPatternDocument,
+  PatternValidationError,
+  patternJsonSchemaText,
+  type Point,
+  type Fabric,
+  type StraightGeometry,
+  type ArcGeometry,
+  type WedgeGeometry,
+  type SectionGeometry,
+  type SectionKind,
+  type Seam,
+  type Strip,
+  type StripSet,
+  type PatchAssignment,
+  type RingRepeat,
+  type Section,
+  type ReferenceImage,
+  type PatternDocument,
+  type PatternDocumentInput,
+  type DocumentIssue,
+  type ParseResult,
+} from './lib/document/index';
+
+/** Resizing a whole design and finding sections outside the drawing area. */
+export {
+  resizeFactor,
+  resizePattern,
+  sectionsOutsideCanvas,
+  type FinishedSize,
+  type ResizeResult,
+  type SectionOutsideCanvas,
+} from './lib/document/index';
+
+/** Geometry: vectors and angles, polygons, section outlines and edges, ring repeats, patches from seams. */
+export {
+  degToRad,
+  radToDeg,
+  distance,
+  distanceToSegment,
+  lerp,
+  pointOnCircle,
+  normaliseAngleDeg,
+  polygonArea,
+  polygonBounds,
+  locatePoint,
+  flattenSectionOutline,
+  sectionEdges,
+  ringRepeatTransforms,
+  expandRingRepeat,
+  circlesOfSections,
+  edgesOnCircles,
+  fitEdgeToCircle,
+  splitSection,
+  derivePatches,
+  type Bounds,
+  type DerivedPatch,
+  type SplitResult,
+} from './lib/geometry/index';
+
+/** Sewability: whether a section can be sewn in order, and the order search. */
+export {
+  checkSewability,
+  findSewableOrder,
+  type SewabilityVerdict,
+  type SewableOrderResult,
+  type SewabilityOptions,
+} from './lib/sewability/index';
+
+/** Fabrication: cutting lines, strip sets, the cutting list and template copies. */
+export {
+  sectionCuttingLine,
+  layoutStripSet,
+  stripSetDisplayName,
+  buildCuttingList,
+  planCopies,
+  INCHES_PER_YARD,
+  YARDAGE_STEP_IN,
+  type StripSetLayout,
+  type CuttingList,
+  type CuttingListStripSet,
+  type CopyPlan,
+} from './lib/fabrication/index';
+
+/** Print sets: paper, options and fonts, the layout plan and the PDF. */
+export {
+  PAPER_NAMES,
+  PAPER_SIZES,
+  TEST_SQUARE_IN,
+  TEST_SQUARE_CM_IN,
+  printOptionsSchema,
+  loadPrintFonts,
+  buildPrintTemplates,
+  layoutTemplates,
+  planPrintLayout,
+  renderPrintSet,
+  sheetCountStatement,
+  type PaperName,
+  type PrintOptions,
+  type PrintOptionsInput,
+  type PrintFonts,
+  type PrintTemplate,
+  type PrintLayout,
+  type PlannedSheet,
+  type SheetPlacement,
+  type PrintSetResult,
+  type PrintProgress,
+  type RenderPrintSetOptions,
+} from './lib/print/index';
+
+/** Lengths as people write and read them. */
+export {
+  CM_PER_INCH,
+  parseLength,
+  formatInches,
+  formatCentimetres,
+  formatLength,
+  type LengthUnit,
+  type InchDenominator,
+} from './lib/units/index';
+
+/** The demo patterns (invented, docs/design-notes.md#demo-data). */
+export { buildOrchardWheel, buildGardenGate } from './lib/demo/index';

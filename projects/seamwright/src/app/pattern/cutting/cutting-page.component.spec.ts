@@ -1,6 +1,7 @@
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { readPatternDocument, scalePattern, type PatternDocument } from '@seamwright/piecing';
+import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
+import { scalePattern } from '@seamwright/piecing/testing';
 import { PatternContext } from '../pattern-context.service';
 import { CuttingPageComponent } from './cutting-page.component';
 

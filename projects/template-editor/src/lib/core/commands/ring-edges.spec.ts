@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { exactSectionArea, polygonArea, flattenSectionOutline, type PatternDocument } from '@seamwright/piecing';
+import { polygonArea, flattenSectionOutline, type PatternDocument } from '@seamwright/piecing';
+import { exactSectionArea } from '@seamwright/piecing/testing';
 import { emptyPattern, click, play, testEditor } from '../testing/board-fixtures';
 import { followRingEdges } from './ring-edges';
 

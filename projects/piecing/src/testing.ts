@@ -1,0 +1,29 @@
+/*
+ * Test and benchmark entry of @seamwright/piecing ('@seamwright/piecing/testing'): names that only
+ * specs outside the library and the benchmarks need, and reference implementations to compare with.
+ * Not for product code; the product imports '@seamwright/piecing'.
+ */
+
+/** A section's exact area (arcs included), to check flattened and fitted outlines against. */
+export { exactSectionArea } from './lib/geometry/index';
+
+/** Uniform scaling of a document, to build expected values for a resize. */
+export { scalePattern } from './lib/document/index';
+
+/** A generated pattern of a chosen size, for benchmarks. */
+export { buildStressPattern } from './lib/demo/index';
+
+/** Seam-allowance internals the geometry benchmark times, and the JTS buffer it compares them with. */
+export { MITRE_LIMIT } from './lib/tolerance';
+export { PolygonOffsetter, toIntegerRing } from './lib/fabrication/index';
+export {
+  toJstsPolygon,
+  jstsBufferParameters,
+  jstsBufferPolygon,
+  jstsBuffer,
+  jstsBufferArea,
+  jstsBufferRing,
+} from './lib/fabrication/testing/jsts-reference';
+
+/** Sewability internals the sewability benchmark times. */
+export { preparePatches, searchSubset, type SewabilityPatch } from './lib/sewability/index';
