@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
 import { derivePatches, parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
+import { exampleJson } from '../tests/fixtures/documents';
 import { AuthPage } from './pages/auth.page';
 import { DraftingBoardPage } from './pages/drafting-board.page';
 import { PatternFilesPage } from './pages/pattern-files.page';
@@ -18,7 +18,7 @@ const designer = { name: 'Fen Files', email: `fen-${run}@example.test`, password
 const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/pattern-files-${name}.png` });
 
 /** The documented example with a ring repeat and a strip set (docs/examples/). */
-const example = JSON.parse(readFileSync('docs/examples/arc-ring-with-strip-set.json', 'utf8')) as Record<string, unknown>;
+const example = exampleJson('arc-ring-with-strip-set') as Record<string, unknown>;
 const good = { ...example, title: `Compass from a file ${run}` };
 const broken = {
   ...example,

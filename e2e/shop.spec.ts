@@ -1,5 +1,6 @@
 import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { baseURL, fakeStripeURL } from '../playwright.config';
+import { sampleBlock } from '../tests/fixtures/documents';
 import { mailsTo } from './pages/mail-inbox';
 
 /*
@@ -39,30 +40,10 @@ async function signUp(page: Page, user: { name: string; email: string; password:
   await expect(page.getByRole('button', { name: 'Account menu' })).toBeVisible();
 }
 
-/** Creates a small pattern through the API as the signed-in user of `request` (patterns are not the shop's screens). */
+/** Creates an 8 in. sample block through the API as the signed-in user of `request` (patterns are not the shop's screens). */
 async function createPattern(request: APIRequestContext, title: string): Promise<string> {
   const { csrfToken } = await (await request.get('/api/auth/csrf')).json();
-  const document = {
-    formatVersion: 1,
-    title,
-    canvas: { widthIn: 8, heightIn: 8 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'sec-a',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [ { x: 0, y: 0 }, { x: 8, y: 0 }, { x: 8, y: 8 }, { x: 0, y: 8 } ] },
-        seams: [{ id: 's1', a: { x: 0, y: 0 }, b: { x: 8, y: 8 } }],
-        patches: [
-          { number: 1, anchor: { x: 6, y: 2 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 2, y: 6 }, fabricId: 'oat' },
-        ],
-      },
-    ],
-  };
+  const document = sampleBlock(title, 8);
   const res = await request.post('/api/patterns', { data: { document }, headers: { 'X-CSRF-Token': csrfToken } });
   expect(res.status()).toBe(201);
   return (await res.json()).pattern.id as string;

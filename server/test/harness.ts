@@ -10,6 +10,7 @@ import { loadConfig } from '../config';
 import { openDatabase } from '../db/database';
 import { createSmtpMailer } from '../services/mailer';
 import { PrintSetService } from '../services/print-sets';
+import { sampleBlock } from '../../tests/fixtures/documents';
 import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
 
 export interface TestServer {
@@ -125,29 +126,9 @@ export async function userClient(app: Express, email: string, role: 'designer' |
   return c.signUp(email, role);
 }
 
-/** A small valid pattern document: one 4 × 4 in. straight section split into two patches. */
+/** A small valid pattern document: the shared sample block, one 4 × 4 in. section split into two patches. */
 export function sampleDocument(title = 'Test block') {
-  return {
-    formatVersion: 1,
-    title,
-    canvas: { widthIn: 4, heightIn: 4 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'sec-a',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [ { x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 4 }, { x: 0, y: 4 } ] },
-        seams: [{ id: 's1', a: { x: 0, y: 0 }, b: { x: 4, y: 4 } }],
-        patches: [
-          { number: 1, anchor: { x: 3, y: 1 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 1, y: 3 }, fabricId: 'oat' },
-        ],
-      },
-    ],
-  };
+  return sampleBlock(title);
 }
 
 /** Pulls the first link with `?token=` out of an e-mail body. */

@@ -1,6 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { EXAMPLE_NAMES, EXAMPLES_DIR, exampleJson, type ExampleName } from '../../../../../tests/fixtures/documents';
 import { sectionEdges } from '../geometry/curved-edge';
 import { expandRingRepeat } from '../geometry/ring-repeat';
 import { distance } from '../geometry/vector';
@@ -26,29 +27,29 @@ describe('JSON Schema', () => {
 });
 
 describe('example files in docs/examples', () => {
-  const files = readdirSync(`${docs}examples`).filter((f) => f.endsWith('.json'));
+  const files = readdirSync(EXAMPLES_DIR).filter((f) => f.endsWith('.json'));
 
-  it('are all valid pattern documents', () => {
-    expect(files.sort()).toEqual(['arc-ring-with-strip-set.json', 'corner-following-a-ring.json', 'straight-block-three-sections.json', 'unsewable-order.json']);
-    for (const f of files) {
-      const result = parsePatternDocument(JSON.parse(readFileSync(`${docs}examples/${f}`, 'utf8')));
-      expect(result.ok ? [] : result.issues, f).toEqual([]);
+  it('are all valid pattern documents, and the fixtures list them all', () => {
+    expect(files.sort()).toEqual(EXAMPLE_NAMES.map((n) => `${n}.json`));
+    for (const name of EXAMPLE_NAMES) {
+      const result = parsePatternDocument(exampleJson(name));
+      expect(result.ok ? [] : result.issues, name).toEqual([]);
     }
   });
 
   it('hold what their names promise', () => {
-    const read = (f: string) => {
-      const r = parsePatternDocument(JSON.parse(readFileSync(`${docs}examples/${f}`, 'utf8')));
-      if (!r.ok) throw new Error(f);
+    const read = (name: ExampleName) => {
+      const r = parsePatternDocument(exampleJson(name));
+      if (!r.ok) throw new Error(name);
       return r.document;
     };
-    expect(read('straight-block-three-sections.json').sections.map((s) => s.geometry.kind)).toEqual(['straight', 'straight', 'straight']);
-    const ring = read('arc-ring-with-strip-set.json');
+    expect(read('straight-block-three-sections').sections.map((s) => s.geometry.kind)).toEqual(['straight', 'straight', 'straight']);
+    const ring = read('arc-ring-with-strip-set');
     const band = ring.sections.find((s) => s.geometry.kind === 'arc')!;
     expect(expandRingRepeat(band)).toHaveLength(8);
     expect(band.patches.some((p) => p.stripSet && p.stripSet.strips.length === 3)).toBe(true);
     // The corner's curved edge lies on the quarter circle's arc: both ends on it, its centre at the circle's.
-    const [quarter, corner] = read('corner-following-a-ring.json').sections;
+    const [quarter, corner] = read('corner-following-a-ring').sections;
     if (quarter.geometry.kind !== 'wedge' || corner.geometry.kind !== 'straight') throw new Error('kinds');
     const curved = sectionEdges(corner.geometry).filter((e) => e.arc);
     expect(curved.map((e) => e.index)).toEqual([4]);

@@ -9,7 +9,7 @@ import { curvedCornerDocument, onRing } from './testing/curved-corner';
 
 describe('splitting a straight section with a curved edge', () => {
   it('a seam ending on the concave curve reaches it and splits the corner in two equal halves', () => {
-    const corner = { ...curvedCornerDocument().sections[1], seams: [{ id: 'd', a: { x: 8, y: 8 }, b: onRing(5, 45) }] };
+    const corner = { ...curvedCornerDocument().sections[1], seams: [{ id: 'd', a: { x: 8, y: 8 }, b: onRing(5, 45) }], patches: [] };
     const { patches, problems } = derivePatches(corner);
     expect(problems).toEqual([]);
     expect(patches).toHaveLength(2);
@@ -50,7 +50,7 @@ describe('splitting a straight section with a curved edge', () => {
   });
 
   it('a seam stopping short of the curve is reported', () => {
-    const corner = { ...curvedCornerDocument().sections[1], seams: [{ id: 'short', a: { x: 8, y: 8 }, b: onRing(5.5, 45) }] };
+    const corner = { ...curvedCornerDocument().sections[1], seams: [{ id: 'short', a: { x: 8, y: 8 }, b: onRing(5.5, 45) }], patches: [] };
     const { patches, problems } = derivePatches(corner);
     expect(patches).toHaveLength(1);
     expect(problems.map((p) => [p.kind, p.seamId])).toEqual([['seam-stops-short', 'short']]);
