@@ -1,9 +1,11 @@
 import { and, asc, count, desc, eq, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
-import { members, patterns, users } from '../db/schema';
+import { formatLength, parsePatternDocument } from '@seamwright/piecing';
+import { members, patternPreviews, patterns, revisions, users, type Pattern } from '../db/schema';
 import { likeContains } from '../http/paging';
 import type { Access } from './access';
+import { PREVIEW_RENDERER_VERSION, patternPreviewSvg } from './pattern-preview';
 import { patternJson } from './revisions';
 
 export type ListScope = 'all' | 'owned' | 'shared' | 'trash';
@@ -47,10 +49,11 @@ const listStatements = preparedPerDb((db) => {
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
       page: db
-        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access })
+        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access, preview: patternPreviews })
         .from(patterns)
         .leftJoin(members, membership)
         .innerJoin(users, eq(users.id, patterns.ownerId))
+        .leftJoin(patternPreviews, and(eq(patternPreviews.patternId, patterns.id), eq(patternPreviews.revisionNumber, patterns.headRevision), eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION)))
         .where(where)
         .orderBy(direction(sortColumn), direction(patterns.id))
         .limit(sql.placeholder('limit'))
@@ -66,6 +69,70 @@ const listStatements = preparedPerDb((db) => {
   };
 });
 
+type PreviewRow = typeof patternPreviews.$inferSelect;
+
+const previewStatements = preparedPerDb((db) => ({
+  document: db
+    .select({ document: revisions.document })
+    .from(revisions)
+    .where(and(eq(revisions.patternId, sql.placeholder('patternId')), eq(revisions.number, sql.placeholder('number'))))
+    .prepare(),
+}));
+
+/**
+ * What the list shows of a pattern's head revision, worked out from its document and stored, so the
+ * next list reads it with the page. Patterns are few per page and the work is done once per revision
+ * that is listed (not per save: autosave makes many revisions nobody lists).
+ */
+function fillPreview(db: DbLike, pattern: Pattern): PreviewRow | null {
+  const stored = previewStatements(db).document.get({ patternId: pattern.id, number: pattern.headRevision });
+  if (!stored) return null;
+  const parsed = parsePatternDocument(JSON.parse(stored.document) as unknown);
+  if (!parsed.ok) return null;
+  const document = parsed.document;
+  let svg: string | null = null;
+  try {
+    svg = patternPreviewSvg(document);
+  } catch {
+    // A picture is never worth failing the list for; the row shows without one.
+  }
+  const row: PreviewRow = {
+    patternId: pattern.id,
+    revisionNumber: pattern.headRevision,
+    rendererVersion: PREVIEW_RENDERER_VERSION,
+    sectionCount: document.sections.length,
+    widthIn: document.canvas.widthIn,
+    heightIn: document.canvas.heightIn,
+    displayUnit: document.displayUnit,
+    svg,
+  };
+  try {
+    const { patternId: _id, ...changes } = row;
+    db.insert(patternPreviews)
+      .values(row)
+      .onConflictDoUpdate({ target: patternPreviews.patternId, set: changes, setWhere: sql`excluded.revision_number >= ${patternPreviews.revisionNumber}` })
+      .run();
+  } catch {
+    // Not stored (the database is busy or read-only): this answer still carries it; a later list stores it.
+  }
+  return row;
+}
+
+/** Finished size as the row shows it, in the designer's unit: `8 × 8 in.`, `66.04 × 66.04 cm`. */
+function sizeText(p: PreviewRow): string {
+  return `${formatLength(p.widthIn, p.displayUnit, { style: 'unicode', withUnit: false })} × ${formatLength(p.heightIn, p.displayUnit, { style: 'unicode' })}`;
+}
+
+/** One row of the list: the pattern, and what the row shows of its latest revision. */
+function listItem(pattern: Pattern, ownerName: string, access: Access, preview: PreviewRow | null) {
+  return {
+    ...patternJson(pattern, ownerName, access),
+    sectionCount: preview?.sectionCount ?? null,
+    finishedSize: preview ? { widthIn: preview.widthIn, heightIn: preview.heightIn, displayUnit: preview.displayUnit, text: sizeText(preview) } : null,
+    preview: preview?.svg ?? null,
+  };
+}
+
 /** One page of the patterns a user owns or is a member of, with the total across pages. */
 export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
   const statements = listStatements(db)(q.scope, q.sort, q.order, Boolean(q.q));
@@ -73,7 +140,9 @@ export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
   const total = statements.total.get(params)?.n ?? 0;
   const rows = statements.page.all({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return {
-    items: rows.map((r) => patternJson(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access)),
+    items: rows.map((r) =>
+      listItem(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access, r.preview ?? fillPreview(db, r.pattern)),
+    ),
     total,
     page: q.page,
     pageSize: q.pageSize,
