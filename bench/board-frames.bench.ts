@@ -16,7 +16,7 @@ const root = fileURLToPath(new URL('..', import.meta.url));
 
 const HARNESS = `
 import { BoardEditor } from '@seamwright/template-editor-core';
-import { BoardRenderer } from './projects/template-editor/src/lib/board/konva/board-renderer';
+import { BoardRenderer } from '@seamwright/template-editor/testing';
 import { readPatternDocument } from '@seamwright/piecing';
 
 const COLS = 25, ROWS = 20, SIZE = 1;
@@ -108,6 +108,7 @@ export default async function boardFrames(): Promise<BenchSection> {
     alias: {
       '@seamwright/piecing': `${root}projects/piecing/src/public-api.ts`,
       '@seamwright/template-editor-core': `${root}projects/template-editor/src/lib/core/public-api.ts`,
+      '@seamwright/template-editor/testing': `${root}projects/template-editor/src/testing.ts`,
     },
   });
   const script = bundle.outputFiles[0].text;

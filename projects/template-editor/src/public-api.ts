@@ -23,16 +23,28 @@
  *
  * `renderPatternPreviewSvg(document, { widthPx })` returns an SVG string of the pattern (thumbnails,
  * SVG download); in Node pass an svgdom window (see pattern-preview-svg.ts).
+ *
+ * An explicit list (lint forbids `export *` here): what the app uses and what the usage above names.
+ * The framework-free core is '@seamwright/template-editor-core'; the Konva renderer and test fixtures,
+ * which only tests and benchmarks need, are in './testing' ('@seamwright/template-editor/testing').
  */
-export * from './lib/pattern-editor/pattern-editor.component';
-export * from './lib/board/drafting-board.component';
-export * from './lib/session/editor-session';
-export * from './lib/toolbar/board-toolbar.component';
-export * from './lib/properties/properties-panel.component';
-export * from './lib/properties/number-field.component';
-export * from './lib/trace-image/trace-image-panel.component';
-export * from './lib/pattern-settings/pattern-settings-panel.component';
-export * from './lib/piecing-order/piecing-order.component';
-export * from './lib/status/board-status.component';
-export * from './lib/status/cursor-readout';
-export * from './lib/core/public-api';
+
+/** The editor component and the panels placed beside or inside it. */
+export { PatternEditorComponent } from './lib/pattern-editor/pattern-editor.component';
+export { PatternSettingsPanelComponent } from './lib/pattern-settings/pattern-settings-panel.component';
+export { TraceImagePanelComponent } from './lib/trace-image/trace-image-panel.component';
+
+/** The editing session a `<sw-pattern-editor>` provides (read it from the component's injector). */
+export { EditorSession } from './lib/session/editor-session';
+export type { DocumentUpdate, EditorSnapshot } from './lib/core/public-api';
+
+/** Commands and view maths the host page needs: attach an uploaded trace image, screen to document. */
+export { setReferenceImage, toDocument } from './lib/core/public-api';
+
+/** Pictures of a pattern as SVG text, without a board: list thumbnails and the true-size front view. */
+export {
+  renderPatternPreviewSvg,
+  renderFrontViewSvg,
+  type PatternPreviewOptions,
+  type FrontViewSvgOptions,
+} from './lib/core/public-api';

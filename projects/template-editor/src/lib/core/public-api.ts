@@ -1,42 +1,78 @@
 /*
  * The Drafting board's framework-free core: document store with undo by document diffs, commands,
- * tools as small state machines, snapping, view maths and copy/paste. No Angular, no Konva.
- * Imported inside the library by relative paths and in tests as '@seamwright/template-editor-core'.
+ * tools as small state machines, snapping, view maths and copy/paste. No Angular, no Konva (lint
+ * enforces it). The library's components and Konva drawing import the core only through this file
+ * ('../core/public-api'); tests and benchmarks outside the library as '@seamwright/template-editor-core'.
+ * An explicit list of what they use: to use another core name outside the core, add it to its group.
  */
-export * from './analysis/board-patch';
-export * from './analysis/section-analysis';
-export * from './history/document-diff';
-export * from './history/history';
-export * from './store/editor-state';
-export * from './store/document-store';
-export * from './commands/ids';
-export * from './commands/patch-assignments';
-export * from './commands/section-handles';
-export * from './commands/section-commands';
-export * from './commands/seam-commands';
-export * from './commands/ring-edges';
-export * from './commands/order-commands';
-export * from './commands/pattern-commands';
-export * from './commands/pattern-settings';
-export * from './commands/reference-image';
-export * from './clipboard/section-clipboard';
-export * from './snapping/snapping';
-export * from './snapping/angle-snap';
-export * from './tools/tool';
-export * from './tools/select.tool';
-export * from './tools/straight-section.tool';
-export * from './tools/arc-section.tool';
-export * from './tools/wedge-section.tool';
-export * from './tools/split.tool';
-export * from './tools/ring-repeat.tool';
-export * from './tools/patch-click.tools';
-export * from './tools/renumber.tool';
-export * from './tools/pan.tool';
-export * from './tools/create-tool';
-export * from './view/viewport';
-export * from './view/grid-lines';
-export * from './editor/board-settings';
-export * from './editor/shortcuts';
-export * from './editor/board-editor';
-export * from './preview/pattern-preview-svg';
-export * from './preview/front-view-svg';
+
+/** The editor behind the board: pointer input, tools, view, selection, analysis, document store. */
+export { BoardEditor } from './editor/board-editor';
+export type { BoardSettings } from './editor/board-settings';
+export type { EditorSnapshot } from './store/editor-state';
+export type { DocumentUpdate } from './store/document-store';
+export { diffValues } from './history/document-diff';
+
+/** What the board shows of each section: patches, sewability, the order search. */
+export { SectionAnalysis } from './analysis/section-analysis';
+export type { BoardPatch, BoardSewability, BoardOrderSearch } from './analysis/board-patch';
+
+/** Commands on sections, seams and patches: each takes a document and returns the changed one. */
+export {
+  findSection,
+  addSection,
+  addSeam,
+  setSectionGeometry,
+  setRingRepeat,
+  updateSectionDetails,
+  setPatchFabric,
+  setPatchStripSet,
+  makeStripSet,
+  setPiecingOrder,
+} from './commands/section-commands';
+export { setSeamEnd } from './commands/seam-commands';
+export { sectionHandles } from './commands/section-handles';
+export { applySewableOrder } from './commands/order-commands';
+
+/** Commands on the whole pattern: sewing numbers, fabrics, strip-set names, resizing. */
+export { setPatternSettings } from './commands/pattern-commands';
+export {
+  isFabricColour,
+  newFabric,
+  addFabric,
+  fabricChangeProblem,
+  updateFabric,
+  fabricUses,
+  removeFabric,
+  setSewingSettings,
+  SEWING_SETTING_RANGES,
+  patternStripSets,
+  renameStripSet,
+  resizeDesign,
+  type FabricChange,
+  type SewingSettingsChange,
+} from './commands/pattern-settings';
+
+/** The traced reference image: set, place, move, fade, scale by two points, remove. */
+export {
+  setReferenceImage,
+  placeReferenceImage,
+  moveReferenceImage,
+  setReferenceOpacity,
+  removeReferenceImage,
+} from './commands/reference-image';
+export { ReferenceScaleTool } from './tools/reference-scale.tool';
+
+/** Tools whose typed values the properties panel edits, and what every tool shares. */
+export type { ToolId, ToolPreview } from './tools/tool';
+export { ArcSectionTool } from './tools/arc-section.tool';
+export { WedgeSectionTool } from './tools/wedge-section.tool';
+export type { GridSnap } from './snapping/snapping';
+
+/** View maths: document inches to screen pixels and back, grid lines. */
+export { toScreen, toDocument, type Viewport } from './view/viewport';
+export { gridLines, type BoardUnit } from './view/grid-lines';
+
+/** Pictures of a pattern as SVG text: list thumbnails and the true-size front view. */
+export { renderPatternPreviewSvg, type PatternPreviewOptions } from './preview/pattern-preview-svg';
+export { renderFrontViewSvg, type FrontViewSvgOptions } from './preview/front-view-svg';

@@ -1,6 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { readPatternDocument } from '@seamwright/piecing';
-import { setReferenceImage } from '../core/commands/reference-image';
+import { setReferenceImage } from '../core/public-api';
 import { EditorSession } from '../session/editor-session';
 import { TraceImagePanelComponent } from './trace-image-panel.component';
 

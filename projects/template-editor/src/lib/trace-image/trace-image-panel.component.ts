@@ -6,9 +6,9 @@ import {
   moveReferenceImage,
   placeReferenceImage,
   removeReferenceImage,
+  ReferenceScaleTool,
   setReferenceOpacity,
-} from '../core/commands/reference-image';
-import { ReferenceScaleTool } from '../core/tools/reference-scale.tool';
+} from '../core/public-api';
 import { NumberFieldComponent } from '../properties/number-field.component';
 import { EditorSession } from '../session/editor-session';
 
