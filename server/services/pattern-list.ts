@@ -49,11 +49,10 @@ const listStatements = preparedPerDb((db) => {
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
       page: db
-        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access, preview: patternPreviews })
+        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access })
         .from(patterns)
         .leftJoin(members, membership)
         .innerJoin(users, eq(users.id, patterns.ownerId))
-        .leftJoin(patternPreviews, and(eq(patternPreviews.patternId, patterns.id), eq(patternPreviews.revisionNumber, patterns.headRevision), eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION)))
         .where(where)
         .orderBy(direction(sortColumn), direction(patterns.id))
         .limit(sql.placeholder('limit'))
@@ -69,9 +68,32 @@ const listStatements = preparedPerDb((db) => {
   };
 });
 
-type PreviewRow = typeof patternPreviews.$inferSelect;
+type StoredPreview = typeof patternPreviews.$inferSelect;
+type PreviewRow = Pick<StoredPreview, 'sectionCount' | 'widthIn' | 'heightIn' | 'displayUnit' | 'svg'>;
 
 const previewStatements = preparedPerDb((db) => ({
+  /**
+   * The stored previews of one page's patterns (ids as a JSON array), read after the page rather than
+   * joined to it: a join would run for every pattern in scope before the sort and limit.
+   */
+  forPage: db
+    .select({
+      patternId: patternPreviews.patternId,
+      revisionNumber: patternPreviews.revisionNumber,
+      sectionCount: patternPreviews.sectionCount,
+      widthIn: patternPreviews.widthIn,
+      heightIn: patternPreviews.heightIn,
+      displayUnit: patternPreviews.displayUnit,
+      svg: patternPreviews.svg,
+    })
+    .from(patternPreviews)
+    .where(
+      and(
+        sql`${patternPreviews.patternId} IN (SELECT value FROM json_each(${sql.placeholder('ids')}))`,
+        eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION),
+      ),
+    )
+    .prepare(),
   document: db
     .select({ document: revisions.document })
     .from(revisions)
@@ -96,7 +118,7 @@ function fillPreview(db: DbLike, pattern: Pattern): PreviewRow | null {
   } catch {
     // A picture is never worth failing the list for; the row shows without one.
   }
-  const row: PreviewRow = {
+  const row: StoredPreview = {
     patternId: pattern.id,
     revisionNumber: pattern.headRevision,
     rendererVersion: PREVIEW_RENDERER_VERSION,
@@ -118,9 +140,19 @@ function fillPreview(db: DbLike, pattern: Pattern): PreviewRow | null {
   return row;
 }
 
+/** Size texts already written: a studio's patterns come in few sizes, and writing one is not free. */
+const sizeTexts = new Map<string, string>();
+
 /** Finished size as the row shows it, in the designer's unit: `8 × 8 in.`, `66.04 × 66.04 cm`. */
 function sizeText(p: PreviewRow): string {
-  return `${formatLength(p.widthIn, p.displayUnit, { style: 'unicode', withUnit: false })} × ${formatLength(p.heightIn, p.displayUnit, { style: 'unicode' })}`;
+  const key = `${p.widthIn} ${p.heightIn} ${p.displayUnit}`;
+  let text = sizeTexts.get(key);
+  if (text === undefined) {
+    text = `${formatLength(p.widthIn, p.displayUnit, { style: 'unicode', withUnit: false })} × ${formatLength(p.heightIn, p.displayUnit, { style: 'unicode' })}`;
+    if (sizeTexts.size >= 1000) sizeTexts.clear();
+    sizeTexts.set(key, text);
+  }
+  return text;
 }
 
 /** One row of the list: the pattern, and what the row shows of its latest revision. */
@@ -139,10 +171,15 @@ export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
   const params = { userId: user.id, like: q.q ? likeContains(q.q) : '' };
   const total = statements.total.get(params)?.n ?? 0;
   const rows = statements.page.all({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const previews = new Map(
+    rows.length === 0 ? [] : previewStatements(db).forPage.all({ ids: JSON.stringify(rows.map((r) => r.pattern.id)) }).map((p) => [p.patternId, p]),
+  );
+  const previewOf = (pattern: Pattern) => {
+    const stored = previews.get(pattern.id);
+    return stored && stored.revisionNumber === pattern.headRevision ? stored : fillPreview(db, pattern);
+  };
   return {
-    items: rows.map((r) =>
-      listItem(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access, r.preview ?? fillPreview(db, r.pattern)),
-    ),
+    items: rows.map((r) => listItem(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access, previewOf(r.pattern))),
     total,
     page: q.page,
     pageSize: q.pageSize,
