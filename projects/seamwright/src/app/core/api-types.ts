@@ -38,10 +38,23 @@ export interface PatternSummary {
   createdAt: string;
   updatedAt: string;
   trashedAt: string | null;
-  /** Number of sections in the latest revision, when the list carries it. */
-  sectionCount?: number;
-  /** The latest document, when the list carries it (for thumbnails). */
-  document?: PatternDocument;
+}
+
+/** The finished size of a pattern (its drawing area), with the text the list shows in the designer's unit. */
+export interface FinishedSize {
+  widthIn: number;
+  heightIn: number;
+  displayUnit: 'in' | 'cm';
+  /** "8 × 8 in.", "25.4 × 20.32 cm". */
+  text: string;
+}
+
+/** One row of the pattern list: the pattern and what the row shows of its latest revision (docs/api.md). */
+export interface PatternListItem extends PatternSummary {
+  sectionCount: number | null;
+  finishedSize: FinishedSize | null;
+  /** A small SVG picture drawn by the server (numbers and colours only), or null. */
+  preview: string | null;
 }
 
 export interface Page<T> {

@@ -1,52 +1,40 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { DomSanitizer, SafeHtml } from '@angular/platform-browser';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { PatternDocument } from '@seamwright/piecing';
 
-type Renderer = (doc: PatternDocument) => string | null;
-/** The preview renderer pulls in the geometry library: fetched once, after the list is on screen. */
-let renderer: Promise<Renderer> | null = null;
-const loadRenderer = () => (renderer ??= import('./preview-svg').then((m) => m.previewSvg));
-
-/** A small picture of a pattern (drawn by the board's preview renderer), or a plain mark without a document. */
+/**
+ * A small picture of a pattern: the SVG the pattern list carries for the row (drawn by the server),
+ * shown as an image, or a plain mark without one.
+ */
 @Component({
   selector: 'sw-pattern-thumbnail',
   imports: [MatIconModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    @if (svg(); as markup) {
-      <span class="thumb" role="img" [attr.aria-label]="'Preview of ' + title()" [innerHTML]="markup"></span>
+    @if (src(); as url) {
+      <img class="thumb" [src]="url" [alt]="'Preview of ' + title()" width="48" height="48" />
     } @else {
       <span class="thumb empty" aria-hidden="true"><mat-icon>grid_view</mat-icon></span>
     }
   `,
   styles: `
-    .thumb { display: inline-flex; width: 48px; height: 48px; border-radius: 8px; overflow: hidden; align-items: center; justify-content: center;
-      background: var(--mat-sys-surface-container); border: 1px solid var(--sw-card-edge); }
-    .thumb ::ng-deep svg { width: 100%; height: 100%; }
+    .thumb { display: inline-flex; box-sizing: border-box; width: 48px; height: 48px; border-radius: 8px; overflow: hidden; align-items: center;
+      justify-content: center; background: var(--mat-sys-surface-container); border: 1px solid var(--sw-card-edge); }
+    img.thumb { object-fit: contain; }
     .empty { color: var(--mat-sys-on-surface-variant); }
   `,
 })
 export class PatternThumbnailComponent {
-  /** The document to draw; without one a plain mark is shown. */
-  readonly document = input<PatternDocument | undefined>();
-  /** The pattern's title, for the picture's label. */
+  /** SVG markup of the picture; without it a plain mark is shown. */
+  readonly svg = input<string | null | undefined>(null);
+  /** The pattern's title, for the picture's text alternative. */
   readonly title = input('');
-  private readonly sanitizer = inject(DomSanitizer);
-  private readonly render = signal<Renderer | null>(null);
 
-  constructor() {
-    loadRenderer().then(
-      (r) => this.render.set(r),
-      () => undefined,
-    );
-  }
-
-  protected readonly svg = computed<SafeHtml | null>(() => {
-    const doc = this.document();
-    const render = this.render();
-    const markup = doc && render ? render(doc) : null;
-    // The renderer builds the markup from a validated document with svg.js: no user HTML passes through.
-    return markup ? this.sanitizer.bypassSecurityTrustHtml(markup) : null;
+  /**
+   * A data: URL of the SVG. As an image the SVG runs no script and loads nothing, whatever it holds, so
+   * it needs no sanitising into the page (the server writes only numbers and colours into it anyway).
+   */
+  protected readonly src = computed(() => {
+    const svg = this.svg();
+    return svg ? `data:image/svg+xml,${encodeURIComponent(svg)}` : null;
   });
 }

@@ -14,13 +14,12 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatDialog } from '@angular/material/dialog';
-import { EMPTY, Observable, Subscription, catchError, debounceTime, distinctUntilChanged, filter, from, mergeMap, switchMap } from 'rxjs';
-import type { PatternDocument } from '@seamwright/piecing';
+import { Observable, debounceTime, distinctUntilChanged, filter, switchMap } from 'rxjs';
 import { PatternsService } from '../resources/patterns.service';
 import { LoadState } from '../core/load-state';
 import { NotifyService } from '../core/notify.service';
 import { AuthService } from '../core/auth.service';
-import type { Page, PatternListQuery, PatternSummary } from '../core/api-types';
+import type { Page, PatternListItem, PatternListQuery } from '../core/api-types';
 import { NewPatternChoice, NewPatternDialogComponent } from './new-pattern-dialog.component';
 import { STARTERS } from './starters';
 import { PatternThumbnailComponent } from './pattern-thumbnail.component';
@@ -48,14 +47,12 @@ export class PatternsPageComponent implements OnInit {
   protected readonly auth = inject(AuthService);
   protected readonly accessLabel = accessLabel;
 
-  protected readonly columns = ['thumbnail', 'title', 'sections', 'updated', 'owner', 'access', 'actions'];
+  protected readonly columns = ['thumbnail', 'title', 'sections', 'size', 'updated', 'owner', 'access', 'actions'];
   /** The list query; `page` here is 0-based like the paginator. */
   protected readonly query = signal<PatternListQuery>({ page: 0, pageSize: 10, sort: 'updated', order: 'desc', q: '', scope: 'all' });
   protected readonly trashed = computed(() => this.query().scope === 'trash');
-  /** Latest documents fetched for rows the list answer carries none for (thumbnail and section count). */
-  protected readonly documents = signal<ReadonlyMap<string, PatternDocument>>(new Map());
-  private detailsSub: Subscription | null = null;
-  protected readonly state = new LoadState<Page<PatternSummary>>();
+  /** One request fills the page: each row carries its section count, finished size and picture. */
+  protected readonly state = new LoadState<Page<PatternListItem>>();
   protected readonly rows = computed(() => this.state.value()?.items ?? []);
   protected readonly total = computed(() => this.state.value()?.total ?? 0);
   protected readonly busyId = signal<string | null>(null);
@@ -85,27 +82,7 @@ export class PatternsPageComponent implements OnInit {
   protected reload(): void {
     // The server numbers pages from 1; the paginator from 0.
     const q = this.query();
-    this.state.run(this.patterns.list({ ...q, page: q.page + 1 }), (page) => this.fetchDocuments(page.items));
-  }
-
-  /** Row documents for thumbnails and section counts, a few requests at a time. */
-  private fetchDocuments(rows: PatternSummary[]): void {
-    this.detailsSub?.unsubscribe();
-    const known = this.documents();
-    const missing = rows.filter((r) => !r.document && !known.has(r.id + '@' + r.headRevision) && !r.trashedAt);
-    this.detailsSub = from(missing)
-      .pipe(mergeMap((r) => this.patterns.get(r.id).pipe(catchError(() => EMPTY)), 3))
-      .subscribe((d) => {
-        this.documents.update((m) => new Map(m).set(d.pattern.id + '@' + d.revision.number, d.revision.document));
-      });
-  }
-
-  protected documentOf(row: PatternSummary): PatternDocument | undefined {
-    return row.document ?? this.documents().get(row.id + '@' + row.headRevision);
-  }
-
-  protected sectionsOf(row: PatternSummary): number | null {
-    return row.sectionCount ?? this.documentOf(row)?.sections.length ?? null;
+    this.state.run(this.patterns.list({ ...q, page: q.page + 1 }));
   }
 
   protected newPattern(): void {
@@ -125,24 +102,24 @@ export class PatternsPageComponent implements OnInit {
       });
   }
 
-  protected duplicate(row: PatternSummary): void {
+  protected duplicate(row: PatternListItem): void {
     this.act(row, this.patterns.duplicate(row.id), `“${row.title}” duplicated`);
   }
 
-  protected trash(row: PatternSummary): void {
+  protected trash(row: PatternListItem): void {
     this.act(row, this.patterns.trash(row.id), `“${row.title}” moved to the trash`);
   }
 
-  protected restore(row: PatternSummary): void {
+  protected restore(row: PatternListItem): void {
     this.act(row, this.patterns.restore(row.id), `“${row.title}” restored`);
   }
 
-  protected deleteForGood(row: PatternSummary): void {
+  protected deleteForGood(row: PatternListItem): void {
     if (!confirm(`Delete “${row.title}” and all its revisions and print sets for good?`)) return;
     this.act(row, this.patterns.deleteForGood(row.id), `“${row.title}” deleted`);
   }
 
-  private act(row: PatternSummary, call: Observable<unknown>, done: string): void {
+  private act(row: PatternListItem, call: Observable<unknown>, done: string): void {
     this.busyId.set(row.id);
     call.subscribe({
       next: () => {

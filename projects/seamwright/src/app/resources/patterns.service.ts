@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, throwError } from 'rxjs';
 import type { PatternDocumentInput } from '@seamwright/piecing';
 import { API } from '../core/api-paths';
-import type { Page, PatternListQuery, PatternSummary, PatternWithRevision, Revision, SaveRevisionBody, StaleSaveDetails } from '../core/api-types';
+import type { Page, PatternListItem, PatternListQuery, PatternWithRevision, Revision, SaveRevisionBody, StaleSaveDetails } from '../core/api-types';
 import { ApiError, toApiError } from '../core/api-error';
 
 /** Thrown by {@link PatternsService.save} when someone else saved first (HTTP 409). */
@@ -29,7 +29,7 @@ export function staleSaveOrError(err: unknown): ApiError {
 export class PatternsService {
   private readonly http = inject(HttpClient);
 
-  list(query: PatternListQuery): Observable<Page<PatternSummary>> {
+  list(query: PatternListQuery): Observable<Page<PatternListItem>> {
     let params = new HttpParams()
       .set('page', query.page)
       .set('pageSize', query.pageSize)
@@ -37,7 +37,7 @@ export class PatternsService {
       .set('order', query.order)
       .set('scope', query.scope);
     if (query.q.trim()) params = params.set('q', query.q.trim());
-    return this.http.get<Page<PatternSummary>>(API.patterns, { params });
+    return this.http.get<Page<PatternListItem>>(API.patterns, { params });
   }
 
   get(id: string): Observable<PatternWithRevision> {
