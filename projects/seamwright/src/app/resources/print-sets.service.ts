@@ -1,13 +1,17 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { Observable, map, switchMap, takeWhile, timer } from 'rxjs';
+import { Observable, catchError, map, switchMap, takeWhile, timer } from 'rxjs';
 import { API } from '../core/api-paths';
 import type { PrintSet } from '../core/api-types';
+import { EVENT_SOURCE, serverEvents } from './server-events';
+
+const finished = (s: PrintSet) => s.status === 'done' || s.status === 'failed';
 
 /** Print sets: make one from a revision, follow its progress, download, delete. */
 @Injectable({ providedIn: 'root' })
 export class PrintSetsService {
   private readonly http = inject(HttpClient);
+  private readonly eventSource = inject(EVENT_SOURCE);
 
   list(patternId: string): Observable<PrintSet[]> {
     return this.http.get<{ items: PrintSet[] }>(API.printSets(patternId)).pipe(map((r) => r.items));
@@ -24,11 +28,22 @@ export class PrintSetsService {
     return this.http.get<{ printSet: PrintSet }>(API.printSet(patternId, setId)).pipe(map((r) => r.printSet));
   }
 
-  /** Polls a print set until it is done or failed, emitting each state (the last one included). */
+  /**
+   * Each state of a print set until it is done or failed (the last one included), as the server's event
+   * stream sends them; by polling every `everyMs` when the browser has no EventSource or the stream
+   * fails on the way.
+   */
   follow(patternId: string, setId: string, everyMs = 600): Observable<PrintSet> {
+    const poll = this.poll(patternId, setId, everyMs);
+    if (!this.eventSource) return poll;
+    return serverEvents<PrintSet>(this.eventSource, `${API.printSet(patternId, setId)}/events`, 'progress', finished).pipe(catchError(() => poll));
+  }
+
+  /** Asks for a print set every `everyMs` until it is done or failed, emitting each state. */
+  private poll(patternId: string, setId: string, everyMs: number): Observable<PrintSet> {
     return timer(0, everyMs).pipe(
       switchMap(() => this.get(patternId, setId)),
-      takeWhile((s) => s.status === 'queued' || s.status === 'rendering', true),
+      takeWhile((s) => !finished(s), true),
     );
   }
 
