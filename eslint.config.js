@@ -10,8 +10,10 @@ import angular from 'angular-eslint';
  * or RxJS, and nothing from the components around it. ESLint replaces a rule's options when a later
  * block sets it again, so each block below lists every pattern that applies to its files.
  */
-const ENTRY_ONLY = "Import the library's entry ('@seamwright/piecing', '@seamwright/template-editor', or their '/testing' in tests and benchmarks), not a path inside it.";
+const ENTRY_ONLY = "Import the library's entry ('@seamwright/api', '@seamwright/piecing', '@seamwright/template-editor', or their '/testing' in tests and benchmarks), not a path inside it.";
 const libraryEntries = [
+  { regex: String.raw`(^|/)projects/api/src/(?!public-api$)|^(\.\./)+api/src/(?!public-api$)`, message: ENTRY_ONLY },
+  { regex: '^@seamwright/api/', message: ENTRY_ONLY },
   { regex: String.raw`(^|/)piecing/src/(?!(public-api|testing)$)`, message: ENTRY_ONLY },
   { regex: String.raw`(^|/)template-editor/src/(?!(public-api|testing)$)`, message: ENTRY_ONLY },
   { regex: '^@seamwright/(piecing|template-editor)/(?!testing$)', message: ENTRY_ONLY },
@@ -91,6 +93,11 @@ export default tseslint.config(
         message: 'Piecing does not depend on the editor.',
       }),
     },
+  },
+  {
+    // The API contract is shared by the server and the app: plain TypeScript and zod, no framework.
+    files: ['projects/api/src/**/*.ts'],
+    rules: { 'no-restricted-imports': restrict(...noFrameworks('The API contract')) },
   },
   {
     // Components and Konva drawing reach the core through its public API (fixtures: core/testing).

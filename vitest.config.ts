@@ -2,6 +2,7 @@ import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
 
 const alias = {
+  '@seamwright/api': fileURLToPath(new URL('./projects/api/src/public-api.ts', import.meta.url)),
   // Vite ignores tsconfig "paths" in plain vitest: mirror them here. An alias also matches the paths
   // below it and the first match wins, so each '/testing' entry comes before its library's.
   '@seamwright/piecing/testing': fileURLToPath(new URL('./projects/piecing/src/testing.ts', import.meta.url)),
@@ -35,7 +36,7 @@ export default defineConfig({
         test: {
           name: 'server',
           environment: 'node',
-          include: ['server/**/*.spec.ts'],
+          include: ['server/**/*.spec.ts', 'projects/api/**/*.spec.ts'],
           testTimeout: 60_000,
           hookTimeout: 60_000,
           fileParallelism: false,

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { SHOP_CURRENCIES } from '@seamwright/api';
 
 /** Account roles (docs/design-notes.md#roles-and-access). */
 export const ROLES = ['admin', 'designer', 'quilter'] as const;
@@ -253,9 +254,8 @@ export type PrintSet = typeof printSets.$inferSelect;
 
 // ---- Pattern shop (issue 9) ----
 
-/** Currencies a shop may sell in (ISO 4217, lower-case as the payment provider writes them). */
-export const SHOP_CURRENCIES = ['usd', 'eur', 'gbp', 'cad', 'aud', 'nzd', 'chf', 'sek', 'nok', 'dkk', 'jpy'] as const;
-export type ShopCurrency = (typeof SHOP_CURRENCIES)[number];
+/** Currencies a shop may sell in: one list for the server and the app, in the API contract. */
+export { SHOP_CURRENCIES, type ShopCurrency } from '@seamwright/api';
 
 export const ORDER_STATUSES = ['pending', 'paid', 'refunded', 'expired'] as const;
 export type OrderStatus = (typeof ORDER_STATUSES)[number];
