@@ -2,16 +2,10 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { API } from '../core/api-paths';
+import type { Upload } from '../core/api-types';
 
-/** A reference image stored with a pattern. */
-export interface Upload {
-  id: string;
-  fileName: string;
-  mimeType: string;
-  bytes: number;
-  createdAt: string;
-  url: string;
-}
+/** A reference image stored with a pattern (the shared contract's shape). */
+export type { Upload };
 
 /** Images accepted as references (the server checks the bytes, not the name). */
 export const REFERENCE_IMAGE_TYPES = ['image/png', 'image/jpeg', 'image/webp'];

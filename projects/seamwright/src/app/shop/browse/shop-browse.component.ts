@@ -13,7 +13,7 @@ import type { Page } from '../../core/api-types';
 import { LoadState } from '../../core/load-state';
 import { ShopService } from '../shop.service';
 import type { Listing } from '../shop-types';
-import { formatMoney } from '../money';
+import { formatMoney } from '@seamwright/api';
 import { listingFacts } from '../listing-facts';
 
 /** Published patterns from every designer, newest first, searchable by title. */

@@ -9,7 +9,7 @@ import { NotifyService } from '../../core/notify.service';
 import { NotFoundComponent } from '../../not-found/not-found.component';
 import { ShopService } from '../shop.service';
 import type { Listing } from '../shop-types';
-import { formatMoney } from '../money';
+import { formatMoney } from '@seamwright/api';
 import { listingFacts } from '../listing-facts';
 
 /** One pattern in the shop: what it is, its price, and Buy (or Open, once it is yours). */

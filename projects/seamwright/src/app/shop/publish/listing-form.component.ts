@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { switchMap, startWith } from 'rxjs';
 import type { ShopCurrency } from '../shop-types';
-import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '../money';
+import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '@seamwright/api';
 
 /** The controls of one pattern's listing. */
 export interface ListingForm {

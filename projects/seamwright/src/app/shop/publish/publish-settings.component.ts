@@ -15,7 +15,7 @@ import { toApiError } from '../../core/api-error';
 import { applyServerIssues } from '../../auth/form-errors';
 import { ShopService } from '../shop.service';
 import { SHOP_CURRENCIES, type MyShop, type ShopCurrency } from '../shop-types';
-import { CURRENCY_NAMES, MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '../money';
+import { CURRENCY_NAMES, MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '@seamwright/api';
 import { ListingFormComponent, type ListingForm } from './listing-form.component';
 
 /** The designer's shop settings: one currency for the shop, and price, description and publishing per pattern. */

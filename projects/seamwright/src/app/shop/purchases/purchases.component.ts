@@ -11,7 +11,7 @@ import type { Page } from '../../core/api-types';
 import { LoadState } from '../../core/load-state';
 import { ShopService } from '../shop.service';
 import type { Order } from '../shop-types';
-import { formatMoney } from '../money';
+import { formatMoney } from '@seamwright/api';
 import { orderStatusLabel } from '../order-status';
 
 /** How long the page waits for the provider's confirmation after checkout (one check a second). */

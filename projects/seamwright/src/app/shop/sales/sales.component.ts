@@ -11,7 +11,7 @@ import { LoadState } from '../../core/load-state';
 import { NotifyService } from '../../core/notify.service';
 import { ShopService } from '../shop.service';
 import type { Order, SalesPage } from '../shop-types';
-import { formatMoney } from '../money';
+import { formatMoney } from '@seamwright/api';
 import { orderStatusLabel } from '../order-status';
 
 /** The designer's sales: who bought what, totals per currency, refunds. */

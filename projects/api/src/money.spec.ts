@@ -1,5 +1,5 @@
-import { formatMoney, MINOR_DIGITS } from './money';
-import { SHOP_CURRENCIES } from './shop-types';
+import { describe, expect, it } from 'vitest';
+import { formatMoney, MINOR_DIGITS, minorUnitName, SHOP_CURRENCIES } from './money';
 
 describe('formatMoney', () => {
   it('reads minor units with the currency’s own decimals', () => {
@@ -12,5 +12,11 @@ describe('formatMoney', () => {
 
   it('knows the decimals of every shop currency', () => {
     expect(SHOP_CURRENCIES.filter((c) => MINOR_DIGITS[c] !== 2)).toEqual(['jpy']);
+  });
+
+  it('names the minor unit for the price hint', () => {
+    expect(minorUnitName('jpy')).toBe('yen');
+    expect(minorUnitName('gbp')).toBe('pence');
+    expect(minorUnitName('usd')).toBe('cents');
   });
 });
