@@ -7,7 +7,11 @@ import { AuthService } from '../core/auth.service';
 import { CsrfTokenService } from '../core/csrf-token.service';
 import { csrfInterceptor } from '../core/csrf.interceptor';
 import { sessionExpiredInterceptor } from '../core/session-expired.interceptor';
-import { formDriver } from '../testing/form-driver';
+import { parallel } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { errorsUnder, fillIn, shownErrors } from '../testing/material-form';
 
 describe('ChangePasswordComponent', () => {
   async function setup() {
@@ -22,16 +26,18 @@ describe('ChangePasswordComponent', () => {
     const fixture = TestBed.createComponent(ChangePasswordComponent);
     fixture.detectChanges();
     await fixture.whenStable();
-    const { el, type, submit, errors, errorOf, values } = formDriver(fixture);
-    return { fixture, el, type, submit, errors, errorOf, values, http, auth };
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const submit = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Change password' }))).click();
+    return { fixture, el: fixture.nativeElement as HTMLElement, loader, submit, http, auth };
   }
 
+  const newSecret = { 'New password': 'a brand new secret', 'New password again': 'a brand new secret' };
+
   it('asks for the current password and a long enough new one, typed twice alike', async () => {
-    const { type, submit, errors, http } = await setup();
-    type('New password', 'short');
-    type('New password again', 'different');
+    const { loader, submit, http } = await setup();
+    await fillIn(loader, { 'New password': 'short', 'New password again': 'different' });
     await submit();
-    expect(errors()).toEqual([
+    expect(await shownErrors(loader)).toEqual([
       'Current password is required',
       'New password must be at least 10 characters',
       'The two passwords do not match',
@@ -40,11 +46,9 @@ describe('ChangePasswordComponent', () => {
   });
 
   it('sends both passwords and says the other sessions were signed out', async () => {
-    const { fixture, el, type, submit, errors, values, http } = await setup();
+    const { fixture, el, loader, submit, http } = await setup();
     expect(el.textContent).toContain('Signed in as mira@example.test');
-    type('Current password', 'the old secret');
-    type('New password', 'a brand new secret');
-    type('New password again', 'a brand new secret');
+    await fillIn(loader, { 'Current password': 'the old secret', ...newSecret });
     await submit();
     const req = http.expectOne('/api/auth/change-password');
     expect(req.request.body).toEqual({ currentPassword: 'the old secret', newPassword: 'a brand new secret' });
@@ -53,23 +57,21 @@ describe('ChangePasswordComponent', () => {
     await fixture.whenStable();
     expect(el.querySelector('[role=status]')?.textContent).toContain('Your password is changed');
     // The emptied form is ready for another change, not full of "required" errors.
-    fixture.detectChanges();
-    expect(values()).toEqual(['', '', '']);
-    expect(errors()).toEqual([]);
+    const inputs = await loader.getAllHarnesses(MatInputHarness);
+    expect(await parallel(() => inputs.map((i) => i.getValue()))).toEqual(['', '', '']);
+    expect(await shownErrors(loader)).toEqual([]);
   });
 
   it('puts a wrong current password on its field and keeps the user signed in', async () => {
-    const { fixture, type, submit, errorOf, http, auth } = await setup();
+    const { fixture, loader, submit, http, auth } = await setup();
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate');
-    type('Current password', 'not the password');
-    type('New password', 'a brand new secret');
-    type('New password again', 'a brand new secret');
+    await fillIn(loader, { 'Current password': 'not the password', ...newSecret });
     await submit();
     http
       .expectOne('/api/auth/change-password')
       .flush({ error: 'The current password is wrong', details: [{ path: 'currentPassword', message: 'does not match' }] }, { status: 401, statusText: 'Unauthorized' });
     await fixture.whenStable();
-    expect(errorOf('Current password')).toBe('does not match');
+    expect(await errorsUnder(loader, 'Current password')).toEqual(['does not match']);
     expect(auth.signedIn()).toBe(true);
     expect(navigate).not.toHaveBeenCalled();
   });

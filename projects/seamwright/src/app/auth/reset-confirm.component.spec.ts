@@ -4,7 +4,9 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter } from '@angular/router';
 import { ResetConfirmComponent } from './reset-confirm.component';
 import { CsrfTokenService } from '../core/csrf-token.service';
-import { formDriver } from '../testing/form-driver';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { fillIn, shownErrors } from '../testing/material-form';
 
 describe('ResetConfirmComponent', () => {
   function setup() {
@@ -13,26 +15,26 @@ describe('ResetConfirmComponent', () => {
     const fixture = TestBed.createComponent(ResetConfirmComponent);
     fixture.componentRef.setInput('token', 'reset-token-1');
     fixture.detectChanges();
-    const { el, type, submit, errors } = formDriver(fixture);
-    return { fixture, el, type, submit, errors, http: TestBed.inject(HttpTestingController) };
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const submit = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Save the new password' }))).click();
+    return { fixture, el: fixture.nativeElement as HTMLElement, loader, submit, http: TestBed.inject(HttpTestingController) };
   }
 
   it('requires a long enough new password', async () => {
-    const { fixture, type, submit, errors } = setup();
+    const { fixture, loader, submit } = setup();
     await fixture.whenStable();
-    type('New password', 'abc');
+    await fillIn(loader, { 'New password': 'abc' });
     await submit();
-    expect(errors()).toEqual([
+    expect(await shownErrors(loader)).toEqual([
       'New password must be at least 10 characters',
       'New password again is required',
     ]);
   });
 
   it('sends the token with the new password and says so when done', async () => {
-    const { fixture, el, type, submit, http } = setup();
+    const { fixture, el, loader, submit, http } = setup();
     await fixture.whenStable();
-    type('New password', 'a brand new secret');
-    type('New password again', 'a brand new secret');
+    await fillIn(loader, { 'New password': 'a brand new secret', 'New password again': 'a brand new secret' });
     await submit();
     const req = http.expectOne('/api/auth/password-reset/confirm');
     expect(req.request.body).toEqual({ token: 'reset-token-1', newPassword: 'a brand new secret' });
@@ -42,10 +44,9 @@ describe('ResetConfirmComponent', () => {
   });
 
   it('explains an expired link', async () => {
-    const { fixture, el, type, submit, http } = setup();
+    const { fixture, el, loader, submit, http } = setup();
     await fixture.whenStable();
-    type('New password', 'a brand new secret');
-    type('New password again', 'a brand new secret');
+    await fillIn(loader, { 'New password': 'a brand new secret', 'New password again': 'a brand new secret' });
     await submit();
     http
       .expectOne('/api/auth/password-reset/confirm')

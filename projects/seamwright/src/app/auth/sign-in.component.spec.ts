@@ -4,7 +4,9 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter, Router } from '@angular/router';
 import { SignInComponent } from './sign-in.component';
 import { csrfInterceptor } from '../core/csrf.interceptor';
-import { formDriver } from '../testing/form-driver';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { fillIn, shownErrors } from '../testing/material-form';
 
 function setup() {
   TestBed.configureTestingModule({
@@ -13,32 +15,31 @@ function setup() {
   const fixture = TestBed.createComponent(SignInComponent);
   fixture.detectChanges();
   const http = TestBed.inject(HttpTestingController);
-  const { el, type, submit, errors } = formDriver(fixture);
-  return { fixture, el, http, type, submit, errors };
+  const loader = TestbedHarnessEnvironment.loader(fixture);
+  const submit = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Sign in' }))).click();
+  return { fixture, el: fixture.nativeElement as HTMLElement, http, loader, submit };
 }
 
 describe('SignInComponent', () => {
   it('says which fields are missing and sends nothing', async () => {
-    const { submit, errors, http } = setup();
+    const { submit, loader, http } = setup();
     await submit();
-    expect(errors()).toEqual(['E-mail is required', 'Password is required']);
+    expect(await shownErrors(loader)).toEqual(['E-mail is required', 'Password is required']);
     http.expectNone(() => true);
   });
 
   it('explains a malformed e-mail address', async () => {
-    const { type, submit, errors } = setup();
-    type('E-mail', 'not-an-address');
-    type('Password', 'whatever-it-is');
+    const { loader, submit } = setup();
+    await fillIn(loader, { 'E-mail': 'not-an-address', Password: 'whatever-it-is' });
     await submit();
-    expect(errors()).toEqual(['Enter an e-mail address like name@example.com']);
+    expect(await shownErrors(loader)).toEqual(['Enter an e-mail address like name@example.com']);
   });
 
   it('signs in with the CSRF token and goes to the patterns', async () => {
-    const { type, submit, http, fixture } = setup();
+    const { loader, submit, http, fixture } = setup();
     const router = TestBed.inject(Router);
     const nav = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
-    type('E-mail', ' ada@example.com ');
-    type('Password', 'correct horse battery');
+    await fillIn(loader, { 'E-mail': ' ada@example.com ', Password: 'correct horse battery' });
     await submit();
     http.expectOne('/api/auth/csrf').flush({ csrfToken: 'tok-1' });
     const req = http.expectOne('/api/auth/sign-in');
@@ -51,9 +52,8 @@ describe('SignInComponent', () => {
   });
 
   it('shows the wrong-password answer in words', async () => {
-    const { type, submit, http, fixture, el } = setup();
-    type('E-mail', 'ada@example.com');
-    type('Password', 'wrong');
+    const { loader, submit, http, fixture, el } = setup();
+    await fillIn(loader, { 'E-mail': 'ada@example.com', Password: 'wrong' });
     await submit();
     http.expectOne('/api/auth/csrf').flush({ csrfToken: 't' });
     http.expectOne('/api/auth/sign-in').flush({ error: 'Wrong e-mail or password', details: null }, { status: 401, statusText: 'Unauthorized' });

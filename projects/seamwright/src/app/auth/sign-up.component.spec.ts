@@ -4,44 +4,44 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideRouter } from '@angular/router';
 import { SignUpComponent } from './sign-up.component';
 import { CsrfTokenService } from '../core/csrf-token.service';
-import { formDriver } from '../testing/form-driver';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatRadioButtonHarness } from '@angular/material/radio/testing';
+import { errorsUnder, fillIn } from '../testing/material-form';
 
 function setup() {
   TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
   TestBed.inject(CsrfTokenService).remember('t');
   const fixture = TestBed.createComponent(SignUpComponent);
   fixture.detectChanges();
-  const { el, type, submit, errorOf } = formDriver(fixture);
-  return { fixture, el, type, submit, errorOf, http: TestBed.inject(HttpTestingController) };
+  const loader = TestbedHarnessEnvironment.loader(fixture);
+  const submit = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Create account' }))).click();
+  return { fixture, el: fixture.nativeElement as HTMLElement, loader, submit, http: TestBed.inject(HttpTestingController) };
 }
+
+const complete = { 'Your name': 'Ada', 'E-mail': 'ada@example.com', Password: 'long enough password', 'Password again': 'long enough password' };
 
 describe('SignUpComponent', () => {
   it('asks for a password of at least 10 characters', async () => {
-    const { type, submit, errorOf } = setup();
-    type('Password', 'short');
+    const { loader, submit } = setup();
+    await fillIn(loader, { Password: 'short' });
     await submit();
-    expect(errorOf('Password')).toBe('Password must be at least 10 characters');
-    expect(errorOf('Your name')).toBe('Your name is required');
+    expect(await errorsUnder(loader, 'Password')).toEqual(['Password must be at least 10 characters']);
+    expect(await errorsUnder(loader, 'Your name')).toEqual(['Your name is required']);
   });
 
   it('says when the two passwords differ', async () => {
-    const { type, submit, errorOf, http } = setup();
-    type('Your name', 'Ada');
-    type('E-mail', 'ada@example.com');
-    type('Password', 'long enough password');
-    type('Password again', 'long enough passw0rd');
+    const { loader, submit, http } = setup();
+    await fillIn(loader, { ...complete, 'Password again': 'long enough passw0rd' });
     await submit();
-    expect(errorOf('Password again')).toBe('The two passwords do not match');
+    expect(await errorsUnder(loader, 'Password again')).toEqual(['The two passwords do not match']);
     http.expectNone('/api/auth/sign-up');
   });
 
   it('sends the chosen role and shows a taken address in words', async () => {
-    const { type, submit, http, fixture, el } = setup();
-    type('Your name', 'Quinn');
-    type('E-mail', 'quinn@example.com');
-    type('Password', 'long enough password');
-    type('Password again', 'long enough password');
-    (el.querySelectorAll('mat-radio-button input')[1] as HTMLInputElement).click();
+    const { loader, submit, http, fixture, el } = setup();
+    await fillIn(loader, { ...complete, 'Your name': 'Quinn', 'E-mail': 'quinn@example.com' });
+    await (await loader.getHarness(MatRadioButtonHarness.with({ label: 'sew patterns shared with me (quilter)' }))).check();
     await submit();
     const req = http.expectOne('/api/auth/sign-up');
     expect(req.request.body).toEqual({ displayName: 'Quinn', email: 'quinn@example.com', password: 'long enough password', role: 'quilter' });
@@ -51,16 +51,13 @@ describe('SignUpComponent', () => {
   });
 
   it('puts server field issues under the field they name', async () => {
-    const { type, submit, http, fixture, errorOf } = setup();
-    type('Your name', 'Ada');
-    type('E-mail', 'ada@example.com');
-    type('Password', 'long enough password');
-    type('Password again', 'long enough password');
+    const { loader, submit, http, fixture } = setup();
+    await fillIn(loader, complete);
     await submit();
     http
       .expectOne('/api/auth/sign-up')
       .flush({ error: 'Invalid request', details: [{ path: 'password', message: 'must be at most 72 bytes' }] }, { status: 400, statusText: 'Bad Request' });
     await fixture.whenStable();
-    expect(errorOf('Password')).toBe('must be at most 72 bytes');
+    expect(await errorsUnder(loader, 'Password')).toEqual(['must be at most 72 bytes']);
   });
 });
