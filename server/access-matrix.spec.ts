@@ -88,6 +88,8 @@ const CASES: Case[] = [
   { name: 'read trashed pattern', method: 'get', path: (f) => `/api/patterns/${f.id}`, trashed: true, expect: OWNER_TRASHED(200) },
   { name: 'delete for good', method: 'delete', path: (f) => `/api/patterns/${f.id}`, trashed: true, expect: OWNER_TRASHED(204) },
   { name: 'list revisions', method: 'get', path: (f) => `/api/patterns/${f.id}/revisions`, expect: READ },
+  { name: 'list runs of saves', method: 'get', path: (f) => `/api/patterns/${f.id}/revisions/groups`, expect: READ },
+  { name: 'save a named version', method: 'post', path: (f) => `/api/patterns/${f.id}/revisions`, body: () => ({ baseRevision: 1, name: 'x' }), expect: EDIT(201) },
   { name: 'read revision', method: 'get', path: (f) => `/api/patterns/${f.id}/revisions/1`, expect: READ },
   { name: 'restore revision', method: 'post', path: (f) => `/api/patterns/${f.id}/revisions/1/restore`, body: () => ({ baseRevision: 1 }), expect: EDIT(201) },
   { name: 'list members', method: 'get', path: (f) => `/api/patterns/${f.id}/members`, expect: READ },
