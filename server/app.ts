@@ -4,6 +4,7 @@ import type { AppContext } from './app-context';
 import { createCsrf } from './auth/csrf';
 import { loadSession } from './auth/sessions';
 import { apiNotFound, errorMiddleware } from './http/errors';
+import { patternAccess } from './http/pattern-access';
 import { securityHeaders } from './http/security';
 import { staticAppRouter } from './http/static-app';
 import { adminRouter } from './routes/admin';
@@ -41,6 +42,8 @@ export function createApp(ctx: AppContext): Express {
   api.use('/auth', authRouter(ctx, csrf));
   api.use('/admin', adminRouter(ctx));
   api.use('/invitations', invitationsRouter(ctx));
+  // Every route about one pattern finds it and the caller's access here (or answers 404) first.
+  api.use('/patterns/:id', patternAccess(ctx.db));
   api.use('/patterns/:id/revisions', revisionsRouter(ctx));
   api.use('/patterns/:id/sewing-log', sewingLogRouter(ctx));
   api.use('/patterns/:id/uploads', uploadsRouter(ctx));

@@ -7,13 +7,11 @@ import { hashToken, newId, randomToken } from '../auth/tokens';
 import { invitations, MEMBER_ACCESS, members, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { emailSchema, idSchema, parseOr400 } from '../http/validate';
-import { resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
 import { invitationMail } from '../services/mail-templates';
 
 const inviteBody = z.strictObject({ email: emailSchema, access: z.enum(MEMBER_ACCESS) });
 const accessBody = z.strictObject({ access: z.enum(MEMBER_ACCESS) });
-
-const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
 
 /** `/api/patterns/:id/members` and `/api/patterns/:id/invitations`: sharing a pattern. */
 export function membersRouter(ctx: AppContext): Router {
@@ -21,7 +19,7 @@ export function membersRouter(ctx: AppContext): Router {
   const router = express.Router({ mergeParams: true });
 
   router.get('/members', (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern, access } = patternOf(res);
     const owner = db.select().from(users).where(eq(users.id, pattern.ownerId)).get();
     const rows = db
       .select({ m: members, email: users.email, displayName: users.displayName })
@@ -59,7 +57,7 @@ export function membersRouter(ctx: AppContext): Router {
   });
 
   router.post('/invitations', async (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const { pattern } = patternOf(res, 'owner');
     const user = currentUser(req);
     const body = parseOr400(inviteBody, req.body);
     if (body.email === user.email) throw new HttpError(400, 'You own this pattern already', [{ path: 'email', message: 'is your own address' }]);
@@ -91,7 +89,7 @@ export function membersRouter(ctx: AppContext): Router {
   });
 
   router.delete('/invitations/:invitationId', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const { pattern } = patternOf(res, 'owner');
     const invitationId = parseOr400(idSchema, req.params.invitationId, 'Invalid invitation id');
     const revoked = db
       .update(invitations)
@@ -104,7 +102,7 @@ export function membersRouter(ctx: AppContext): Router {
   });
 
   router.patch('/members/:userId', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'owner');
+    const { pattern } = patternOf(res, 'owner');
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
     const body = parseOr400(accessBody, req.body);
     const updated = db
@@ -118,7 +116,7 @@ export function membersRouter(ctx: AppContext): Router {
   });
 
   router.delete('/members/:userId', (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern, access } = patternOf(res);
     const user = currentUser(req);
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
     if (access !== 'owner' && userId !== user.id) throw new HttpError(403, 'Only the owner can remove other members');

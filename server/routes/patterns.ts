@@ -9,7 +9,8 @@ import { patterns, printSets, uploads } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
-import { canDesign, resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
+import { canDesign } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { listPatterns } from '../services/pattern-list';
 import { editSessionSchema } from '../services/revision-groups';
@@ -19,7 +20,7 @@ import {
   ownerName,
   patternJson,
   saveRevision,
-  sendPatternWithRevision,
+  patternWithRevisionText,
   validDocument,
 } from '../services/revisions';
 
@@ -51,29 +52,29 @@ export function patternsRouter(ctx: AppContext): Router {
     const body = parseOr400(createBody, req.body);
     const document = validDocument(body.document);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
-    sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
+    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(pattern, user.displayName, 'owner'), revision, user.displayName));
   });
 
   router.get('/:id', (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, req.params.id);
+    const { pattern, access } = patternOf(res);
     const latest = findRevision(db, pattern.id);
     if (!latest) throw new HttpError(500, 'Pattern has no revision');
-    sendPatternWithRevision(res, 200, patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName);
+    res.status(200).type('application/json').send(patternWithRevisionText(patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName));
   });
 
   router.put('/:id', (req, res) => {
-    const { access } = resolvePatternAccess(db, req.user, req.params.id, 'edit');
+    const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     const body = parseOr400(saveBody, req.body);
     const document = validDocument(body.document);
-    const saved = db.transaction((tx) => saveRevision(tx, req.params.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
+    const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
     });
-    sendPatternWithRevision(res, 200, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    res.status(200).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
   });
 
   router.post('/:id/duplicate', async (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'edit');
+    const { pattern } = patternOf(res, 'edit');
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can duplicate patterns');
     const body = parseOr400(duplicateBody, req.body ?? {});
@@ -107,11 +108,11 @@ export function patternsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    sendPatternWithRevision(res, 201, patternJson(created.pattern, user.displayName, 'owner'), created.revision, user.displayName);
+    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(created.pattern, user.displayName, 'owner'), created.revision, user.displayName));
   });
 
   router.post('/:id/trash', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    const { pattern } = patternOf(res, 'owner');
     const updated = db
       .update(patterns)
       .set({ trashedAt: pattern.trashedAt ?? new Date() })
@@ -122,13 +123,13 @@ export function patternsRouter(ctx: AppContext): Router {
   });
 
   router.post('/:id/restore', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    const { pattern } = patternOf(res, 'owner');
     const updated = db.update(patterns).set({ trashedAt: null }).where(eq(patterns.id, pattern.id)).returning().get();
     res.json({ pattern: patternJson(updated, currentUser(req).displayName, 'owner') });
   });
 
   router.delete('/:id', async (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, req.params.id, 'owner');
+    const { pattern } = patternOf(res, 'owner');
     if (!pattern.trashedAt) throw new HttpError(409, 'Move the pattern to the trash before deleting it for good');
     const files = db.transaction(
       (tx) => {

@@ -9,7 +9,7 @@ import { newId } from '../auth/tokens';
 import { printSets, users, type PrintSet } from '../db/schema';
 import { HttpError, zodDetails } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
-import { resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { findRevision } from '../services/revisions';
 
@@ -17,8 +17,6 @@ const createBody = z.strictObject({
   revision: z.number().int().min(1).optional(),
   options: z.record(z.string(), z.unknown()).default({}),
 });
-
-const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
 
 function printSetJson(s: PrintSet, creatorName: string) {
   return {
@@ -68,7 +66,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   };
 
   router.post('/', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const user = currentUser(req);
     const body = parseOr400(createBody, req.body ?? {});
     const waiting =
@@ -110,7 +108,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   });
 
   router.get('/', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const rows = db
       .select({ set: printSets, creatorName: users.displayName })
       .from(printSets)
@@ -122,13 +120,13 @@ export function printSetsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:setId', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const row = findSet(pattern.id, req.params.setId);
     res.json({ printSet: printSetJson(row.set, row.creatorName) });
   });
 
   router.get('/:setId/events', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const row = findSet(pattern.id, req.params.setId);
     res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
     const send = (s: PrintSet) => res.write(`event: progress\ndata: ${JSON.stringify(printSetJson(s, row.creatorName))}\n\n`);
@@ -149,7 +147,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:setId/file', (req, res, next) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const { set } = findSet(pattern.id, req.params.setId);
     if (set.status !== 'done' || !set.storagePath) {
       throw new HttpError(409, set.status === 'failed' ? 'This print set failed to render' : 'This print set is not ready yet', {
@@ -169,7 +167,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   });
 
   router.delete('/:setId', async (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern, access } = patternOf(res);
     const user = currentUser(req);
     const { set } = findSet(pattern.id, req.params.setId);
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');

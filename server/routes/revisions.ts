@@ -8,7 +8,7 @@ import { revisions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
-import { resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
 import { editSessionSchema, listRevisionGroups } from '../services/revision-groups';
 import {
   findRevision,
@@ -17,7 +17,7 @@ import {
   revisionJsonText,
   revisionSummary,
   saveRevision,
-  sendPatternWithRevision,
+  patternWithRevisionText,
   validDocument,
 } from '../services/revisions';
 
@@ -42,7 +42,7 @@ export function revisionsRouter(ctx: AppContext): Router {
   const router = express.Router({ mergeParams: true });
 
   router.get('/', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const { pattern } = patternOf(res);
     const q = parseOr400(listQuery, req.query, 'Invalid query');
     const where = and(
       eq(revisions.patternId, pattern.id),
@@ -63,13 +63,13 @@ export function revisionsRouter(ctx: AppContext): Router {
   });
 
   router.get('/groups', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const { pattern } = patternOf(res);
     const q = parseOr400(groupsQuery, req.query, 'Invalid query');
     res.json(listRevisionGroups(db, pattern.id, q.page, q.pageSize));
   });
 
   router.post('/', (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id, 'edit');
+    const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     const body = parseOr400(versionBody, req.body);
     const document = body.document === undefined ? undefined : validDocument(body.document);
@@ -86,11 +86,11 @@ export function revisionsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
   });
 
   router.get('/:number', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const { pattern } = patternOf(res);
     const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
     const found = findRevision(db, pattern.id, number);
     if (!found) throw new HttpError(404, 'Revision not found');
@@ -98,7 +98,7 @@ export function revisionsRouter(ctx: AppContext): Router {
   });
 
   router.post('/:number/restore', (req, res) => {
-    const { pattern, access } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id, 'edit');
+    const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
     const body = parseOr400(restoreBody, req.body);
@@ -110,7 +110,7 @@ export function revisionsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
   });
 
   return router;

@@ -6,7 +6,7 @@ import { currentUser } from '../auth/sessions';
 import { SEWING_STAGES, sewingLog } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
-import { resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
 import { findRevision } from '../services/revisions';
 
 const sectionIdParam = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be a section id');
@@ -20,7 +20,7 @@ export function sewingLogRouter(ctx: AppContext): Router {
   const router = express.Router({ mergeParams: true });
 
   router.get('/', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const { pattern } = patternOf(res);
     const user = currentUser(req);
     const rows = db
       .select()
@@ -31,7 +31,7 @@ export function sewingLogRouter(ctx: AppContext): Router {
   });
 
   router.put('/:sectionId', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, (req.params as { id?: string }).id);
+    const { pattern } = patternOf(res);
     const user = currentUser(req);
     const sectionId = parseOr400(sectionIdParam, req.params.sectionId, 'Invalid section id');
     const body = parseOr400(stageBody, req.body);

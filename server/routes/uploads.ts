@@ -9,7 +9,7 @@ import { newId } from '../auth/tokens';
 import { uploads, type Upload } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
-import { resolvePatternAccess } from '../services/access';
+import { patternOf } from '../http/pattern-access';
 import { removeStoredFiles, resolveInData, sha256Hex, writeFileAtomic } from '../services/files';
 
 /** Largest reference image accepted. */
@@ -17,8 +17,6 @@ export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
 
 /** Image types accepted, by the type their bytes show (not their name). */
 const ACCEPTED: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp' };
-
-const pid = (req: { params: unknown }) => (req.params as { id?: string }).id;
 
 export function uploadJson(u: Upload) {
   return {
@@ -59,7 +57,7 @@ export function uploadsRouter(ctx: AppContext): Router {
     });
 
   router.post('/', async (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'edit');
+    const { pattern } = patternOf(res, 'edit');
     const user = currentUser(req);
     if (!req.is('multipart/form-data')) throw new HttpError(415, 'Send the image as multipart/form-data, field "file"');
     const file = await readFile(req, res);
@@ -98,7 +96,7 @@ export function uploadsRouter(ctx: AppContext): Router {
   });
 
   router.get('/', (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const rows = db.select().from(uploads).where(eq(uploads.patternId, pattern.id)).orderBy(desc(uploads.createdAt)).all();
     res.json({ items: rows.map(uploadJson) });
   });
@@ -111,7 +109,7 @@ export function uploadsRouter(ctx: AppContext): Router {
   };
 
   router.get('/:uploadId/file', (req, res, next) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req));
+    const { pattern } = patternOf(res);
     const row = findUpload(pattern.id, req.params.uploadId);
     const file = resolveInData(config.dataDir, row.storagePath);
     if (!fs.existsSync(file)) throw new HttpError(404, 'Upload not found');
@@ -124,7 +122,7 @@ export function uploadsRouter(ctx: AppContext): Router {
   });
 
   router.delete('/:uploadId', async (req, res) => {
-    const { pattern } = resolvePatternAccess(db, req.user, pid(req), 'edit');
+    const { pattern } = patternOf(res, 'edit');
     const row = findUpload(pattern.id, req.params.uploadId);
     db.delete(uploads).where(eq(uploads.id, row.id)).run();
     await removeStoredFiles(config.dataDir, [row.storagePath]);

@@ -30,26 +30,38 @@ const accessQueries = preparedPerDb((db) => ({
 }));
 
 /**
- * Finds the pattern and the user's access to it. Anonymous users, strangers, malformed ids and
- * (for everyone but the owner) trashed patterns all get the same 404. A member whose access is too
- * low for `need` gets 403: they can see the pattern, so hiding it would be a lie.
+ * The access a user holds on a pattern by ownership or membership, or null for a stranger. Says
+ * nothing about the trash: callers that hide trashed patterns check it themselves.
  */
-export function resolvePatternAccess(db: DbLike, user: User | undefined, patternId: unknown, need: Need = 'read'): PatternAccess {
+export function accessOf(db: DbLike, user: User, pattern: { id: string; ownerId: string }): Access | null {
+  if (pattern.ownerId === user.id) return 'owner';
+  return accessQueries(db).membership.get({ patternId: pattern.id, userId: user.id })?.access ?? null;
+}
+
+/**
+ * Finds the pattern and the user's access to it. Anonymous users, strangers, malformed ids and
+ * (for everyone but the owner) trashed patterns all get the same 404.
+ */
+export function loadPatternAccess(db: DbLike, user: User | undefined, patternId: unknown): PatternAccess {
   if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
-  const id = patternId as string;
-  const q = accessQueries(db);
-  const pattern = q.pattern.get({ id });
+  const pattern = accessQueries(db).pattern.get({ id: patternId as string });
   if (!pattern) throw patternNotFound();
-  let access: Access;
-  if (pattern.ownerId === user.id) access = 'owner';
-  else {
-    const m = q.membership.get({ patternId: id, userId: user.id });
-    if (!m || pattern.trashedAt) throw patternNotFound();
-    access = m.access;
-  }
+  const access = accessOf(db, user, pattern);
+  if (!access || (access !== 'owner' && pattern.trashedAt)) throw patternNotFound();
+  return { pattern, access };
+}
+
+/** A member whose access is too low for `need` gets 403: they can see the pattern, so hiding it would be a lie. */
+export function checkNeed(access: Access, need: Need): void {
   if (need === 'edit' && access === 'quilter') throw new HttpError(403, 'Quilter access cannot change this pattern');
   if (need === 'owner' && access !== 'owner') throw new HttpError(403, 'Only the owner can do this');
-  return { pattern, access };
+}
+
+/** `loadPatternAccess` and `checkNeed` together, for routes not under `/patterns/:id`. */
+export function resolvePatternAccess(db: DbLike, user: User | undefined, patternId: unknown, need: Need = 'read'): PatternAccess {
+  const found = loadPatternAccess(db, user, patternId);
+  checkNeed(found.access, need);
+  return found;
 }
 
 /** Whether the user's account role may create patterns. */

@@ -45,15 +45,9 @@ export function revisionJsonText(r: Revision, authorName: string): string {
   return `${meta.slice(0, -1)},"document":${r.document}}`;
 }
 
-/** Sends `{ pattern, revision }` (the answer of reads and saves) without re-serialising the document. */
-export function sendPatternWithRevision(
-  res: { status(code: number): { type(t: string): { send(body: string): unknown } } },
-  status: number,
-  pattern: ReturnType<typeof patternJson>,
-  revision: Revision,
-  authorName: string,
-): void {
-  res.status(status).type('application/json').send(`{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`);
+/** The JSON text of `{ pattern, revision }` (the answer of reads and saves), made without re-serialising the document. */
+export function patternWithRevisionText(pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): string {
+  return `{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`;
 }
 
 export function patternJson(p: Pattern, ownerName: string, access: Access) {

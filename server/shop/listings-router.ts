@@ -3,12 +3,12 @@ import express, { type Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
-import type { DbLike } from '../db/database';
-import { members, orders, patterns, revisions, SHOP_CURRENCIES, shopListings, shops, users, type User } from '../db/schema';
+import { orders, patterns, SHOP_CURRENCIES, shopListings, shops } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { likeContains, pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
-import { canDesign, resolvePatternAccess, type Access } from '../services/access';
+import { accessOf, canDesign, resolvePatternAccess } from '../services/access';
+import { findListing, listingRows } from './listings';
 import { MAX_PRICE_MINOR, MIN_PRICE_MINOR } from './money';
 import { listingJson } from './shop-json';
 
@@ -19,39 +19,6 @@ const listingBody = z.strictObject({
   description: z.string().trim().min(1, 'is required').max(2000),
   published: z.boolean(),
 });
-
-/** Listings joined with their pattern, shop currency, designer name and latest document. */
-function listingRows(db: DbLike) {
-  return db
-    .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName, document: revisions.document })
-    .from(shopListings)
-    .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
-    .innerJoin(shops, eq(shops.ownerId, patterns.ownerId))
-    .innerJoin(users, eq(users.id, patterns.ownerId))
-    .leftJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)));
-}
-
-/** The listing of a pattern with what a page about it needs; undefined when there is none. */
-export function findListing(db: DbLike, patternId: string) {
-  return listingRows(db).where(eq(shopListings.patternId, patternId)).get();
-}
-
-/** A listing any signed-in user may see: published, of a pattern not in the trash. */
-export function findPublishedListing(db: DbLike, patternId: string) {
-  const found = findListing(db, patternId);
-  return found && found.listing.publishedAt && !found.pattern.trashedAt ? found : undefined;
-}
-
-/** The user's access to a pattern without throwing: owner, member access, or null. */
-export function accessOf(db: DbLike, user: User, pattern: { id: string; ownerId: string }): Access | null {
-  if (pattern.ownerId === user.id) return 'owner';
-  const m = db
-    .select({ access: members.access })
-    .from(members)
-    .where(and(eq(members.patternId, pattern.id), eq(members.userId, user.id)))
-    .get();
-  return m?.access ?? null;
-}
 
 const listingNotFound = () => new HttpError(404, 'Listing not found');
 

@@ -8,8 +8,8 @@ import { orders, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
-import { canDesign } from '../services/access';
-import { accessOf, findPublishedListing } from './listings-router';
+import { accessOf, canDesign } from '../services/access';
+import { findPublishedListing } from './listings';
 import { requirePayments, type Payments } from './payments';
 import { orderJson } from './shop-json';
 
