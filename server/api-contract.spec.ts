@@ -61,7 +61,9 @@ const checked = new Set<z.ZodType>();
 
 /** Asserts the status, then parses the body with `schema`; a mismatch names the request and the paths. */
 function answer<T extends z.ZodType>(res: Response, status: number, schema: T): z.infer<T> {
-  const what = `${res.req.method} ${res.req.path}`;
+  // superagent's response keeps its request (the typings leave it out).
+  const { method, path } = (res as unknown as { req: { method: string; path: string } }).req;
+  const what = `${method} ${path}`;
   expect(res.status, `${what}: ${JSON.stringify(res.body)}`).toBe(status);
   const parsed = schema.safeParse(res.body);
   if (!parsed.success) {
@@ -72,7 +74,7 @@ function answer<T extends z.ZodType>(res: Response, status: number, schema: T): 
 }
 
 /** Reads a text/event-stream answer to its end. */
-const streamText = (r: NodeJS.ReadableStream & { setEncoding(e: string): void }, cb: (err: Error | null, body: string) => void) => {
+const streamText = (r: Response, cb: (err: Error | null, body: string) => void) => {
   let text = '';
   r.setEncoding('utf8');
   r.on('data', (c: string) => (text += c));
