@@ -4,6 +4,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { Router, provideRouter } from '@angular/router';
 import { AcceptInvitationComponent } from './accept-invitation.component';
 import { CsrfTokenService } from '../core/csrf-token.service';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
 
 const invitation = { patternTitle: 'Orchard Wheel', invitedBy: { displayName: 'Mira' }, email: 'jonah@example.test', access: 'quilter', expiresAt: '2026-12-08T00:00:00Z' };
 
@@ -20,7 +22,7 @@ describe('AcceptInvitationComponent', () => {
     else me.flush({ user: null, csrfToken: 'anon' });
     http.expectOne('/api/invitations/tok-9').flush({ invitation });
     await fixture.whenStable();
-    return { fixture, http, el: fixture.nativeElement as HTMLElement };
+    return { fixture, http, el: fixture.nativeElement as HTMLElement, loader: TestbedHarnessEnvironment.loader(fixture) };
   }
 
   it('says who invites to what, and asks a signed-out person to create an account or sign in, coming back here', async () => {
@@ -34,9 +36,9 @@ describe('AcceptInvitationComponent', () => {
   });
 
   it('accepts with the token and opens the pattern', async () => {
-    const { el, http, fixture } = await setup(true);
+    const { loader, http, fixture } = await setup(true);
     const nav = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
-    (Array.from(el.querySelectorAll('button')).find((b) => b.textContent?.includes('Accept')) as HTMLButtonElement).click();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Accept and open the pattern' }))).click();
     const req = http.expectOne('/api/invitations/accept');
     expect(req.request.body).toEqual({ token: 'tok-9' });
     req.flush({ pattern: { id: 'p42' } });

@@ -3,6 +3,10 @@ import { MatDialogRef } from '@angular/material/dialog';
 import { NewPatternDialogComponent } from './new-pattern-dialog.component';
 import { STARTERS } from './starters';
 import { parsePatternDocument } from '@seamwright/piecing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatRadioButtonHarness } from '@angular/material/radio/testing';
+import { fillIn, shownErrors } from '../testing/material-form';
 
 describe('NewPatternDialogComponent', () => {
   function setup() {
@@ -10,27 +14,24 @@ describe('NewPatternDialogComponent', () => {
     TestBed.configureTestingModule({ providers: [{ provide: MatDialogRef, useValue: { close } }] });
     const fixture = TestBed.createComponent(NewPatternDialogComponent);
     fixture.detectChanges();
-    const el = fixture.nativeElement as HTMLElement;
-    const title = el.querySelector('input[formcontrolname=title]') as HTMLInputElement;
-    const create = async (value: string) => {
-      title.value = value;
-      title.dispatchEvent(new Event('input'));
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const create = async (title: string) => {
+      await fillIn(loader, { Title: title });
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Create' }))).click();
     };
-    return { el, close, create };
+    return { loader, close, create };
   }
 
   it('asks for a title and does not close without one', async () => {
-    const { el, close, create } = setup();
+    const { loader, close, create } = setup();
     await create('   ');
-    expect(el.querySelector('mat-error')?.textContent?.trim()).toBe('Title is required');
+    expect(await shownErrors(loader)).toEqual(['Title is required']);
     expect(close).not.toHaveBeenCalled();
   });
 
   it('hands back the trimmed title and the starter chosen', async () => {
-    const { el, close, create } = setup();
-    (el.querySelectorAll('mat-radio-button input')[2] as HTMLInputElement).click();
+    const { loader, close, create } = setup();
+    await (await loader.getHarness(MatRadioButtonHarness.with({ label: new RegExp(`^${STARTERS[2].name} —`) }))).check();
     await create('  Harvest Ring ');
     expect(close).toHaveBeenCalledWith({ title: 'Harvest Ring', starterId: STARTERS[2].id });
   });

@@ -1,24 +1,21 @@
 import { TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { ScaleCheckComponent } from './scale-check.component';
+import { fillIn } from '../testing/material-form';
 
 describe('ScaleCheckComponent', () => {
   async function setup() {
     const fixture = TestBed.createComponent(ScaleCheckComponent);
     fixture.detectChanges();
     const el = fixture.nativeElement as HTMLElement;
-    const input = el.querySelector('input[formcontrolname=measured]') as HTMLInputElement;
+    const loader = TestbedHarnessEnvironment.loader(fixture);
     const measure = async (text: string) => {
-      input.value = text;
-      input.dispatchEvent(new Event('input'));
-      await fixture.whenStable();
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
+      await fillIn(loader, { 'It measures': text });
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Check' }))).click();
     };
-    const toggle = async (label: string) => {
-      const b = Array.from(el.querySelectorAll('mat-button-toggle button')).find((x) => x.textContent?.trim() === label) as HTMLButtonElement;
-      b.click();
-      await fixture.whenStable();
-    };
+    const toggle = async (text: string) => (await loader.getHarness(MatButtonToggleHarness.with({ text }))).check();
     return { el, measure, toggle };
   }
 

@@ -3,6 +3,10 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { SaveVersionDialogComponent } from './save-version-dialog.component';
 import type { Revision } from '../../core/api-types';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { fillIn, shownErrors } from '../../testing/material-form';
 
 const made = { number: 9, version: { name: 'First fitting', note: null } } as unknown as Revision;
 
@@ -18,38 +22,31 @@ describe('SaveVersionDialogComponent', () => {
     const fixture = TestBed.createComponent(SaveVersionDialogComponent);
     fixture.detectChanges();
     const el = fixture.nativeElement as HTMLElement;
-    const type = (selector: string, value: string) => {
-      const input = el.querySelector(selector) as HTMLInputElement | HTMLTextAreaElement;
-      input.value = value;
-      input.dispatchEvent(new Event('input'));
-    };
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const saveButton = () => loader.getHarness(MatButtonHarness.with({ text: 'Save version' }));
     const submit = async (name: string, note = '') => {
-      type('input[formcontrolname=name]', name);
-      type('textarea[formcontrolname=note]', note);
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
-      fixture.detectChanges();
+      await fillIn(loader, { 'Version name': name, 'Note (optional)': note });
+      await (await saveButton()).click();
     };
-    const errors = () => Array.from(el.querySelectorAll('mat-error')).map((e) => e.textContent?.trim());
-    return { el, ref, submit, errors, fixture };
+    const errors = () => shownErrors(loader);
+    return { el, ref, loader, submit, errors, saveButton };
   }
 
   it('asks for a name and saves nothing without one', async () => {
     const save = vi.fn();
     const { submit, errors, ref } = setup(save);
     await submit('   ', 'a note');
-    expect(errors()).toEqual(['The name is required']);
+    expect(await errors()).toEqual(['The name is required']);
     expect(save).not.toHaveBeenCalled();
     expect(ref.close).not.toHaveBeenCalled();
   });
 
-  it('caps the name at 80 and the note at 500 characters, as the server does', () => {
-    const { el } = setup(vi.fn());
-    expect(el.querySelector('input[formcontrolname=name]')?.getAttribute('maxlength')).toBe('80');
-    expect(el.querySelector('textarea[formcontrolname=note]')?.getAttribute('maxlength')).toBe('500');
-    const label = (selector: string) => el.querySelector(selector)?.closest('mat-form-field')?.querySelector('mat-label')?.textContent?.trim();
-    expect(label('input[formcontrolname=name]')).toBe('Version name');
-    expect(label('textarea[formcontrolname=note]')).toBe('Note (optional)');
+  it('caps the name at 80 and the note at 500 characters, as the server does', async () => {
+    const { loader } = setup(vi.fn());
+    const maxLength = async (label: string) => (await (await loader.getHarness(MatInputHarness.with({ label }))).host()).getAttribute('maxlength');
+    expect(await maxLength('Version name')).toBe('80');
+    expect(await maxLength('Note (optional)')).toBe('500');
+    expect(await (await loader.getHarness(MatInputHarness.with({ label: 'Note (optional)' }))).getType()).toBe('textarea');
   });
 
   it('saves the trimmed name and note and closes with the new revision', async () => {
@@ -73,7 +70,7 @@ describe('SaveVersionDialogComponent', () => {
     });
     const { submit, errors, ref, el } = setup(save);
     await submit('x');
-    expect(errors()).toEqual(['must not be empty']);
+    expect(await errors()).toEqual(['must not be empty']);
     expect(el.querySelector('[role=alert]')).toBeNull();
     expect(ref.close).not.toHaveBeenCalled();
     expect(ref.disableClose).toBe(false);
@@ -83,12 +80,12 @@ describe('SaveVersionDialogComponent', () => {
     const save = vi.fn(async () => {
       throw new Error('Someone else saved first: choose what to do with your drawing, then save the version');
     });
-    const { submit, ref, el } = setup(save);
+    const { submit, ref, el, saveButton } = setup(save);
     await submit('First fitting');
     expect(el.querySelector('[role=alert]')?.textContent?.trim()).toBe(
       'Not saved: Someone else saved first: choose what to do with your drawing, then save the version',
     );
     expect(ref.close).not.toHaveBeenCalled();
-    expect((el.querySelector('button[type=submit]') as HTMLButtonElement).disabled).toBe(false);
+    expect(await (await saveButton()).isDisabled()).toBe(false);
   });
 });
