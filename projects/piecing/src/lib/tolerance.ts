@@ -22,4 +22,4 @@ export const MITRE_LIMIT = 4;
 export const MIN_PATCH_AREA_SQ_IN = 1e-6;
 
 /** Precision of a patch's label point (pole of inaccessibility), in inches. */
-export const LABEL_POINT_PRECISION = 0.01;
+export const LABEL_POINT_PRECISION = 0.05;

@@ -246,6 +246,8 @@ describe('derivePatches', () => {
     expect(locatePoint(p.labelPoint, p.polygon)).toBe('inside');
     const ring = p.polygon;
     const clearance = Math.min(...ring.map((a, i) => distanceToSegment(p.labelPoint, a, ring[(i + 1) % ring.length])));
-    expect(Math.abs(clearance - (2 - Math.SQRT2))).toBeLessThan(0.01);
+    // polylabel's result is within the precision (0.05 in.) of the best clearance.
+    expect(clearance).toBeGreaterThan(2 - Math.SQRT2 - 0.05);
+    expect(clearance).toBeLessThanOrEqual(2 - Math.SQRT2 + 1e-9);
   });
 });
