@@ -1,6 +1,12 @@
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { z } from 'zod';
+import {
+  changePasswordBodySchema,
+  resetConfirmBodySchema,
+  resetRequestBodySchema,
+  signInBodySchema,
+  signUpBodySchema,
+} from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import type { Csrf } from '../auth/csrf';
 import { decoyHash, hashPassword, verifyPassword } from '../auth/passwords';
@@ -9,19 +15,8 @@ import { currentUser, endSession, endUserSessions, publicUser, requireUser, star
 import { hashToken, newId, randomToken } from '../auth/tokens';
 import { passwordResets, sessions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { emailSchema, parseOr400, passwordSchema } from '../http/validate';
+import { parseOr400 } from '../http/validate';
 import { passwordResetMail } from '../services/mail-templates';
-
-const signUpBody = z.strictObject({
-  email: emailSchema,
-  password: passwordSchema,
-  displayName: z.string().trim().min(1).max(80),
-  role: z.enum(['designer', 'quilter']),
-});
-const signInBody = z.strictObject({ email: emailSchema, password: z.string().min(1).max(200) });
-const changePasswordBody = z.strictObject({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema });
-const resetRequestBody = z.strictObject({ email: emailSchema });
-const resetConfirmBody = z.strictObject({ token: z.string().min(20).max(100), newPassword: passwordSchema });
 
 const RESET_MS = 60 * 60_000;
 
@@ -37,7 +32,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   });
 
   router.post('/sign-up', ...limits.signUp, async (req, res) => {
-    const body = parseOr400(signUpBody, req.body);
+    const body = parseOr400(signUpBodySchema, req.body);
     const passwordHash = await hashPassword(body.password, config.bcryptRounds);
     const id = newId();
     const previous = req.sessionTokenHash;
@@ -63,7 +58,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   });
 
   router.post('/sign-in', ...limits.signIn, async (req, res) => {
-    const body = parseOr400(signInBody, req.body);
+    const body = parseOr400(signInBodySchema, req.body);
     // Awaited for every sign-in, known e-mail or not, so the one-time cost of making it tells nothing.
     const fallback = await decoy();
     const user = db.select().from(users).where(eq(users.email, body.email)).get();
@@ -93,7 +88,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   });
 
   router.post('/change-password', requireUser, async (req, res) => {
-    const body = parseOr400(changePasswordBody, req.body);
+    const body = parseOr400(changePasswordBodySchema, req.body);
     const user = currentUser(req);
     if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
       throw new HttpError(401, 'The current password is wrong', [{ path: 'currentPassword', message: 'does not match' }]);
@@ -107,7 +102,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   });
 
   router.post('/password-reset', ...limits.reset, async (req, res) => {
-    const body = parseOr400(resetRequestBody, req.body);
+    const body = parseOr400(resetRequestBodySchema, req.body);
     const user = db.select().from(users).where(eq(users.email, body.email)).get();
     if (user && !user.disabled) {
       const token = randomToken();
@@ -127,7 +122,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   });
 
   router.post('/password-reset/confirm', async (req, res) => {
-    const body = parseOr400(resetConfirmBody, req.body);
+    const body = parseOr400(resetConfirmBodySchema, req.body);
     const tokenHash = hashToken(body.token);
     const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
     const done = db.transaction((tx) => {

@@ -109,6 +109,22 @@ export {
   type ErrorAnswer,
 } from './schemas';
 export {
+  idSchema,
+  emailSchema,
+  passwordSchema,
+  PASSWORD_MIN_LENGTH,
+  PASSWORD_MAX_BYTES,
+  signUpBodySchema,
+  signInBodySchema,
+  changePasswordBodySchema,
+  resetRequestBodySchema,
+  resetConfirmBodySchema,
+  type SignUpBody,
+  type SignInBody,
+  type ChangePasswordBody,
+  type ResetConfirmBody,
+} from './requests';
+export {
   SHOP_CURRENCIES,
   MINOR_DIGITS,
   CURRENCY_NAMES,

@@ -7,9 +7,10 @@
 import { z } from 'zod';
 import type { PatternDocument, PatternDocumentInput } from '@seamwright/piecing';
 import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, SHOP_CURRENCIES } from './money';
+import { idSchema } from './requests';
 
 const isoTime = z.iso.datetime();
-const id = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/);
+const id = idSchema;
 
 /** A stored pattern document (piecing's schema; revisions saved before format 2 keep their version). */
 const storedDocument = z.custom<PatternDocument>(

@@ -1,0 +1,53 @@
+/*
+ * Bodies the server takes, as the zod schemas it validates them with (docs/api.md, "Strict input"):
+ * the server parses with these, the app may check a form with them before sending.
+ */
+import { z } from 'zod';
+
+/** Ids made by the server: url-safe letters and digits, nothing that can walk a path. */
+export const idSchema = z
+  .string()
+  .regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be an id of letters, digits, "-" or "_"');
+
+/** E-mail addresses, trimmed and lower-cased. */
+export const emailSchema = z
+  .string()
+  .trim()
+  .max(254)
+  .pipe(z.email({ message: 'must be an e-mail address' }))
+  .transform((v) => v.toLowerCase());
+
+/** Longest password in UTF-8 bytes: bcrypt reads at most 72 bytes of its input. */
+export const PASSWORD_MAX_BYTES = 72;
+/** Shortest password, in characters. */
+export const PASSWORD_MIN_LENGTH = 10;
+
+/** Passwords: long enough to matter, short enough for bcrypt's 72-byte input. */
+export const passwordSchema = z
+  .string()
+  .min(PASSWORD_MIN_LENGTH, `must be at least ${PASSWORD_MIN_LENGTH} characters`)
+  .refine((v) => new TextEncoder().encode(v).length <= PASSWORD_MAX_BYTES, { message: `must be at most ${PASSWORD_MAX_BYTES} bytes` });
+
+/** `POST /api/auth/sign-up`. */
+export const signUpBodySchema = z.strictObject({
+  email: emailSchema,
+  password: passwordSchema,
+  displayName: z.string().trim().min(1).max(80),
+  role: z.enum(['designer', 'quilter']),
+});
+export type SignUpBody = z.input<typeof signUpBodySchema>;
+
+/** `POST /api/auth/sign-in`. */
+export const signInBodySchema = z.strictObject({ email: emailSchema, password: z.string().min(1).max(200) });
+export type SignInBody = z.input<typeof signInBodySchema>;
+
+/** `POST /api/auth/change-password`. */
+export const changePasswordBodySchema = z.strictObject({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema });
+export type ChangePasswordBody = z.input<typeof changePasswordBodySchema>;
+
+/** `POST /api/auth/password-reset`. */
+export const resetRequestBodySchema = z.strictObject({ email: emailSchema });
+
+/** `POST /api/auth/password-reset/confirm`. */
+export const resetConfirmBodySchema = z.strictObject({ token: z.string().min(20).max(100), newPassword: passwordSchema });
+export type ResetConfirmBody = z.input<typeof resetConfirmBodySchema>;
