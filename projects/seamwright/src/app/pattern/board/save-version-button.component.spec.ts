@@ -3,6 +3,11 @@ import { Component, signal } from '@angular/core';
 import { SaveVersionButtonComponent, type VersionSaver } from './save-version-button.component';
 import type { SaveStatus } from './board-autosave';
 import type { Revision } from '../../core/api-types';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
+import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
+import { fillIn } from '../../testing/material-form';
 
 @Component({
   imports: [SaveVersionButtonComponent],
@@ -18,34 +23,28 @@ describe('SaveVersionButtonComponent', () => {
   function setup() {
     const fixture = TestBed.createComponent(HostComponent);
     fixture.detectChanges();
-    const button = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
-    return { fixture, host: fixture.componentInstance, button };
+    const button = () => TestbedHarnessEnvironment.loader(fixture).getHarness(MatButtonHarness.with({ text: /Save as version$/ }));
+    return { host: fixture.componentInstance, button, page: TestbedHarnessEnvironment.documentRootLoader(fixture) };
   }
 
   afterEach(() => document.querySelectorAll('.cdk-overlay-container').forEach((c) => (c.innerHTML = '')));
 
   it('opens the dialog, stores the version through autosave and says so', async () => {
-    const { fixture, host, button } = setup();
-    expect(button.textContent?.replace('bookmark_add', '').trim()).toBe('Save as version');
-    button.click();
-    fixture.detectChanges();
-    await fixture.whenStable();
-    const dialog = document.querySelector('[role=dialog]') as HTMLElement;
-    expect(dialog.querySelector('h2')?.textContent).toBe('Save as version');
-    const name = dialog.querySelector('input[formcontrolname=name]') as HTMLInputElement;
-    name.value = 'Ready to sew';
-    name.dispatchEvent(new Event('input'));
-    (dialog.querySelector('button[type=submit]') as HTMLButtonElement).click();
-    await vi.waitFor(() => expect(document.querySelector('[role=dialog]')).toBeNull());
+    const { host, button, page } = setup();
+    await (await button()).click();
+    const dialog = await page.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('Save as version');
+    await fillIn(dialog, { 'Version name': 'Ready to sew' });
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save version' }))).click();
+    await vi.waitFor(async () => expect(await page.getAllHarnesses(MatDialogHarness)).toEqual([]));
     expect(host.saveVersion).toHaveBeenCalledWith({ name: 'Ready to sew' });
-    await vi.waitFor(() => expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent?.trim()).toMatch(/^Saved as version “Ready to sew” \(revision 7\)/));
+    await vi.waitFor(async () => expect(await (await page.getHarness(MatSnackBarHarness)).getMessage()).toMatch(/^Saved as version “Ready to sew” \(revision 7\)/));
   });
 
-  it('is unavailable while a conflict waits for the user', () => {
-    const { fixture, host, button } = setup();
-    expect(button.disabled).toBe(false);
+  it('is unavailable while a conflict waits for the user', async () => {
+    const { host, button } = setup();
+    expect(await (await button()).isDisabled()).toBe(false);
     host.status.set('conflict');
-    fixture.detectChanges();
-    expect(button.disabled).toBe(true);
+    expect(await (await button()).isDisabled()).toBe(true);
   });
 });

@@ -4,6 +4,10 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { SharePageComponent } from './share-page.component';
 import { PatternContext } from '../pattern-context.service';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { fillIn, shownErrors } from '../../testing/material-form';
 
 const members = {
   owner: { id: 'u1', displayName: 'Dana', email: 'dana@example.test' },
@@ -26,14 +30,13 @@ describe('SharePageComponent', () => {
     http.expectOne('/api/patterns/p1/members').flush(members);
     await fixture.whenStable();
     const el = fixture.nativeElement as HTMLElement;
-    const email = el.querySelector('input[type=email]') as HTMLInputElement | null;
+    const loader = TestbedHarnessEnvironment.loader(fixture);
     const send = async (value: string) => {
-      email!.value = value;
-      email!.dispatchEvent(new Event('input'));
-      (el.querySelector('button[type=submit]') as HTMLButtonElement).click();
-      await fixture.whenStable();
+      await fillIn(loader, { 'E-mail address': value });
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Send invitation$/ }))).click();
     };
-    return { fixture, el, http, send };
+    const emailInputs = () => loader.getAllHarnesses(MatInputHarness.with({ label: 'E-mail address' }));
+    return { fixture, el, http, loader, send, emailInputs };
   }
 
   it('lists the owner and the members', async () => {
@@ -45,33 +48,34 @@ describe('SharePageComponent', () => {
   });
 
   it('asks for an address before sending', async () => {
-    const { el, send, http } = await setup();
+    const { loader, send, http } = await setup();
     await send('');
-    expect(el.querySelector('mat-error')?.textContent?.trim()).toBe('E-mail is required');
+    expect(await shownErrors(loader)).toEqual(['E-mail is required']);
     http.expectNone('/api/patterns/p1/invitations');
   });
 
   it('refuses a malformed address with a message', async () => {
-    const { el, send } = await setup();
+    const { loader, send } = await setup();
     await send('quinn at example');
-    expect(el.querySelector('mat-error')?.textContent?.trim()).toBe('Enter an e-mail address like name@example.com');
+    expect(await shownErrors(loader)).toEqual(['Enter an e-mail address like name@example.com']);
   });
 
   it('sends the invitation with the chosen access and clears the field without an error', async () => {
-    const { el, send, http, fixture } = await setup();
+    const { loader, send, http, fixture, emailInputs } = await setup();
     await send(' newbie@example.test ');
     const req = http.expectOne('/api/patterns/p1/invitations');
     expect(req.request.body).toEqual({ email: 'newbie@example.test', access: 'quilter' });
     req.flush({ invitation: { id: 'i1', email: 'newbie@example.test', access: 'quilter', createdAt: '', expiresAt: '' } }, { status: 201, statusText: 'Created' });
     http.expectOne('/api/patterns/p1/members').flush(members);
     await fixture.whenStable();
-    expect((el.querySelector('input[type=email]') as HTMLInputElement).value).toBe('');
-    expect(el.querySelector('mat-error')).toBeNull();
+    const [email] = await emailInputs();
+    expect(await email.getValue()).toBe('');
+    expect(await shownErrors(loader)).toEqual([]);
   });
 
   it('shows no invitation form to members who are not the owner', async () => {
-    const { el } = await setup(false);
-    expect(el.querySelector('input[type=email]')).toBeNull();
+    const { el, emailInputs } = await setup(false);
+    expect(await emailInputs()).toEqual([]);
     expect(el.textContent).toContain('Quilter');
   });
 });
