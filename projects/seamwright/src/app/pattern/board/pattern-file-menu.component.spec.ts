@@ -3,6 +3,9 @@ import { signal } from '@angular/core';
 import { readPatternDocument } from '@seamwright/piecing';
 import { PatternFileMenuComponent } from './pattern-file-menu.component';
 import { PatternContext } from '../pattern-context.service';
+import { parallel } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatMenuHarness } from '@angular/material/menu/testing';
 
 const doc = readPatternDocument({
   formatVersion: 1,
@@ -17,9 +20,6 @@ const doc = readPatternDocument({
     },
   ],
 });
-
-/** A menu entry's words, without its icon's ligature. */
-const itemText = (b: Element) => (b.textContent ?? '').replace(b.querySelector('mat-icon')?.textContent ?? '', '').trim();
 
 /** A blob's text (the test DOM has no `Blob.text`). */
 const textOf = (blob: Blob) =>
@@ -58,23 +58,21 @@ describe('PatternFileMenuComponent', () => {
     const fixture = TestBed.createComponent(PatternFileMenuComponent);
     fixture.componentRef.setInput('document', doc);
     fixture.detectChanges();
-    const el = fixture.nativeElement as HTMLElement;
-    const trigger = el.querySelector('button') as HTMLButtonElement;
-    trigger.click();
-    fixture.detectChanges();
-    await fixture.whenStable();
-    const items = () => Array.from(document.querySelectorAll<HTMLButtonElement>('[role=menuitem]'));
-    const choose = async (text: string) => {
-      items().find((b) => b.textContent?.includes(text))?.click();
-      await fixture.whenStable();
+    const menu = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatMenuHarness);
+    await menu.open();
+    /** The entries' words, without their icons' ligatures. */
+    const items = async () => {
+      const found = await menu.getItems();
+      return parallel(() => found.map(async (item) => (await item.host()).text({ exclude: 'mat-icon' })));
     };
-    return { trigger, items, choose };
+    const choose = (text: string) => menu.clickItem({ text: new RegExp(text) });
+    return { menu, items, choose };
   }
 
   it('offers the pattern file and both pictures to those who may change the design', async () => {
-    const { trigger, items } = await setup(true);
-    expect(trigger.textContent?.trim()).toContain('Download');
-    expect(items().map(itemText)).toEqual([
+    const { menu, items } = await setup(true);
+    expect(await menu.getTriggerText()).toContain('Download');
+    expect(await items()).toEqual([
       'Pattern file (.seamwright.json)',
       'Front view as SVG',
       'Front view as PNG',
@@ -83,7 +81,7 @@ describe('PatternFileMenuComponent', () => {
 
   it('offers quilters the pictures only', async () => {
     const { items } = await setup(false);
-    expect(items().map(itemText)).toEqual(['Front view as SVG', 'Front view as PNG']);
+    expect(await items()).toEqual(['Front view as SVG', 'Front view as PNG']);
   });
 
   it('downloads the document on the board as a pattern file named after its title', async () => {
