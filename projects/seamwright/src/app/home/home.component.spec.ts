@@ -1,4 +1,7 @@
 import { TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { parallel } from '@angular/cdk/testing';
+import { MatCardHarness } from '@angular/material/card/testing';
 import { HomeComponent } from './home.component';
 
 describe('HomeComponent', () => {
@@ -7,7 +10,7 @@ describe('HomeComponent', () => {
     await fixture.whenStable();
     const el = fixture.nativeElement as HTMLElement;
     expect(el.querySelector('h1')?.textContent).toContain('true to size');
-    const titles = Array.from(el.querySelectorAll('mat-card-title')).map((t) => t.textContent?.trim());
-    expect(titles).toEqual(['For designers', 'For quilters']);
+    const cards = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatCardHarness);
+    expect(await parallel(() => cards.map((c) => c.getTitleText()))).toEqual(['For designers', 'For quilters']);
   });
 });

@@ -4,6 +4,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { Router, provideRouter } from '@angular/router';
 import { OpenPatternFileComponent } from './open-pattern-file.component';
 import { PatternsService } from '../resources/patterns.service';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
 
 const good = {
   formatVersion: 1,
@@ -45,11 +47,10 @@ describe('OpenPatternFileComponent', () => {
   }
 
   it('offers a named button that opens the file chooser', async () => {
-    const { el, input } = await setup();
-    const button = Array.from(el.querySelectorAll('button')).find((b) => b.textContent?.includes('Open a pattern file'));
-    expect(button).toBeTruthy();
+    const { fixture, input } = await setup();
+    const button = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatButtonHarness.with({ text: /Open a pattern file$/ }));
     const click = vi.spyOn(input, 'click').mockImplementation(() => undefined);
-    button?.click();
+    await button.click();
     expect(click).toHaveBeenCalled();
     expect(input.accept).toContain('.json');
   });

@@ -6,6 +6,8 @@ import { buildGardenGate, planPrintLayout, sheetCountStatement, type PatternDocu
 import { PrintPageComponent } from './print-page.component';
 import { PrintPreviewPlanner } from './print-preview-planner';
 import { PatternContext } from '../pattern-context.service';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { fillIn } from '../../testing/material-form';
 
 describe('PrintPageComponent preview', () => {
   async function setup() {
@@ -31,7 +33,7 @@ describe('PrintPageComponent preview', () => {
         expect(status()).toBe('');
       }, { timeout: 10_000, interval: 20 });
     };
-    return { fixture, el, planSpy, preview, status, statement, settle };
+    return { fixture, el, loader: TestbedHarnessEnvironment.loader(fixture), planSpy, preview, status, statement, settle };
   }
 
   afterEach(() => vi.restoreAllMocks());
@@ -51,6 +53,8 @@ describe('PrintPageComponent preview', () => {
     const { fixture, el, planSpy, settle, statement } = await setup();
     await settle();
     expect(planSpy).toHaveBeenCalledTimes(1);
+    // Typed in one synchronous burst, not through the input harness: its awaits between values are real time
+    // that, on a busy machine, could outlast the 250 ms debounce this test is about.
     const margin = el.querySelector('input[formcontrolname=marginIn]') as HTMLInputElement;
     for (const v of ['0.75', '1', '1.25']) {
       margin.value = v;
@@ -64,12 +68,9 @@ describe('PrintPageComponent preview', () => {
   });
 
   it('plans nothing for an invalid margin and shows no sheets', async () => {
-    const { fixture, el, planSpy, settle, preview } = await setup();
+    const { loader, planSpy, settle, preview } = await setup();
     await settle();
-    const margin = el.querySelector('input[formcontrolname=marginIn]') as HTMLInputElement;
-    margin.value = '9';
-    margin.dispatchEvent(new Event('input'));
-    fixture.detectChanges();
+    await fillIn(loader, { 'Margin (in.)': '9' });
     await settle();
     expect(planSpy).toHaveBeenCalledTimes(1);
     expect(preview().querySelectorAll('sw-sheet-preview').length).toBe(0);
