@@ -1,24 +1,18 @@
 import { and, count, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import express, { type Router } from 'express';
+import { listingBodySchema, shopBodySchema } from '@seamwright/api';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
-import { orders, patterns, SHOP_CURRENCIES, shopListings, shops } from '../db/schema';
+import { orders, patterns, shopListings, shops } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { likeContains, pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign, resolvePatternAccess } from '../services/access';
 import { findListing, listingRows } from './listings';
-import { MAX_PRICE_MINOR, MIN_PRICE_MINOR } from './money';
 import { listingJson } from './shop-json';
 
 const browseQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
-const shopBody = z.strictObject({ currency: z.enum(SHOP_CURRENCIES) });
-const listingBody = z.strictObject({
-  priceMinor: z.number().int().min(MIN_PRICE_MINOR).max(MAX_PRICE_MINOR),
-  description: z.string().trim().min(1, 'is required').max(2000),
-  published: z.boolean(),
-});
 
 const listingNotFound = () => new HttpError(404, 'Listing not found');
 
@@ -123,7 +117,7 @@ export function listingsRouter(ctx: AppContext): Router {
   router.put('/mine', (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers have a shop');
-    const body = parseOr400(shopBody, req.body);
+    const body = parseOr400(shopBodySchema, req.body);
     const now = new Date();
     const shop = db
       .insert(shops)
@@ -138,7 +132,7 @@ export function listingsRouter(ctx: AppContext): Router {
     const user = currentUser(req);
     const { pattern } = resolvePatternAccess(db, user, req.params.patternId, 'owner');
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can sell patterns');
-    const body = parseOr400(listingBody, req.body);
+    const body = parseOr400(listingBodySchema, req.body);
     if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before listing it');
     const shop = db.select().from(shops).where(eq(shops.ownerId, user.id)).get();
     if (!shop) throw new HttpError(409, "Choose your shop's currency first", [{ path: 'currency', message: 'is not set' }]);

@@ -1,5 +1,5 @@
+import { formatMoney } from '@seamwright/api';
 import type { Order } from '../db/schema';
-import { formatMoney } from './money';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);

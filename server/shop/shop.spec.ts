@@ -4,11 +4,11 @@ import type { AddressInfo } from 'node:net';
 import fc from 'fast-check';
 import request from 'supertest';
 import Stripe from 'stripe';
+import { formatMoney } from '@seamwright/api';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startFakeStripeServer, type FakeStripeServer } from '../dev/fake-stripe-server';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from '../test/harness';
 import { seedDemoShop } from './demo-shop';
-import { formatMoney } from './money';
 
 const SK = 'sk_test_shop_spec_key';
 const WHSEC = 'whsec_shop_spec_secret';
