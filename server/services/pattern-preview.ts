@@ -1,8 +1,7 @@
 import {
   derivePatches,
   flattenSectionOutline,
-  layoutStripSet,
-  polygonBounds,
+  stripSetBands,
   ringRepeatTransforms,
   type DerivedPatch,
   type PatternDocument,
@@ -102,7 +101,7 @@ function sectionMarkup(section: Section, id: string, w: Writer): { group: string
   patches.forEach((p, i) => {
     const fill = w.colour(p.stripSet ? p.stripSet.strips[0]?.fabricId : p.fabricId);
     parts.push(`<polygon points="${w.points(p.polygon)}" fill="${fill}"/>`);
-    const bands = p.stripSet ? stripBands(p) : [];
+    const bands = p.stripSet ? stripSetBands(p.polygon, p.stripSet) : [];
     if (bands.length > 0) {
       const clipId = `${id}c${i}`;
       clips.push(`<clipPath id="${clipId}"><polygon points="${w.points(p.polygon)}"/></clipPath>`);
@@ -114,32 +113,6 @@ function sectionMarkup(section: Section, id: string, w: Writer): { group: string
   });
   if (outline.length > 2) parts.push(`<polygon points="${w.points(outline)}" fill="none" stroke-width="${w.n(w.strokeIn * 1.4)}"/>`);
   return { group: `<g stroke-width="${seamWidth}">${parts.join('')}</g>`, clips: clips.join('') };
-}
-
-/**
- * Bands to draw each strip of a strip-set patch: the strip's finished part across the set, long enough
- * along the strips to cover the patch (the clip path trims them to it); the outer strips reach out to
- * the patch edges, as the fabric does once sewn and trimmed. Empty when the set does not fit.
- */
-function stripBands(patch: DerivedPatch): Array<{ fabricId: string; polygon: Point[] }> {
-  if (!patch.stripSet) return [];
-  let layout: ReturnType<typeof layoutStripSet>;
-  try {
-    layout = layoutStripSet(patch.polygon, patch.stripSet);
-  } catch {
-    return [];
-  }
-  const b = polygonBounds(patch.polygon);
-  const reach = Math.hypot(b.maxX - b.minX, b.maxY - b.minY) + 1;
-  const a = (layout.axisAngleDeg * Math.PI) / 180;
-  const u = { x: Math.cos(a), y: Math.sin(a) };
-  const v = { x: -u.y, y: u.x };
-  const at = (along: number, across: number): Point => ({ x: layout.centre.x + u.x * along + v.x * across, y: layout.centre.y + u.y * along + v.y * across });
-  return layout.strips.map((st, i) => {
-    const from = i === 0 ? -reach : st.fromAcrossIn;
-    const to = i === layout.strips.length - 1 ? reach : st.toAcrossIn;
-    return { fabricId: st.fabricId, polygon: [at(-reach, from), at(reach, from), at(reach, to), at(-reach, to)] };
-  });
 }
 
 /**
