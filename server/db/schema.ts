@@ -1,20 +1,12 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { SHOP_CURRENCIES } from '@seamwright/api';
+import { MEMBER_ACCESS, ORDER_STATUSES, PRINT_SET_STATUSES, ROLES, SEWING_STAGES, SHOP_CURRENCIES } from '@seamwright/api';
 
-/** Account roles (docs/design-notes.md#roles-and-access). */
-export const ROLES = ['admin', 'designer', 'quilter'] as const;
+/** Roles, member access, sewing stages and print-set states: the API contract's lists (docs/api.md). */
+export { MEMBER_ACCESS, PRINT_SET_STATUSES, ROLES, SEWING_STAGES } from '@seamwright/api';
 export type Role = (typeof ROLES)[number];
-
-/** Access a member has to one pattern; the owner is not a member row. */
-export const MEMBER_ACCESS = ['co-designer', 'quilter'] as const;
 export type MemberAccess = (typeof MEMBER_ACCESS)[number];
-
-/** Sewing-log stages of a section, in the order a quilter reaches them. */
-export const SEWING_STAGES = ['cut', 'sewn', 'trimmed'] as const;
 export type SewingStage = (typeof SEWING_STAGES)[number];
-
-export const PRINT_SET_STATUSES = ['queued', 'rendering', 'done', 'failed'] as const;
 export type PrintSetStatus = (typeof PRINT_SET_STATUSES)[number];
 
 const createdAt = () =>
@@ -257,7 +249,7 @@ export type PrintSet = typeof printSets.$inferSelect;
 /** Currencies a shop may sell in: one list for the server and the app, in the API contract. */
 export { SHOP_CURRENCIES, type ShopCurrency } from '@seamwright/api';
 
-export const ORDER_STATUSES = ['pending', 'paid', 'refunded', 'expired'] as const;
+export { ORDER_STATUSES } from '@seamwright/api';
 export type OrderStatus = (typeof ORDER_STATUSES)[number];
 
 /** A designer's shop: one currency for every listing in it. */

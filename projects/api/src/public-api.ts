@@ -38,7 +38,6 @@ export {
   memberChangeAnswerSchema,
   invitationPreviewSchema,
   invitationPreviewAnswerSchema,
-  SEWING_STAGES,
   sewingStageSchema,
   sewingLogEntrySchema,
   sewingLogAnswerSchema,
@@ -108,6 +107,7 @@ export {
   type MyShop,
   type ErrorAnswer,
 } from './schemas';
+export { ROLES, MEMBER_ACCESS, SEWING_STAGES, PRINT_SET_STATUSES, ORDER_STATUSES } from './constants';
 export {
   idSchema,
   emailSchema,

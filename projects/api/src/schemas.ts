@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import type { PatternDocument, PatternDocumentInput } from '@seamwright/piecing';
 import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, SHOP_CURRENCIES } from './money';
+import { MEMBER_ACCESS, ORDER_STATUSES, PRINT_SET_STATUSES, ROLES, SEWING_STAGES } from './constants';
 import { idSchema } from './requests';
 
 const isoTime = z.iso.datetime();
@@ -21,7 +22,7 @@ const storedDocument = z.custom<PatternDocument>(
 // ── Accounts ────────────────────────────────────────────────────────────────────────────────────────
 
 /** Account roles (docs/design-notes.md#roles-and-access). */
-export const roleSchema = z.enum(['admin', 'designer', 'quilter']);
+export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
 
 export const userSchema = z.strictObject({
@@ -71,7 +72,7 @@ export const userPageSchema = pageSchema(userSchema);
 export const patternAccessSchema = z.enum(['owner', 'co-designer', 'quilter']);
 export type PatternAccess = z.infer<typeof patternAccessSchema>;
 /** Access a member can be given (the owner is not a member). */
-export const memberAccessSchema = z.enum(['co-designer', 'quilter']);
+export const memberAccessSchema = z.enum(MEMBER_ACCESS);
 export type MemberAccess = z.infer<typeof memberAccessSchema>;
 
 export const patternSummarySchema = z.strictObject({
@@ -228,7 +229,6 @@ export const invitationPreviewAnswerSchema = z.strictObject({ invitation: invita
 // ── Sewing log ──────────────────────────────────────────────────────────────────────────────────────
 
 /** Sewing-log stages in the order a quilter reaches them. */
-export const SEWING_STAGES = ['cut', 'sewn', 'trimmed'] as const;
 export const sewingStageSchema = z.enum(SEWING_STAGES);
 export type SewingStage = z.infer<typeof sewingStageSchema>;
 
@@ -254,7 +254,7 @@ export const uploadListAnswerSchema = z.strictObject({ items: z.array(uploadSche
 
 // ── Print sets ──────────────────────────────────────────────────────────────────────────────────────
 
-export const printSetStatusSchema = z.enum(['queued', 'rendering', 'done', 'failed']);
+export const printSetStatusSchema = z.enum(PRINT_SET_STATUSES);
 export type PrintSetStatus = z.infer<typeof printSetStatusSchema>;
 
 export const printSetSchema = z.strictObject({
@@ -335,7 +335,7 @@ export type Listing = z.infer<typeof listingSchema>;
 export const listingAnswerSchema = z.strictObject({ listing: listingSchema });
 export const listingPageSchema = pageSchema(listingSchema);
 
-export const orderStatusSchema = z.enum(['pending', 'paid', 'refunded', 'expired']);
+export const orderStatusSchema = z.enum(ORDER_STATUSES);
 export type OrderStatus = z.infer<typeof orderStatusSchema>;
 
 /** An order as its buyer or seller sees it (`buyer` for the seller, `seller` for the buyer). */
