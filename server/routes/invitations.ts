@@ -1,6 +1,6 @@
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { z } from 'zod';
+import { acceptInvitationBodySchema, invitationTokenSchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { hashToken } from '../auth/tokens';
@@ -10,8 +10,6 @@ import { parseOr400 } from '../http/validate';
 import { ownerName, patternJson } from '../services/revisions';
 import type { DbLike } from '../db/database';
 
-const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'must be an invitation token');
-const acceptBody = z.strictObject({ token: tokenSchema });
 
 const invalid = () => new HttpError(404, 'This invitation is invalid, used, revoked or expired');
 
@@ -39,7 +37,7 @@ export function invitationsRouter(ctx: AppContext): Router {
   const router = express.Router();
 
   router.get('/:token', (req, res) => {
-    const token = tokenSchema.safeParse(req.params.token);
+    const token = invitationTokenSchema.safeParse(req.params.token);
     const found = token.success ? liveInvitation(db, token.data) : undefined;
     if (!found) throw invalid();
     res.json({
@@ -55,7 +53,7 @@ export function invitationsRouter(ctx: AppContext): Router {
 
   router.post('/accept', requireUser, (req, res) => {
     const user = currentUser(req);
-    const body = parseOr400(acceptBody, req.body);
+    const body = parseOr400(acceptInvitationBodySchema, req.body);
     const result = db.transaction(
       (tx) => {
         const found = liveInvitation(tx, body.token);

@@ -1,17 +1,15 @@
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { z } from 'zod';
+import { invitationBodySchema, memberAccessBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { hashToken, newId, randomToken } from '../auth/tokens';
-import { invitations, MEMBER_ACCESS, members, users } from '../db/schema';
+import { invitations, members, users } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { emailSchema, idSchema, parseOr400 } from '../http/validate';
+import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { invitationMail } from '../services/mail-templates';
 
-const inviteBody = z.strictObject({ email: emailSchema, access: z.enum(MEMBER_ACCESS) });
-const accessBody = z.strictObject({ access: z.enum(MEMBER_ACCESS) });
 
 /** `/api/patterns/:id/members` and `/api/patterns/:id/invitations`: sharing a pattern. */
 export function membersRouter(ctx: AppContext): Router {
@@ -59,7 +57,7 @@ export function membersRouter(ctx: AppContext): Router {
   router.post('/invitations', async (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const user = currentUser(req);
-    const body = parseOr400(inviteBody, req.body);
+    const body = parseOr400(invitationBodySchema, req.body);
     if (body.email === user.email) throw new HttpError(400, 'You own this pattern already', [{ path: 'email', message: 'is your own address' }]);
     const token = randomToken();
     const now = Date.now();
@@ -104,7 +102,7 @@ export function membersRouter(ctx: AppContext): Router {
   router.patch('/members/:userId', (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
-    const body = parseOr400(accessBody, req.body);
+    const body = parseOr400(memberAccessBodySchema, req.body);
     const updated = db
       .update(members)
       .set({ access: body.access })

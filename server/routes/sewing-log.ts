@@ -1,16 +1,16 @@
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
+import { sewingStageBodySchema } from '@seamwright/api';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
-import { SEWING_STAGES, sewingLog } from '../db/schema';
+import { sewingLog } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { findRevision } from '../services/revisions';
 
 const sectionIdParam = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be a section id');
-const stageBody = z.strictObject({ stage: z.enum(SEWING_STAGES).nullable() });
 
 const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
 
@@ -34,7 +34,7 @@ export function sewingLogRouter(ctx: AppContext): Router {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
     const sectionId = parseOr400(sectionIdParam, req.params.sectionId, 'Invalid section id');
-    const body = parseOr400(stageBody, req.body);
+    const body = parseOr400(sewingStageBodySchema, req.body);
     const latest = findRevision(db, pattern.id);
     const doc = latest ? (JSON.parse(latest.revision.document) as { sections: { id: string }[] }) : { sections: [] };
     if (!doc.sections.some((s) => s.id === sectionId)) {

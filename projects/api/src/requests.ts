@@ -3,6 +3,7 @@
  * the server parses with these, the app may check a form with them before sending.
  */
 import { z } from 'zod';
+import { MEMBER_ACCESS, SEWING_STAGES } from './constants';
 
 /** Ids made by the server: url-safe letters and digits, nothing that can walk a path. */
 export const idSchema = z
@@ -51,3 +52,21 @@ export const resetRequestBodySchema = z.strictObject({ email: emailSchema });
 /** `POST /api/auth/password-reset/confirm`. */
 export const resetConfirmBodySchema = z.strictObject({ token: z.string().min(20).max(100), newPassword: passwordSchema });
 export type ResetConfirmBody = z.input<typeof resetConfirmBodySchema>;
+
+/** `POST /api/patterns/:id/invitations`. */
+export const invitationBodySchema = z.strictObject({ email: emailSchema, access: z.enum(MEMBER_ACCESS) });
+export type InvitationBody = z.input<typeof invitationBodySchema>;
+
+/** `PATCH /api/patterns/:id/members/:userId`. */
+export const memberAccessBodySchema = z.strictObject({ access: z.enum(MEMBER_ACCESS) });
+export type MemberAccessBody = z.input<typeof memberAccessBodySchema>;
+
+/** The token of an invitation link. */
+export const invitationTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'must be an invitation token');
+
+/** `POST /api/invitations/accept`. */
+export const acceptInvitationBodySchema = z.strictObject({ token: invitationTokenSchema });
+
+/** `PUT /api/patterns/:id/sewing-log/:sectionId`: a stage, or null to clear it. */
+export const sewingStageBodySchema = z.strictObject({ stage: z.enum(SEWING_STAGES).nullable() });
+export type SewingStageBody = z.input<typeof sewingStageBodySchema>;
