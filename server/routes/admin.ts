@@ -1,17 +1,15 @@
 import { count, desc, eq, or, sql } from 'drizzle-orm';
 import express, { type RequestHandler, type Router } from 'express';
+import { userChangeBodySchema } from '@seamwright/api';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser, endUserSessions, publicUser, requireUser } from '../auth/sessions';
-import { ROLES, users } from '../db/schema';
+import { users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { likeContains, pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 
 const listQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
-const patchBody = z
-  .strictObject({ role: z.enum(ROLES).optional(), disabled: z.boolean().optional() })
-  .refine((b) => b.role !== undefined || b.disabled !== undefined, { message: 'give role or disabled' });
 
 const requireAdmin: RequestHandler = (req, _res, next) => {
   next(currentUser(req).role === 'admin' ? undefined : new HttpError(403, 'Only administrators can do this'));
@@ -43,7 +41,7 @@ export function adminRouter(ctx: AppContext): Router {
   router.patch('/users/:userId', (req, res) => {
     const me = currentUser(req);
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
-    const body = parseOr400(patchBody, req.body);
+    const body = parseOr400(userChangeBodySchema, req.body);
     if (userId === me.id && ((body.role !== undefined && body.role !== 'admin') || body.disabled === true)) {
       throw new HttpError(400, 'You cannot demote or disable your own account');
     }

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
+import { createPatternBodySchema, duplicateBodySchema, saveRevisionBodySchema } from '@seamwright/api';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
@@ -13,7 +14,6 @@ import { patternOf } from '../http/pattern-access';
 import { canDesign } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { listPatterns } from '../services/pattern-list';
-import { editSessionSchema } from '../services/revision-groups';
 import {
   createPattern,
   findRevision,
@@ -31,9 +31,6 @@ const listQuery = z.strictObject({
   order: z.enum(['asc', 'desc']).default('desc'),
   scope: z.enum(['all', 'owned', 'shared', 'trash']).default('all'),
 });
-const createBody = z.strictObject({ document: z.unknown() });
-const saveBody = z.strictObject({ baseRevision: z.number().int().min(1), document: z.unknown(), editSession: editSessionSchema.optional() });
-const duplicateBody = z.strictObject({ title: z.string().trim().min(1).max(120).optional() });
 
 /** Patterns: list, create, read, save, duplicate, trash, restore, delete. */
 export function patternsRouter(ctx: AppContext): Router {
@@ -49,7 +46,7 @@ export function patternsRouter(ctx: AppContext): Router {
   router.post('/', requireUser, (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can create patterns');
-    const body = parseOr400(createBody, req.body);
+    const body = parseOr400(createPatternBodySchema, req.body);
     const document = validDocument(body.document);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
     res.status(201).type('application/json').send(patternWithRevisionText(patternJson(pattern, user.displayName, 'owner'), revision, user.displayName));
@@ -65,7 +62,7 @@ export function patternsRouter(ctx: AppContext): Router {
   router.put('/:id', (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    const body = parseOr400(saveBody, req.body);
+    const body = parseOr400(saveRevisionBodySchema, req.body);
     const document = validDocument(body.document);
     const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
@@ -77,7 +74,7 @@ export function patternsRouter(ctx: AppContext): Router {
     const { pattern } = patternOf(res, 'edit');
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can duplicate patterns');
-    const body = parseOr400(duplicateBody, req.body ?? {});
+    const body = parseOr400(duplicateBodySchema, req.body ?? {});
     const latest = findRevision(db, pattern.id);
     if (!latest) throw new HttpError(500, 'Pattern has no revision');
     const source = JSON.parse(latest.revision.document) as Record<string, unknown> & { title: string };

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { z } from 'zod';
+import { printSetBodySchema } from '@seamwright/api';
 import { printOptionsSchema } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
@@ -13,10 +13,6 @@ import { patternOf } from '../http/pattern-access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { findRevision } from '../services/revisions';
 
-const createBody = z.strictObject({
-  revision: z.number().int().min(1).optional(),
-  options: z.record(z.string(), z.unknown()).default({}),
-});
 
 function printSetJson(s: PrintSet, creatorName: string) {
   return {
@@ -68,7 +64,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   router.post('/', (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
-    const body = parseOr400(createBody, req.body ?? {});
+    const body = parseOr400(printSetBodySchema, req.body ?? {});
     const waiting =
       db
         .select({ n: count() })

@@ -1,6 +1,7 @@
 import { and, count, desc, eq, gte, lte } from 'drizzle-orm';
 import type { PatternDocument } from '@seamwright/piecing';
 import express, { type Router } from 'express';
+import { restoreBodySchema, saveVersionBodySchema } from '@seamwright/api';
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
@@ -9,7 +10,7 @@ import { HttpError } from '../http/errors';
 import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
-import { editSessionSchema, listRevisionGroups } from '../services/revision-groups';
+import { listRevisionGroups } from '../services/revision-groups';
 import {
   findRevision,
   ownerName,
@@ -26,15 +27,6 @@ const listQuery = z
   .strictObject({ ...pagingQuery, from: numberParam.optional(), to: numberParam.optional() })
   .refine((q) => q.from === undefined || q.to === undefined || q.from <= q.to, { message: 'from must not be after to', path: ['from'] });
 const groupsQuery = z.strictObject(pagingQuery);
-const restoreBody = z.strictObject({ baseRevision: z.number().int().min(1) });
-const versionBody = z.strictObject({
-  baseRevision: z.number().int().min(1),
-  name: z.string().trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
-  note: z.string().trim().max(500, 'must be at most 500 characters').optional(),
-  /** The document to keep; the latest revision's when omitted. */
-  document: z.unknown().optional(),
-  editSession: editSessionSchema.optional(),
-});
 
 /** `/api/patterns/:id/revisions…`: list, runs of saves, read, save a named version, restore. */
 export function revisionsRouter(ctx: AppContext): Router {
@@ -71,7 +63,7 @@ export function revisionsRouter(ctx: AppContext): Router {
   router.post('/', (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    const body = parseOr400(versionBody, req.body);
+    const body = parseOr400(saveVersionBodySchema, req.body);
     const document = body.document === undefined ? undefined : validDocument(body.document);
     const version = { name: body.name, note: body.note ? body.note : null };
     const saved = db.transaction(
@@ -101,7 +93,7 @@ export function revisionsRouter(ctx: AppContext): Router {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
-    const body = parseOr400(restoreBody, req.body);
+    const body = parseOr400(restoreBodySchema, req.body);
     const saved = db.transaction(
       (tx) => {
         const found = findRevision(tx, pattern.id, number);

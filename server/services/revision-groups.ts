@@ -1,10 +1,9 @@
 import { count, desc, eq, max, min, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import type { DbLike } from '../db/database';
 import { revisions, users, type Revision } from '../db/schema';
 
 /** A random id the board makes each time it opens; its consecutive saves form one run in History. */
-export const editSessionSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'must be 8 to 64 letters, digits, "-" or "_"');
+export { editSessionSchema } from '@seamwright/api';
 
 /** A named version's name and note, or null for an ordinary save. */
 export function versionJson(r: Pick<Revision, 'versionName' | 'versionNote'>): { name: string; note: string | null } | null {

@@ -3,7 +3,7 @@
  * the server parses with these, the app may check a form with them before sending.
  */
 import { z } from 'zod';
-import { MEMBER_ACCESS, SEWING_STAGES } from './constants';
+import { MEMBER_ACCESS, ROLES, SEWING_STAGES } from './constants';
 
 /** Ids made by the server: url-safe letters and digits, nothing that can walk a path. */
 export const idSchema = z
@@ -70,3 +70,44 @@ export const acceptInvitationBodySchema = z.strictObject({ token: invitationToke
 /** `PUT /api/patterns/:id/sewing-log/:sectionId`: a stage, or null to clear it. */
 export const sewingStageBodySchema = z.strictObject({ stage: z.enum(SEWING_STAGES).nullable() });
 export type SewingStageBody = z.input<typeof sewingStageBodySchema>;
+
+/** The board's editing session, sent with its saves: consecutive saves of one session form one row in History. */
+export const editSessionSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'must be 8 to 64 letters, digits, "-" or "_"');
+
+/** `POST /api/patterns`: the document is checked by piecing's schema afterwards. */
+export const createPatternBodySchema = z.strictObject({ document: z.unknown() });
+
+/** `PUT /api/patterns/:id`: a save on top of `baseRevision`. */
+export const saveRevisionBodySchema = z.strictObject({
+  baseRevision: z.number().int().min(1),
+  document: z.unknown(),
+  editSession: editSessionSchema.optional(),
+});
+
+/** `POST /api/patterns/:id/duplicate`. */
+export const duplicateBodySchema = z.strictObject({ title: z.string().trim().min(1).max(120).optional() });
+
+/** `POST /api/patterns/:id/revisions/:number/restore`. */
+export const restoreBodySchema = z.strictObject({ baseRevision: z.number().int().min(1) });
+
+/** `POST /api/patterns/:id/revisions`: a named version, of `document` or of the latest revision. */
+export const saveVersionBodySchema = z.strictObject({
+  baseRevision: z.number().int().min(1),
+  name: z.string().trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
+  note: z.string().trim().max(500, 'must be at most 500 characters').optional(),
+  /** The document to keep; the latest revision's when omitted. */
+  document: z.unknown().optional(),
+  editSession: editSessionSchema.optional(),
+});
+
+/** `PATCH /api/admin/users/:userId`. */
+export const userChangeBodySchema = z
+  .strictObject({ role: z.enum(ROLES).optional(), disabled: z.boolean().optional() })
+  .refine((b) => b.role !== undefined || b.disabled !== undefined, { message: 'give role or disabled' });
+export type UserChangeBody = z.input<typeof userChangeBodySchema>;
+
+/** `POST /api/patterns/:id/print-sets`: the options are checked by piecing's print options schema afterwards. */
+export const printSetBodySchema = z.strictObject({
+  revision: z.number().int().min(1).optional(),
+  options: z.record(z.string(), z.unknown()).default({}),
+});
