@@ -21,8 +21,8 @@
  * whole pattern: sewing numbers, fabrics, strip-set names and resizing, and warns about sections outside
  * the drawing area.
  *
- * `renderPatternPreviewSvg(document, { widthPx })` returns an SVG string of the pattern (thumbnails,
- * SVG download); in Node pass an svgdom window (see pattern-preview-svg.ts).
+ * `renderFrontViewSvg(document)` returns the true-size front view as SVG text (download, PNG export);
+ * list thumbnails are drawn by the server.
  *
  * An explicit list (lint forbids `export *` here): what the app uses and what the usage above names.
  * The framework-free core is '@seamwright/template-editor-core'; the Konva renderer and test fixtures,
@@ -41,10 +41,5 @@ export type { DocumentUpdate, EditorSnapshot } from './lib/core/public-api';
 /** Commands and view maths the host page needs: attach an uploaded trace image, screen to document. */
 export { setReferenceImage, toDocument } from './lib/core/public-api';
 
-/** Pictures of a pattern as SVG text, without a board: list thumbnails and the true-size front view. */
-export {
-  renderPatternPreviewSvg,
-  renderFrontViewSvg,
-  type PatternPreviewOptions,
-  type FrontViewSvgOptions,
-} from './lib/core/public-api';
+/** The true-size front view of a pattern as SVG text, without a board. */
+export { renderFrontViewSvg, type FrontViewSvgOptions } from './lib/core/public-api';

@@ -73,6 +73,5 @@ export type { GridSnap } from './snapping/snapping';
 export { toScreen, toDocument, type Viewport } from './view/viewport';
 export { gridLines, type BoardUnit } from './view/grid-lines';
 
-/** Pictures of a pattern as SVG text: list thumbnails and the true-size front view. */
-export { renderPatternPreviewSvg, type PatternPreviewOptions } from './preview/pattern-preview-svg';
+/** The true-size front view of a pattern as SVG text. */
 export { renderFrontViewSvg, type FrontViewSvgOptions } from './preview/front-view-svg';
