@@ -2,7 +2,7 @@ import type { PatternDocument, Point } from '@seamwright/piecing';
 import type { SectionAnalysis } from '../analysis/section-analysis';
 import { snapToEdges } from '../snapping/snapping';
 import { syncAssignments } from './patch-assignments';
-import { findSection } from './section-commands';
+import { findSection, replaceSection } from './section-commands';
 
 /** How near a typed seam end must be to a patch edge to be put exactly on it, in inches. */
 export const SEAM_END_CATCH_IN = 1 / 16;
@@ -34,7 +34,5 @@ export function setSeamEnd(
   const seams = s.seams.slice();
   seams[k] = { ...seams[k], [end]: at };
   const next = { ...s, seams };
-  const sections = document.sections.slice();
-  sections[document.sections.indexOf(s)] = { ...next, patches: syncAssignments(analysis, s, next) };
-  return { ...document, sections };
+  return replaceSection(document, sectionId, () => ({ ...next, patches: syncAssignments(analysis, s, next) }));
 }

@@ -14,7 +14,8 @@ export function findSection(document: PatternDocument, sectionId: string): Secti
   return document.sections.find((s) => s.id === sectionId);
 }
 
-function replaceSection(document: PatternDocument, sectionId: string, change: (s: Section) => Section): PatternDocument {
+/** The document with one section replaced by `change(section)` (the same document when nothing changed). */
+export function replaceSection(document: PatternDocument, sectionId: string, change: (s: Section) => Section): PatternDocument {
   const i = document.sections.findIndex((s) => s.id === sectionId);
   if (i < 0) return document;
   const next = change(document.sections[i]);
