@@ -7,7 +7,7 @@ import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTa
 import { DocumentStore } from '../store/document-store';
 import { createTool } from '../tools/create-tool';
 import type { BoardTool, ToolContext, ToolId } from '../tools/tool';
-import { fitBounds, panBy, toDocument, zoomAt, type Viewport } from '../view/viewport';
+import { fitBounds, panBy, toDocument, toScreen, zoomAt, type Viewport } from '../view/viewport';
 import { DEFAULT_BOARD_SETTINGS, type BoardSettings } from './board-settings';
 import { actionFor, TOOL_SHORTCUTS, type BoardKey } from './shortcuts';
 
@@ -39,8 +39,6 @@ export class BoardEditor {
   private size = { width: 800, height: 600 };
   private current: BoardTool;
   private cursorValue: Point | null = null;
-  /** Where the pointer is on the board, in screen pixels (null when it is off the board). */
-  private pointerScreen: Point | null = null;
   private snapValue: SnapResult | null = null;
   private panning: Point | null = null;
   private clipboard: SectionClipboard | null = null;
@@ -182,12 +180,11 @@ export class BoardEditor {
 
   /** Zooms in (factor > 1) or out about the pointer when it is on the board, else about the board's middle. */
   zoomStep(factor: number): void {
-    this.zoomAt(this.pointerScreen ?? { x: this.size.width / 2, y: this.size.height / 2 }, factor);
+    this.zoomAt(this.cursorValue ? toScreen(this.view, this.cursorValue) : { x: this.size.width / 2, y: this.size.height / 2 }, factor);
   }
 
   /** Pointer pressed at a screen position. */
   pointerDown(screen: Point, info: BoardPointerInfo = {}): void {
-    this.pointerScreen = screen;
     if (info.button === 1 || info.button === 2 || this.current.id === 'pan') {
       this.panning = screen;
       return;
@@ -198,7 +195,6 @@ export class BoardEditor {
 
   /** Pointer moved to a screen position. */
   pointerMove(screen: Point, info: BoardPointerInfo = {}): void {
-    this.pointerScreen = screen;
     if (this.panning) {
       this.view = panBy(this.view, screen.x - this.panning.x, screen.y - this.panning.y);
       this.panning = screen;
@@ -221,7 +217,6 @@ export class BoardEditor {
 
   /** Pointer left the board. */
   pointerLeave(): void {
-    this.pointerScreen = null;
     this.cursorValue = null;
     this.snapValue = null;
     this.changed();
