@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { locatePoint, polygonArea, type Point, type Section } from '@seamwright/piecing';
-import { addSection, findSection, moveSectionHandle, setPatchFabric } from '../commands/section-commands';
+import { addSection, findSection, moveSectionHandle, setPatchFabric, setPiecingOrder } from '../commands/section-commands';
 import { emptyPattern } from '../testing/board-fixtures';
 import { SectionAnalysis } from './section-analysis';
 
@@ -75,10 +75,15 @@ describe('clicking a patch', () => {
     const above = analysis.patchAt(fan, { x: 7, y: 0.5 })!;
     const below = analysis.patchAt(fan, { x: 2, y: 6 })!;
     expect(new Set([between.index, above.index, below.index]).size).toBe(3);
-    // Fill each in turn: each fill lands on the patch clicked and nowhere else.
-    let doc = { ...emptyPattern(), sections: [fan] };
+    // Renumber so numbers and split order disagree, then fill each in turn where it is clicked: each
+    // fill lands on the patch clicked and nowhere else.
+    let doc = setPiecingOrder({ ...emptyPattern(), sections: [fan] }, 'fan', [2, 0, 1], analysis);
+    expect(analysis.patches(findSection(doc, 'fan')!).map((p) => p.number)).toEqual([2, 3, 1]);
     const fabrics = ['plum', 'oat', 'sage'];
-    [above, between, below].forEach((p, k) => (doc = setPatchFabric(doc, 'fan', p.index, fabrics[k], analysis)));
+    [{ x: 7, y: 0.5 }, { x: 7, y: 2.6 }, { x: 2, y: 6 }].forEach((at, k) => {
+      const s = findSection(doc, 'fan')!;
+      doc = setPatchFabric(doc, 'fan', analysis.patchAt(s, at)!.index, fabrics[k], analysis);
+    });
     const filled = analysis.patches(findSection(doc, 'fan')!);
     expect(filled[above.index].fabricId).toBe('plum');
     expect(filled[between.index].fabricId).toBe('oat');
