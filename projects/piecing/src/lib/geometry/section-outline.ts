@@ -83,17 +83,9 @@ function flattenWedgeOutline(g: WedgeGeometry, toleranceIn: number): Point[] {
  */
 export function exactSectionArea(geometry: SectionGeometry): number {
   switch (geometry.kind) {
-    case 'straight': {
-      if (geometry.bulges) return Math.abs(straightSectionSignedArea(geometry));
-      const ring = cleanRing(geometry.vertices);
-      let twice = 0;
-      for (let i = 0; i < ring.length; i++) {
-        const a = ring[i];
-        const b = ring[(i + 1) % ring.length];
-        twice += a.x * b.y - b.x * a.y;
-      }
-      return Math.abs(twice) / 2;
-    }
+    case 'straight':
+      // Duplicate and collinear vertices add nothing to the shoelace sum, so the raw vertices serve.
+      return Math.abs(straightSectionSignedArea(geometry));
     case 'arc':
       return (degToRad(geometry.sweepDeg) * (geometry.outerRadiusIn ** 2 - geometry.innerRadiusIn ** 2)) / 2;
     case 'wedge':
