@@ -1,11 +1,11 @@
 import type { Section } from '../document/pattern-schema';
 import { derivePatches, type DerivedPatch } from '../geometry/derive-patches';
-
-/** What the sewability check reads of a patch: its number, label and outline. */
-export type SewabilityPatch = Pick<DerivedPatch, 'number' | 'label' | 'polygon'>;
 import { GEOMETRY_EPSILON_IN, SEAM_REACH_TOLERANCE_IN } from '../tolerance';
 import { canAdd, computeContacts, pointOnLine, type AddCheck, type ContactGraph } from './patch-contacts';
 import type { SewabilityFailureReason, SewabilityOptions, SewabilityVerdict, SewingStep } from './sewability-types';
+
+/** What the sewability check reads of a patch: its number, label and outline. */
+export type SewabilityPatch = Pick<DerivedPatch, 'number' | 'label' | 'polygon'>;
 
 /** Patches to check: a section (its patches are derived) or patches derived already. */
 export type SewabilityInput = Section | readonly SewabilityPatch[];
