@@ -3,6 +3,7 @@ import {
   flattenSectionOutline,
   stripSetBands,
   ringRepeatTransforms,
+  simplifyClosedRing,
   type DerivedPatch,
   type PatternDocument,
   type Point,
@@ -43,7 +44,7 @@ export function patternPreviewSvg(document: PatternDocument, widthPx = PREVIEW_W
   const n = (v: number) => String(+v.toFixed(decimals));
   // Arcs are flattened finely for cutting; a picture this small needs a point per half pixel at most.
   const points = (ring: readonly Point[]) =>
-    simplifyRing(ring, 0.5 / pxPerIn)
+    simplifyClosedRing(ring, 0.5 / pxPerIn)
       .map((p) => `${n(p.x)},${n(p.y)}`)
       .join(' ');
   const colours = new Map(document.fabrics.filter((f) => COLOUR.test(f.colour)).map((f) => [f.id, f.colour]));
@@ -113,40 +114,4 @@ function sectionMarkup(section: Section, id: string, w: Writer): { group: string
   });
   if (outline.length > 2) parts.push(`<polygon points="${w.points(outline)}" fill="none" stroke-width="${w.n(w.strokeIn * 1.4)}"/>`);
   return { group: `<g stroke-width="${seamWidth}">${parts.join('')}</g>`, clips: clips.join('') };
-}
-
-/**
- * A closed ring with the points dropped that lie within `toleranceIn` of the line through their kept
- * neighbours (Ramer–Douglas–Peucker, run on the ring opened at its first point).
- */
-export function simplifyRing(ring: readonly Point[], toleranceIn: number): Point[] {
-  if (ring.length <= 3) return [...ring];
-  const open = [...ring, ring[0]];
-  const keep = new Uint8Array(open.length);
-  keep[0] = keep[open.length - 1] = 1;
-  const stack: Array<[number, number]> = [[0, open.length - 1]];
-  while (stack.length > 0) {
-    const [from, to] = stack.pop()!;
-    const a = open[from];
-    const b = open[to];
-    const dx = b.x - a.x;
-    const dy = b.y - a.y;
-    const length = Math.hypot(dx, dy);
-    let worst = -1;
-    let worstAt = -1;
-    for (let i = from + 1; i < to; i++) {
-      const p = open[i];
-      const d = length === 0 ? Math.hypot(p.x - a.x, p.y - a.y) : Math.abs(dx * (p.y - a.y) - dy * (p.x - a.x)) / length;
-      if (d > worst) {
-        worst = d;
-        worstAt = i;
-      }
-    }
-    if (worstAt >= 0 && worst > toleranceIn) {
-      keep[worstAt] = 1;
-      stack.push([from, worstAt], [worstAt, to]);
-    }
-  }
-  const kept = open.slice(0, -1).filter((_, i) => keep[i] === 1);
-  return kept.length >= 3 ? kept : [...ring];
 }

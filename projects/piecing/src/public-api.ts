@@ -68,6 +68,7 @@ export {
   edgesOnCircles,
   fitEdgeToCircle,
   splitSection,
+  simplifyClosedRing,
   derivePatches,
   type Bounds,
   type DerivedPatch,

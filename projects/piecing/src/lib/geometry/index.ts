@@ -15,3 +15,4 @@ export * from './ring-repeat';
 export * from './split-polygon';
 export * from './derive-patches';
 export * from './label-point';
+export * from './simplify-ring';
