@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, u
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
-import { MAX_SIZE_IN, formatCentimetres, formatInches, resizeFactor, resizePattern, type PatternDocument } from '@seamwright/piecing';
+import { MAX_SIZE_IN, formatLength, resizeFactor, resizePattern, type PatternDocument } from '@seamwright/piecing';
 import { resizeDesign } from '../core/public-api';
 import { NumberFieldComponent } from '../properties/number-field.component';
 import { EditorSession } from '../session/editor-session';
@@ -102,7 +102,7 @@ export class ResizeDesignComponent {
   }
 
   protected show(inches: number): string {
-    return this.unit() === 'cm' ? formatCentimetres(inches) : formatInches(inches, { style: 'unicode', denominator: 32 });
+    return formatLength(inches, this.unit(), { style: 'unicode', denominator: 32 });
   }
 
   protected setWidth(widthIn: number): void {

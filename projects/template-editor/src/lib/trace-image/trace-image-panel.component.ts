@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { formatCentimetres, formatInches, type Point } from '@seamwright/piecing';
+import { formatLength, type Point } from '@seamwright/piecing';
 import {
   moveReferenceImage,
   placeReferenceImage,
@@ -103,11 +103,8 @@ export class TraceImagePanelComponent {
   protected readonly image = computed(() => this.session().document().referenceImage ?? null);
   protected readonly unit = computed(() => this.session().settings().unit);
   protected readonly percent = computed(() => Math.round((this.image()?.opacity ?? 0) * 100));
-  protected readonly step = computed(() => (this.unit() === 'cm' ? formatCentimetres(TRACE_NUDGE_IN) : formatInches(TRACE_NUDGE_IN, { style: 'unicode' })));
-  protected readonly widthText = computed(() => {
-    const w = this.image()?.widthIn ?? 0;
-    return this.unit() === 'cm' ? formatCentimetres(w) : formatInches(w, { style: 'unicode' });
-  });
+  protected readonly step = computed(() => formatLength(TRACE_NUDGE_IN, this.unit(), { style: 'unicode' }));
+  protected readonly widthText = computed(() => formatLength(this.image()?.widthIn ?? 0, this.unit(), { style: 'unicode' }));
   /** Whether the panel is waiting for points on the board (the host then sends clicks to {@link pickAt}). */
   readonly picking = computed(() => this.tool() !== null);
   protected readonly pickHint = computed(() => (this.picks(), this.tool()?.hint ?? ''));
