@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MAX_SIZE_IN } from '@seamwright/piecing';
-import { addFabric, fabricChangeProblem, fabricUses, isFabricColour, newFabric, removeFabric, updateFabric, type FabricChange } from '../core/public-api';
+import { addFabric, fabricChangeProblem, fabricUses, newFabric, removeFabric, updateFabric, type FabricChange } from '../core/public-api';
 import { NumberFieldComponent } from '../properties/number-field.component';
 import { EditorSession } from '../session/editor-session';
 
@@ -101,7 +101,6 @@ export class FabricSettingsComponent {
       return problem ? { ...rest, [fabricId]: problem } : rest;
     });
     if (problem) return;
-    if (change.colour !== undefined && !isFabricColour(change.colour)) return;
     const label = change.name !== undefined ? 'Rename fabric' : change.colour !== undefined ? 'Fabric colour' : 'Usable width of fabric';
     this.session.apply(label, (d) => updateFabric(d, fabricId, change));
     // A name typed with spaces round it shows as kept.
