@@ -1,7 +1,7 @@
 import type { Point, StraightGeometry } from '../document/pattern-schema';
 import { CHORD_TOLERANCE_IN, GEOMETRY_EPSILON_IN } from '../tolerance';
 import { flattenArc } from './arc';
-import { distance, distanceToSegment, pointOnCircle } from './vector';
+import { distance, distanceToSegment } from './vector';
 
 /**
  * The exact circular arc of a curved edge: from `startRad` about `centre` through `sweepRad` (document
@@ -144,11 +144,4 @@ export function distanceToEdge(p: Point, edge: SectionEdge): number {
   const angle = Math.atan2(p.y - centre.y, p.x - centre.x);
   if (arcContainsAngle(edge.arc, angle)) return Math.abs(distance(p, centre) - radiusIn);
   return Math.min(distance(p, edge.from), distance(p, edge.to));
-}
-
-/** The point halfway along an edge (on its arc when curved). */
-export function edgeMidpoint(edge: SectionEdge): Point {
-  if (!edge.arc) return { x: (edge.from.x + edge.to.x) / 2, y: (edge.from.y + edge.to.y) / 2 };
-  const { centre, radiusIn, startRad, sweepRad } = edge.arc;
-  return pointOnCircle(centre, radiusIn, startRad + sweepRad / 2);
 }
