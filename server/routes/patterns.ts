@@ -20,7 +20,7 @@ import {
   ownerName,
   patternJson,
   saveRevision,
-  patternWithRevisionText,
+  sendPatternWithRevision,
   validDocument,
 } from '../services/revisions';
 
@@ -49,14 +49,14 @@ export function patternsRouter(ctx: AppContext): Router {
     const body = parseOr400(createPatternBodySchema, req.body);
     const document = validDocument(body.document);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
-    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(pattern, user.displayName, 'owner'), revision, user.displayName));
+    sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
   });
 
   router.get('/:id', (req, res) => {
     const { pattern, access } = patternOf(res);
     const latest = findRevision(db, pattern.id);
     if (!latest) throw new HttpError(500, 'Pattern has no revision');
-    res.status(200).type('application/json').send(patternWithRevisionText(patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName));
+    sendPatternWithRevision(res, 200, patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName);
   });
 
   router.put('/:id', (req, res) => {
@@ -67,7 +67,7 @@ export function patternsRouter(ctx: AppContext): Router {
     const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
     });
-    res.status(200).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
+    sendPatternWithRevision(res, 200, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   router.post('/:id/duplicate', async (req, res) => {
@@ -105,7 +105,7 @@ export function patternsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(created.pattern, user.displayName, 'owner'), created.revision, user.displayName));
+    sendPatternWithRevision(res, 201, patternJson(created.pattern, user.displayName, 'owner'), created.revision, user.displayName);
   });
 
   router.post('/:id/trash', (req, res) => {

@@ -18,7 +18,7 @@ import {
   revisionJsonText,
   revisionSummary,
   saveRevision,
-  patternWithRevisionText,
+  sendPatternWithRevision,
   validDocument,
 } from '../services/revisions';
 
@@ -78,7 +78,7 @@ export function revisionsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   router.get('/:number', (req, res) => {
@@ -102,7 +102,7 @@ export function revisionsRouter(ctx: AppContext): Router {
       },
       { behavior: 'immediate' },
     );
-    res.status(201).type('application/json').send(patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName));
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   return router;

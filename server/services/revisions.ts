@@ -1,5 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
+import type { Response } from 'express';
 import type { DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
 import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
@@ -45,9 +46,9 @@ export function revisionJsonText(r: Revision, authorName: string): string {
   return `${meta.slice(0, -1)},"document":${r.document}}`;
 }
 
-/** The JSON text of `{ pattern, revision }` (the answer of reads and saves), made without re-serialising the document. */
-export function patternWithRevisionText(pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): string {
-  return `{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`;
+/** Sends `{ pattern, revision }` (the answer of reads and saves) without re-serialising the document. */
+export function sendPatternWithRevision(res: Response, status: number, pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): void {
+  res.status(status).type('application/json').send(`{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`);
 }
 
 export function patternJson(p: Pattern, ownerName: string, access: Access) {
