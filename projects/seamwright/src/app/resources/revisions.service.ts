@@ -1,20 +1,14 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, throwError } from 'rxjs';
 import { API } from '../core/api-paths';
-import type { Page, PatternWithRevision, Revision, RevisionSummary } from '../core/api-types';
+import type { PatternWithRevision, Revision } from '../core/api-types';
 import { staleSaveOrError } from './patterns.service';
 
-/** A pattern's revisions: list, read one, restore one as a new revision. */
+/** A pattern's revisions: read one, restore one as a new revision (History's lists: RevisionHistoryService). */
 @Injectable({ providedIn: 'root' })
 export class RevisionsService {
   private readonly http = inject(HttpClient);
-
-  /** Newest first; `page` is 1-based. */
-  list(patternId: string, page = 1, pageSize = 20): Observable<Page<RevisionSummary>> {
-    const params = new HttpParams().set('page', page).set('pageSize', pageSize);
-    return this.http.get<Page<RevisionSummary>>(API.revisions(patternId), { params });
-  }
 
   get(patternId: string, n: number): Observable<Revision> {
     return this.http.get<{ revision: Revision }>(API.revision(patternId, n)).pipe(map((r) => r.revision));
