@@ -2,9 +2,6 @@ import { count, desc, eq, max, min, sql } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
 import { revisions, users, type Revision } from '../db/schema';
 
-/** A random id the board makes each time it opens; its consecutive saves form one run in History. */
-export { editSessionSchema } from '@seamwright/api';
-
 /** A named version's name and note, or null for an ordinary save. */
 export function versionJson(r: Pick<Revision, 'versionName' | 'versionNote'>): { name: string; note: string | null } | null {
   return r.versionName === null ? null : { name: r.versionName, note: r.versionNote };
