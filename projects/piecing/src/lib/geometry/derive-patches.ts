@@ -13,8 +13,11 @@ export interface DerivedPatch {
    * on the outline and the seams, so it stays put while numbers, fabrics and strip sets change.
    */
   index: number;
-  /** Where the label goes and where a click finds the patch: the pole of inaccessibility, inside the patch. */
-  labelPoint: Point;
+  /**
+   * Where the label goes and where a click finds the patch: the pole of inaccessibility, inside the
+   * patch. Found the first time it is read (the cutting list and sewability never need it).
+   */
+  readonly labelPoint: Point;
   /** Piecing-order number, 1 … */
   number: number;
   /** Section letter + number, as quilters write it: `A1`. */
@@ -54,8 +57,6 @@ export interface DerivePatchesOptions {
 export interface SplitResult {
   /** Patch outlines in split order (array position = the patch's `index`). */
   polygons: Point[][];
-  /** The label point of each polygon ({@link patchLabelPoint}). */
-  labelPoints: Point[];
   problems: SeamProblem[];
 }
 
@@ -73,10 +74,10 @@ export function splitSection(section: Pick<Section, 'geometry' | 'seams'>, optio
     polygons = result.polygons;
     problems.push(...result.problems);
   }
-  return { polygons, labelPoints: polygons.map((ring) => patchLabelPoint(ring)), problems };
+  return { polygons, problems };
 }
 
-function applySeam(polygons: Point[][], seam: Seam, reachIn: number): Omit<SplitResult, 'labelPoints'> {
+function applySeam(polygons: Point[][], seam: Seam, reachIn: number): SplitResult {
   const lengthIn = Math.hypot(seam.b.x - seam.a.x, seam.b.y - seam.a.y);
   if (!(lengthIn > GEOMETRY_EPSILON_IN)) {
     return { polygons, problems: [{ kind: 'seam-crosses-nothing', seamId: seam.id, point: seam.a, message: `seam "${seam.id}" has no length (both ends at ${formatPoint(seam.a)})` }] };
@@ -156,7 +157,7 @@ function lineMayCross(ring: readonly Point[], seam: Seam, lengthIn: number, reac
  */
 export function derivePatches(section: Section, options: DerivePatchesOptions = {}): { patches: DerivedPatch[]; problems: SeamProblem[] } {
   const split = options.split ?? splitSection(section, options);
-  const { polygons, labelPoints } = split;
+  const { polygons } = split;
   const problems = split.problems.slice();
   const assigned: Array<Section['patches'][number] | undefined> = polygons.map(() => undefined);
   section.patches.forEach((assignment, k) => {
@@ -196,11 +197,20 @@ export function derivePatches(section: Section, options: DerivePatchesOptions = 
       number = next;
       used.add(number);
     }
-    const patch: DerivedPatch = { index: i, labelPoint: labelPoints[i], number, label: `${section.label}${number}`, polygon };
+    const patch = withLabelPoint({ index: i, number, label: `${section.label}${number}`, polygon });
     if (assignment?.fabricId) patch.fabricId = assignment.fabricId;
     if (assignment?.stripSet) patch.stripSet = assignment.stripSet;
     return patch;
   });
   patches.sort((p, q) => p.number - q.number);
   return { patches, problems };
+}
+
+/**
+ * The patch with its `labelPoint` as a property found on first read and then kept (enumerable, so
+ * spreads, JSON and structured clones carry the value).
+ */
+function withLabelPoint(patch: Omit<DerivedPatch, 'labelPoint'>): DerivedPatch {
+  let at: Point | undefined;
+  return Object.defineProperty(patch, 'labelPoint', { enumerable: true, get: () => (at ??= patchLabelPoint(patch.polygon)) }) as DerivedPatch;
 }

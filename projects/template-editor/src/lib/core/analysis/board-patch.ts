@@ -27,9 +27,12 @@ export type BoardOrderSearch =
   | { ok: true; order: number[] }
   | { ok: false; reason: string; suggestedSplit?: { a: Point; b: Point } };
 
-/** The board's view of a derived patch: strip-set guide lines and bands when it has a strip set. */
+/**
+ * The board's view of a derived patch: strip-set guide lines and bands when it has a strip set. Takes
+ * the freshly derived patch itself (not a copy, so its label point is still found only when read).
+ */
 export function toBoardPatch(p: DerivedPatch): BoardPatch {
-  const out: BoardPatch = { ...p, guideLines: [] };
+  const out = Object.assign(p, { guideLines: [] as Array<[Point, Point]> }) as BoardPatch;
   if (p.stripSet) {
     try {
       const layout = layoutStripSet(p.polygon, p.stripSet);

@@ -42,9 +42,17 @@ describe('section analysis', () => {
 
   it('gives commands the error again for a section it cannot derive, and the board no patches', () => {
     const analysis = new SectionAnalysis();
-    const section = { id: 's1', label: 'A', geometry: { kind: 'spiral' }, seams: [], patches: [] } as unknown as Section;
-    expect(() => analysis.derive(section)).toThrow();
-    expect(() => analysis.derive(section)).toThrow();
+    const section = { id: 's1', label: 'A', geometry: {
+        kind: 'straight',
+        get vertices(): never {
+          throw new Error('outline crosses itself');
+        },
+      },
+      seams: [],
+      patches: [],
+    } as unknown as Section;
+    expect(() => analysis.derive(section)).toThrow('outline crosses itself');
+    expect(() => analysis.derive(section)).toThrow('outline crosses itself');
     expect(analysis.patches(section)).toEqual([]);
     expect(analysis.splitsMade).toBe(1);
   });
