@@ -39,6 +39,7 @@ export const API = {
   printSets: (id: string) => `${p(id)}/print-sets`,
   printSet: (id: string, setId: string) => `${p(id)}/print-sets/${encodeURIComponent(setId)}`,
   printSetFile: (id: string, setId: string) => `${p(id)}/print-sets/${encodeURIComponent(setId)}/file`,
+  printSetEvents: (id: string, setId: string) => `${p(id)}/print-sets/${encodeURIComponent(setId)}/events`,
   adminUsers: '/api/admin/users',
   adminUser: (userId: string) => `/api/admin/users/${encodeURIComponent(userId)}`,
   devInbox: '/api/admin/dev-inbox',

@@ -36,7 +36,7 @@ export class PrintSetsService {
   follow(patternId: string, setId: string, everyMs = 600): Observable<PrintSet> {
     const poll = this.poll(patternId, setId, everyMs);
     if (!this.eventSource) return poll;
-    return serverEvents<PrintSet>(this.eventSource, `${API.printSet(patternId, setId)}/events`, 'progress', finished).pipe(catchError(() => poll));
+    return serverEvents<PrintSet>(this.eventSource, API.printSetEvents(patternId, setId), 'progress', finished).pipe(catchError(() => poll));
   }
 
   /** Asks for a print set every `everyMs` until it is done or failed, emitting each state. */
