@@ -16,6 +16,8 @@ const alias = {
   ),
 };
 
+const propertySeed = fileURLToPath(new URL('./tests/support/property-seed.ts', import.meta.url));
+
 export default defineConfig({
   resolve: { alias },
   test: {
@@ -27,6 +29,7 @@ export default defineConfig({
         test: {
           name: 'piecing',
           environment: 'node',
+          setupFiles: [propertySeed],
           include: ['projects/piecing/**/*.spec.ts'],
           testTimeout: 60_000,
         },
@@ -36,6 +39,7 @@ export default defineConfig({
         test: {
           name: 'server',
           environment: 'node',
+          setupFiles: [propertySeed],
           include: ['server/**/*.spec.ts', 'projects/api/**/*.spec.ts'],
           testTimeout: 60_000,
           hookTimeout: 60_000,
@@ -48,6 +52,7 @@ export default defineConfig({
           // Fault and hostile-input tests against a real server process (issue: benchmarks and faults).
           name: 'faults',
           environment: 'node',
+          setupFiles: [propertySeed],
           include: ['tests/faults/**/*.spec.ts', 'tests/hostile/**/*.spec.ts'],
           testTimeout: 300_000,
           hookTimeout: 120_000,
@@ -59,6 +64,7 @@ export default defineConfig({
         test: {
           name: 'editor-core',
           environment: 'node',
+          setupFiles: [propertySeed],
           include: ['projects/template-editor/src/lib/core/**/*.spec.ts'],
         },
       },

@@ -68,7 +68,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
           stripSetId: patch.stripSet.id,
           cutWidthIn: Math.min(layout.sewnWidthIn, layout.subCutLengthIn),
           cutLengthIn: Math.max(layout.sewnWidthIn, layout.subCutLengthIn),
-          rectangleAngleDeg: layout.axisAngleDeg,
+          rectangleAngleDeg: round6(layout.axisAngleDeg),
           count: copies,
         };
         patches.push(row);

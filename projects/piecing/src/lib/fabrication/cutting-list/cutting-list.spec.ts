@@ -242,6 +242,29 @@ describe('buildCuttingList', () => {
     expect(list.patches[0]).toMatchObject({ stripSetId: 'stripe', fabricId: null, cutWidthIn: 3.5, cutLengthIn: 5.5, count: 8 });
   });
 
+  it('a strip set whose axis is written -0° is cut at 0°, so the list reads back from JSON unchanged', () => {
+    // Found by the fabrication fuzz (seed 645800262): JSON has no -0, so -0 read back as 0.
+    const doc: PatternDocumentInput = {
+      formatVersion: 1,
+      title: 'Minus zero',
+      canvas: { widthIn: 10, heightIn: 10 },
+      seamAllowanceIn: 0.25,
+      piecingMarginIn: 0,
+      fabrics: [{ id: 'plum', name: 'Plum', colour: '#6b3a5b' }],
+      sections: [
+        {
+          id: 'a',
+          label: 'A',
+          geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 3 }, { x: 0, y: 3 }] },
+          patches: [{ number: 1, anchor: { x: 2, y: 1.5 }, stripSet: { id: 's', strips: [{ fabricId: 'plum', finishedWidthIn: 1.5 }, { fabricId: 'plum', finishedWidthIn: 1.5 }], axisAngleDeg: -0 } }],
+        },
+      ],
+    };
+    const list = buildCuttingList(readPatternDocument(doc));
+    expect(Object.is(list.patches[0].rectangleAngleDeg, 0)).toBe(true);
+    expect(JSON.parse(JSON.stringify(list))).toEqual(list);
+  });
+
   it('lists a patch without fabric as a problem and leaves it out of the yardage', () => {
     const doc = gridDocument();
     const sections = (doc.sections ?? []).map((s) => ({ ...s, patches: (s.patches ?? []).slice(1) }));
