@@ -318,6 +318,32 @@ export const paymentEvents = sqliteTable('payment_events', {
   receivedAt: integer('received_at', { mode: 'timestamp_ms' }).notNull(),
 });
 
+/**
+ * Outgoing e-mail, written in the same request that decides to send it and delivered by the
+ * background sender (server/services/mail-outbox.ts) with retries; a request never waits for mail.
+ * The body is cleared once sent, so no reset or invitation link stays in the table.
+ */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: text('id').primaryKey(),
+    /** What the mail is (password-reset, invitation, receipt), for the log. */
+    kind: text('kind').notNull(),
+    to: text('to_address').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html'),
+    createdAt: createdAt(),
+    attempts: integer('attempts').notNull().default(0),
+    nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }).notNull(),
+    sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
+    /** Set when the sender gave up after its last attempt. */
+    failedAt: integer('failed_at', { mode: 'timestamp_ms' }),
+    lastError: text('last_error'),
+  },
+  (t) => [index('mail_outbox_due_idx').on(t.sentAt, t.failedAt, t.nextAttemptAt)],
+);
+
 export type Shop = typeof shops.$inferSelect;
 export type ShopListing = typeof shopListings.$inferSelect;
 export type Order = typeof orders.$inferSelect;
