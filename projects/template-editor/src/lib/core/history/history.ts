@@ -31,6 +31,11 @@ export class History<T> {
     return this.undoStack[this.undoStack.length - 1]?.label;
   }
 
+  /** Label of the step redo would re-apply. */
+  get redoLabel(): string | undefined {
+    return this.redoStack[this.redoStack.length - 1]?.label;
+  }
+
   /** Number of steps that can be undone. */
   get depth(): number {
     return this.undoStack.length;

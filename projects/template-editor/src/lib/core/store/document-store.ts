@@ -57,6 +57,16 @@ export class DocumentStore {
     return this.history.canRedo;
   }
 
+  /** Name of the step undo would revert (e.g. "Move section B"). */
+  get undoLabel(): string | undefined {
+    return this.history.undoLabel;
+  }
+
+  /** Name of the step redo would re-apply. */
+  get redoLabel(): string | undefined {
+    return this.history.redoLabel;
+  }
+
   /** Number of undoable steps. */
   get undoDepth(): number {
     return this.history.depth;
