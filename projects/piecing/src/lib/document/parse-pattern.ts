@@ -27,6 +27,8 @@ const migrations: Record<number, (doc: Record<string, unknown>) => Record<string
   // 1 → 2: straight sections may have curved edges (`bulges`). Every version 1 edge is straight, which
   // version 2 says by leaving `bulges` out, so only the version changes.
   1: (doc) => ({ ...doc, formatVersion: 2 }),
+  // Fields added later within version 2 are optional and absent from older documents (notes, joiningPlan,
+  // seam press, patch roughCut and pieceTemplate, strip-set subCutLengthIn), so they need no step here.
 };
 
 /** Brings a raw document up to {@link FORMAT_VERSION}, or returns an issue when it cannot. */

@@ -124,7 +124,15 @@ export const seamSchema = z.object({
   id,
   a: pointSchema,
   b: pointSchema,
+  /**
+   * How this seam is pressed once its patch is sewn: toward the patch just added (`added`, the default
+   * and usual practice on a foundation), toward the patches sewn before it (`previous`), or open.
+   */
+  press: z.enum(['added', 'previous', 'open']).optional(),
 });
+
+/** Which way a patch seam is pressed (see {@link seamSchema}); missing means `added`. */
+export const SEAM_PRESS_DEFAULT = 'added' as const;
 
 export const stripSchema = z.object({
   fabricId: id,
@@ -141,6 +149,14 @@ export const stripSetSchema = z.object({
   strips: z.array(stripSchema).min(2).max(30),
   axisAngleDeg: finite.default(0),
   offsetIn: finite.default(0),
+  /** Length of each slice cut across the sewn set, when the designer sets it (else the cutting list computes it). */
+  subCutLengthIn: positiveLength.optional(),
+});
+
+/** The rough-cut piece the designer sets for a patch, in place of the computed one (e.g. a 3 in. square). */
+export const roughCutSchema = z.object({
+  widthIn: positiveLength,
+  lengthIn: positiveLength,
 });
 
 /**
@@ -153,6 +169,10 @@ export const patchSchema = z
     anchor: pointSchema,
     fabricId: id.optional(),
     stripSet: stripSetSchema.optional(),
+    /** The designer's rough-cut piece; the cutting list warns when it cannot cover the patch with its allowance. */
+    roughCut: roughCutSchema.optional(),
+    /** Whether the print set carries a piece template for this patch (patches cut from a strip set always get one). */
+    pieceTemplate: z.boolean().optional(),
   });
 
 export const ringRepeatSchema = z.object({
@@ -169,8 +189,41 @@ export const sectionSchema = z.object({
   seams: z.array(seamSchema).max(500).default([]),
   patches: z.array(patchSchema).max(500).default([]),
   ringRepeat: ringRepeatSchema.optional(),
-  /** Free note for the quilter (pressing direction, tips). */
+  /** The designer's note for the quilter about this section (pressing direction, tips); shown on its template. */
   note: z.string().max(500).optional(),
+});
+
+/** Joins all ring copies of a section into a ring: count joins, the last one closing the ring. */
+export const ringJoinStepSchema = z.object({
+  id,
+  kind: z.literal('ring'),
+  sectionId: id,
+  /** Which way the seams between copies are pressed: all turning the same way round the ring, or open. */
+  press: z.enum(['clockwise', 'anticlockwise', 'open']),
+});
+
+/**
+ * Joins two parts: each of `a` and `b` names a section id, or the id of an earlier step (the unit it
+ * made). A section with a ring repeat takes part in joins through its ring step.
+ */
+export const pairJoinStepSchema = z.object({
+  id,
+  kind: z.literal('join'),
+  a: id,
+  b: id,
+  /** Toward part `a`, toward part `b`, or open. */
+  press: z.enum(['a', 'b', 'open']),
+});
+
+export const joinStepSchema = z.discriminatedUnion('kind', [ringJoinStepSchema, pairJoinStepSchema]);
+
+/**
+ * The order and way sections are joined into units and units into the block: a tree of joins written
+ * as steps in sewing order. Whether it can be sewn is checked by `checkJoiningPlan` (the document only
+ * holds its shape), so a plan naming a deleted section still reads and is reported, not refused.
+ */
+export const joiningPlanSchema = z.object({
+  steps: z.array(joinStepSchema).max(4000),
 });
 
 export const referenceImageSchema = z.object({
@@ -200,6 +253,10 @@ export const patternDocumentSchema = z
     fabrics: z.array(fabricSchema).max(100).default([]),
     sections: z.array(sectionSchema).max(2000).default([]),
     referenceImage: referenceImageSchema.optional(),
+    /** The designer's notes for the quilter, shown on the cover of the print set. */
+    notes: z.string().max(4000).optional(),
+    /** The designer's joining plan; without one the library proposes a default (`defaultJoiningPlan`). */
+    joiningPlan: joiningPlanSchema.optional(),
   })
   .superRefine((doc, ctx) => {
     const fabricIds = new Set<string>();
@@ -224,6 +281,12 @@ export const patternDocumentSchema = z
         });
       });
     });
+    const stepIds = new Set<string>();
+    doc.joiningPlan?.steps.forEach((step, i) => {
+      if (stepIds.has(step.id)) ctx.addIssue({ code: 'custom', message: `duplicate joining step id "${step.id}"`, path: ['joiningPlan', 'steps', i, 'id'] });
+      if (sectionIds.has(step.id)) ctx.addIssue({ code: 'custom', message: `joining step id "${step.id}" is also a section id`, path: ['joiningPlan', 'steps', i, 'id'] });
+      stepIds.add(step.id);
+    });
     // Outlines that cross themselves, outlines without area, seams without length.
     for (const issue of validatePatternGeometry(doc)) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
   });
@@ -240,6 +303,13 @@ export type Strip = z.infer<typeof stripSchema>;
 export type StripSet = z.infer<typeof stripSetSchema>;
 export type PatchAssignment = z.infer<typeof patchSchema>;
 export type RingRepeat = z.infer<typeof ringRepeatSchema>;
+export type SeamPress = NonNullable<Seam['press']>;
+export type RoughCut = z.infer<typeof roughCutSchema>;
+export type RingJoinStepInput = z.infer<typeof ringJoinStepSchema>;
+export type PairJoinStepInput = z.infer<typeof pairJoinStepSchema>;
+/** One step of a joining plan as the document holds it. */
+export type JoinStepInput = z.infer<typeof joinStepSchema>;
+export type JoiningPlanInput = z.infer<typeof joiningPlanSchema>;
 export type Section = z.infer<typeof sectionSchema>;
 export type ReferenceImage = z.infer<typeof referenceImageSchema>;
 /** A validated pattern document (defaults filled in). */
