@@ -36,6 +36,7 @@ export function openDatabase(dataDir: string): DatabaseHandle {
   // last commits (SQLite documentation, "Write-Ahead Logging").
   sqlite.pragma('synchronous = NORMAL');
   sqlite.pragma('busy_timeout = 5000');
+  checkWrites(sqlite);
   const db = drizzle(sqlite, { schema });
   migrate(db, { migrationsFolder: MIGRATIONS_DIR });
   return {
@@ -46,6 +47,27 @@ export function openDatabase(dataDir: string): DatabaseHandle {
       if (sqlite.open) sqlite.close();
     },
   };
+}
+
+/**
+ * Makes a failed commit throw for every statement that writes and returns rows (`INSERT/UPDATE/DELETE
+ * … RETURNING`). better-sqlite3's `.get()` steps such a statement once and then resets it; outside a
+ * transaction SQLite commits at that reset, and better-sqlite3 drops the reset's error, so a commit
+ * that failed (a full disk: SQLITE_FULL; a deferred foreign key) came back as a row as if stored.
+ * `.all()` steps to the end, where the commit's error is thrown. Every statement drizzle prepares on
+ * this connection goes through here, so no route can forget it.
+ */
+function checkWrites(sqlite: Database.Database): void {
+  const prepare = sqlite.prepare.bind(sqlite);
+  const checkedPrepare = (source: string) => {
+    const stmt = prepare(source);
+    if (stmt.reader && !stmt.readonly) {
+      const all = stmt.all.bind(stmt);
+      stmt.get = ((...params: unknown[]) => all(...params)[0]) as typeof stmt.get;
+    }
+    return stmt;
+  };
+  sqlite.prepare = checkedPrepare as typeof sqlite.prepare;
 }
 
 /** A transaction handle, as passed to `db.transaction(fn)`. */

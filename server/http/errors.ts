@@ -70,10 +70,12 @@ export function errorMiddleware(log: (err: unknown) => void): ErrorRequestHandle
  */
 function storageProblem(code: unknown): { status: number; message: string } | undefined {
   if (typeof code !== 'string') return undefined;
-  if (code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' || code === 'SQLITE_FULL') {
+  // SQLite reports a write-ahead-log write that hit a full disk as SQLITE_FULL or, depending on the
+  // call that failed, as one of the SQLITE_IOERR_* codes (SQLite documentation, "Result and Error Codes").
+  if (code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' || code === 'SQLITE_FULL' || code.startsWith('SQLITE_IOERR')) {
     return { status: 507, message: 'The server has no space left; nothing was stored' };
   }
-  if (['EACCES', 'EPERM', 'EROFS', 'ENOTDIR'].includes(code) || code.startsWith('SQLITE_READONLY') || code.startsWith('SQLITE_IOERR') || code === 'SQLITE_CANTOPEN') {
+  if (['EACCES', 'EPERM', 'EROFS', 'ENOTDIR'].includes(code) || code.startsWith('SQLITE_READONLY') || code === 'SQLITE_CANTOPEN') {
     return { status: 503, message: 'The server cannot write its data folder; nothing was stored' };
   }
   return undefined;
