@@ -12,6 +12,12 @@ export type { BoardSettings } from './editor/board-settings';
 export type { EditorSnapshot } from './store/editor-state';
 export type { DocumentUpdate } from './store/document-store';
 export { diffValues } from './history/document-diff';
+export type { BoardSelection } from './store/editor-state';
+
+/** The board by keys: nudging the selection, and what the live region and the Sections outline say. */
+export { nudgeStepIn, NUDGE_DIRECTIONS } from './commands/nudge-commands';
+export { describeSection, selectionMessage, spokenLength } from './editor/board-announcements';
+export { TOOL_SHORTCUTS } from './editor/shortcuts';
 
 /** What the board shows of each section: patches, sewability, the order search. */
 export { SectionAnalysis } from './analysis/section-analysis';

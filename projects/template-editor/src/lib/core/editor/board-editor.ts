@@ -1,13 +1,15 @@
 import { polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
-import { deleteSection } from '../commands/section-commands';
+import { NUDGE_DIRECTIONS, nudgeSection, nudgeStepIn } from '../commands/nudge-commands';
+import { deleteSection, findSection } from '../commands/section-commands';
 import { snapDirectionDeg, snapSweepDeg } from '../snapping/angle-snap';
 import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTarget } from '../snapping/snapping';
 import { DocumentStore } from '../store/document-store';
 import { createTool } from '../tools/create-tool';
 import type { BoardTool, ToolContext, ToolId } from '../tools/tool';
 import { fitBounds, panBy, toDocument, toScreen, zoomAt, type Viewport } from '../view/viewport';
+import { historyMessage, nudgeMessage, selectionMessage } from './board-announcements';
 import { DEFAULT_BOARD_SETTINGS, type BoardSettings } from './board-settings';
 import { actionFor, TOOL_SHORTCUTS, type BoardKey } from './shortcuts';
 
@@ -47,6 +49,7 @@ export class BoardEditor {
   private edges: { doc: PatternDocument; rings: Point[][] } | null = null;
   private readonly targetCache = new WeakMap<Section, SnapTarget[]>();
   private readonly viewListeners = new Set<() => void>();
+  private readonly announceListeners = new Set<(message: string) => void>();
   private readonly ctx: ToolContext;
 
   constructor(document: PatternDocument) {
@@ -66,6 +69,22 @@ export class BoardEditor {
       ringCount: () => this.settingsValue.ringCount,
     };
     this.current = createTool('select', this.ctx);
+    // Every change of selection (a click, the outline, a key) is said in words; loading is not.
+    let lastSelection = this.store.selection;
+    this.store.subscribe((snap) => {
+      if (snap.selection === lastSelection) return;
+      lastSelection = snap.selection;
+      if (snap.origin !== 'load') this.announce(selectionMessage(snap.document, snap.selection, this.analysis));
+    });
+  }
+
+  /**
+   * Calls `listener` with each message the board's live region should say: what is selected and what
+   * each key did ("Section B moved ⅛ in. right"). Returns the function that stops it.
+   */
+  onAnnounce(listener: (message: string) => void): () => void {
+    this.announceListeners.add(listener);
+    return () => this.announceListeners.delete(listener);
   }
 
   /** The active tool. */
@@ -224,6 +243,7 @@ export class BoardEditor {
 
   /** A key press; returns whether the board used it (the caller then prevents the default). */
   keyDown(e: BoardKey): boolean {
+    if (this.selectionKey(e)) return true;
     const action = actionFor(e);
     if (action) {
       if (action === 'fit') this.fitToContent();
@@ -250,19 +270,75 @@ export class BoardEditor {
     return false;
   }
 
+  /**
+   * Moves the selected section by an arrow key's step (the grid's snap step; with Shift 1 in., or
+   * 1 cm on a metric board) as one undo step. Returns whether it moved.
+   */
+  nudge(key: string, large = false): boolean {
+    const id = this.store.selection.sectionId;
+    const dir = NUDGE_DIRECTIONS[key];
+    const section = id ? findSection(this.store.document, id) : undefined;
+    if (this.readOnlyValue || !dir || !section) return false;
+    const step = nudgeStepIn(this.settingsValue.grid, this.settingsValue.unit, large);
+    this.store.apply(`Move section ${section.label}`, (d) => nudgeSection(d, section.id, key, step));
+    this.announce(nudgeMessage(section.label, step, dir.word, this.settingsValue.unit));
+    this.changed();
+    return true;
+  }
+
+  /** Removes the selected section (one undo step); returns whether there was one. */
+  deleteSelection(): boolean {
+    const id = this.store.selection.sectionId;
+    const section = id ? findSection(this.store.document, id) : undefined;
+    if (this.readOnlyValue || !section) return false;
+    this.store.apply(`Delete section ${section.label}`, (d) => deleteSection(d, section.id));
+    this.store.select({ sectionId: null, patchIndex: null });
+    this.announce(`Section ${section.label} deleted`);
+    this.changed();
+    return true;
+  }
+
+  /** Clears the selection; returns whether there was one. */
+  clearSelection(): boolean {
+    if (!this.store.selection.sectionId) return false;
+    this.store.select({ sectionId: null, patchIndex: null });
+    this.changed();
+    return true;
+  }
+
   /** Undoes the last step. */
   undo(): void {
     if (this.readOnlyValue) return;
     this.current.cancel();
+    const label = this.store.undoLabel;
     this.store.undo();
+    this.announce(historyMessage('undo', label));
     this.changed();
   }
 
   /** Redoes the last undone step. */
   redo(): void {
     if (this.readOnlyValue) return;
+    const label = this.store.redoLabel;
     this.store.redo();
+    this.announce(historyMessage('redo', label));
     this.changed();
+  }
+
+  /**
+   * The board's own keys on the selection, while the active tool is idle: arrows nudge, Delete (or
+   * Backspace) removes, Escape clears. A tool in the middle of something keeps these keys.
+   */
+  private selectionKey(e: BoardKey): boolean {
+    if (e.ctrlKey || e.metaKey || e.altKey || this.current.state !== 'idle' || this.store.inGesture) return false;
+    if (NUDGE_DIRECTIONS[e.key]) return this.nudge(e.key, e.shiftKey ?? false);
+    if (e.key === 'Delete' || e.key === 'Backspace') return this.deleteSelection();
+    if (e.key === 'Escape') return this.clearSelection();
+    return false;
+  }
+
+  private announce(message: string): void {
+    for (const l of this.announceListeners) l(message);
   }
 
   /** Copies the selected section. */
