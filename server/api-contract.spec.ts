@@ -166,7 +166,7 @@ describe('answers match the shared API contract', () => {
 
     // Sewing log.
     const sectionId = sampleDocument().sections[0].id;
-    answer(await quilter.put(`/api/patterns/${id}/sewing-log/${sectionId}`, { stage: 'sewn' }), 200, sewingLogEntryAnswerSchema);
+    answer(await quilter.put(`/api/patterns/${id}/sewing-log/${sectionId}`, { stage: 'pieced' }), 200, sewingLogEntryAnswerSchema);
     answer(await quilter.get(`/api/patterns/${id}/sewing-log`), 200, sewingLogAnswerSchema);
     expect(answer(await quilter.put(`/api/patterns/${id}/sewing-log/${sectionId}`, { stage: null }), 200, sewingLogEntryAnswerSchema).entry).toBeNull();
 

@@ -102,14 +102,14 @@ describe('sharing by e-mail', () => {
     const { token } = await invite(id, 'sewer@share.test', 'quilter');
     await sewer.post('/api/invitations/accept', { token }).expect(200);
 
-    const put = await sewer.put(`/api/patterns/${id}/sewing-log/sec-a`, { stage: 'cut' }).expect(200);
-    expect(put.body.entry).toMatchObject({ sectionId: 'sec-a', stage: 'cut' });
-    await sewer.put(`/api/patterns/${id}/sewing-log/sec-a`, { stage: 'sewn' }).expect(200);
+    const put = await sewer.put(`/api/patterns/${id}/sewing-log/sec-a`, { stage: 'pieced' }).expect(200);
+    expect(put.body.entry).toMatchObject({ sectionId: 'sec-a', copy: 1, stage: 'pieced' });
+    await sewer.put(`/api/patterns/${id}/sewing-log/sec-a`, { stage: 'trimmed' }).expect(200);
     const mine = await sewer.get(`/api/patterns/${id}/sewing-log`).expect(200);
-    expect(mine.body.entries).toMatchObject([{ sectionId: 'sec-a', stage: 'sewn' }]);
+    expect(mine.body.entries).toMatchObject([{ sectionId: 'sec-a', copy: 1, stage: 'trimmed' }]);
     const ownerLog = await owner.get(`/api/patterns/${id}/sewing-log`).expect(200);
     expect(ownerLog.body.entries).toEqual([]);
-    const unknown = await sewer.put(`/api/patterns/${id}/sewing-log/sec-zz`, { stage: 'cut' });
+    const unknown = await sewer.put(`/api/patterns/${id}/sewing-log/sec-zz`, { stage: 'pieced' });
     expect(unknown.status).toBe(400);
     const badStage = await sewer.put(`/api/patterns/${id}/sewing-log/sec-a`, { stage: 'ironed' });
     expect(badStage.status).toBe(400);

@@ -162,6 +162,7 @@ export const invitations = sqliteTable(
   (t) => [index('invitations_pattern_idx').on(t.patternId)],
 );
 
+/** Per user and pattern, the stage each copy of a section has reached (docs/api.md). */
 export const sewingLog = sqliteTable(
   'sewing_log',
   {
@@ -172,10 +173,12 @@ export const sewingLog = sqliteTable(
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
     sectionId: text('section_id').notNull(),
+    /** Which copy of the section (ring repeats × blocks), from 1. */
+    copy: integer('copy').notNull().default(1),
     stage: text('stage', { enum: SEWING_STAGES }).notNull(),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
   },
-  (t) => [primaryKey({ columns: [t.patternId, t.userId, t.sectionId] })],
+  (t) => [primaryKey({ columns: [t.patternId, t.userId, t.sectionId, t.copy] })],
 );
 
 /** Reference images uploaded to a pattern; the file lives under the data folder. */

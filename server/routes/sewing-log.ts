@@ -12,9 +12,18 @@ import { findRevision } from '../services/revisions';
 
 const sectionIdParam = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be a section id');
 
-const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
+const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, copy: e.copy, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
 
-/** `/api/patterns/:id/sewing-log`: the signed-in user's progress on a pattern's sections. */
+/** What the route reads of the latest revision: each section's ring repeat, and the block count. */
+interface LoggedDocument {
+  blockCount?: number;
+  sections: { id: string; ringRepeat?: { count: number } }[];
+}
+
+/**
+ * `/api/patterns/:id/sewing-log`: the signed-in user's progress on a pattern, one stage per copy of each
+ * section (ring repeats × blocks: 8 ring copies of B are 8 things to sew), see docs/api.md.
+ */
 export function sewingLogRouter(ctx: AppContext): Router {
   const { db } = ctx;
   const router = express.Router({ mergeParams: true });
@@ -26,6 +35,7 @@ export function sewingLogRouter(ctx: AppContext): Router {
       .select()
       .from(sewingLog)
       .where(and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id)))
+      .orderBy(sewingLog.sectionId, sewingLog.copy)
       .all();
     res.json({ entries: rows.map(entryJson) });
   });
@@ -36,11 +46,16 @@ export function sewingLogRouter(ctx: AppContext): Router {
     const sectionId = parseOr400(sectionIdParam, req.params.sectionId, 'Invalid section id');
     const body = parseOr400(sewingStageBodySchema, req.body);
     const latest = findRevision(db, pattern.id);
-    const doc = latest ? (JSON.parse(latest.revision.document) as { sections: { id: string }[] }) : { sections: [] };
-    if (!doc.sections.some((s) => s.id === sectionId)) {
+    const doc: LoggedDocument = latest ? (JSON.parse(latest.revision.document) as LoggedDocument) : { sections: [] };
+    const section = doc.sections.find((s) => s.id === sectionId);
+    if (!section) {
       throw new HttpError(400, 'No such section in the latest revision', [{ path: 'sectionId', message: `unknown section "${sectionId}"` }]);
     }
-    const key = and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id), eq(sewingLog.sectionId, sectionId));
+    const copies = (section.ringRepeat?.count ?? 1) * (doc.blockCount ?? 1);
+    if (body.copy > copies) {
+      throw new HttpError(400, 'No such copy of the section', [{ path: 'copy', message: `section has ${copies} ${copies === 1 ? 'copy' : 'copies'}` }]);
+    }
+    const key = and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id), eq(sewingLog.sectionId, sectionId), eq(sewingLog.copy, body.copy));
     if (body.stage === null) {
       db.delete(sewingLog).where(key).run();
       res.json({ entry: null });
@@ -48,9 +63,9 @@ export function sewingLogRouter(ctx: AppContext): Router {
     }
     const entry = db
       .insert(sewingLog)
-      .values({ patternId: pattern.id, userId: user.id, sectionId, stage: body.stage, updatedAt: new Date() })
+      .values({ patternId: pattern.id, userId: user.id, sectionId, copy: body.copy, stage: body.stage, updatedAt: new Date() })
       .onConflictDoUpdate({
-        target: [sewingLog.patternId, sewingLog.userId, sewingLog.sectionId],
+        target: [sewingLog.patternId, sewingLog.userId, sewingLog.sectionId, sewingLog.copy],
         set: { stage: body.stage, updatedAt: new Date() },
       })
       .returning()

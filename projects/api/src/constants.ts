@@ -9,8 +9,8 @@ export const ROLES = ['admin', 'designer', 'quilter'] as const;
 /** Access a member has to one pattern; the owner is not a member. */
 export const MEMBER_ACCESS = ['co-designer', 'quilter'] as const;
 
-/** Sewing-log stages of a section, in the order a quilter reaches them. */
-export const SEWING_STAGES = ['cut', 'sewn', 'trimmed'] as const;
+/** Sewing-log stages of one copy of a section, in the order a quilter reaches them (docs/api.md#sewing-log-per-user-per-pattern). */
+export const SEWING_STAGES = ['pieced', 'trimmed', 'joined'] as const;
 
 /** A print set's life: waiting, being drawn, finished or given up. */
 export const PRINT_SET_STATUSES = ['queued', 'rendering', 'done', 'failed'] as const;

@@ -124,6 +124,7 @@ export {
   invitationTokenSchema,
   acceptInvitationBodySchema,
   sewingStageBodySchema,
+  MAX_SEWING_COPY,
   editSessionSchema,
   createPatternBodySchema,
   saveRevisionBodySchema,

@@ -67,8 +67,17 @@ export const invitationTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/,
 /** `POST /api/invitations/accept`. */
 export const acceptInvitationBodySchema = z.strictObject({ token: invitationTokenSchema });
 
-/** `PUT /api/patterns/:id/sewing-log/:sectionId`: a stage, or null to clear it. */
-export const sewingStageBodySchema = z.strictObject({ stage: z.enum(SEWING_STAGES).nullable() });
+/** Largest copy number the sewing log takes: ring repeats (≤ 360) × blocks (≤ 1000). */
+export const MAX_SEWING_COPY = 360_000;
+
+/**
+ * `PUT /api/patterns/:id/sewing-log/:sectionId`: the stage one copy of the section has reached, or null to
+ * clear it. `copy` counts from 1 (ring copies of block 1, then of block 2 …); the first copy when missing.
+ */
+export const sewingStageBodySchema = z.strictObject({
+  stage: z.enum(SEWING_STAGES).nullable(),
+  copy: z.number().int().min(1).max(MAX_SEWING_COPY).default(1),
+});
 export type SewingStageBody = z.input<typeof sewingStageBodySchema>;
 
 /** The board's editing session, sent with its saves: consecutive saves of one session form one row in History. */

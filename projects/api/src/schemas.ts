@@ -232,7 +232,8 @@ export const invitationPreviewAnswerSchema = z.strictObject({ invitation: invita
 export const sewingStageSchema = z.enum(SEWING_STAGES);
 export type SewingStage = z.infer<typeof sewingStageSchema>;
 
-export const sewingLogEntrySchema = z.strictObject({ sectionId: z.string().min(1), stage: sewingStageSchema, updatedAt: isoTime });
+/** The stage one copy of a section has reached (copies count from 1). */
+export const sewingLogEntrySchema = z.strictObject({ sectionId: z.string().min(1), copy: z.number().int().min(1), stage: sewingStageSchema, updatedAt: isoTime });
 export type SewingLogEntry = z.infer<typeof sewingLogEntrySchema>;
 export const sewingLogAnswerSchema = z.strictObject({ entries: z.array(sewingLogEntrySchema) });
 export const sewingLogEntryAnswerSchema = z.strictObject({ entry: sewingLogEntrySchema.nullable() });
