@@ -40,6 +40,11 @@ export { setSeamEnd } from './commands/seam-commands';
 export { sectionHandles } from './commands/section-handles';
 export { applySewableOrder } from './commands/order-commands';
 
+/** Pressing of patch seams, cutting the way designers write it, and the designer's notes. */
+export { setSeamPressing, seamPressingOf, DEFAULT_SEAM_PRESSING, type SeamPressing } from './commands/pressing-commands';
+export { setPatchRoughCut, setPatchPieceTemplate, setStripSetSubCutLength, roughCutProblem, type RoughCutPiece } from './commands/cutting-commands';
+export { setPatternNotes, setSectionNote, PATTERN_NOTES_MAX, SECTION_NOTE_MAX } from './commands/notes-commands';
+
 /** Commands on the whole pattern: sewing numbers, fabrics, strip-set names, resizing. */
 export { setPatternSettings } from './commands/pattern-commands';
 export {

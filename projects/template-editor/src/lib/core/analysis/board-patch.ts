@@ -1,4 +1,4 @@
-import { layoutStripSet, stripSetBands, type DerivedPatch, type Point } from '@seamwright/piecing';
+import { layoutStripSet, locatePoint, stripSetBands, type DerivedPatch, type PatchAssignment, type Point, type Section } from '@seamwright/piecing';
 
 /**
  * One patch of a section as the board shows it: piecing's derived patch (its `index` is its identity,
@@ -10,6 +10,10 @@ export interface BoardPatch extends DerivedPatch {
   guideLines: Array<[Point, Point]>;
   /** The strips of a strip set as bands across the patch (to draw clipped to the patch outline). */
   stripBands?: Array<{ fabricId: string; polygon: Point[] }>;
+  /** The rough-cut piece the designer set for this patch (commands keep it when they rewrite assignments). */
+  roughCut?: PatchAssignment['roughCut'];
+  /** Whether the designer asked for a piece template of this patch. */
+  pieceTemplate?: boolean;
 }
 
 /** Result of the sewability check of one section's piecing order. */
@@ -43,4 +47,19 @@ export function toBoardPatch(p: DerivedPatch): BoardPatch {
     }
   }
   return out;
+}
+
+/** Adds what the designer said about the patch beyond fabric and strip set (rough cut, piece template). */
+export function withPatchDetails(p: BoardPatch, assignment: PatchAssignment | undefined): BoardPatch {
+  if (assignment?.roughCut) p.roughCut = assignment.roughCut;
+  if (assignment?.pieceTemplate !== undefined) p.pieceTemplate = assignment.pieceTemplate;
+  return p;
+}
+
+/**
+ * The assignment piecing matched to a derived patch: the one with its number whose anchor lies in it
+ * (numbers are unique in a section; the anchor test leaves out an assignment that lies in no patch).
+ */
+export function matchedAssignment(section: Pick<Section, 'patches'>, p: Pick<DerivedPatch, 'number' | 'polygon'>): PatchAssignment | undefined {
+  return section.patches.find((a) => a.number === p.number && locatePoint(a.anchor, p.polygon) !== 'outside');
 }

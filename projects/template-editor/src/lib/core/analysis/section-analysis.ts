@@ -14,7 +14,7 @@ import {
   type SectionGeometry,
   type SplitResult,
 } from '@seamwright/piecing';
-import { toBoardPatch, type BoardOrderSearch, type BoardPatch, type BoardSewability } from './board-patch';
+import { matchedAssignment, toBoardPatch, withPatchDetails, type BoardOrderSearch, type BoardPatch, type BoardSewability } from './board-patch';
 
 interface Entry {
   placements?: Section[];
@@ -91,7 +91,7 @@ export class SectionAnalysis {
     if (!e.derived) {
       try {
         const { patches, problems } = derivePatches(section, { split: this.split(section) });
-        e.derived = { patches: patches.map(toBoardPatch).sort((p, q) => p.index - q.index), problems: problems.map((p) => p.message) };
+        e.derived = { patches: patches.map((p) => withPatchDetails(toBoardPatch(p), matchedAssignment(section, p))).sort((p, q) => p.index - q.index), problems: problems.map((p) => p.message) };
       } catch (error) {
         e.derived = { error };
       }

@@ -6,6 +6,8 @@ function assignmentOf(p: BoardPatch, number: number): PatchAssignment {
   const a: PatchAssignment = { number, anchor: { x: p.labelPoint.x, y: p.labelPoint.y } };
   if (p.fabricId) a.fabricId = p.fabricId;
   if (p.stripSet) a.stripSet = p.stripSet;
+  if (p.roughCut) a.roughCut = p.roughCut;
+  if (p.pieceTemplate !== undefined) a.pieceTemplate = p.pieceTemplate;
   return a;
 }
 
@@ -35,7 +37,7 @@ export function syncAssignments(analysis: SectionAnalysis, before: Section | nul
     return materialiseAssignments(fresh);
   }
   if (old.length === fresh.length) {
-    return fresh.map((p, i) => assignmentOf({ ...p, fabricId: old[i].fabricId, stripSet: old[i].stripSet }, old[i].number));
+    return fresh.map((p, i) => assignmentOf({ ...p, fabricId: old[i].fabricId, stripSet: old[i].stripSet, roughCut: old[i].roughCut, pieceTemplate: old[i].pieceTemplate }, old[i].number));
   }
   const usedNumbers = new Set<number>();
   let next = Math.max(0, ...old.map((p) => p.number)) + 1;
