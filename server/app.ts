@@ -4,6 +4,7 @@ import type { AppContext } from './app-context';
 import { createCsrf } from './auth/csrf';
 import { loadSession } from './auth/sessions';
 import { apiNotFound, errorMiddleware } from './http/errors';
+import { jsonBodies } from './http/json-bodies';
 import { patternAccess } from './http/pattern-access';
 import { securityHeaders } from './http/security';
 import { staticAppRouter } from './http/static-app';
@@ -33,17 +34,18 @@ export function createApp(ctx: AppContext): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  api.use(express.json({ limit: ctx.config.jsonBodyLimit, strict: true }));
   api.use(cookieParser());
   api.use(loadSession(ctx.db));
   api.use(healthRouter());
-  // Every POST, PUT, PATCH and DELETE below needs the X-CSRF-Token header.
+  // Every POST, PUT, PATCH and DELETE below needs the X-CSRF-Token header (read from the header only).
   api.use(csrf.protect);
+  // Every route about one pattern finds it and the caller's access here (or answers 404) first.
+  api.use('/patterns/:id', patternAccess(ctx.db));
+  // Bodies are read only now, after the session, CSRF and access checks: bounded per route and by depth.
+  api.use(jsonBodies(ctx.config.jsonBodyLimit));
   api.use('/auth', authRouter(ctx, csrf));
   api.use('/admin', adminRouter(ctx));
   api.use('/invitations', invitationsRouter(ctx));
-  // Every route about one pattern finds it and the caller's access here (or answers 404) first.
-  api.use('/patterns/:id', patternAccess(ctx.db));
   api.use('/patterns/:id/revisions', revisionsRouter(ctx));
   api.use('/patterns/:id/sewing-log', sewingLogRouter(ctx));
   api.use('/patterns/:id/uploads', uploadsRouter(ctx));
