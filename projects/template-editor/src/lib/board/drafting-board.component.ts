@@ -10,6 +10,7 @@ import {
   viewChild,
 } from '@angular/core';
 import { BoardRenderer } from './konva/board-renderer';
+import type { BoardHighlight } from '../core/public-api';
 import { EditorSession } from '../session/editor-session';
 
 /**
@@ -47,6 +48,8 @@ import { EditorSession } from '../session/editor-session';
 export class DraftingBoardComponent {
   /** URL of a reference image to trace, shown locked and faded under the drawing. */
   readonly referenceImageUrl = input<string | null | undefined>(null);
+  /** Paths and marks to point out over the drawing (e.g. the seam of the join chosen in the joining plan). */
+  readonly highlight = input<BoardHighlight | null>(null);
 
   protected readonly session = inject(EditorSession);
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
@@ -68,6 +71,7 @@ export class DraftingBoardComponent {
       ed.setSize(Math.max(1, el.clientWidth), Math.max(1, el.clientHeight));
       this.renderer = new BoardRenderer(el, ed);
       this.renderer.setReferenceImage(this.referenceImageUrl() ?? null);
+      this.renderer.setHighlight(this.highlight());
       this.fitIfPending();
       el.addEventListener('wheel', this.onWheel, { passive: false });
       this.resizeObserver = new ResizeObserver(() => {
@@ -83,6 +87,10 @@ export class DraftingBoardComponent {
       const url = this.referenceImageUrl() ?? null;
       this.session.referenceImageShown.set(url !== null && url !== '');
       this.renderer?.setReferenceImage(url);
+    });
+    effect(() => {
+      const highlight = this.highlight();
+      this.renderer?.setHighlight(highlight);
     });
     effect(() => {
       // A newly opened document is shown whole, once.

@@ -83,6 +83,7 @@ export type { GridSnap } from './snapping/snapping';
 /** View maths: document inches to screen pixels and back, grid lines. */
 export { toScreen, toDocument, type Viewport } from './view/viewport';
 export { gridLines, type BoardUnit } from './view/grid-lines';
+export type { BoardHighlight } from './view/board-highlight';
 
 /** The true-size front view of a pattern as SVG text. */
 export { renderFrontViewSvg, type FrontViewSvgOptions } from './preview/front-view-svg';

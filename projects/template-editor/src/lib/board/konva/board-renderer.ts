@@ -1,6 +1,6 @@
 import Konva from 'konva';
 import type { Fabric, PatternDocument, Section } from '@seamwright/piecing';
-import { sectionHandles, toScreen, type BoardEditor, type ToolPreview } from '../../core/public-api';
+import { sectionHandles, toScreen, type BoardEditor, type BoardHighlight, type ToolPreview } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 import { createGridShape, createRulerShape, RULER_PX, type GridView } from './grid-shape';
 import { createSectionNode, rescaleLabels } from './section-node';
@@ -30,6 +30,7 @@ export class BoardRenderer {
   private readonly activeContent = new Konva.Group({ listening: false });
   private readonly referenceContent = new Konva.Group({ listening: false });
   private readonly entries = new Map<string, SectionEntry>();
+  private highlight: BoardHighlight | null = null;
   private referenceImage: Konva.Image | null = null;
   private referenceUrl: string | null = null;
   /** Placement and opacity the trace image was last drawn with. */
@@ -117,6 +118,12 @@ export class BoardRenderer {
       node.opacity(ref.opacity);
     }
     return true;
+  }
+
+  /** Points out paths and marks over the drawing (e.g. the seam of a join), or nothing with null. */
+  setHighlight(highlight: BoardHighlight | null): void {
+    this.highlight = highlight && (highlight.paths.length > 0 || highlight.marks.length > 0) ? highlight : null;
+    this.schedule();
   }
 
   /** Resizes the stage to the editor's size. */
@@ -223,6 +230,7 @@ export class BoardRenderer {
     const ed = this.editor;
     const v = ed.viewport;
     this.overlayLayer.destroyChildren();
+    this.drawHighlight();
     const doc = ed.store.document;
     const selected = activeId ? doc.sections.find((s) => s.id === activeId) : undefined;
     if (selected && ed.tool.id === 'select' && !ed.readOnly) {
@@ -249,6 +257,25 @@ export class BoardRenderer {
     }
     this.overlayLayer.draw();
     this.draws.overlay++;
+  }
+
+  /** The highlight in screen space: a light halo under a bold line, so it reads on any fabric. */
+  private drawHighlight(): void {
+    const h = this.highlight;
+    if (!h) return;
+    const v = this.editor.viewport;
+    for (const path of h.paths) {
+      const points = path.flatMap((p) => {
+        const s = toScreen(v, p);
+        return [s.x, s.y];
+      });
+      this.overlayLayer.add(new Konva.Line({ points, stroke: HIGHLIGHT_HALO, strokeWidth: 10, lineCap: 'round', lineJoin: 'round', listening: false }));
+      this.overlayLayer.add(new Konva.Line({ name: 'highlight', points, stroke: HIGHLIGHT_INK, strokeWidth: 4, lineCap: 'round', lineJoin: 'round', listening: false }));
+    }
+    for (const m of h.marks) {
+      const s = toScreen(v, m);
+      this.overlayLayer.add(new Konva.Circle({ name: 'highlight-mark', x: s.x, y: s.y, radius: 5, fill: HIGHLIGHT_INK, stroke: HIGHLIGHT_HALO, strokeWidth: 2, listening: false }));
+    }
   }
 
   private drawPreview(preview: ToolPreview): void {
@@ -290,6 +317,10 @@ export class BoardRenderer {
     this.stage.destroy();
   }
 }
+
+/** Colours of a highlight: a deep blue none of the board's other marks use, on a paper-coloured halo. */
+const HIGHLIGHT_INK = '#1d4fd8';
+const HIGHLIGHT_HALO = 'rgba(255,253,248,0.9)';
 
 /** Ruler band thickness, re-exported for the board component's pointer maths. */
 export const BOARD_RULER_PX = RULER_PX;
