@@ -1,11 +1,24 @@
 import { cleanRing } from '../geometry/clean-ring';
 import { distanceToEdge, flattenStraightEdges, hasCurvedEdges, sectionEdges, straightSectionSignedArea, type SectionEdge } from '../geometry/curved-edge';
 import { polygonArea } from '../geometry/polygon';
-import { findSelfCrossing } from '../geometry/self-crossing';
+import { checkSelfCrossing, type SelfCrossing } from '../geometry/self-crossing';
 import { formatPoint } from '../geometry/vector';
 import { GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN } from '../tolerance';
 // pattern-schema.ts imports this module too; MAX_SIZE_IN is read only inside functions, so the cycle is harmless.
-import { MAX_SIZE_IN, type Section, type StraightGeometry } from './pattern-schema';
+import { MAX_SIZE_IN, type Point, type Section, type StraightGeometry } from './pattern-schema';
+
+/**
+ * Exact edge-pair comparisons the self-crossing checks of one document may make. Outlines need few (a
+ * 2,000-edge circle none beyond its neighbours' boxes, a flattened curved outline a few thousand); a
+ * star whose hundreds of long spikes share the middle needs hundreds of thousands. The budget keeps the
+ * check of a whole document to tens of milliseconds (bench/save-validation.bench.ts).
+ */
+export const MAX_CROSSING_COMPARISONS = 200_000;
+
+/** What is left of a document's {@link MAX_CROSSING_COMPARISONS}, shared by its sections' checks. */
+export interface CrossingBudget {
+  comparisonsLeft: number;
+}
 
 /** A geometry problem in a document: a path (as in zod issues) and a message. */
 export interface GeometryIssue {
@@ -19,17 +32,24 @@ export interface GeometryIssue {
  * within the size limit, and that seams have a length. Arc and wedge outlines are simple by construction
  * once their radii and sweep are valid.
  */
-export function validateSectionGeometry(section: Pick<Section, 'geometry' | 'seams'>, sectionIndex: number): GeometryIssue[] {
+export function validateSectionGeometry(
+  section: Pick<Section, 'geometry' | 'seams'>,
+  sectionIndex: number,
+  budget: CrossingBudget = { comparisonsLeft: MAX_CROSSING_COMPARISONS },
+): GeometryIssue[] {
   const issues: GeometryIssue[] = [];
   const base: Array<string | number> = ['sections', sectionIndex];
   if (section.geometry.kind === 'straight' && section.geometry.bulges && hasCurvedEdges(section.geometry)) {
-    issues.push(...validateCurvedOutline(section.geometry, [...base, 'geometry']));
+    issues.push(...validateCurvedOutline(section.geometry, [...base, 'geometry'], budget));
   } else if (section.geometry.kind === 'straight') {
     const ring = cleanRing(section.geometry.vertices);
     const path = [...base, 'geometry', 'vertices'];
     // Crossing first: a bow tie's two lobes cancel out and would look like "no area".
-    const crossing = ring.length >= 4 ? findSelfCrossing(ring) : null;
-    if (crossing) {
+    const check = crossingWithin(ring, budget);
+    const crossing = check === 'too-intricate' ? null : check;
+    if (check === 'too-intricate') {
+      issues.push({ path, message: TOO_INTRICATE });
+    } else if (crossing) {
       const n = ring.length;
       const edge = (i: number) => `${formatPoint(ring[i])}–${formatPoint(ring[(i + 1) % n])}`;
       issues.push({
@@ -65,7 +85,7 @@ export function validateSectionGeometry(section: Pick<Section, 'geometry' | 'sea
  * curves reaches past the size limit, and the outline (curves flattened) neither crosses itself nor
  * lacks area. A crossing is reported with its point and the document edges that meet there.
  */
-function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | number>): GeometryIssue[] {
+function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | number>, budget: CrossingBudget): GeometryIssue[] {
   const edges = sectionEdges(geometry);
   const issues: GeometryIssue[] = [];
   for (const edge of edges) {
@@ -81,7 +101,9 @@ function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | 
     return [{ path: [...path, 'bulges', edge.index], message: `${describeEdge(edge)} reaches ${formatPoint(far)}, beyond the ±${MAX_SIZE_IN} in. limit` }];
   }
   const ring = cleanRing(points);
-  const crossing = ring.length >= 4 ? findSelfCrossing(ring) : null;
+  const check = crossingWithin(ring, budget);
+  if (check === 'too-intricate') return [{ path: [...path, 'vertices'], message: TOO_INTRICATE }];
+  const crossing = check;
   if (crossing) {
     const n = ring.length;
     const chordMid = (i: number) => ({ x: (ring[i].x + ring[(i + 1) % n].x) / 2, y: (ring[i].y + ring[(i + 1) % n].y) / 2 });
@@ -94,6 +116,17 @@ function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | 
     return [{ path: [...path, 'vertices'], message: 'outline has no area: its vertices and curves enclose nothing' }];
   }
   return [];
+}
+
+const TOO_INTRICATE =
+  'outline is too intricate to check for crossings (many long edges share one region, like a star of hundreds of spikes): simplify it or split it into sections';
+
+/** The ring's first self-crossing, spending the document's comparison budget; 'too-intricate' when it runs out. */
+function crossingWithin(ring: Point[], budget: CrossingBudget): SelfCrossing | null | 'too-intricate' {
+  if (ring.length < 4) return null;
+  const check = checkSelfCrossing(ring, { maxComparisons: budget.comparisonsLeft });
+  budget.comparisonsLeft -= check.comparisons;
+  return check.complete ? check.crossing : 'too-intricate';
 }
 
 function nearestEdge(edges: readonly SectionEdge[], p: { x: number; y: number }): SectionEdge {
@@ -115,5 +148,6 @@ function describeEdge(edge: SectionEdge): string {
 
 /** {@link validateSectionGeometry} for every section of a document. */
 export function validatePatternGeometry(doc: { sections: ReadonlyArray<Pick<Section, 'geometry' | 'seams'>> }): GeometryIssue[] {
-  return doc.sections.flatMap((s, i) => validateSectionGeometry(s, i));
+  const budget: CrossingBudget = { comparisonsLeft: MAX_CROSSING_COMPARISONS };
+  return doc.sections.flatMap((s, i) => validateSectionGeometry(s, i, budget));
 }
