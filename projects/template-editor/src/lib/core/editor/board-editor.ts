@@ -1,15 +1,16 @@
-import { polygonBounds, type Bounds, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
+import { polygonBounds, type Bounds, type PatternDocument, type Point, type Section, type SectionGeometry } from '@seamwright/piecing';
 import { SectionAnalysis } from '../analysis/section-analysis';
 import { copySections, pasteSections, type SectionClipboard } from '../clipboard/section-clipboard';
 import { NUDGE_DIRECTIONS, nudgeSection, nudgeStepIn } from '../commands/nudge-commands';
 import { deleteSection, findSection } from '../commands/section-commands';
+import { addSeamByValues, addSectionByValues } from '../commands/typed-entry';
 import { snapDirectionDeg, snapSweepDeg } from '../snapping/angle-snap';
 import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTarget } from '../snapping/snapping';
 import { DocumentStore } from '../store/document-store';
 import { createTool } from '../tools/create-tool';
 import type { BoardTool, ToolContext, ToolId } from '../tools/tool';
 import { fitBounds, panBy, toDocument, toScreen, zoomAt, type Viewport } from '../view/viewport';
-import { historyMessage, nudgeMessage, selectionMessage } from './board-announcements';
+import { describeSection, historyMessage, nudgeMessage, selectionMessage } from './board-announcements';
 import { DEFAULT_BOARD_SETTINGS, type BoardSettings } from './board-settings';
 import { actionFor, TOOL_SHORTCUTS, type BoardKey } from './shortcuts';
 
@@ -241,9 +242,13 @@ export class BoardEditor {
     this.changed();
   }
 
-  /** A key press; returns whether the board used it (the caller then prevents the default). */
-  keyDown(e: BoardKey): boolean {
-    if (this.selectionKey(e)) return true;
+  /**
+   * A key press; returns whether the board used it (the caller then prevents the default). The keys
+   * on the selection (arrows, Delete, Escape) act only when `selectionKeys` is on: when the board
+   * itself has focus, not when a key comes from elsewhere in the editor.
+   */
+  keyDown(e: BoardKey, options: { selectionKeys?: boolean } = {}): boolean {
+    if (options.selectionKeys !== false && this.selectionKey(e)) return true;
     const action = actionFor(e);
     if (action) {
       if (action === 'fit') this.fitToContent();
@@ -296,6 +301,36 @@ export class BoardEditor {
     this.announce(`Section ${section.label} deleted`);
     this.changed();
     return true;
+  }
+
+  /**
+   * Adds a section from typed values (one undo step) and selects it; returns the problem in words when
+   * the values make none.
+   */
+  addSectionByValues(geometry: SectionGeometry): { ok: true; sectionId: string } | { ok: false; message: string } {
+    if (this.readOnlyValue) return { ok: false, message: 'the board is read-only' };
+    const r = addSectionByValues(this.store.document, geometry, this.analysis, this.settingsValue.snapToPoints);
+    if (!r.ok) return r;
+    this.store.apply(`Add ${geometry.kind} section`, () => r.document);
+    this.store.select({ sectionId: r.sectionId, patchIndex: null });
+    const added = findSection(this.store.document, r.sectionId);
+    if (added) this.announce(`Section ${describeSection(added, this.analysis)} added`);
+    this.changed();
+    return { ok: true, sectionId: r.sectionId };
+  }
+
+  /** Adds a seam from its two typed ends to the selected section (one undo step). */
+  addSeamByValues(a: Point, b: Point): { ok: true } | { ok: false; message: string } {
+    const id = this.store.selection.sectionId;
+    if (this.readOnlyValue) return { ok: false, message: 'the board is read-only' };
+    if (!id) return { ok: false, message: 'select a section first' };
+    const r = addSeamByValues(this.store.document, id, a, b, this.analysis);
+    if (!r.ok) return r;
+    this.store.apply('Split patch', () => r.document);
+    const s = findSection(this.store.document, id);
+    if (s) this.announce(`Seam added: section ${describeSection(s, this.analysis)}`);
+    this.changed();
+    return { ok: true };
   }
 
   /** Clears the selection; returns whether there was one. */
