@@ -1,5 +1,6 @@
 import type { Config } from './config';
 import type { DatabaseHandle, Db } from './db/database';
+import type { MailOutbox } from './services/mail-outbox';
 import type { Mailer } from './services/mailer';
 import type { PrintSetService } from './services/print-sets';
 
@@ -9,6 +10,8 @@ export interface AppContext {
   database: DatabaseHandle;
   db: Db;
   mailer: Mailer;
+  /** Durable outgoing mail: routes enqueue, a background sender delivers with retries. */
+  mailOutbox: MailOutbox;
   log: (message: string, err?: unknown) => void;
   /** The print-set renderer (worker threads). */
   printSets: PrintSetService;

@@ -4,6 +4,7 @@ import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
 import { openDatabase } from './db/database';
 import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
+import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
 import { startHousekeeping } from './services/housekeeping';
@@ -25,8 +26,10 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
   }
   const printSets = new PrintSetService(database.db, config, log);
-  const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
+  const mailOutbox = new MailOutbox(database.db, mailer, log);
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets };
   printSets.resumeUnfinished();
+  mailOutbox.start();
   const stopHousekeeping = startHousekeeping(database.db, log);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
@@ -48,6 +51,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     clearTimeout(force);
     stopHousekeeping();
     await printSets.close();
+    await mailOutbox.close();
     mailer.close();
     database.close();
   };

@@ -8,6 +8,7 @@ import { createApp } from '../app';
 import type { AppContext } from '../app-context';
 import { loadConfig } from '../config';
 import { openDatabase } from '../db/database';
+import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
 import { PrintSetService } from '../services/print-sets';
 import { sampleBlock } from '../../tests/fixtures/documents';
@@ -40,7 +41,10 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   const errors: unknown[] = [];
   const log = (_m: string, err?: unknown) => errors.push(err);
   const printSets = new PrintSetService(database.db, config, log);
-  const ctx: AppContext = { config, database, db: database.db, mailer, log, printSets };
+  // Retries come quickly in tests; the first attempt always goes at once.
+  const mailOutbox = new MailOutbox(database.db, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
+  mailOutbox.start();
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets };
   const app = createApp(ctx);
   return {
     app,
@@ -49,6 +53,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     dataDir,
     async close() {
       await ctx.printSets.close();
+      await mailOutbox.close();
       mailer.close();
       database.close();
       await mail.close();

@@ -1,0 +1,131 @@
+import { and, asc, eq, isNull, lte } from 'drizzle-orm';
+import type { Db, DbLike } from '../db/database';
+import { mailOutbox } from '../db/schema';
+import { newId } from '../auth/tokens';
+import type { Mailer, OutgoingMail } from './mailer';
+
+/** How the sender retries: delays grow 2× from `firstRetryMs` up to `maxRetryMs`; it gives up after `maxAttempts`. */
+export interface OutboxOptions {
+  /** How often due mail is looked for when nobody wakes the sender. */
+  pollMs: number;
+  firstRetryMs: number;
+  maxRetryMs: number;
+  maxAttempts: number;
+  /** Mails sent per pass. */
+  batch: number;
+}
+
+const DEFAULTS: OutboxOptions = { pollMs: 5_000, firstRetryMs: 5_000, maxRetryMs: 3_600_000, maxAttempts: 10, batch: 20 };
+
+/** Delay before attempt `attempts + 1`, after `attempts` failed ones (exponential backoff with a ceiling). */
+export function retryDelayMs(attempts: number, o: Pick<OutboxOptions, 'firstRetryMs' | 'maxRetryMs'> = DEFAULTS): number {
+  return Math.min(o.maxRetryMs, o.firstRetryMs * 2 ** Math.max(0, attempts - 1));
+}
+
+/**
+ * Durable outgoing mail. A request that decides to send an e-mail only writes a row (inside its own
+ * transaction, so the mail exists exactly when the change that caused it does); the background sender
+ * delivers due rows through the mailer, retrying with backoff, and clears each body once it is sent.
+ * No request ever waits for the mail server, so an answer says nothing about whether mail went out.
+ */
+export class MailOutbox {
+  private readonly options: OutboxOptions;
+  private timer: NodeJS.Timeout | undefined;
+  private draining: Promise<number> | undefined;
+  private again = false;
+  private closed = false;
+
+  constructor(
+    private readonly db: Db,
+    private readonly mailer: Mailer,
+    private readonly log: (message: string, err?: unknown) => void,
+    options: Partial<OutboxOptions> = {},
+  ) {
+    this.options = { ...DEFAULTS, ...options };
+  }
+
+  /** Stores a mail to send; `db` may be the caller's transaction. The sender is woken after the caller returns. */
+  enqueue(db: DbLike, kind: string, mail: OutgoingMail): string {
+    const id = newId();
+    db.insert(mailOutbox)
+      .values({ id, kind, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null, nextAttemptAt: new Date() })
+      .run();
+    // A timer, not a call: the caller's transaction commits before the sender looks.
+    if (!this.closed) setTimeout(() => this.wake(), 0).unref();
+    return id;
+  }
+
+  /** Starts polling for due mail (retries come due while nobody enqueues anything). */
+  start(): void {
+    if (this.timer || this.closed) return;
+    this.timer = setInterval(() => this.wake(), this.options.pollMs);
+    this.timer.unref();
+    this.wake();
+  }
+
+  /** Sends due mail now (one pass at a time; a wake during a pass runs another after it). */
+  wake(): void {
+    if (this.closed) return;
+    if (this.draining) {
+      this.again = true;
+      return;
+    }
+    this.draining = this.drain()
+      .catch((err: unknown) => {
+        this.log('mail outbox: sending failed', err);
+        return 0;
+      })
+      .finally(() => {
+        this.draining = undefined;
+        if (this.again) {
+          this.again = false;
+          this.wake();
+        }
+      });
+  }
+
+  /** One pass: every due mail, oldest first, at most `batch`. Returns how many were sent. */
+  async drain(now = () => Date.now()): Promise<number> {
+    const due = this.db
+      .select()
+      .from(mailOutbox)
+      .where(and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now()))))
+      .orderBy(asc(mailOutbox.nextAttemptAt))
+      .limit(this.options.batch)
+      .all();
+    let sent = 0;
+    for (const row of due) {
+      if (this.closed) break;
+      try {
+        await this.mailer.send({ to: row.to, subject: row.subject, text: row.text, ...(row.html ? { html: row.html } : {}) });
+        // The body goes once delivered: no reset or invitation link stays in the table.
+        this.db.update(mailOutbox).set({ sentAt: new Date(now()), attempts: row.attempts + 1, text: '', html: null, lastError: null }).where(eq(mailOutbox.id, row.id)).run();
+        sent++;
+      } catch (err) {
+        const attempts = row.attempts + 1;
+        const giveUp = attempts >= this.options.maxAttempts;
+        const message = err instanceof Error ? err.message : String(err);
+        this.log(`mail outbox: ${row.kind} mail ${row.id} failed (attempt ${attempts}${giveUp ? ', giving up' : ''})`, err);
+        this.db
+          .update(mailOutbox)
+          .set({
+            attempts,
+            lastError: message.slice(0, 500),
+            nextAttemptAt: new Date(now() + retryDelayMs(attempts, this.options)),
+            failedAt: giveUp ? new Date(now()) : null,
+          })
+          .where(eq(mailOutbox.id, row.id))
+          .run();
+      }
+    }
+    return sent;
+  }
+
+  /** Stops the sender and waits for a pass under way. */
+  async close(): Promise<void> {
+    this.closed = true;
+    if (this.timer) clearInterval(this.timer);
+    this.timer = undefined;
+    await this.draining;
+  }
+}
