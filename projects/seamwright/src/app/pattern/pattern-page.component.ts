@@ -19,6 +19,7 @@ const PARTS: PartLink[] = [
   { path: 'board', label: 'Drafting board', icon: 'draw' },
   { path: 'cutting', label: 'Cutting list', icon: 'content_cut' },
   { path: 'print', label: 'Print', icon: 'print' },
+  { path: 'sew', label: 'Guided sewing', icon: 'play_circle' },
   { path: 'sewing-log', label: 'Sewing log', icon: 'checklist' },
   { path: 'history', label: 'History', icon: 'history' },
   { path: 'share', label: 'Share', icon: 'group', ownerOnly: true },

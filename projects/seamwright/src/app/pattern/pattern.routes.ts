@@ -25,6 +25,7 @@ export const patternRoutes: Routes = [
         title: 'Revision · Seamwright',
       },
       { path: 'sewing-log', loadComponent: () => import('./sewing-log/sewing-log-page.component').then((m) => m.SewingLogPageComponent), title: 'Sewing log · Seamwright' },
+      { path: 'sew', loadComponent: () => import('./guided-sewing/guided-sewing-page.component').then((m) => m.GuidedSewingPageComponent), title: 'Guided sewing · Seamwright' },
       { path: '**', loadComponent: () => import('../not-found/not-found.component').then((m) => m.NotFoundComponent) },
     ],
   },

@@ -164,15 +164,15 @@ describe('PrintSetsService and friends', () => {
     expect(percent(1.2)).toBe(100);
   });
 
-  it('logs a stage with PUT and clears it with null', () => {
+  it('logs a copy\'s stage with PUT and clears it with null', () => {
     const log = TestBed.inject(SewingLogService);
-    log.mark('p1', 'sec-a', 'sewn').subscribe();
+    log.mark('p1', 'sec-a', 3, 'pieced').subscribe();
     const put = ctl.expectOne('/api/patterns/p1/sewing-log/sec-a');
     expect(put.request.method).toBe('PUT');
-    expect(put.request.body).toEqual({ stage: 'sewn' });
-    put.flush({ entry: { sectionId: 'sec-a', stage: 'sewn' } });
-    log.mark('p1', 'sec-a', null).subscribe();
-    expect(ctl.expectOne('/api/patterns/p1/sewing-log/sec-a').request.body).toEqual({ stage: null });
+    expect(put.request.body).toEqual({ stage: 'pieced', copy: 3 });
+    put.flush({ entry: { sectionId: 'sec-a', copy: 3, stage: 'pieced' } });
+    log.mark('p1', 'sec-a', 3, null).subscribe();
+    expect(ctl.expectOne('/api/patterns/p1/sewing-log/sec-a').request.body).toEqual({ stage: null, copy: 3 });
   });
 
   it('accepts an invitation by token and hands back the pattern', () => {

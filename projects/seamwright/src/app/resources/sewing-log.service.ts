@@ -4,7 +4,7 @@ import { Observable, map } from 'rxjs';
 import { API } from '../core/api-paths';
 import type { SewingLogEntry, SewingStage } from '../core/api-types';
 
-/** The signed-in quilter's sewing log for one pattern. */
+/** The signed-in quilter's sewing log for one pattern: a stage per copy of each section. */
 @Injectable({ providedIn: 'root' })
 export class SewingLogService {
   private readonly http = inject(HttpClient);
@@ -13,8 +13,8 @@ export class SewingLogService {
     return this.http.get<{ entries: SewingLogEntry[] }>(API.sewingLog(patternId)).pipe(map((r) => r.entries));
   }
 
-  /** Records the stage a section has reached; `null` clears it. */
-  mark(patternId: string, sectionId: string, stage: SewingStage | null): Observable<SewingLogEntry | null> {
-    return this.http.put<{ entry: SewingLogEntry | null }>(API.sewingLogSection(patternId, sectionId), { stage }).pipe(map((r) => r.entry));
+  /** Records the stage one copy of a section has reached (copies count from 1); `null` clears it. */
+  mark(patternId: string, sectionId: string, copy: number, stage: SewingStage | null): Observable<SewingLogEntry | null> {
+    return this.http.put<{ entry: SewingLogEntry | null }>(API.sewingLogSection(patternId, sectionId), { stage, copy }).pipe(map((r) => r.entry));
   }
 }

@@ -1,4 +1,6 @@
 import { ChangeDetectionStrategy, Component, OnInit, computed, inject, signal } from '@angular/core';
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatIconModule } from '@angular/material/icon';
@@ -7,14 +9,27 @@ import { SewingLogService } from '../../resources/sewing-log.service';
 import { LoadState } from '../../core/load-state';
 import { NotifyService } from '../../core/notify.service';
 import type { SewingLogEntry, SewingStage } from '../../core/api-types';
-import { countAtLeast, patternProgress } from './sewing-progress';
+import { copiesAtLeast, copiesOf, copyKey, patternProgress, stagesFromEntries, stepsDone, totalSteps, type SewnSection } from './sewing-progress';
 
 type Choice = SewingStage | 'none';
 
-/** Sewing log: every section's stage (cut, sewn, trimmed) and the pattern's progress, kept per quilter. */
+/** One section of the log and its copies. */
+interface LoggedSection extends SewnSection {
+  label: string;
+  kind: string;
+  patchCount: number;
+  ringCount: number;
+}
+
+const KIND_NAMES: Record<string, string> = { arc: 'Arc section', wedge: 'Wedge section', straight: 'Straight section' };
+
+/**
+ * Sewing log: the stage each copy of each section has reached (pieced, trimmed, joined; ring repeats ×
+ * blocks copies) and the pattern's progress as the share of all of them, kept per quilter.
+ */
 @Component({
   selector: 'sw-sewing-log-page',
-  imports: [MatButtonToggleModule, MatProgressBarModule, MatIconModule],
+  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatProgressBarModule, MatIconModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './sewing-log-page.component.html',
   styleUrl: './sewing-log-page.component.scss',
@@ -24,37 +39,66 @@ export class SewingLogPageComponent implements OnInit {
   private readonly log = inject(SewingLogService);
   private readonly notify = inject(NotifyService);
   protected readonly state = new LoadState<SewingLogEntry[]>();
-  /** Stages as the quilter has set them on this page (the server's answer plus changes). */
+  /** Stage per copy as the quilter has set it on this page (the server's answer plus changes). */
   protected readonly stages = signal<ReadonlyMap<string, SewingStage>>(new Map());
+  /** The copy being saved, by {@link copyKey}. */
   protected readonly saving = signal<string | null>(null);
-  protected readonly sections = computed(() => this.ctx.document()?.sections ?? []);
-  private readonly ids = computed(() => this.sections().map((s) => s.id));
-  protected readonly progress = computed(() => patternProgress(this.ids(), this.stages()));
+  protected readonly blockCount = computed(() => this.ctx.document()?.blockCount ?? 1);
+  protected readonly sections = computed<LoggedSection[]>(() =>
+    (this.ctx.document()?.sections ?? []).map((s) => ({
+      id: s.id,
+      label: s.label,
+      kind: KIND_NAMES[s.geometry.kind] ?? 'Section',
+      patchCount: s.patches.length,
+      ringCount: s.ringRepeat?.count ?? 1,
+      copies: copiesOf(s, this.blockCount()),
+    })),
+  );
+  protected readonly progress = computed(() => patternProgress(this.sections(), this.stages()));
   protected readonly percentDone = computed(() => Math.round(this.progress() * 100));
-  protected readonly sewn = computed(() => countAtLeast(this.ids(), this.stages(), 'sewn'));
-  protected readonly trimmed = computed(() => countAtLeast(this.ids(), this.stages(), 'trimmed'));
+  protected readonly done = computed(() => stepsDone(this.sections(), this.stages()));
+  protected readonly total = computed(() => totalSteps(this.sections()));
+  protected readonly copyCount = computed(() => this.sections().reduce((n, s) => n + s.copies, 0));
+  protected readonly pieced = computed(() => copiesAtLeast(this.sections(), this.stages(), 'pieced'));
+  protected readonly trimmed = computed(() => copiesAtLeast(this.sections(), this.stages(), 'trimmed'));
+  protected readonly joined = computed(() => copiesAtLeast(this.sections(), this.stages(), 'joined'));
 
   ngOnInit(): void {
-    this.state.run(this.log.get(this.ctx.id()), (entries) => this.stages.set(new Map(entries.map((e) => [e.sectionId, e.stage]))));
+    this.state.run(this.log.get(this.ctx.id()), (entries) => this.stages.set(stagesFromEntries(entries)));
   }
 
-  protected stageOf(sectionId: string): Choice {
-    return this.stages().get(sectionId) ?? 'none';
+  protected copyNumbers(s: LoggedSection): number[] {
+    return Array.from({ length: s.copies }, (_, i) => i + 1);
   }
 
-  protected set(sectionId: string, label: string, choice: Choice): void {
+  /** "copy 11 of 16 (block 2)": which block a copy belongs to when the pattern is made more than once. */
+  protected copyName(s: LoggedSection, copy: number): string {
+    const block = this.blockCount() > 1 ? ` (block ${Math.ceil(copy / s.ringCount)})` : '';
+    return `copy ${copy} of ${s.copies}${block}`;
+  }
+
+  protected countAtLeast(s: LoggedSection, stage: SewingStage): number {
+    return copiesAtLeast([s], this.stages(), stage);
+  }
+
+  protected stageOf(sectionId: string, copy: number): Choice {
+    return this.stages().get(copyKey(sectionId, copy)) ?? 'none';
+  }
+
+  protected set(s: LoggedSection, copy: number, choice: Choice): void {
+    const key = copyKey(s.id, copy);
     const before = this.stages();
     const next = new Map(before);
-    if (choice === 'none') next.delete(sectionId);
-    else next.set(sectionId, choice);
+    if (choice === 'none') next.delete(key);
+    else next.set(key, choice);
     this.stages.set(next);
-    this.saving.set(sectionId);
-    this.log.mark(this.ctx.id(), sectionId, choice === 'none' ? null : choice).subscribe({
+    this.saving.set(key);
+    this.log.mark(this.ctx.id(), s.id, copy, choice === 'none' ? null : choice).subscribe({
       next: () => this.saving.set(null),
       error: (err: unknown) => {
         this.saving.set(null);
         this.stages.set(before);
-        this.notify.error(err, `Section ${label} not logged`);
+        this.notify.error(err, `Section ${s.label}, ${this.copyName(s, copy)} not logged`);
       },
     });
   }
