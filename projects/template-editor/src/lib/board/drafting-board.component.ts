@@ -9,13 +9,20 @@ import {
   input,
   viewChild,
 } from '@angular/core';
+import { MatDialog } from '@angular/material/dialog';
 import { BoardRenderer } from './konva/board-renderer';
 import type { BoardHighlight } from '../core/public-api';
+import { boardKeysSentence } from '../keyboard-help/board-keys';
+import { openKeyboardHelp } from '../keyboard-help/open-keyboard-help';
 import { EditorSession } from '../session/editor-session';
+
+let nextBoardId = 0;
 
 /**
  * The Drafting board: a Konva stage showing the session's pattern. Pointer, wheel and key events go
- * to the editor core; the renderer draws what the core holds. Focus the board to use the shortcuts.
+ * to the editor core; the renderer draws what the core holds. The board is one Tab stop named
+ * "Drafting board", described by its keys: arrows nudge the selection, Delete removes it, Escape
+ * clears it, `?` opens the keyboard help, Tab leaves.
  */
 @Component({
   selector: 'sw-drafting-board',
@@ -27,6 +34,7 @@ import { EditorSession } from '../session/editor-session';
     aria-label="Drafting board"
     aria-roledescription="drawing board"
     tabindex="0"
+    [attr.aria-describedby]="keysId"
     [attr.data-tool]="session.toolId()"
     [attr.data-tool-state]="session.toolState()"
     (pointerdown)="onPointerDown($event)"
@@ -36,11 +44,13 @@ import { EditorSession } from '../session/editor-session';
     (pointerleave)="onPointerLeave()"
     (keydown)="onKeyDown($event)"
     (contextmenu)="$event.preventDefault()"
-  ></div>`,
+  ></div>
+  <p class="keys" [id]="keysId">{{ keysText }}</p>`,
   styles: `
     :host { display: block; position: relative; min-height: 0; }
     .board-host { position: absolute; inset: 0; outline: none; touch-action: none; cursor: crosshair; overflow: hidden; }
-    .board-host:focus-visible { box-shadow: inset 0 0 0 2px #1f7a8c; }
+    .board-host:focus-visible { box-shadow: inset 0 0 0 3px var(--mat-sys-primary); }
+    .keys { position: absolute; width: 1px; height: 1px; margin: -1px; padding: 0; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap; border: 0; }
     .board-host[data-tool='pan'] { cursor: grab; }
     .board-host[data-tool='select'] { cursor: default; }
   `,
@@ -52,6 +62,10 @@ export class DraftingBoardComponent {
   readonly highlight = input<BoardHighlight | null>(null);
 
   protected readonly session = inject(EditorSession);
+  private readonly dialog = inject(MatDialog);
+  /** Id of the hidden text that lists the board's keys (its description). */
+  protected readonly keysId = `sw-board-keys-${nextBoardId++}`;
+  protected readonly keysText = boardKeysSentence();
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
   private renderer?: BoardRenderer;
   private resizeObserver?: ResizeObserver;
@@ -167,6 +181,13 @@ export class DraftingBoardComponent {
   }
 
   protected onKeyDown(e: KeyboardEvent): void {
+    if (e.key === '?' && !e.ctrlKey && !e.metaKey && !e.altKey) {
+      e.preventDefault();
+      openKeyboardHelp(this.dialog);
+      return;
+    }
+    // Tab always leaves the board (no keyboard trap).
+    if (e.key === 'Tab') return;
     if (this.session.editor.keyDown(e)) e.preventDefault();
   }
 

@@ -5,7 +5,9 @@ import { diffValues } from '../core/public-api';
 import { PatternSettingsPanelComponent } from '../pattern-settings/pattern-settings-panel.component';
 import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
 import { PropertiesPanelComponent } from '../properties/properties-panel.component';
+import { SectionsOutlineComponent } from '../outline/sections-outline.component';
 import { EditorSession } from '../session/editor-session';
+import { TypedEntryPanelComponent } from '../typed-entry/typed-entry-panel.component';
 import { BoardStatusComponent } from '../status/board-status.component';
 import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
 
@@ -24,7 +26,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
   selector: 'sw-pattern-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [EditorSession],
-  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent],
+  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent, SectionsOutlineComponent, TypedEntryPanelComponent],
   template: `
     <sw-board-toolbar class="toolbar" />
     <div class="body">
@@ -33,9 +35,14 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
         <sw-board-status />
       </div>
       <aside class="side" aria-label="Section details">
+        <sw-sections-outline />
         <sw-properties-panel />
         <sw-piecing-order />
         @if (!readOnly()) {
+          <details class="settings">
+            <summary>Add by values</summary>
+            <sw-typed-entry-panel />
+          </details>
           <details class="settings">
             <summary>Pattern settings</summary>
             <sw-pattern-settings-panel />
@@ -129,6 +136,7 @@ export class PatternEditorComponent {
     if (e.defaultPrevented) return;
     const t = e.target as HTMLElement | null;
     if (t && (t.closest('input, textarea, select, [contenteditable="true"], mat-select, .mat-mdc-select') !== null)) return;
-    if (this.session.editor.keyDown(e)) e.preventDefault();
+    // Arrows, Delete and Escape act on the selection only from the board itself.
+    if (this.session.editor.keyDown(e, { selectionKeys: false })) e.preventDefault();
   }
 }
