@@ -26,12 +26,23 @@ function limiter(config: Config, limit: number, key: (req: Request) => string, o
 
 /**
  * Rate limits for sign-in (failed attempts) and password-reset requests, per account and per address,
- * and for sign-ups (every attempt: each costs a password hash) per address.
+ * and for sign-ups (every attempt: each costs a password hash) per address. Reset confirmations count
+ * refused ones with the reset limits, per address and per account (the account a token belongs to,
+ * from `resetAccountKey`; an unknown token counts as its own); wrong current passwords at
+ * change-password count with the sign-in limits, per signed-in account and per address.
  */
-export function createRateLimits(config: Config) {
+export function createRateLimits(config: Config, resetAccountKey: (req: Request) => string) {
   const address = (req: Request) => ipKeyGenerator(req.ip ?? '0.0.0.0');
   const l = config.limits;
   return {
+    resetConfirm: [
+      limiter(config, l.resetPerAddress, (r) => `ip:${address(r)}`, true),
+      limiter(config, l.resetPerAccount, (r) => `acct:${resetAccountKey(r)}`, true),
+    ],
+    changePassword: [
+      limiter(config, l.signInPerAddress, (r) => `ip:${address(r)}`, true),
+      limiter(config, l.signInPerAccount, (r) => `user:${r.user?.id ?? ''}`, true),
+    ],
     signIn: [
       limiter(config, l.signInPerAddress, (r) => `ip:${address(r)}`, true),
       limiter(config, l.signInPerAccount, (r) => `acct:${accountKey(r)}`, true),

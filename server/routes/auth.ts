@@ -1,5 +1,5 @@
 import { and, eq, gt, isNull } from 'drizzle-orm';
-import express, { type Router } from 'express';
+import express, { type Request, type Router } from 'express';
 import {
   changePasswordBodySchema,
   resetConfirmBodySchema,
@@ -13,6 +13,7 @@ import { decoyHash, hashPassword, verifyPassword } from '../auth/passwords';
 import { createRateLimits } from '../auth/rate-limits';
 import { currentUser, endSession, endUserSessions, publicUser, requireUser, startSession } from '../auth/sessions';
 import { hashToken, newId, randomToken } from '../auth/tokens';
+import type { DbLike } from '../db/database';
 import { passwordResets, sessions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
@@ -20,11 +21,27 @@ import { passwordResetMail } from '../services/mail-templates';
 
 const RESET_MS = 60 * 60_000;
 
+/** Marks every outstanding reset token of an account used (after a reset or a password change). */
+function revokeResetTokens(db: DbLike, userId: string): void {
+  db.update(passwordResets)
+    .set({ usedAt: new Date() })
+    .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)))
+    .run();
+}
+
 /** Accounts and sessions: `/api/auth/…`. */
 export function authRouter(ctx: AppContext, csrf: Csrf): Router {
   const { db, config } = ctx;
   const router = express.Router();
-  const limits = createRateLimits(config);
+  // A reset confirmation counts against the account its token belongs to; an unknown token is its own key.
+  const resetAccountKey = (req: Request) => {
+    const token: unknown = (req.body as { token?: unknown } | undefined)?.token;
+    if (typeof token !== 'string' || token.length > 200) return 'malformed';
+    const tokenHash = hashToken(token);
+    const row = db.select({ userId: passwordResets.userId }).from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).get();
+    return row ? row.userId : `token:${tokenHash}`;
+  };
+  const limits = createRateLimits(config, resetAccountKey);
   const decoy = decoyHash(config.bcryptRounds);
 
   router.get('/csrf', (req, res) => {
@@ -87,7 +104,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     res.json({ user: publicUser(currentUser(req)) });
   });
 
-  router.post('/change-password', requireUser, async (req, res) => {
+  router.post('/change-password', requireUser, ...limits.changePassword, async (req, res) => {
     const body = parseOr400(changePasswordBodySchema, req.body);
     const user = currentUser(req);
     if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
@@ -95,49 +112,67 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     }
     const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
     db.transaction((tx) => {
-      tx.update(users).set({ passwordHash }).where(eq(users.id, user.id)).run();
+      const changed = tx.update(users).set({ passwordHash }).where(eq(users.id, user.id)).run().changes;
+      if (changed !== 1) throw new HttpError(404, 'This account no longer exists');
       endUserSessions(tx, user.id, req.sessionTokenHash);
+      // A reset link asked for before the change must not undo it.
+      revokeResetTokens(tx, user.id);
     });
     res.json({ ok: true });
   });
 
-  router.post('/password-reset', ...limits.reset, async (req, res) => {
+  router.post('/password-reset', ...limits.reset, (req, res) => {
     const body = parseOr400(resetRequestBodySchema, req.body);
     const user = db.select().from(users).where(eq(users.email, body.email)).get();
     if (user && !user.disabled) {
       const token = randomToken();
       const now = Date.now();
-      db.insert(passwordResets)
-        .values({ tokenHash: hashToken(token), userId: user.id, createdAt: new Date(now), expiresAt: new Date(now + RESET_MS) })
-        .run();
       const link = `${config.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
-      try {
-        await ctx.mailer.send({ to: user.email, ...passwordResetMail(user.displayName, link) });
-      } catch (err) {
-        ctx.log('password-reset mail failed', err);
-        throw new HttpError(503, 'The e-mail could not be sent; try again later');
-      }
+      // The token and its mail are stored together; the outbox sends it after this answer, so the
+      // answer's status and time are the same whether the address has an account or mail is down.
+      db.transaction((tx) => {
+        tx.insert(passwordResets)
+          .values({ tokenHash: hashToken(token), userId: user.id, createdAt: new Date(now), expiresAt: new Date(now + RESET_MS) })
+          .run();
+        ctx.mailOutbox.enqueue(tx, 'password-reset', { to: user.email, ...passwordResetMail(user.displayName, link) });
+      });
     }
     res.status(202).json({ ok: true });
   });
 
-  router.post('/password-reset/confirm', async (req, res) => {
+  router.post('/password-reset/confirm', ...limits.resetConfirm, async (req, res) => {
     const body = parseOr400(resetConfirmBodySchema, req.body);
     const tokenHash = hashToken(body.token);
-    const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
-    const done = db.transaction((tx) => {
-      const reset = tx
+    const refused = () =>
+      new HttpError(400, 'This reset link is invalid or has expired', [{ path: 'token', message: 'invalid or expired' }]);
+    const liveReset = () =>
+      db
         .select()
         .from(passwordResets)
         .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
         .get();
-      if (!reset) return false;
-      tx.update(passwordResets).set({ usedAt: new Date() }).where(eq(passwordResets.tokenHash, tokenHash)).run();
-      tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId)).run();
-      endUserSessions(tx, reset.userId);
-      return true;
-    });
-    if (!done) throw new HttpError(400, 'This reset link is invalid or has expired', [{ path: 'token', message: 'invalid or expired' }]);
+    // The token first: a bogus one is refused without paying for a password hash.
+    if (!liveReset()) throw refused();
+    const passwordHash = await hashPassword(body.newPassword, config.bcryptRounds);
+    const done = db.transaction(
+      (tx) => {
+        // Looked up again inside the write: another confirmation may have used it while we hashed.
+        const reset = tx
+          .select()
+          .from(passwordResets)
+          .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
+          .get();
+        if (!reset) return false;
+        const changed = tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId)).run().changes;
+        if (changed !== 1) return false;
+        // This token and every other outstanding one of the account are spent.
+        revokeResetTokens(tx, reset.userId);
+        endUserSessions(tx, reset.userId);
+        return true;
+      },
+      { behavior: 'immediate' },
+    );
+    if (!done) throw refused();
     res.json({ ok: true });
   });
 
