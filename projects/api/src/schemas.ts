@@ -184,9 +184,10 @@ export interface SaveVersionBody {
 
 // ── Sharing ─────────────────────────────────────────────────────────────────────────────────────────
 
+/** A member; `email` only for the owner and co-designers (docs/api.md, sharing). */
 export const memberSchema = z.strictObject({
   userId: id,
-  email: z.string(),
+  email: z.string().optional(),
   displayName: z.string(),
   access: memberAccessSchema,
   createdAt: isoTime,
@@ -204,7 +205,7 @@ export type Invitation = z.infer<typeof invitationSchema>;
 export const invitationAnswerSchema = z.strictObject({ invitation: invitationSchema });
 
 export const membersAnswerSchema = z.strictObject({
-  owner: z.strictObject({ id, email: z.string(), displayName: z.string() }),
+  owner: z.strictObject({ id, email: z.string().optional(), displayName: z.string() }),
   members: z.array(memberSchema),
   invitations: z.array(invitationSchema),
 });
