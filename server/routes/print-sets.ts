@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
-import express, { type Router } from 'express';
+import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
 import { printOptionsSchema } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
@@ -11,6 +11,7 @@ import { HttpError, zodDetails } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { removeStoredFiles, resolveInData } from '../services/files';
+import { isShopBuyer } from '../services/access';
 import { findRevision } from '../services/revisions';
 
 
@@ -49,13 +50,19 @@ export function printSetsRouter(ctx: AppContext): Router {
   const { db, config } = ctx;
   const router = express.Router({ mergeParams: true });
 
-  const findSet = (patternId: string, raw: unknown) => {
+  // A shop buyer reaches only their own print sets (issue 15: buyers never see each other).
+  const onlyBy = (req: Request, res: Response): string | undefined => {
+    const user = currentUser(req);
+    return isShopBuyer(db, patternOf(res), user.id) ? user.id : undefined;
+  };
+
+  const findSet = (patternId: string, raw: unknown, createdBy?: string) => {
     const setId = parseOr400(idSchema, raw, 'Invalid print-set id');
     const row = db
       .select({ set: printSets, creatorName: users.displayName })
       .from(printSets)
       .innerJoin(users, eq(users.id, printSets.createdBy))
-      .where(and(eq(printSets.id, setId), eq(printSets.patternId, patternId)))
+      .where(and(eq(printSets.id, setId), eq(printSets.patternId, patternId), createdBy ? eq(printSets.createdBy, createdBy) : undefined))
       .get();
     if (!row) throw new HttpError(404, 'Print set not found');
     return row;
@@ -109,7 +116,7 @@ export function printSetsRouter(ctx: AppContext): Router {
       .select({ set: printSets, creatorName: users.displayName })
       .from(printSets)
       .innerJoin(users, eq(users.id, printSets.createdBy))
-      .where(eq(printSets.patternId, pattern.id))
+      .where(and(eq(printSets.patternId, pattern.id), ((by) => (by ? eq(printSets.createdBy, by) : undefined))(onlyBy(req, res))))
       .orderBy(desc(printSets.createdAt), desc(printSets.id))
       .all();
     res.json({ items: rows.map((r) => printSetJson(r.set, r.creatorName)) });
@@ -117,13 +124,13 @@ export function printSetsRouter(ctx: AppContext): Router {
 
   router.get('/:setId', (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId);
+    const row = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     res.json({ printSet: printSetJson(row.set, row.creatorName) });
   });
 
   router.get('/:setId/events', (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId);
+    const row = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
     const send = (s: PrintSet) => res.write(`event: progress\ndata: ${JSON.stringify(printSetJson(s, row.creatorName))}\n\n`);
     const terminal = (s: PrintSet) => s.status === 'done' || s.status === 'failed';
@@ -144,7 +151,7 @@ export function printSetsRouter(ctx: AppContext): Router {
 
   router.get('/:setId/file', (req, res, next) => {
     const { pattern } = patternOf(res);
-    const { set } = findSet(pattern.id, req.params.setId);
+    const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     if (set.status !== 'done' || !set.storagePath) {
       throw new HttpError(409, set.status === 'failed' ? 'This print set failed to render' : 'This print set is not ready yet', {
         status: set.status,
@@ -165,7 +172,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   router.delete('/:setId', async (req, res) => {
     const { pattern, access } = patternOf(res);
     const user = currentUser(req);
-    const { set } = findSet(pattern.id, req.params.setId);
+    const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
     db.delete(printSets).where(eq(printSets.id, set.id)).run();
     await removeStoredFiles(config.dataDir, [set.storagePath]);
