@@ -8,6 +8,7 @@ import { invitations, members, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
+import { isShopBuyer, seesAddresses } from '../services/access';
 import { invitationMail } from '../services/mail-templates';
 
 
@@ -17,13 +18,18 @@ export function membersRouter(ctx: AppContext): Router {
   const router = express.Router({ mergeParams: true });
 
   router.get('/members', (req, res) => {
-    const { pattern, access } = patternOf(res);
+    const found = patternOf(res);
+    const { pattern, access } = found;
+    const user = currentUser(req);
+    const addresses = seesAddresses(access);
+    // A shop buyer sees the owner and themselves only: buyers never learn about each other.
+    const buyer = isShopBuyer(db, found, user.id);
     const owner = db.select().from(users).where(eq(users.id, pattern.ownerId)).get();
     const rows = db
       .select({ m: members, email: users.email, displayName: users.displayName })
       .from(members)
       .innerJoin(users, eq(users.id, members.userId))
-      .where(eq(members.patternId, pattern.id))
+      .where(and(eq(members.patternId, pattern.id), buyer ? eq(members.userId, user.id) : undefined))
       .orderBy(members.createdAt)
       .all();
     const pending =
@@ -42,10 +48,10 @@ export function membersRouter(ctx: AppContext): Router {
             .all()
         : [];
     res.json({
-      owner: owner ? { id: owner.id, email: owner.email, displayName: owner.displayName } : null,
+      owner: owner ? { id: owner.id, ...(addresses ? { email: owner.email } : {}), displayName: owner.displayName } : null,
       members: rows.map((r) => ({
         userId: r.m.userId,
-        email: r.email,
+        ...(addresses ? { email: r.email } : {}),
         displayName: r.displayName,
         access: r.m.access,
         createdAt: r.m.createdAt.toISOString(),
@@ -54,35 +60,33 @@ export function membersRouter(ctx: AppContext): Router {
     });
   });
 
-  router.post('/invitations', async (req, res) => {
+  router.post('/invitations', (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const user = currentUser(req);
     const body = parseOr400(invitationBodySchema, req.body);
     if (body.email === user.email) throw new HttpError(400, 'You own this pattern already', [{ path: 'email', message: 'is your own address' }]);
     const token = randomToken();
     const now = Date.now();
-    const invitation = db
-      .insert(invitations)
-      .values({
-        id: newId(),
-        tokenHash: hashToken(token),
-        patternId: pattern.id,
-        email: body.email,
-        access: body.access,
-        invitedBy: user.id,
-        createdAt: new Date(now),
-        expiresAt: new Date(now + config.invitationDays * 86_400_000),
-      })
-      .returning()
-      .get();
     const link = `${config.publicUrl}/invitations/accept?token=${encodeURIComponent(token)}`;
-    try {
-      await ctx.mailer.send({ to: body.email, ...invitationMail(user.displayName, pattern.title, body.access, link, config.invitationDays) });
-    } catch (err) {
-      ctx.log('invitation mail failed', err);
-      db.delete(invitations).where(eq(invitations.id, invitation.id)).run();
-      throw new HttpError(503, 'The invitation e-mail could not be sent; try again later');
-    }
+    // The invitation and its mail are stored together; the outbox delivers it (with retries).
+    const invitation = db.transaction((tx) => {
+      const rows = tx
+        .insert(invitations)
+        .values({
+          id: newId(),
+          tokenHash: hashToken(token),
+          patternId: pattern.id,
+          email: body.email,
+          access: body.access,
+          invitedBy: user.id,
+          createdAt: new Date(now),
+          expiresAt: new Date(now + config.invitationDays * 86_400_000),
+        })
+        .returning()
+        .all();
+      ctx.mailOutbox.enqueue(tx, 'invitation', { to: body.email, ...invitationMail(user.displayName, pattern.title, body.access, link, config.invitationDays) });
+      return rows[0];
+    });
     res.status(201).json({ invitation: invitationJson(invitation) });
   });
 

@@ -1,7 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
-import { members, patterns, type Pattern, type User } from '../db/schema';
+import { members, orders, patterns, type Pattern, type User } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema } from '../http/validate';
 
@@ -63,6 +63,22 @@ export function resolvePatternAccess(db: DbLike, user: User | undefined, pattern
   checkNeed(found.access, need);
   return found;
 }
+
+/**
+ * Whether a quilter's access came from buying the pattern in the shop: such buyers see only the
+ * owner and their own membership and print sets, never other buyers (docs/api.md, sharing).
+ */
+export function isShopBuyer(db: DbLike, found: PatternAccess, userId: string): boolean {
+  if (found.access !== 'quilter') return false;
+  return !!db
+    .select({ id: orders.id })
+    .from(orders)
+    .where(and(eq(orders.buyerId, userId), eq(orders.patternId, found.pattern.id), eq(orders.grantedAccess, true)))
+    .get();
+}
+
+/** Whether the caller may see the e-mail addresses of a pattern's owner and members. */
+export const seesAddresses = (access: Access) => access === 'owner' || access === 'co-designer';
 
 /** Whether the user's account role may create patterns. */
 export const canDesign = (user: User) => user.role === 'designer' || user.role === 'admin';
