@@ -184,14 +184,14 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await expect(new PatternPage(q).parts().getByRole('tab').filter({ hasText: 'Share' })).toHaveCount(0);
   await shot(q, 'board-read-only');
 
-  // --- Logs a section as sewn; the log survives a reload.
+  // --- Logs the section's one copy as trimmed (2 of its 3 stages); the log survives a reload.
   const qPattern = new PatternPage(q);
   await qPattern.open('Sewing log');
   const log = new SewingLogPage(q);
-  await log.mark('A', 'Sewn');
+  await log.mark('A', 'Trimmed');
   await expect(log.progress()).toHaveAttribute('aria-valuenow', '67');
   await q.reload();
-  await expect(log.stageOf('A', 'Sewn')).toHaveAttribute('aria-checked', 'true');
+  await expect(log.stageOf('A', 'Trimmed')).toHaveAttribute('aria-checked', 'true');
   await shot(q, 'sewing-log');
 
   // --- Scale check: 15/16 in. on the 1 in. square is a shrunk print; 1 in. is true.

@@ -1,15 +1,22 @@
 import { type Page } from '@playwright/test';
 
-/** The Sewing log part. */
+export type SewingStageName = 'Not started' | 'Pieced' | 'Trimmed' | 'Joined';
+
+/** The Sewing log part: a stage per copy of each section, and the pattern's progress. */
 export class SewingLogPage {
   constructor(private readonly page: Page) {}
 
-  async mark(sectionLabel: string, stage: 'Not started' | 'Cut' | 'Sewn' | 'Trimmed'): Promise<void> {
-    await this.page.getByRole('radiogroup', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage }).click();
+  /** The stage buttons of one copy of a section (copies count from 1). */
+  copy(sectionLabel: string, copy = 1) {
+    return this.page.getByRole('radiogroup', { name: new RegExp(`^Stage of section ${sectionLabel}, copy ${copy} of \\d+`) });
   }
 
-  stageOf(sectionLabel: string, stage: string) {
-    return this.page.getByRole('radiogroup', { name: `Stage of section ${sectionLabel}` }).getByRole('radio', { name: stage });
+  async mark(sectionLabel: string, stage: SewingStageName, copy = 1): Promise<void> {
+    await this.copy(sectionLabel, copy).getByRole('radio', { name: stage }).click();
+  }
+
+  stageOf(sectionLabel: string, stage: SewingStageName, copy = 1) {
+    return this.copy(sectionLabel, copy).getByRole('radio', { name: stage });
   }
 
   progress() {
