@@ -19,7 +19,7 @@ describe('print set of a corner whose edge follows a ring', () => {
     // Tabloid holds the 8½ in. corner whole, so its sewing line is one closed path on one sheet.
     const result = await renderPrintSet(document, { paper: 'tabloid', createdAt: '2026-12-01T12:00:00Z', fonts: readShippedFonts() });
     const { pages } = await inspectPdf(result.pdf);
-    const areas = pages.slice(1, result.templateSheetCount + 1).flatMap((page) =>
+    const areas = pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount).flatMap((page) =>
       page.paths.filter(isSewing).flatMap((p) => p.subpaths.filter((s) => s.closed && s.points.length >= 3).map((s) => Math.abs(signedAreaPt(s.points)) / PT_PER_SQ_IN)),
     );
     // Standard mensuration: 64 − 25π/4 ≈ 44.37 sq in. for the corner (with the chord instead of the curve it

@@ -19,7 +19,7 @@ describe('print set of the demo medallion "Orchard Wheel" on Letter', () => {
   beforeAll(async () => {
     result = await renderPrintSet(document, { paper: 'letter', createdAt: '2026-12-01T00:00:00Z', fonts: readShippedFonts() });
     ({ pages } = await inspectPdf(result.pdf));
-  });
+  }, 30_000);
 
   it('has 8.5 × 11 in. sheets (612 × 792 pt, ANSI/ASME Y14.1), each with both test squares', () => {
     for (const page of pages) {
@@ -39,7 +39,7 @@ describe('print set of the demo medallion "Orchard Wheel" on Letter', () => {
       return { id: s.id, areaPt: polygonArea(line) * 72 * 72, sign: Math.sign(signedArea(line)) };
     });
     const seen = new Map<string, number>();
-    for (const page of pages.slice(1, result.templateSheetCount + 1)) {
+    for (const page of pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount)) {
       for (const path of page.paths.filter(isSewing)) {
         for (const s of path.subpaths.filter((sp) => sp.closed)) {
           const a = signedAreaPt(s.points);
@@ -59,7 +59,7 @@ describe('print set of the demo medallion "Orchard Wheel" on Letter', () => {
 
   it('keeps every cutting line inside the ½ in. margins (or clipped to a tile inside them)', () => {
     const m = 36;
-    for (const page of pages.slice(1, result.templateSheetCount + 1)) {
+    for (const page of pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount)) {
       const inside = (x: number, y: number) => x >= m - 0.01 && x <= page.width - m + 0.01 && y >= m - 0.01 && y <= page.height - m + 0.01;
       for (const path of page.paths.filter(isCutting)) {
         const pts = path.clips.length ? [rectangleSides(path.clips[path.clips.length - 1])!].flatMap((r) => [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y + r.height }]) : path.subpaths.flatMap((s) => s.points);

@@ -1,7 +1,8 @@
 import type { PatternDocument } from '../document/index';
 import { PRINT_CAUTIONS } from './cautions';
-import { fmtIn } from './draw-appendix';
+import { fmtIn } from './format-inches';
 import { drawArrow, TEMPLATE_STYLES } from './draw-template';
+import { CENTRE_LINE_STYLE } from './piece-templates/draw-piece-templates';
 import type { PrintLayout } from './layout-types';
 import { PAPER_SIZES } from './paper';
 import type { PdfPen, StrokeStyle } from './pdf-pen';
@@ -31,7 +32,7 @@ export function drawCover(
 ): void {
   const right = { x: frame.testBlock.x + frame.testBlock.width + 0.3, y: frame.content.y };
   pen.text(document.title, { x: right.x, y: right.y + 0.32 }, { sizePt: 20, bold: true });
-  pen.text('Print set', { x: right.x, y: right.y + 0.58 }, { sizePt: 12 });
+  pen.text('How to print', { x: right.x, y: right.y + 0.58 }, { sizePt: 12 });
   pen.text(`Templates: ${sheetCountStatement(layout)}`, { x: right.x, y: right.y + 0.9 }, { sizePt: 12, bold: true });
 
   let full = false;
@@ -39,11 +40,14 @@ export function drawCover(
     full = true;
     return frame;
   }, frame);
-  const appendix = pageCount - 1 - layout.templateSheetCount;
+  const firstTemplate = layout.sheets[0]?.pageNumber ?? pageCount + 1;
+  const lastTemplate = firstTemplate + layout.templateSheetCount - 1;
+  const after = pageCount - lastTemplate;
   flow.paragraph(
-    `${pageCount} sheets in all: this cover, ${layout.templateSheetCount} template ${layout.templateSheetCount === 1 ? 'sheet' : 'sheets'} ` +
-      `(sheets 2–${layout.templateSheetCount + 1}) and ${appendix} ${appendix === 1 ? 'sheet' : 'sheets'} of fabric key, strip sets and cautions. ` +
-      `The area of all templates needs at least ${layout.lowerBoundSheets} ${layout.lowerBoundSheets === 1 ? 'sheet' : 'sheets'}.`,
+    `${pageCount} sheets in all: the cover, this sheet, the booklet (sheets 3–${firstTemplate - 1}: cutting, piecing, trimming, joining, notes and cautions), ` +
+      `${layout.templateSheetCount} template ${layout.templateSheetCount === 1 ? 'sheet' : 'sheets'} (${layout.templateSheetCount === 1 ? `sheet ${firstTemplate}` : `sheets ${firstTemplate}–${lastTemplate}`})` +
+      (after > 0 ? ` and ${after} ${after === 1 ? 'sheet' : 'sheets'} of piece templates.` : '.') +
+      ` The area of all templates needs at least ${layout.lowerBoundSheets} ${layout.lowerBoundSheets === 1 ? 'sheet' : 'sheets'}.`,
   );
   flow.paragraph(
     `Paper: ${PAPER_SIZES[options.paper].displayName}, margins ${fmtIn(options.marginIn)} in. · ` +
@@ -67,6 +71,7 @@ export function drawCover(
     ['Cutting line: seam allowance included', TEMPLATE_STYLES.cutting],
     ['Guide line: where a strip-set seam must land', TEMPLATE_STYLES.guide],
     ['Matching mark: line it up with the neighbouring section', TEMPLATE_STYLES.matching],
+    ['Centre line (piece templates): the middle of a stripe lands here', CENTRE_LINE_STYLE],
   ];
   for (const [label, style] of legend) {
     const at = flow.block(0.2);

@@ -13,12 +13,17 @@ export interface SheetHeading {
   pageCount: number;
   /** Second line: the sections on the sheet, or what the sheet holds. */
   subtitle: string;
-  /** Small note at the right of the second line (mirroring). */
+  /** Small note at the right of the third line (mirroring). */
   note?: string;
+  /** Small note at the right of the second line, under the sheet number (the copies rule of the sheet). */
+  aside?: string;
+  /** Shown in bold red in place of the subtitle: a section on the sheet is not sewable as numbered. */
+  warning?: string;
 }
 
 const INK = '#000000';
 const MUTED = '#444444';
+const WARNING = '#b3261e';
 
 /** Draws the header band and the test-square block of a sheet. */
 export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHeading): void {
@@ -28,7 +33,9 @@ export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHea
   pen.text(sheetLabel, { x: right, y: h.y + 0.17 }, { sizePt: 11, bold: true, align: 'right' });
   // Left 45 %: title and subtitle; the middle is kept for tile maps; right: sheet number and notes.
   pen.text(fitText(pen, heading.title, h.width * 0.45, 11, true), { x: h.x, y: h.y + 0.17 }, { sizePt: 11, bold: true });
-  pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, colour: MUTED });
+  if (heading.warning) pen.text(fitText(pen, heading.warning, h.width * 0.45, 8, true), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, bold: true, colour: WARNING });
+  else pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, colour: MUTED });
+  if (heading.aside) pen.text(fitText(pen, heading.aside, 2.25, 7), { x: right, y: h.y + 0.3 }, { sizePt: 7, colour: MUTED, align: 'right' });
   pen.text(PRINT_AT_ACTUAL_SIZE, { x: h.x, y: h.y + 0.43 }, { sizePt: 8, bold: true });
   if (heading.note) {
     const room = h.width - pen.textWidth(PRINT_AT_ACTUAL_SIZE, 8, true) - 0.3;

@@ -36,7 +36,7 @@ export function drawPlacement(pen: PdfPen, placement: SheetPlacement, template: 
     );
     for (const patch of template.patches) {
       const at = map(patch.labelAt);
-      const sub = patch.stripSetName ? `strip set${patch.stripSetName === 'strip set' ? '' : ` ${patch.stripSetName}`}` : patch.fabricName;
+      const sub = patch.stripSetName ?? patch.fabricName;
       pen.text(patch.label, { x: at.x, y: at.y }, { sizePt: 8, bold: true, align: 'center', baseline: sub ? 'bottom' : 'middle' });
       if (sub) pen.text(sub, { x: at.x, y: at.y + 0.01 }, { sizePt: 6, align: 'center', baseline: 'top' });
     }

@@ -30,8 +30,9 @@ type LayoutOptions = Pick<PrintOptions, 'paper' | 'marginIn' | 'mirrored' | 'til
  * Lays templates out on sheets: each copy is placed whole where it fits one sheet (packed with
  * others, quarter turns allowed, arcs and wedges turned to their smallest box), and split into
  * overlapping tiles where it does not. Pure: the same templates and options give the same plan.
+ * Sheets are numbered from `firstPageNumber` (the print set's booklet comes before them).
  */
-export function layoutTemplates(templates: readonly PrintTemplate[], options: LayoutOptions): PrintLayout {
+export function layoutTemplates(templates: readonly PrintTemplate[], options: LayoutOptions, firstPageNumber = 2): PrintLayout {
   const { paper, marginIn, mirrored, tileOverlapIn } = options;
   const portrait = sheetFrame(paper, 'portrait', marginIn);
   const landscape = sheetFrame(paper, 'landscape', marginIn);
@@ -90,7 +91,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
     for (const p of sheet.items) {
-      if (p.item.data.tile) pageOfTile.set(tileKey(p.item.data.prepared.template.id, p.item.data.copy, p.item.data.tile), i + 2);
+      if (p.item.data.tile) pageOfTile.set(tileKey(p.item.data.prepared.template.id, p.item.data.copy, p.item.data.tile), i + firstPageNumber);
     }
   });
 
@@ -101,7 +102,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
         : placeWhole(p.item.data, p.x, p.y, p.turned),
     );
     const sectionLabels = [...new Set(placements.map((pl) => pl.sectionLabel))];
-    return { pageNumber: i + 2, frame: sheet.frame, placements, sectionLabels };
+    return { pageNumber: i + firstPageNumber, frame: sheet.frame, placements, sectionLabels };
   });
 
   const totalTemplateAreaSqIn = templates.reduce((s, t) => s + t.areaSqIn * Math.max(0, t.copies), 0);

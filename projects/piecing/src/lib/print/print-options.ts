@@ -29,8 +29,13 @@ export const printOptionsSchema = z
     copies: z.enum(['plan', 'single']).default('plan'),
     /** Print only these sections (by id); all when absent. */
     sectionIds: z.array(z.string().min(1).max(64)).max(2000).optional(),
-    /** Whether the cutting list, fabric key, strip-set diagrams and cautions close the set. */
+    /** Whether the booklet carries the fabric requirements and the cutting instructions. */
     includeCuttingList: z.boolean().default(true),
+    /**
+     * Whether to print a pattern with a section that is not sewable as numbered: without it the print set
+     * is refused with the reason; with it every page of such a section says so.
+     */
+    printUnsewable: z.boolean().default(false),
     /**
      * Creation date written into the PDF (ISO 8601, e.g. the revision's time). Same document + same
      * options give the same bytes, so this must come from the revision, not from the clock.

@@ -45,10 +45,11 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
     ({ pages, fonts: fontInfo } = await inspectPdf(result.pdf));
   });
 
-  it('has the cover, the template sheets and the closing sheets, as counted', () => {
+  it('has the booklet, then the template sheets, then the piece templates, as counted', () => {
     expect(pages.length).toBe(result.sheetCount);
     expect(result.templateSheetCount).toBe(result.layout.sheets.length);
-    expect(result.sheetCount).toBeGreaterThan(result.templateSheetCount + 1);
+    expect(result.sheetCount).toBe(result.bookletSheetCount + result.templateSheetCount + result.pieceTemplateSheetCount);
+    expect(result.layout.sheets[0].pageNumber).toBe(result.bookletSheetCount + 1);
   });
 
   it('puts a 1 in. (72 pt) and a 2 cm (56.69 pt) test square on every sheet', () => {
@@ -106,7 +107,7 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
       const placements = result.layout.sheets.flatMap((sh) => sh.placements.filter((p) => p.templateId === s.sectionId));
       expect(placements.length).toBe(s.templatesNeeded * summary.tilesPerCopy);
     }
-    const templateText = pages.slice(1, result.templateSheetCount + 1).map((p) => p.text.join(' ')).join(' ');
+    const templateText = pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount).map((p) => p.text.join(' ')).join(' ');
     for (let k = 1; k <= 8; k++) expect(templateText).toMatch(new RegExp(`copy ${k} of 8|copies (${k} and \\d+|\\d+ and ${k}) of 8`));
   });
 
@@ -114,7 +115,7 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
     const marginPt = 0.5 * 72;
     let cutting = 0;
     // Page 1 (the cover) has a cutting-line sample in its legend: only template sheets are counted.
-    pages.slice(1, result.templateSheetCount + 1).forEach((page) => {
+    pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount).forEach((page) => {
       const inside = (x: number, y: number) =>
         x >= marginPt - 0.01 && x <= page.width - marginPt + 0.01 && y >= marginPt - 0.01 && y <= page.height - marginPt + 0.01;
       for (const path of page.paths.filter(isCutting)) {
@@ -170,7 +171,7 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
       return { areaPt: polygonArea(line) * 72 * 72, sign: Math.sign(signedArea(line)) };
     });
     let checked = 0;
-    for (const page of pages.slice(1)) {
+    for (const page of pages.slice(result.bookletSheetCount, result.bookletSheetCount + result.templateSheetCount)) {
       for (const path of page.paths.filter(isSewing)) {
         for (const s of path.subpaths.filter((sp) => sp.closed && sp.points.length >= 3)) {
           const a = signedAreaPt(s.points);
@@ -184,12 +185,12 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
     expect(checked).toBe(result.layout.sheets.reduce((s, sh) => s + sh.placements.length, 0));
   });
 
-  it('ends with the cutting list, fabric key, strip sets and the cautions', () => {
-    const tail = pages.slice(result.templateSheetCount + 1).map((p) => p.text.join(' ')).join(' ');
-    expect(tail).toContain('Cutting list');
+  it('opens with the booklet: fabric requirements, cutting, strip sets and the cautions', () => {
+    const tail = pages.slice(0, result.bookletSheetCount).map((p) => p.text.join(' ')).join(' ');
+    expect(tail).toContain('Cutting instructions');
     // Every fabric of the cutting list is listed with its yardage.
     for (const f of buildCuttingList(document).fabrics) expect(tail).toContain(f.name);
-    expect(tail).toContain('Fabric key');
+    expect(tail).toContain('Where each fabric goes');
     expect(tail).toContain('Strip set');
     expect(tail).toContain('Rotary cutters are very sharp');
     expect(tail).toContain('Freezer paper in a laser printer');
@@ -226,8 +227,9 @@ describe('print set options', () => {
     // The trapezoid (0,0) (3,0) (3,1) (0,2): area 3 × (1 + 2) / 2 = 4.5 sq in. = 4.5 × 72² pt².
     const areaPt = 4.5 * 72 * 72;
     for (const mirrored of [true, false]) {
-      const { pages } = await inspectPdf((await render(doc, 'letter', { mirrored })).pdf);
-      const outlines = pages[1].paths.filter(isSewing).flatMap((p) => p.subpaths.filter((s) => s.closed));
+      const result = await render(doc, 'letter', { mirrored });
+      const { pages } = await inspectPdf(result.pdf);
+      const outlines = pages[result.bookletSheetCount].paths.filter(isSewing).flatMap((p) => p.subpaths.filter((s) => s.closed));
       expect(outlines.length).toBe(1);
       const a = signedAreaPt(outlines[0].points);
       expect(Math.abs(a)).toBeCloseTo(areaPt, 0);

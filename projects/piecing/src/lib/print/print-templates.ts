@@ -1,6 +1,6 @@
 import type { PatternDocument, Point, Section } from '../document/index';
 import { derivePatches, locatePoint, polygonArea, polygonCentroid } from '../geometry/index';
-import { matchingMarks, sectionSeamAllowance, sectionStripSets, type SectionMatchingMarks } from '../fabrication/index';
+import { matchingMarks, sectionSeamAllowance, sectionStripSets, stripSetDisplayName, type SectionMatchingMarks } from '../fabrication/index';
 import { planTemplateCopies } from './template-copies';
 import type { PrintOptions } from './print-options';
 import type { PrintPatch, PrintSegment, PrintTemplate } from './template-model';
@@ -34,7 +34,7 @@ function buildTemplate(
   const patches: PrintPatch[] = derived.map((p) => ({
     label: p.label,
     ...(p.fabricId && fabricName.has(p.fabricId) ? { fabricName: fabricName.get(p.fabricId)! } : {}),
-    ...(p.stripSet ? { stripSetName: p.stripSet.name ?? 'strip set' } : {}),
+    ...(p.stripSet ? { stripSetName: stripSetDisplayName(p.stripSet.name, [p.label]) } : {}),
     polygon: p.polygon,
     labelAt: p.labelPoint,
   }));

@@ -1,9 +1,9 @@
 import type { jsPDF } from 'jspdf';
-import type { PatternDocument } from '../document/index';
-import { drawAppendix } from './draw-appendix';
+import type { PatternDocument, Section } from '../document/index';
 import { drawCover } from './draw-cover';
 import { drawSheetFrame, drawTileMap, tileMapWidth } from './draw-sheet-frame';
 import { drawPlacement } from './draw-template';
+import { drawSheetNotes } from './draw-sheet-notes';
 import { canonicalJson, pdfDateUtc, stableHash128 } from './deterministic-ids';
 import type { PlannedSheet, PrintLayout } from './layout-types';
 import { POINTS_PER_INCH, type SheetOrientation } from './paper';
@@ -13,6 +13,21 @@ import { buildPrintTemplates } from './print-templates';
 import { printOptionsSchema, type PrintFonts, type PrintOptions, type PrintOptionsInput } from './print-options';
 import { sheetFrame, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
+import { bookletContext, type BookletContext } from './booklet/booklet-context';
+import { BookletWriter } from './booklet/booklet-writer';
+import { copiesFigures, type CopiesFigures } from './booklet/copies-figures';
+import { drawBookletCover, type ContentsEntry } from './booklet/draw-booklet-cover';
+import { drawCuttingInstructions } from './booklet/draw-cutting-instructions';
+import { drawFabricRequirements } from './booklet/draw-fabric-requirements';
+import { drawJoiningPlan } from './booklet/draw-joining-plan';
+import { drawNotesAndCautions } from './booklet/draw-notes-and-cautions';
+import { drawPiecingSteps } from './booklet/draw-piecing-steps';
+import { drawTrimming } from './booklet/draw-trimming';
+import { finishedBlockSize } from './booklet/finished-size';
+import type { SectionPressing } from './booklet/section-pressing';
+import { findUnsewableSections, UnsewablePatternError } from './booklet/unsewable-sections';
+import { buildPieceTemplates } from './piece-templates/build-piece-templates';
+import { drawPieceTemplates } from './piece-templates/draw-piece-templates';
 
 /** Options of {@link renderPrintSet}: the JSON print options plus the font bytes to embed. */
 export type RenderPrintSetOptions = PrintOptionsInput & { fonts: PrintFonts };
@@ -20,32 +35,46 @@ export type RenderPrintSetOptions = PrintOptionsInput & { fonts: PrintFonts };
 /** A rendered print set. */
 export interface PrintSetResult {
   pdf: Uint8Array;
-  /** Pages in the PDF: cover, template sheets, cutting list and cautions. */
+  /** Pages in the PDF: cover, how to print, booklet, template sheets and piece templates. */
   sheetCount: number;
-  /** N: sheets carrying templates. */
+  /** Sheets before the templates: the cover, the printing sheet and the booklet. */
+  bookletSheetCount: number;
+  /** N: sheets carrying foundation templates (sheets bookletSheetCount + 1 … bookletSheetCount + N). */
   templateSheetCount: number;
+  /** Sheets of piece templates, after the foundation templates. */
+  pieceTemplateSheetCount: number;
   /** M = ceil(total template area / printable area). */
   lowerBoundSheets: number;
   layout: PrintLayout;
 }
 
-/** Called after each step: `done` of `total` steps (one per template sheet, plus cover and appendix). */
+/** Called after each step: `done` of `total` steps (one per template sheet, plus booklet and closing). */
 export type PrintProgress = (done: number, total: number) => void;
 
 /**
  * Plans the sheets of a print set without writing a PDF (for the app's sheet preview): the same
- * plan {@link renderPrintSet} follows. Pure.
+ * templates {@link renderPrintSet} lays out, numbered from sheet 2 (the booklet's length is only
+ * known once it is written). Pure.
  */
 export function planPrintLayout(document: PatternDocument, options: PrintOptionsInput = {}): PrintLayout {
   const opts = printOptionsSchema.parse(options);
   return layoutTemplates(buildPrintTemplates(document, opts), opts);
 }
 
+/** One page's header: subtitle, the sections it is about, and for template sheets the sheet plan. */
+interface PageHeading {
+  subtitle: string;
+  sectionIds: string[];
+  sheet?: PlannedSheet;
+}
+
 /**
- * Renders the print set of a document: cover, template sheets at true scale (tiled, packed,
- * mirrored unless asked otherwise), then the cutting list, fabric key, strip-set diagrams and
- * cautions. Every sheet carries the test squares. Same document + same options → same bytes.
- * Runs in Node and in the browser; yields to the event loop between sheets.
+ * Renders the print set of a document: the booklet (cover with the finished size, how to print, fabric
+ * requirements, cutting instructions, piecing steps per section, trimming, joining plan, designer's
+ * notes and cautions), then the template sheets at true scale (tiled, packed, mirrored unless asked
+ * otherwise) and the piece templates. Every sheet carries the test squares. Refuses a pattern with a
+ * section not sewable as numbered ({@link UnsewablePatternError}) unless `printUnsewable` is set.
+ * Same document + same options → same bytes. Runs in Node and in the browser; yields between sheets.
  */
 export async function renderPrintSet(
   document: PatternDocument,
@@ -54,11 +83,14 @@ export async function renderPrintSet(
 ): Promise<PrintSetResult> {
   const { fonts, ...json } = options;
   const opts = printOptionsSchema.parse(json);
+  const wanted = opts.sectionIds ? new Set(opts.sectionIds) : null;
+  const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) });
+  if (unsewable.length > 0 && !opts.printUnsewable) throw new UnsewablePatternError(unsewable);
   const templates = buildPrintTemplates(document, opts);
-  const layout = layoutTemplates(templates, opts);
+  const pieceTemplates = buildPieceTemplates(document, opts.sectionIds);
   const byId = new Map(templates.map((t) => [t.id, t]));
-  const total = layout.sheets.length + 2;
   let done = 0;
+  let total = 3;
   const step = async () => {
     done++;
     onProgress?.(done, total);
@@ -79,46 +111,91 @@ export async function renderPrintSet(
   });
   doc.setFileId(stableHash128(canonicalJson({ document, options: opts })));
   doc.setCreationDate(pdfDateUtc(opts.createdAt));
-  doc.setProperties({ title: `${document.title} — print set`, subject: 'Foundation-paper-piecing templates', creator: 'Seamwright' });
+  doc.setProperties({ title: `${document.title} — print set`, subject: 'Foundation-paper-piecing pattern and templates', creator: 'Seamwright' });
   embedFonts(doc, fonts);
   const pen = new PdfPen(doc);
 
   const frames: SheetFrame[] = [coverFrame];
-  const headings: Array<{ subtitle: string; sheet?: PlannedSheet }> = [];
-  headings.push({ subtitle: 'Print set — read this sheet first' });
-
-  for (const sheet of layout.sheets) {
-    addSheet(doc, sheet.frame);
-    frames.push(sheet.frame);
-    for (const placement of sheet.placements) drawPlacement(pen, placement, byId.get(placement.templateId)!);
-    headings.push({ subtitle: `Templates — sections ${sheet.sectionLabels.join(', ')}`, sheet });
-    await step();
-  }
-
-  const appendixStart = doc.getNumberOfPages() + 1;
-  drawAppendix(pen, document, opts, () => {
+  const headings: PageHeading[] = [{ subtitle: 'Cover — the pattern at a glance', sectionIds: [] }];
+  addSheet(doc, coverFrame);
+  frames.push(coverFrame);
+  headings.push({ subtitle: 'How to print — read this sheet first', sectionIds: [] });
+  const portraitSheet = () => {
     const frame = sheetFrame(opts.paper, 'portrait', opts.marginIn);
     addSheet(doc, frame);
     frames.push(frame);
     return frame;
-  });
-  for (let p = appendixStart; p <= doc.getNumberOfPages(); p++) headings.push({ subtitle: 'Cutting list, fabric key, strip sets and cautions' });
+  };
+
+  const ctx = bookletContext(pen, document, opts, unsewable);
+  const booklet = new BookletWriter(pen, portraitSheet);
+  if (opts.includeCuttingList) {
+    drawFabricRequirements(ctx, booklet);
+    drawCuttingInstructions(ctx, booklet);
+  }
+  drawPiecingSteps(ctx, booklet, (section) => sectionPressing(document, section));
+  drawTrimming(ctx, booklet);
+  drawJoiningPlan(ctx, booklet, null);
+  drawNotesAndCautions(ctx, booklet);
+  for (const s of booklet.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
+  const bookletSheetCount = doc.getNumberOfPages();
+  await step();
+
+  const layout = layoutTemplates(templates, opts, bookletSheetCount + 1);
+  total = layout.sheets.length + 3;
+  for (const sheet of layout.sheets) {
+    addSheet(doc, sheet.frame);
+    frames.push(sheet.frame);
+    for (const placement of sheet.placements) drawPlacement(pen, placement, byId.get(placement.templateId)!);
+    headings.push({
+      subtitle: `Templates — sections ${sheet.sectionLabels.join(', ')}`,
+      sectionIds: [...new Set(sheet.placements.map((p) => byId.get(p.templateId)!.sectionId))],
+      sheet,
+    });
+    await step();
+  }
+
+  const pieceWriter = new BookletWriter(pen, portraitSheet);
+  drawPieceTemplates(pen, pieceWriter, pieceTemplates, opts.copies === 'single', document.pressingsPerTemplate);
+  for (const s of pieceWriter.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
 
   const pageCount = doc.getNumberOfPages();
+  const figures = copiesFigures(document);
   doc.setPage(1);
-  drawCover(pen, coverFrame, document, opts, layout, pageCount);
+  drawBookletCover(ctx, coverFrame, {
+    finished: finishedBlockSize(document),
+    layout,
+    copies: figures,
+    pieceTemplates,
+    contents: contentsOf(headings),
+  });
+  doc.setPage(2);
+  drawCover(pen, frames[1], document, opts, layout, pageCount);
   for (let p = 1; p <= pageCount; p++) {
     doc.setPage(p);
     const frame = frames[p - 1];
+    const heading = headings[p - 1];
+    const sheet = heading.sheet;
+    const notSewable = heading.sectionIds.map((id) => ctx.unsewable.get(id)).filter((u) => u !== undefined);
     drawSheetFrame(pen, frame, {
       title: document.title,
       pageNumber: p,
       pageCount,
-      subtitle: headings[p - 1].subtitle,
-      note: headings[p - 1].sheet ? mirrorNote(opts) : undefined,
+      subtitle: heading.subtitle,
+      note: sheet ? mirrorNote(opts) : undefined,
+      ...(sheet ? { aside: copiesAside(ctx, figures, heading.sectionIds) } : {}),
+      ...(notSewable.length > 0
+        ? { warning: `NOT SEWABLE AS NUMBERED: section${notSewable.length > 1 ? 's' : ''} ${notSewable.map((u) => u.label).join(', ')} — printed anyway` }
+        : {}),
     });
-    const sheet = headings[p - 1].sheet;
-    if (sheet) drawTileMaps(pen, frame, sheet, byId);
+    if (sheet) {
+      drawTileMaps(pen, frame, sheet, byId);
+      const notes = heading.sectionIds
+        .map((id) => document.sections.find((s) => s.id === id))
+        .filter((s) => s?.note?.trim())
+        .map((s) => ({ label: s!.label, note: s!.note! }));
+      drawSheetNotes(pen, frame, sheet, notes);
+    }
   }
   await step();
 
@@ -126,10 +203,39 @@ export async function renderPrintSet(
   return {
     pdf,
     sheetCount: pageCount,
+    bookletSheetCount,
     templateSheetCount: layout.templateSheetCount,
+    pieceTemplateSheetCount: pieceWriter.sheets.length,
     lowerBoundSheets: layout.lowerBoundSheets,
     layout,
   };
+}
+
+/** Pressing of each patch seam of a section, by the patch it adds (toward the patch just added when unset). */
+function sectionPressing(_document: PatternDocument, _section: Section): SectionPressing {
+  return new Map();
+}
+
+/** The cover's contents: consecutive sheets with the same subtitle are one entry. */
+function contentsOf(headings: readonly PageHeading[]): ContentsEntry[] {
+  const out: ContentsEntry[] = [];
+  headings.forEach((h, i) => {
+    const title = h.sheet ? 'Foundation templates' : h.subtitle;
+    const last = out[out.length - 1];
+    if (last && last.title === title && last.lastSheet === i) last.lastSheet = i + 1;
+    else out.push({ title, firstSheet: i + 1, lastSheet: i + 1 });
+  });
+  return out;
+}
+
+/** The copies rule for the sections on a template sheet, in a few words (docs/design-notes.md#copies). */
+function copiesAside(ctx: BookletContext, figures: CopiesFigures, sectionIds: readonly string[]): string {
+  if (ctx.options.foundation === 'paper') return 'Paper foundations: one print per section sewn';
+  const parts = sectionIds
+    .map((id) => figures.sections.find((s) => s.sectionId === id))
+    .filter((s) => s !== undefined)
+    .map((s) => `${s.label}: a print lasts ${s.sectionsPerTemplate} (${s.patches} pressings each)`);
+  return `Freezer paper, ${figures.pressingsPerTemplate} pressings — ${parts.join(' · ')}`;
 }
 
 function addSheet(doc: jsPDF, frame: SheetFrame): void {

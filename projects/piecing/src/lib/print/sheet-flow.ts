@@ -72,6 +72,19 @@ export class SheetFlow {
     this.y += 0.06;
   }
 
+  /** Starts a new sheet unless the current one is still empty. */
+  startSheet(): void {
+    if (this.y > this.top() + 1e-9) {
+      this.frame = this.newSheet();
+      this.y = this.top();
+    }
+  }
+
+  /** Room left on the current sheet, in inches. */
+  get roomLeft(): number {
+    return this.bottom() - this.y;
+  }
+
   gap(heightIn: number): void {
     this.y += heightIn;
   }

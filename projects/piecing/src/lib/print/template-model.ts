@@ -44,7 +44,7 @@ export interface PrintSegment {
 export interface PrintPatch {
   label: string;
   fabricName?: string;
-  /** Whether the patch is filled with a strip set (its name when it has one). */
+  /** The strip set the patch is cut from, as quilters call it (its name, or "Strip set for B1"). */
   stripSetName?: string;
   polygon: Point[];
   labelAt: Point;

@@ -1,0 +1,108 @@
+import type { Point, StripSet } from '../../document/index';
+import { polygonBounds } from '../../geometry/index';
+import { stripSetBands } from '../../fabrication/index';
+import { POINTS_PER_INCH, type RectIn } from '../paper';
+import type { PdfPen, StrokeStyle } from '../pdf-pen';
+
+/*
+ * Small, not-to-scale diagrams of the booklet: shapes from the drawing plane fitted into a box on the
+ * sheet. Line widths stay off the template styles (0.9 pt sewing, 0.5 pt dashed cutting) so a diagram
+ * is never mistaken for a template.
+ */
+
+/** Booklet diagram strokes. */
+export const DIAGRAM_STYLES = {
+  outline: { widthPt: 0.6, colour: '#333333' },
+  faint: { widthPt: 0.4, colour: '#9a9a9a' },
+  highlight: { widthPt: 1.4, colour: '#000000' },
+  sewLine: { widthPt: 1.8, colour: '#b3261e' },
+  guide: { widthPt: 0.7, dashPt: [2, 1.5], colour: '#1d5fa6' },
+  centre: { widthPt: 0.7, dashPt: [4, 1.5, 1, 1.5], colour: '#1d5fa6' },
+} satisfies Record<string, StrokeStyle>;
+
+/** Maps drawing-plane points into a box on the sheet, keeping proportions. */
+export interface DiagramFit {
+  map: (p: Point) => Point;
+  /** Sheet inches per drawing inch. */
+  scale: number;
+}
+
+/**
+ * Fits `points` into `box` with `padIn` to spare, centred; mirrored left to right when asked (the
+ * printed side of a foundation is the back of the block).
+ */
+export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = false, padIn = 0.06): DiagramFit {
+  const b = polygonBounds(points);
+  const w = Math.max(1e-6, b.maxX - b.minX);
+  const h = Math.max(1e-6, b.maxY - b.minY);
+  const scale = Math.min((box.width - 2 * padIn) / w, (box.height - 2 * padIn) / h);
+  const x0 = box.x + (box.width - w * scale) / 2;
+  const y0 = box.y + (box.height - h * scale) / 2;
+  return {
+    scale,
+    map: (p) => ({ x: mirrored ? x0 + (b.maxX - p.x) * scale : x0 + (p.x - b.minX) * scale, y: y0 + (p.y - b.minY) * scale }),
+  };
+}
+
+/** A paler version of a colour (`amount` 0 … 1 towards white), so black text stays legible on it. */
+export function lighten(hex: string, amount = 0.55): string {
+  const v = parseInt(hex.slice(1), 16);
+  const mix = (c: number) => Math.round(c + (255 - c) * amount);
+  const r = mix((v >> 16) & 255);
+  const g = mix((v >> 8) & 255);
+  const b = mix(v & 255);
+  return `#${((r << 16) | (g << 8) | b).toString(16).padStart(6, '0')}`;
+}
+
+/** Fills a polygon (already on the sheet) and strokes its outline. */
+export function drawShape(pen: PdfPen, ring: readonly Point[], fill: string | null, stroke: StrokeStyle | null): void {
+  if (fill) pen.fillPolygon(ring, fill);
+  if (stroke) pen.polyline(ring, true, stroke);
+}
+
+/**
+ * Fills a strip-set patch with its strips (each clipped to the patch), coloured by `colourOf`. Falls
+ * back to `fallback` when the set does not fit the patch.
+ */
+export function fillStripSetPatch(
+  pen: PdfPen,
+  fit: DiagramFit,
+  polygon: readonly Point[],
+  stripSet: StripSet,
+  colourOf: (fabricId: string) => string,
+  fallback: string,
+): void {
+  const ring = polygon.map(fit.map);
+  const bands = stripSetBands(polygon, stripSet);
+  if (bands.length === 0) {
+    pen.fillPolygon(ring, fallback);
+    return;
+  }
+  clipToRing(pen, ring, () => {
+    for (const band of bands) pen.fillPolygon(band.polygon.map(fit.map), colourOf(band.fabricId));
+  });
+}
+
+/** Runs `draw` clipped to a polygon on the sheet. */
+export function clipToRing(pen: PdfPen, ring: readonly Point[], draw: () => void): void {
+  const doc = pen.doc;
+  const pt = (v: number) => v * POINTS_PER_INCH;
+  doc.saveGraphicsState();
+  const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(ring[0].x), pt(ring[0].y)] }];
+  for (let i = 1; i < ring.length; i++) ops.push({ op: 'l', c: [pt(ring[i].x), pt(ring[i].y)] });
+  ops.push({ op: 'h', c: [] });
+  doc.path(ops);
+  doc.clip();
+  doc.discardPath();
+  draw();
+  doc.restoreGraphicsState();
+}
+
+/** Middle of a segment and the unit normal pointing to the side of `towards`. */
+export function normalTowards(a: Point, b: Point, towards: Point): { mid: Point; n: Point } {
+  const mid = { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
+  const len = Math.hypot(b.x - a.x, b.y - a.y) || 1;
+  let n = { x: -(b.y - a.y) / len, y: (b.x - a.x) / len };
+  if ((towards.x - mid.x) * n.x + (towards.y - mid.y) * n.y < 0) n = { x: -n.x, y: -n.y };
+  return { mid, n };
+}

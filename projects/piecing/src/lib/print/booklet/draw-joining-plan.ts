@@ -1,0 +1,151 @@
+import type { Point } from '../../document/index';
+import { polygonCentroid } from '../../geometry/index';
+import type { ResolvedJoiningPlan, ResolvedJoinStep } from '../../joining/joining-types';
+import { drawArrow } from '../draw-template';
+import type { SheetFlow } from '../sheet-flow';
+import type { BookletContext } from './booklet-context';
+import type { BookletWriter } from './booklet-writer';
+import { DIAGRAM_STYLES, drawShape, fitDiagram, type DiagramFit } from './diagram';
+import { sectionCopyOutlines } from './finished-size';
+
+const COLUMNS = 3;
+const DIAGRAM_IN = 2.0;
+const CAPTION_PT = 8;
+const LINE_IN = (CAPTION_PT * 1.3) / 72;
+const PART_A = '#c9d7ea';
+const PART_B = '#f0d3b5';
+
+/**
+ * The joining plan (docs/design-notes.md#joining-plan) as numbered diagrams of the block seen from the
+ * front: the two parts of each join shaded, the seam in red, matching marks as dots, arrows for the
+ * press. Without a resolved plan, the sections are listed from the centre outward in words.
+ */
+export function drawJoiningPlan(ctx: BookletContext, writer: BookletWriter, plan: ResolvedJoiningPlan | null): void {
+  const flow = writer.part('Joining the sections');
+  flow.heading('Joining the sections');
+  flow.paragraph(
+    'Join trimmed sections right sides together, pinning at the ends of each seam and at every matching mark first. Sew on the sewing lines of the foundations. ' +
+      'Curved seams: match the marks, pin, and ease the fullness as you sew. Diagrams show the block from the front; red is the seam, arrows show the press.',
+    8.5,
+  );
+  if (!plan) {
+    drawPlainList(ctx, flow);
+    return;
+  }
+  if (plan.isDefault) flow.paragraph('The designer set no joining order: this is the usual order, ring copies into rings, then from the centre outward.', 8);
+  drawSteps(ctx, flow, plan.steps);
+  for (const problem of plan.problems) flow.paragraph(`Check: ${problem.message}`, 8.5, true);
+}
+
+function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly ResolvedJoinStep[]): void {
+  const outlines = new Map(ctx.document.sections.map((s) => [s.id, sectionCopyOutlines(s)]));
+  const all = [...outlines.values()].flat(2);
+  const cellW = flow.width / COLUMNS;
+  const texts = steps.map((s) => ctx.pen.wrap(captionOf(s), cellW - 0.15, CAPTION_PT));
+  for (let row = 0; row * COLUMNS < steps.length; row++) {
+    const items = steps.slice(row * COLUMNS, row * COLUMNS + COLUMNS);
+    const lines = Math.max(...items.map((_, c) => texts[row * COLUMNS + c].length));
+    const top = flow.block(DIAGRAM_IN + 0.1 + lines * LINE_IN + 0.15);
+    items.forEach((step, c) => {
+      const box = { x: top.x + c * cellW + 0.05, y: top.y, width: cellW - 0.1, height: DIAGRAM_IN };
+      const fit = fitDiagram(all, box, false);
+      const inA = new Set(step.partA.sectionIds);
+      const inB = new Set(step.partB.sectionIds);
+      for (const [id, rings] of outlines) {
+        const fill = step.kind === 'ring' ? (inA.has(id) ? PART_A : null) : inA.has(id) ? PART_A : inB.has(id) ? PART_B : null;
+        for (const ring of rings) drawShape(ctx.pen, ring.map(fit.map), fill, DIAGRAM_STYLES.faint);
+      }
+      ctx.pen.segments(step.seam.paths.flatMap((path) => pathSegments(path.map(fit.map))), DIAGRAM_STYLES.sewLine);
+      for (const m of step.marks) ctx.pen.fillPolygon(dot(fit.map(m), 0.028), '#000000');
+      drawPress(ctx, fit, step, outlines);
+      ctx.pen.text(String(step.number), { x: box.x + 0.02, y: box.y + 0.15 }, { sizePt: 11, bold: true });
+      texts[row * COLUMNS + c].forEach((line, k) =>
+        ctx.pen.text(line, { x: box.x + 0.02, y: box.y + DIAGRAM_IN + 0.1 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT, bold: k === 0 }),
+      );
+    });
+  }
+}
+
+/** The words under a join diagram: the step, the press, the marks. */
+export function captionOf(step: ResolvedJoinStep): string {
+  const ring = step.kind === 'ring' && step.ringCount ? ` (${step.ringCount} seams; the last closes the ring)` : '';
+  const marks = step.marks.length > 0 ? ` Match the ${step.marks.length} matching marks.` : '';
+  const curved = step.seam.kind === 'curved' ? ' Curved seam.' : '';
+  return `${step.number}. ${step.label}${ring}. ${step.pressLabel}.${curved}${marks}`.replace(/\.\./g, '.');
+}
+
+function pathSegments(points: readonly Point[]): Array<{ a: Point; b: Point }> {
+  const out: Array<{ a: Point; b: Point }> = [];
+  for (let i = 1; i < points.length; i++) out.push({ a: points[i - 1], b: points[i] });
+  return out;
+}
+
+function dot(c: Point, r: number): Point[] {
+  return Array.from({ length: 10 }, (_, i) => ({ x: c.x + r * Math.cos((i * Math.PI) / 5), y: c.y + r * Math.sin((i * Math.PI) / 5) }));
+}
+
+/** Arrows across the seam toward the part it is pressed to; both ways for open; round the ring for a ring. */
+function drawPress(ctx: BookletContext, fit: DiagramFit, step: ResolvedJoinStep, outlines: Map<string, Point[][]>): void {
+  const press = step.press;
+  for (const path of step.seam.paths.slice(0, step.kind === 'ring' ? step.seam.paths.length : 1)) {
+    if (path.length < 2) continue;
+    const i = Math.floor((path.length - 1) / 2);
+    const a = fit.map(path[i]);
+    const b = fit.map(path[i + 1]);
+    const mid = { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
+    const len = Math.hypot(b.x - a.x, b.y - a.y) || 1;
+    const n = { x: -(b.y - a.y) / len, y: (b.x - a.x) / len };
+    const arrow = (d: Point) => drawArrow(ctx.pen, { x: mid.x + d.x * 0.1, y: mid.y + d.y * 0.1 }, d, 0.17);
+    if ('open' in press) {
+      arrow(n);
+      arrow({ x: -n.x, y: -n.y });
+      continue;
+    }
+    let target: Point;
+    if ('ring' in press) {
+      // Clockwise on the page (y down): the document's positive turn.
+      const centre = ctx.document.sections.find((s) => s.id === step.partA.sectionIds[0])?.ringRepeat?.centre ?? path[i];
+      const c = fit.map(centre);
+      const t = { x: -(mid.y - c.y), y: mid.x - c.x };
+      const s = press.ring === 'clockwise' ? 1 : -1;
+      target = { x: mid.x + s * t.x, y: mid.y + s * t.y };
+    } else {
+      const part = press.toward === step.partA.id ? step.partA : step.partB;
+      const rings = part.sectionIds.flatMap((id) => outlines.get(id) ?? []);
+      // The part's copy nearest the seam says which side it is on.
+      let best: Point | null = null;
+      let bestD = Infinity;
+      for (const ring of rings) {
+        const c = fit.map(polygonCentroid(ring));
+        const d = Math.hypot(c.x - mid.x, c.y - mid.y);
+        if (d < bestD) {
+          bestD = d;
+          best = c;
+        }
+      }
+      target = best ?? { x: mid.x + n.x, y: mid.y + n.y };
+    }
+    const side = (target.x - mid.x) * n.x + (target.y - mid.y) * n.y >= 0 ? n : { x: -n.x, y: -n.y };
+    arrow(side);
+  }
+}
+
+/** Without a plan: the sections from the centre outward, ring copies into rings first. */
+function drawPlainList(ctx: BookletContext, flow: SheetFlow): void {
+  const all = ctx.document.sections.flatMap((s) => sectionCopyOutlines(s).flat());
+  if (all.length === 0) return;
+  const xs = all.map((p) => p.x);
+  const ys = all.map((p) => p.y);
+  const centre = { x: (Math.min(...xs) + Math.max(...xs)) / 2, y: (Math.min(...ys) + Math.max(...ys)) / 2 };
+  const order = [...ctx.document.sections].sort((a, b) => distance(a.id) - distance(b.id));
+  function distance(id: string): number {
+    const s = ctx.document.sections.find((x) => x.id === id)!;
+    const rings = sectionCopyOutlines(s);
+    return Math.min(...rings.map((r) => Math.hypot(polygonCentroid(r).x - centre.x, polygonCentroid(r).y - centre.y)));
+  }
+  let n = 1;
+  for (const s of order) {
+    if (s.ringRepeat) flow.paragraph(`${n++}. Join the ${s.ringRepeat.count} copies of ${s.label} into a ring (${s.ringRepeat.count} seams; the last closes the ring).`, 9);
+  }
+  flow.paragraph(`${n}. Join the sections and rings from the centre outward: ${order.map((s) => (s.ringRepeat ? `the ${s.label} ring` : s.label)).join(', then ')}.`, 9);
+}

@@ -1,0 +1,129 @@
+import type { Point, Section } from '../../document/index';
+import type { DerivedPatch } from '../../geometry/index';
+import { checkSewability, type SewingStep } from '../../sewability/index';
+import { drawArrow } from '../draw-template';
+import type { SheetFlow } from '../sheet-flow';
+import { fabricColour, patchMaterial, sectionUses, type BookletContext } from './booklet-context';
+import type { BookletWriter } from './booklet-writer';
+import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitDiagram, lighten, normalTowards, type DiagramFit } from './diagram';
+import { pressOf, pressWords, type SectionPressing } from './section-pressing';
+
+/** The usual reminders of foundation piecing (common practice). */
+export const PIECING_REMINDERS =
+  'Press each patch flat after sewing it, before the next one goes on. Before adding the next patch, fold the foundation ' +
+  'back on the next sewing line and pre-trim the fabric ¼ in. beyond it (common practice). Sew on the printed lines with a ' +
+  'short stitch (about 1.5 mm) so the paper tears away cleanly.';
+
+const COLUMNS = 4;
+const DIAGRAM_IN = 1.45;
+const CAPTION_PT = 7.5;
+const LINE_IN = (CAPTION_PT * 1.3) / 72;
+
+/**
+ * One part per section: its piecing steps as small numbered diagrams (the patch added highlighted, the
+ * line to sew in red, an arrow for the press), each with its words, the designer's note and reminders.
+ */
+export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pressingOf: (section: Section) => SectionPressing): void {
+  for (const section of ctx.document.sections) {
+    const patches = ctx.patches.get(section.id) ?? [];
+    if (patches.length === 0) continue;
+    const flow = writer.part(`Piecing — section ${section.label}`, [section.id]);
+    const uses = sectionUses(ctx.document, section);
+    flow.heading(`Section ${section.label}: piecing steps${uses > 1 ? ` (sew ${uses})` : ''}`);
+    const unsewable = ctx.unsewable.get(section.id);
+    if (unsewable) {
+      flow.paragraph(`NOT SEWABLE AS NUMBERED — printed anyway at the designer's request. ${unsewable.reason}.`, 9, true);
+    }
+    if (section.note?.trim()) flow.paragraph(`Designer's note: ${section.note.trim()}`, 9, true);
+    flow.paragraph(PIECING_REMINDERS, 8.5);
+    flow.paragraph(
+      ctx.options.mirrored
+        ? 'Diagrams show the printed side of the foundation (a mirror image, as the templates print); the fabric goes on the unprinted side. Red: the line to sew. Arrow: which way to press.'
+        : 'Diagrams show the block from the front, as the templates print. Red: the line to sew. Arrow: which way to press.',
+      8,
+    );
+    const verdict = checkSewability(patches);
+    const pressing = pressingOf(section);
+    drawSteps(ctx, flow, patches, verdict.steps, pressing);
+    if (!verdict.sewable && verdict.failure) {
+      const left = patches.slice(verdict.steps.length + 1).map((p) => p.label);
+      flow.paragraph(`The steps stop at ${verdict.failure.label}: ${left.join(', ')} cannot be added in this order. ${verdict.failure.message}.`, 9, true);
+    }
+  }
+}
+
+function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[], steps: SewingStep[], pressing: SectionPressing): void {
+  const cellW = flow.width / COLUMNS;
+  const all = patches.flatMap((p) => p.polygon);
+  const byNumber = new Map(patches.map((p) => [p.number, p]));
+  const stepOf = new Map(steps.map((s) => [s.patchNumber, s]));
+  const count = 1 + steps.length;
+  const texts: string[][] = [];
+  for (let i = 0; i < count; i++) texts.push(ctx.pen.wrap(stepText(ctx, patches, steps, i, pressing), cellW - 0.12, CAPTION_PT));
+  for (let row = 0; row * COLUMNS < count; row++) {
+    const items = Array.from({ length: Math.min(COLUMNS, count - row * COLUMNS) }, (_, c) => row * COLUMNS + c);
+    const lines = Math.max(...items.map((i) => texts[i].length));
+    const top = flow.block(DIAGRAM_IN + 0.08 + lines * LINE_IN + 0.12);
+    items.forEach((i, c) => {
+      const box = { x: top.x + c * cellW + 0.04, y: top.y, width: cellW - 0.08, height: DIAGRAM_IN };
+      const fit = fitDiagram(all, box, ctx.options.mirrored);
+      const addedNumber = i === 0 ? patches[0].number : steps[i - 1].patchNumber;
+      const sewnBefore = new Set(i === 0 ? [] : [patches[0].number, ...steps.slice(0, i - 1).map((s) => s.patchNumber)]);
+      for (const p of patches) {
+        const ring = p.polygon.map(fit.map);
+        if (p.number === addedNumber) fillPatch(ctx, fit, p, 0);
+        else if (sewnBefore.has(p.number)) fillPatch(ctx, fit, p, 0.6);
+        drawShape(ctx.pen, ring, null, DIAGRAM_STYLES.faint);
+      }
+      drawShape(ctx.pen, byNumber.get(addedNumber)!.polygon.map(fit.map), null, DIAGRAM_STYLES.highlight);
+      const step = stepOf.get(addedNumber);
+      if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step));
+      for (const p of patches) {
+        if (p.number !== addedNumber && !sewnBefore.has(p.number)) continue;
+        const at = fit.map(p.labelPoint);
+        ctx.pen.text(p.label, at, { sizePt: 7, bold: p.number === addedNumber, align: 'center', baseline: 'middle', colour: '#000000' });
+      }
+      ctx.pen.text(`${i + 1}`, { x: box.x + 0.02, y: box.y + 0.14 }, { sizePt: 10, bold: true });
+      texts[i].forEach((line, k) => ctx.pen.text(line, { x: box.x + 0.02, y: box.y + DIAGRAM_IN + 0.08 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT }));
+    });
+  }
+}
+
+function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, paleness: number): void {
+  const colour = (id: string | undefined) => lighten(fabricColour(ctx, id), paleness + (1 - paleness) * 0.25);
+  if (patch.stripSet) fillStripSetPatch(ctx.pen, fit, patch.polygon, patch.stripSet, (id) => colour(id), colour(undefined));
+  else ctx.pen.fillPolygon(patch.polygon.map(fit.map), colour(patch.fabricId));
+}
+
+function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep, added: DerivedPatch, press: 'added' | 'previous' | 'open'): void {
+  const a = fit.map(step.from);
+  const b = fit.map(step.to);
+  ctx.pen.segments([{ a, b }], DIAGRAM_STYLES.sewLine);
+  // A third of the way along the seam, clear of the patch labels (which sit near the middles).
+  const { n } = normalTowards(a, b, fit.map(added.labelPoint));
+  const mid = { x: a.x + (b.x - a.x) * 0.3, y: a.y + (b.y - a.y) * 0.3 };
+  const len = 0.22;
+  if (press === 'open') {
+    drawArrow(ctx.pen, { x: mid.x + n.x * 0.13, y: mid.y + n.y * 0.13 }, n, len * 0.8);
+    drawArrow(ctx.pen, { x: mid.x - n.x * 0.13, y: mid.y - n.y * 0.13 }, { x: -n.x, y: -n.y }, len * 0.8);
+    return;
+  }
+  const d: Point = press === 'added' ? n : { x: -n.x, y: -n.y };
+  drawArrow(ctx.pen, { x: mid.x + d.x * len * 0.6, y: mid.y + d.y * len * 0.6 }, d, len);
+}
+
+function stepText(ctx: BookletContext, patches: DerivedPatch[], steps: SewingStep[], i: number, pressing: SectionPressing): string {
+  const first = patches[0];
+  if (i === 0) {
+    const strips = first.stripSet ? ' Lay its strip seams on the printed guide lines.' : '';
+    const trim = steps[0] ? ` Fold back on the ${steps[0].label} line; trim ¼ in. beyond it.` : '';
+    return `Place ${first.label} (${patchMaterial(ctx, first)}) right side up on the unprinted side, covering ${first.label} and ¼ in. beyond its lines; hold it with a dab of glue.${strips}${trim}`;
+  }
+  const step = steps[i - 1];
+  const patch = patches.find((p) => p.number === step.patchNumber)!;
+  const earlier = [first.label, ...steps.slice(0, i - 1).map((s) => s.label)];
+  const strips = patch.stripSet ? ' Strip seams on the guide lines.' : '';
+  const next = steps[i];
+  const trim = next ? ` Fold back on the ${next.label} line; trim ¼ in. beyond it.` : ' Last patch: trim the section (see Trimming).';
+  return `Add ${patch.label} (${patchMaterial(ctx, patch)}) right sides together; sew on the red line.${strips} ${pressWords(pressOf(pressing, step), patch.label, earlier)}${trim}`;
+}
