@@ -41,7 +41,7 @@ export { sectionHandles } from './commands/section-handles';
 export { applySewableOrder } from './commands/order-commands';
 
 /** Pressing of patch seams, cutting the way designers write it, and the designer's notes. */
-export { setSeamPressing, seamPressingOf, DEFAULT_SEAM_PRESSING, type SeamPressing } from './commands/pressing-commands';
+export { setSeamPressing, seamPressingOf, DEFAULT_SEAM_PRESSING } from './commands/pressing-commands';
 export { setPatchRoughCut, setPatchPieceTemplate, setStripSetSubCutLength, roughCutProblem, type RoughCutPiece } from './commands/cutting-commands';
 export { setPatternNotes, setSectionNote, PATTERN_NOTES_MAX, SECTION_NOTE_MAX } from './commands/notes-commands';
 

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { parseLength, sectionGeometrySchema, type SectionGeometry, type StripSet } from '@seamwright/piecing';
+import { parseLength, sectionGeometrySchema, type Seam, type SeamPress, type SectionGeometry, type StripSet } from '@seamwright/piecing';
 import {
   ArcSectionTool,
   WedgeSectionTool,
@@ -15,19 +15,23 @@ import {
   setSectionGeometry,
   updateSectionDetails,
   setSeamEnd,
+  seamPressingOf,
+  setSeamPressing,
+  setSectionNote,
 } from '../core/public-api';
 import { EditorSession } from '../session/editor-session';
 import { NumberFieldComponent } from './number-field.component';
+import { PatchCuttingComponent } from './patch-cutting.component';
 
 /**
  * The properties panel: the selected section's numbers (centre, radii, angles, corners), its ring
- * repeat and label; the selected patch's fabric and strip set; with nothing selected, the pattern's
+ * repeat and label; the selected patch's fabric, strip set and cutting (rough cut, piece template); each seam's pressing; with nothing selected, the pattern's
  * seam allowance and drawing area, and with the arc or wedge tool, a form to type a new section.
  */
 @Component({
   selector: 'sw-properties-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, NumberFieldComponent],
+  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, NumberFieldComponent, PatchCuttingComponent],
   templateUrl: './properties-panel.component.html',
   styleUrl: './properties-panel.component.scss',
 })
@@ -74,6 +78,22 @@ export class PropertiesPanelComponent {
     this.session.apply('Move seam end', (d) => setSeamEnd(d, s.id, seamId, end, point, this.session.editor.analysis));
   }
 
+  /** The ways a patch seam may be pressed, in words. */
+  protected readonly seamPressings: ReadonlyArray<{ value: SeamPress; label: string }> = [
+    { value: 'added', label: 'Toward the patch just added' },
+    { value: 'previous', label: 'Toward the earlier patches' },
+    { value: 'open', label: 'Open' },
+  ];
+
+  protected pressingOf(seam: Seam): SeamPress {
+    return seamPressingOf(seam);
+  }
+
+  protected changeSeamPressing(seamId: string, press: SeamPress): void {
+    const s = this.section();
+    if (s) this.session.apply('Seam pressing', (d) => setSeamPressing(d, s.id, seamId, press));
+  }
+
   protected changeCentre(axis: 'x' | 'y', value: number): void {
     const s = this.section();
     if (!s || s.geometry.kind === 'straight') return;
@@ -101,7 +121,7 @@ export class PropertiesPanelComponent {
   protected changeNote(note: string): void {
     const s = this.section();
     if (!s || (s.note ?? '') === note) return;
-    this.session.apply('Change note', (d) => updateSectionDetails(d, s.id, { note: note.slice(0, 500) }));
+    this.session.apply('Change note', (d) => setSectionNote(d, s.id, note.slice(0, 500)));
   }
 
   protected changeRingCount(count: number): void {

@@ -1,14 +1,11 @@
-import type { PatternDocument, Seam } from '@seamwright/piecing';
+import type { PatternDocument, Seam, SeamPress } from '@seamwright/piecing';
 import { findSection, replaceSection } from './section-commands';
 
-/** Which way a patch seam inside a section is pressed: toward the patch just added, toward the earlier patches, or open. */
-export type SeamPressing = NonNullable<Seam['press']>;
-
 /** The pressing a seam has when the designer sets none (usual practice on a foundation; docs/design-notes.md). */
-export const DEFAULT_SEAM_PRESSING: SeamPressing = 'added';
+export const DEFAULT_SEAM_PRESSING: SeamPress = 'added';
 
 /** The pressing of a seam as the quilter is told it: the designer's choice, else toward the patch just added. */
-export function seamPressingOf(seam: Pick<Seam, 'press'>): SeamPressing {
+export function seamPressingOf(seam: Pick<Seam, 'press'>): SeamPress {
   return seam.press ?? DEFAULT_SEAM_PRESSING;
 }
 
@@ -17,7 +14,7 @@ export function seamPressingOf(seam: Pick<Seam, 'press'>): SeamPressing {
  * so a document only says what the designer changed; a section or seam that is not there, or a pressing
  * the seam already has, leaves the document as it is.
  */
-export function setSeamPressing(document: PatternDocument, sectionId: string, seamId: string, press: SeamPressing): PatternDocument {
+export function setSeamPressing(document: PatternDocument, sectionId: string, seamId: string, press: SeamPress): PatternDocument {
   const s = findSection(document, sectionId);
   const k = s ? s.seams.findIndex((m) => m.id === seamId) : -1;
   if (!s || k < 0 || !['added', 'previous', 'open'].includes(press)) return document;
