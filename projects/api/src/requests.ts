@@ -119,4 +119,9 @@ export type UserChangeBody = z.input<typeof userChangeBodySchema>;
 export const printSetBodySchema = z.strictObject({
   revision: z.number().int().min(1).optional(),
   options: z.record(z.string(), z.unknown()).default({}),
+  /**
+   * Whether to print a pattern with a section not sewable as numbered (every page of such a section then
+   * says so); without it such a pattern is refused with 422 and the reason. Same as `options.printUnsewable`.
+   */
+  printUnsewable: z.boolean().optional(),
 });
