@@ -90,6 +90,24 @@ export {
   type SewabilityOptions,
 } from './lib/sewability/index';
 
+/** The joining plan: sections into units and units into the block; pressing inside a section. */
+export {
+  defaultJoiningPlan,
+  resolveJoiningPlan,
+  checkJoiningPlan,
+  seamPressing,
+  type JoiningPlan,
+  type JoinPart,
+  type JoinSeam,
+  type JoinPress,
+  type ResolvedJoinStep,
+  type ResolvedJoiningPlan,
+  type JoiningProblem,
+  type JoiningProblemKind,
+  type SeamPressing,
+  type JoiningDocument,
+} from './lib/joining/index';
+
 /** Fabrication: cutting lines, strip sets, the cutting list and template copies. */
 export {
   sectionCuttingLine,
