@@ -116,8 +116,8 @@ export class SectionsOutlineComponent {
 
   private moveTo(key: string): void {
     this.current.set(key);
-    const el = this.host.nativeElement.querySelector<HTMLElement>(`[data-key="${CSS.escape(key)}"]`);
-    el?.focus();
+    const items = this.host.nativeElement.querySelectorAll<HTMLElement>('[role="treeitem"]');
+    [...items].find((el) => el.dataset['key'] === key)?.focus();
   }
 
   private setCollapsed(key: string, collapsed: boolean): void {

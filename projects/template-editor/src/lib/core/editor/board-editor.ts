@@ -71,11 +71,15 @@ export class BoardEditor {
     };
     this.current = createTool('select', this.ctx);
     // Every change of selection (a click, the outline, a key) is said in words; loading is not.
+    // (A selection change keeps the store's last origin, so a load is told apart by its new document.)
     let lastSelection = this.store.selection;
+    let lastDocument = this.store.document;
     this.store.subscribe((snap) => {
+      const loaded = snap.origin === 'load' && snap.document !== lastDocument;
+      lastDocument = snap.document;
       if (snap.selection === lastSelection) return;
       lastSelection = snap.selection;
-      if (snap.origin !== 'load') this.announce(selectionMessage(snap.document, snap.selection, this.analysis));
+      if (!loaded) this.announce(selectionMessage(snap.document, snap.selection, this.analysis));
     });
   }
 

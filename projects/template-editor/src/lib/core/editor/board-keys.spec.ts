@@ -93,3 +93,17 @@ describe('the board’s keys on the selection', () => {
     expect(centreOf(ed, bId)).toEqual({ x: 12, y: 12 });
   });
 });
+
+describe('what the board says about the selection', () => {
+  it('says the first selection after opening a pattern, and nothing for the load itself', () => {
+    const { ed, bId } = boardWithB();
+    const doc = ed.store.document;
+    ed.store.load(doc);
+    const messages: string[] = [];
+    ed.onAnnounce((m) => messages.push(m));
+    ed.store.load({ ...doc, sections: doc.sections.filter((s) => s.id !== bId) });
+    expect(messages).toEqual([]);
+    ed.store.select({ sectionId: doc.sections[0].id, patchIndex: null });
+    expect(messages).toEqual(['Section A selected: arc section, 1 patch']);
+  });
+});
