@@ -33,7 +33,8 @@ test('the changed screens have no serious or critical axe findings in either the
   // A seam, so the selected section lists typed seam ends; then the pattern settings opened.
   await board.tool('l');
   await board.drag({ x: 0, y: 2 }, { x: 8, y: 2 });
-  await expect.poll(() => board.counts()).toEqual({ sections: 2, seams: 1 });
+  // One seam across one of the two sections: three patches.
+  await expect.poll(() => board.counts()).toEqual({ sections: 2, patches: 3 });
   await new PatternPage(page).waitForSaved();
   await page.getByText('Pattern settings', { exact: true }).click();
   await expect(page.getByText('Sewing', { exact: true })).toBeVisible();

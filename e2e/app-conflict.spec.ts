@@ -45,7 +45,7 @@ test('a stale save shows who saved, keeps the drawing and can keep it as a copy;
   await expect(conflict).toBeVisible({ timeout: 20_000 });
   await expect(conflict).toContainText('Cora Conflict saved revision 2');
   await expect(second.getByRole('status').filter({ hasText: 'Not saved: someone else saved first' })).toBeVisible();
-  expect(await board2.counts()).toEqual({ sections: 2, seams: 1 });
+  await expect.poll(() => board2.counts()).toEqual({ sections: 2, patches: 3 });
   await shot(second, 'board-conflict');
 
   // Keep mine as a copy: a new pattern holding the second tab's drawing.
@@ -53,7 +53,7 @@ test('a stale save shows who saved, keeps the drawing and can keep it as a copy;
   await expect(new PatternPage(second).heading()).toHaveText('Gate Study (my copy)');
   expect(new URL(second.url()).pathname).not.toContain(id);
   await board2.ready();
-  await expect.poll(() => board2.counts()).toEqual({ sections: 2, seams: 1 });
+  await expect.poll(() => board2.counts()).toEqual({ sections: 2, patches: 3 });
 
   // Leaving with unsaved changes asks; dismissing stays on the board.
   await board1.tool('l');

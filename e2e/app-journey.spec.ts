@@ -83,7 +83,7 @@ test('designer drafts, prints and shares; quilter sews and checks the scale; a s
   await board.drag(C, { x: 20, y: 12 });
   await board.click({ x: 17, y: 12 });
   await board.click({ x: 12, y: 18 });
-  await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
+  await expect(board.hint()).toHaveText('Press at the centre and drag out to the outer radius');
   await board.tool('l');
   for (const deg of [22.5, 45, 67.5]) await board.drag(polar(5, deg), polar(8, deg));
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);

@@ -41,12 +41,12 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   // Arc section: press at the centre, drag out to the outer radius along 0°, release; click the
   // inner radius; click the end angle (90°). The ⅛ in. grid snap makes the numbers exact.
   await board.tool('a');
-  await expect(board.board()).toHaveAttribute('data-tool', 'arc');
+  await expect(board.liveRegion()).toHaveText(/^Arc section tool/);
   await board.drag(C, polar(outer, 0));
-  await expect(board.board()).toHaveAttribute('data-tool-state', 'inner');
+  await expect(board.hint()).toHaveText('Click at the inner radius');
   await board.click(polar(inner, 0));
   await board.click(polar(mid, 90));
-  await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
+  await expect(board.hint()).toHaveText('Press at the centre and drag out to the outer radius');
   await expect(page.getByLabel('Inner radius')).toHaveValue(String(inner));
   await expect(page.getByLabel('Outer radius')).toHaveValue(String(outer));
   await expect(page.getByLabel('Sweep (°)')).toHaveValue('90');
@@ -55,7 +55,8 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   // Split: three radial seams from the inner to the outer arc.
   await board.tool('l');
   for (const deg of [22.5, 45, 67.5]) await board.drag(polar(inner, deg), polar(outer, deg));
-  expect(await board.counts()).toEqual({ sections: 1, seams: 3 });
+  // Three seams across one section: four patches in the Sections outline.
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 4 });
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
   await expect.poll(() => board.orderLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
 
@@ -91,7 +92,7 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
   await new PatternPage(page).waitForSaved();
   await page.reload();
   await board.ready();
-  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 3 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 4 });
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3', 'A4']);
   await board.tool('v');
   await board.click(polar(mid, 33));
@@ -116,7 +117,7 @@ test('select, split twice at once from one corner, fill each patch, and find eac
   // An 8 in. square from (2, 2) to (10, 10), closed on its first corner.
   await board.tool('s');
   for (const p of [{ x: 2, y: 2 }, { x: 10, y: 2 }, { x: 10, y: 10 }, { x: 2, y: 10 }, { x: 2, y: 2 }]) await board.click(p);
-  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
 
   // Select it (the side panel grows with its corners), then at once two seams fanning from (2, 2).
   await board.tool('v');
@@ -126,7 +127,7 @@ test('select, split twice at once from one corner, fill each patch, and find eac
   await board.tool('l');
   await board.drag({ x: 2, y: 2 }, { x: 10, y: 4 });
   await board.drag({ x: 2, y: 2 }, { x: 10, y: 6 });
-  await expect.poll(() => board.counts()).toEqual({ sections: 1, seams: 2 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 3 });
   await expect.poll(() => board.boardLabels()).toEqual(['A1', 'A2', 'A3']);
   // The view never moved while the panel changed.
   expect(await board.viewport()).toEqual(view);
@@ -141,7 +142,8 @@ test('select, split twice at once from one corner, fill each patch, and find eac
     await page.getByRole('option', { name: names[fabricOf[where]] }).click();
     await board.click(inside[where]);
   }
-  await expect.poll(() => board.patchFabrics()).toEqual(['oat', 'plum', 'sage']);
+  // The Sections outline names each patch's fabric.
+  await expect.poll(() => board.patchFabrics()).toEqual(['Oat', 'Plum', 'Sage']);
 
   // The saved document: each click point lies in the patch that carries its fabric (piecing derives them).
   await new PatternPage(page).waitForSaved();

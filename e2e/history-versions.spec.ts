@@ -32,7 +32,8 @@ test('autosaves of one sitting share a History row; a named version with a note 
     await board.drag({ x: 0, y }, { x: 8, y });
     await expect(savedAs(i + 2)).toBeVisible({ timeout: 20_000 });
   }
-  expect(await board.counts()).toEqual({ sections: 2, seams: 3 });
+  // Three seams, each splitting one patch of the two sections: five patches.
+  await expect.poll(() => board.counts()).toEqual({ sections: 2, patches: 5 });
 
   // Save as version: the drawing as it stands becomes revision 5, named.
   await page.getByRole('button', { name: 'Save as version' }).click();

@@ -48,8 +48,8 @@ test('trace an image: upload keeps undo, then opacity, move, scale and remove ar
   await board.drag(C, polar(4, 0));
   await board.click(polar(2, 0));
   await board.click(polar(3, 90));
-  await expect(board.board()).toHaveAttribute('data-tool-state', 'idle');
-  expect(await board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect(board.hint()).toHaveText('Press at the centre and drag out to the outer radius');
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
   const drawn = await pattern.waitForSaved();
 
   // A 1 × 1 PNG (PNG signature and chunks per ISO/IEC 15948), built inline.
@@ -66,12 +66,12 @@ test('trace an image: upload keeps undo, then opacity, move, scale and remove ar
   await board.board().focus();
   await page.keyboard.press('Control+z');
   await expect(panel).toBeHidden();
-  expect(await board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
   await page.keyboard.press('Control+z');
-  expect(await board.counts()).toEqual({ sections: 0, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 0, patches: 0 });
   await page.keyboard.press('Control+Shift+z');
   await page.keyboard.press('Control+Shift+z');
-  expect(await board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
   await expect(panel).toBeVisible();
 
   // Opacity from the labelled slider.
@@ -103,13 +103,13 @@ test('trace an image: upload keeps undo, then opacity, move, scale and remove ar
   // The first point stays put: origin' = p − (p − origin)·k with p ≈ (2, 2), origin (⅛, ⅛), k ≈ 2.
   expect(scaled.origin.x).toBeCloseTo(2 - (2 - 0.125) * 2, 0);
   expect(scaled.origin.y).toBeCloseTo(2 - (2 - 0.125) * 2, 0);
-  expect(await board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
   await page.screenshot({ path: 'e2e/artifacts/trace-image-panel.png' });
 
   // Remove: the saved document has no image; the drawing stays.
   await panel.getByRole('button', { name: 'Remove image' }).click();
   await expect(panel).toBeHidden();
   await expect.poll(async () => (await savedImage(page, patternId)) === undefined, { timeout: 20_000 }).toBe(true);
-  expect(await board.counts()).toEqual({ sections: 1, seams: 0 });
+  await expect.poll(() => board.counts()).toEqual({ sections: 1, patches: 1 });
   expect(errors).toEqual([]);
 });

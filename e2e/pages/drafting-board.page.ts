@@ -1,4 +1,5 @@
 import { expect, type Locator, type Page } from '@playwright/test';
+import { parseLength } from '../../projects/piecing/src/public-api';
 
 /** A point in the pattern's inches. */
 export interface InchPoint {
@@ -6,18 +7,22 @@ export interface InchPoint {
   y: number;
 }
 
-interface BoardHandle {
-  editor: {
-    viewport: { scale: number; originX: number; originY: number; mirrored: boolean; mirrorWidthIn: number };
-    store: { document: { sections: Array<{ seams: unknown[] }> } };
-  };
-  renderer: { stage: { find(selector: string): Array<{ text(): string; visible(): boolean }> } };
+/** The board's view as the status line shows it. */
+export interface BoardView {
+  /** Screen pixels per inch. */
+  scale: number;
+  /** The document point at the board's top-left corner, in inches. */
+  left: number;
+  top: number;
+  mirrored: boolean;
 }
 
 /**
- * The Drafting board of `<sw-pattern-editor>` as a user drives it: tools by their keys, pointer
- * gestures at positions in inches (converted with the board's own view), the piecing-order list and
- * the sewability verdict by their roles.
+ * The Drafting board of `<sw-pattern-editor>` as a user meets it, and nothing else: the board by its
+ * role and name, tools by their keys, pointer positions worked out from the board's box on screen and
+ * the view the status line shows (zoom in pixels per inch, the point at the top-left corner), the
+ * Sections outline for what is drawn (sections, their patches and fabrics), the side panel's fields,
+ * the live region, the piecing-order list and the sewability verdict.
  */
 export class DraftingBoardPage {
   constructor(private readonly page: Page) {}
@@ -27,31 +32,59 @@ export class DraftingBoardPage {
     return this.page.getByRole('application', { name: 'Drafting board' });
   }
 
-  /** Waits until the board's Konva stage is up. */
-  async ready(): Promise<void> {
-    await expect(this.board()).toBeVisible();
-    await this.page.waitForFunction(() => Boolean((document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard?: unknown })?.swBoard));
+  /** The Sections outline (an ARIA tree). */
+  outline(): Locator {
+    return this.page.getByRole('tree', { name: 'Sections' });
   }
 
-  /** Screen position of a point in inches, from the board's current view. */
+  /** The editor's live region (what is selected, what each key did). */
+  liveRegion(): Locator {
+    return this.page.locator('sw-board-announcer').getByRole('status');
+  }
+
+  /** The status line's view readout. */
+  viewReadout(): Locator {
+    return this.page.getByLabel('View', { exact: true });
+  }
+
+  /** Waits until the board is drawn (its canvas shown) and the status line shows the view. */
+  async ready(): Promise<void> {
+    await expect(this.board()).toBeVisible();
+    await expect(this.board().locator('canvas').first()).toBeVisible();
+    await expect(this.viewReadout()).toHaveText(/px per in\./);
+    await expect(this.page.getByRole('heading', { name: 'Sections', exact: true })).toBeVisible();
+  }
+
+  /** The view as the status line shows it. */
+  async viewport(): Promise<BoardView> {
+    const text = (await this.viewReadout().textContent()) ?? '';
+    const m = /\(([\d.]+) px per in\.\), top left x (-?[\d.]+) in\., y (-?[\d.]+) in\.(, mirrored)?/.exec(text);
+    if (!m) throw new Error(`the status line shows no view: "${text}"`);
+    return { scale: Number(m[1]), left: Number(m[2]), top: Number(m[3]), mirrored: m[4] !== undefined };
+  }
+
+  /** Screen position of a point in inches: the board's box on screen and the view the status line shows. */
   async screen(p: InchPoint): Promise<InchPoint> {
-    return this.page.evaluate(([x, y]) => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: BoardHandle };
-      const v = el.swBoard.editor.viewport;
-      const r = el.getBoundingClientRect();
-      const sx = v.mirrored ? v.mirrorWidthIn - x : x;
-      return { x: r.left + v.originX + sx * v.scale, y: r.top + v.originY + y * v.scale };
-    }, [p.x, p.y] as const);
+    const box = await this.board().boundingBox();
+    if (!box) throw new Error('the board is not on screen');
+    const v = await this.viewport();
+    const dx = v.mirrored ? v.left - p.x : p.x - v.left;
+    return { x: box.x + dx * v.scale, y: box.y + (p.y - v.top) * v.scale };
   }
 
   /** Picks a tool with its key (the board gets focus first). */
   async tool(key: string): Promise<void> {
     await this.board().focus();
     await this.page.keyboard.press(key);
-    await expect(this.board()).toHaveAttribute('data-tool', /.+/);
+    await expect(this.board()).toBeFocused();
   }
 
-  /** Presses, drags through `via` and releases. */
+  /** What the active tool asks for next (the status line's hint). */
+  hint(): Locator {
+    return this.page.locator('sw-board-status .hint');
+  }
+
+  /** Presses, drags through the middle and releases. */
   async drag(from: InchPoint, to: InchPoint, steps = 6): Promise<void> {
     const a = await this.screen(from);
     const b = await this.screen(to);
@@ -70,49 +103,46 @@ export class DraftingBoardPage {
     await this.page.mouse.up();
   }
 
-  /** Patch labels drawn on the board (the Konva text nodes of section copy 0), sorted. */
+  /** The outline's section items ("B, arc section, 4 patches"). */
+  sectionItems(): Locator {
+    return this.outline().locator('[role="treeitem"][aria-level="1"]');
+  }
+
+  /** The outline's patch items ("A2" or "A2, Plum"), of every open section. */
+  patchItems(): Locator {
+    return this.outline().locator('[role="treeitem"][aria-level="2"]');
+  }
+
+  /** The number of sections and of patches, as the Sections outline lists them. */
+  async counts(): Promise<{ sections: number; patches: number }> {
+    if ((await this.outline().count()) === 0) return { sections: 0, patches: 0 };
+    const names = await this.sectionItems().evaluateAll((items) => items.map((li) => li.getAttribute('aria-label') ?? ''));
+    const patches = names.reduce((n, name) => n + Number(/(\d+) patch(es)?$/.exec(name)?.[1] ?? 0), 0);
+    return { sections: names.length, patches };
+  }
+
+  /** The patch labels the Sections outline lists, sorted. */
   async boardLabels(): Promise<string[]> {
-    return this.page.evaluate(() => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: BoardHandle };
-      return el.swBoard.renderer.stage
-        .find('.patch-label')
-        .map((n) => n.text())
-        .sort();
-    });
+    if ((await this.outline().count()) === 0) return [];
+    const texts = await this.patchItems().allTextContents();
+    return texts.map((t) => t.trim().split(',')[0]).sort();
   }
 
-  /** The board's view (scale and offset), to check it did not move. */
-  async viewport(): Promise<{ scale: number; originX: number; originY: number }> {
-    return this.page.evaluate(() => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: BoardHandle };
-      const { scale, originX, originY } = el.swBoard.editor.viewport;
-      return { scale, originX, originY };
-    });
-  }
-
-  /** The fabric ids of the first section's patch assignments, sorted (what the board's document holds). */
+  /** The fabric names of the first section's patches as the outline names them ('' for none), sorted. */
   async patchFabrics(): Promise<string[]> {
-    return this.page.evaluate(() => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: { editor: { store: { document: { sections: Array<{ patches: Array<{ fabricId?: string }> }> } } } } };
-      return (el.swBoard.editor.store.document.sections[0]?.patches ?? []).map((p) => p.fabricId ?? '').sort();
-    });
+    const first = this.sectionItems().first().locator('[role="treeitem"]');
+    const texts = await first.allTextContents();
+    return texts.map((t) => t.trim().split(', ')[1] ?? '').sort();
   }
 
-  /** The drawing area of the board's document, in inches. */
+  /** The drawing area, from the side panel's Drawing width and height (shown with nothing selected). */
   async canvas(): Promise<{ widthIn: number; heightIn: number }> {
-    return this.page.evaluate(() => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: { editor: { store: { document: { canvas: { widthIn: number; heightIn: number } } } } } };
-      return el.swBoard.editor.store.document.canvas;
-    });
-  }
-
-  /** Number of sections and seams in the board's document. */
-  async counts(): Promise<{ sections: number; seams: number }> {
-    return this.page.evaluate(() => {
-      const el = document.querySelector('[aria-label="Drafting board"]') as HTMLElement & { swBoard: BoardHandle };
-      const sections = el.swBoard.editor.store.document.sections;
-      return { sections: sections.length, seams: sections.reduce((n, s) => n + s.seams.length, 0) };
-    });
+    const read = async (label: string) => {
+      const r = parseLength(await this.page.getByLabel(label, { exact: true }).inputValue(), 'in');
+      if (!r.ok) throw new Error(`${label}: ${r.message}`);
+      return r.inches;
+    };
+    return { widthIn: await read('Drawing width'), heightIn: await read('Drawing height') };
   }
 
   /** The piecing-order list. */
