@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import contentDisposition from 'content-disposition';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
@@ -65,11 +66,57 @@ describe('reference image uploads', () => {
     expect(json.status).toBe(415);
   });
 
-  it('stores a hostile file name harmlessly under its own id', async () => {
+  it('stores a hostile file name harmlessly under its own id, and downloads it', async () => {
     const res = await upload(owner, TINY_PNG, '../../../seamwright.db.png').expect(201);
     expect(res.body.upload.fileName).not.toContain('/');
     const file = path.join(t.dataDir, 'uploads', owner.user!.id, `${res.body.upload.id}.png`);
     expect(fs.readFileSync(file).equals(TINY_PNG)).toBe(true);
+    const got = await owner.get(res.body.upload.url).buffer(true).expect(200);
+    expect(Buffer.from(got.body).equals(TINY_PNG)).toBe(true);
+    expect(contentDisposition.parse(got.headers['content-disposition']).parameters['filename']).toBe(res.body.upload.fileName);
+  });
+
+  /** A multipart body written by hand, so the part's Content-Disposition is exactly `disposition`. */
+  const rawUpload = (disposition: Buffer | string) => {
+    const boundary = 'sw-boundary-7d1a';
+    const body = Buffer.concat([
+      Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; `),
+      Buffer.from(disposition),
+      Buffer.from('\r\nContent-Type: image/png\r\n\r\n'),
+      TINY_PNG,
+      Buffer.from(`\r\n--${boundary}--\r\n`),
+    ]);
+    return owner.req('post', `/api/patterns/${id}/uploads`).set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
+  };
+
+  /** Downloads an upload and returns the file name its Content-Disposition gives (RFC 6266 parsing). */
+  const downloadedName = async (url: string) => {
+    const got = await owner.get(url).buffer(true);
+    expect(got.status, JSON.stringify(got.body)).toBe(200);
+    expect(Buffer.from(got.body).equals(TINY_PNG)).toBe(true);
+    return contentDisposition.parse(got.headers['content-disposition']).parameters['filename'];
+  };
+
+  it('keeps a UTF-8 name sent as filename*=UTF-8\'\' (RFC 5987) and sends it back intact', async () => {
+    const name = 'キルト 🧵 Ñandú.png';
+    const res = await rawUpload(`filename*=UTF-8''${encodeURIComponent(name)}`).expect(201);
+    expect(res.body.upload.fileName).toBe(name);
+    expect(await downloadedName(res.body.upload.url)).toBe(name);
+    const listed = await owner.get(`/api/patterns/${id}/uploads`).expect(200);
+    expect(listed.body.items.find((u: { id: string }) => u.id === res.body.upload.id).fileName).toBe(name);
+  });
+
+  it('keeps a raw UTF-8 name (as browsers send it) instead of reading its bytes as Latin-1', async () => {
+    const name = 'نقشه لحاف ☂.png';
+    const res = await rawUpload(Buffer.concat([Buffer.from('filename="'), Buffer.from(name, 'utf8'), Buffer.from('"')])).expect(201);
+    expect(res.body.upload.fileName).toBe(name);
+    expect(await downloadedName(res.body.upload.url)).toBe(name);
+  });
+
+  it('drops control characters, quotes stay, and the download never fails on a name', async () => {
+    const res = await rawUpload(`filename*=UTF-8''${encodeURIComponent('a\u001b[31mred\u0007 "quoted"\u0085\u202e.png')}`).expect(201);
+    expect(res.body.upload.fileName).toBe('a[31mred "quoted".png');
+    expect(await downloadedName(res.body.upload.url)).toBe('a[31mred "quoted".png');
   });
 
   it('deletes an upload and its file', async () => {

@@ -2,6 +2,8 @@ import fs from 'node:fs';
 import { and, desc, eq } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import multer from 'multer';
+import contentDisposition from 'content-disposition';
+import { stripControlCharacters } from '@seamwright/api';
 import { fileTypeFromBuffer } from 'file-type';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
@@ -30,9 +32,22 @@ export function uploadJson(u: Upload) {
   };
 }
 
-/** A printable, harmless version of a client's file name. */
-const cleanName = (name: string) =>
-  (name.normalize('NFC').replace(/[^\p{L}\p{N} ._()-]/gu, '_').replace(/^\.+/, '').slice(0, 120) || 'image');
+/**
+ * A harmless version of a client's file name that keeps its text (any script, emoji): NFC, without
+ * control characters (C0, DEL, C1), bidirectional overrides (which can disguise an extension), path
+ * separators or leading dots, at most 120 characters. It only names the download; the file is stored
+ * under its id.
+ */
+export const cleanFileName = (name: string) =>
+  Array.from(
+    stripControlCharacters(name.normalize('NFC'))
+      .replace(/[\u202a-\u202e\u2066-\u2069]/g, '')
+      .replace(/[/\\]/g, '_')
+      .trim()
+      .replace(/^\.+/, ''),
+  )
+    .slice(0, 120)
+    .join('') || 'image';
 
 /** `/api/patterns/:id/uploads…`: reference images to trace on the drafting board. */
 export function uploadsRouter(ctx: AppContext): Router {
@@ -41,6 +56,9 @@ export function uploadsRouter(ctx: AppContext): Router {
   const receive = multer({
     storage: multer.memoryStorage(),
     limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5, fieldSize: 1024, parts: 8 },
+    // Browsers send a UTF-8 name as raw bytes in filename="…"; `filename*=UTF-8''…` (RFC 5987) is
+    // decoded by its own charset either way.
+    defParamCharset: 'utf8',
   }).single('file');
 
   const readFile = (req: Request, res: Response) =>
@@ -79,7 +97,7 @@ export function uploadsRouter(ctx: AppContext): Router {
           id,
           patternId: pattern.id,
           uploaderId: user.id,
-          fileName: cleanName(file.originalname),
+          fileName: cleanFileName(file.originalname),
           mimeType: type.mime,
           bytes: file.size,
           sha256: sha256Hex(file.buffer),
@@ -114,7 +132,8 @@ export function uploadsRouter(ctx: AppContext): Router {
     const file = resolveInData(config.dataDir, row.storagePath);
     if (!fs.existsSync(file)) throw new HttpError(404, 'Upload not found');
     res.setHeader('Content-Type', row.mimeType);
-    res.setHeader('Content-Disposition', `inline; filename="${row.fileName.replace(/"/g, '')}"`);
+    // RFC 6266: an ASCII fallback in filename= and the exact name in filename*=UTF-8''… (RFC 5987).
+    res.setHeader('Content-Disposition', contentDisposition(row.fileName, { type: 'inline' }));
     res.setHeader('Cache-Control', 'private, max-age=3600');
     res.sendFile(file, { headers: { 'Content-Type': row.mimeType } }, (err) => {
       if (err && !res.headersSent) next(err);

@@ -1,4 +1,5 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
+import { multiLineText, singleLineText } from '@seamwright/api';
 import { parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
 import type { Response } from 'express';
 import type { DbLike } from '../db/database';
@@ -19,7 +20,25 @@ export function validDocument(raw: unknown): PatternDocument {
       result.issues.map((i) => ({ path: i.path ? `document.${i.path}` : 'document', message: i.message })),
     );
   }
-  return result.document;
+  return withoutControlCharacters(result.document);
+}
+
+/**
+ * The document's text without control characters (the API edge's rule, docs/api.md): title, fabric
+ * and strip-set names, section notes and the designer's notes. A title left empty is refused.
+ */
+function withoutControlCharacters(doc: PatternDocument): PatternDocument {
+  const title = singleLineText(doc.title).trim();
+  if (!title) throw new HttpError(400, 'The pattern document is not valid', [{ path: 'document.title', message: 'must not be empty' }]);
+  doc.title = title;
+  for (const f of doc.fabrics ?? []) f.name = singleLineText(f.name).trim() || 'Fabric';
+  for (const section of doc.sections as { name?: string; note?: string }[]) {
+    if (typeof section.name === 'string') section.name = singleLineText(section.name);
+    if (typeof section.note === 'string') section.note = multiLineText(section.note);
+  }
+  const withNotes = doc as { notes?: string };
+  if (typeof withNotes.notes === 'string') withNotes.notes = multiLineText(withNotes.notes);
+  return doc;
 }
 
 export function revisionSummary(r: Revision, authorName: string) {

@@ -152,3 +152,4 @@ export {
   minorUnitName,
   type ShopCurrency,
 } from './money';
+export { stripControlCharacters, singleLineText, multiLineText } from './text';

@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { MEMBER_ACCESS, ROLES, SEWING_STAGES } from './constants';
+import { multiLineText, singleLineText } from './text';
 
 /** Ids made by the server: url-safe letters and digits, nothing that can walk a path. */
 export const idSchema = z
@@ -33,7 +34,7 @@ export const passwordSchema = z
 export const signUpBodySchema = z.strictObject({
   email: emailSchema,
   password: passwordSchema,
-  displayName: z.string().trim().min(1).max(80),
+  displayName: z.string().overwrite(singleLineText).trim().min(1).max(80),
   role: z.enum(['designer', 'quilter']),
 });
 export type SignUpBody = z.input<typeof signUpBodySchema>;
@@ -94,7 +95,7 @@ export const saveRevisionBodySchema = z.strictObject({
 });
 
 /** `POST /api/patterns/:id/duplicate`. */
-export const duplicateBodySchema = z.strictObject({ title: z.string().trim().min(1).max(120).optional() });
+export const duplicateBodySchema = z.strictObject({ title: z.string().overwrite(singleLineText).trim().min(1).max(120).optional() });
 
 /** `POST /api/patterns/:id/revisions/:number/restore`. */
 export const restoreBodySchema = z.strictObject({ baseRevision: z.number().int().min(1) });
@@ -102,8 +103,8 @@ export const restoreBodySchema = z.strictObject({ baseRevision: z.number().int()
 /** `POST /api/patterns/:id/revisions`: a named version, of `document` or of the latest revision. */
 export const saveVersionBodySchema = z.strictObject({
   baseRevision: z.number().int().min(1),
-  name: z.string().trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
-  note: z.string().trim().max(500, 'must be at most 500 characters').optional(),
+  name: z.string().overwrite(singleLineText).trim().min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
+  note: z.string().overwrite(multiLineText).trim().max(500, 'must be at most 500 characters').optional(),
   /** The document to keep; the latest revision's when omitted. */
   document: z.unknown().optional(),
   editSession: editSessionSchema.optional(),

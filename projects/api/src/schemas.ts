@@ -5,6 +5,7 @@
  * Times are ISO 8601 strings. Answers are strict objects: a field the server adds must be added here.
  */
 import { z } from 'zod';
+import { multiLineText } from './text';
 import type { PatternDocument, PatternDocumentInput } from '@seamwright/piecing';
 import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, SHOP_CURRENCIES } from './money';
 import { MEMBER_ACCESS, ORDER_STATUSES, PRINT_SET_STATUSES, ROLES, SEWING_STAGES } from './constants';
@@ -311,7 +312,7 @@ export type ShopBody = z.infer<typeof shopBodySchema>;
 /** `PUT /api/shop/listings/:patternId`: price in minor units, description, published or not. */
 export const listingBodySchema = z.strictObject({
   priceMinor: z.number().int().min(MIN_PRICE_MINOR).max(MAX_PRICE_MINOR),
-  description: z.string().trim().min(1, 'is required').max(2000),
+  description: z.string().overwrite(multiLineText).trim().min(1, 'is required').max(2000),
   published: z.boolean(),
 });
 export type ListingBody = z.infer<typeof listingBodySchema>;
