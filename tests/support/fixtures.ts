@@ -61,7 +61,7 @@ export async function buildWorld(server: ServerProcess, label = 'world'): Promis
   expect(pending.status, pending.text).toBe(201);
   const invitationToken = decodeURIComponent(/[?&]token=([^&\s"'<>]+)/.exec((await pendingMail).text)?.[1] ?? '');
 
-  const log = await owner.put(`/api/patterns/${patternId}/sewing-log/${sectionIds[0]}`, { stage: 'cut' });
+  const log = await owner.put(`/api/patterns/${patternId}/sewing-log/${sectionIds[0]}`, { stage: 'pieced' });
   expect(log.status, log.text).toBe(200);
   const up = await owner.request('POST', `/api/patterns/${patternId}/uploads`, { body: uploadForm(TINY_PNG) });
   expect(up.status, up.text).toBe(201);
