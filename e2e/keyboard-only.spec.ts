@@ -1,0 +1,127 @@
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { readPatternDocument, type PatternDocumentInput } from '../projects/piecing/src/public-api';
+import { DraftingBoardPage } from './pages/drafting-board.page';
+import { PatternPage } from './pages/pattern.page';
+
+/*
+ * The whole path a keyboard user takes, without the mouse at any step (only page.keyboard): sign in,
+ * create a pattern from a starter, select section B from the Sections outline, nudge it ⅛ in. right
+ * (the saved document shows it), undo, open the cutting list, make a print set and download it. The
+ * account itself is made through the API beforehand (signing up is not part of this path).
+ */
+
+const run = Date.now().toString(36);
+const user = { displayName: 'Kay Keys', email: `kay-${run}@example.test`, password: 'no-mouse-today-8', role: 'designer' as const };
+
+/** Whether `target` has focus. */
+const hasFocus = (target: Locator) => target.evaluate((el) => el === document.activeElement || el.contains(document.activeElement));
+
+/** Presses `key` (Tab by default) until `target` has focus, as a keyboard user moves through a page. */
+async function pressUntilFocused(page: Page, target: Locator, key = 'Tab', max = 80): Promise<void> {
+  await expect(target).toBeVisible();
+  for (let i = 0; i < max; i++) {
+    if (await hasFocus(target)) return;
+    await page.keyboard.press(key);
+  }
+  throw new Error(`${key} × ${max} never reached ${String(target)}`);
+}
+
+/** The saved B section's first corner, read through the API. */
+async function savedCornerOfB(page: Page, patternId: string): Promise<{ x: number; y: number }> {
+  const stored = (await (await page.request.get(`/api/patterns/${patternId}`)).json()) as { revision: { document: PatternDocumentInput } };
+  const b = readPatternDocument(stored.revision.document).sections.find((s) => s.label === 'B');
+  if (!b || b.geometry.kind !== 'straight') throw new Error('no straight section B saved');
+  return b.geometry.vertices[0];
+}
+
+test('a keyboard alone: sign in, select B in the outline, nudge it, undo, cutting list, print set downloaded', async ({ page, playwright, baseURL }) => {
+  test.setTimeout(150_000);
+  await page.setViewportSize({ width: 1366, height: 1000 });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+
+  // The account, made through the API in a context of its own (the browser is not signed in by it).
+  const api = await playwright.request.newContext({ baseURL });
+  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  expect((await api.post('/api/auth/sign-up', { data: user, headers: { 'x-csrf-token': csrfToken } })).status()).toBe(201);
+  await api.dispose();
+
+  // Sign in: Tab to the fields, type, Enter.
+  await page.goto('/sign-in');
+  await pressUntilFocused(page, page.getByLabel('E-mail'));
+  await page.keyboard.type(user.email);
+  await pressUntilFocused(page, page.getByLabel('Password'));
+  await page.keyboard.type(user.password);
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('heading', { name: 'Patterns' })).toBeVisible();
+
+  // New pattern from the "Two straight sections" starter (A above B).
+  await pressUntilFocused(page, page.getByRole('button', { name: 'New pattern' }));
+  await page.keyboard.press('Enter');
+  const dialog = page.getByRole('dialog', { name: 'New pattern' });
+  await pressUntilFocused(page, dialog.getByLabel('Title'));
+  await page.keyboard.type(`Keys only ${run}`);
+  await pressUntilFocused(page, dialog.getByRole('radio', { checked: true }));
+  await pressUntilFocused(page, dialog.getByRole('radio', { name: /Two straight sections/ }), 'ArrowDown', 6);
+  await expect(dialog.getByRole('radio', { name: /Two straight sections/ })).toBeChecked();
+  await pressUntilFocused(page, dialog.getByRole('button', { name: 'Create' }));
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/\/patterns\/[^/]+\/board$/);
+  const patternId = new URL(page.url()).pathname.split('/')[2];
+  const board = new DraftingBoardPage(page);
+  await board.ready();
+
+  // The Sections outline: one Tab stop; Down, Down reaches section B; Enter selects it on the board.
+  const itemB = board.sectionItems().filter({ has: page.getByText('B, straight section, 1 patch') });
+  await pressUntilFocused(page, board.outline().getByRole('treeitem', { name: 'A, straight section, 1 patch' }));
+  await page.keyboard.press('ArrowDown');
+  await page.keyboard.press('ArrowDown');
+  await expect(itemB).toBeFocused();
+  await page.keyboard.press('Enter');
+  await expect(board.liveRegion()).toHaveText('Section B selected: straight section, 1 patch');
+  await expect(itemB).toHaveAttribute('aria-selected', 'true');
+  await expect(itemB).toBeFocused();
+  await expect(page.getByRole('heading', { name: /Section B/ })).toBeVisible();
+
+  // Back to the board (it comes before the side column), then one arrow press: ⅛ in. right.
+  await pressUntilFocused(page, board.board(), 'Shift+Tab');
+  await page.keyboard.press('ArrowRight');
+  await expect(board.liveRegion()).toHaveText(/^Section B moved ⅛ in\. right\s*$/);
+  await new PatternPage(page).waitForSaved();
+  await expect.poll(() => savedCornerOfB(page, patternId), { timeout: 20_000 }).toEqual({ x: 0.125, y: 4 });
+
+  // Undo: one step, and the saved document is back where it was.
+  await page.keyboard.press('Control+z');
+  await expect(board.liveRegion()).toHaveText(/^Undone: move section B\s*$/);
+  await expect.poll(() => savedCornerOfB(page, patternId), { timeout: 20_000 }).toEqual({ x: 0, y: 4 });
+
+  // The cutting list: the parts of the pattern are tabs (Tab reaches the current one, arrows move).
+  const parts = new PatternPage(page).parts();
+  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Shift+Tab', 120);
+  await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Cutting list' }), 'ArrowRight', 8);
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/\/cutting$/);
+  await expect(page.getByRole('heading', { name: /^Cutting list — / })).toBeVisible();
+
+  // Print: make a print set and download it.
+  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Shift+Tab', 120);
+  await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Print' }), 'ArrowRight', 8);
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/\/print$/);
+  await pressUntilFocused(page, page.getByRole('button', { name: 'Make print set' }));
+  await page.keyboard.press('Enter');
+  const ready = page.getByRole('status').filter({ hasText: /Ready: \d+ pages/ });
+  await expect(ready).toBeVisible({ timeout: 45_000 });
+  const download = page.getByRole('status').getByRole('link', { name: 'Download' });
+  await pressUntilFocused(page, download);
+  const file = page.waitForEvent('download');
+  await page.keyboard.press('Enter');
+  const pdf = await (await file).createReadStream();
+  const chunks: Buffer[] = [];
+  for await (const c of pdf) chunks.push(c as Buffer);
+  const bytes = Buffer.concat(chunks);
+  // A PDF file starts with "%PDF-" (ISO 32000-1, 7.5.2 File Header).
+  expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  expect(bytes.length).toBeGreaterThan(1000);
+  expect(errors).toEqual([]);
+});
