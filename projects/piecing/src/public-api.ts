@@ -143,7 +143,7 @@ export {
   finishedBlockSize,
   buildPieceTemplates,
   type UnsewableSection,
-  type FinishedSize,
+  type FinishedBlockSize,
   type PieceTemplate,
   sheetCountStatement,
   type PaperName,

@@ -14,5 +14,5 @@ export { buildPrintTemplates } from './print-templates';
 export { layoutTemplates } from './plan-print-layout';
 export { planPrintLayout, renderPrintSet, type PrintSetResult, type PrintProgress, type RenderPrintSetOptions } from './render-print-set';
 export { findUnsewableSections, unsewableStatement, UnsewablePatternError, type UnsewableSection } from './booklet/unsewable-sections';
-export { finishedBlockSize, type FinishedSize } from './booklet/finished-size';
+export { finishedBlockSize, type FinishedBlockSize } from './booklet/finished-size';
 export { buildPieceTemplates, type PieceTemplate } from './piece-templates/build-piece-templates';

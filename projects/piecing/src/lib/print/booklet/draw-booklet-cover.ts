@@ -6,7 +6,7 @@ import type { SheetFrame } from '../sheet-frame';
 import type { BookletContext } from './booklet-context';
 import { copiesRuleText, type CopiesFigures } from './copies-figures';
 import { drawShape, fitDiagram, lighten } from './diagram';
-import { sectionCopyOutlines, type FinishedSize } from './finished-size';
+import { sectionCopyOutlines, type FinishedBlockSize } from './finished-size';
 import { patternNotes } from './draw-notes-and-cautions';
 import { yardsText } from './draw-fabric-requirements';
 import { unsewableStatement } from './unsewable-sections';
@@ -23,7 +23,7 @@ export interface ContentsEntry {
 
 /** Everything the cover needs beyond the document. */
 export interface CoverFacts {
-  finished: FinishedSize | null;
+  finished: FinishedBlockSize | null;
   layout: PrintLayout;
   copies: CopiesFigures;
   pieceTemplates: readonly PieceTemplate[];
@@ -33,7 +33,7 @@ export interface CoverFacts {
 const CM_PER_IN = 2.54; // 1 in. = 25.4 mm exactly
 
 /** "26 × 26 in. (66 × 66 cm)" */
-export function finishedSizeText(size: FinishedSize): string {
+export function finishedSizeText(size: FinishedBlockSize): string {
   const cm = (v: number) => String(Math.round(v * CM_PER_IN * 10) / 10);
   return `${fmtIn(round3(size.widthIn))} × ${fmtIn(round3(size.heightIn))} in. (${cm(size.widthIn)} × ${cm(size.heightIn)} cm)`;
 }

@@ -3,7 +3,7 @@ import { polygonBounds, ringRepeatTransforms, rotatePoint } from '../../geometry
 import { sectionSewingLine } from '../../fabrication/index';
 
 /** The finished block: the bounding box of every section's sewing line, ring copies included. */
-export interface FinishedSize {
+export interface FinishedBlockSize {
   widthIn: number;
   heightIn: number;
   minX: number;
@@ -20,7 +20,7 @@ export function sectionCopyOutlines(section: Section): Point[][] {
  * The finished size of the block: the sections' bounding box, not the drawing area (a pattern drawn
  * on a 30 in. canvas may finish at 26 in.). Null when the document has no section.
  */
-export function finishedBlockSize(document: Pick<PatternDocument, 'sections'>): FinishedSize | null {
+export function finishedBlockSize(document: Pick<PatternDocument, 'sections'>): FinishedBlockSize | null {
   const points = document.sections.flatMap((s) => sectionCopyOutlines(s).flat());
   if (points.length === 0) return null;
   const b = polygonBounds(points);
