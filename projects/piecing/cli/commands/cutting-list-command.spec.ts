@@ -31,6 +31,9 @@ describe('seamwright cutting-list', () => {
     expect(out).toContain('Orchard Wheel: cutting list for 1 block, ¼ in. seam allowance, ½ in. piecing margin');
     expect(out).toContain('Plum (#6d3b5e), usable WOF 42 in.: buy ⅜ yd (13 ½ in.)');
     expect(out).toContain('Centre stripe: Plum 2 + Oat 1 + Plum 2 finished (cut 2 ½, 1 ½, 2 ½), sewn set 5 ½ in. wide');
+    // The strips of a strip set are listed under its name, never its id ("centre-stripe").
+    expect(out).toContain('  Centre stripe, strip 2: 1 strip 1 ½ in. × WOF');
+    expect(out).not.toContain('centre-stripe');
     expect(out).toContain('C: sewn 16 times; print 16 on paper or 1 on freezer paper');
     expect(out).toContain('rotary cutters are very sharp');
   });

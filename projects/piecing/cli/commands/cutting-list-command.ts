@@ -1,5 +1,5 @@
 import type { CopyPlan, CuttingList, PatternDocument } from '../../src/public-api';
-import { buildCuttingList, CM_PER_INCH, formatInches, formatLength, INCHES_PER_YARD, planCopies } from '../../src/public-api';
+import { buildCuttingList, CM_PER_INCH, formatInches, formatLength, INCHES_PER_YARD, planCopies, stripSetDisplayName } from '../../src/public-api';
 import { EXIT_OK, type CliCommand } from '../cli-types';
 import { readPatternCommand } from '../read-pattern-file';
 
@@ -16,6 +16,11 @@ export function formatCuttingList(document: PatternDocument, list: CuttingList, 
     return unit === 'cm' ? `${((inches * CM_PER_INCH) / 100).toFixed(2)} m (${yd})` : `${yd} (${len(inches)})`;
   };
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
+  // A strip set is shown by its name, or by the patches it fills: never by its id.
+  const setName = (listId: string) => {
+    const set = list.stripSets.find((x) => x.stripSetId === listId);
+    return set ? stripSetDisplayName(set.name, set.patchLabels) : 'Strip set';
+  };
   const lines: string[] = [];
   const blocks = list.blockCount === 1 ? '1 block' : `${list.blockCount} blocks`;
   lines.push(`${list.title}: cutting list for ${blocks}, ${len(list.seamAllowanceIn)} seam allowance, ${len(list.piecingMarginIn)} piecing margin`);
@@ -33,7 +38,7 @@ export function formatCuttingList(document: PatternDocument, list: CuttingList, 
       }
     }
     for (const s of f.stripSetStrips) {
-      lines.push(`  strip set "${s.stripSetId}", strip ${s.stripIndex + 1}: ${s.stripCount} strip${s.stripCount === 1 ? '' : 's'} ${len(s.cutWidthIn)} × WOF (${len(s.finishedWidthIn)} finished)`);
+      lines.push(`  ${setName(s.stripSetId)}, strip ${s.stripIndex + 1}: ${s.stripCount} strip${s.stripCount === 1 ? '' : 's'} ${len(s.cutWidthIn)} × WOF (${len(s.finishedWidthIn)} finished)`);
     }
     lines.push(`  ${f.stripCount} strip${f.stripCount === 1 ? '' : 's'} in all, ${len(f.totalStripLengthIn)} of strip`);
   }
@@ -42,7 +47,7 @@ export function formatCuttingList(document: PatternDocument, list: CuttingList, 
     lines.push('Strip sets:');
     for (const s of list.stripSets) {
       const recipe = s.strips.map((st) => `${fabricName.get(st.fabricId) ?? st.fabricId} ${bare(st.finishedWidthIn)}`).join(' + ');
-      lines.push(`  ${s.name ?? s.stripSetId}: ${recipe} finished (cut ${s.strips.map((st) => bare(st.cutWidthIn)).join(', ')}), sewn set ${len(s.sewnWidthIn)} wide`);
+      lines.push(`  ${stripSetDisplayName(s.name, s.patchLabels)}: ${recipe} finished (cut ${s.strips.map((st) => bare(st.cutWidthIn)).join(', ')}), sewn set ${len(s.sewnWidthIn)} wide`);
       lines.push(`    sew ${s.setCount} set${s.setCount === 1 ? '' : 's'} across the WOF, sub-cut ${s.subCutCount} × ${len(s.subCutLengthIn)} (${s.subCutsPerSet} per set) for ${[...new Set(s.patchLabels)].join(', ')}`);
     }
   }

@@ -1,4 +1,4 @@
-import { mkdtemp, readFile, rm } from 'node:fs/promises';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -7,6 +7,48 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCliCollecting } from '../testing/run-cli-collecting';
 
 const repoRoot = fileURLToPath(new URL('../../../..', import.meta.url));
+
+/**
+ * A 3 × 1 in. strip of three patches numbered left (1), right (2), middle (3): patch 2 shares no seam
+ * with patch 1, so the section is not sewable as numbered. Invented for this test.
+ */
+const MISNUMBERED_STRIP = {
+  formatVersion: 2,
+  title: 'Misnumbered strip',
+  canvas: { widthIn: 4, heightIn: 2 },
+  fabrics: [
+    { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
+    { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
+  ],
+  sections: [
+    {
+      id: 'a',
+      label: 'A',
+      geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
+      seams: [
+        { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
+        { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
+      ],
+      patches: [
+        { number: 1, anchor: { x: 0.5, y: 0.5 }, fabricId: 'plum' },
+        { number: 2, anchor: { x: 2.5, y: 0.5 }, fabricId: 'plum' },
+        { number: 3, anchor: { x: 1.5, y: 0.5 }, fabricId: 'oat' },
+      ],
+    },
+  ],
+};
+
+/** The text of every page, read back with pdfjs-dist. */
+async function pageTexts(data: Uint8Array): Promise<string[]> {
+  const pdf = await pdfjs.getDocument({ data, verbosity: 0 }).promise;
+  const out: string[] = [];
+  for (let i = 1; i <= pdf.numPages; i++) {
+    const content = await (await pdf.getPage(i)).getTextContent();
+    out.push(content.items.map((item) => ('str' in item ? item.str : '')).join(' '));
+  }
+  await pdf.destroy();
+  return out;
+}
 
 function run(...argv: string[]) {
   return runCliCollecting(repoRoot, argv);
@@ -58,5 +100,27 @@ describe('seamwright print', () => {
     const r = await run('print', 'no-such-file.json', '--out', join(dir, 'y.pdf'));
     expect(r.code).toBe(1);
     expect(r.err).toContain('no such file');
+  });
+
+  it('refuses a pattern with a section not sewable as numbered (exit 1, the reason on stderr) unless --print-unsewable', async () => {
+    const pattern = join(dir, 'misnumbered.json');
+    await writeFile(pattern, JSON.stringify(MISNUMBERED_STRIP));
+    const out = join(dir, 'misnumbered.pdf');
+    const refused = await run('print', pattern, '--out', out);
+    expect(refused.code).toBe(1);
+    expect(refused.err).toContain('Section A is not sewable as numbered: A2 shares no seam with the patches sewn before it (A1)');
+    expect(refused.err).toContain('--print-unsewable');
+    expect(refused.out).toBe('');
+    await expect(readFile(out)).rejects.toThrow(/ENOENT/);
+
+    const anyway = await run('print', pattern, '--out', out, '--print-unsewable');
+    expect(anyway.code).toBe(0);
+    expect(anyway.err).toContain('warning: Section A is not sewable as numbered');
+    const pages = await pageTexts(new Uint8Array(await readFile(out)));
+    // The one section's pages: its piecing steps and its template sheet, the last (the booklet's other pages are about the whole pattern).
+    const ofA = [...pages.filter((t) => t.includes('Section A: piecing steps')), pages[pages.length - 1]];
+    expect(ofA.length).toBe(2);
+    expect(ofA[1]).toContain(`Sheet ${pages.length} of ${pages.length}`);
+    for (const page of ofA) expect(page).toContain('NOT SEWABLE AS NUMBERED: section A — printed anyway');
   });
 });

@@ -2,7 +2,7 @@ import { readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { loadPrintFonts, PAPER_NAMES, printOptionsSchema, renderPrintSet, sheetCountStatement } from '../../src/public-api';
+import { findUnsewableSections, loadPrintFonts, PAPER_NAMES, printOptionsSchema, renderPrintSet, sheetCountStatement, unsewableStatement } from '../../src/public-api';
 import { EXIT_INVALID_INPUT, EXIT_OK, EXIT_USAGE, type CliCommand } from '../cli-types';
 import { readPatternFile } from '../read-pattern-file';
 
@@ -11,12 +11,12 @@ const SHIPPED_FONTS = fileURLToPath(new URL('../../../../fonts/', import.meta.ur
 
 const USAGE =
   `usage: seamwright print <pattern.json> --out <file.pdf> [--paper ${PAPER_NAMES.join('|')}] [--margin 0.5] [--front]\n` +
-  '                       [--freezer-paper] [--single] [--created <ISO time>] [--fonts <folder>]\n';
+  '                       [--freezer-paper] [--single] [--created <ISO time>] [--fonts <folder>] [--print-unsewable]\n';
 
 export const printCommand: CliCommand = {
   name: 'print',
   usage: `<pattern.json> --out <file.pdf> [--paper ${PAPER_NAMES.join('|')}] [--margin 0.5] [--front]`,
-  summary: 'write the print set (true-scale, tiled, mirrored template sheets with cutting list) as a PDF',
+  summary: 'write the print set (booklet, then true-scale, tiled, mirrored template sheets) as a PDF; refuses a section not sewable as numbered unless --print-unsewable',
   async run(args, io) {
     let parsed;
     try {
@@ -33,6 +33,7 @@ export const printCommand: CliCommand = {
           single: { type: 'boolean', default: false },
           created: { type: 'string' },
           fonts: { type: 'string' },
+          'print-unsewable': { type: 'boolean', default: false },
         },
       });
     } catch (error) {
@@ -50,6 +51,7 @@ export const printCommand: CliCommand = {
       mirrored: !values.front,
       foundation: values['freezer-paper'] ? 'freezer-paper' : 'paper',
       copies: values.single ? 'single' : 'plan',
+      printUnsewable: values['print-unsewable'],
       ...(values.created ? { createdAt: values.created } : {}),
     });
     if (!options.success) {
@@ -62,6 +64,12 @@ export const printCommand: CliCommand = {
       io.err(`${file.messages.join('\n')}\n`);
       return EXIT_INVALID_INPUT;
     }
+    const unsewable = findUnsewableSections(file.document);
+    if (unsewable.length > 0 && !options.data.printUnsewable) {
+      io.err(`${unsewableStatement(unsewable)}\nNo print set written: renumber or split the section, or pass --print-unsewable to print anyway (its pages will say so).\n`);
+      return EXIT_INVALID_INPUT;
+    }
+    if (unsewable.length > 0) io.err(`warning: ${unsewableStatement(unsewable)} Printing anyway (--print-unsewable); every page of ${unsewable.length === 1 ? 'that section' : 'those sections'} says so.\n`);
     const fontDir = values.fonts ? resolve(io.cwd, values.fonts) : SHIPPED_FONTS;
     const fonts = await loadPrintFonts((name) => readFile(join(fontDir, name)));
     const result = await renderPrintSet(file.document, { ...options.data, fonts });

@@ -26,6 +26,7 @@ import { drawTrimming } from './booklet/draw-trimming';
 import { finishedBlockSize } from './booklet/finished-size';
 import type { SectionPressing } from './booklet/section-pressing';
 import { findUnsewableSections, UnsewablePatternError } from './booklet/unsewable-sections';
+import { resolveJoiningPlan, seamPressing } from '../joining/index';
 import { buildPieceTemplates } from './piece-templates/build-piece-templates';
 import { drawPieceTemplates } from './piece-templates/draw-piece-templates';
 
@@ -135,7 +136,7 @@ export async function renderPrintSet(
   }
   drawPiecingSteps(ctx, booklet, (section) => sectionPressing(document, section));
   drawTrimming(ctx, booklet);
-  drawJoiningPlan(ctx, booklet, null);
+  drawJoiningPlan(ctx, booklet, resolveJoiningPlan(document));
   drawNotesAndCautions(ctx, booklet);
   for (const s of booklet.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
   const bookletSheetCount = doc.getNumberOfPages();
@@ -212,8 +213,12 @@ export async function renderPrintSet(
 }
 
 /** Pressing of each patch seam of a section, by the patch it adds (toward the patch just added when unset). */
-function sectionPressing(_document: PatternDocument, _section: Section): SectionPressing {
-  return new Map();
+function sectionPressing(document: PatternDocument, section: Section): SectionPressing {
+  const pressing: SectionPressing = new Map();
+  for (const seam of seamPressing(document, section.id)) {
+    if (seam.addedPatch !== undefined && !pressing.has(seam.addedPatch)) pressing.set(seam.addedPatch, seam.press);
+  }
+  return pressing;
 }
 
 /** The cover's contents: consecutive sheets with the same subtitle are one entry. */

@@ -6,6 +6,7 @@ import { renderPrintSet, type PrintSetResult } from '../render-print-set';
 import { buildPieceTemplates } from '../piece-templates/build-piece-templates';
 import { inspectPdf, type PdfPageInfo, type PdfPath } from '../testing/pdf-inspect';
 import { readShippedFonts, unsewableStrip } from '../testing/print-test-fixtures';
+import { resolveJoiningPlan } from '../../joining/index';
 import { finishedBlockSize } from './finished-size';
 import { UnsewablePatternError } from './unsewable-sections';
 
@@ -32,7 +33,7 @@ describe('the booklet of "Orchard Wheel" with designer\'s notes', () => {
   it('puts the finished size of the block (its sections, 26 in. square) on the cover, not the drawing area', () => {
     // The demo squares the 22 in. circle to a 26 in. block (docs/design-notes.md#demo-data); 26 in. = 66.04 cm.
     expect(text(pages.slice(0, 1))).toContain('Finished size: 26 × 26 in. (66 × 66 cm)');
-    const size = finishedBlockSize({ ...document, canvas: { widthIn: 40, heightIn: 30 } })!;
+    const size = finishedBlockSize({ sections: document.sections })!;
     expect(size.widthIn).toBeCloseTo(26, 6);
     expect(size.heightIn).toBeCloseTo(26, 6);
   });
@@ -48,10 +49,19 @@ describe('the booklet of "Orchard Wheel" with designer\'s notes', () => {
     expect(booklet).toContain('Seam 2: sew right to left; press toward Plum');
   });
 
-  it('writes the joining steps', () => {
+  it('writes the joining steps of the default plan, with their pressing and matching marks', () => {
+    const plan = resolveJoiningPlan(document);
+    expect(plan.isDefault).toBe(true);
     expect(booklet).toContain('Joining the sections');
-    expect(booklet).toMatch(/Join the 8 copies of A into a ring/);
-    expect(booklet).toMatch(/Join the 16 copies of C into a ring/);
+    // 8 stars, 8 stripe bands, 16 points, 4 corners (docs/design-notes.md#demo-data): four rings, then three joins outward.
+    expect(plan.steps.length).toBe(7);
+    expect(booklet).toContain('1. Join the 8 copies of A into a ring (8 seams; the last closes the ring)');
+    expect(booklet).toContain('3. Join the 16 copies of C into a ring (16 seams; the last closes the ring)');
+    for (const step of plan.steps) {
+      expect(booklet).toContain(`${step.number}. ${step.label}`);
+      expect(booklet).toContain(step.pressLabel.split(' ').slice(0, 4).join(' '));
+      if (step.marks.length > 0) expect(booklet).toContain(`Match the ${step.marks.length} matching marks.`);
+    }
   });
 
   it("carries the designer's notes: the pattern's on the cover and notes page, each section's on its piecing page and its templates", () => {

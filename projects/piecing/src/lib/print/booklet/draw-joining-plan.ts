@@ -1,6 +1,6 @@
 import type { Point } from '../../document/index';
 import { polygonCentroid } from '../../geometry/index';
-import type { ResolvedJoiningPlan, ResolvedJoinStep } from '../../joining/joining-types';
+import type { ResolvedJoiningPlan, ResolvedJoinStep } from '../../joining/index';
 import { drawArrow } from '../draw-template';
 import type { SheetFlow } from '../sheet-flow';
 import type { BookletContext } from './booklet-context';
@@ -8,8 +8,8 @@ import type { BookletWriter } from './booklet-writer';
 import { DIAGRAM_STYLES, drawShape, fitDiagram, type DiagramFit } from './diagram';
 import { sectionCopyOutlines } from './finished-size';
 
-const COLUMNS = 3;
-const DIAGRAM_IN = 2.0;
+const COLUMNS = 4;
+const DIAGRAM_IN = 1.7;
 const CAPTION_PT = 8;
 const LINE_IN = (CAPTION_PT * 1.3) / 72;
 const PART_A = '#c9d7ea';
