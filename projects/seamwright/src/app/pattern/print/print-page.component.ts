@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, OnInit, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -19,6 +19,7 @@ import { LoadState } from '../../core/load-state';
 import { NotifyService } from '../../core/notify.service';
 import type { PrintSet } from '../../core/api-types';
 import { CautionsComponent } from '../../shared/cautions.component';
+import { FocusAfterRender } from '../../core/focus-after-render';
 import { SheetPreviewComponent } from './sheet-preview.component';
 import { PrintPreviewPlanner } from './print-preview-planner';
 import type { PreviewRequest, PreviewResult, PreviewTemplate } from './print-preview-plan';
@@ -79,6 +80,8 @@ export class PrintPageComponent implements OnInit {
   protected readonly making = signal<PrintSet | null>(null);
   protected readonly starting = signal(false);
   private follow: Subscription | null = null;
+  private readonly host: HTMLElement = inject(ElementRef).nativeElement;
+  private readonly focusAfter = new FocusAfterRender();
 
   protected readonly options = computed(() => printOptions(this.formValue()));
 
@@ -172,6 +175,8 @@ export class PrintPageComponent implements OnInit {
             this.making.set(s);
             if (s.status === 'done') {
               this.notify.info(`Print set ready: ${s.sheets} pages`);
+              // The result is the new set's download link; focus goes there, not to the page body.
+              this.focusAfter.focus(() => this.host.querySelector<HTMLElement>('[data-focus="new-print-set"]'));
               this.reload();
             } else if (s.status === 'failed') this.notify.error(new Error(s.error ?? 'The print set could not be made'));
           },
@@ -195,6 +200,8 @@ export class PrintPageComponent implements OnInit {
       next: () => {
         if (this.making()?.id === set.id) this.making.set(null);
         this.notify.info('Print set deleted');
+        // The row and its button are gone: focus goes to the list's heading.
+        this.focusAfter.focus(() => this.host.querySelector<HTMLElement>('#sets-title'));
         this.reload();
       },
       error: (err: unknown) => this.notify.error(err),

@@ -1,6 +1,7 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { PlannedSheet, Point, SheetPlacement } from '@seamwright/piecing';
 import type { PreviewTemplate } from './print-preview-plan';
+import { SHEET_PREVIEW_PX, labelFontIn, placeSheetLabel } from './sheet-label-fit';
 
 /**
  * One planned sheet, drawn small from the print layout: margins, header, test squares, and each
@@ -12,7 +13,7 @@ import type { PreviewTemplate } from './print-preview-plan';
   template: `
     @let s = sheet();
     @let f = s.frame;
-    <figure class="sheet">
+    <figure class="sheet" [style.width.px]="widthPx">
       <svg [attr.viewBox]="'0 0 ' + f.widthIn + ' ' + f.heightIn" role="img" [attr.aria-label]="'Sheet ' + s.pageNumber + ': sections ' + s.sectionLabels.join(', ')">
         <defs>
           @for (p of s.placements; track $index) {
@@ -38,17 +39,20 @@ import type { PreviewTemplate } from './print-preview-plan';
           } @else {
             <rect class="print" [attr.x]="p.rect.x" [attr.y]="p.rect.y" [attr.width]="p.rect.width" [attr.height]="p.rect.height" />
           }
-          <text class="label" [attr.x]="captionAt(p).x" [attr.y]="captionAt(p).y" font-size="0.22">
-            {{ p.sectionLabel }} {{ p.copy }}/{{ p.copies }}@if (p.tile) { · tile {{ p.tile.row }},{{ p.tile.column }}}
-          </text>
+        }
+        <!-- Labels last, so no print covers another's label; each keeps its size and moves out if it must. -->
+        @for (l of labels(); track $index) {
+          @if (l.leader; as ln) { <line class="leader" [attr.x1]="ln.x1" [attr.y1]="ln.y1" [attr.x2]="ln.x2" [attr.y2]="ln.y2" /> }
+          <text class="label" [attr.x]="l.x" [attr.y]="l.y" [attr.font-size]="fontIn()"><title>{{ l.full }}</title>{{ l.text }}</text>
         }
       </svg>
       <figcaption>Sheet {{ s.pageNumber }} · {{ s.sectionLabels.join(', ') }}</figcaption>
     </figure>
   `,
   styles: `
-    .sheet { margin: 0; width: 170px; }
-    svg { width: 100%; height: auto; display: block; box-shadow: 0 1px 3px rgba(0,0,0,.3); }
+    /* A fixed width: label sizes are worked out from it (sheet-label-fit.ts). */
+    .sheet { margin: 0; flex: none; }
+    svg { width: 100%; height: auto; display: block; overflow: visible; box-shadow: 0 1px 3px rgba(0,0,0,.3); }
     .paper { fill: #fff; }
     .margin { fill: none; stroke: #c9bfb6; stroke-width: 0.03; stroke-dasharray: 0.1 0.08; }
     .header { fill: #efe6ea; }
@@ -57,7 +61,9 @@ import type { PreviewTemplate } from './print-preview-plan';
     .cut { fill: #f7ecf2; stroke: #5b2a54; stroke-width: 0.04; stroke-dasharray: 0.12 0.06; }
     .sew { fill: none; stroke: #3a1435; stroke-width: 0.035; }
     .seam { stroke: #3a1435; stroke-width: 0.03; }
-    .label { fill: #3a1435; font-family: Roboto, sans-serif; font-weight: 700; }
+    /* The sheet is paper, white in both themes; a white halo keeps a label readable over lines. */
+    .label { fill: #3a1435; font-family: Roboto, sans-serif; font-weight: 700; paint-order: stroke; stroke: #fff; stroke-width: 0.08; stroke-linejoin: round; }
+    .leader { stroke: #3a1435; stroke-width: 0.03; }
     figcaption { font-size: 0.8rem; margin-top: 6px; color: var(--mat-sys-on-surface-variant); }
   `,
 })
@@ -66,8 +72,13 @@ export class SheetPreviewComponent {
   readonly sheet = input.required<PlannedSheet>();
   /** The lines of the print templates, by id, as the layout was planned from. */
   readonly templates = input<ReadonlyMap<string, PreviewTemplate>>(new Map());
+  protected readonly widthPx = SHEET_PREVIEW_PX;
   private static next = 0;
   private readonly uid = `sw-sheet-${SheetPreviewComponent.next++}`;
+
+  /** Label size in sheet inches: renders at the readable minimum on the fixed-width preview. */
+  protected readonly fontIn = computed(() => labelFontIn(this.sheet().frame.widthIn));
+  protected readonly labels = computed(() => this.sheet().placements.map((p) => placeSheetLabel(p, this.fontIn())));
 
   protected clipId(i: number): string {
     return `${this.uid}-${i}`;
@@ -78,11 +89,6 @@ export class SheetPreviewComponent {
     return `matrix(${m.a} ${m.b} ${m.c} ${m.d} ${m.e} ${m.f})`;
   }
 
-  /** Where the print's caption starts: in its caption strip, or at the top-left of the print. */
-  protected captionAt(p: SheetPlacement): Point {
-    const r = p.caption?.rect ?? p.rect;
-    return { x: r.x + 0.05, y: r.y + Math.min(r.height, 0.2) * 0.8 + (p.caption ? 0 : 0.05) };
-  }
 
   protected points(ring: readonly Point[]): string {
     return ring.map((p) => `${p.x},${p.y}`).join(' ');
