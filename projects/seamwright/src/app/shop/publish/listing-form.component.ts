@@ -43,7 +43,8 @@ export interface ListingForm {
           <mat-error>{{ form().controls.description.errors?.['server'] ?? 'A description is required' }}</mat-error>
         </mat-form-field>
       </div>
-      <button mat-flat-button type="submit" [disabled]="saving() || !currency()">Save listing</button>
+      <!-- disabledInteractive: the button keeps focus while the listing is saved. -->
+      <button mat-flat-button type="submit" disabledInteractive [disabled]="saving() || !currency()">Save listing</button>
     </form>
   `,
   styles: `

@@ -122,6 +122,8 @@ export class PublishSettingsComponent implements OnInit {
 
   protected saveListing(patternId: string, title: string): void {
     const form = this.formFor(patternId);
+    // The save button stays focusable while saving (disabledInteractive); Enter in a field must not save twice.
+    if (this.saving() === patternId) return;
     if (form.invalid) {
       form.markAllAsTouched();
       return;
