@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject } from '@angular/core';
 import { filter } from 'rxjs';
 import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { MatIconModule, MatIconRegistry } from '@angular/material/icon';
@@ -22,15 +22,19 @@ import { ThemeService } from './core/theme.service';
         <span>Seamwright</span>
       </a>
       <nav class="sw-nav" aria-label="Main">
-        @if (auth.signedIn()) {
-          <a mat-button routerLink="/patterns" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Patterns</a>
-          <a mat-button routerLink="/shop" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Shop</a>
-        }
-        <a mat-button routerLink="/scale-check" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Scale check</a>
-        @if (auth.user()?.role === 'admin') {
-          <a mat-button routerLink="/admin" routerLinkActive="sw-active" ariaCurrentWhenActive="page">Admin</a>
+        @for (link of links(); track link.path) {
+          <a mat-button [routerLink]="link.path" routerLinkActive="sw-active" ariaCurrentWhenActive="page">{{ link.label }}</a>
         }
       </nav>
+      <!-- On a narrow screen (or a page zoomed to 400 %) the links fold into this menu. -->
+      <button mat-icon-button type="button" class="sw-nav-fold" [matMenuTriggerFor]="mainMenu" aria-label="Main menu">
+        <mat-icon aria-hidden="true">menu</mat-icon>
+      </button>
+      <mat-menu #mainMenu="matMenu">
+        @for (link of links(); track link.path) {
+          <a mat-menu-item [routerLink]="link.path" routerLinkActive="sw-active" ariaCurrentWhenActive="page">{{ link.label }}</a>
+        }
+      </mat-menu>
       <span class="sw-spacer"></span>
       <button
         mat-icon-button
@@ -61,6 +65,7 @@ import { ThemeService } from './core/theme.service';
     :host { display: flex; flex-direction: column; min-height: 100%; }
     .sw-brand { display: inline-flex; gap: 8px; align-items: center; color: inherit; text-decoration: none; font-weight: 500; margin-right: 16px; }
     .sw-nav { display: flex; gap: 4px; }
+    .sw-nav-fold { display: none; }
     .sw-nav a { color: inherit; }
     .sw-nav a.sw-active { background: color-mix(in srgb, currentColor 16%, transparent); }
     .sw-spacer { flex: 1; }
@@ -74,12 +79,25 @@ import { ThemeService } from './core/theme.service';
       .sw-account-name { display: none; }
       .sw-brand span { display: none; }
     }
+    @media (max-width: 600px) {
+      .sw-nav { display: none; }
+      .sw-nav-fold { display: inline-flex; }
+      .sw-brand { margin-right: 4px; }
+      .sw-main { padding: 12px 8px; }
+      .sw-topbar { padding: 0 4px; gap: 0; }
+    }
   `,
 })
 export class AppComponent {
   protected readonly auth = inject(AuthService);
   protected readonly theme = inject(ThemeService);
   private readonly router = inject(Router);
+  /** The main links, the same in the bar and in its folded menu. */
+  protected readonly links = computed(() => [
+    ...(this.auth.signedIn() ? [{ path: '/patterns', label: 'Patterns' }, { path: '/shop', label: 'Shop' }] : []),
+    { path: '/scale-check', label: 'Scale check' },
+    ...(this.auth.user()?.role === 'admin' ? [{ path: '/admin', label: 'Admin' }] : []),
+  ]);
 
   constructor() {
     // Icons come from the shipped Material Symbols font, not from a web service.

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, OnInit, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { Router, RouterLink } from '@angular/router';
@@ -25,6 +25,7 @@ import { STARTERS } from './starters';
 import { PatternThumbnailComponent } from './pattern-thumbnail.component';
 import { accessLabel } from './access-label';
 import { OpenPatternFileComponent } from './open-pattern-file.component';
+import { FocusAfterRender } from '../core/focus-after-render';
 
 /** The pattern list: everything the user owns or was invited to, and the trash. */
 @Component({
@@ -57,6 +58,8 @@ export class PatternsPageComponent implements OnInit {
   protected readonly total = computed(() => this.state.value()?.total ?? 0);
   protected readonly busyId = signal<string | null>(null);
   protected readonly filter = new FormControl('', { nonNullable: true });
+  private readonly host: HTMLElement = inject(ElementRef).nativeElement;
+  private readonly focusAfter = new FocusAfterRender();
 
   ngOnInit(): void {
     this.reload();
@@ -79,10 +82,11 @@ export class PatternsPageComponent implements OnInit {
     this.update({ page: e.pageIndex, pageSize: e.pageSize });
   }
 
-  protected reload(): void {
+  /** Loads the page of the list; `then` runs once the new rows are in. */
+  protected reload(then?: () => void): void {
     // The server numbers pages from 1; the paginator from 0.
     const q = this.query();
-    this.state.run(this.patterns.list({ ...q, page: q.page + 1 }));
+    this.state.run(this.patterns.list({ ...q, page: q.page + 1 }), then);
   }
 
   protected newPattern(): void {
@@ -107,30 +111,44 @@ export class PatternsPageComponent implements OnInit {
   }
 
   protected trash(row: PatternListItem): void {
-    this.act(row, this.patterns.trash(row.id), `“${row.title}” moved to the trash`);
+    this.act(row, this.patterns.trash(row.id), `“${row.title}” moved to the trash`, true);
   }
 
   protected restore(row: PatternListItem): void {
-    this.act(row, this.patterns.restore(row.id), `“${row.title}” restored`);
+    this.act(row, this.patterns.restore(row.id), `“${row.title}” restored`, true);
   }
 
   protected deleteForGood(row: PatternListItem): void {
     if (!confirm(`Delete “${row.title}” and all its revisions and print sets for good?`)) return;
-    this.act(row, this.patterns.deleteForGood(row.id), `“${row.title}” deleted`);
+    this.act(row, this.patterns.deleteForGood(row.id), `“${row.title}” deleted`, true);
   }
 
-  private act(row: PatternListItem, call: Observable<unknown>, done: string): void {
+  /**
+   * Runs a row's action and reloads the list. When the row leaves the list (`leaves`), focus goes to
+   * the row now in its place, or to the list's heading when none is; otherwise it stays on the row's
+   * actions button, where the menu gave it back.
+   */
+  private act(row: PatternListItem, call: Observable<unknown>, done: string, leaves = false): void {
+    const index = this.rows().findIndex((r) => r.id === row.id);
     this.busyId.set(row.id);
     call.subscribe({
       next: () => {
         this.busyId.set(null);
         this.notify.info(done);
-        this.reload();
+        this.reload(() => (leaves ? this.focusRowOrHeading(index) : undefined));
       },
       error: (err: unknown) => {
         this.busyId.set(null);
         this.notify.error(err);
       },
+    });
+  }
+
+  private focusRowOrHeading(index: number): void {
+    this.focusAfter.focus(() => {
+      const rows = [...this.host.querySelectorAll<HTMLElement>('tr.mat-mdc-row')].filter((r) => !r.querySelector('td.empty'));
+      const next = rows[Math.min(index, rows.length - 1)];
+      return next?.querySelector<HTMLElement>('a.title-link, button[aria-label^="Actions for"]') ?? this.host.querySelector<HTMLElement>('h1');
     });
   }
 }

@@ -13,8 +13,14 @@ const PX_PER_IN = 12;
 @Component({
   selector: 'sw-strip-diagram',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `<div #host class="diagram" role="img" [attr.aria-label]="label()"></div>`,
-  styles: `.diagram { max-width: 640px; } .diagram ::ng-deep svg { width: 100%; height: auto; display: block; }`,
+  // The drawing never shrinks below 560 px, where its 11-unit text renders at 9 px (684 units wide);
+  // on a narrower screen it scrolls sideways inside its own box, which takes focus for the keys.
+  template: `<div class="scroll" tabindex="0" role="group" [attr.aria-label]="'Diagram of ' + name()"><div #host class="diagram" role="img" [attr.aria-label]="label()"></div></div>`,
+  styles: `
+    .scroll { max-width: 100%; overflow-x: auto; }
+    .diagram { max-width: 640px; min-width: 560px; }
+    .diagram ::ng-deep svg { width: 100%; height: auto; display: block; }
+  `,
 })
 export class StripDiagramComponent {
   /** The strip set to draw. */
@@ -25,6 +31,10 @@ export class StripDiagramComponent {
   readonly wofIn = input(42);
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
   private svg: Svg | null = null;
+
+  protected name(): string {
+    return stripSetDisplayName(this.stripSet().name, this.stripSet().patchLabels);
+  }
 
   protected label(): string {
     const s = this.stripSet();

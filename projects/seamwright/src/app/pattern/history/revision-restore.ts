@@ -1,9 +1,10 @@
-import { inject, signal } from '@angular/core';
+import { DOCUMENT, inject, signal } from '@angular/core';
 import { Router } from '@angular/router';
 import { PatternContext } from '../pattern-context.service';
 import { RevisionsService } from '../../resources/revisions.service';
 import { NotifyService } from '../../core/notify.service';
 import { StaleSaveError } from '../../resources/patterns.service';
+import { FocusAfterRender } from '../../core/focus-after-render';
 
 /** Restores an old revision as the newest one (create in an injection context). */
 export class RevisionRestore {
@@ -11,6 +12,8 @@ export class RevisionRestore {
   private readonly revisions = inject(RevisionsService);
   private readonly notify = inject(NotifyService);
   private readonly router = inject(Router);
+  private readonly doc = inject(DOCUMENT);
+  private readonly focusAfter = new FocusAfterRender();
   readonly busy = signal(false);
 
   constructor(private readonly after?: () => void) {}
@@ -24,7 +27,9 @@ export class RevisionRestore {
         this.ctx.adopt(r.revision.document, r.revision.number);
         this.notify.info(`Revision ${n} restored as revision ${r.revision.number}`);
         this.after?.();
-        void this.router.navigate(['/patterns', this.ctx.id(), 'board']);
+        // The result is the board with the restored drawing: focus goes to the page's content (the
+        // app's main region), not to the body the Restore button leaves behind.
+        void this.router.navigate(['/patterns', this.ctx.id(), 'board']).then(() => this.focusAfter.focus(() => this.doc.getElementById('main')));
       },
       error: (err: unknown) => {
         this.busy.set(false);
