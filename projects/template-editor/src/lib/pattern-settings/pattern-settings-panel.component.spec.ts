@@ -72,6 +72,20 @@ describe('PatternSettingsPanelComponent', () => {
     expect(session.document().piecingMarginIn).toBe(0.5);
   });
 
+  it("keeps the designer's notes for the quilter, trimmed, as one undoable step", () => {
+    const { session, el, fixture } = setUp();
+    const notes = el.querySelector<HTMLTextAreaElement>('textarea')!;
+    expect(el.querySelector(`label[for="${notes.id}"]`)?.textContent?.trim()).toBe('Pattern notes');
+    notes.value = '  Press the B ring seams all one way round.\n';
+    notes.dispatchEvent(new Event('input'));
+    notes.dispatchEvent(new Event('change'));
+    fixture.detectChanges();
+    expect(session.document().notes).toBe('Press the B ring seams all one way round.');
+    expect(session.editor.store.undoDepth).toBe(1);
+    session.undo();
+    expect(session.document().notes).toBeUndefined();
+  });
+
   it('refuses a block count that is not a whole number, saying why', () => {
     const { session, el, type } = setUp();
     type('Blocks in the quilt', '2.5');

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { sectionsOutsideCanvas, stripSetDisplayName, type PatternDocument, type Section, type SectionOutsideCanvas } from '@seamwright/piecing';
-import { SEWING_SETTING_RANGES, patternStripSets, renameStripSet, setSewingSettings, type SewingSettingsChange } from '../core/public-api';
+import { PATTERN_NOTES_MAX, SEWING_SETTING_RANGES, patternStripSets, renameStripSet, setPatternNotes, setSewingSettings, type SewingSettingsChange } from '../core/public-api';
 import { NumberFieldComponent } from '../properties/number-field.component';
 import { EditorSession } from '../session/editor-session';
 import { FabricSettingsComponent } from './fabric-settings.component';
@@ -10,7 +10,7 @@ import { ResizeDesignComponent } from './resize-design.component';
 
 /**
  * Settings of the whole pattern: a warning when sections lie outside the drawing area, the sewing
- * numbers (seam allowance, piecing margin, blocks, pressings per template), the fabrics, the names of
+ * numbers (seam allowance, piecing margin, blocks, pressings per template), the notes for the quilter, the fabrics, the names of
  * the strip sets, and resizing the design. Every change is one named, undoable step of the editing
  * session. Place it inside `<sw-pattern-editor>` (it uses that editor's session).
  */
@@ -42,6 +42,12 @@ export class PatternSettingsPanelComponent {
   protected readonly stripSets = computed(() => patternStripSets(this.doc()).map((s) => ({ ...s, fallback: stripSetDisplayName(null, s.patchLabels) })));
   /** Why the last strip-set name was refused, by strip set id. */
   protected readonly nameErrors = signal<Record<string, string>>({});
+
+  protected readonly notesMax = PATTERN_NOTES_MAX;
+
+  protected changeNotes(notes: string): void {
+    this.session.apply('Pattern notes', (d) => setPatternNotes(d, notes));
+  }
 
   protected changeSewing(change: SewingSettingsChange, label: string): void {
     this.session.apply(label, (d) => setSewingSettings(d, change));
