@@ -116,6 +116,9 @@ export {
   stripSetDisplayName,
   buildCuttingList,
   planCopies,
+  foundationCopies,
+  pieceTemplateCopies,
+  copiesRuleText,
   INCHES_PER_YARD,
   YARDAGE_STEP_IN,
   type StripSetLayout,
@@ -123,6 +126,9 @@ export {
   type CuttingList,
   type CuttingListStripSet,
   type CopyPlan,
+  type SectionCopies,
+  type PieceTemplateCopies,
+  type PieceTemplateReason,
 } from './lib/fabrication/index';
 
 /** Print sets: paper, options and fonts, the layout plan and the PDF. */

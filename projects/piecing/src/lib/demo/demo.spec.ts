@@ -95,12 +95,13 @@ describe('Orchard Wheel', () => {
     expect(points.marks.length).toBeGreaterThan(0);
   });
 
-  it('needs 8 + 8 + 16 + 4 templates, one freezer-paper copy each at 16 pressings', () => {
+  it('needs 8 + 8 + 16 + 4 templates; at 16 pressings a 3-patch template lasts 5 sections, a 2-patch one 8', () => {
+    // docs/design-notes.md#copies: copies = ceil(uses / max(1, floor(P / k))).
     const plan = planCopies(doc);
     expect(plan.sections.map((s) => [s.label, s.templatesNeeded, s.printedCopies])).toEqual([
-      ['A', 8, 1],
-      ['B', 8, 1],
-      ['C', 16, 1],
+      ['A', 8, 2],
+      ['B', 8, 2],
+      ['C', 16, 4],
       ['D', 4, 1],
     ]);
   });

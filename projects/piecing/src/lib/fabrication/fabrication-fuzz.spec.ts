@@ -98,7 +98,8 @@ describe('fabrication on random valid documents', () => {
         expect(allFinite(matchingMarks(doc))).toBe(true);
         expect(allFinite(patternStripSets(doc))).toBe(true);
         const copies = planCopies(doc);
-        for (const s of copies.sections) expect(s.printedCopies).toBe(Math.ceil(s.templatesNeeded / doc.pressingsPerTemplate));
+        // docs/design-notes.md#copies: a template lasts u = max(1, floor(P / k)) sections of k patches.
+        for (const s of copies.sections) expect(s.printedCopies).toBe(Math.ceil(s.templatesNeeded / Math.max(1, Math.floor(doc.pressingsPerTemplate / s.patches))));
         for (const s of doc.sections) {
           const sa = sectionSeamAllowance(s, doc.seamAllowanceIn);
           expect(sa.cuttingLine.length).toBeGreaterThanOrEqual(3);
