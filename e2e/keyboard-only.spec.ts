@@ -82,6 +82,7 @@ test('a keyboard alone: sign in, select B in the outline, nudge it, undo, cuttin
   await expect(itemB).toHaveAttribute('aria-selected', 'true');
   await expect(itemB).toBeFocused();
   await expect(page.getByRole('heading', { name: /Section B/ })).toBeVisible();
+  await page.screenshot({ path: 'e2e/artifacts/keyboard-outline-light.png' });
 
   // Back to the board (it comes before the side column), then one arrow press: ⅛ in. right.
   await pressUntilFocused(page, board.board(), 'Shift+Tab');
@@ -95,16 +96,31 @@ test('a keyboard alone: sign in, select B in the outline, nudge it, undo, cuttin
   await expect(board.liveRegion()).toHaveText(/^Undone: move section B\s*$/);
   await expect.poll(() => savedCornerOfB(page, patternId), { timeout: 20_000 }).toEqual({ x: 0, y: 4 });
 
-  // The cutting list: the parts of the pattern are tabs (Tab reaches the current one, arrows move).
+  // The keyboard help: ? on the board opens it, Escape closes it and the board has focus again.
+  await page.keyboard.press('?');
+  const help = page.getByRole('dialog', { name: 'Keys of the Drafting board' });
+  await expect(help.getByRole('rowheader', { name: 'Shift + arrow keys' })).toBeVisible();
+  await page.keyboard.press('Escape');
+  await expect(help).toBeHidden();
+  await expect(board.board()).toBeFocused();
+
+  // The same board in the dark theme (the header's theme button, reached backwards from the board).
+  await pressUntilFocused(page, page.getByRole('button', { name: 'Use dark theme' }), 'Shift+Tab', 120);
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('button', { name: 'Use light theme' })).toBeVisible();
+  await page.screenshot({ path: 'e2e/artifacts/keyboard-outline-dark.png' });
+
+  // The cutting list: the parts of the pattern are tabs after the header (Tab reaches the current one,
+  // arrows move).
   const parts = new PatternPage(page).parts();
-  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Shift+Tab', 120);
+  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Tab', 120);
   await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Cutting list' }), 'ArrowRight', 8);
   await page.keyboard.press('Enter');
   await page.waitForURL(/\/cutting$/);
   await expect(page.getByRole('heading', { name: /^Cutting list — / })).toBeVisible();
 
   // Print: make a print set and download it.
-  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Shift+Tab', 120);
+  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Tab', 120);
   await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Print' }), 'ArrowRight', 8);
   await page.keyboard.press('Enter');
   await page.waitForURL(/\/print$/);
