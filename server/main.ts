@@ -7,7 +7,7 @@ import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
 import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
-import { startHousekeeping } from './services/housekeeping';
+import { startHousekeeping, sweepStoredFiles } from './services/housekeeping';
 
 function log(message: string, err?: unknown): void {
   const time = new Date().toISOString();
@@ -25,6 +25,8 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     log(`Seeded demo data: ${report.accountsCreated.length} accounts, patterns: ${report.patternsCreated.join(', ') || 'none'}`);
     for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
   }
+  const swept = sweepStoredFiles(database.db, config.dataDir);
+  if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
   const printSets = new PrintSetService(database.db, config, log);
   const mailOutbox = new MailOutbox(database.db, mailer, log);
   const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets };

@@ -1,11 +1,13 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { and, isNotNull, isNull, lt, or } from 'drizzle-orm';
 import type { Db } from '../db/database';
-import { invitations, passwordResets, sessions } from '../db/schema';
+import { invitations, mailOutbox, passwordResets, printSets, sessions, uploads } from '../db/schema';
 
 /** Keeps answered invitations and used reset tokens this long, for the record. */
 const KEEP_MS = 30 * 86_400_000;
 
-/** Removes expired sessions, old reset tokens and long-dead invitations. Returns rows removed. */
+/** Removes expired sessions, old reset tokens, long-dead invitations and old sent mail. Returns rows removed. */
 export function removeExpired(db: Db, now = Date.now()): number {
   const cutoff = new Date(now - KEEP_MS);
   return db.transaction((tx) => {
@@ -21,6 +23,8 @@ export function removeExpired(db: Db, now = Date.now()): number {
         ),
       )
       .run().changes;
+    // Sent or given-up mail (its body is already gone once sent) is kept for the record, then dropped.
+    n += tx.delete(mailOutbox).where(or(lt(mailOutbox.sentAt, cutoff), lt(mailOutbox.failedAt, cutoff))).run().changes;
     return n;
   });
 }
@@ -38,4 +42,53 @@ export function startHousekeeping(db: Db, log: (message: string, err?: unknown) 
   const timer = setInterval(run, 3_600_000);
   timer.unref();
   return () => clearInterval(timer);
+}
+
+/** Folders of the data folder that hold stored files; every file in them belongs to a database row. */
+const STORED_FOLDERS = ['uploads', 'print-sets'];
+
+/** Every file below `dir`, as paths relative to `root` with forward slashes. */
+function filesBelow(root: string, dir: string): string[] {
+  let entries: fs.Dirent[];
+  try {
+    entries = fs.readdirSync(dir, { withFileTypes: true });
+  } catch {
+    return [];
+  }
+  return entries.flatMap((e) => {
+    const full = path.join(dir, e.name);
+    if (e.isDirectory()) return filesBelow(root, full);
+    return e.isFile() ? [path.relative(root, full).split(path.sep).join('/')] : [];
+  });
+}
+
+/**
+ * Removes what a killed process left in the stored-file folders: temporary files of writes that
+ * never finished (`writeFileAtomic` names them `.<name>.<random>.tmp`) and files no upload or print
+ * set row names (written just before a kill, or whose row was deleted just before one). Run it at
+ * start-up, before anything writes files. Returns the removed paths, relative to the data folder.
+ */
+export function sweepStoredFiles(db: Db, dataDir: string): string[] {
+  const known = new Set<string>([
+    ...db.select({ p: uploads.storagePath }).from(uploads).all().map((r) => r.p),
+    ...db
+      .select({ p: printSets.storagePath })
+      .from(printSets)
+      .all()
+      .map((r) => r.p)
+      .filter((p): p is string => typeof p === 'string'),
+  ]);
+  const removed: string[] = [];
+  for (const folder of STORED_FOLDERS) {
+    for (const relative of filesBelow(dataDir, path.join(dataDir, folder))) {
+      if (known.has(relative)) continue;
+      try {
+        fs.rmSync(path.join(dataDir, relative), { force: true });
+        removed.push(relative);
+      } catch {
+        // left for the next start
+      }
+    }
+  }
+  return removed;
 }
