@@ -1,3 +1,4 @@
+import os from 'node:os';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -37,7 +38,8 @@ const envSchema = z.object({
   SIGNUP_LIMIT_PER_ADDRESS: intFromEnv(20, 1),
   RATE_LIMIT_WINDOW_MINUTES: intFromEnv(15, 1),
   INVITATION_DAYS: intFromEnv(7, 1, 90),
-  PRINT_WORKERS: intFromEnv(1, 1, 8),
+  /** Print-render threads; by default one per processor the machine offers (at least 1). */
+  PRINT_WORKERS: intFromEnv(Math.max(1, os.availableParallelism()), 1, 64),
   /** A print set still rendering after this long is stopped and marked failed. */
   PRINT_TIMEOUT_SECONDS: intFromEnv(900, 5, 86_400),
   /** Print sets one user may have queued or rendering at once. */

@@ -3,6 +3,8 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { manySheetsDocument } from '../tests/support/documents';
+import { MAX_PRINT_SHEETS } from './print/print-budget';
 import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
@@ -12,7 +14,8 @@ let stranger: Client;
 let patternId: string;
 
 beforeAll(async () => {
-  t = await startTestServer({ PRINT_QUEUE_PER_USER: '4' });
+  // Two render threads, whatever the machine: the fairness test needs a second one to be free.
+  t = await startTestServer({ PRINT_QUEUE_PER_USER: '4', PRINT_WORKERS: '2' });
   owner = await userClient(t.app, 'owner@print.test', 'designer');
   quilter = await userClient(t.app, 'quilter@print.test', 'quilter');
   stranger = await userClient(t.app, 'stranger@print.test', 'designer');
@@ -205,7 +208,7 @@ describe('print sets', () => {
       const refused = await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} });
       expect(refused.status).toBe(429);
       expect(refused.body.details).toEqual({ waiting: 4 });
-      // Other users are not held up by one user's queue.
+      // The limit is per user: another user may still queue a set.
       await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
       sql.prepare("DELETE FROM print_sets WHERE id = 'waitingSet0'").run();
       await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
@@ -214,5 +217,65 @@ describe('print sets', () => {
       sql.prepare("DELETE FROM print_sets WHERE id LIKE 'waitingSet%'").run();
       sql.prepare('DELETE FROM members WHERE pattern_id = ? AND user_id = ?').run(patternId, stranger.user!.id);
     }
+  });
+
+  it("renders one user's small set while another user's huge set renders, and a deleted set's render stops", async () => {
+    // User A (owner) queues two huge sets (100 sections made twice: two prints of each, about 400
+    // template sheets, over a minute of rendering); then user B (stranger) queues a small one. A's second
+    // set waits behind A's first and does not take the second thread; B's set takes it and is done while
+    // A's first still renders.
+    const huge = (await owner.post('/api/patterns', { document: { ...manySheetsDocument(100, 'Huge'), blockCount: 2 } }).expect(201)).body.pattern.id as string;
+    const small = (await stranger.post('/api/patterns', { document: { ...manySheetsDocument(1, 'Small') } }).expect(201)).body.pattern.id as string;
+    const a1 = (await owner.post(`/api/patterns/${huge}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
+    const a2 = (await owner.post(`/api/patterns/${huge}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
+    const b = (await stranger.post(`/api/patterns/${small}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
+    const status = (id: string) => (t.ctx.database.sqlite.prepare('SELECT status FROM print_sets WHERE id = ?').get(id) as { status: string } | undefined)?.status;
+    let bSet;
+    for (let i = 0; i < 1200; i++) {
+      bSet = (await stranger.get(`/api/patterns/${small}/print-sets/${b}`).expect(200)).body.printSet;
+      if (bSet.status === 'done' || bSet.status === 'failed') break;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(bSet.status).toBe('done');
+    expect(status(a1)).toBe('rendering');
+    expect(status(a2)).toBe('queued');
+    expect(t.ctx.printSets.activeCount).toBe(1);
+
+    // Deleting A's rendering set stops its render: the pool has nothing left running within the grace
+    // (the render stops at its next sheet, or its worker is stopped), long before the render would have
+    // ended, and no PDF is ever written. A's queued set leaves the queue the same way when deleted first.
+    const progressAtDelete = (t.ctx.database.sqlite.prepare('SELECT progress FROM print_sets WHERE id = ?').get(a1) as { progress: number }).progress;
+    expect(progressAtDelete).toBeLessThan(0.5);
+    await owner.del(`/api/patterns/${huge}/print-sets/${a2}`).expect(204);
+    const deletedAt = Date.now();
+    await owner.del(`/api/patterns/${huge}/print-sets/${a1}`).expect(204);
+    while (t.ctx.printSets.activeCount > 0 && Date.now() - deletedAt < 5_000) await new Promise((r) => setTimeout(r, 20));
+    const stoppedAfterMs = Date.now() - deletedAt;
+    console.log(`deleted set's render stopped ${stoppedAfterMs} ms after the delete, at progress ${progressAtDelete.toFixed(2)}`);
+    expect(t.ctx.printSets.activeCount).toBe(0);
+    // Nothing else was started in its place: the queued set left the queue.
+    await t.ctx.printSets.whenIdle();
+    expect(status(a1)).toBeUndefined();
+    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${a1}.pdf`))).toBe(false);
+    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${a2}.pdf`))).toBe(false);
+  });
+
+  it('refuses with 422, before queueing, a set whose templates need more sheets than the budget', async () => {
+    // 100 sections of 6.5 × 9 in. made 1,000 times: a print of each per block, by area alone
+    // about 89,000 Letter sheets.
+    const doc = { ...manySheetsDocument(100, 'Too big'), blockCount: 1000 };
+    const id = (await owner.post('/api/patterns', { document: doc }).expect(201)).body.pattern.id as string;
+    const before = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM print_sets').get() as { n: number }).n;
+    const res = await owner.post(`/api/patterns/${id}/print-sets`, { options: { paper: 'letter' } });
+    expect(res.status).toBe(422);
+    expect(res.body.error).toMatch(new RegExp(`at most ${MAX_PRINT_SHEETS}`));
+    expect(res.body.details.maxSheets).toBe(MAX_PRINT_SHEETS);
+    expect(res.body.details.sheets).toBeGreaterThan(MAX_PRINT_SHEETS);
+    const after = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM print_sets').get() as { n: number }).n;
+    expect(after).toBe(before);
+    // One copy of each fits the budget.
+    await owner.post(`/api/patterns/${id}/print-sets`, { options: { paper: 'letter', copies: 'single' } }).expect(202);
+    const last = t.ctx.database.sqlite.prepare('SELECT id FROM print_sets WHERE pattern_id = ?').get(id) as { id: string };
+    await owner.del(`/api/patterns/${id}/print-sets/${last.id}`).expect(204);
   });
 });

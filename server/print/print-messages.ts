@@ -1,24 +1,38 @@
-/** Messages between the print-set service and its worker threads. */
+/** What the print-set service sends its pool's worker threads, and what they answer. */
+import type { MessagePort } from 'node:worker_threads';
 
-export interface RenderJob {
-  type: 'render';
+/** One print set to render (a piscina task). */
+export interface RenderTask {
   jobId: string;
   /** The stored revision's document (JSON). */
   document: unknown;
   /** Print options (JSON, validated again in the worker by the piecing schema). */
   options: unknown;
-  fonts: { regular: Uint8Array; bold: Uint8Array };
+  fonts: { regular: Uint8Array; bold: Uint8Array; fallback?: Uint8Array };
+  /** Progress goes back through this port (transferred with the task). */
+  progress: MessagePort;
+  /**
+   * One Int32 the service sets to 1 when the set is deleted: the render checks it between sheets
+   * and stops there, so its worker is free for the next set without being restarted.
+   */
+  cancel: SharedArrayBuffer;
+  /** Most template sheets a set may have; the render stops once its layout says more. */
+  maxSheets: number;
 }
 
-export type WorkerMessage =
-  | { type: 'ready' }
-  | { type: 'progress'; jobId: string; done: number; total: number }
-  | {
-      type: 'done';
-      jobId: string;
-      pdf: Uint8Array;
-      sheetCount: number;
-      templateSheetCount: number;
-      lowerBoundSheets: number;
-    }
-  | { type: 'failed'; jobId: string; message: string };
+/** A progress report: `done` of `total` steps (booklet, each template sheet, closing). */
+export interface RenderProgress {
+  done: number;
+  total: number;
+}
+
+/** A finished render (the task's result). */
+export interface RenderResult {
+  pdf: Uint8Array;
+  sheetCount: number;
+  templateSheetCount: number;
+  lowerBoundSheets: number;
+}
+
+/** The message of the error a render throws when it sees its cancel flag. */
+export const RENDER_CANCELLED = 'The print set was deleted while it rendered';

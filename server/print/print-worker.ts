@@ -1,41 +1,34 @@
 /**
- * Worker thread that renders print sets with the piecing library, off the server's request thread.
- * Receives {@link RenderJob}s, answers progress, the finished PDF (transferred, not copied) or a failure.
+ * The print pool's task (a piscina worker thread): renders one print set with the piecing library, off
+ * the server's request thread. Progress goes back through the task's port; between sheets the render
+ * looks at the task's cancel flag and stops when the set was deleted, and stops when its layout has
+ * more template sheets than the budget allows.
  */
-import { parentPort } from 'node:worker_threads';
 import { readPatternDocument, renderPrintSet } from '@seamwright/piecing';
-import type { RenderJob, WorkerMessage } from './print-messages';
+import { RENDER_CANCELLED, type RenderResult, type RenderTask } from './print-messages';
 
-const port = parentPort;
-if (!port) throw new Error('print-worker must run in a worker thread');
-const send = (m: WorkerMessage, transfer: ArrayBuffer[] = []) => port.postMessage(m, transfer);
+/** Steps of a render besides its template sheets (booklet, closing, …): see renderPrintSet's progress. */
+const NON_SHEET_STEPS = 3;
 
-port.on('message', (job: RenderJob) => {
-  void render(job);
-});
-send({ type: 'ready' });
-
-async function render(job: RenderJob): Promise<void> {
+export default async function renderTask(task: RenderTask): Promise<RenderResult> {
+  const cancelled = new Int32Array(task.cancel);
   try {
-    const document = readPatternDocument(job.document);
-    const result = await renderPrintSet(
-      document,
-      { ...(job.options as object), fonts: job.fonts },
-      (done, total) => send({ type: 'progress', jobId: job.jobId, done, total }),
-    );
-    const pdf = result.pdf;
-    send(
-      {
-        type: 'done',
-        jobId: job.jobId,
-        pdf,
-        sheetCount: result.sheetCount,
-        templateSheetCount: result.templateSheetCount,
-        lowerBoundSheets: result.lowerBoundSheets,
-      },
-      pdf.byteOffset === 0 && pdf.byteLength === pdf.buffer.byteLength ? [pdf.buffer as ArrayBuffer] : [],
-    );
-  } catch (err) {
-    send({ type: 'failed', jobId: job.jobId, message: err instanceof Error ? err.message : String(err) });
+    const document = readPatternDocument(task.document);
+    const result = await renderPrintSet(document, { ...(task.options as object), fonts: task.fonts }, (done, total) => {
+      if (Atomics.load(cancelled, 0) !== 0) throw new Error(RENDER_CANCELLED);
+      // The total counts template sheets from the second step on, once the layout is made.
+      if (total - NON_SHEET_STEPS > task.maxSheets) {
+        throw new Error(`The templates take ${total - NON_SHEET_STEPS} sheets, more than the ${task.maxSheets} a print set may have`);
+      }
+      task.progress.postMessage({ done, total });
+    });
+    return {
+      pdf: result.pdf,
+      sheetCount: result.sheetCount,
+      templateSheetCount: result.templateSheetCount,
+      lowerBoundSheets: result.lowerBoundSheets,
+    };
+  } finally {
+    task.progress.close();
   }
 }

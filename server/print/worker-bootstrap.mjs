@@ -1,7 +1,9 @@
-// Starts a TypeScript worker thread: registers tsx's loader in this thread, then imports the entry.
-// (Node 20 does not apply `--import tsx` from a worker's execArgv to the worker's own entry file.)
-import { workerData } from 'node:worker_threads';
+// The print pool's worker entry (piscina imports it in each worker thread): registers tsx's loader in
+// this thread, then hands on to the TypeScript task. (Node 20 does not apply `--import tsx` from the
+// parent's execArgv to a worker's own entry file.)
 import { register } from 'tsx/esm/api';
 
 register();
-await import(workerData.entry);
+const task = await import(new URL('./print-worker.ts', import.meta.url).href);
+
+export default task.default;

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
-import { printOptionsSchema } from '@seamwright/piecing';
+import { printOptionsSchema, type PatternDocument } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
@@ -10,6 +10,7 @@ import { printSets, users, type PrintSet } from '../db/schema';
 import { HttpError, zodDetails } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
+import { estimateTemplateSheets, MAX_PRINT_SHEETS } from '../print/print-budget';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { isShopBuyer } from '../services/access';
 import { findRevision } from '../services/revisions';
@@ -91,6 +92,14 @@ export function printSetsRouter(ctx: AppContext): Router {
         'Invalid print options',
         zodDetails(parsed.error).map((d) => ({ ...d, path: d.path ? `options.${d.path}` : 'options' })),
       );
+    }
+    // The size budget, before anything is queued (the stored document was validated when saved).
+    const sheets = estimateTemplateSheets(JSON.parse(revision.revision.document) as PatternDocument, parsed.data);
+    if (sheets !== null && sheets > MAX_PRINT_SHEETS) {
+      throw new HttpError(422, `This print set needs at least ${sheets} template sheets; a print set may have at most ${MAX_PRINT_SHEETS}`, {
+        sheets,
+        maxSheets: MAX_PRINT_SHEETS,
+      });
     }
     const row = db
       .insert(printSets)
@@ -175,6 +184,7 @@ export function printSetsRouter(ctx: AppContext): Router {
     const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
     db.delete(printSets).where(eq(printSets.id, set.id)).run();
+    ctx.printSets.cancel(set.id);
     await removeStoredFiles(config.dataDir, [set.storagePath]);
     res.status(204).end();
   });

@@ -1,35 +1,58 @@
 import fs from 'node:fs';
 import { EventEmitter } from 'node:events';
-import { Worker } from 'node:worker_threads';
+import { MessageChannel } from 'node:worker_threads';
 import { eq, inArray } from 'drizzle-orm';
+import { Piscina } from 'piscina';
 import type { Config } from '../config';
 import type { Db } from '../db/database';
 import { printSets, revisions, type PrintSet } from '../db/schema';
-import type { RenderJob, WorkerMessage } from '../print/print-messages';
+import { RENDER_CANCELLED, type RenderProgress, type RenderResult, type RenderTask } from '../print/print-messages';
+import { MAX_PRINT_SHEETS } from '../print/print-budget';
 import { removeStoredFiles, resolveInData, sha256Hex, writeFileAtomic } from './files';
 
 /** The fonts embedded in every print set (shipped in the repository's fonts/ folder). */
 export const FONTS_DIR = new URL('../../fonts/', import.meta.url);
 
-const BOOTSTRAP = new URL('../print/worker-bootstrap.mjs', import.meta.url);
-const WORKER_ENTRY = new URL('../print/print-worker.ts', import.meta.url).href;
+const WORKER_FILE = new URL('../print/worker-bootstrap.mjs', import.meta.url).href;
 
-interface Slot {
-  worker: Worker;
-  ready: Promise<void>;
-  busy: string | null;
+/** How long a deleted set's render may take to reach its next sheet before its worker is stopped. */
+const CANCEL_GRACE_MS = 2000;
+
+/** A set rendering in the pool. */
+interface Running {
+  userId: string;
+  /** Set to 1 to ask the render to stop at its next sheet. */
+  cancel: Int32Array;
+  /** Aborting stops the worker thread at once (piscina terminates it). */
+  abort: AbortController;
   timer?: NodeJS.Timeout;
+  /** Why the render was aborted, when it was. */
+  abortReason?: string;
 }
 
-/** Renders print sets in worker threads, one job per worker at a time, and stores the PDFs. */
+/**
+ * Renders print sets in a pool of worker threads (piscina) and stores the PDFs.
+ *
+ * Fair between users: each user's sets wait in their own queue, and free threads go to the users in
+ * turn (round robin), so one user's sets queue behind each other, never in front of others'. A user who
+ * already has a set rendering does not take the last free thread, which stays for whoever comes next
+ * (with a pool of one thread, sets simply take turns by user). A deleted set stops: a queued one leaves
+ * its queue, a rendering one stops at its next sheet, or within {@link CANCEL_GRACE_MS} its worker is
+ * stopped outright.
+ */
 export class PrintSetService {
   /** Emits `update` with the print-set row whenever its status or progress changes. */
   readonly events = new EventEmitter();
-  private readonly queue: string[] = [];
-  private readonly slots: Slot[] = [];
-  private fonts: { regular: Uint8Array; bold: Uint8Array } | undefined;
+  /** Queued set ids per user, oldest first. */
+  private readonly waiting = new Map<string, string[]>();
+  /** Users with queued sets, in the order their turn comes. */
+  private readonly turns: string[] = [];
+  private readonly running = new Map<string, Running>();
+  private pool: Piscina | undefined;
+  private fonts: RenderTask['fonts'] | undefined;
   private closed = false;
   private readonly idle = new Set<() => void>();
+  private readonly pending = new Set<Promise<void>>();
 
   constructor(
     private readonly db: Db,
@@ -39,38 +62,90 @@ export class PrintSetService {
     this.events.setMaxListeners(1000);
   }
 
-  /** Picks up jobs left queued or half-rendered by a previous process. */
+  /** Threads the pool renders on at once. */
+  get threads(): number {
+    return this.config.printWorkers;
+  }
+
+  /** Sets rendering now (for tests and the health figures). */
+  get activeCount(): number {
+    return this.running.size;
+  }
+
+  /** Picks up jobs left queued or half-rendered by a previous process, oldest first. */
   resumeUnfinished(): void {
     const rows = this.db
       .select({ id: printSets.id })
       .from(printSets)
       .where(inArray(printSets.status, ['queued', 'rendering']))
+      .orderBy(printSets.createdAt)
       .all();
     for (const r of rows) this.enqueue(r.id);
   }
 
-  /** Queues a print set (its row must exist with status `queued`). */
+  /** Queues a print set (its row must exist with status `queued` or `rendering`) in its maker's queue. */
   enqueue(setId: string): void {
     if (this.closed) return;
-    this.queue.push(setId);
+    const row = this.db.select({ createdBy: printSets.createdBy }).from(printSets).where(eq(printSets.id, setId)).get();
+    if (!row) return;
+    const queue = this.waiting.get(row.createdBy) ?? [];
+    if (queue.length === 0) {
+      this.waiting.set(row.createdBy, queue);
+      this.turns.push(row.createdBy);
+    }
+    queue.push(setId);
     this.pump();
+  }
+
+  /**
+   * Stops a set that is being deleted: out of its queue if it waits; if it renders, the render stops at
+   * its next sheet and, failing that, its worker is stopped after a short grace. Nothing is stored.
+   */
+  cancel(setId: string): void {
+    for (const [userId, queue] of this.waiting) {
+      const at = queue.indexOf(setId);
+      if (at >= 0) {
+        queue.splice(at, 1);
+        if (queue.length === 0) this.dropUser(userId);
+        this.pump();
+        return;
+      }
+    }
+    const run = this.running.get(setId);
+    if (!run) return;
+    Atomics.store(run.cancel, 0, 1);
+    clearTimeout(run.timer);
+    run.timer = setTimeout(() => this.abort(setId, RENDER_CANCELLED), CANCEL_GRACE_MS);
+    run.timer.unref();
   }
 
   /** Resolves when nothing is queued or rendering (for tests and shutdown). */
   whenIdle(): Promise<void> {
-    if (this.queue.length === 0 && this.slots.every((s) => !s.busy)) return Promise.resolve();
+    if (this.isIdle()) return Promise.resolve();
     return new Promise((resolve) => this.idle.add(resolve));
   }
 
   async close(): Promise<void> {
     this.closed = true;
-    this.queue.length = 0;
-    for (const s of this.slots) clearTimeout(s.timer);
-    await Promise.all(this.slots.map((s) => s.worker.terminate()));
-    this.slots.length = 0;
+    this.waiting.clear();
+    this.turns.length = 0;
+    for (const id of [...this.running.keys()]) this.abort(id, 'The server is shutting down');
+    await Promise.allSettled([...this.pending]);
+    await this.pool?.destroy();
+    this.pool = undefined;
   }
 
-  private loadFonts() {
+  private isIdle(): boolean {
+    return this.turns.length === 0 && this.running.size === 0 && this.pending.size === 0;
+  }
+
+  private dropUser(userId: string): void {
+    this.waiting.delete(userId);
+    const at = this.turns.indexOf(userId);
+    if (at >= 0) this.turns.splice(at, 1);
+  }
+
+  private loadFonts(): RenderTask['fonts'] {
     this.fonts ??= {
       regular: new Uint8Array(fs.readFileSync(new URL('Roboto-Regular.ttf', FONTS_DIR))),
       bold: new Uint8Array(fs.readFileSync(new URL('Roboto-Bold.ttf', FONTS_DIR))),
@@ -78,101 +153,97 @@ export class PrintSetService {
     return this.fonts;
   }
 
-  private spawn(): Slot {
-    const worker = new Worker(BOOTSTRAP, { workerData: { entry: WORKER_ENTRY } });
-    worker.unref();
-    const slot: Slot = { worker, busy: null, ready: Promise.resolve() };
-    slot.ready = new Promise<void>((resolve) => {
-      const onReady = (m: WorkerMessage) => {
-        if (m.type === 'ready') {
-          worker.off('message', onReady);
-          resolve();
-        }
-      };
-      worker.on('message', onReady);
+  private getPool(): Piscina {
+    this.pool ??= new Piscina({
+      filename: WORKER_FILE,
+      minThreads: 0,
+      maxThreads: this.threads,
+      // Threads cost a tsx start-up each; keep them a while between sets.
+      idleTimeout: 60_000,
     });
-    worker.on('message', (m: WorkerMessage) => this.onMessage(slot, m));
-    const lost = (why: unknown) => {
-      clearTimeout(slot.timer);
-      const job = slot.busy;
-      this.slots.splice(this.slots.indexOf(slot), 1);
-      if (job) this.fail(job, 'The print worker stopped unexpectedly');
-      slot.busy = null;
-      if (!this.closed) this.log('print worker stopped', why);
-      this.pump();
-    };
-    worker.on('error', lost);
-    worker.on('exit', (code) => {
-      if (this.slots.includes(slot)) lost(new Error(`exit code ${code}`));
-    });
-    this.slots.push(slot);
-    return slot;
+    return this.pool;
   }
 
+  /** Hands free threads to the users in turn. */
   private pump(): void {
     if (this.closed) return;
-    while (this.queue.length > 0) {
-      let slot = this.slots.find((s) => !s.busy);
-      if (!slot && this.slots.length < this.config.printWorkers) slot = this.spawn();
-      if (!slot) return;
-      const setId = this.queue.shift()!;
-      this.start(slot, setId);
+    while (this.running.size < this.threads) {
+      const free = this.threads - this.running.size;
+      const at = this.turns.findIndex((u) => free > 1 || ![...this.running.values()].some((r) => r.userId === u));
+      if (at < 0) break;
+      const userId = this.turns[at];
+      const queue = this.waiting.get(userId)!;
+      const setId = queue.shift()!;
+      this.turns.splice(at, 1);
+      if (queue.length > 0) this.turns.push(userId);
+      else this.waiting.delete(userId);
+      this.start(setId, userId);
     }
-    if (this.slots.every((s) => !s.busy)) {
+    if (this.isIdle()) {
       for (const resolve of this.idle) resolve();
       this.idle.clear();
     }
   }
 
-  private start(slot: Slot, setId: string): void {
+  private start(setId: string, userId: string): void {
     const row = this.db.select().from(printSets).where(eq(printSets.id, setId)).get();
     if (!row || (row.status !== 'queued' && row.status !== 'rendering')) return;
     const revision = this.db.select().from(revisions).where(eq(revisions.id, row.revisionId)).get();
     if (!revision) return this.fail(setId, 'The revision is gone');
-    slot.busy = setId;
+    const run: Running = { userId, cancel: new Int32Array(new SharedArrayBuffer(4)), abort: new AbortController() };
+    this.running.set(setId, run);
     this.update(setId, { status: 'rendering', progress: 0 });
-    // A render that never ends (a bug, a hostile document) must not hold the queue: stop the worker.
-    slot.timer = setTimeout(() => {
-      if (slot.busy !== setId) return;
-      this.fail(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`);
-      slot.busy = null;
-      this.slots.splice(this.slots.indexOf(slot), 1);
-      void slot.worker.terminate();
-      this.pump();
-    }, this.config.printTimeoutSeconds * 1000);
-    slot.timer.unref();
-    const job: RenderJob = {
-      type: 'render',
+    // A render that never ends (a bug, a hostile document) must not hold a thread: stop its worker.
+    run.timer = setTimeout(
+      () => this.abort(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`),
+      this.config.printTimeoutSeconds * 1000,
+    );
+    run.timer.unref();
+    const channel = new MessageChannel();
+    channel.port1.on('message', (p: RenderProgress) => {
+      // Cover and appendix are steps too; keep 1.0 for "stored".
+      if (this.running.get(setId) === run && Atomics.load(run.cancel, 0) === 0) this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
+    });
+    channel.port1.unref();
+    const task: RenderTask = {
       jobId: setId,
       document: JSON.parse(revision.document),
       options: JSON.parse(row.options),
       fonts: this.loadFonts(),
+      progress: channel.port2,
+      cancel: run.cancel.buffer as SharedArrayBuffer,
+      maxSheets: MAX_PRINT_SHEETS,
     };
-    void slot.ready.then(() => slot.worker.postMessage(job));
+    const done = this.getPool()
+      .run(task, { transferList: [channel.port2], signal: run.abort.signal })
+      .then(
+        (result: RenderResult) => (Atomics.load(run.cancel, 0) !== 0 ? undefined : this.store(setId, result)),
+        (err: unknown) => {
+          if (Atomics.load(run.cancel, 0) !== 0) return; // deleted: nothing to report
+          const reason = run.abortReason ?? (err instanceof Error ? err.message : String(err));
+          this.fail(setId, reason);
+        },
+      )
+      .catch((err: unknown) => this.log('print set could not be finished', err))
+      .finally(() => {
+        clearTimeout(run.timer);
+        channel.port1.close();
+        this.running.delete(setId);
+        this.pending.delete(done);
+        this.pump();
+      });
+    this.pending.add(done);
   }
 
-  private onMessage(slot: Slot, m: WorkerMessage): void {
-    if (m.type === 'ready' || m.jobId !== slot.busy) return;
-    if (m.type !== 'progress') clearTimeout(slot.timer);
-    if (m.type === 'progress') {
-      // Cover and appendix are steps too; keep 1.0 for "stored".
-      this.update(m.jobId, { progress: Math.min(0.99, m.done / Math.max(1, m.total)) });
-      return;
-    }
-    const setId = m.jobId;
-    if (m.type === 'failed') {
-      slot.busy = null;
-      this.fail(setId, m.message);
-      this.pump();
-      return;
-    }
-    void this.store(setId, m).finally(() => {
-      slot.busy = null;
-      this.pump();
-    });
+  /** Stops a running set's worker at once (piscina terminates the thread). */
+  private abort(setId: string, reason: string): void {
+    const run = this.running.get(setId);
+    if (!run || run.abort.signal.aborted) return;
+    run.abortReason = reason;
+    run.abort.abort(new Error(reason));
   }
 
-  private async store(setId: string, m: Extract<WorkerMessage, { type: 'done' }>): Promise<void> {
+  private async store(setId: string, m: RenderResult): Promise<void> {
     const row = this.db.select().from(printSets).where(eq(printSets.id, setId)).get();
     if (!row) return; // deleted while rendering
     const storagePath = `print-sets/${row.createdBy}/${setId}.pdf`;
