@@ -15,7 +15,9 @@
  *   ... after a 409, to take the server's revision: set [document] to it (history is cleared).
  *
  * Keys on the board: V select, H pan, S straight, A arc, W wedge, L split, R ring repeat, F fill,
- * T strip set, N renumber, D delete, 0 fit; Ctrl+Z undo, Ctrl+Shift+Z / Ctrl+Y redo, Ctrl+C/X/V.
+ * T strip set, N renumber, D delete, 0 fit; Ctrl+Z undo, Ctrl+Shift+Z / Ctrl+Y redo, Ctrl+C/X/V;
+ * arrows nudge the selection by the snap step (Shift: 1 in. or 1 cm), Delete removes it, Escape
+ * clears it, ? opens the keyboard help. The Sections outline beside the board selects by keys.
  *
  * Inside `<sw-pattern-editor>` (it shares that editor's session), `<sw-pattern-settings-panel />` edits the
  * whole pattern: sewing numbers, fabrics, strip-set names and resizing, and warns about sections outside
