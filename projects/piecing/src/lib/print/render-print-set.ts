@@ -15,7 +15,6 @@ import { sheetFrame, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
 import { bookletContext, type BookletContext } from './booklet/booklet-context';
 import { BookletWriter } from './booklet/booklet-writer';
-import { copiesFigures, type CopiesFigures } from './booklet/copies-figures';
 import { drawBookletCover, type ContentsEntry } from './booklet/draw-booklet-cover';
 import { drawCuttingInstructions } from './booklet/draw-cutting-instructions';
 import { drawFabricRequirements } from './booklet/draw-fabric-requirements';
@@ -27,6 +26,7 @@ import { finishedBlockSize } from './booklet/finished-size';
 import type { SectionPressing } from './booklet/section-pressing';
 import { findUnsewableSections, UnsewablePatternError } from './booklet/unsewable-sections';
 import { resolveJoiningPlan, seamPressing } from '../joining/index';
+import { planCopies, type CopyPlan } from '../fabrication/index';
 import { buildPieceTemplates } from './piece-templates/build-piece-templates';
 import { drawPieceTemplates } from './piece-templates/draw-piece-templates';
 
@@ -161,7 +161,7 @@ export async function renderPrintSet(
   for (const s of pieceWriter.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
 
   const pageCount = doc.getNumberOfPages();
-  const figures = copiesFigures(document);
+  const figures = planCopies(document);
   doc.setPage(1);
   drawBookletCover(ctx, coverFrame, {
     finished: finishedBlockSize(document),
@@ -234,13 +234,13 @@ function contentsOf(headings: readonly PageHeading[]): ContentsEntry[] {
 }
 
 /** The copies rule for the sections on a template sheet, in a few words (docs/design-notes.md#copies). */
-function copiesAside(ctx: BookletContext, figures: CopiesFigures, sectionIds: readonly string[]): string {
+function copiesAside(ctx: BookletContext, figures: CopyPlan, sectionIds: readonly string[]): string {
   if (ctx.options.foundation === 'paper') return 'Paper foundations: one print per section sewn';
   const parts = sectionIds
     .map((id) => figures.sections.find((s) => s.sectionId === id))
     .filter((s) => s !== undefined)
-    .map((s) => `${s.label}: a print lasts ${s.sectionsPerTemplate} (${s.patches} pressings each)`);
-  return `Freezer paper, ${figures.pressingsPerTemplate} pressings — ${parts.join(' · ')}`;
+    .map((s) => `${s.sectionsPerTemplate} ${s.label}`);
+  return `Freezer paper: one print per ${parts.join(', ')} (see cover)`;
 }
 
 function addSheet(doc: jsPDF, frame: SheetFrame): void {

@@ -75,6 +75,17 @@ describe('the booklet of "Orchard Wheel" with designer\'s notes', () => {
     for (const page of withA) expect(page.text.join(' ')).toContain(`Section A — designer's note: ${noteA}`);
   });
 
+  it('states the copies rule with its figures on the cover', () => {
+    const cover = text(pages.slice(0, 1));
+    expect(cover).toContain('Freezer paper loses its hold by pressings');
+    // docs/design-notes.md#copies: B has k = 3 patches and is sewn 8 times; with P = 16 one template lasts
+    // floor(16 / 3) = 5 sections, so 8 sections take ceil(8 / 5) = 2 freezer-paper prints (8 on paper).
+    expect(cover).toMatch(/B\s+3\s+8\s+5\s+8 paper \(2 on freezer paper\)/);
+    // C: 3 patches, 16 sewn → ceil(16 / 5) = 4. Piece template B1: 8 pieces, one pressing each → ceil(8 / 16) = 1.
+    expect(cover).toMatch(/C\s+3\s+16\s+5\s+16 paper \(4 on freezer paper\)/);
+    expect(cover).toContain('B1 cuts 8 pieces: 1 print');
+  });
+
   it('closes the booklet with every caution, before the templates', () => {
     for (const caution of PRINT_CAUTIONS) expect(booklet).toContain(caution.slice(0, 60));
   });

@@ -4,7 +4,7 @@ import type { PrintLayout } from '../layout-types';
 import { SheetFlow } from '../sheet-flow';
 import type { SheetFrame } from '../sheet-frame';
 import type { BookletContext } from './booklet-context';
-import { copiesRuleText, type CopiesFigures } from './copies-figures';
+import type { CopyPlan } from '../../fabrication/index';
 import { drawShape, fitDiagram, lighten } from './diagram';
 import { sectionCopyOutlines, type FinishedBlockSize } from './finished-size';
 import { patternNotes } from './draw-notes-and-cautions';
@@ -25,7 +25,7 @@ export interface ContentsEntry {
 export interface CoverFacts {
   finished: FinishedBlockSize | null;
   layout: PrintLayout;
-  copies: CopiesFigures;
+  copies: CopyPlan;
   pieceTemplates: readonly PieceTemplate[];
   contents: readonly ContentsEntry[];
 }
@@ -106,7 +106,7 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
   // Below the picture from here on.
   if (flow.y < picture.y + picture.height + 0.1) flow.gap(picture.y + picture.height + 0.1 - flow.y);
   heading('Template copies');
-  para(copiesRuleText(facts.copies.pressingsPerTemplate), 8);
+  para(facts.copies.rule, 8);
   if (!full) {
     const freezer = ctx.options.foundation === 'freezer-paper';
     flow.table(
@@ -120,9 +120,9 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
       facts.copies.sections.map((s) => [
         s.label,
         String(s.patches),
-        String(s.uses),
+        String(s.templatesNeeded),
         String(s.sectionsPerTemplate),
-        freezer ? `${s.freezerPaperCopies} freezer paper` : `${s.uses} paper (${s.freezerPaperCopies} on freezer paper)`,
+        freezer ? `${s.printedCopies} freezer paper` : `${s.templatesNeeded} paper (${s.printedCopies} on freezer paper)`,
       ]),
       8,
     );

@@ -12,6 +12,7 @@ const COLUMNS = 4;
 const DIAGRAM_IN = 1.7;
 const CAPTION_PT = 8;
 const LINE_IN = (CAPTION_PT * 1.3) / 72;
+const NUMBER_IN = 0.2;
 const PART_A = '#c9d7ea';
 const PART_B = '#f0d3b5';
 
@@ -47,7 +48,8 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
     const lines = Math.max(...items.map((_, c) => texts[row * COLUMNS + c].length));
     const top = flow.block(DIAGRAM_IN + 0.1 + lines * LINE_IN + 0.15);
     items.forEach((step, c) => {
-      const box = { x: top.x + c * cellW + 0.05, y: top.y, width: cellW - 0.1, height: DIAGRAM_IN };
+      // The step number sits above its diagram, so a diagram filling its box never covers it.
+      const box = { x: top.x + c * cellW + 0.05, y: top.y + NUMBER_IN, width: cellW - 0.1, height: DIAGRAM_IN - NUMBER_IN };
       const fit = fitDiagram(all, box, false);
       const inA = new Set(step.partA.sectionIds);
       const inB = new Set(step.partB.sectionIds);
@@ -58,9 +60,9 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
       ctx.pen.segments(step.seam.paths.flatMap((path) => pathSegments(path.map(fit.map))), DIAGRAM_STYLES.sewLine);
       for (const m of step.marks) ctx.pen.fillPolygon(dot(fit.map(m), 0.028), '#000000');
       drawPress(ctx, fit, step, outlines);
-      ctx.pen.text(String(step.number), { x: box.x + 0.02, y: box.y + 0.15 }, { sizePt: 11, bold: true });
+      ctx.pen.text(String(step.number), { x: box.x + 0.02, y: top.y + 0.15 }, { sizePt: 11, bold: true });
       texts[row * COLUMNS + c].forEach((line, k) =>
-        ctx.pen.text(line, { x: box.x + 0.02, y: box.y + DIAGRAM_IN + 0.1 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT, bold: k === 0 }),
+        ctx.pen.text(line, { x: box.x + 0.02, y: top.y + DIAGRAM_IN + 0.1 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT, bold: k === 0 }),
       );
     });
   }

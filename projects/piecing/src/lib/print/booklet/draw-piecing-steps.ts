@@ -1,7 +1,6 @@
 import type { Point, Section } from '../../document/index';
 import type { DerivedPatch } from '../../geometry/index';
 import { checkSewability, type SewingStep } from '../../sewability/index';
-import { drawArrow } from '../draw-template';
 import type { SheetFlow } from '../sheet-flow';
 import { fabricColour, patchMaterial, sectionUses, type BookletContext } from './booklet-context';
 import type { BookletWriter } from './booklet-writer';
@@ -18,6 +17,7 @@ const COLUMNS = 4;
 const DIAGRAM_IN = 1.45;
 const CAPTION_PT = 7.5;
 const LINE_IN = (CAPTION_PT * 1.3) / 72;
+const NUMBER_IN = 0.2;
 
 /**
  * One part per section: its piecing steps as small numbered diagrams (the patch added highlighted, the
@@ -65,7 +65,8 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[]
     const lines = Math.max(...items.map((i) => texts[i].length));
     const top = flow.block(DIAGRAM_IN + 0.08 + lines * LINE_IN + 0.12);
     items.forEach((i, c) => {
-      const box = { x: top.x + c * cellW + 0.04, y: top.y, width: cellW - 0.08, height: DIAGRAM_IN };
+      // The step number sits above its diagram, so a diagram filling its box never covers it.
+      const box = { x: top.x + c * cellW + 0.04, y: top.y + NUMBER_IN, width: cellW - 0.08, height: DIAGRAM_IN - NUMBER_IN };
       const fit = fitDiagram(all, box, ctx.options.mirrored);
       const addedNumber = i === 0 ? patches[0].number : steps[i - 1].patchNumber;
       const sewnBefore = new Set(i === 0 ? [] : [patches[0].number, ...steps.slice(0, i - 1).map((s) => s.patchNumber)]);
@@ -77,14 +78,15 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[]
       }
       drawShape(ctx.pen, byNumber.get(addedNumber)!.polygon.map(fit.map), null, DIAGRAM_STYLES.highlight);
       const step = stepOf.get(addedNumber);
-      if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step));
-      for (const p of patches) {
-        if (p.number !== addedNumber && !sewnBefore.has(p.number)) continue;
+      const shown = patches.filter((p) => p.number === addedNumber || sewnBefore.has(p.number));
+      if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step), shown.map((p) => fit.map(p.labelPoint)));
+      for (const p of shown) {
         const at = fit.map(p.labelPoint);
-        ctx.pen.text(p.label, at, { sizePt: 7, bold: p.number === addedNumber, align: 'center', baseline: 'middle', colour: '#000000' });
+        const dark = p.number === addedNumber && isDark(lighten(fabricColour(ctx, p.fabricId ?? p.stripSet?.strips[0]?.fabricId), 0.25));
+        ctx.pen.text(p.label, at, { sizePt: 7, bold: p.number === addedNumber, align: 'center', baseline: 'middle', colour: dark ? '#ffffff' : '#000000' });
       }
-      ctx.pen.text(`${i + 1}`, { x: box.x + 0.02, y: box.y + 0.14 }, { sizePt: 10, bold: true });
-      texts[i].forEach((line, k) => ctx.pen.text(line, { x: box.x + 0.02, y: box.y + DIAGRAM_IN + 0.08 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT }));
+      ctx.pen.text(`${i + 1}`, { x: box.x + 0.02, y: top.y + 0.15 }, { sizePt: 10, bold: true });
+      texts[i].forEach((line, k) => ctx.pen.text(line, { x: box.x + 0.02, y: top.y + DIAGRAM_IN + 0.08 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT }));
     });
   }
 }
@@ -95,21 +97,42 @@ function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, pa
   else ctx.pen.fillPolygon(patch.polygon.map(fit.map), colour(patch.fabricId));
 }
 
-function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep, added: DerivedPatch, press: 'added' | 'previous' | 'open'): void {
+function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep, added: DerivedPatch, press: 'added' | 'previous' | 'open', labels: readonly Point[]): void {
   const a = fit.map(step.from);
   const b = fit.map(step.to);
   ctx.pen.segments([{ a, b }], DIAGRAM_STYLES.sewLine);
-  // A third of the way along the seam, clear of the patch labels (which sit near the middles).
   const { n } = normalTowards(a, b, fit.map(added.labelPoint));
-  const mid = { x: a.x + (b.x - a.x) * 0.3, y: a.y + (b.y - a.y) * 0.3 };
   const len = 0.22;
+  // Along the seam where the arrow stays clearest of the patch labels.
+  const at = (t: number) => ({ x: a.x + (b.x - a.x) * t, y: a.y + (b.y - a.y) * t });
+  const clearance = (t: number) => Math.min(...labels.map((l) => Math.min(Math.hypot(l.x - at(t).x - n.x * len, l.y - at(t).y - n.y * len), Math.hypot(l.x - at(t).x + n.x * len, l.y - at(t).y + n.y * len))));
+  const t = [0.3, 0.5, 0.7, 0.2, 0.8].reduce((best, c) => (clearance(c) > clearance(best) + 0.02 ? c : best), 0.3);
+  const mid = at(t);
+  const colour = isDark(lighten(fabricColour(ctx, added.fabricId ?? added.stripSet?.strips[0]?.fabricId), 0.25)) ? '#ffffff' : '#000000';
   if (press === 'open') {
-    drawArrow(ctx.pen, { x: mid.x + n.x * 0.13, y: mid.y + n.y * 0.13 }, n, len * 0.8);
-    drawArrow(ctx.pen, { x: mid.x - n.x * 0.13, y: mid.y - n.y * 0.13 }, { x: -n.x, y: -n.y }, len * 0.8);
+    pressArrow(ctx, { x: mid.x + n.x * 0.13, y: mid.y + n.y * 0.13 }, n, len * 0.8, colour);
+    pressArrow(ctx, { x: mid.x - n.x * 0.13, y: mid.y - n.y * 0.13 }, { x: -n.x, y: -n.y }, len * 0.8, '#000000');
     return;
   }
   const d: Point = press === 'added' ? n : { x: -n.x, y: -n.y };
-  drawArrow(ctx.pen, { x: mid.x + d.x * len * 0.6, y: mid.y + d.y * len * 0.6 }, d, len);
+  pressArrow(ctx, { x: mid.x + d.x * len * 0.6, y: mid.y + d.y * len * 0.6 }, d, len, press === 'added' ? colour : '#000000');
+}
+
+/** A pressing arrow in a colour that shows on the fabric under it. */
+function pressArrow(ctx: BookletContext, centre: Point, d: Point, lengthIn: number, colour: string): void {
+  const tip = { x: centre.x + (d.x * lengthIn) / 2, y: centre.y + (d.y * lengthIn) / 2 };
+  const tail = { x: centre.x - (d.x * lengthIn) / 2, y: centre.y - (d.y * lengthIn) / 2 };
+  const head = lengthIn * 0.4;
+  const side = { x: -d.y, y: d.x };
+  const back = { x: tip.x - d.x * head, y: tip.y - d.y * head };
+  ctx.pen.segments([{ a: tail, b: back }], { widthPt: 1, colour });
+  ctx.pen.fillPolygon([tip, { x: back.x + side.x * head * 0.5, y: back.y + side.y * head * 0.5 }, { x: back.x - side.x * head * 0.5, y: back.y - side.y * head * 0.5 }], colour);
+}
+
+/** Whether a colour is dark enough to want white marks on it (relative luminance, ITU-R BT.709 weights). */
+export function isDark(hex: string): boolean {
+  const v = parseInt(hex.slice(1), 16);
+  return 0.2126 * ((v >> 16) & 255) + 0.7152 * ((v >> 8) & 255) + 0.0722 * (v & 255) < 110;
 }
 
 function stepText(ctx: BookletContext, patches: DerivedPatch[], steps: SewingStep[], i: number, pressing: SectionPressing): string {

@@ -1,7 +1,6 @@
 import type { PatternDocument, Point } from '../../document/index';
 import { derivePatches, lineChords } from '../../geometry/index';
-import { layoutStripSet, PolygonOffsetter, stripSetDisplayName } from '../../fabrication/index';
-import { pieceTemplateCopies } from '../booklet/copies-figures';
+import { layoutStripSet, pieceTemplateCopies, PolygonOffsetter, stripSetDisplayName } from '../../fabrication/index';
 import type { PrintSegment } from '../template-model';
 
 /** A line printed on a piece template with what it is for. */
