@@ -13,9 +13,11 @@ export interface OutboxOptions {
   maxAttempts: number;
   /** Mails sent per pass. */
   batch: number;
+  /** Whether an enqueued mail wakes the sender at once (tests that drive `drain` themselves turn it off). */
+  wakeOnEnqueue: boolean;
 }
 
-const DEFAULTS: OutboxOptions = { pollMs: 5_000, firstRetryMs: 5_000, maxRetryMs: 3_600_000, maxAttempts: 10, batch: 20 };
+const DEFAULTS: OutboxOptions = { pollMs: 5_000, firstRetryMs: 5_000, maxRetryMs: 3_600_000, maxAttempts: 10, batch: 20, wakeOnEnqueue: true };
 
 /** Delay before attempt `attempts + 1`, after `attempts` failed ones (exponential backoff with a ceiling). */
 export function retryDelayMs(attempts: number, o: Pick<OutboxOptions, 'firstRetryMs' | 'maxRetryMs'> = DEFAULTS): number {
@@ -51,7 +53,7 @@ export class MailOutbox {
       .values({ id, kind, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null, nextAttemptAt: new Date() })
       .run();
     // A timer, not a call: the caller's transaction commits before the sender looks.
-    if (!this.closed) setTimeout(() => this.wake(), 0).unref();
+    if (!this.closed && this.options.wakeOnEnqueue) setTimeout(() => this.wake(), 0).unref();
     return id;
   }
 
