@@ -66,10 +66,25 @@ describe('print sets under SIGKILL', () => {
       setIds.push(res.json.printSet.id);
       // Kill at a random point of the render: at some progress, sometimes right at the end (storing).
       const at = k === KILLS - 1 ? 0.97 : 0.1 + rng() * 0.85;
-      const seen = await pollPrintSet(client, patternId, res.json.printSet.id, (s) => s.status === 'done' || s.status === 'failed' || (s.status === 'rendering' && s.progress >= at), 120_000, 20);
+      // Only a set still rendering will do: one that finished before the kill would test nothing.
+      const seen = await pollPrintSet(
+        client,
+        patternId,
+        res.json.printSet.id,
+        (s) => {
+          if (s.status === 'done' || s.status === 'failed') throw new Error(`set ${k + 1} ended (${s.status}) before it reached progress ${at.toFixed(2)}`);
+          return s.status === 'rendering' && s.progress >= at;
+        },
+        120_000,
+        20,
+      );
       await sleep(Math.floor(rng() * 40));
       await server.kill('SIGKILL');
-      killLog.push(`set ${k + 1}: killed at progress ${seen.progress.toFixed(2)} (${seen.status})`);
+      // What the database held at the kill: the set had not finished, so the kill landed in its render
+      // (or in the storing of its PDF, which happens before the row says done).
+      const atKill = withReadOnlyDatabase(server.dataDir, (db) => db.prepare('SELECT status, progress FROM print_sets WHERE id = ?').get(res.json.printSet.id) as { status: string; progress: number });
+      expect(atKill.status, `set ${k + 1} finished before the kill`).toBe('rendering');
+      killLog.push(`set ${k + 1}: killed at progress ${atKill.progress.toFixed(2)} (seen ${seen.progress.toFixed(2)})`);
       await server.restart();
     }
     // After the last restart, the unfinished renders resume; wait for every set to settle.
