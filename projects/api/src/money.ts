@@ -45,3 +45,27 @@ export function minorUnitName(currency: ShopCurrency): string {
   if (currency === 'chf') return 'centimes';
   return 'cents';
 }
+
+/**
+ * A price as typed in the currency's own units ("12.50", "12.5", "12", "1,500" for yen) to minor units,
+ * read digit by digit from the text: no floating-point step, so "0.29" is 29 and "19.99" is 1999. Null
+ * when the text is not a plain amount or has more decimals than the currency (a third digit of cents).
+ */
+export function parseMoney(text: string, currency: ShopCurrency): number | null {
+  const digits = MINOR_DIGITS[currency];
+  const m = /^(\d{1,3}(?:,\d{3})+|\d+)(?:\.(\d*))?$/.exec(text.trim());
+  if (!m) return null;
+  const whole = m[1].replace(/,/g, '');
+  const fraction = m[2] ?? '';
+  if (fraction.length > digits) return null;
+  const minor = Number(whole + fraction.padEnd(digits, '0'));
+  return Number.isSafeInteger(minor) ? minor : null;
+}
+
+/** Minor units as a plain amount in the currency's units for a price field: 1250 usd → "12.50", 1500 jpy → "1500". */
+export function formatMoneyAmount(minor: number, currency: ShopCurrency): string {
+  const digits = MINOR_DIGITS[currency];
+  if (digits === 0) return String(minor);
+  const text = String(Math.abs(minor)).padStart(digits + 1, '0');
+  return `${minor < 0 ? '-' : ''}${text.slice(0, -digits)}.${text.slice(-digits)}`;
+}

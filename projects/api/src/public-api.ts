@@ -149,7 +149,9 @@ export {
   MIN_PRICE_MINOR,
   MAX_PRICE_MINOR,
   formatMoney,
+  formatMoneyAmount,
   minorUnitName,
+  parseMoney,
   type ShopCurrency,
 } from './money';
 export { stripControlCharacters, singleLineText, multiLineText } from './text';
