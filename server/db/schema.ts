@@ -276,6 +276,15 @@ export const shopListings = sqliteTable('shop_listings', {
   publishedAt: integer('published_at', { mode: 'timestamp_ms' }),
   createdAt: createdAt(),
   updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  /**
+   * What the shop shows of the design, written from the head revision whenever the listing is saved
+   * (so browsing never reads documents): sections, the finished block size (null: no sections) and a
+   * small SVG picture drawn by the server (null: none yet, as for listings saved before these columns).
+   */
+  sectionCount: integer('section_count').notNull().default(0),
+  finishedWidthIn: real('finished_width_in'),
+  finishedHeightIn: real('finished_height_in'),
+  previewSvg: text('preview_svg'),
 });
 
 /** One purchase of a pattern: a checkout session at the payment provider and what came of it. */
