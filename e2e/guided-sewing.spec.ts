@@ -57,43 +57,43 @@ test('the quilter walks a section in guided sewing and the sewing log shows it',
   await page.getByRole('tab', { name: /Guided sewing/ }).click();
   await page.waitForURL(new RegExp(`/patterns/${id}/sew$`));
   const guided = new GuidedSewingPage(page);
-  await expect(guided.stepHeading()).toHaveText('Step 1 of 4: add A1');
-  await expect(guided.instruction('Piece')).toContainText(/Brick, rough cut .+ × .+ in\./);
+  await expect(guided.stepHeading()).toHaveText('Step 1 of 4: add B1');
+  await expect(guided.instruction('Piece')).toContainText(/Moss, rough cut .+ × .+ in\./);
   await expect(guided.picture()).toHaveAttribute('aria-label', /printed side of the foundation shows it \(mirror image\)/);
   await expect(guided.previousButton()).toBeDisabled();
   await expect(page.getByText(/Keys: → or N next step, ← or P previous step/)).toBeVisible();
 
-  // Every step of section A, copy 1, by keys; focus lands on each step's heading.
+  // Every step of section B, copy 1 (the default joining plan joins B to A first), by keys; focus lands on each step's heading.
   await guided.press('ArrowRight');
-  await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add A2');
+  await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add B2');
   await expect(guided.stepHeading()).toBeFocused();
-  await expect(guided.instruction('Sew')).toContainText('between A1 and A2');
-  await expect(guided.instruction('Press')).toContainText('toward A2 (the patch just added)');
+  await expect(guided.instruction('Sew')).toContainText('between B1 and B2');
+  await expect(guided.instruction('Press')).toContainText('toward B2 (the patch just added)');
   await guided.press('n');
-  await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add A3');
+  await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add B3');
   await expect(guided.instruction('Pre-trim')).toHaveCount(0);
-  // Leaving the last patch ticks copy 1 of A pieced in the log.
+  // Leaving the last patch ticks copy 1 of B pieced in the log.
   const logged = page.waitForResponse((r) => r.request().method() === 'PUT' && r.url().includes(`/api/patterns/${id}/sewing-log/`));
   await guided.press('ArrowRight');
   expect((await logged).status()).toBe(200);
-  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section A');
+  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section B');
   await expect(guided.stepHeading()).toBeFocused();
   await expect(page.getByText('Sewing log: Pieced')).toBeVisible();
   await guided.press('p');
-  await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add A3');
+  await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add B3');
   await guided.nextButton().click();
-  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section A');
+  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section B');
 
   // A reload comes back to the same step.
   await page.reload();
-  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section A');
-  await expect(page.getByText('Section A · copy 1 of 4')).toBeVisible();
+  await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section B');
+  await expect(page.getByText('Section B · copy 1 of 4')).toBeVisible();
 
-  // The sewing log: copy 1 of A pieced, the others not started; 1 of 36 steps.
+  // The sewing log: copy 1 of B pieced, the others not started; 1 of 36 steps.
   await page.getByRole('tab', { name: /Sewing log/ }).click();
   await page.waitForURL(new RegExp(`/patterns/${id}/sewing-log$`));
-  await expect(log.stageOf('A', 'Pieced', 1)).toHaveAttribute('aria-checked', 'true');
-  await expect(log.stageOf('A', 'Not started', 2)).toHaveAttribute('aria-checked', 'true');
+  await expect(log.stageOf('B', 'Pieced', 1)).toHaveAttribute('aria-checked', 'true');
+  await expect(log.stageOf('B', 'Not started', 2)).toHaveAttribute('aria-checked', 'true');
   await expect(log.progress()).toHaveAttribute('aria-valuetext', '3 %, 1 of 36 steps');
   await page.context().close();
 });
@@ -109,9 +109,9 @@ test('guided sewing on a phone and a tablet, light and dark', async ({ browser }
       const p = await ctx.newPage();
       const guided = new GuidedSewingPage(p);
       await guided.goto(id);
-      await expect(guided.stepHeading()).toHaveText('Step 1 of 4: add A1');
+      await expect(guided.stepHeading()).toHaveText('Step 1 of 4: add B1');
       await guided.press('ArrowRight');
-      await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add A2');
+      await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add B2');
       // Touch targets: the step buttons are at least 44 px high.
       for (const b of [guided.previousButton(), guided.nextButton()]) expect((await b.boundingBox())!.height).toBeGreaterThanOrEqual(44);
       await p.screenshot({ path: `e2e/artifacts/guided-sewing-${name}-${colorScheme}.png`, fullPage: true });

@@ -5,9 +5,14 @@ import { stepTitle } from './step-title';
 import { JOINS_PART, type GuidedPlace, type SewingGuide } from './sewing-guide-types';
 
 describe('guided place', () => {
-  // Garden Gate: sections A, B, C of 3 patches each (3 piecing steps + trim), made 4 times.
+  // Garden Gate: sections A, B, C of 3 patches each (3 piecing steps + trim), made 4 times; the default
+  // joining plan joins B to A, then C, so B comes first.
   const guide = buildSewingGuide(buildGardenGate());
   const [a, b] = guide.sections.map((s) => s.id);
+
+  it('takes the sections in joining order', () => {
+    expect(guide.sections.map((s) => s.label)).toEqual(['B', 'A', 'C']);
+  });
 
   it('goes through the steps, then the next copy, then the next section', () => {
     let p: GuidedPlace | null = firstPlace(guide)!;
@@ -17,7 +22,7 @@ describe('guided place', () => {
       seen.push(stepTitle(guide, p!));
       p = nextPlace(guide, p!);
     }
-    expect(seen).toEqual(['Step 1 of 4: add A1', 'Step 2 of 4: add A2', 'Step 3 of 4: add A3', 'Step 4 of 4: trim section A', 'Step 1 of 4: add A1']);
+    expect(seen).toEqual(['Step 1 of 4: add B1', 'Step 2 of 4: add B2', 'Step 3 of 4: add B3', 'Step 4 of 4: trim section B', 'Step 1 of 4: add B1']);
     expect(p).toEqual({ part: a, copy: 2, step: 1 });
     expect(nextPlace(guide, { part: a, copy: 4, step: 3 })).toEqual({ part: b, copy: 1, step: 0 });
     expect(previousPlace(guide, { part: b, copy: 1, step: 0 })).toEqual({ part: a, copy: 4, step: 3 });

@@ -9,7 +9,8 @@ import { GuidedSewingPageComponent } from './guided-sewing-page.component';
 
 describe('GuidedSewingPageComponent', () => {
   const doc: PatternDocument = buildGardenGate();
-  const a = doc.sections[0];
+  // The default joining plan joins B to A first, so guided sewing starts with section B.
+  const a = doc.sections.find((x) => x.label === 'B')!;
 
   beforeEach(() => {
     localStorage.clear();
@@ -40,34 +41,40 @@ describe('GuidedSewingPageComponent', () => {
 
   it('shows the first patch: its fabric, rough cut and where it goes; Previous is off at the start', async () => {
     const { el, heading } = await open();
-    expect(heading().textContent?.trim()).toBe('Step 1 of 4: add A1');
+    expect(heading().textContent?.trim()).toBe('Step 1 of 4: add B1');
     const piece = el.querySelector('[aria-label="Piece"]')!.textContent!;
     expect(piece).toContain(doc.fabrics.find((f) => f.id === a.patches.find((p) => p.number === 1)!.fabricId)!.name);
     expect(piece).toMatch(/rough cut \d.* × .*in\./);
-    expect(el.querySelector('svg[role="img"]')!.getAttribute('aria-label')).toBe('Section A as the printed side of the foundation shows it (mirror image): A1 to place now, outlined and marked "here".');
-    const buttons = [...el.querySelectorAll('button')].filter((b) => /step/.test(b.textContent ?? ''));
-    expect(buttons.map((b) => [b.textContent!.trim().replace(/\s+/g, ' '), b.disabled])).toEqual([
-      ['arrow_back Previous step', true],
-      ['Next step arrow_forward', false],
+    expect(el.querySelector('svg[role="img"]')!.getAttribute('aria-label')).toBe('Section B as the printed side of the foundation shows it (mirror image): B1 to place now, outlined and marked "here".');
+    // A button's name is its text without the icons (they are hidden from assistive technology).
+    const name = (b: HTMLElement) => {
+      const copy = b.cloneNode(true) as HTMLElement;
+      copy.querySelectorAll('[aria-hidden="true"]').forEach((n) => n.remove());
+      return copy.textContent!.trim();
+    };
+    const buttons = [...el.querySelectorAll('button')].filter((b) => /step$/.test(name(b)));
+    expect(buttons.map((b) => [name(b), b.disabled])).toEqual([
+      ['Previous step', true],
+      ['Next step', false],
     ]);
   });
 
   it('walks by keys, moves focus to the step heading, and ticks the copy pieced after its last patch', async () => {
     const { heading, key, http } = await open();
     await key('ArrowRight');
-    expect(heading().textContent?.trim()).toBe('Step 2 of 4: add A2');
+    expect(heading().textContent?.trim()).toBe('Step 2 of 4: add B2');
     expect(document.activeElement).toBe(heading());
     await key('n');
     http.expectNone('/api/patterns/p1/sewing-log/' + a.id);
     await key('N');
-    expect(heading().textContent?.trim()).toBe('Step 4 of 4: trim section A');
+    expect(heading().textContent?.trim()).toBe('Step 4 of 4: trim section B');
     const put = http.expectOne('/api/patterns/p1/sewing-log/' + a.id);
     expect([put.request.method, put.request.body]).toEqual(['PUT', { stage: 'pieced', copy: 1 }]);
     put.flush({ entry: { sectionId: a.id, copy: 1, stage: 'pieced', updatedAt: new Date().toISOString() } });
     await key('ArrowLeft');
-    expect(heading().textContent?.trim()).toBe('Step 3 of 4: add A3');
+    expect(heading().textContent?.trim()).toBe('Step 3 of 4: add B3');
     await key('p');
-    expect(heading().textContent?.trim()).toBe('Step 2 of 4: add A2');
+    expect(heading().textContent?.trim()).toBe('Step 2 of 4: add B2');
   });
 
   it('comes back to the saved step when opened again', async () => {
@@ -77,7 +84,7 @@ describe('GuidedSewingPageComponent', () => {
     first.http.match(() => true);
     first.fixture.destroy();
     const again = await open();
-    expect(again.heading().textContent?.trim()).toBe('Step 3 of 4: add A3');
+    expect(again.heading().textContent?.trim()).toBe('Step 3 of 4: add B3');
   });
 
   it('keeps the page\'s keys out of form fields', async () => {
@@ -86,6 +93,6 @@ describe('GuidedSewingPageComponent', () => {
     el.appendChild(input);
     input.dispatchEvent(new KeyboardEvent('keydown', { key: 'n', bubbles: true }));
     await fixture.whenStable();
-    expect(heading().textContent?.trim()).toBe('Step 1 of 4: add A1');
+    expect(heading().textContent?.trim()).toBe('Step 1 of 4: add B1');
   });
 });

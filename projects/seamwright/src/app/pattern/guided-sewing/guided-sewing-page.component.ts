@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, ElementRef, OnInit, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, Injector, OnInit, afterNextRender, computed, effect, inject, signal, viewChild } from '@angular/core';
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,7 +10,6 @@ import { SewingLogService } from '../../resources/sewing-log.service';
 import { AuthService } from '../../core/auth.service';
 import { NotifyService } from '../../core/notify.service';
 import { LoadState } from '../../core/load-state';
-import { FocusAfterRender } from '../../core/focus-after-render';
 import type { SewingLogEntry, SewingStage } from '../../core/api-types';
 import { copiesAtLeast, copyKey, laterStage, stagesFromEntries } from '../sewing-log/sewing-progress';
 import { GuidedStepComponent } from './guided-step.component';
@@ -41,7 +40,7 @@ export class GuidedSewingPageComponent implements OnInit {
   private readonly auth = inject(AuthService);
   private readonly notify = inject(NotifyService);
   private readonly announcer = inject(LiveAnnouncer);
-  private readonly focus = new FocusAfterRender();
+  private readonly injector = inject(Injector);
   private readonly store = new GuidedPlaceStore();
   private readonly heading = viewChild<ElementRef<HTMLElement>>('stepHeading');
   protected readonly state = new LoadState<SewingLogEntry[]>();
@@ -177,7 +176,8 @@ export class GuidedSewingPageComponent implements OnInit {
     this.finished.set(false);
     this.chosen.set(to);
     this.announcer.announce(`${this.copyLine()}. ${this.title()}`, 'polite');
-    this.focus.focus(() => this.heading()?.nativeElement);
+    // Focus follows the step, so a screen reader reads the new heading and keys carry on from it.
+    afterNextRender({ read: () => this.heading()?.nativeElement.focus() }, { injector: this.injector });
   }
 
   private tick(ticks: LogTick[]): void {

@@ -79,11 +79,12 @@ export interface SewingGuide {
   /** Sections in joining order. */
   sections: SectionGuide[];
   joins: JoinGuideStep[];
-  /** Whether the joins come from the piecing library's joining plan (false: a stand-in listing the sections). */
-  joinsPlanned: boolean;
+  /** Whether the joins are the piecing library's default plan (the designer has set none). */
+  joinsAreDefault: boolean;
   blockCount: number;
   /** Every patch of every ring copy, for drawing the joins (front of the block). */
   blockPatches: { sectionId: string; polygon: Point[]; colour: string | null }[];
+  /** What is wrong with the joining plan, in words (insets, parts that do not touch …). */
   problems: string[];
 }
 

@@ -51,7 +51,37 @@ describe('sewing guide', () => {
 
   it('words the three ways a patch seam is pressed', () => {
     expect(pressWords('open', 'C2')).toBe('Press the seam open.');
-    expect(pressWords('previous', 'C2')).toBe('Press the seam toward the patches sewn before C2.');
+    expect(pressWords('previous', 'C2', 'C1')).toBe('Press the seam toward C1, away from C2.');
+  });
+
+  it('presses each patch as the designer set its seam', () => {
+    const gate = buildGardenGate();
+    const b = gate.sections.find((s) => s.label === 'B')!;
+    b.seams = b.seams.map((seam, i) => ({ ...seam, press: i === 0 ? 'previous' : 'open' }));
+    const steps = buildSewingGuide(gate).sections.find((s) => s.label === 'B')!.steps as PieceStep[];
+    expect(steps.slice(0, 3).map((s) => s.press)).toEqual([null, 'Press the seam toward B1, away from B2.', 'Press the seam open.']);
+  });
+
+  it('takes the joins from the joining plan: rings first, then outward, with pressing and matching marks', () => {
+    expect(guide.joins.map((j) => j.label)).toEqual([
+      'Join the 8 copies of A into a ring',
+      'Join the 8 copies of B into a ring',
+      'Join the 16 copies of C into a ring',
+      'Join the 4 copies of D into a ring',
+      'Join the A ring to the B ring',
+      'Join unit 5 (A, B) to the C ring',
+      'Join unit 6 (A, B, C) to the D ring',
+    ]);
+    const ringA = guide.joins[0];
+    expect([ringA.kind, ringA.sectionIds, ringA.marks.length]).toEqual(['ring', ['star'], 0]);
+    expect(ringA.seamText).toMatch(/^Sew the 8 copies side by side, each to the next; the last seam closes the ring/);
+    const curved = guide.joins[4];
+    expect(curved.sectionIds).toEqual(['star', 'stripe-band']);
+    expect(curved.seamText).toMatch(/^A curved seam, .+ of seam: pin at the matching marks/);
+    expect(curved.marks.length).toBeGreaterThan(0);
+    expect(curved.press).toBe('Press the seam toward the A ring');
+    expect(guide.joinsAreDefault).toBe(true);
+    expect(guide.problems).toEqual([]);
   });
 });
 

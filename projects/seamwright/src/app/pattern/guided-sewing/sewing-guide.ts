@@ -4,28 +4,30 @@ import {
   derivePatches,
   expandRingRepeat,
   formatInches,
+  seamPressing,
   stripSetDisplayName,
   type CuttingList,
   type DerivedPatch,
   type PatternDocument,
   type Section,
 } from '@seamwright/piecing';
-import type { GuidePiece, JoinGuideStep, PieceStep, SectionGuide, SewingGuide, TrimStep } from './sewing-guide-types';
+import type { GuidePiece, PieceStep, SectionGuide, SewingGuide, TrimStep } from './sewing-guide-types';
 import { copiesOf } from '../sewing-log/sewing-progress';
+import { guidedJoins } from './guided-joins';
 
 const inches = (n: number) => formatInches(n, { style: 'unicode', denominator: 8 });
 const size = (w: number, l: number) => `${formatInches(w, { style: 'unicode', withUnit: false })} × ${inches(l)}`;
 
-/** Which way a patch seam is pressed, as the document says (docs/pattern-format.md); `added` when unset. */
+/** Which way a patch seam is pressed, as the document says (docs/pattern-format.md#pressing). */
 type PatchPress = 'added' | 'previous' | 'open';
 
 /**
  * Pressing words for a patch just sewn. Toward the patch just added is the default and the usual practice
- * on a foundation (docs/design-notes.md, design §5.9).
+ * on a foundation (design §5.9); `previous` presses toward the patch sewn before across the seam.
  */
-export function pressWords(press: PatchPress, patchLabel: string): string {
+export function pressWords(press: PatchPress, patchLabel: string, previousLabel?: string): string {
   if (press === 'open') return 'Press the seam open.';
-  if (press === 'previous') return `Press the seam toward the patches sewn before ${patchLabel}.`;
+  if (press === 'previous') return `Press the seam toward ${previousLabel ?? 'the patches sewn before'}, away from ${patchLabel}.`;
   return `Press ${patchLabel} over, the seam toward ${patchLabel} (the patch just added).`;
 }
 
@@ -56,6 +58,9 @@ export function sectionGuide(doc: PatternDocument, section: Section, list: Cutti
   const verdict = checkSewability(ordered);
   const lines = new Map(verdict.steps.map((s) => [s.patchNumber, { from: s.from, to: s.to }]));
   const allowance = inches(doc.seamAllowanceIn);
+  // The library resolves each seam against the piecing order: the patch it sews on and how it is pressed.
+  const pressing = new Map(seamPressing(doc, section.id).filter((p) => p.addedPatch !== undefined).map((p) => [p.addedPatch!, p]));
+  const labelOf = (n: number | undefined) => ordered.find((p) => p.number === n)?.label;
   const pieceSteps: PieceStep[] = ordered.map((patch, i) => {
     const next = ordered[i + 1];
     const failed = verdict.failure && verdict.failure.patchNumber === patch.number ? verdict.failure.message : null;
@@ -67,7 +72,7 @@ export function sectionGuide(doc: PatternDocument, section: Section, list: Cutti
       patchIndex: patch.index,
       piece: pieceOf(doc, list, section, patch),
       sewLine: i === 0 ? null : (lines.get(patch.number) ?? null),
-      press: i === 0 ? null : pressWords(pressOfPatch(section, patch), patch.label),
+      press: i === 0 ? null : pressWords(pressing.get(patch.number)?.press ?? 'added', patch.label, labelOf(pressing.get(patch.number)?.previousPatch)),
       preTrim: next ? `Fold the paper back on the line between ${patch.label} and ${next.label} and trim the fabric ${allowance} beyond it.` : null,
       caution: failed,
     };
@@ -87,38 +92,11 @@ export function sectionGuide(doc: PatternDocument, section: Section, list: Cutti
   };
 }
 
-/**
- * The press the document sets for the seam that adds `patch`. Until the piecing library answers per seam,
- * every patch takes the default (toward the patch just added).
- */
-function pressOfPatch(_section: Section, _patch: DerivedPatch): PatchPress {
-  return 'added';
-}
-
-/** Stand-in joins until the joining plan is available: one step joining the sections in document order. */
-function plainJoins(doc: PatternDocument): JoinGuideStep[] {
-  if (doc.sections.length < 2) return [];
-  const labels = doc.sections.map((s) => s.label);
-  return [
-    {
-      number: 1,
-      kind: 'join',
-      label: `Join sections ${labels.join(', ')} into the block`,
-      partA: labels.slice(0, -1).join(', '),
-      partB: labels[labels.length - 1],
-      sectionIds: doc.sections.map((s) => s.id),
-      seamPaths: [],
-      seamText: 'Join the trimmed sections as the print set shows.',
-      press: 'Press as the print set shows.',
-      marks: [],
-    },
-  ];
-}
-
 /** Guided sewing for a whole pattern: the sections in joining order, then the joins. */
 export function buildSewingGuide(doc: PatternDocument): SewingGuide {
   const list = buildCuttingList(doc);
-  const joins = plainJoins(doc);
+  const plan = guidedJoins(doc);
+  const byId = new Map(doc.sections.map((s) => [s.id, s]));
   const fabrics = new Map(doc.fabrics.map((f) => [f.id, f.colour]));
   const blockPatches = doc.sections.flatMap((s) =>
     expandRingRepeat(s).flatMap((copy) =>
@@ -126,11 +104,11 @@ export function buildSewingGuide(doc: PatternDocument): SewingGuide {
     ),
   );
   return {
-    sections: doc.sections.map((s) => sectionGuide(doc, s, list)),
-    joins,
-    joinsPlanned: false,
+    sections: plan.sectionOrder.map((id) => sectionGuide(doc, byId.get(id)!, list)),
+    joins: plan.joins,
+    joinsAreDefault: plan.isDefault,
     blockCount: doc.blockCount,
     blockPatches,
-    problems: [],
+    problems: plan.problems,
   };
 }
