@@ -1,5 +1,7 @@
 import type { DbLike } from '../db/database';
-import { shopListings, shops, type ShopCurrency } from '../db/schema';
+import { eq } from 'drizzle-orm';
+import { patterns, shopListings, shops, type ShopCurrency } from '../db/schema';
+import { listingFacts } from './listings';
 
 /** A listing to seed for the demo studio (invented data). */
 export interface DemoListing {
@@ -16,8 +18,10 @@ export function seedDemoShop(db: DbLike, ownerId: string, currency: ShopCurrency
   const now = new Date();
   db.insert(shops).values({ ownerId, currency, createdAt: now, updatedAt: now }).onConflictDoNothing().run();
   for (const l of listings) {
+    const pattern = db.select({ id: patterns.id, headRevision: patterns.headRevision }).from(patterns).where(eq(patterns.id, l.patternId)).get();
+    const facts = pattern ? listingFacts(db, pattern) : {};
     db.insert(shopListings)
-      .values({ patternId: l.patternId, priceMinor: l.priceMinor, description: l.description, publishedAt: now, createdAt: now, updatedAt: now })
+      .values({ patternId: l.patternId, priceMinor: l.priceMinor, description: l.description, publishedAt: now, createdAt: now, updatedAt: now, ...facts })
       .onConflictDoNothing()
       .run();
   }

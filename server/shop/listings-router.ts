@@ -9,7 +9,7 @@ import { HttpError } from '../http/errors';
 import { likeContains, pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign, resolvePatternAccess } from '../services/access';
-import { findListing, listingRows } from './listings';
+import { findListing, listingFacts, listingRows } from './listings';
 import { listingJson } from './shop-json';
 
 const browseQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
@@ -47,7 +47,6 @@ export function listingsRouter(ctx: AppContext): Router {
           title: r.pattern.title,
           currency: r.currency,
           designer: { id: r.pattern.ownerId, displayName: r.designerName },
-          document: r.document,
           access: accessOf(db, user, r.pattern),
         }),
       ),
@@ -70,7 +69,6 @@ export function listingsRouter(ctx: AppContext): Router {
         title: found.pattern.title,
         currency: found.currency,
         designer: { id: found.pattern.ownerId, displayName: found.designerName },
-        document: found.document,
         access: accessOf(db, user, found.pattern),
       }),
     });
@@ -139,11 +137,13 @@ export function listingsRouter(ctx: AppContext): Router {
     const now = new Date();
     const existing = db.select().from(shopListings).where(eq(shopListings.patternId, pattern.id)).get();
     const publishedAt = body.published ? (existing?.publishedAt ?? now) : null;
+    // What the shop shows of the design is taken from the head revision now, once per save.
+    const facts = listingFacts(db, pattern);
     db.insert(shopListings)
-      .values({ patternId: pattern.id, priceMinor: body.priceMinor, description: body.description, publishedAt, createdAt: now, updatedAt: now })
+      .values({ patternId: pattern.id, priceMinor: body.priceMinor, description: body.description, publishedAt, createdAt: now, updatedAt: now, ...facts })
       .onConflictDoUpdate({
         target: shopListings.patternId,
-        set: { priceMinor: body.priceMinor, description: body.description, publishedAt, updatedAt: now },
+        set: { priceMinor: body.priceMinor, description: body.description, publishedAt, updatedAt: now, ...facts },
       })
       .run();
     const found = findListing(db, pattern.id);
@@ -153,7 +153,6 @@ export function listingsRouter(ctx: AppContext): Router {
         title: pattern.title,
         currency: found.currency,
         designer: { id: user.id, displayName: user.displayName },
-        document: found.document,
         access: 'owner',
       }),
     });

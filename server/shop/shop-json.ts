@@ -13,15 +13,16 @@ export interface ListingJson {
   publishedAt: string | null;
   sectionCount: number;
   finishedSize: { widthIn: number; heightIn: number } | null;
+  /** A small SVG picture of the design, drawn by the server when the listing was saved. */
+  preview: string | null;
   /** The viewer's access to the pattern (owner, member, or null: not theirs yet). */
   access: Access | null;
 }
 
 export function listingJson(
   l: ShopListing,
-  extra: { title: string; currency: ShopCurrency; designer: { id: string; displayName: string }; document: string | null; access: Access | null },
+  extra: { title: string; currency: ShopCurrency; designer: { id: string; displayName: string }; access: Access | null },
 ): ListingJson {
-  const facts = documentFacts(extra.document);
   return {
     patternId: l.patternId,
     title: extra.title,
@@ -31,25 +32,11 @@ export function listingJson(
     designer: extra.designer,
     published: l.publishedAt !== null,
     publishedAt: l.publishedAt ? l.publishedAt.toISOString() : null,
-    ...facts,
+    sectionCount: l.sectionCount,
+    finishedSize: l.finishedWidthIn !== null && l.finishedHeightIn !== null ? { widthIn: l.finishedWidthIn, heightIn: l.finishedHeightIn } : null,
+    preview: l.previewSvg,
     access: extra.access,
   };
-}
-
-/** What a buyer may know of a design before paying: how many sections and how big it finishes. */
-function documentFacts(document: string | null): Pick<ListingJson, 'sectionCount' | 'finishedSize'> {
-  if (!document) return { sectionCount: 0, finishedSize: null };
-  try {
-    const d = JSON.parse(document) as { sections?: unknown[]; canvas?: { widthIn?: unknown; heightIn?: unknown } };
-    const w = d.canvas?.widthIn;
-    const h = d.canvas?.heightIn;
-    return {
-      sectionCount: Array.isArray(d.sections) ? d.sections.length : 0,
-      finishedSize: typeof w === 'number' && typeof h === 'number' ? { widthIn: w, heightIn: h } : null,
-    };
-  } catch {
-    return { sectionCount: 0, finishedSize: null };
-  }
 }
 
 /** An order as its buyer or seller sees it. */

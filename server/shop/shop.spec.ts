@@ -123,6 +123,36 @@ describe('publishing', () => {
     ]);
   });
 
+  it('keeps what a listing shows (sections, finished block size, picture) from its last save; browsing reads no document', async () => {
+    // The sample block's 4 in. section on a 10 in. drawing area: the block finishes at 4 in., not 10.
+    const doc = { ...sampleDocument('Small on a big sheet'), canvas: { widthIn: 10, heightIn: 10 } };
+    const id = (await designer.post('/api/patterns', { document: doc }).expect(201)).body.pattern.id as string;
+    const put = await designer.put(`/api/shop/listings/${id}`, { priceMinor: 700, description: 'Four inches.', published: true }).expect(200);
+    expect(put.body.listing).toMatchObject({ sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 } });
+    // The picture: drawn by the server, 320 px wide, the drawing area's proportions, the fabrics' colours.
+    expect(put.body.listing.preview).toMatch(/^<svg[^>]* width="320" height="320"/);
+    expect(put.body.listing.preview).toContain('#6b2d5c');
+    // Damage the stored document: a view that parsed it would lose the facts; the stored columns keep them.
+    const sql = t.ctx.database.sqlite;
+    const before = (sql.prepare('SELECT document FROM revisions WHERE pattern_id = ?').get(id) as { document: string }).document;
+    sql.prepare("UPDATE revisions SET document = 'not json' WHERE pattern_id = ?").run(id);
+    try {
+      const seen = (await buyer.get(`/api/shop/listings/${id}`).expect(200)).body.listing;
+      expect(seen).toMatchObject({ sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 }, preview: put.body.listing.preview });
+      const browse = (await buyer.get('/api/shop/listings?q=big%20sheet').expect(200)).body;
+      expect(browse.items[0]).toMatchObject({ patternId: id, sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 } });
+    } finally {
+      sql.prepare('UPDATE revisions SET document = ? WHERE pattern_id = ?').run(before, id);
+    }
+    // A new revision shows once the listing is saved again.
+    const bigger = { ...doc, sections: [{ ...doc.sections[0] }, { ...doc.sections[0], id: 'sec-b', label: 'B', geometry: { kind: 'straight', vertices: [{ x: 4, y: 0 }, { x: 9, y: 0 }, { x: 9, y: 4 }, { x: 4, y: 4 }] }, seams: [], patches: [] }] };
+    await designer.put(`/api/patterns/${id}`, { baseRevision: 1, document: bigger }).expect(200);
+    expect((await buyer.get(`/api/shop/listings/${id}`).expect(200)).body.listing.sectionCount).toBe(1);
+    const again = await designer.put(`/api/shop/listings/${id}`, { priceMinor: 700, description: 'Nine inches.', published: true }).expect(200);
+    expect(again.body.listing).toMatchObject({ sectionCount: 2, finishedSize: { widthIn: 9, heightIn: 4 } });
+    await designer.put(`/api/shop/listings/${id}`, { priceMinor: 700, description: 'Nine inches.', published: false }).expect(200);
+  });
+
   it('hides an unpublished pattern from buyers: listing, checkout and the pattern itself are 404', async () => {
     expect((await buyer.get(`/api/shop/listings/${draftId}`)).status).toBe(404);
     expect((await buyer.post(`/api/shop/listings/${draftId}/checkout`)).status).toBe(404);

@@ -330,7 +330,10 @@ export const listingSchema = z.strictObject({
   published: z.boolean(),
   publishedAt: isoTime.nullable(),
   sectionCount: z.number().int().min(0),
+  /** The finished block (the sections' extent, not the drawing area), as of the listing's last save. */
   finishedSize: z.strictObject({ widthIn: z.number(), heightIn: z.number() }).nullable(),
+  /** A small SVG picture of the design drawn by the server (numbers and colours only), or null. */
+  preview: z.string().startsWith('<svg').nullable(),
   /** The viewer's access to the pattern; null until bought or shared. */
   access: patternAccessSchema.nullable(),
 });
