@@ -22,6 +22,8 @@ export interface CuttingListPatch {
   rectangleAngleDeg: number;
   /** How many of this patch the whole pattern needs: ring repeats × block count. */
   count: number;
+  /** Whether the size is the rough cut the designer set for the patch (`roughCut`), not the computed one. */
+  roughCutSetByDesigner: boolean;
 }
 
 /** Equal rough-cut pieces of one fabric, and the strips they come from. */
@@ -73,11 +75,15 @@ export interface CuttingListFabric {
 export interface CuttingListStripSet {
   stripSetId: string;
   name: string | null;
+  /** What quilters see: the designer's name, or "Strip set n" for the n-th set of the list (never the id). */
+  displayName: string;
   strips: Array<{ fabricId: string; finishedWidthIn: number; cutWidthIn: number }>;
   /** Width of the sewn set (finished + 2 × allowance). */
   sewnWidthIn: number;
-  /** Sub-cut length: longest patch extent along the strips + 2 × (allowance + margin), rounded up to ⅛ in. */
+  /** Sub-cut length: the designer's (`subCutLengthIn`), else the longest patch extent along the strips + 2 × (allowance + margin), rounded up to ⅛ in. */
   subCutLengthIn: number;
+  /** Whether the sub-cut length is the one the designer set. */
+  subCutSetByDesigner: boolean;
   /** Sub-cuts needed: patches using the set × ring repeats × blocks. */
   subCutCount: number;
   /** Sub-cuts from one sewn set across the WOF: floor(shortest usable WOF of its fabrics / sub-cut length). */

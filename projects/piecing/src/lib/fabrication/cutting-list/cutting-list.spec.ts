@@ -292,6 +292,8 @@ describe('buildCuttingList with one strip-set id for different strips', () => {
     );
     expect(list.stripSets.map((s) => s.stripSetId)).toEqual(['stripe', 'stripe-2']);
     expect(list.patches.map((p) => p.stripSetId)).toEqual(['stripe', 'stripe-2']);
-    expect(list.problems.map((p) => p.message)).toEqual(['strip set id "stripe" is used for different strips; listed as "stripe-2" for B1']);
+    // Spoken of by its place in the list, never by the id the two sets share.
+    expect(list.stripSets.map((s) => s.displayName)).toEqual(['Strip set 1', 'Strip set 2']);
+    expect(list.problems.map((p) => p.message)).toEqual(['Strip set 2: another strip set has the same id but different strips; they are listed apart, this one for B1']);
   });
 });
