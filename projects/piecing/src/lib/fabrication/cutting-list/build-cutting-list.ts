@@ -65,7 +65,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
         const layout = layoutStripSet(patch.polygon, patch.stripSet, allowanceIn, marginIn);
         const key = stripSetKey(patch.stripSet);
         const use = stripSetUses.get(key) ?? { stripSet: patch.stripSet, subCutLengthIn: 0, designerSubCutIn: null, needs: [], sewnWidthIn: layout.sewnWidthIn, count: 0, patchLabels: [] };
-        use.subCutLengthIn = Math.max(use.subCutLengthIn, layout.subCutLengthIn);
+        use.subCutLengthIn = Math.max(use.subCutLengthIn, layout.computedSubCutLengthIn);
         if (patch.stripSet.subCutLengthIn !== undefined) use.designerSubCutIn = Math.max(use.designerSubCutIn ?? 0, patch.stripSet.subCutLengthIn);
         use.needs.push({ patchLabel: patch.label, sectionId: section.id, needIn: layout.patchExtentAlongIn + 2 * allowanceIn });
         use.count += copies;
@@ -82,8 +82,8 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
           patchNumber: patch.number,
           fabricId: null,
           stripSetId: patch.stripSet.id,
-          cutWidthIn: Math.min(layout.sewnWidthIn, layout.subCutLengthIn),
-          cutLengthIn: Math.max(layout.sewnWidthIn, layout.subCutLengthIn),
+          cutWidthIn: Math.min(layout.sewnWidthIn, layout.computedSubCutLengthIn),
+          cutLengthIn: Math.max(layout.sewnWidthIn, layout.computedSubCutLengthIn),
           rectangleAngleDeg: round6(layout.axisAngleDeg),
           count: copies,
           roughCutSetByDesigner: false,

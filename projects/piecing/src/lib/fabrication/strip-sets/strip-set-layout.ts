@@ -45,8 +45,12 @@ export interface StripSetLayout {
   /** The patch's length along the strips and its span across them (from the centre line), in inches. */
   patchExtentAlongIn: number;
   patchAcross: { minIn: number; maxIn: number };
-  /** Sub-cut length: extent along the strips + 2 × (allowance + margin), rounded up to ⅛ in. */
+  /** Sub-cut length: the designer's (`subCutLengthIn` of the set) when set, else {@link computedSubCutLengthIn}. */
   subCutLengthIn: number;
+  /** Sub-cut length the patch needs: extent along the strips + 2 × (allowance + margin), rounded up to ⅛ in. */
+  computedSubCutLengthIn: number;
+  /** Whether {@link subCutLengthIn} is the designer's. */
+  subCutSetByDesigner: boolean;
   /** Whether the set's finished strips span the whole patch across (else the outer strips are too narrow). */
   coversPatch: boolean;
 }
@@ -65,7 +69,7 @@ export function stripFinishedWidthIn(cutWidthIn: number, allowanceIn = 0.25): nu
  * Lays a strip set on a patch polygon: the strips run along `axisAngleDeg`, side by side, the set
  * centred on the patch centroid and moved across by `offsetIn` (positive towards the axis turned +90°).
  * Derives the guide lines (each strip seam clipped to the patch), the strips' cut widths and the
- * sub-cut length. Pure; the inputs are untouched.
+ * sub-cut length (the designer's when the set gives one). Pure; the inputs are untouched.
  */
 export function layoutStripSet(polygon: readonly Point[], stripSet: StripSet, allowanceIn = 0.25, marginIn = 0.5): StripSetLayout {
   const angle = degToRad(stripSet.axisAngleDeg ?? 0);
@@ -113,6 +117,7 @@ export function layoutStripSet(polygon: readonly Point[], stripSet: StripSet, al
     if (ac > maxAcross) maxAcross = ac;
   }
   const patchExtentAlongIn = maxAlong - minAlong;
+  const computedSubCutLengthIn = roundUpToEighthInch(patchExtentAlongIn + 2 * (allowanceIn + marginIn));
   return {
     stripSetId: stripSet.id,
     stripSetName: stripSet.name ?? null,
@@ -124,7 +129,9 @@ export function layoutStripSet(polygon: readonly Point[], stripSet: StripSet, al
     sewnWidthIn: finishedWidthIn + 2 * allowanceIn,
     patchExtentAlongIn,
     patchAcross: { minIn: minAcross, maxIn: maxAcross },
-    subCutLengthIn: roundUpToEighthInch(patchExtentAlongIn + 2 * (allowanceIn + marginIn)),
+    subCutLengthIn: stripSet.subCutLengthIn ?? computedSubCutLengthIn,
+    computedSubCutLengthIn,
+    subCutSetByDesigner: stripSet.subCutLengthIn !== undefined,
     coversPatch: minAcross >= -finishedWidthIn / 2 - GEOMETRY_EPSILON_IN && maxAcross <= finishedWidthIn / 2 + GEOMETRY_EPSILON_IN,
   };
 }

@@ -67,6 +67,14 @@ describe('layoutStripSet', () => {
     expect(layout.patchExtentAlongIn).toBeCloseTo(6, 12);
     // 6 + 1.5 = 7.5 in.
     expect(layout.subCutLengthIn).toBe(7.5);
+    expect(layout.subCutSetByDesigner).toBe(false);
+  });
+
+  it("takes the designer's sub-cut length when the set gives one, and keeps the one the patch needs beside it", () => {
+    const layout = layoutStripSet(rect(4, 6), { ...set([1.5, 1, 1.5], 90, 0.25), subCutLengthIn: 8 });
+    expect(layout.subCutLengthIn).toBe(8);
+    expect(layout.computedSubCutLengthIn).toBe(7.5);
+    expect(layout.subCutSetByDesigner).toBe(true);
   });
 
   it('clips a guide line to a concave patch in two pieces', () => {
