@@ -4,6 +4,7 @@ import { AuthPage } from './pages/auth.page';
 import { DraftingBoardPage } from './pages/drafting-board.page';
 import { PatternPage } from './pages/pattern.page';
 import { PatternsPage } from './pages/patterns.page';
+import { SCREENS, createSamplePattern, openScreen, signUpAs, useTheme } from './pages/screens';
 
 /*
  * axe (WCAG 2.0–2.2 A and AA rules) over the screens this work changed, in the light and the dark
@@ -57,5 +58,80 @@ test('the changed screens have no serious or critical axe findings in either the
       await page.getByText('Pattern settings', { exact: true }).click();
       await expect(page.getByText('Sewing', { exact: true })).toBeVisible();
     }
+  }
+});
+
+/*
+ * Every main screen, signed out and as a designer and a quilter, in both themes; the board with a
+ * section selected; each dialog open (New pattern, Save as version, the board's keyboard help, the
+ * folded header menu at a narrow width). Target: no serious or critical axe finding anywhere.
+ */
+async function expectNoSeriousFindings(page: Page, where: string): Promise<void> {
+  expect(await seriousFindings(page), where).toEqual([]);
+}
+
+async function selectSectionA(page: Page): Promise<void> {
+  const item = page.getByRole('tree', { name: 'Sections' }).getByRole('treeitem', { name: /^A, straight section/ });
+  await item.focus();
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('sewability')).toBeVisible();
+}
+
+for (const viewer of ['signed out', 'designer', 'quilter'] as const) {
+  test(`every main screen ${viewer === 'signed out' ? 'signed out' : `as a ${viewer}`} has no serious or critical axe findings in either theme`, async ({ page }) => {
+    test.setTimeout(300_000);
+    await page.setViewportSize({ width: 1366, height: 1000 });
+    let patternId = '';
+    if (viewer !== 'signed out') await signUpAs(page, viewer, 'axe');
+    else await page.goto('/');
+    if (viewer === 'designer') patternId = await createSamplePattern(page, 'Axe sample');
+    for (const theme of ['light', 'dark'] as const) {
+      await useTheme(page, theme);
+      for (const screen of SCREENS[viewer]) {
+        await openScreen(page, screen, patternId);
+        if (screen.board) await selectSectionA(page);
+        await expectNoSeriousFindings(page, `${screen.name}, ${viewer}, ${theme}`);
+      }
+    }
+  });
+}
+
+test('each dialog, open, has no serious or critical axe findings in either theme', async ({ page }) => {
+  test.setTimeout(240_000);
+  await page.setViewportSize({ width: 1366, height: 1000 });
+  await signUpAs(page, 'designer', 'dialogs');
+  const patternId = await createSamplePattern(page, 'Dialog sample');
+  for (const theme of ['light', 'dark'] as const) {
+    await useTheme(page, theme);
+    await openScreen(page, SCREENS.designer[0]);
+    await page.getByRole('button', { name: 'New pattern' }).click();
+    await expect(page.getByRole('dialog', { name: 'New pattern' }).getByLabel('Title')).toBeFocused();
+    await expectNoSeriousFindings(page, `New pattern dialog, ${theme}`);
+    await page.keyboard.press('Escape');
+    await expect(page.getByRole('button', { name: 'New pattern' })).toBeFocused();
+
+    await openScreen(page, SCREENS.designer[1], patternId);
+    await selectSectionA(page);
+    await page.getByRole('button', { name: 'Save as version' }).click();
+    await expect(page.getByRole('dialog')).toBeVisible();
+    await expectNoSeriousFindings(page, `Save as version dialog, ${theme}`);
+    await page.keyboard.press('Escape');
+    await expect(page.getByRole('button', { name: 'Save as version' })).toBeFocused();
+
+    await page.getByRole('application', { name: 'Drafting board' }).focus();
+    await page.keyboard.press('?');
+    await expect(page.getByRole('dialog')).toBeVisible();
+    await expectNoSeriousFindings(page, `keyboard help, ${theme}`);
+    await page.keyboard.press('Escape');
+    await expect(page.getByRole('application', { name: 'Drafting board' })).toBeFocused();
+
+    // The header folded into its menu at 320 px, the menu open.
+    await page.setViewportSize({ width: 320, height: 800 });
+    await openScreen(page, SCREENS.designer[0]);
+    await page.getByRole('button', { name: 'Main menu' }).click();
+    await expect(page.getByRole('menuitem', { name: 'Shop' })).toBeVisible();
+    await expectNoSeriousFindings(page, `folded main menu, ${theme}`);
+    await page.keyboard.press('Escape');
+    await page.setViewportSize({ width: 1366, height: 1000 });
   }
 });
