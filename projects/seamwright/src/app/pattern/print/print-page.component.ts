@@ -11,7 +11,8 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Observable, Subscription, combineLatest, debounceTime, map, of, startWith, switchMap, tap } from 'rxjs';
-import { PAPER_NAMES, PAPER_SIZES, sheetCountStatement, type PaperName, type PatternDocument, type PrintOptionsInput } from '@seamwright/piecing';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { PAPER_NAMES, PAPER_SIZES, findUnsewableSections, sheetCountStatement, type PaperName, type PatternDocument, type PrintOptionsInput } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { PatternsService } from '../../resources/patterns.service';
 import { PrintSetsService, formatBytes, percent } from '../../resources/print-sets.service';
@@ -38,10 +39,11 @@ interface PrintForm {
   foundation: 'paper' | 'freezer-paper';
   copies: 'plan' | 'single';
   includeCuttingList: boolean;
+  printUnsewable: boolean;
 }
 
 function printOptions(v: PrintForm): PrintOptionsInput {
-  return { paper: v.paper, marginIn: v.marginIn, mirrored: v.view === 'mirrored', foundation: v.foundation, copies: v.copies, includeCuttingList: v.includeCuttingList };
+  return { paper: v.paper, marginIn: v.marginIn, mirrored: v.view === 'mirrored', foundation: v.foundation, copies: v.copies, includeCuttingList: v.includeCuttingList, printUnsewable: v.printUnsewable };
 }
 
 /** Print: options, a preview of the sheets, making a print set, and the stored print sets. */
@@ -49,7 +51,7 @@ function printOptions(v: PrintForm): PrintOptionsInput {
   selector: 'sw-print-page',
   imports: [
     DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatRadioModule,
-    MatSelectModule, MatSlideToggleModule, CautionsComponent, SheetPreviewComponent,
+    MatSelectModule, MatSlideToggleModule, MatCheckboxModule, CautionsComponent, SheetPreviewComponent,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [PrintPreviewPlanner],
@@ -73,6 +75,7 @@ export class PrintPageComponent implements OnInit {
     pressingsPerTemplate: [this.ctx.document()?.pressingsPerTemplate ?? 16, [Validators.required, Validators.min(1), Validators.max(1000)]],
     copies: ['plan' as 'plan' | 'single'],
     includeCuttingList: [true],
+    printUnsewable: [false],
   });
   private readonly formValue = toSignal(this.form.valueChanges.pipe(map(() => this.form.getRawValue())), { initialValue: this.form.getRawValue() });
   protected readonly sets = new LoadState<PrintSet[]>();
@@ -84,6 +87,14 @@ export class PrintPageComponent implements OnInit {
   private readonly focusAfter = new FocusAfterRender();
 
   protected readonly options = computed(() => printOptions(this.formValue()));
+
+  /** Sections not sewable as numbered: the print set is refused unless the user prints anyway. */
+  protected readonly unsewable = computed(() => {
+    const doc = this.ctx.document();
+    return doc ? findUnsewableSections(doc) : [];
+  });
+  /** Whether making a print set waits for "Print anyway". */
+  protected readonly blockedByUnsewable = computed(() => this.unsewable().length > 0 && !this.formValue().printUnsewable);
 
   protected readonly pressingsChanged = computed(() => {
     const doc = this.ctx.document();
@@ -148,6 +159,7 @@ export class PrintPageComponent implements OnInit {
 
   /** Saves a changed pressings setting as a new revision first (editors only), then queues the print set. */
   protected make(): void {
+    if (this.blockedByUnsewable()) return;
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
