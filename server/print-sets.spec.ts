@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { manySheetsDocument } from '../tests/support/documents';
 import { MAX_PRINT_SHEETS } from './print/print-budget';
-import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
 let owner: Client;
@@ -149,6 +149,41 @@ describe('print sets', () => {
     await owner.del(`/api/patterns/${id}`).expect(204);
     expect(fs.existsSync(stored)).toBe(false);
     expect(fs.existsSync(image)).toBe(false);
+  });
+
+  it('refuses a pattern with a section not sewable as numbered (422, the reason), and queues it when the request prints anyway', async () => {
+    // Three patches in a row numbered left (1), right (2), middle (3): patch 2 shares no seam with patch 1. Invented.
+    const document = {
+      ...sampleDocument('Misnumbered'),
+      sections: [
+        {
+          id: 'a',
+          label: 'A',
+          geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
+          seams: [
+            { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
+            { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
+          ],
+          patches: [
+            { number: 1, anchor: { x: 0.5, y: 0.5 } },
+            { number: 2, anchor: { x: 2.5, y: 0.5 } },
+            { number: 3, anchor: { x: 1.5, y: 0.5 } },
+          ],
+        },
+      ],
+    };
+    const created = await owner.post('/api/patterns', { document }).expect(201);
+    const id: string = created.body.pattern.id;
+    const refused = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(422);
+    expect(refused.body.error).toContain('Section A is not sewable as numbered: A2 shares no seam with the patches sewn before it (A1)');
+    expect(refused.body.details.sections).toEqual([expect.objectContaining({ sectionId: 'a', label: 'A' })]);
+    const none = await owner.get(`/api/patterns/${id}/print-sets`).expect(200);
+    expect(none.body.items).toEqual([]);
+
+    const anyway = await owner.post(`/api/patterns/${id}/print-sets`, { options: {}, printUnsewable: true }).expect(202);
+    expect(anyway.body.printSet.options.printUnsewable).toBe(true);
+    await owner.post(`/api/patterns/${id}/print-sets`, { options: { printUnsewable: true } }).expect(202);
+    await owner.post(`/api/patterns/${id}/print-sets`, { options: {}, printUnsewable: 'yes' }).expect(400);
   });
 
   it('marks a set failed, with the reason, when its revision cannot be rendered; the file answers 409', async () => {

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
-import { printOptionsSchema, type PatternDocument } from '@seamwright/piecing';
+import { findUnsewableSections, printOptionsSchema, unsewableStatement, type PatternDocument, type UnsewableSection } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
@@ -46,6 +46,19 @@ const fileSlug = (title: string) =>
     .replace(/^-+|-+$/g, '')
     .slice(0, 60) || 'print-set';
 
+/**
+ * The printed sections not sewable as numbered (all sections, or those asked for). A stored document
+ * that cannot be read is left to the render, which fails the set with the reason.
+ */
+function unsewableSections(document: PatternDocument, sectionIds: readonly string[] | undefined): UnsewableSection[] {
+  const wanted = sectionIds ? new Set(sectionIds) : null;
+  try {
+    return findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) });
+  } catch {
+    return [];
+  }
+}
+
 /** `/api/patterns/:id/print-sets…`: render, list, follow, download and delete print sets. */
 export function printSetsRouter(ctx: AppContext): Router {
   const { db, config } = ctx;
@@ -85,7 +98,11 @@ export function printSetsRouter(ctx: AppContext): Router {
     const revision = findRevision(db, pattern.id, body.revision);
     if (!revision) throw new HttpError(404, 'Revision not found');
     // The PDF's date comes from the revision, so the same revision and options give the same bytes.
-    const parsed = printOptionsSchema.safeParse({ ...body.options, createdAt: revision.revision.createdAt.toISOString() });
+    const parsed = printOptionsSchema.safeParse({
+      ...body.options,
+      ...(body.printUnsewable !== undefined ? { printUnsewable: body.printUnsewable } : {}),
+      createdAt: revision.revision.createdAt.toISOString(),
+    });
     if (!parsed.success) {
       throw new HttpError(
         400,
@@ -94,7 +111,13 @@ export function printSetsRouter(ctx: AppContext): Router {
       );
     }
     // The size budget, before anything is queued (the stored document was validated when saved).
-    const sheets = estimateTemplateSheets(JSON.parse(revision.revision.document) as PatternDocument, parsed.data);
+    const document = JSON.parse(revision.revision.document) as PatternDocument;
+    // A section not sewable as numbered is refused with the reason unless the request prints anyway.
+    const unsewable = parsed.data.printUnsewable ? [] : unsewableSections(document, parsed.data.sectionIds);
+    if (unsewable.length > 0) {
+      throw new HttpError(422, `${unsewableStatement(unsewable)} Send printUnsewable to print anyway.`, { sections: unsewable });
+    }
+    const sheets = estimateTemplateSheets(document, parsed.data);
     if (sheets !== null && sheets > MAX_PRINT_SHEETS) {
       throw new HttpError(422, `This print set needs at least ${sheets} template sheets; a print set may have at most ${MAX_PRINT_SHEETS}`, {
         sheets,
