@@ -18,6 +18,7 @@ import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { signedInClient } from '../support/api-client';
 import { checkDatabase, listFiles, sha256OfFile, withReadOnlyDatabase } from '../support/database-check';
@@ -194,31 +195,45 @@ describe('unwritable data folder (the folder replaced by a file)', () => {
 });
 
 describe('print sets on a full disk', () => {
-  it('a PDF that does not fit: the print set fails with a clear message, no file is left, the next one works', async () => {
-    const server = await startServerProcess();
+  it('a PDF that does not fit on the disk holding the database: the set ends "failed" with a clear message, nothing half-written, the next one works', async () => {
+    // The whole data folder — database, write-ahead log and print sets — on one small tmpfs, as on a
+    // server with one disk.
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'seamwright-print-disk-'));
+    execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=64m,mode=0700', 'tmpfs', dir], { stdio: 'pipe' });
+    mounts.push(dir);
+    const server = await startServerProcess({ dataDir: dir });
     started.push(server);
     const { client } = await signedInClient(server.baseUrl, 'designer', 'full-print');
     const made = await client.post('/api/patterns', { document: manySheetsDocument(40, 'Full disk print') });
     expect(made.status, made.text).toBe(201);
     const id = made.json.pattern.id;
+    const request = () => client.post(`/api/patterns/${id}/print-sets`, { options: { copies: 'single' } });
 
-    // Only the print-set folder is full: a 64 kB tmpfs mounted on it (ENOSPC), the database stays
-    // writable. Where mounting is refused, the folder is replaced by a file instead (ENOTDIR).
-    const folder = path.join(server.dataDir, 'print-sets');
-    fs.mkdirSync(folder, { recursive: true });
-    let how = 'print-sets folder on a 64 kB tmpfs (ENOSPC)';
-    try {
-      execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=65536,mode=0700', 'tmpfs', folder], { stdio: 'pipe' });
-      mounts.push(folder);
-    } catch {
-      how = 'print-sets folder replaced by a file (ENOTDIR)';
-      fs.rmSync(folder, { recursive: true, force: true });
-      fs.writeFileSync(folder, 'not a folder');
-    }
-    const first = await client.post(`/api/patterns/${id}/print-sets`, { options: { copies: 'single' } });
+    // With room: the PDF's size, S.
+    const roomy = await request();
+    const done = await settle(client, id, roomy.json.printSet.id);
+    expect(done.status, done.error ?? '').toBe('done');
+    const pdfBytes: number = done.bytes;
+
+    // The write-ahead log emptied (so the set's own rows need fresh space, as on a disk that filled up
+    // over time), then the disk filled to leave S / 2: room for the set's rows and progress, not its PDF.
+    const direct = new Database(path.join(dir, 'seamwright.db'));
+    expect((direct.pragma('wal_checkpoint(TRUNCATE)') as { busy: number }[])[0].busy).toBe(0);
+    direct.close();
+    const free = Math.floor(pdfBytes / 2);
+    const filler = path.join(dir, 'filler');
+    fs.truncateSync(filler, fillDisk(filler) - free);
+    const filesBefore = listFiles(path.join(dir, 'print-sets'));
+    const first = await request();
     expect(first.status, first.text).toBe(202);
-    const failed = await settle(client, id, first.json.printSet.id);
-    console.log(`print set on a full disk (${how}): ${failed.status}, "${failed.error}"`);
+    // The set's own progress writes may use up the little space left, so that even its failure cannot
+    // be written at once. Such a failure must be written once there is room again: the disk gets its
+    // space back after a while, and from then on the set must end "failed" — never stay rendering.
+    let failed = await settle(client, id, first.json.printSet.id, 60_000).catch(() => undefined);
+    const whileFull = failed?.status ?? 'not settled while the disk was full';
+    fs.rmSync(filler);
+    failed ??= await settle(client, id, first.json.printSet.id, 60_000);
+    console.log(`print set of a ${pdfBytes}-byte PDF with ${free} bytes left on the database's disk: ${whileFull}; then ${failed.status}, "${failed.error}"`);
     expect(failed.status).toBe('failed');
     expect(failed.error).toMatch(CLEAR_STORAGE_ERROR);
     expect(failed.sha256).toBeNull();
@@ -227,30 +242,57 @@ describe('print sets on a full disk', () => {
     expect(download.status).toBe(409);
     expectCleanAnswer(download, 'download of a failed print set');
     // Nothing half-written stays on the full disk.
-    if (fs.statSync(folder).isDirectory()) expect(listFiles(folder)).toEqual([]);
+    expect(listFiles(path.join(dir, 'print-sets'))).toEqual(filesBefore);
 
     // Space again: the next print set renders and stores a whole file.
-    if (mounts.includes(folder)) execFileSync('umount', [folder]);
-    else fs.rmSync(folder);
-    const second = await client.post(`/api/patterns/${id}/print-sets`, { options: { copies: 'single' } });
-    const done = await settle(client, id, second.json.printSet.id);
-    expect(done.status, done.error ?? '').toBe('done');
+    const second = await request();
+    expect((await settle(client, id, second.json.printSet.id)).status).toBe('done');
     await server.kill('SIGKILL');
-    const row = withReadOnlyDatabase(server.dataDir, (db) =>
-      db.prepare('SELECT storage_path AS p, sha256, bytes FROM print_sets WHERE id = ?').get(second.json.printSet.id) as { p: string; sha256: string; bytes: number },
+    const rows = withReadOnlyDatabase(server.dataDir, (db) =>
+      db.prepare('SELECT id, status, storage_path AS p, sha256, bytes FROM print_sets ORDER BY created_at').all() as { id: string; status: string; p: string; sha256: string; bytes: number }[],
     );
-    expect(sha256OfFile(path.join(server.dataDir, row.p))).toBe(row.sha256);
-    expect(fs.statSync(path.join(server.dataDir, row.p)).size).toBe(row.bytes);
+    // The failure is stored, not only answered: it survives a kill.
+    expect(rows.map((r) => [r.id, r.status])).toEqual([
+      [roomy.json.printSet.id, 'done'],
+      [first.json.printSet.id, 'failed'],
+      [second.json.printSet.id, 'done'],
+    ]);
+    for (const row of [rows[0], rows[2]]) {
+      expect(sha256OfFile(path.join(server.dataDir, row.p))).toBe(row.sha256);
+      expect(fs.statSync(path.join(server.dataDir, row.p)).size).toBe(row.bytes);
+    }
   });
 });
 
-/** Polls a print set until it is done or failed (bounded: 3 minutes). */
-async function settle(client: Awaited<ReturnType<typeof signedInClient>>['client'], patternId: string, setId: string) {
-  for (let i = 0; i < 900; i++) {
+/** Writes a filler file until the file system answers ENOSPC (big chunks first, then single bytes); returns its size. */
+function fillDisk(file: string): number {
+  const fd = fs.openSync(file, 'w');
+  let written = 0;
+  try {
+    for (const size of [1 << 20, 1 << 16, 1 << 12, 1]) {
+      const chunk = Buffer.alloc(size, 0x5a);
+      for (;;) {
+        try {
+          written += fs.writeSync(fd, chunk);
+        } catch (err) {
+          if ((err as NodeJS.ErrnoException).code !== 'ENOSPC') throw err;
+          break;
+        }
+      }
+    }
+  } finally {
+    fs.closeSync(fd);
+  }
+  return written;
+}
+
+/** Polls a print set until it is done or failed (bounded: 3 minutes unless told). */
+async function settle(client: Awaited<ReturnType<typeof signedInClient>>['client'], patternId: string, setId: string, withinMs = 180_000) {
+  for (let i = 0; i < withinMs / 200; i++) {
     const res = await client.get(`/api/patterns/${patternId}/print-sets/${setId}`);
     const set = res.json?.printSet;
     if (set && (set.status === 'done' || set.status === 'failed')) return set;
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`print set ${setId} did not settle within 3 minutes`);
+  throw new Error(`print set ${setId} did not settle within ${withinMs / 1000} s`);
 }
