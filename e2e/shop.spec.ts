@@ -71,19 +71,19 @@ test('a designer publishes, a quilter pays on the checkout page and gets access 
   await expect(d.getByText('Your shop sells in EUR')).toBeVisible();
 
   const lantern = d.getByRole('form', { name: 'Listing of Lantern Block' });
-  await lantern.getByLabel(/Price in cents/).fill('12.5');
+  await lantern.getByLabel(/Price in EUR/).fill('12.505');
   await lantern.getByLabel('Description for buyers').fill('An 8 in. block: one section, two patches, sewn in a single evening.');
   await lantern.getByRole('button', { name: 'Save listing' }).click();
-  await expect(lantern.getByText('Whole cents only')).toBeVisible();
+  await expect(lantern.getByText('Type an amount with at most 2 decimals, e.g. 12.50')).toBeVisible();
   await shot(d, 'publish-price-error');
-  await lantern.getByLabel(/Price in cents/).fill('1250');
+  await lantern.getByLabel(/Price in EUR/).fill('12.50');
   await expect(lantern.getByText('Buyers pay €12.50')).toBeVisible();
   await lantern.getByRole('switch', { name: 'Published' }).click();
   await lantern.getByRole('button', { name: 'Save listing' }).click();
   await expect(d.getByText('“Lantern Block” is in the shop at €12.50')).toBeVisible();
 
   const star = d.getByRole('form', { name: 'Listing of Unfinished Star' });
-  await star.getByLabel(/Price in cents/).fill('900');
+  await star.getByLabel(/Price in EUR/).fill('9');
   await star.getByLabel('Description for buyers').fill('Still being drafted.');
   await star.getByRole('button', { name: 'Save listing' }).click();
   await expect(d.getByText('“Unfinished Star” saved, not published')).toBeVisible();
@@ -99,6 +99,9 @@ test('a designer publishes, a quilter pays on the checkout page and gets access 
   await q.getByRole('link', { name: 'Shop' }).click();
   const cards = q.getByRole('list', { name: 'Patterns for sale' }).getByRole('listitem');
   await expect(cards.filter({ hasText: 'Lantern Block' })).toContainText('€12.50');
+  // The card shows the design's picture (drawn by the server when the listing was saved) and its finished size.
+  await expect(cards.filter({ hasText: 'Lantern Block' }).getByRole('img', { name: 'Picture of the design Lantern Block' })).toBeVisible();
+  await expect(cards.filter({ hasText: 'Lantern Block' })).toContainText('8 in. × 8 in. finished');
   await expect(cards.filter({ hasText: 'Unfinished Star' })).toHaveCount(0);
   await expect(q.getByRole('tab', { name: /Publish/ })).toHaveCount(0);
   await shot(q, 'browse');

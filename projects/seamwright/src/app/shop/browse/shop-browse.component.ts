@@ -15,11 +15,12 @@ import { ShopService } from '../shop.service';
 import type { Listing } from '../shop-types';
 import { formatMoney } from '@seamwright/api';
 import { listingFacts } from '../listing-facts';
+import { ListingPictureComponent } from '../listing-picture.component';
 
 /** Published patterns from every designer, newest first, searchable by title. */
 @Component({
   selector: 'sw-shop-browse',
-  imports: [RouterLink, ReactiveFormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [RouterLink, ReactiveFormsModule, ListingPictureComponent, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="sw-toolbar-row">
@@ -40,7 +41,10 @@ import { listingFacts } from '../listing-facts';
                 <mat-card-title><a [routerLink]="['/shop/patterns', l.patternId]">{{ l.title }}</a></mat-card-title>
                 <mat-card-subtitle>by {{ l.designer.displayName }} · {{ facts(l) }}</mat-card-subtitle>
               </mat-card-header>
-              <mat-card-content><p class="desc">{{ l.description }}</p></mat-card-content>
+              <mat-card-content>
+                <sw-listing-picture class="picture" [listing]="l" />
+                <p class="desc">{{ l.description }}</p>
+              </mat-card-content>
               <mat-card-actions class="actions">
                 <span class="price">{{ money(l) }}</span>
                 @if (l.access) {
@@ -64,6 +68,7 @@ import { listingFacts } from '../listing-facts';
     .card a { text-decoration: none; }
     .desc { display: -webkit-box; -webkit-line-clamp: 3; -webkit-box-orient: vertical; overflow: hidden; margin: 8px 0 0; }
     mat-card-content { flex: 1; }
+    .picture { display: block; margin-top: 12px; }
     .actions { display: flex; justify-content: space-between; align-items: center; padding: 8px 16px 16px; }
     .price { font: var(--mat-sys-title-medium); }
     .empty { padding: 24px 4px; }

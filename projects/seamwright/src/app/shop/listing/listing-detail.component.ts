@@ -11,11 +11,12 @@ import { ShopService } from '../shop.service';
 import type { Listing } from '../shop-types';
 import { formatMoney } from '@seamwright/api';
 import { listingFacts } from '../listing-facts';
+import { ListingPictureComponent } from '../listing-picture.component';
 
 /** One pattern in the shop: what it is, its price, and Buy (or Open, once it is yours). */
 @Component({
   selector: 'sw-listing-detail',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, NotFoundComponent],
+  imports: [DatePipe, RouterLink, ListingPictureComponent, MatButtonModule, MatIconModule, MatProgressBarModule, NotFoundComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (state.notFound()) {
@@ -27,7 +28,10 @@ import { listingFacts } from '../listing-facts';
           <h2 id="listing-title">{{ l.title }}</h2>
           <p class="sw-muted">by {{ l.designer.displayName }} · {{ facts(l) }}@if (l.publishedAt) { · in the shop since {{ l.publishedAt | date: 'd MMM y' }} }</p>
           @if (!l.published) { <p class="draft" role="status">Not published: only you can see this page.</p> }
-          <p class="desc">{{ l.description }}</p>
+          <div class="about">
+            <sw-listing-picture [listing]="l" [sizePx]="240" />
+            <p class="desc">{{ l.description }}</p>
+          </div>
           <p class="includes">Buying gives you quilter access to the pattern: print sets at true scale with test squares, the scale check and your own sewing log. You cannot change the design.</p>
           @if (cancelled()) { <p class="cancelled" role="status">Checkout was cancelled; nothing was charged.</p> }
           <div class="buy">
@@ -48,7 +52,8 @@ import { listingFacts } from '../listing-facts';
   styles: `
     .detail { max-width: 720px; }
     .detail h2 { margin-top: 0; margin-bottom: 4px; font: var(--mat-sys-headline-small); }
-    .desc { white-space: pre-line; font-size: 1.05rem; }
+    .about { display: flex; flex-wrap: wrap; gap: 24px; align-items: flex-start; margin-top: 16px; }
+    .desc { flex: 1 1 280px; margin: 0; white-space: pre-line; font-size: 1.05rem; }
     .includes { border-left: 3px solid var(--mat-sys-primary); padding-left: 12px; }
     .draft, .cancelled { padding: 8px 12px; border-radius: 8px; background: var(--mat-sys-surface-container-high); }
     .buy { display: flex; flex-wrap: wrap; gap: 16px; align-items: center; margin: 24px 0 12px; }

@@ -8,11 +8,13 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { switchMap, startWith } from 'rxjs';
 import type { ShopCurrency } from '../shop-types';
-import { MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '@seamwright/api';
+import { formatMoney, parseMoney } from '@seamwright/api';
+import { priceExample } from './price-field';
 
 /** The controls of one pattern's listing. */
 export interface ListingForm {
-  priceMinor: FormControl<number | null>;
+  /** The price as typed, in the currency's units ("12.50"); see price-field.ts. */
+  price: FormControl<string>;
   description: FormControl<string>;
   published: FormControl<boolean>;
 }
@@ -32,8 +34,8 @@ export interface ListingForm {
       </div>
       <div class="fields">
         <mat-form-field appearance="outline" class="price">
-          <mat-label>Price in {{ unit() }}</mat-label>
-          <input matInput type="number" inputmode="numeric" formControlName="priceMinor" [min]="min" [max]="max" step="1" required />
+          <mat-label>Price in {{ code() }}</mat-label>
+          <input matInput type="text" inputmode="decimal" autocomplete="off" formControlName="price" required />
           <mat-hint>{{ preview() }}</mat-hint>
           <mat-error>{{ priceMessage() }}</mat-error>
         </mat-form-field>
@@ -68,30 +70,25 @@ export class ListingFormComponent {
   readonly saving = input(false);
   /** Emitted when the designer saves this listing. */
   readonly save = output<void>();
-  protected readonly min = MIN_PRICE_MINOR;
-  protected readonly max = MAX_PRICE_MINOR;
-  private readonly price = toSignal(toObservable(this.form).pipe(switchMap((f) => f.controls.priceMinor.valueChanges.pipe(startWith(f.controls.priceMinor.value)))));
+  private readonly price = toSignal(toObservable(this.form).pipe(switchMap((f) => f.controls.price.valueChanges.pipe(startWith(f.controls.price.value)))));
 
-  protected unit(): string {
-    return minorUnitName(this.currency() ?? 'usd');
+  /** The currency's code as buyers see it, "EUR". */
+  protected code(): string {
+    return (this.currency() ?? 'usd').toUpperCase();
   }
 
   protected preview(): string {
     const c = this.currency();
-    const p = this.price();
     if (!c) return 'Choose the shop currency first';
-    return typeof p === 'number' && Number.isInteger(p) && p >= 0 ? `Buyers pay ${formatMoney(p, c)}` : `Whole ${this.unit()}, e.g. 1250`;
+    const minor = parseMoney(this.price() ?? '', c);
+    return minor !== null ? `Buyers pay ${formatMoney(minor, c)}` : `In ${c.toUpperCase()}, e.g. ${priceExample(c)}`;
   }
 
   protected priceMessage(): string {
-    const e = this.form().controls.priceMinor.errors;
-    const c = this.currency() ?? 'usd';
+    const e = this.form().controls.price.errors;
     if (!e) return '';
     if (e['server']) return String(e['server']);
-    if (e['required']) return 'A price is required';
-    if (e['pattern']) return `Whole ${this.unit()} only`;
-    if (e['min']) return `At least ${MIN_PRICE_MINOR} ${this.unit()} (${formatMoney(MIN_PRICE_MINOR, c)})`;
-    if (e['max']) return `At most ${formatMoney(MAX_PRICE_MINOR, c)}`;
-    return `Whole ${this.unit()} only`;
+    if (e['price']) return String(e['price']);
+    return 'A price is required';
   }
 }

@@ -15,8 +15,9 @@ import { toApiError } from '../../core/api-error';
 import { applyServerIssues } from '../../auth/form-errors';
 import { ShopService } from '../shop.service';
 import { SHOP_CURRENCIES, type MyShop, type ShopCurrency } from '../shop-types';
-import { CURRENCY_NAMES, MAX_PRICE_MINOR, MIN_PRICE_MINOR, formatMoney, minorUnitName } from '@seamwright/api';
+import { CURRENCY_NAMES, formatMoney, formatMoneyAmount, parseMoney } from '@seamwright/api';
 import { ListingFormComponent, type ListingForm } from './listing-form.component';
+import { priceExample, priceValidator } from './price-field';
 
 /** The designer's shop settings: one currency for the shop, and price, description and publishing per pattern. */
 @Component({
@@ -36,7 +37,7 @@ import { ListingFormComponent, type ListingForm } from './listing-form.component
         </mat-form-field>
         <button mat-flat-button type="submit" [disabled]="savingCurrency()">Save currency</button>
       </form>
-      <p class="sw-muted">Every pattern in your shop is priced in this currency. Prices are whole numbers of its smallest unit ({{ unitHint() }}); changing the currency keeps the numbers.</p>
+      <p class="sw-muted">Every pattern in your shop is priced in this currency. Prices are typed in the currency, e.g. {{ unitHint() }}. Changing the currency does not convert them: check your prices after a change.</p>
     </section>
 
     @if (state.value(); as mine) {
@@ -82,8 +83,12 @@ export class PublishSettingsComponent implements OnInit {
   }
 
   protected unitHint(): string {
-    const c = this.currencyValue();
-    return `${minorUnitName(c)}: 1250 is ${formatMoney(1250, c)}`;
+    return priceExample(this.currencyValue());
+  }
+
+  /** The currency prices are typed in: the shop's saved one (the picker may show an unsaved choice). */
+  private shopCurrency(): ShopCurrency {
+    return this.state.value()?.shop?.currency ?? this.currency.value;
   }
 
   protected formFor(patternId: string): FormGroup<ListingForm> {
@@ -91,12 +96,7 @@ export class PublishSettingsComponent implements OnInit {
     if (!form) {
       const listing = this.state.value()?.patterns.find((p) => p.patternId === patternId)?.listing;
       form = this.fb.group({
-        priceMinor: this.fb.control<number | null>(listing?.priceMinor ?? null, [
-          Validators.required,
-          Validators.min(MIN_PRICE_MINOR),
-          Validators.max(MAX_PRICE_MINOR),
-          Validators.pattern(/^\d+$/),
-        ]),
+        price: this.fb.control(listing ? formatMoneyAmount(listing.priceMinor, this.shopCurrency()) : '', [priceValidator(() => this.shopCurrency())]),
         description: this.fb.control(listing?.description ?? '', [Validators.required, Validators.maxLength(2000)]),
         published: this.fb.control(listing?.published ?? false),
       }) as FormGroup<ListingForm>;
@@ -130,7 +130,9 @@ export class PublishSettingsComponent implements OnInit {
     }
     const v = form.getRawValue();
     this.saving.set(patternId);
-    this.shop.saveListing(patternId, { priceMinor: Number(v.priceMinor), description: v.description.trim(), published: v.published }).subscribe({
+    // The validator has read the price, so it parses; the amount goes in minor units, read digit by digit.
+    const priceMinor = parseMoney(v.price, this.shopCurrency())!;
+    this.shop.saveListing(patternId, { priceMinor, description: v.description.trim(), published: v.published }).subscribe({
       next: (l) => {
         this.saving.set(null);
         form.markAsPristine();
@@ -138,7 +140,9 @@ export class PublishSettingsComponent implements OnInit {
       },
       error: (err: unknown) => {
         this.saving.set(null);
-        const rest = applyServerIssues(form, toApiError(err).issues);
+        // The server names the price field by its minor-unit body field.
+        const issues = toApiError(err).issues.map((i) => (i.path === 'priceMinor' ? { ...i, path: 'price' } : i));
+        const rest = applyServerIssues(form, issues);
         if (rest.length || !toApiError(err).issues.length) this.notify.error(err, 'Listing not saved');
       },
     });
