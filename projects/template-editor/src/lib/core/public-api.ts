@@ -45,6 +45,18 @@ export { setSeamPressing, seamPressingOf, DEFAULT_SEAM_PRESSING } from './comman
 export { setPatchRoughCut, setPatchPieceTemplate, setStripSetSubCutLength, roughCutProblem, type RoughCutPiece } from './commands/cutting-commands';
 export { setPatternNotes, setSectionNote, PATTERN_NOTES_MAX, SECTION_NOTE_MAX } from './commands/notes-commands';
 
+/** The designer's joining plan: take the proposal, move a join, set its pressing, go back to the proposal. */
+export {
+  currentJoiningPlan,
+  adoptDefaultJoiningPlan,
+  resetJoiningPlan,
+  joiningStepMoveProblem,
+  moveJoiningStep,
+  setJoiningStepPress,
+  type RingPress,
+  type JoinPress,
+} from './commands/joining-plan-commands';
+
 /** Commands on the whole pattern: sewing numbers, fabrics, strip-set names, resizing. */
 export { setPatternSettings } from './commands/pattern-commands';
 export {

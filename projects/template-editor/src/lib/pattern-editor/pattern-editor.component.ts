@@ -1,7 +1,8 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, signal, untracked } from '@angular/core';
 import type { PatternDocument } from '@seamwright/piecing';
 import { DraftingBoardComponent } from '../board/drafting-board.component';
-import { diffValues } from '../core/public-api';
+import { diffValues, type BoardHighlight } from '../core/public-api';
+import { JoiningPlanPanelComponent } from '../joining-plan/joining-plan-panel.component';
 import { PatternSettingsPanelComponent } from '../pattern-settings/pattern-settings-panel.component';
 import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
 import { PropertiesPanelComponent } from '../properties/properties-panel.component';
@@ -26,18 +27,19 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
   selector: 'sw-pattern-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [EditorSession],
-  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent, SectionsOutlineComponent, TypedEntryPanelComponent],
+  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent, SectionsOutlineComponent, TypedEntryPanelComponent, JoiningPlanPanelComponent],
   template: `
     <sw-board-toolbar class="toolbar" />
     <div class="body">
       <div class="board-column">
-        <sw-drafting-board class="board" [referenceImageUrl]="referenceImageUrl()" />
+        <sw-drafting-board class="board" [referenceImageUrl]="referenceImageUrl()" [highlight]="joinHighlight()" />
         <sw-board-status />
       </div>
       <aside class="side" aria-label="Section details">
         <sw-sections-outline />
         <sw-properties-panel />
         <sw-piecing-order />
+        <sw-joining-plan-panel (highlightChange)="joinHighlight.set($event)" />
         @if (!readOnly()) {
           <details class="settings">
             <summary>Add by values</summary>
@@ -88,6 +90,8 @@ export class PatternEditorComponent {
   readonly dirtyChange = output<boolean>();
 
   private readonly session = inject(EditorSession);
+  /** The seam of the join chosen in the joining plan, pointed at on the board. */
+  protected readonly joinHighlight = signal<BoardHighlight | null>(null);
   private lastDirty = false;
 
   constructor() {
