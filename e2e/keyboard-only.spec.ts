@@ -17,7 +17,7 @@ const user = { displayName: 'Kay Keys', email: `kay-${run}@example.test`, passwo
 const hasFocus = (target: Locator) => target.evaluate((el) => el === document.activeElement || el.contains(document.activeElement));
 
 /** Presses `key` (Tab by default) until `target` has focus, as a keyboard user moves through a page. */
-async function pressUntilFocused(page: Page, target: Locator, key = 'Tab', max = 80): Promise<void> {
+async function pressUntilFocused(page: Page, target: Locator, key = 'Tab', max = 120): Promise<void> {
   await expect(target).toBeVisible();
   for (let i = 0; i < max; i++) {
     if (await hasFocus(target)) return;
@@ -117,7 +117,9 @@ test('a keyboard alone: sign in, select B in the outline, nudge it, undo, cuttin
   await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Cutting list' }), 'ArrowRight', 8);
   await page.keyboard.press('Enter');
   await page.waitForURL(/\/cutting$/);
-  await expect(page.getByRole('heading', { name: /^Cutting list — / })).toBeVisible();
+  // A and B of the starter, one patch each.
+  await expect(page.getByText(/2 patches per block/)).toBeVisible({ timeout: 20_000 });
+  await expect(page.getByRole('button', { name: 'Print the cutting list' })).toBeVisible();
 
   // Print: make a print set and download it.
   await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Tab', 120);

@@ -49,7 +49,8 @@ export class DraftingBoardPage {
 
   /** Waits until the board is drawn (its canvas shown) and the status line shows the view. */
   async ready(): Promise<void> {
-    await expect(this.board()).toBeVisible();
+    // The board's code loads with the page: on a busy machine that takes a while.
+    await expect(this.board()).toBeVisible({ timeout: 30_000 });
     await expect(this.board().locator('canvas').first()).toBeVisible();
     await expect(this.viewReadout()).toHaveText(/px per in\./);
     await expect(this.page.getByRole('heading', { name: 'Sections', exact: true })).toBeVisible();
