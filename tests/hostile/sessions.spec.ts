@@ -155,7 +155,7 @@ describe('CSRF', () => {
     ['DELETE', `/api/patterns/${w.patternId}/invitations/${w.invitationId}`],
     ['PATCH', `/api/patterns/${w.patternId}/members/${w.partner.user!.id}`, { access: 'quilter' }],
     ['DELETE', `/api/patterns/${w.patternId}/members/${w.partner.user!.id}`],
-    ['PUT', `/api/patterns/${w.patternId}/sewing-log/${w.sectionIds[0]}`, { stage: 'sewn' }],
+    ['PUT', `/api/patterns/${w.patternId}/sewing-log/${w.sectionIds[0]}`, { stage: 'joined' }],
     ['POST', `/api/patterns/${w.patternId}/uploads`],
     ['DELETE', `/api/patterns/${w.patternId}/uploads/${w.uploadId}`],
     ['POST', `/api/patterns/${w.patternId}/print-sets`, { options: {} }],
@@ -210,9 +210,9 @@ describe('CSRF', () => {
   });
 
   it('with the token the same request goes through (the 403s above are the token’s doing)', async () => {
-    const res = await world.owner.put(`/api/patterns/${world.patternId}/sewing-log/${world.sectionIds[0]}`, { stage: 'sewn' });
+    const res = await world.owner.put(`/api/patterns/${world.patternId}/sewing-log/${world.sectionIds[0]}`, { stage: 'joined' });
     expect(res.status, res.text).toBe(200);
-    expect(res.json.entry.stage).toBe('sewn');
+    expect(res.json.entry.stage).toBe('joined');
   });
 });
 
@@ -246,7 +246,7 @@ describe("another user's ids", () => {
       ['PATCH', `${p}/members/${w.partner.user!.id}`, { access: 'quilter' }],
       ['DELETE', `${p}/members/${w.partner.user!.id}`],
       ['GET', `${p}/sewing-log`],
-      ['PUT', `${p}/sewing-log/${w.sectionIds[0]}`, { stage: 'cut' }],
+      ['PUT', `${p}/sewing-log/${w.sectionIds[0]}`, { stage: 'pieced' }],
       ['GET', `${p}/uploads`],
       ['GET', `${p}/uploads/${w.uploadId}/file`],
       ['DELETE', `${p}/uploads/${w.uploadId}`],
