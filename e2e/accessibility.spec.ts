@@ -24,7 +24,7 @@ async function seriousFindings(page: Page): Promise<string[]> {
 }
 
 test('the changed screens have no serious or critical axe findings in either theme', async ({ page }) => {
-  test.setTimeout(180_000);
+  test.setTimeout(400_000);
   await page.setViewportSize({ width: 1366, height: 1000 });
   await new AuthPage(page).signUp(designer);
   await expect(page.getByRole('heading', { name: 'Patterns' })).toBeVisible();
@@ -79,7 +79,7 @@ async function selectSectionA(page: Page): Promise<void> {
 
 for (const viewer of ['signed out', 'designer', 'quilter'] as const) {
   test(`every main screen ${viewer === 'signed out' ? 'signed out' : `as a ${viewer}`} has no serious or critical axe findings in either theme`, async ({ page }) => {
-    test.setTimeout(300_000);
+    test.setTimeout(900_000);
     await page.setViewportSize({ width: 1366, height: 1000 });
     let patternId = '';
     if (viewer !== 'signed out') await signUpAs(page, viewer, 'axe');
@@ -89,7 +89,10 @@ for (const viewer of ['signed out', 'designer', 'quilter'] as const) {
       await useTheme(page, theme);
       for (const screen of SCREENS[viewer]) {
         await openScreen(page, screen, patternId);
-        if (screen.board) await selectSectionA(page);
+        if (screen.board) {
+          await selectSectionA(page);
+          await page.locator('sw-piecing-order').screenshot({ path: `e2e/artifacts/piecing-order-${theme}.png` });
+        }
         await expectNoSeriousFindings(page, `${screen.name}, ${viewer}, ${theme}`);
       }
     }
@@ -97,7 +100,7 @@ for (const viewer of ['signed out', 'designer', 'quilter'] as const) {
 }
 
 test('each dialog, open, has no serious or critical axe findings in either theme', async ({ page }) => {
-  test.setTimeout(240_000);
+  test.setTimeout(600_000);
   await page.setViewportSize({ width: 1366, height: 1000 });
   await signUpAs(page, 'designer', 'dialogs');
   const patternId = await createSamplePattern(page, 'Dialog sample');

@@ -103,7 +103,7 @@ async function signedInDesigner(browser: Browser): Promise<{ page: Page; decoder
 
 for (const theme of ['light', 'dark'] as Theme[]) {
   test(`every Tab stop on the list, the board page, print and shop shows a 3:1 focus indicator at least its perimeter in size (${theme})`, async ({ browser }) => {
-    test.setTimeout(400_000);
+    test.setTimeout(900_000);
     const { page, decoder, patternId } = await signedInDesigner(browser);
     await useTheme(page, theme);
     const all: string[] = [];
@@ -119,6 +119,7 @@ for (const theme of ['light', 'dark'] as Theme[]) {
 }
 
 test('a focused control on the list and the print page, in both themes, looked at', async ({ browser }) => {
+  test.setTimeout(300_000);
   const { page, patternId } = await signedInDesigner(browser);
   for (const theme of ['light', 'dark'] as Theme[]) {
     await useTheme(page, theme);

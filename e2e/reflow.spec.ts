@@ -28,7 +28,7 @@ async function widest(page: Page): Promise<string> {
 
 for (const viewer of ['signed out', 'designer', 'quilter'] as Viewer[]) {
   test(`at 320 and 640 CSS px every page but the board fits without sideways scrolling (${viewer})`, async ({ page }) => {
-    test.setTimeout(240_000);
+    test.setTimeout(600_000);
     let patternId = '';
     if (viewer === 'signed out') await page.goto('/');
     else await signUpAs(page, viewer, 'reflow');
@@ -48,6 +48,7 @@ for (const viewer of ['signed out', 'designer', 'quilter'] as Viewer[]) {
 }
 
 test('the header folds into a named menu at 320 px that reaches every main link', async ({ page }) => {
+  test.setTimeout(300_000);
   await signUpAs(page, 'designer', 'fold');
   await page.setViewportSize({ width: 320, height: 700 });
   for (const theme of ['light', 'dark'] as const) {
@@ -70,6 +71,7 @@ test('the header folds into a named menu at 320 px that reaches every main link'
 });
 
 test('sheet preview labels render at 9 px or more, wide and narrow', async ({ page }) => {
+  test.setTimeout(300_000);
   await signUpAs(page, 'designer', 'labels');
   const patternId = await createSamplePattern(page, 'Label sample');
   for (const width of [1366, 320]) {

@@ -77,11 +77,12 @@ export async function useTheme(page: Page, theme: Theme): Promise<void> {
 /** Opens a screen and waits until it has loaded: its heading shown, no loading bar, no preview being planned. */
 export async function openScreen(page: Page, screen: Screen, patternId = ''): Promise<void> {
   await page.goto(screen.path.replace('{id}', patternId));
-  await expect(page.locator('main h1').first()).toBeVisible();
-  await expect(page.locator('mat-progress-bar[mode=indeterminate]')).toHaveCount(0);
-  await expect(page.locator('[aria-busy=true]')).toHaveCount(0);
+  // Generous waits: the machine running the suite may be busy; these are states, not pauses.
+  await expect(page.locator('main h1').first()).toBeVisible({ timeout: 30_000 });
+  await expect(page.locator('mat-progress-bar[mode=indeterminate]')).toHaveCount(0, { timeout: 30_000 });
+  await expect(page.locator('[aria-busy=true]')).toHaveCount(0, { timeout: 30_000 });
   if (screen.board) {
-    await expect(page.getByRole('application', { name: 'Drafting board' }).locator('canvas').first()).toBeVisible();
+    await expect(page.getByRole('application', { name: 'Drafting board' }).locator('canvas').first()).toBeVisible({ timeout: 30_000 });
     await expect(page.getByRole('tree', { name: 'Sections' })).toBeVisible();
   }
   const theme = await page.evaluate(() => (document.documentElement.classList.contains('sw-dark') ? 'dark' : 'light'));
