@@ -80,6 +80,11 @@ export class SheetFlow {
     }
   }
 
+  /** Height a block may take on an empty sheet, in inches. */
+  get sheetRoom(): number {
+    return this.bottom() - this.top();
+  }
+
   /** Room left on the current sheet, in inches. */
   get roomLeft(): number {
     return this.bottom() - this.y;

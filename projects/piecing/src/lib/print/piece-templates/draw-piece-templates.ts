@@ -51,7 +51,19 @@ export function drawPieceTemplates(
       rowWidth = 0;
     };
     for (const item of items) {
-      const w = Math.max(size(item.t).w, 2.6) + GAP_IN;
+      const { w: tw, h: th } = size(item.t);
+      if (tw > flow.width || th + CAPTION_IN + 0.15 > flow.sheetRoom) {
+        // True scale matters more than fitting: say so rather than shrink it.
+        if (item.copy === 1) {
+          flow.paragraph(
+            `Piece template ${item.t.patchLabel} (${tw.toFixed(2)} × ${th.toFixed(2)} in.) is larger than this paper: print the set on larger paper for it, or trace it from the foundation template.`,
+            9,
+            true,
+          );
+        }
+        continue;
+      }
+      const w = Math.max(tw, 2.6) + GAP_IN;
       if (rowWidth + w > flow.width + GAP_IN && row.length > 0) flush();
       row.push(item);
       rowWidth += w;
