@@ -17,7 +17,7 @@ const designer = { name: 'Bea Board', email: `bea-${run}@example.test`, password
 const shot = (page: Page, name: string) => page.screenshot({ path: `e2e/artifacts/board-${name}.png` });
 
 test('draw an arc section, split it into four patches, renumber, undo and reload', async ({ page }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   await page.setViewportSize({ width: 1440, height: 960 });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
@@ -103,7 +103,7 @@ test('draw an arc section, split it into four patches, renumber, undo and reload
 });
 
 test('select, split twice at once from one corner, fill each patch, and find each fill saved on its own patch', async ({ page }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   await page.setViewportSize({ width: 1440, height: 960 });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
