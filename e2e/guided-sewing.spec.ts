@@ -13,10 +13,13 @@ import { linkIn, waitForMail } from './pages/mail-inbox';
  */
 
 const run = Date.now().toString(36);
-const designer = { name: 'Gale Designer', email: `gale-${run}@example.test`, password: 'garden-gate-41', role: 'designer' as const };
-const quilter = { name: 'Remy Quilter', email: `remy-${run}@example.test`, password: 'moss-brick-cream-7', role: 'quilter' as const };
+/** A designer and a quilter of their own for each test (`tag` keeps the addresses apart). */
+const people = (tag: string) => ({
+  designer: { name: 'Gale Designer', email: `gale-${tag}-${run}@example.test`, password: 'garden-gate-41', role: 'designer' as const },
+  quilter: { name: 'Remy Quilter', email: `remy-${tag}-${run}@example.test`, password: 'moss-brick-cream-7', role: 'quilter' as const },
+});
 
-test.use({ actionTimeout: 15_000, navigationTimeout: 20_000 });
+test.use({ actionTimeout: 15_000, navigationTimeout: 60_000 });
 
 async function csrf(page: Page): Promise<Record<string, string>> {
   const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
@@ -24,7 +27,8 @@ async function csrf(page: Page): Promise<Record<string, string>> {
 }
 
 /** The designer creates Garden Gate and shares it with the quilter, who signs up and accepts. */
-async function sharedGardenGate(browser: Browser): Promise<{ id: string; page: Page }> {
+async function sharedGardenGate(browser: Browser, tag: string): Promise<{ id: string; page: Page }> {
+  const { designer, quilter } = people(tag);
   const designerCtx = await browser.newContext();
   const d = await designerCtx.newPage();
   await new AuthPage(d).signUp(designer);
@@ -48,7 +52,7 @@ async function sharedGardenGate(browser: Browser): Promise<{ id: string; page: P
 
 test('the quilter walks a section in guided sewing and the sewing log shows it', async ({ browser }) => {
   test.setTimeout(120_000);
-  const { id, page } = await sharedGardenGate(browser);
+  const { id, page } = await sharedGardenGate(browser, 'walk');
   const log = new SewingLogPage(page);
   await page.goto(`/patterns/${id}/sewing-log`);
   await expect(log.progress()).toHaveAttribute('aria-valuenow', '0');
@@ -63,13 +67,14 @@ test('the quilter walks a section in guided sewing and the sewing log shows it',
   await expect(guided.previousButton()).toBeDisabled();
   await expect(page.getByText(/Keys: → or N next step, ← or P previous step/)).toBeVisible();
 
-  // Every step of section B, copy 1 (the default joining plan joins B to A first), by keys; focus lands on each step's heading.
-  await guided.press('ArrowRight');
+  // Every step of section B, copy 1 (the default joining plan joins B to A first), by keys. Focus is still on
+  // the tab just clicked, where arrows move between tabs, so N first; then focus lands on each step's heading.
+  await guided.press('n');
   await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add B2');
   await expect(guided.stepHeading()).toBeFocused();
   await expect(guided.instruction('Sew')).toContainText('between B1 and B2');
   await expect(guided.instruction('Press')).toContainText('toward B2 (the patch just added)');
-  await guided.press('n');
+  await guided.press('ArrowRight');
   await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add B3');
   await expect(guided.instruction('Pre-trim')).toHaveCount(0);
   // Leaving the last patch ticks copy 1 of B pieced in the log.
@@ -79,7 +84,11 @@ test('the quilter walks a section in guided sewing and the sewing log shows it',
   await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section B');
   await expect(guided.stepHeading()).toBeFocused();
   await expect(page.getByText('Sewing log: Pieced')).toBeVisible();
+  await guided.press('ArrowLeft');
+  await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add B3');
   await guided.press('p');
+  await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add B2');
+  await guided.press('n');
   await expect(guided.stepHeading()).toHaveText('Step 3 of 4: add B3');
   await guided.nextButton().click();
   await expect(guided.stepHeading()).toHaveText('Step 4 of 4: trim section B');
@@ -99,8 +108,8 @@ test('the quilter walks a section in guided sewing and the sewing log shows it',
 });
 
 test('guided sewing on a phone and a tablet, light and dark', async ({ browser }) => {
-  test.setTimeout(120_000);
-  const { id, page } = await sharedGardenGate(browser);
+  test.setTimeout(300_000);
+  const { id, page } = await sharedGardenGate(browser, 'screens');
   const state = await page.context().storageState();
   await page.context().close();
   for (const colorScheme of ['light', 'dark'] as const) {

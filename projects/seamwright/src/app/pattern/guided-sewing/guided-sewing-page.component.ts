@@ -159,10 +159,12 @@ export class GuidedSewingPageComponent implements OnInit {
   }
 
   protected onKey(event: KeyboardEvent): void {
-    if (event.altKey || event.ctrlKey || event.metaKey || event.defaultPrevented) return;
+    if (event.altKey || event.ctrlKey || event.metaKey) return;
     const target = event.target as HTMLElement | null;
-    if (target?.closest('input, select, textarea, [contenteditable="true"], [role="slider"]')) return;
+    if (target?.closest('input, select, textarea, [contenteditable="true"], [role="slider"], [role="dialog"], [role="menu"]')) return;
     const key = event.key.toLowerCase();
+    // Arrows belong to a tab bar or list that has focus (they move between its items); N and P still work there.
+    if (key.startsWith('arrow') && (event.defaultPrevented || target?.closest('[role="tablist"], [role="listbox"], [role="radiogroup"]'))) return;
     if (key === 'arrowright' || key === 'n') {
       event.preventDefault();
       if (!this.atEnd() || !this.finished()) this.next();
