@@ -54,7 +54,8 @@ async function focusedStop(page: Page): Promise<Stop | null> {
     const el = document.activeElement as HTMLElement | null;
     if (!el || el === document.body || el.closest('[role=application]')) return null;
     (window as unknown as { swLastFocus: HTMLElement }).swLastFocus = el;
-    const r = el.getBoundingClientRect();
+    // A field's control is the whole outlined field, whose outline is what shows focus.
+    const r = (el.closest('.mat-mdc-text-field-wrapper') ?? el).getBoundingClientRect();
     const name = el.getAttribute('aria-label') ?? el.textContent?.trim().replace(/\s+/g, ' ').slice(0, 40) ?? el.tagName;
     return { name: `${el.tagName.toLowerCase()} “${name}”`, box: { x: r.x, y: r.y, width: r.width, height: r.height } };
   });
