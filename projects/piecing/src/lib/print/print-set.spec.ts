@@ -43,7 +43,8 @@ describe('print set of the test medallion (Letter, mirrored)', () => {
   beforeAll(async () => {
     result = await render(document, 'letter');
     ({ pages, fonts: fontInfo } = await inspectPdf(result.pdf));
-  });
+    // One render with its booklet, read back once for every check below; generous for a shared CI machine.
+  }, 30_000);
 
   it('has the booklet, then the template sheets, then the piece templates, as counted', () => {
     expect(pages.length).toBe(result.sheetCount);
