@@ -5,7 +5,7 @@ import { matchingMarks } from '../fabrication/matching-marks/index';
 import { expandRingRepeat } from '../geometry/index';
 import { withRingEdgesAsCurves } from './follow-ring-edges';
 import { checkJoiningPlan, defaultJoiningPlan, resolveJoiningPlan } from './index';
-import { documentOf, notchedU, straightSection, threeRhombi } from './joining-test-patterns';
+import { documentOf, notchedU, squareGrid, straightSection, threeRhombi } from './joining-test-patterns';
 
 const dist = (a: Point, b: Point) => Math.hypot(a.x - b.x, a.y - b.y);
 
@@ -128,6 +128,18 @@ describe('defaultJoiningPlan: Garden Gate', () => {
       ['Join A to B', { toward: 'gate' }, 'Press the seam toward B'],
       ['Join unit 1 (A, B) to C', { open: true }, 'Press the seam open'],
     ]);
+  });
+});
+
+describe('defaultJoiningPlan: blocks of squares', () => {
+  it.each([3, 4, 5])('joins a square grid of square sections, %i to a side, without an inset, into one unit', (n) => {
+    const doc = squareGrid(n);
+    const resolved = resolveJoiningPlan(doc);
+    expect(resolved.problems).toEqual([]);
+    // n² sections take n² − 1 joins, every one a single straight seam.
+    expect(resolved.steps).toHaveLength(n * n - 1);
+    expect(resolved.steps.every((s) => s.seam.kind === 'straight' && s.seam.paths.length === 1)).toBe(true);
+    expect(resolved.steps.at(-1)!.result.sectionIds).toHaveLength(n * n);
   });
 });
 

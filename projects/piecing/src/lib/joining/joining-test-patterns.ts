@@ -59,3 +59,13 @@ export function notchedU(): PatternDocument {
     4,
   );
 }
+
+/** An n × n grid of 2 in. square sections, lettered A, B … row by row (a pieced block of squares). */
+export function squareGrid(n: number): PatternDocument {
+  const letter = (i: number): string => (i < 26 ? String.fromCharCode(65 + i) : letter(Math.floor(i / 26) - 1) + String.fromCharCode(65 + (i % 26)));
+  return documentOf(
+    Array.from({ length: n * n }, (_, k) => straightSection(`s${k}`, letter(k), r((k % n) * 2, Math.floor(k / n) * 2, (k % n) * 2 + 2, Math.floor(k / n) * 2 + 2))),
+    2 * n,
+    2 * n,
+  );
+}

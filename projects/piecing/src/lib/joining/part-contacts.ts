@@ -61,8 +61,32 @@ type PairContact = EdgeInterval[];
  */
 export class ContactFinder {
   private readonly cache = new Map<string, PairContact>();
+  private adjacency?: number[][];
+  private readonly memberSets = new WeakMap<readonly number[], Set<number>>();
 
   constructor(readonly instances: readonly SectionInstance[]) {}
+
+  /** The copies whose bounds come within touching distance of copy `i` (found once for all, by a sweep along x). */
+  neighbours(i: number): readonly number[] {
+    if (!this.adjacency) {
+      const t = JOIN_TOLERANCES.TOUCH_IN;
+      const adjacency: number[][] = this.instances.map(() => []);
+      const order = this.instances.map((_, k) => k).sort((a, b) => this.instances[a].bounds.minX - this.instances[b].bounds.minX);
+      for (let x = 0; x < order.length; x++) {
+        const a = order[x];
+        const maxX = this.instances[a].bounds.maxX + t;
+        for (let y = x + 1; y < order.length && this.instances[order[y]].bounds.minX <= maxX; y++) {
+          const b = order[y];
+          if (this.near(a, b)) {
+            adjacency[a].push(b);
+            adjacency[b].push(a);
+          }
+        }
+      }
+      this.adjacency = adjacency;
+    }
+    return this.adjacency[i];
+  }
 
   /** Whether the bounds of two copies come within touching distance. */
   near(i: number, j: number): boolean {
@@ -72,11 +96,18 @@ export class ContactFinder {
     return a.minX <= b.maxX + t && b.minX <= a.maxX + t && a.minY <= b.maxY + t && b.minY <= a.maxY + t;
   }
 
-  /** The shared stretches between the parts made of copies `a` and copies `b`, as paths on a's side. */
+  /**
+   * The shared stretches between the parts made of copies `a` and copies `b`, as paths along the edge of
+   * the part with fewer copies (both parts' edges run together there, within TOUCH_IN).
+   */
   contact(a: readonly number[], b: readonly number[]): ContactPaths {
+    if (b.length < a.length) [a, b] = [b, a];
     const segments: Array<[Point, Point]> = [];
+    // The larger part is often the unit grown so far, asked about again and again: keep its set.
+    let inB = this.memberSets.get(b);
+    if (!inB) this.memberSets.set(b, (inB = new Set(b)));
     for (const i of a) {
-      const near = b.filter((j) => j !== i && this.near(i, j));
+      const near = this.neighbours(i).filter((j) => inB.has(j));
       if (near.length === 0) continue;
       const intervals: EdgeInterval[] = [];
       for (const j of near) intervals.push(...this.pair(i, j));

@@ -155,7 +155,8 @@ function joinStep(
   if (step.a === step.b) report('reused-part', `it joins ${a?.part.label ?? step.a} to itself.`);
   const partA = a?.part ?? { id: step.a, label: step.a, sectionIds: [] };
   const partB = b?.part ?? { id: step.b, label: step.b, sectionIds: [] };
-  const sectionIds = [...ctx.sections.keys()].filter((id) => partA.sectionIds.includes(id) || partB.sectionIds.includes(id));
+  const held = new Set([...partA.sectionIds, ...partB.sectionIds]);
+  const sectionIds = [...ctx.sections.keys()].filter((id) => held.has(id));
   const labels = sectionIds.map((id) => ctx.sections.get(id)!.section.label);
   const result: JoinPart = { id: step.id, label: `unit ${number} (${labels.join(', ')})`, sectionIds };
   const press: JoinPress = step.press === 'open' ? { open: true } : { toward: step.press === 'a' ? partA.id : partB.id };
@@ -209,15 +210,25 @@ function checkContact(ctx: JoiningContext, contact: ContactPaths, a: readonly nu
   if (lonely) report('marks-mismatch', `a matching mark on the curved seam between ${parts} at ${formatPoint(lonely)} has no twin on the other side.`, lonely);
 }
 
+// Pairs of copies whose outlines are compared point by point when looking for the gap between two parts.
+const GAP_PAIRS = 6;
+
+/** Where two parts come nearest (between outline points of the copies whose bounds are nearest), for the message. */
 function nearestGap(ctx: JoiningContext, a: readonly number[], b: readonly number[]): { distance: number; point: Point } {
+  const boxGap = (i: number, j: number) => {
+    const p = ctx.instances[i].bounds;
+    const q = ctx.instances[j].bounds;
+    return Math.hypot(Math.max(0, p.minX - q.maxX, q.minX - p.maxX), Math.max(0, p.minY - q.maxY, q.minY - p.maxY));
+  };
+  const pairs: Array<[number, number, number]> = [];
+  for (const i of a) for (const j of b) pairs.push([boxGap(i, j), i, j]);
+  pairs.sort((x, y) => x[0] - y[0]);
   let best = { distance: Infinity, point: { x: 0, y: 0 } };
-  for (const i of a) {
-    for (const j of b) {
-      for (const p of ctx.instances[i].ring) {
-        for (const q of ctx.instances[j].ring) {
-          const d = Math.hypot(p.x - q.x, p.y - q.y);
-          if (d < best.distance) best = { distance: d, point: { x: (p.x + q.x) / 2, y: (p.y + q.y) / 2 } };
-        }
+  for (const [, i, j] of pairs.slice(0, GAP_PAIRS)) {
+    for (const p of ctx.instances[i].ring) {
+      for (const q of ctx.instances[j].ring) {
+        const d = Math.hypot(p.x - q.x, p.y - q.y);
+        if (d < best.distance) best = { distance: d, point: { x: (p.x + q.x) / 2, y: (p.y + q.y) / 2 } };
       }
     }
   }
