@@ -8,7 +8,8 @@ export interface RenderTask {
   document: unknown;
   /** Print options (JSON, validated again in the worker by the piecing schema). */
   options: unknown;
-  fonts: { regular: Uint8Array; bold: Uint8Array; fallback?: Uint8Array };
+  /** Roboto, and the fallback fonts for characters it lacks (fonts/README.md). */
+  fonts: { regular: Uint8Array; bold: Uint8Array; fallbacks: Uint8Array[] };
   /** Progress goes back through this port (transferred with the task). */
   progress: MessagePort;
   /**

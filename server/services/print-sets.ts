@@ -149,6 +149,8 @@ export class PrintSetService {
     this.fonts ??= {
       regular: new Uint8Array(fs.readFileSync(new URL('Roboto-Regular.ttf', FONTS_DIR))),
       bold: new Uint8Array(fs.readFileSync(new URL('Roboto-Bold.ttf', FONTS_DIR))),
+      // For characters Roboto lacks, in this order (fonts/README.md).
+      fallbacks: ['DroidSansFallback-Japanese.ttf', 'NotoSansArabic-Regular.ttf'].map((f) => new Uint8Array(fs.readFileSync(new URL(f, FONTS_DIR)))),
     };
     return this.fonts;
   }

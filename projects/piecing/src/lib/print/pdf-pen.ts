@@ -2,6 +2,7 @@ import type { jsPDF } from 'jspdf';
 import type { Point } from '../document/index';
 import { POINTS_PER_INCH, type RectIn } from './paper';
 import type { PrintFonts } from './print-options';
+import { FALLBACK_FAMILY_PREFIX, FontFallback } from './font-fallback';
 
 /** Family name the shipped TrueType fonts are registered under in the PDF. */
 export const PDF_FONT_FAMILY = 'Roboto';
@@ -32,7 +33,12 @@ const pt = (inches: number): number => inches * POINTS_PER_INCH;
  * embedded TrueType fonts. Each polygon or polyline is one path (m … l … h) and one paint operator.
  */
 export class PdfPen {
-  constructor(readonly doc: jsPDF) {}
+  /** Fonts for the characters the main one lacks (Japanese, Arabic …), when the document has them. */
+  private readonly fallback: FontFallback;
+
+  constructor(readonly doc: jsPDF) {
+    this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
+  }
 
   /** Strokes a polyline, closed when asked. */
   polyline(points: readonly Point[], closed: boolean, style: StrokeStyle): void {
@@ -84,7 +90,20 @@ export class PdfPen {
 
   /** Text at a point. */
   text(value: string | string[], at: Point, style: TextStyle): void {
-    this.doc.setFont(PDF_FONT_FAMILY, style.bold ? 'bold' : 'normal');
+    const bold = style.bold ?? false;
+    const lines = typeof value === 'string' ? [value] : value;
+    if (lines.some((line) => !this.fallback.mainCovers(line, bold))) {
+      // Line by line, each in runs of the fonts that have its characters (font-fallback.ts).
+      const stepIn = (style.sizePt * this.doc.getLineHeightFactor()) / POINTS_PER_INCH;
+      const turn = ((style.angleDeg ?? 0) * Math.PI) / 180;
+      lines.forEach((line, k) => {
+        // Lines go down the page, turned with the text (a counter-clockwise turn on the page, y down).
+        const start = { x: at.x + k * stepIn * Math.sin(turn), y: at.y + k * stepIn * Math.cos(turn) };
+        this.textRuns(line, start, style, turn);
+      });
+      return;
+    }
+    this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
     this.doc.setFontSize(style.sizePt);
     this.doc.setTextColor(style.colour ?? '#000000');
     this.doc.text(value, pt(at.x), pt(at.y), {
@@ -94,8 +113,37 @@ export class PdfPen {
     });
   }
 
+  /** One line in runs of fonts, placed one after another along the line's direction. */
+  private textRuns(line: string, at: Point, style: TextStyle, turn: number): void {
+    const bold = style.bold ?? false;
+    const runs = this.fallback.runs(line, bold);
+    const widths = runs.map((r) => this.runWidth(r.text, r.family, style.sizePt, bold));
+    const total = widths.reduce((a, b) => a + b, 0);
+    const align = style.align ?? 'left';
+    let offset = align === 'center' ? -total / 2 : align === 'right' ? -total : 0;
+    this.doc.setTextColor(style.colour ?? '#000000');
+    runs.forEach((run, i) => {
+      this.doc.setFont(run.family, bold ? 'bold' : 'normal');
+      this.doc.setFontSize(style.sizePt);
+      this.doc.text(run.text, pt(at.x + offset * Math.cos(turn)), pt(at.y - offset * Math.sin(turn)), {
+        baseline: style.baseline ?? 'alphabetic',
+        ...(style.angleDeg ? { angle: style.angleDeg } : {}),
+      });
+      offset += widths[i];
+    });
+  }
+
+  private runWidth(text: string, family: string, sizePt: number, bold: boolean): number {
+    this.doc.setFont(family, bold ? 'bold' : 'normal');
+    this.doc.setFontSize(sizePt);
+    return this.doc.getTextWidth(text) / POINTS_PER_INCH;
+  }
+
   /** Width of a text in inches at a size and weight. */
   textWidth(value: string, sizePt: number, bold = false): number {
+    if (!this.fallback.mainCovers(value, bold)) {
+      return this.fallback.runs(value, bold).reduce((sum, r) => sum + this.runWidth(r.text, r.family, sizePt, bold), 0);
+    }
     this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
     this.doc.setFontSize(sizePt);
     return this.doc.getTextWidth(value) / POINTS_PER_INCH;
@@ -125,8 +173,12 @@ export class PdfPen {
   }
 }
 
-/** Registers the shipped TrueType fonts (regular and bold) with a jsPDF document. */
-export function embedFonts(doc: jsPDF, fonts: PrintFonts): void {
+/**
+ * Registers the shipped TrueType fonts (regular and bold) with a jsPDF document, and any fallback fonts
+ * (for characters Roboto lacks: fonts/README.md) as families `SwFallback0`, `SwFallback1`, … used for both
+ * weights.
+ */
+export function embedFonts(doc: jsPDF, fonts: PrintFonts & { fallbacks?: readonly Uint8Array[] }): void {
   const files: Array<[string, Uint8Array, 'normal' | 'bold']> = [
     ['Roboto-Regular.ttf', fonts.regular, 'normal'],
     ['Roboto-Bold.ttf', fonts.bold, 'bold'],
@@ -138,6 +190,11 @@ export function embedFonts(doc: jsPDF, fonts: PrintFonts): void {
     doc.addFileToVFS(name, binaryString(bytes));
     doc.addFont(name, PDF_FONT_FAMILY, style, undefined, 'Identity-H');
   }
+  (fonts.fallbacks ?? []).forEach((bytes, i) => {
+    const name = `${FALLBACK_FAMILY_PREFIX}${i}.ttf`;
+    doc.addFileToVFS(name, binaryString(bytes));
+    for (const style of ['normal', 'bold'] as const) doc.addFont(name, `${FALLBACK_FAMILY_PREFIX}${i}`, style, undefined, 'Identity-H');
+  });
   doc.setFont(PDF_FONT_FAMILY, 'normal');
 }
 
