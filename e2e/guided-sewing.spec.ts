@@ -119,6 +119,10 @@ test('guided sewing on a phone and a tablet, light and dark', async ({ browser }
       const guided = new GuidedSewingPage(p);
       await guided.goto(id);
       await expect(guided.stepHeading()).toHaveText('Step 1 of 4: add B1');
+      // The app keeps the theme last chosen; choose the one to look at.
+      const other = p.getByRole('button', { name: `Use ${colorScheme} theme` });
+      if (await other.isVisible()) await other.click();
+      await expect(p.getByRole('button', { name: `Use ${colorScheme === 'dark' ? 'light' : 'dark'} theme` })).toBeVisible();
       await guided.press('ArrowRight');
       await expect(guided.stepHeading()).toHaveText('Step 2 of 4: add B2');
       // Touch targets: the step buttons are at least 44 px high.
