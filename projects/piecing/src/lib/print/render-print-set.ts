@@ -227,7 +227,9 @@ function contentsOf(headings: readonly PageHeading[]): ContentsEntry[] {
   headings.forEach((h, i) => {
     const title = h.sheet ? 'Foundation templates' : h.subtitle;
     const last = out[out.length - 1];
-    if (last && last.title === title && last.lastSheet === i) last.lastSheet = i + 1;
+    // A part that began below another ("Fabric requirements · Cutting instructions") runs on with its own title.
+    const runsOn = last && last.lastSheet === i && (last.title === title || last.title.endsWith(` · ${title}`));
+    if (runsOn) last.lastSheet = i + 1;
     else out.push({ title, firstSheet: i + 1, lastSheet: i + 1 });
   });
   return out;
