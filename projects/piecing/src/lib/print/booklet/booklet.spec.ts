@@ -7,6 +7,7 @@ import { buildPieceTemplates } from '../piece-templates/build-piece-templates';
 import { inspectPdf, type PdfPageInfo, type PdfPath } from '../testing/pdf-inspect';
 import { readShippedFonts, unsewableStrip } from '../testing/print-test-fixtures';
 import { resolveJoiningPlan } from '../../joining/index';
+import { TRIMMING_RULE } from './draw-trimming';
 import { finishedBlockSize } from './finished-size';
 import { UnsewablePatternError } from './unsewable-sections';
 
@@ -73,6 +74,13 @@ describe('the booklet of "Orchard Wheel" with designer\'s notes', () => {
     const withA = result.layout.sheets.filter((s) => s.sectionLabels.includes('A')).map((s) => templates[s.pageNumber - result.bookletSheetCount - 1]);
     expect(withA.length).toBeGreaterThan(0);
     for (const page of withA) expect(page.text.join(' ')).toContain(`Section A — designer's note: ${noteA}`);
+  });
+
+  it('says how to trim: straight edges with a ruler, curved edges with scissors, section by section', () => {
+    expect(booklet).toContain(TRIMMING_RULE);
+    // B is an arc section (5–8 in.); D's inner edge follows the 11 in. circle as chords (docs/design-notes.md#demo-data).
+    expect(booklet).toContain('B: the inner and outer edges are curved');
+    expect(booklet).toContain('D: one or more edges follow a curve');
   });
 
   it('states the copies rule with its figures on the cover', () => {
