@@ -10,6 +10,7 @@ import { PatternEditorComponent } from './pattern-editor.component';
 @Component({ selector: 'sw-drafting-board', template: '' })
 class BoardStub {
   readonly referenceImageUrl = input<string | null | undefined>(null);
+  readonly highlight = input<unknown>(null);
 }
 
 @Component({
