@@ -128,18 +128,18 @@ export function patternsRouter(ctx: AppContext): Router {
   router.delete('/:id', async (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     if (!pattern.trashedAt) throw new HttpError(409, 'Move the pattern to the trash before deleting it for good');
-    const files = db.transaction(
+    const { files, setIds } = db.transaction(
       (tx) => {
-        const paths = [
-          ...tx.select({ p: uploads.storagePath }).from(uploads).where(eq(uploads.patternId, pattern.id)).all(),
-          ...tx.select({ p: printSets.storagePath }).from(printSets).where(eq(printSets.patternId, pattern.id)).all(),
-        ].map((r) => r.p);
+        const sets = tx.select({ id: printSets.id, p: printSets.storagePath }).from(printSets).where(eq(printSets.patternId, pattern.id)).all();
+        const paths = [...tx.select({ p: uploads.storagePath }).from(uploads).where(eq(uploads.patternId, pattern.id)).all(), ...sets].map((r) => r.p);
         // Revisions, members, invitations, sewing log, uploads and print-set rows go by cascade.
         tx.delete(patterns).where(eq(patterns.id, pattern.id)).run();
-        return paths;
+        return { files: paths, setIds: sets.map((s) => s.id) };
       },
       { behavior: 'immediate' },
     );
+    // Their renders stop too (a queued set leaves its queue); nothing of theirs is stored.
+    for (const id of setIds) ctx.printSets.cancel(id);
     await removeStoredFiles(config.dataDir, files);
     res.status(204).end();
   });

@@ -18,6 +18,13 @@ const WORKER_FILE = new URL('../print/worker-bootstrap.mjs', import.meta.url).hr
 /** How long a deleted set's render may take to reach its next sheet before its worker is stopped. */
 const CANCEL_GRACE_MS = 2000;
 
+/** Progress is written at most this often per set: each write costs a commit (and disk space). */
+const PROGRESS_INTERVAL_MS = 500;
+
+/** First and longest wait before writing a set's end ("done" or "failed") again after the write failed. */
+const END_RETRY_FIRST_MS = 250;
+const END_RETRY_MAX_MS = 5000;
+
 /** A set rendering in the pool. */
 interface Running {
   userId: string;
@@ -28,6 +35,17 @@ interface Running {
   timer?: NodeJS.Timeout;
   /** Why the render was aborted, when it was. */
   abortReason?: string;
+  /** When progress was last written. */
+  progressAt?: number;
+}
+
+/** An end state ("done" or "failed") whose write failed (a full disk): written again until it is stored. */
+interface UnstoredEnd {
+  values: Partial<PrintSet>;
+  waitMs: number;
+  timer?: NodeJS.Timeout;
+  /** Files to remove when the set turns out to be gone. */
+  orphanPaths?: string[];
 }
 
 /**
@@ -53,6 +71,8 @@ export class PrintSetService {
   private closed = false;
   private readonly idle = new Set<() => void>();
   private readonly pending = new Set<Promise<void>>();
+  /** End states not yet stored, by set id (docs/api.md: a set never stays "rendering"). */
+  private readonly unstoredEnds = new Map<string, UnstoredEnd>();
 
   constructor(
     private readonly db: Db,
@@ -133,6 +153,12 @@ export class PrintSetService {
     await Promise.allSettled([...this.pending]);
     await this.pool?.destroy();
     this.pool = undefined;
+    // One last try at ends not yet stored; a set still left "rendering" is rendered again at start-up.
+    for (const [setId, entry] of this.unstoredEnds) {
+      clearTimeout(entry.timer);
+      this.tryUpdate(setId, entry.values);
+    }
+    this.unstoredEnds.clear();
   }
 
   private isIdle(): boolean {
@@ -195,6 +221,7 @@ export class PrintSetService {
     const run: Running = { userId, cancel: new Int32Array(new SharedArrayBuffer(4)), abort: new AbortController() };
     this.running.set(setId, run);
     this.update(setId, { status: 'rendering', progress: 0 });
+    run.progressAt = Date.now();
     // A render that never ends (a bug, a hostile document) must not hold a thread: stop its worker.
     run.timer = setTimeout(
       () => this.abort(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`),
@@ -204,7 +231,11 @@ export class PrintSetService {
     const channel = new MessageChannel();
     channel.port1.on('message', (p: RenderProgress) => {
       // Cover and appendix are steps too; keep 1.0 for "stored".
-      if (this.running.get(setId) === run && Atomics.load(run.cancel, 0) === 0) this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
+      if (this.running.get(setId) !== run || Atomics.load(run.cancel, 0) !== 0) return;
+      const now = Date.now();
+      if (run.progressAt !== undefined && now - run.progressAt < PROGRESS_INTERVAL_MS) return;
+      run.progressAt = now;
+      this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
     });
     channel.port1.unref();
     const task: RenderTask = {
@@ -258,22 +289,76 @@ export class PrintSetService {
       this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
       return;
     }
-    const updated = this.update(setId, {
-      status: 'done',
-      progress: 1,
-      sheets: m.sheetCount,
-      templateSheets: m.templateSheetCount,
-      lowerBoundSheets: m.lowerBoundSheets,
-      bytes: pdf.byteLength,
-      sha256: sha256Hex(pdf),
-      storagePath,
-      finishedAt: new Date(),
-    });
-    if (!updated) await removeStoredFiles(this.config.dataDir, [storagePath]);
+    this.end(
+      setId,
+      {
+        status: 'done',
+        progress: 1,
+        sheets: m.sheetCount,
+        templateSheets: m.templateSheetCount,
+        lowerBoundSheets: m.lowerBoundSheets,
+        bytes: pdf.byteLength,
+        sha256: sha256Hex(pdf),
+        storagePath,
+        finishedAt: new Date(),
+      },
+      [storagePath],
+    );
   }
 
   private fail(setId: string, message: string): void {
-    this.update(setId, { status: 'failed', error: message.slice(0, 500), finishedAt: new Date() });
+    this.end(setId, { status: 'failed', error: message.slice(0, 500), finishedAt: new Date() });
+  }
+
+  /**
+   * Writes a set's end state. When the write fails (a full disk: the set's own progress writes may have
+   * used the last room), the end is kept and written again with growing waits until it is stored, so a
+   * set never stays "rendering" once there is room again. A set deleted meanwhile has its files removed.
+   */
+  private end(setId: string, values: Partial<PrintSet>, orphanPaths: string[] = []): void {
+    const stored = this.tryUpdate(setId, values);
+    if (stored === 'gone') {
+      if (orphanPaths.length > 0) void removeStoredFiles(this.config.dataDir, orphanPaths);
+      return;
+    }
+    if (stored === 'stored') return;
+    const previous = this.unstoredEnds.get(setId);
+    if (previous) clearTimeout(previous.timer);
+    const entry: UnstoredEnd = { values, waitMs: END_RETRY_FIRST_MS, orphanPaths };
+    this.unstoredEnds.set(setId, entry);
+    this.scheduleEndRetry(setId, entry);
+  }
+
+  private scheduleEndRetry(setId: string, entry: UnstoredEnd): void {
+    entry.timer = setTimeout(() => {
+      if (this.unstoredEnds.get(setId) !== entry) return;
+      const stored = this.tryUpdate(setId, entry.values);
+      if (stored === 'failed') {
+        entry.waitMs = Math.min(END_RETRY_MAX_MS, entry.waitMs * 2);
+        this.scheduleEndRetry(setId, entry);
+        return;
+      }
+      this.unstoredEnds.delete(setId);
+      if (stored === 'gone' && entry.orphanPaths?.length) void removeStoredFiles(this.config.dataDir, entry.orphanPaths);
+    }, entry.waitMs);
+    entry.timer.unref();
+  }
+
+  /** Sets whose end is known but not yet stored (a full disk), for tests. */
+  get unstoredEndCount(): number {
+    return this.unstoredEnds.size;
+  }
+
+  private tryUpdate(setId: string, values: Partial<PrintSet>): 'stored' | 'gone' | 'failed' {
+    try {
+      const row = this.db.update(printSets).set(values).where(eq(printSets.id, setId)).returning().get();
+      if (!row) return 'gone';
+      this.events.emit('update', row);
+      return 'stored';
+    } catch (err) {
+      this.log('print set end could not be written yet (written again shortly)', err);
+      return 'failed';
+    }
   }
 
   private update(setId: string, values: Partial<PrintSet>): PrintSet | undefined {
