@@ -18,9 +18,6 @@ const WORKER_FILE = new URL('../print/worker-bootstrap.mjs', import.meta.url).hr
 /** How long a deleted set's render may take to reach its next sheet before its worker is stopped. */
 const CANCEL_GRACE_MS = 2000;
 
-/** Progress is written at most this often per set: each write costs a commit (and disk space). */
-const PROGRESS_INTERVAL_MS = 500;
-
 /** First and longest wait before writing a set's end ("done" or "failed") again after the write failed. */
 const END_RETRY_FIRST_MS = 250;
 const END_RETRY_MAX_MS = 5000;
@@ -35,8 +32,6 @@ interface Running {
   timer?: NodeJS.Timeout;
   /** Why the render was aborted, when it was. */
   abortReason?: string;
-  /** When progress was last written. */
-  progressAt?: number;
 }
 
 /** An end state ("done" or "failed") whose write failed (a full disk): written again until it is stored. */
@@ -221,7 +216,6 @@ export class PrintSetService {
     const run: Running = { userId, cancel: new Int32Array(new SharedArrayBuffer(4)), abort: new AbortController() };
     this.running.set(setId, run);
     this.update(setId, { status: 'rendering', progress: 0 });
-    run.progressAt = Date.now();
     // A render that never ends (a bug, a hostile document) must not hold a thread: stop its worker.
     run.timer = setTimeout(
       () => this.abort(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`),
@@ -231,11 +225,7 @@ export class PrintSetService {
     const channel = new MessageChannel();
     channel.port1.on('message', (p: RenderProgress) => {
       // Cover and appendix are steps too; keep 1.0 for "stored".
-      if (this.running.get(setId) !== run || Atomics.load(run.cancel, 0) !== 0) return;
-      const now = Date.now();
-      if (run.progressAt !== undefined && now - run.progressAt < PROGRESS_INTERVAL_MS) return;
-      run.progressAt = now;
-      this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
+      if (this.running.get(setId) === run && Atomics.load(run.cancel, 0) === 0) this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
     });
     channel.port1.unref();
     const task: RenderTask = {

@@ -34,7 +34,9 @@ describe('seamwright cutting-list', () => {
     // The strips of a strip set are listed under its name, never its id ("centre-stripe").
     expect(out).toContain('  Centre stripe, strip 2: 1 strip 1 ½ in. × WOF');
     expect(out).not.toContain('centre-stripe');
-    expect(out).toContain('C: sewn 16 times; print 16 on paper or 1 on freezer paper');
+    // C has 4 patches: a freezer-paper template pressed 16 times lasts floor(16 / 4) = 4 sections, so
+    // 16 sewings take 4 prints (docs/design-notes.md#copies; 16 pressings is common practice).
+    expect(out).toContain('C: sewn 16 times; print 16 on paper or 4 on freezer paper');
     expect(out).toContain('rotary cutters are very sharp');
   });
 

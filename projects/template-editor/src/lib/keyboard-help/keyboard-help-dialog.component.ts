@@ -10,7 +10,8 @@ import { BOARD_KEYS } from './board-keys';
   imports: [MatDialogModule, MatButtonModule],
   template: `
     <h2 mat-dialog-title>Keys of the Drafting board</h2>
-    <mat-dialog-content>
+    <!-- The list may scroll on a small screen: the region takes focus so keys can scroll it. -->
+    <mat-dialog-content tabindex="0" aria-label="Board keys">
       <p>Focus the board (Tab) to use them. Sections and patches can also be picked from the Sections outline.</p>
       <table>
         <caption class="cdk-visually-hidden">Board keys</caption>
