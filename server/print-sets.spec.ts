@@ -3,9 +3,10 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { misnumberedStrip } from '../tests/fixtures/documents';
 import { manySheetsDocument } from '../tests/support/documents';
 import { MAX_PRINT_SHEETS } from './print/print-budget';
-import { TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
 let owner: Client;
@@ -152,26 +153,8 @@ describe('print sets', () => {
   });
 
   it('refuses a pattern with a section not sewable as numbered (422, the reason), and queues it when the request prints anyway', async () => {
-    // Three patches in a row numbered left (1), right (2), middle (3): patch 2 shares no seam with patch 1. Invented.
-    const document = {
-      ...sampleDocument('Misnumbered'),
-      sections: [
-        {
-          id: 'a',
-          label: 'A',
-          geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
-          seams: [
-            { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
-            { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
-          ],
-          patches: [
-            { number: 1, anchor: { x: 0.5, y: 0.5 } },
-            { number: 2, anchor: { x: 2.5, y: 0.5 } },
-            { number: 3, anchor: { x: 1.5, y: 0.5 } },
-          ],
-        },
-      ],
-    };
+    const document = misnumberedStrip('Misnumbered');
+
     const created = await owner.post('/api/patterns', { document }).expect(201);
     const id: string = created.body.pattern.id;
     const refused = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(422);

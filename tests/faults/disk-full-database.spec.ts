@@ -20,6 +20,7 @@ import { ApiClient, newCredentials, signedInClient, type ApiResponse } from '../
 import { withReadOnlyDatabase } from '../support/database-check';
 import { gridDocument } from '../support/documents';
 import { buildWorld, TINY_PNG, uploadForm } from '../support/fixtures';
+import { fillDisk } from '../support/fill-disk';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
 
 let server: ServerProcess | undefined;
@@ -58,27 +59,6 @@ function storedFiles(dataDir: string): string[] {
   return out.filter((f) => !f.startsWith('seamwright.db') && f !== 'filler').sort();
 }
 
-/** Writes a filler file until the file system answers ENOSPC (big chunks first, then single bytes). */
-function fillDisk(file: string): number {
-  const fd = fs.openSync(file, 'w');
-  let written = 0;
-  try {
-    for (const size of [1 << 20, 1 << 16, 1 << 12, 1]) {
-      const chunk = Buffer.alloc(size, 0x5a);
-      for (;;) {
-        try {
-          written += fs.writeSync(fd, chunk);
-        } catch (err) {
-          if ((err as NodeJS.ErrnoException).code !== 'ENOSPC') throw err;
-          break;
-        }
-      }
-    }
-  } finally {
-    fs.closeSync(fd);
-  }
-  return written;
-}
 
 describe('the disk holding the database is full', () => {
   it('every write route answers 507 "nothing was stored" and the database is unchanged', async () => {

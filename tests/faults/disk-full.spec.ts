@@ -24,6 +24,7 @@ import { signedInClient } from '../support/api-client';
 import { checkDatabase, listFiles, sha256OfFile, withReadOnlyDatabase } from '../support/database-check';
 import { gridDocument, manySheetsDocument } from '../support/documents';
 import { answerProblem, expectCleanAnswer, TINY_PNG, uploadForm } from '../support/fixtures';
+import { fillDisk } from '../support/fill-disk';
 import { startServerProcess, waitForHealth, type ServerProcess } from '../support/server-process';
 
 const started: ServerProcess[] = [];
@@ -264,27 +265,6 @@ describe('print sets on a full disk', () => {
   });
 });
 
-/** Writes a filler file until the file system answers ENOSPC (big chunks first, then single bytes); returns its size. */
-function fillDisk(file: string): number {
-  const fd = fs.openSync(file, 'w');
-  let written = 0;
-  try {
-    for (const size of [1 << 20, 1 << 16, 1 << 12, 1]) {
-      const chunk = Buffer.alloc(size, 0x5a);
-      for (;;) {
-        try {
-          written += fs.writeSync(fd, chunk);
-        } catch (err) {
-          if ((err as NodeJS.ErrnoException).code !== 'ENOSPC') throw err;
-          break;
-        }
-      }
-    }
-  } finally {
-    fs.closeSync(fd);
-  }
-  return written;
-}
 
 /** Polls a print set until it is done or failed (bounded: 3 minutes unless told). */
 async function settle(client: Awaited<ReturnType<typeof signedInClient>>['client'], patternId: string, setId: string, withinMs = 180_000) {

@@ -4,39 +4,11 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { misnumberedStrip } from '../../../../tests/fixtures/documents';
 import { runCliCollecting } from '../testing/run-cli-collecting';
 
 const repoRoot = fileURLToPath(new URL('../../../..', import.meta.url));
 
-/**
- * A 3 × 1 in. strip of three patches numbered left (1), right (2), middle (3): patch 2 shares no seam
- * with patch 1, so the section is not sewable as numbered. Invented for this test.
- */
-const MISNUMBERED_STRIP = {
-  formatVersion: 2,
-  title: 'Misnumbered strip',
-  canvas: { widthIn: 4, heightIn: 2 },
-  fabrics: [
-    { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-    { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-  ],
-  sections: [
-    {
-      id: 'a',
-      label: 'A',
-      geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
-      seams: [
-        { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
-        { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
-      ],
-      patches: [
-        { number: 1, anchor: { x: 0.5, y: 0.5 }, fabricId: 'plum' },
-        { number: 2, anchor: { x: 2.5, y: 0.5 }, fabricId: 'plum' },
-        { number: 3, anchor: { x: 1.5, y: 0.5 }, fabricId: 'oat' },
-      ],
-    },
-  ],
-};
 
 /** The text of every page, read back with pdfjs-dist. */
 async function pageTexts(data: Uint8Array): Promise<string[]> {
@@ -104,7 +76,7 @@ describe('seamwright print', () => {
 
   it('refuses a pattern with a section not sewable as numbered (exit 1, the reason on stderr) unless --print-unsewable', async () => {
     const pattern = join(dir, 'misnumbered.json');
-    await writeFile(pattern, JSON.stringify(MISNUMBERED_STRIP));
+    await writeFile(pattern, JSON.stringify(misnumberedStrip()));
     const out = join(dir, 'misnumbered.pdf');
     const refused = await run('print', pattern, '--out', out);
     expect(refused.code).toBe(1);

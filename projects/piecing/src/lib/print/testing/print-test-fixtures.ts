@@ -3,6 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { readPatternDocument, type PatternDocument, type Point } from '../../document/index';
 import { degToRad, pointOnCircle } from '../../geometry/index';
 import type { PrintFonts } from '../print-options';
+import { misnumberedStrip } from '../../../../../../tests/fixtures/documents';
 
 /*
  * Test-only helpers (never exported from the library): the shipped fonts read from disk, and small
@@ -111,34 +112,7 @@ export function testMedallion(): PatternDocument {
   });
 }
 
-/**
- * A 3 × 1 in. strip of three patches, left, middle and right, numbered 1 (left), 2 (right), 3 (middle):
- * patch 2 shares no seam with patch 1, so the section is not sewable as numbered. Invented for tests.
- */
+/** The misnumbered strip of the shared fixtures (A2 shares no seam with A1): not sewable as numbered. */
 export function unsewableStrip(): PatternDocument {
-  return readPatternDocument({
-    formatVersion: 2,
-    title: 'Misnumbered strip',
-    canvas: { widthIn: 4, heightIn: 2 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'a',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
-        seams: [
-          { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
-          { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
-        ],
-        patches: [
-          { number: 1, anchor: { x: 0.5, y: 0.5 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 2.5, y: 0.5 }, fabricId: 'plum' },
-          { number: 3, anchor: { x: 1.5, y: 0.5 }, fabricId: 'oat' },
-        ],
-      },
-    ],
-  });
+  return readPatternDocument(misnumberedStrip());
 }
