@@ -1,15 +1,13 @@
 import { count, desc, eq, or, sql } from 'drizzle-orm';
 import express, { type RequestHandler, type Router } from 'express';
-import { userChangeBodySchema } from '@seamwright/api';
-import { z } from 'zod';
+import { searchPageQuerySchema, userChangeBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, endUserSessions, publicUser, requireUser } from '../auth/sessions';
 import { users } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { likeContains, pagingQuery } from '../http/paging';
+import { likeContains } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 
-const listQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
 
 const requireAdmin: RequestHandler = (req, _res, next) => {
   next(currentUser(req).role === 'admin' ? undefined : new HttpError(403, 'Only administrators can do this'));
@@ -22,7 +20,7 @@ export function adminRouter(ctx: AppContext): Router {
   router.use(requireUser, requireAdmin);
 
   router.get('/users', (req, res) => {
-    const q = parseOr400(listQuery, req.query, 'Invalid query');
+    const q = parseOr400(searchPageQuerySchema, req.query, 'Invalid query');
     const where = q.q
       ? or(sql`${users.email} LIKE ${likeContains(q.q)} ESCAPE '\\'`, sql`${users.displayName} LIKE ${likeContains(q.q)} ESCAPE '\\'`)
       : undefined;

@@ -1,14 +1,12 @@
 import fs from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { createPatternBodySchema, duplicateBodySchema, saveRevisionBodySchema } from '@seamwright/api';
-import { z } from 'zod';
+import { createPatternBodySchema, duplicateBodySchema, patternListQuerySchema, saveRevisionBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
 import { patterns, printSets, uploads } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { canDesign } from '../services/access';
@@ -24,14 +22,6 @@ import {
   validDocument,
 } from '../services/revisions';
 
-const listQuery = z.strictObject({
-  ...pagingQuery,
-  q: z.string().trim().max(120).optional(),
-  sort: z.enum(['updated', 'created', 'title']).default('updated'),
-  order: z.enum(['asc', 'desc']).default('desc'),
-  scope: z.enum(['all', 'owned', 'shared', 'trash']).default('all'),
-});
-
 /** Patterns: list, create, read, save, duplicate, trash, restore, delete. */
 export function patternsRouter(ctx: AppContext): Router {
   const { db, config } = ctx;
@@ -39,7 +29,7 @@ export function patternsRouter(ctx: AppContext): Router {
 
   router.get('/', requireUser, (req, res) => {
     const user = currentUser(req);
-    const q = parseOr400(listQuery, req.query, 'Invalid query');
+    const q = parseOr400(patternListQuerySchema, req.query, 'Invalid query');
     res.json(listPatterns(db, user, q));
   });
 

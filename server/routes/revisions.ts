@@ -1,13 +1,11 @@
 import { and, count, desc, eq, gte, lte } from 'drizzle-orm';
 import type { PatternDocument } from '@seamwright/piecing';
 import express, { type Router } from 'express';
-import { restoreBodySchema, saveVersionBodySchema } from '@seamwright/api';
-import { z } from 'zod';
+import { pageQuerySchema, restoreBodySchema, revisionListQuerySchema, revisionNumberParamSchema, saveVersionBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { revisions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { pagingQuery } from '../http/paging';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { listRevisionGroups } from '../services/revision-groups';
@@ -22,11 +20,6 @@ import {
   validDocument,
 } from '../services/revisions';
 
-const numberParam = z.coerce.number().int().min(1).max(1_000_000_000);
-const listQuery = z
-  .strictObject({ ...pagingQuery, from: numberParam.optional(), to: numberParam.optional() })
-  .refine((q) => q.from === undefined || q.to === undefined || q.from <= q.to, { message: 'from must not be after to', path: ['from'] });
-const groupsQuery = z.strictObject(pagingQuery);
 
 /** `/api/patterns/:id/revisions…`: list, runs of saves, read, save a named version, restore. */
 export function revisionsRouter(ctx: AppContext): Router {
@@ -35,7 +28,7 @@ export function revisionsRouter(ctx: AppContext): Router {
 
   router.get('/', (req, res) => {
     const { pattern } = patternOf(res);
-    const q = parseOr400(listQuery, req.query, 'Invalid query');
+    const q = parseOr400(revisionListQuerySchema, req.query, 'Invalid query');
     const where = and(
       eq(revisions.patternId, pattern.id),
       q.from === undefined ? undefined : gte(revisions.number, q.from),
@@ -56,7 +49,7 @@ export function revisionsRouter(ctx: AppContext): Router {
 
   router.get('/groups', (req, res) => {
     const { pattern } = patternOf(res);
-    const q = parseOr400(groupsQuery, req.query, 'Invalid query');
+    const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
     res.json(listRevisionGroups(db, pattern.id, q.page, q.pageSize));
   });
 
@@ -83,7 +76,7 @@ export function revisionsRouter(ctx: AppContext): Router {
 
   router.get('/:number', (req, res) => {
     const { pattern } = patternOf(res);
-    const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
+    const number = parseOr400(revisionNumberParamSchema, req.params.number, 'Invalid revision number');
     const found = findRevision(db, pattern.id, number);
     if (!found) throw new HttpError(404, 'Revision not found');
     res.type('application/json').send(`{"revision":${revisionJsonText(found.revision, found.authorName)}}`);
@@ -92,7 +85,7 @@ export function revisionsRouter(ctx: AppContext): Router {
   router.post('/:number/restore', (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    const number = parseOr400(numberParam, req.params.number, 'Invalid revision number');
+    const number = parseOr400(revisionNumberParamSchema, req.params.number, 'Invalid revision number');
     const body = parseOr400(restoreBodySchema, req.body);
     const saved = db.transaction(
       (tx) => {

@@ -1,7 +1,6 @@
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { sewingStageBodySchema } from '@seamwright/api';
-import { z } from 'zod';
+import { sectionIdParamSchema, sewingStageBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { sewingLog } from '../db/schema';
@@ -10,7 +9,6 @@ import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { findRevision } from '../services/revisions';
 
-const sectionIdParam = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'must be a section id');
 
 const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, copy: e.copy, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
 
@@ -43,7 +41,7 @@ export function sewingLogRouter(ctx: AppContext): Router {
   router.put('/:sectionId', (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
-    const sectionId = parseOr400(sectionIdParam, req.params.sectionId, 'Invalid section id');
+    const sectionId = parseOr400(sectionIdParamSchema, req.params.sectionId, 'Invalid section id');
     const body = parseOr400(sewingStageBodySchema, req.body);
     const latest = findRevision(db, pattern.id);
     const doc: LoggedDocument = latest ? (JSON.parse(latest.revision.document) as LoggedDocument) : { sections: [] };

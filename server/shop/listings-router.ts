@@ -1,18 +1,16 @@
 import { and, count, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { listingBodySchema, shopBodySchema } from '@seamwright/api';
-import { z } from 'zod';
+import { listingBodySchema, searchPageQuerySchema, shopBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { orders, patterns, shopListings, shops } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { likeContains, pagingQuery } from '../http/paging';
+import { likeContains } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign, resolvePatternAccess } from '../services/access';
 import { findListing, listingFacts, listingRows } from './listings';
 import { listingJson } from './shop-json';
 
-const browseQuery = z.strictObject({ ...pagingQuery, q: z.string().trim().max(120).optional() });
 
 const listingNotFound = () => new HttpError(404, 'Listing not found');
 
@@ -24,7 +22,7 @@ export function listingsRouter(ctx: AppContext): Router {
 
   router.get('/listings', (req, res) => {
     const user = currentUser(req);
-    const q = parseOr400(browseQuery, req.query, 'Invalid query');
+    const q = parseOr400(searchPageQuerySchema, req.query, 'Invalid query');
     const published = and(isNotNull(shopListings.publishedAt), isNull(patterns.trashedAt));
     const where = q.q ? and(published, sql`${patterns.title} LIKE ${likeContains(q.q)} ESCAPE '\\'`) : published;
     const total =

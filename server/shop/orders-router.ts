@@ -1,19 +1,17 @@
 import { and, count, desc, eq, inArray, isNotNull, or, sql } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { z } from 'zod';
+import { pageQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
 import { orders, users } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { pagingQuery } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign } from '../services/access';
 import { findPublishedListing } from './listings';
 import { requirePayments, type Payments } from './payments';
 import { orderJson } from './shop-json';
 
-const pageQuery = z.strictObject({ ...pagingQuery });
 const orderNotFound = () => new HttpError(404, 'Order not found');
 
 /** `/api/shop` buying and selling: checkout, the buyer's purchases, the designer's sales and refunds. */
@@ -106,7 +104,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
 
   router.get('/purchases', (req, res) => {
     const user = currentUser(req);
-    const q = parseOr400(pageQuery, req.query, 'Invalid query');
+    const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
     const mine = and(eq(orders.buyerId, user.id), inArray(orders.status, ['pending', 'paid', 'refunded']));
     const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
     const rows = db
@@ -129,7 +127,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
   router.get('/sales', (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers have sales');
-    const q = parseOr400(pageQuery, req.query, 'Invalid query');
+    const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
     const mine = and(eq(orders.sellerId, user.id), inArray(orders.status, ['paid', 'refunded']));
     const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
     const rows = db

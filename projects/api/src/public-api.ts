@@ -155,3 +155,12 @@ export {
   type ShopCurrency,
 } from './money';
 export { stripControlCharacters, singleLineText, multiLineText } from './text';
+export {
+  pagingQueryShape,
+  pageQuerySchema,
+  patternListQuerySchema,
+  revisionNumberParamSchema,
+  revisionListQuerySchema,
+  searchPageQuerySchema,
+  sectionIdParamSchema,
+} from './queries';
