@@ -141,6 +141,9 @@ export {
   type SignInBody,
   type ChangePasswordBody,
   type ResetConfirmBody,
+  type ResetRequestBody,
+  type AcceptInvitationBody,
+  type RestoreBody,
 } from './requests';
 export {
   SHOP_CURRENCIES,

@@ -49,6 +49,7 @@ export type ChangePasswordBody = z.input<typeof changePasswordBodySchema>;
 
 /** `POST /api/auth/password-reset`. */
 export const resetRequestBodySchema = z.strictObject({ email: emailSchema });
+export type ResetRequestBody = z.input<typeof resetRequestBodySchema>;
 
 /** `POST /api/auth/password-reset/confirm`. */
 export const resetConfirmBodySchema = z.strictObject({ token: z.string().min(20).max(100), newPassword: passwordSchema });
@@ -67,6 +68,7 @@ export const invitationTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/,
 
 /** `POST /api/invitations/accept`. */
 export const acceptInvitationBodySchema = z.strictObject({ token: invitationTokenSchema });
+export type AcceptInvitationBody = z.input<typeof acceptInvitationBodySchema>;
 
 /** Largest copy number the sewing log takes: ring repeats (≤ 360) × blocks (≤ 1000). */
 export const MAX_SEWING_COPY = 360_000;
@@ -99,6 +101,7 @@ export const duplicateBodySchema = z.strictObject({ title: z.string().overwrite(
 
 /** `POST /api/patterns/:id/revisions/:number/restore`. */
 export const restoreBodySchema = z.strictObject({ baseRevision: z.number().int().min(1) });
+export type RestoreBody = z.input<typeof restoreBodySchema>;
 
 /** `POST /api/patterns/:id/revisions`: a named version, of `document` or of the latest revision. */
 export const saveVersionBodySchema = z.strictObject({

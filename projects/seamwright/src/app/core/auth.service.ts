@@ -2,16 +2,11 @@ import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, map, of, shareReplay, tap, throwError } from 'rxjs';
 import { API } from './api-paths';
-import type { Role, User } from './api-types';
+import type { ChangePasswordBody, ResetConfirmBody, ResetRequestBody, SignInBody, SignUpBody, User } from './api-types';
 import { CsrfTokenService } from './csrf-token.service';
 import { toApiError } from './api-error';
 
-export interface SignUpBody {
-  displayName: string;
-  email: string;
-  password: string;
-  role: Exclude<Role, 'admin'>;
-}
+export type { SignUpBody } from './api-types';
 
 /** The signed-in user and the account calls: sign in/up/out, password reset. */
 @Injectable({ providedIn: 'root' })
@@ -41,7 +36,7 @@ export class AuthService {
   }
 
   signIn(email: string, password: string): Observable<User> {
-    return this.http.post<{ user: User; csrfToken?: string }>(API.signIn, { email, password }).pipe(
+    return this.http.post<{ user: User; csrfToken?: string }>(API.signIn, { email, password } satisfies SignInBody).pipe(
       tap((r) => this.afterSessionChange(r.user, r.csrfToken)),
       map((r) => r.user),
     );
@@ -64,17 +59,17 @@ export class AuthService {
 
   /** Asks for a reset e-mail; the server answers the same whether or not the address exists. */
   requestPasswordReset(email: string): Observable<void> {
-    return this.http.post<unknown>(API.resetRequest, { email }).pipe(map(() => undefined));
+    return this.http.post<unknown>(API.resetRequest, { email } satisfies ResetRequestBody).pipe(map(() => undefined));
   }
 
   /** Sets a new password with the single-use token from the e-mail. */
   confirmPasswordReset(token: string, password: string): Observable<void> {
-    return this.http.post<unknown>(API.resetConfirm, { token, newPassword: password }).pipe(map(() => undefined));
+    return this.http.post<unknown>(API.resetConfirm, { token, newPassword: password } satisfies ResetConfirmBody).pipe(map(() => undefined));
   }
 
   /** Changes the password; the server signs out the user's other sessions. */
   changePassword(currentPassword: string, newPassword: string): Observable<void> {
-    return this.http.post<unknown>(API.changePassword, { currentPassword, newPassword }).pipe(map(() => undefined));
+    return this.http.post<unknown>(API.changePassword, { currentPassword, newPassword } satisfies ChangePasswordBody).pipe(map(() => undefined));
   }
 
   /** Forgets the user locally (the server said the session is gone). */

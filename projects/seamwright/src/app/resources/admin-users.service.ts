@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { API } from '../core/api-paths';
-import type { DevMessage, Page, Role, User } from '../core/api-types';
+import type { DevMessage, Page, User, UserChangeBody } from '../core/api-types';
 
 /** Admin: every account, its role, disabling; the development inbox. */
 @Injectable({ providedIn: 'root' })
@@ -16,7 +16,7 @@ export class AdminUsersService {
     return this.http.get<Page<User>>(API.adminUsers, { params });
   }
 
-  update(userId: string, change: { role?: Role; disabled?: boolean }): Observable<User> {
+  update(userId: string, change: UserChangeBody): Observable<User> {
     return this.http.patch<{ user: User }>(API.adminUser(userId), change).pipe(map((r) => r.user));
   }
 

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { API } from '../core/api-paths';
-import type { Invitation, InvitationPreview, MemberAccess, MembersResponse, PatternSummary } from '../core/api-types';
+import type { AcceptInvitationBody, Invitation, InvitationBody, InvitationPreview, MemberAccess, MemberAccessBody, MembersResponse, PatternSummary } from '../core/api-types';
 
 /** Sharing: members of a pattern, invitations by e-mail, accepting one. */
 @Injectable({ providedIn: 'root' })
@@ -14,11 +14,11 @@ export class MembersService {
   }
 
   invite(patternId: string, email: string, access: MemberAccess): Observable<Invitation> {
-    return this.http.post<{ invitation: Invitation }>(API.invitations(patternId), { email, access }).pipe(map((r) => r.invitation));
+    return this.http.post<{ invitation: Invitation }>(API.invitations(patternId), { email, access } satisfies InvitationBody).pipe(map((r) => r.invitation));
   }
 
   changeAccess(patternId: string, userId: string, access: MemberAccess): Observable<unknown> {
-    return this.http.patch(API.member(patternId, userId), { access });
+    return this.http.patch(API.member(patternId, userId), { access } satisfies MemberAccessBody);
   }
 
   /** Removes a member (the owner revoking, or the member leaving). */
@@ -35,6 +35,6 @@ export class MembersService {
   }
 
   accept(token: string): Observable<PatternSummary> {
-    return this.http.post<{ pattern: PatternSummary }>(API.acceptInvitation, { token }).pipe(map((r) => r.pattern));
+    return this.http.post<{ pattern: PatternSummary }>(API.acceptInvitation, { token } satisfies AcceptInvitationBody).pipe(map((r) => r.pattern));
   }
 }

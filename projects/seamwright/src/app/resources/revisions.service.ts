@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, throwError } from 'rxjs';
 import { API } from '../core/api-paths';
-import type { PatternWithRevision, Revision } from '../core/api-types';
+import type { PatternWithRevision, RestoreBody, Revision } from '../core/api-types';
 import { staleSaveOrError } from './patterns.service';
 
 /** A pattern's revisions: read one, restore one as a new revision (History's lists: RevisionHistoryService). */
@@ -17,7 +17,7 @@ export class RevisionsService {
   /** Makes revision `n`'s document the newest revision, on top of `baseRevision`. */
   restore(patternId: string, n: number, baseRevision: number): Observable<PatternWithRevision> {
     return this.http
-      .post<PatternWithRevision>(API.restoreRevision(patternId, n), { baseRevision })
+      .post<PatternWithRevision>(API.restoreRevision(patternId, n), { baseRevision } satisfies RestoreBody)
       .pipe(catchError((err: unknown) => throwError(() => staleSaveOrError(err))));
   }
 }
