@@ -1,4 +1,6 @@
 import { TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
 import { signal } from '@angular/core';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
@@ -28,6 +30,16 @@ const GROUPS: RevisionGroup[] = [
 ];
 const save = (number: number): RevisionSummary => ({ id: `r${number}`, number, author: ada, restoredFrom: null, version: null, createdAt: `2026-12-03T14:${10 + number}:00Z` });
 
+/** The request to `url` once the page has sent it (a harness click sends it after a few turns of the event loop). */
+async function nextRequest(http: HttpTestingController, url: string) {
+  for (let turn = 0; turn < 1000; turn++) {
+    const [req] = http.match((r) => r.url === url);
+    if (req) return req;
+    await new Promise((resolve) => setTimeout(resolve));
+  }
+  throw new Error(`no request to ${url}`);
+}
+
 describe('HistoryPageComponent', () => {
   async function setup(canEdit = true) {
     TestBed.configureTestingModule({
@@ -56,7 +68,9 @@ describe('HistoryPageComponent', () => {
           return controls.length ? Array.from(controls, words).join(' / ') : words(td);
         }).join(' | '),
       );
-    const button = (name: string) => Array.from(el.querySelectorAll('button, a')).find((b) => b.getAttribute('aria-label') === name) as HTMLElement | undefined;
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    /** The button or link named `name`, through Material's button harness; null when there is none. */
+    const button = (name: string) => loader.getHarnessOrNull(MatButtonHarness.with({ selector: `[aria-label="${name}"]` }));
     return { fixture, el, http, table, rows, button };
   }
 
@@ -86,43 +100,44 @@ describe('HistoryPageComponent', () => {
 
   it('opens a run to list each save, newest first, and closes it again', async () => {
     const { fixture, http, rows, button, el } = await setup();
-    expect(button('Show 1 save of revision 1')).toBeUndefined();
-    const toggle = button('Show 8 saves of revisions 4–11')!;
-    expect(toggle.getAttribute('aria-expanded')).toBe('false');
-    toggle.click();
-    fixture.detectChanges();
-    const req = http.expectOne((r) => r.url === '/api/patterns/p1/revisions');
+    expect(await button('Show 1 save of revision 1')).toBeNull();
+    const toggle = (await button('Show 8 saves of revisions 4–11'))!;
+    const toggleHost = await toggle.host();
+    expect(await toggleHost.getAttribute('aria-expanded')).toBe('false');
+    // The harness waits for the page to settle after the click, and the list request is pending until flushed.
+    const clicked = toggle.click();
+    const req = await nextRequest(http, '/api/patterns/p1/revisions');
     expect(req.request.params.get('from')).toBe('4');
     expect(req.request.params.get('to')).toBe('11');
     req.flush({ items: [11, 10, 9, 8, 7, 6, 5, 4].map(save), total: 8, page: 1, pageSize: 100 });
+    await clicked;
     await fixture.whenStable();
-    const opened = button('Hide 8 saves of revisions 4–11')!;
-    expect(opened).toBe(toggle);
-    expect(opened.getAttribute('aria-expanded')).toBe('true');
-    const saves = el.querySelector(`#${opened.getAttribute('aria-controls')}`)!.querySelector('table[aria-label="Saves of revisions 4–11"]')!;
+    const opened = (await button('Hide 8 saves of revisions 4–11'))!;
+    expect(await opened.getText()).toContain('Hide 8 saves');
+    expect(await toggleHost.getAttribute('aria-expanded')).toBe('true');
+    const saves = el.querySelector(`#${await toggleHost.getAttribute('aria-controls')}`)!.querySelector('table[aria-label="Saves of revisions 4–11"]')!;
     const numbers = Array.from(saves.querySelectorAll('tbody tr td:first-child')).map((td) => Number(td.textContent));
     expect(numbers).toEqual([11, 10, 9, 8, 7, 6, 5, 4]);
-    expect(button('Restore revision 7')).toBeDefined();
+    expect(await button('Restore revision 7')).not.toBeNull();
     expect(rows()).toHaveLength(5);
-    opened.click();
-    fixture.detectChanges();
-    await fixture.whenStable();
+    await opened.click();
     expect(rows()).toHaveLength(4);
-    expect(toggle.getAttribute('aria-expanded')).toBe('false');
-    expect(toggle.hasAttribute('aria-controls')).toBe(false);
+    expect(await toggleHost.getAttribute('aria-expanded')).toBe('false');
+    expect(await toggleHost.getAttribute('aria-controls')).toBeNull();
   });
 
   it('opens and restores a run by its last save; the latest revision has no restore', async () => {
     const { button } = await setup();
-    expect(button('Open revision 11 read-only')?.getAttribute('href')).toBe('/history/11');
-    expect(button('Restore revision 11')).toBeDefined();
-    expect(button('Restore revision 13')).toBeUndefined();
+    const open = (await button('Open revision 11 read-only'))!;
+    expect(await (await open.host()).getAttribute('href')).toBe('/history/11');
+    expect(await button('Restore revision 11')).not.toBeNull();
+    expect(await button('Restore revision 13')).toBeNull();
   });
 
   it('offers no restore to a quilter', async () => {
     const { button } = await setup(false);
-    expect(button('Open revision 11 read-only')).toBeDefined();
-    expect(button('Restore revision 11')).toBeUndefined();
-    expect(button('Restore revision 1')).toBeUndefined();
+    expect(await button('Open revision 11 read-only')).not.toBeNull();
+    expect(await button('Restore revision 11')).toBeNull();
+    expect(await button('Restore revision 1')).toBeNull();
   });
 });
