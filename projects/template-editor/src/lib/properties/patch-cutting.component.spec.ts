@@ -7,30 +7,11 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import { EditorSession } from '../session/editor-session';
 import { PropertiesPanelComponent } from './properties-panel.component';
+import { stripSetSquare } from '../../../../../tests/fixtures/strip-set-square';
 
 /** A 6 in. square split at x = 3: A1 (Plum) on the left, A2 (an Oat/Plum strip set) on the right. */
 function pattern(): PatternDocument {
-  return readPatternDocument({
-    formatVersion: 2,
-    title: 'Cutting',
-    canvas: { widthIn: 12, heightIn: 12 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'sq',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 6, y: 0 }, { x: 6, y: 6 }, { x: 0, y: 6 }] },
-        seams: [{ id: 's1', a: { x: 3, y: -0.05 }, b: { x: 3, y: 6.05 } }],
-        patches: [
-          { number: 1, anchor: { x: 1.5, y: 3 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 4.5, y: 3 }, stripSet: { id: 't-k2x9', strips: [{ fabricId: 'oat', finishedWidthIn: 1.5 }, { fabricId: 'plum', finishedWidthIn: 1.5 }] } },
-        ],
-      },
-    ],
-  });
+  return readPatternDocument(stripSetSquare({ title: 'Cutting', sizeIn: 6, canvasIn: 12, stripWidthIn: 1.5, stripSetId: 't-k2x9' }));
 }
 
 async function setUp(label: 'A1' | 'A2') {

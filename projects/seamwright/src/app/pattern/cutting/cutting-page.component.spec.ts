@@ -4,32 +4,13 @@ import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import { scalePattern } from '@seamwright/piecing/testing';
 import { PatternContext } from '../pattern-context.service';
 import { CuttingPageComponent } from './cutting-page.component';
+import { stripSetSquare } from '../../../../../../tests/fixtures/strip-set-square';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatTableHarness } from '@angular/material/table/testing';
 
 /** A 4 in. square split in two: A1 Plum, A2 a two-strip set with the internal id "t-lz9q". */
 function pattern(name?: string): PatternDocument {
-  return readPatternDocument({
-    formatVersion: 1,
-    title: 'Strips',
-    canvas: { widthIn: 4, heightIn: 4 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'sq',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 4, y: 0 }, { x: 4, y: 4 }, { x: 0, y: 4 }] },
-        seams: [{ id: 's1', a: { x: 2, y: -0.05 }, b: { x: 2, y: 4.05 } }],
-        patches: [
-          { number: 1, anchor: { x: 1, y: 2 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 3, y: 2 }, stripSet: { id: 't-lz9q', ...(name ? { name } : {}), strips: [{ fabricId: 'oat', finishedWidthIn: 2 }, { fabricId: 'plum', finishedWidthIn: 2 }] } },
-        ],
-      },
-    ],
-  });
+  return readPatternDocument(stripSetSquare({ title: 'Strips', sizeIn: 4, stripWidthIn: 2, stripSetId: 't-lz9q', stripSetName: name }));
 }
 
 function render(doc: PatternDocument) {
