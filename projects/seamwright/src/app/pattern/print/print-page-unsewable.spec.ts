@@ -8,31 +8,11 @@ import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import { PrintPageComponent } from './print-page.component';
 import { PatternContext } from '../pattern-context.service';
+import { misnumberedStrip as misnumberedStripJson } from '../../../../../../tests/fixtures/misnumbered-strip';
 
-/** Three patches in a row numbered left (1), right (2), middle (3): patch 2 shares no seam with patch 1. Invented. */
+/** The shared misnumbered strip: A2 shares no seam with A1, so section A is not sewable as numbered. */
 function misnumberedStrip(): PatternDocument {
-  return readPatternDocument({
-    formatVersion: 2,
-    title: 'Misnumbered strip',
-    canvas: { widthIn: 4, heightIn: 2 },
-    fabrics: [{ id: 'plum', name: 'Plum', colour: '#6b2d5c' }],
-    sections: [
-      {
-        id: 'a',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }, { x: 0, y: 1 }] },
-        seams: [
-          { id: 's1', a: { x: 1, y: -1 }, b: { x: 1, y: 2 } },
-          { id: 's2', a: { x: 2, y: -1 }, b: { x: 2, y: 2 } },
-        ],
-        patches: [
-          { number: 1, anchor: { x: 0.5, y: 0.5 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 2.5, y: 0.5 }, fabricId: 'plum' },
-          { number: 3, anchor: { x: 1.5, y: 0.5 }, fabricId: 'plum' },
-        ],
-      },
-    ],
-  });
+  return readPatternDocument(misnumberedStripJson());
 }
 
 describe('PrintPageComponent with a section not sewable as numbered', () => {
