@@ -83,6 +83,10 @@ export default defineConfig({
         SMTP_PORT: smtpPort,
         MAIL_INBOX_URL: mailInboxURL,
         PUBLIC_URL: baseURL,
+        // Every browser test signs up from 127.0.0.1, more than a real address would in the window;
+        // the limits themselves are tested against the server (server/password-reset.spec.ts, auth.spec.ts).
+        SIGNUP_LIMIT_PER_ADDRESS: '1000',
+        SIGNIN_LIMIT_PER_ADDRESS: '1000',
         ...stripeKeys,
         STRIPE_API_BASE: fakeStripeURL,
       },
