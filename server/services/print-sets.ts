@@ -334,11 +334,6 @@ export class PrintSetService {
     entry.timer.unref();
   }
 
-  /** Sets whose end is known but not yet stored (a full disk), for tests. */
-  get unstoredEndCount(): number {
-    return this.unstoredEnds.size;
-  }
-
   private tryUpdate(setId: string, values: Partial<PrintSet>): 'stored' | 'gone' | 'failed' {
     try {
       const row = this.db.update(printSets).set(values).where(eq(printSets.id, setId)).returning().get();
