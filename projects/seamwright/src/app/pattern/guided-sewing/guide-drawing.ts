@@ -1,4 +1,4 @@
-import type { Point } from '@seamwright/piecing';
+import { polygonBounds, type Point } from '@seamwright/piecing';
 
 /** How a shape is shown: the patch to place now, patches sewn already, ones still to come, or context. */
 export type ShapeState = 'current' | 'done' | 'todo' | 'context';
@@ -46,10 +46,7 @@ const round = (n: number) => Math.round(n * 1000) / 1000;
 export function drawingView(d: GuideDrawing): DrawingView {
   const all = d.shapes.flatMap((s) => s.polygon);
   if (all.length === 0) return { viewBox: '0 0 1 1', fontSize: 0.1, markRadius: 0.05, shapes: [], lines: [], marks: [] };
-  const minX = Math.min(...all.map((p) => p.x));
-  const maxX = Math.max(...all.map((p) => p.x));
-  const minY = Math.min(...all.map((p) => p.y));
-  const maxY = Math.max(...all.map((p) => p.y));
+  const { minX, maxX, minY, maxY } = polygonBounds(all);
   const flip = (p: Point): Point => (d.mirrored ? { x: minX + maxX - p.x, y: p.y } : p);
   const span = Math.max(maxX - minX, maxY - minY, 0.1);
   const pad = span * 0.04;
