@@ -58,3 +58,118 @@ export async function timeRuns(fn: () => unknown, runs = 7, warmup = 1): Promise
 export function ms(value: number): string {
   return value >= 100 ? value.toFixed(0) : value >= 10 ? value.toFixed(1) : value.toFixed(2);
 }
+
+/** One contender in an interleaved comparison: a name for the report and the work to time. */
+export interface RoundVariant {
+  name: string;
+  /** The work timed once per round (awaited if it returns a promise). */
+  run: () => unknown;
+}
+
+/** Options of {@link interleavedRounds}. */
+export interface RoundsOptions {
+  /** Timed rounds; each round runs every variant once, in order (A B C, A B C, …). Default 7. */
+  rounds?: number;
+  /** Untimed rounds first (JIT warm-up, caches). Default 1. */
+  warmup?: number;
+  /** Name of the variant every ratio is taken against. Default: the first variant. */
+  baseline?: string;
+  /**
+   * Start each round one variant further along (A B C, B C A, C A B, …), so no variant always runs
+   * first after a pause or last before one. Default false: the fixed order A B C every round.
+   */
+  rotate?: boolean;
+  /** Calls of `run` per timed sample, for work shorter than the timer's resolution; the sample is the mean. Default 1. */
+  repeat?: number;
+}
+
+/** The figures of one variant over the rounds of {@link interleavedRounds}. */
+export interface RoundsVariantStats extends TimingStats {
+  name: string;
+  /** Time of each round, in round order (ms). */
+  timesMs: number[];
+  /** This variant's time ÷ the baseline's time in the same round, per round (1 for the baseline itself). */
+  ratios: number[];
+  ratioMedian: number;
+  ratioMin: number;
+  ratioMax: number;
+}
+
+/** Result of {@link interleavedRounds}: the baseline's name, the number of rounds, one entry per variant. */
+export interface RoundsResult {
+  baseline: string;
+  rounds: number;
+  variants: RoundsVariantStats[];
+}
+
+/**
+ * Times several variants of the same work side by side: `rounds` rounds, each running every variant
+ * once (A B C, A B C, …), so drift on a shared machine (other processes, thermal, GC pressure) lands on
+ * all variants alike. Returns per-round times and, per round, each variant's time divided by the
+ * baseline's time in that same round, with medians and min–max of both. A ratio above 1 means slower
+ * than the baseline. Use {@link roundsRows} to put the result into a report table.
+ */
+export async function interleavedRounds(variants: readonly RoundVariant[], options: RoundsOptions = {}): Promise<RoundsResult> {
+  if (variants.length === 0) throw new Error('interleavedRounds: no variants');
+  const rounds = options.rounds ?? 7;
+  const warmup = options.warmup ?? 1;
+  const repeat = Math.max(1, options.repeat ?? 1);
+  const baseline = options.baseline ?? variants[0].name;
+  const baseIndex = variants.findIndex((v) => v.name === baseline);
+  if (baseIndex < 0) throw new Error(`interleavedRounds: no variant named ${baseline}`);
+  const times: number[][] = variants.map(() => []);
+  for (let round = -warmup; round < rounds; round++) {
+    for (let k = 0; k < variants.length; k++) {
+      const i = options.rotate ? (k + Math.max(round, 0)) % variants.length : k;
+      const t0 = performance.now();
+      for (let r = 0; r < repeat; r++) await variants[i].run();
+      const elapsed = (performance.now() - t0) / repeat;
+      if (round >= 0) times[i].push(elapsed);
+    }
+  }
+  return {
+    baseline,
+    rounds,
+    variants: variants.map((v, i) => {
+      const ratios = times[i].map((t, r) => t / times[baseIndex][r]);
+      return {
+        name: v.name,
+        ...summarise(times[i]),
+        timesMs: times[i],
+        ratios,
+        ratioMedian: quantile(ratios, 0.5),
+        ratioMin: Math.min(...ratios),
+        ratioMax: Math.max(...ratios),
+      };
+    }),
+  };
+}
+
+/** Formats a ratio to two decimals with a ×. */
+export function ratio(value: number): string {
+  return `${value.toFixed(2)}×`;
+}
+
+/**
+ * Report rows for an {@link interleavedRounds} result: one row per variant with its median and min–max
+ * time and its per-round ratio to the baseline (median and min–max). `extra` columns (e.g. the task)
+ * come first in every row.
+ */
+export function roundsRows(result: RoundsResult, extra: Record<string, string | number> = {}): BenchSection['rows'] {
+  return result.variants.map((v) => ({
+    ...extra,
+    variant: v.name,
+    rounds: result.rounds,
+    'median ms': ms(v.medianMs),
+    'min–max ms': `${ms(v.minMs)}–${ms(v.maxMs)}`,
+    [`÷ ${result.baseline} (median)`]: v.name === result.baseline ? '1' : ratio(v.ratioMedian),
+    [`÷ ${result.baseline} (min–max per round)`]: v.name === result.baseline ? '' : `${v.ratioMin.toFixed(2)}–${v.ratioMax.toFixed(2)}`,
+  }));
+}
+
+/** A one-line statement of a ratio from the same run, for a report note: "B ÷ A = 1.23× (1.10–1.40 over 7 rounds)". */
+export function ratioNote(result: RoundsResult, name: string): string {
+  const v = result.variants.find((x) => x.name === name);
+  if (!v) throw new Error(`ratioNote: no variant named ${name}`);
+  return `${name} ÷ ${result.baseline} = ${ratio(v.ratioMedian)} (${v.ratioMin.toFixed(2)}–${v.ratioMax.toFixed(2)} over ${result.rounds} rounds)`;
+}
