@@ -6,6 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { PatternContext } from './pattern-context.service';
 import { NotFoundComponent } from '../not-found/not-found.component';
 import { accessLabel } from '../patterns/access-label';
+import { QuiltChoice } from './quilt/quilt-choice.service';
 
 interface PartLink {
   path: string;
@@ -17,6 +18,7 @@ interface PartLink {
 
 const PARTS: PartLink[] = [
   { path: 'board', label: 'Drafting board', icon: 'draw' },
+  { path: 'quilt', label: 'Quilt', icon: 'grid_view' },
   { path: 'cutting', label: 'Cutting list', icon: 'content_cut' },
   { path: 'print', label: 'Print', icon: 'print' },
   { path: 'sew', label: 'Guided sewing', icon: 'play_circle' },
@@ -29,7 +31,7 @@ const PARTS: PartLink[] = [
 @Component({
   selector: 'sw-pattern-page',
   imports: [RouterOutlet, RouterLink, RouterLinkActive, MatTabsModule, MatIconModule, MatProgressBarModule, NotFoundComponent],
-  providers: [PatternContext],
+  providers: [PatternContext, QuiltChoice],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (ctx.state.notFound()) {
