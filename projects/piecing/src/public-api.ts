@@ -42,7 +42,40 @@ export {
   type PatternDocumentInput,
   type DocumentIssue,
   type ParseResult,
+  quiltLayoutSchema,
+  colourwaySchema,
+  type QuiltLayout,
+  type QuiltLayoutInput,
+  type QuiltSetting,
+  type QuiltCell,
+  type QuiltBorder,
+  type QuiltSize,
+  type Colourway,
+  type ColourwayFabric,
 } from './lib/document/index';
+
+/** From a block to a quilt (design §11): the quilt plan, sizes, colourways, the CLI's JSON. */
+export {
+  QuiltPlanError,
+  type QuiltPlan,
+  type QuiltPlanOptions,
+  type QuiltPlanCell,
+  type QuiltRect,
+  type QuiltPolygon,
+  type QuiltSettingTriangles,
+  type QuiltSashing,
+  type QuiltAlternateBlocks,
+  type QuiltPlanBorder,
+  type QuiltBinding,
+  type QuiltBacking,
+  type BackingSeams,
+  type QuiltSettingPieceGroup,
+  type QuiltFabricNeed,
+  type QuiltSizeRow,
+  type QuiltCliJson,
+  type SizeIn,
+  type AffineTransform,
+} from './lib/quilt/index';
 
 /** Resizing a whole design and finding sections outside the drawing area. */
 export {

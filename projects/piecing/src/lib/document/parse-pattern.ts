@@ -28,7 +28,8 @@ const migrations: Record<number, (doc: Record<string, unknown>) => Record<string
   // version 2 says by leaving `bulges` out, so only the version changes.
   1: (doc) => ({ ...doc, formatVersion: 2 }),
   // Fields added later within version 2 are optional and absent from older documents (notes, joiningPlan,
-  // seam press, patch roughCut and pieceTemplate, strip-set subCutLengthIn), so they need no step here.
+  // seam press, patch roughCut and pieceTemplate, strip-set subCutLengthIn, quilt, colourways), so they need
+  // no step here: a document without `quilt` is one block, as it always was.
 };
 
 /** Brings a raw document up to {@link FORMAT_VERSION}, or returns an issue when it cannot. */

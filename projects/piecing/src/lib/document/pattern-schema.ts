@@ -233,6 +233,103 @@ export const referenceImageSchema = z.object({
   opacity: z.number().min(0).max(1).default(0.4),
 });
 
+/** Most blocks across or down a quilt. */
+export const MAX_QUILT_BLOCKS_PER_SIDE = 100;
+
+const blockCountAlongSide = z
+  .number({ error: 'must be a whole number' })
+  .int({ message: 'must be a whole number' })
+  .min(1, { message: 'must be at least 1' })
+  .max(MAX_QUILT_BLOCKS_PER_SIDE, { message: `must be at most ${MAX_QUILT_BLOCKS_PER_SIDE}` });
+const nonNegativeLength = finite
+  .min(0, { message: 'must not be negative' })
+  .lte(MAX_SIZE_IN, { message: `must be at most ${MAX_SIZE_IN} in.` });
+
+/**
+ * One position of the quilt layout that differs from a plain copy of the block. Straight setting: `row`
+ * and `col` count from the top-left block. On point: `row` counts the horizontal rows of block centres
+ * from the top (0 … 2·rows − 2), `col` the blocks along that row from the left (even rows hold `columns`
+ * blocks, odd rows `columns − 1`).
+ */
+export const quiltCellSchema = z.object({
+  row: z.number().int({ message: 'must be a whole number' }).min(0, { message: 'must not be negative' }).max(2 * MAX_QUILT_BLOCKS_PER_SIDE),
+  col: z.number().int({ message: 'must be a whole number' }).min(0, { message: 'must not be negative' }).max(2 * MAX_QUILT_BLOCKS_PER_SIDE),
+  /** Turn of the block, clockwise on screen. */
+  rotateDeg: z.union([z.literal(0), z.literal(90), z.literal(180), z.literal(270)], { error: 'must be 0, 90, 180 or 270' }).optional(),
+  /** Mirrored left to right (before turning). */
+  mirrored: z.boolean().optional(),
+  /** A plain block of `alternateFabricId` in place of the pieced block. */
+  alternate: z.boolean().optional(),
+});
+
+export const quiltBorderSchema = z.object({
+  widthIn: positiveLength,
+  fabricId: id,
+});
+
+/** A named size of the quilt for the size chart (e.g. "Throw 4 × 5"). */
+export const quiltSizeSchema = z.object({
+  name: z.string().trim().min(1, { message: 'must not be empty' }).max(60),
+  columns: blockCountAlongSide,
+  rows: blockCountAlongSide,
+});
+
+/**
+ * How blocks are set into a quilt (design §11, docs/quilt-layout.md): setting, blocks across and down,
+ * per-cell turns, mirroring and plain blocks, sashing between blocks, borders inside out, binding,
+ * backing and named sizes. Every length is finished, in inches.
+ */
+export const quiltLayoutSchema = z.object({
+  setting: z.enum(['straight', 'on-point']).default('straight'),
+  /** Blocks across (on point: blocks along the top edge). */
+  columns: blockCountAlongSide,
+  /** Blocks down (on point: blocks down the side). */
+  rows: blockCountAlongSide,
+  /** Finished block size; missing means the bounding box of all sections' sewing lines (ring copies included). */
+  blockSizeIn: z.object({ width: positiveLength, height: positiveLength }).optional(),
+  cells: z.array(quiltCellSchema).max(40000).optional(),
+  /** Fabric of the plain alternate blocks (cells with `alternate`). */
+  alternateFabricId: id.optional(),
+  /** Strips between blocks (not around the outside), with optional cornerstones where they cross. */
+  sashing: z.object({ widthIn: positiveLength, fabricId: id, cornerstoneFabricId: id.optional() }).optional(),
+  /** Borders, innermost first. */
+  borders: z.array(quiltBorderSchema).max(12).default([]),
+  binding: z
+    .object({
+      fabricId: id.optional(),
+      /** Cut width of the binding strips (common practice: 2½ in., folded double). */
+      stripWidthIn: positiveLength.default(2.5),
+      /** Length added to the perimeter for the corners and the join (common practice: about 12 in.). */
+      extraIn: nonNegativeLength.default(12),
+    })
+    .prefault({}),
+  backing: z
+    .object({
+      fabricId: id.optional(),
+      /** Backing and batting reach this far beyond the quilt top on every side (common practice: about 4 in.). */
+      marginIn: nonNegativeLength.default(4),
+    })
+    .prefault({}),
+  /** Fabric of the setting triangles (on point). */
+  settingTrianglesFabricId: id.optional(),
+  /** Named sizes for the size chart; each sets columns and rows. */
+  sizes: z.array(quiltSizeSchema).max(20).default([]),
+});
+
+/** A fabric as a colourway shows it: its own name and colour in place of the document's. */
+export const colourwayFabricSchema = z.object({
+  name: z.string().min(1).max(80),
+  colour: z.string().regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #7a3b69'),
+});
+
+/** The same drafting in other fabrics: for each fabric slot (a document fabric id), its name and colour. */
+export const colourwaySchema = z.object({
+  id,
+  name: z.string().trim().min(1, { message: 'must not be empty' }).max(80),
+  /** Keyed by document fabric id; a slot left out keeps the document's fabric. */
+  fabrics: z.record(id, colourwayFabricSchema),
+});
+
 export const patternDocumentSchema = z
   .object({
     // A version 1 document is a version 2 document without curved edges, so the schema reads both and
@@ -257,6 +354,10 @@ export const patternDocumentSchema = z
     notes: z.string().max(4000).optional(),
     /** The designer's joining plan; without one the library proposes a default (`defaultJoiningPlan`). */
     joiningPlan: joiningPlanSchema.optional(),
+    /** How the block is set into a quilt (design §11); missing means the pattern is one block. */
+    quilt: quiltLayoutSchema.optional(),
+    /** Other colourways of the same drafting (design §11). */
+    colourways: z.array(colourwaySchema).max(20).optional(),
   })
   .superRefine((doc, ctx) => {
     const fabricIds = new Set<string>();
@@ -287,9 +388,54 @@ export const patternDocumentSchema = z
       if (sectionIds.has(step.id)) ctx.addIssue({ code: 'custom', message: `joining step id "${step.id}" is also a section id`, path: ['joiningPlan', 'steps', i, 'id'] });
       stepIds.add(step.id);
     });
+    if (doc.quilt) checkQuiltLayout(doc.quilt, fabricIds, ctx);
+    const colourwayIds = new Set<string>();
+    doc.colourways?.forEach((c, i) => {
+      if (colourwayIds.has(c.id)) ctx.addIssue({ code: 'custom', message: `duplicate colourway id "${c.id}"`, path: ['colourways', i, 'id'] });
+      colourwayIds.add(c.id);
+      for (const fabricId of Object.keys(c.fabrics)) {
+        if (!fabricIds.has(fabricId)) ctx.addIssue({ code: 'custom', message: `unknown fabric "${fabricId}"`, path: ['colourways', i, 'fabrics', fabricId] });
+      }
+    });
     // Outlines that cross themselves, outlines without area, seams without length.
     for (const issue of validatePatternGeometry(doc)) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
   });
+
+type QuiltLayoutParsed = z.infer<typeof quiltLayoutSchema>;
+
+/** Cross-field rules of a quilt layout: known fabrics, one entry per cell, sashing and squares for an on-point setting. */
+function checkQuiltLayout(quilt: QuiltLayoutParsed, fabricIds: ReadonlySet<string>, ctx: z.RefinementCtx): void {
+  const fabric = (fabricId: string | undefined, path: Array<string | number>) => {
+    if (fabricId !== undefined && !fabricIds.has(fabricId)) ctx.addIssue({ code: 'custom', message: `unknown fabric "${fabricId}"`, path: ['quilt', ...path] });
+  };
+  fabric(quilt.alternateFabricId, ['alternateFabricId']);
+  fabric(quilt.sashing?.fabricId, ['sashing', 'fabricId']);
+  fabric(quilt.sashing?.cornerstoneFabricId, ['sashing', 'cornerstoneFabricId']);
+  quilt.borders.forEach((b, i) => fabric(b.fabricId, ['borders', i, 'fabricId']));
+  fabric(quilt.binding.fabricId, ['binding', 'fabricId']);
+  fabric(quilt.backing.fabricId, ['backing', 'fabricId']);
+  fabric(quilt.settingTrianglesFabricId, ['settingTrianglesFabricId']);
+  if (quilt.setting === 'on-point') {
+    if (quilt.sashing) ctx.addIssue({ code: 'custom', message: 'sashing is for a straight setting only; leave it out on point', path: ['quilt', 'sashing'] });
+    if (quilt.blockSizeIn && Math.abs(quilt.blockSizeIn.width - quilt.blockSizeIn.height) > 1e-9) {
+      ctx.addIssue({ code: 'custom', message: 'an on-point setting needs a square block', path: ['quilt', 'blockSizeIn'] });
+    }
+  }
+  const cells = new Set<string>();
+  quilt.cells?.forEach((c, i) => {
+    const key = `${c.row},${c.col}`;
+    if (cells.has(key)) ctx.addIssue({ code: 'custom', message: `duplicate cell at row ${c.row}, column ${c.col}`, path: ['quilt', 'cells', i] });
+    cells.add(key);
+    if (c.alternate && quilt.alternateFabricId === undefined) {
+      ctx.addIssue({ code: 'custom', message: 'a plain alternate block needs alternateFabricId', path: ['quilt', 'cells', i, 'alternate'] });
+    }
+  });
+  const names = new Set<string>();
+  quilt.sizes.forEach((s, i) => {
+    if (names.has(s.name)) ctx.addIssue({ code: 'custom', message: `duplicate size name "${s.name}"`, path: ['quilt', 'sizes', i, 'name'] });
+    names.add(s.name);
+  });
+}
 
 export type Point = z.infer<typeof pointSchema>;
 export type Fabric = z.infer<typeof fabricSchema>;
@@ -312,6 +458,16 @@ export type JoinStepInput = z.infer<typeof joinStepSchema>;
 export type JoiningPlanInput = z.infer<typeof joiningPlanSchema>;
 export type Section = z.infer<typeof sectionSchema>;
 export type ReferenceImage = z.infer<typeof referenceImageSchema>;
+export type QuiltCell = z.infer<typeof quiltCellSchema>;
+export type QuiltBorder = z.infer<typeof quiltBorderSchema>;
+export type QuiltSize = z.infer<typeof quiltSizeSchema>;
+/** A validated quilt layout (defaults filled in). */
+export type QuiltLayout = z.infer<typeof quiltLayoutSchema>;
+/** A quilt layout as written by hand or sent by a client. */
+export type QuiltLayoutInput = z.input<typeof quiltLayoutSchema>;
+export type QuiltSetting = QuiltLayout['setting'];
+export type ColourwayFabric = z.infer<typeof colourwayFabricSchema>;
+export type Colourway = z.infer<typeof colourwaySchema>;
 /** A validated pattern document (defaults filled in). */
 export type PatternDocument = z.infer<typeof patternDocumentSchema>;
 /** A pattern document as written by hand or sent by a client (defaults may be missing). */
