@@ -54,19 +54,30 @@ export class FontFallback {
 
   /** Whether the main family draws the whole text on its own. */
   mainCovers(value: string, bold: boolean): boolean {
-    for (let i = 0; i < value.length; i++) if (!this.has(this.mainFamily, value.charCodeAt(i), bold)) return false;
+    const map = this.coverage(this.mainFamily, bold);
+    for (let i = 0; i < value.length; i++) {
+      const code = value.charCodeAt(i);
+      const known = map.get(code);
+      if (known === false || (known === undefined && !this.has(this.mainFamily, code, bold))) return false;
+    }
     return true;
   }
 
-  private familyFor(code: number, bold: boolean): string | null {
+  /** The family that draws a character: the main one when it has it, else the first fallback that does; null when none. */
+  familyFor(code: number, bold: boolean): string | null {
     if (this.has(this.mainFamily, code, bold)) return this.mainFamily;
     return this.fallbacks.find((f) => this.has(f, code, bold)) ?? null;
   }
 
-  private has(family: string, code: number, bold: boolean): boolean {
-    const key = `${family}/${bold ? 'bold' : 'normal'}`;
+  private coverage(family: string, bold: boolean): Map<number, boolean> {
+    const key = bold ? `${family}/bold` : `${family}/normal`;
     let map = this.covered.get(key);
     if (!map) this.covered.set(key, (map = new Map()));
+    return map;
+  }
+
+  private has(family: string, code: number, bold: boolean): boolean {
+    const map = this.coverage(family, bold);
     let known = map.get(code);
     if (known === undefined) {
       const font = this.doc.internal as unknown as { getFont(family: string, style: string): GlyphSource };

@@ -28,6 +28,9 @@ export interface TextStyle {
 
 const pt = (inches: number): number => inches * POINTS_PER_INCH;
 
+/** Arabic letters and presentation forms: jsPDF joins them before measuring. */
+const ARABIC = /[\u0600-\u06ff\u0750-\u077f\u08a0-\u08ff\ufb50-\ufdff\ufe70-\ufeff]/;
+
 /**
  * Draws on a jsPDF document in inches from the page's top-left corner (y down), always with the
  * embedded TrueType fonts. Each polygon or polyline is one path (m … l … h) and one paint operator.
@@ -35,6 +38,8 @@ const pt = (inches: number): number => inches * POINTS_PER_INCH;
 export class PdfPen {
   /** Fonts for the characters the main one lacks (Japanese, Arabic …), when the document has them. */
   private readonly fallback: FontFallback;
+  /** Advance widths at 1 pt by font (`family/weight`) and character code, each measured once. */
+  private readonly widthCache = new Map<string, Map<number, number>>();
 
   constructor(readonly doc: jsPDF) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
@@ -134,9 +139,39 @@ export class PdfPen {
   }
 
   private runWidth(text: string, family: string, sizePt: number, bold: boolean): number {
-    this.doc.setFont(family, bold ? 'bold' : 'normal');
-    this.doc.setFontSize(sizePt);
-    return this.doc.getTextWidth(text) / POINTS_PER_INCH;
+    return (this.unitWidth(text, family, bold) * sizePt) / POINTS_PER_INCH;
+  }
+
+  /**
+   * Width of a text in one family at 1 pt, from widths measured once per character and font: jsPDF
+   * sums glyph advances without kerning (its `widthOfString`), so the sum of cached characters is the
+   * width it would measure for the whole string. Arabic is shaped first (joined forms), so it is measured whole.
+   */
+  private unitWidth(text: string, family: string, bold: boolean): number {
+    if (ARABIC.test(text)) {
+      this.doc.setFont(family, bold ? 'bold' : 'normal');
+      return this.doc.getStringUnitWidth(text);
+    }
+    const widths = this.glyphWidths(family, bold);
+    let sum = 0;
+    for (let i = 0; i < text.length; i++) {
+      const code = text.charCodeAt(i);
+      let w = widths.get(code);
+      if (w === undefined) {
+        this.doc.setFont(family, bold ? 'bold' : 'normal');
+        w = this.doc.getStringUnitWidth(text[i]);
+        widths.set(code, w);
+      }
+      sum += w;
+    }
+    return sum;
+  }
+
+  private glyphWidths(family: string, bold: boolean): Map<number, number> {
+    const key = bold ? `${family}/bold` : `${family}/normal`;
+    let map = this.widthCache.get(key);
+    if (!map) this.widthCache.set(key, (map = new Map()));
+    return map;
   }
 
   /** Width of a text in inches at a size and weight. */
@@ -144,16 +179,51 @@ export class PdfPen {
     if (!this.fallback.mainCovers(value, bold)) {
       return this.fallback.runs(value, bold).reduce((sum, r) => sum + this.runWidth(r.text, r.family, sizePt, bold), 0);
     }
-    this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
-    this.doc.setFontSize(sizePt);
-    return this.doc.getTextWidth(value) / POINTS_PER_INCH;
+    return this.runWidth(value, PDF_FONT_FAMILY, sizePt, bold);
   }
 
-  /** Splits text into lines no wider than `widthIn`. */
+  /**
+   * Splits text into lines no wider than `widthIn`: at spaces, at line breaks, and inside a word only
+   * when the word alone is wider than the line. Nothing is left out. Widths come from the per-character cache.
+   */
   wrap(value: string, widthIn: number, sizePt: number, bold = false): string[] {
-    this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
-    this.doc.setFontSize(sizePt);
-    return this.doc.splitTextToSize(value, pt(widthIn)) as string[];
+    const limit = widthIn + 1e-9;
+    const width = (s: string) => this.textWidth(s, sizePt, bold);
+    const space = width(' ');
+    const lines: string[] = [];
+    for (const paragraph of value.split(/\r?\n/)) {
+      let line = '';
+      let lineW = 0;
+      for (const word of paragraph.split(' ')) {
+        if (word === '') continue;
+        let w = width(word);
+        if (line !== '' && lineW + space + w <= limit) {
+          line += ` ${word}`;
+          lineW += space + w;
+          continue;
+        }
+        if (line !== '') lines.push(line);
+        line = word;
+        lineW = w;
+        // A word wider than the line: as many characters as fit on each line.
+        while (lineW > limit && line.length > 1) {
+          let cut = 1;
+          let cutW = width(line[0]);
+          while (cut < line.length) {
+            const next = width(line[cut]);
+            if (cutW + next > limit) break;
+            cutW += next;
+            cut++;
+          }
+          lines.push(line.slice(0, cut));
+          line = line.slice(cut);
+          w = width(line);
+          lineW = w;
+        }
+      }
+      lines.push(line);
+    }
+    return lines;
   }
 
   /** Runs `draw` with everything clipped to a rectangle. */

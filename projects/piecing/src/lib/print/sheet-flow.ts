@@ -12,6 +12,8 @@ export interface TableColumn {
 export type TableCell = string | { text: string; swatch: string };
 
 const ROW_IN = 0.2;
+const CELL_PAD = 0.04;
+const SWATCH_IN = 0.26;
 
 /**
  * Writes flowing content (headings, paragraphs, tables) down the content area of sheets, starting a
@@ -38,11 +40,13 @@ export class SheetFlow {
     return this.frame.content.width;
   }
 
-  private top(): number {
+  /** Where content starts on a sheet (below the test squares). */
+  top(): number {
     return this.frame.testBlock.y + this.frame.testBlock.height + 0.2;
   }
 
-  private bottom(): number {
+  /** Bottom of the content area on the current sheet. */
+  bottom(): number {
     return this.frame.content.y + this.frame.content.height;
   }
 
@@ -94,40 +98,89 @@ export class SheetFlow {
     this.y += heightIn;
   }
 
-  /** A table; the header row repeats on every sheet it runs onto. */
+  /**
+   * A table. A cell too long for its column wraps onto more lines (the row grows); a row that does not
+   * fit in the room left runs on onto the next sheet, and the header row repeats on every sheet the
+   * table runs onto. Nothing is shortened or left out.
+   */
   table(columns: readonly TableColumn[], rows: readonly TableCell[][], sizePt = 8): void {
+    const lineIn = tableLineIn(sizePt);
+    const total = sum(columns);
     const header = () => {
-      const y = this.room(ROW_IN * 2);
-      this.drawRow(columns, columns.map((c) => c.header), y, sizePt, true);
-      this.pen.segments([{ a: { x: this.left, y: y + ROW_IN }, b: { x: this.left + sum(columns), y: y + ROW_IN } }], { widthPt: 0.6 });
-      this.y = y + ROW_IN;
+      const lines = this.cellLines(columns, columns.map((c) => c.header), sizePt, true);
+      const height = rowHeight(Math.max(1, ...lines.map((l) => l.length)), lineIn);
+      // The header never stands alone at the foot of a sheet: room for it and one line of a row.
+      const y = this.room(height + ROW_IN);
+      this.drawRow(columns, columns.map((c) => c.header), lines, 0, Infinity, y, sizePt, true, lineIn);
+      this.pen.segments([{ a: { x: this.left, y: y + height }, b: { x: this.left + total, y: y + height } }], { widthPt: 0.6 });
+      this.y = y + height;
     };
     header();
+    let fresh = false;
     for (const row of rows) {
-      const before = this.y;
-      const y = this.room(ROW_IN);
-      if (y < before) header();
-      this.drawRow(columns, row, this.y, sizePt, false);
-      this.pen.segments([{ a: { x: this.left, y: this.y + ROW_IN }, b: { x: this.left + sum(columns), y: this.y + ROW_IN } }], { widthPt: 0.25, colour: '#888888' });
-      this.y += ROW_IN;
+      const lines = this.cellLines(columns, row, sizePt, false);
+      const count = Math.max(1, ...lines.map((l) => l.length));
+      let from = 0;
+      while (from < count) {
+        const left = count - from;
+        const fits = Math.floor((this.bottom() - this.y - (ROW_IN - lineIn)) / lineIn + 1e-9);
+        if (fits < left && !fresh) {
+          // A row that fits on a fresh sheet moves there whole; a longer one fills this sheet and runs on.
+          const fitsFresh = this.y - this.top() > 1e-9 && from === 0 && rowHeight(left, lineIn) <= this.sheetRoom - 2 * ROW_IN;
+          if (fits < 1 || fitsFresh) {
+            this.frame = this.newSheet();
+            this.y = this.top();
+            header();
+            fresh = true;
+            continue;
+          }
+        }
+        const take = Math.max(1, Math.min(left, fits));
+        const height = rowHeight(take, lineIn);
+        this.drawRow(columns, row, lines, from, from + take, this.y, sizePt, false, lineIn);
+        this.pen.segments([{ a: { x: this.left, y: this.y + height }, b: { x: this.left + total, y: this.y + height } }], { widthPt: 0.25, colour: '#888888' });
+        this.y += height;
+        from += take;
+        fresh = false;
+      }
     }
     this.y += 0.15;
   }
 
-  private drawRow(columns: readonly TableColumn[], cells: readonly TableCell[], y: number, sizePt: number, bold: boolean): void {
+  /** Each cell's text wrapped to its column (after the swatch, when it has one). */
+  private cellLines(columns: readonly TableColumn[], cells: readonly TableCell[], sizePt: number, bold: boolean): string[][] {
+    return columns.map((col, i) => {
+      const cell = cells[i] ?? '';
+      const text = typeof cell === 'string' ? cell : cell.text;
+      return this.pen.wrap(text, cellRoom(col, typeof cell !== 'string'), sizePt, bold);
+    });
+  }
+
+  /** Lines `from`…`to` (exclusive) of a row's cells, the first at `y`. */
+  private drawRow(
+    columns: readonly TableColumn[],
+    cells: readonly TableCell[],
+    lines: readonly string[][],
+    from: number,
+    to: number,
+    y: number,
+    sizePt: number,
+    bold: boolean,
+    lineIn: number,
+  ): void {
     let x = this.left;
     columns.forEach((col, i) => {
       const cell = cells[i] ?? '';
-      const text = typeof cell === 'string' ? cell : cell.text;
-      let tx = x + 0.04;
+      let tx = x + CELL_PAD;
       if (typeof cell !== 'string') {
-        this.pen.rect({ x: tx, y: y + 0.045, width: 0.2, height: 0.11 }, { widthPt: 0.3 }, cell.swatch);
-        tx += 0.26;
+        if (from === 0) this.pen.rect({ x: tx, y: y + 0.045, width: 0.2, height: 0.11 }, { widthPt: 0.3 }, cell.swatch);
+        tx += SWATCH_IN;
       }
-      const room = col.widthIn - (tx - x) - 0.04;
-      const shown = fit(this.pen, text, room, sizePt, bold);
-      if (col.align === 'right') this.pen.text(shown, { x: x + col.widthIn - 0.04, y: y + 0.14 }, { sizePt, bold, align: 'right' });
-      else this.pen.text(shown, { x: tx, y: y + 0.14 }, { sizePt, bold });
+      const shown = lines[i].slice(from, to);
+      shown.forEach((line, k) => {
+        const at = { x: col.align === 'right' ? x + col.widthIn - CELL_PAD : tx, y: y + 0.14 + k * lineIn };
+        this.pen.text(line, at, { sizePt, bold, ...(col.align === 'right' ? { align: 'right' as const } : {}) });
+      });
       x += col.widthIn;
     });
   }
@@ -144,9 +197,17 @@ function sum(columns: readonly TableColumn[]): number {
   return columns.reduce((s, c) => s + c.widthIn, 0);
 }
 
-function fit(pen: PdfPen, text: string, widthIn: number, sizePt: number, bold: boolean): string {
-  if (pen.textWidth(text, sizePt, bold) <= widthIn) return text;
-  let s = text;
-  while (s.length > 1 && pen.textWidth(`${s}…`, sizePt, bold) > widthIn) s = s.slice(0, -1);
-  return `${s}…`;
+/** Height of a table row of `lines` lines: one line keeps the usual 0.2 in. */
+export function rowHeight(lines: number, lineIn: number): number {
+  return ROW_IN + Math.max(0, lines - 1) * lineIn;
+}
+
+/** Line spacing inside table cells (1.2 × the type size). */
+export function tableLineIn(sizePt: number): number {
+  return (sizePt * 1.2) / 72;
+}
+
+/** Width a cell's text may take: the column less its padding, and the swatch when there is one. */
+export function cellRoom(col: TableColumn, swatch: boolean): number {
+  return col.widthIn - 2 * CELL_PAD - (swatch ? SWATCH_IN : 0);
 }
