@@ -56,7 +56,22 @@ export {
 
 /** From a block to a quilt (design §11): the quilt plan, sizes, colourways, the CLI's JSON. */
 export {
+  quiltPlan,
+  quiltCliJson,
+  quiltSizes,
+  applyColourway,
+  defaultBlockSizeIn,
+  blockDrawingBounds,
+  cellTransform,
+  quiltCentreSize,
+  quiltPositions,
+  settingTriangleCuts,
+  borderCuts,
+  bindingCuts,
+  backingCuts,
+  yardsToBuy,
   QuiltPlanError,
+  type BlockBounds,
   type QuiltPlan,
   type QuiltPlanOptions,
   type QuiltPlanCell,
