@@ -7,6 +7,7 @@ import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
 import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
+import { DocumentChecks } from './validation/document-checks';
 import { startHousekeeping, sweepStoredFiles } from './services/housekeeping';
 
 function log(message: string, err?: unknown): void {
@@ -29,7 +30,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
   const printSets = new PrintSetService(database.db, config, log);
   const mailOutbox = new MailOutbox(database.db, mailer, log);
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets };
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks() };
   printSets.resumeUnfinished();
   mailOutbox.start();
   const stopHousekeeping = startHousekeeping(database.db, log);
@@ -53,6 +54,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     clearTimeout(force);
     stopHousekeeping();
     await printSets.close();
+    await ctx.documentChecks.close();
     await mailOutbox.close();
     mailer.close();
     database.close();

@@ -5,6 +5,14 @@ import { HttpError } from './errors';
 export const SMALL_JSON_LIMIT = '64kb';
 
 /**
+ * Document bodies up to this many bytes are parsed and checked on the request thread; larger ones (and
+ * bodies of unknown length) of the routes that can, in the validation pool (server/validation). The
+ * ordinary save of a block is 1–20 kB, checked inline in about a millisecond; a worker hop would cost
+ * it more than that (bench/save-validation.bench.ts).
+ */
+export const INLINE_DOCUMENT_BYTES = 64 * 1024;
+
+/**
  * Deepest nesting of arrays and objects a JSON body may have. A pattern document nests about eight
  * levels (body → document → sections → geometry → vertices → point); 64 leaves room for growth.
  */
@@ -53,6 +61,19 @@ function takesDocument(req: Request): boolean {
 }
 
 /**
+ * Document routes whose large bodies are checked off the request thread: their bytes are handed over
+ * unparsed (a Buffer in `req.body`) and the route sends them to the validation pool
+ * (server/validation/document-checks.ts). A body of unknown length counts as large.
+ */
+function checkedOffThread(req: Request): boolean {
+  const offThread = (req.method === 'PUT' && /^\/patterns\/[^/]+\/?$/.test(req.path)) || (req.method === 'POST' && /^\/patterns\/?$/.test(req.path));
+  if (!offThread || Number(req.headers['content-length']) <= INLINE_DOCUMENT_BYTES) return false;
+  // Another charset than UTF-8 goes to the JSON parser, which answers 415 as before.
+  const charset = /;\s*charset="?([^";\s]+)/i.exec(req.headers['content-type'] ?? '')?.[1];
+  return charset === undefined || charset.toLowerCase() === 'utf-8';
+}
+
+/**
  * JSON bodies for the API, mounted after the session, CSRF and pattern-access checks so a signed-out
  * or forged request is refused before its body is read. Each route gets its own size limit (a pattern
  * document up to `documentLimit`, everything else {@link SMALL_JSON_LIMIT}); a document body is read
@@ -61,9 +82,10 @@ function takesDocument(req: Request): boolean {
 export function jsonBodies(documentLimit: string): RequestHandler {
   const small = express.json({ limit: SMALL_JSON_LIMIT, strict: true, verify: refuseDeepNesting });
   const large = express.json({ limit: documentLimit, strict: true, verify: refuseDeepNesting });
+  const raw = express.raw({ limit: documentLimit, type: 'application/json' });
   return (req, res, next) => {
     if (!takesDocument(req)) return small(req, res, next);
     if (!req.user) return next(new HttpError(401, 'Sign in first'));
-    return large(req, res, next);
+    return checkedOffThread(req) ? raw(req, res, next) : large(req, res, next);
   };
 }

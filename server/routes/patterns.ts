@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
-import { createPatternBodySchema, duplicateBodySchema, patternListQuerySchema, saveRevisionBodySchema } from '@seamwright/api';
+import { duplicateBodySchema, patternListQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
@@ -33,11 +33,11 @@ export function patternsRouter(ctx: AppContext): Router {
     res.json(listPatterns(db, user, q));
   });
 
-  router.post('/', requireUser, (req, res) => {
+  router.post('/', requireUser, async (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can create patterns');
-    const body = parseOr400(createPatternBodySchema, req.body);
-    const document = validDocument(body.document);
+    // A large body is parsed and checked in the validation pool (server/validation/document-checks.ts).
+    const { document } = await ctx.documentChecks.check('create', req.body);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
     sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
   });
@@ -49,11 +49,12 @@ export function patternsRouter(ctx: AppContext): Router {
     sendPatternWithRevision(res, 200, patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName);
   });
 
-  router.put('/:id', (req, res) => {
+  router.put('/:id', async (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    const body = parseOr400(saveRevisionBodySchema, req.body);
-    const document = validDocument(body.document);
+    // A large body is parsed and checked in the validation pool (server/validation/document-checks.ts);
+    // the document comes back as the JSON text the database stores.
+    const { fields: body, document } = await ctx.documentChecks.check('save', req.body);
     const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
     });

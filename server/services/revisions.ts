@@ -1,6 +1,5 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
-import { multiLineText, singleLineText } from '@seamwright/api';
-import { parsePatternDocument, type PatternDocument } from '@seamwright/piecing';
+import type { PatternDocument } from '@seamwright/piecing';
 import type { Response } from 'express';
 import type { DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
@@ -9,36 +8,13 @@ import { HttpError } from '../http/errors';
 import { newId } from '../auth/tokens';
 import type { Access } from './access';
 import { groupStartOf, versionJson } from './revision-groups';
+import { DocumentText } from '../validation/valid-document';
 
-/** Validates a pattern document with the piecing library's schema; 400 with the bad paths otherwise. */
-export function validDocument(raw: unknown): PatternDocument {
-  const result = parsePatternDocument(raw);
-  if (!result.ok) {
-    throw new HttpError(
-      400,
-      'The pattern document is not valid',
-      result.issues.map((i) => ({ path: i.path ? `document.${i.path}` : 'document', message: i.message })),
-    );
-  }
-  return withoutControlCharacters(result.document);
-}
+export { validDocument } from '../validation/valid-document';
 
-/**
- * The document's text without control characters (the API edge's rule, docs/api.md): title, fabric
- * and strip-set names, section notes and the designer's notes. A title left empty is refused.
- */
-function withoutControlCharacters(doc: PatternDocument): PatternDocument {
-  const title = singleLineText(doc.title).trim();
-  if (!title) throw new HttpError(400, 'The pattern document is not valid', [{ path: 'document.title', message: 'must not be empty' }]);
-  doc.title = title;
-  for (const f of doc.fabrics ?? []) f.name = singleLineText(f.name).trim() || 'Fabric';
-  for (const section of doc.sections as { name?: string; note?: string }[]) {
-    if (typeof section.name === 'string') section.name = singleLineText(section.name);
-    if (typeof section.note === 'string') section.note = multiLineText(section.note);
-  }
-  const withNotes = doc as { notes?: string };
-  if (typeof withNotes.notes === 'string') withNotes.notes = multiLineText(withNotes.notes);
-  return doc;
+/** A document as the database stores it: from the validation pool as text already, or an object to write out. */
+function stored(document: PatternDocument | DocumentText): DocumentText {
+  return document instanceof DocumentText ? document : DocumentText.of(document);
 }
 
 export function revisionSummary(r: Revision, authorName: string) {
@@ -108,7 +84,8 @@ const revisionQueries = preparedPerDb((db) => {
 });
 
 /** Creates a pattern with revision 1 in one transaction. */
-export function createPattern(db: DbLike, ownerId: string, document: PatternDocument) {
+export function createPattern(db: DbLike, ownerId: string, checked: PatternDocument | DocumentText) {
+  const document = stored(checked);
   const now = new Date();
   const id = newId();
   const pattern = db
@@ -118,7 +95,7 @@ export function createPattern(db: DbLike, ownerId: string, document: PatternDocu
     .get();
   const revision = db
     .insert(revisions)
-    .values({ id: newId(), patternId: id, number: 1, document: JSON.stringify(document), authorId: ownerId, groupStart: 1, createdAt: now })
+    .values({ id: newId(), patternId: id, number: 1, document: document.json, authorId: ownerId, groupStart: 1, createdAt: now })
     .returning()
     .get();
   return { pattern, revision };
@@ -143,10 +120,11 @@ export function saveRevision(
   tx: DbLike,
   patternId: string,
   baseRevision: number,
-  document: PatternDocument,
+  checked: PatternDocument | DocumentText,
   authorId: string,
   extras: SaveExtras = {},
 ) {
+  const document = stored(checked);
   const pattern = tx.select().from(patterns).where(eq(patterns.id, patternId)).get();
   if (!pattern) throw new HttpError(404, 'Pattern not found');
   if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
@@ -172,7 +150,7 @@ export function saveRevision(
       id: newId(),
       patternId,
       number,
-      document: JSON.stringify(document),
+      document: document.json,
       authorId,
       restoredFrom: extras.restoredFrom ?? null,
       editSession,

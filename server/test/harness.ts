@@ -11,6 +11,7 @@ import { openDatabase } from '../db/database';
 import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
 import { PrintSetService } from '../services/print-sets';
+import { DocumentChecks } from '../validation/document-checks';
 import { sampleBlock } from '../../tests/fixtures/documents';
 import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
 
@@ -44,7 +45,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   // Retries come quickly in tests; the first attempt always goes at once.
   const mailOutbox = new MailOutbox(database.db, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
   mailOutbox.start();
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets };
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks() };
   const app = createApp(ctx);
   return {
     app,
@@ -53,6 +54,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     dataDir,
     async close() {
       await ctx.printSets.close();
+      await ctx.documentChecks.close();
       await mailOutbox.close();
       mailer.close();
       database.close();
