@@ -81,8 +81,14 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
     }
     const widthIn = cleanLength(Math.min(a, b));
     const lengthIn = cleanLength(Math.max(a, b));
-    const plan = planWofStrips({ widthIn, lengthIn, count }, wofOf(fabricId));
     const list = setting.get(fabricId) ?? [];
+    // Equal pieces for the same use share strips (sashing between blocks and between rows of square blocks).
+    const same = list.findIndex((g) => g.use === use && g.widthIn === widthIn && g.lengthIn === lengthIn);
+    if (same >= 0) {
+      count += list[same]!.count;
+      list.splice(same, 1);
+    }
+    const plan = planWofStrips({ widthIn, lengthIn, count }, wofOf(fabricId));
     list.push({
       use,
       widthIn,
