@@ -59,12 +59,22 @@ export function ms(value: number): string {
   return value >= 100 ? value.toFixed(0) : value >= 10 ? value.toFixed(1) : value.toFixed(2);
 }
 
-/** One contender in an interleaved comparison: a name for the report and the work to time. */
-export interface RoundVariant {
-  name: string;
-  /** The work timed once per round (awaited if it returns a promise). */
-  run: () => unknown;
-}
+/**
+ * One contender in an interleaved comparison: a name for the report and either the work to time
+ * (`run`, timed here by the wall clock) or a `sample` that returns the milliseconds it measured itself
+ * (e.g. a time taken inside a browser page).
+ */
+export type RoundVariant =
+  | {
+      name: string;
+      /** The work timed once per round (awaited if it returns a promise). */
+      run: () => unknown;
+    }
+  | {
+      name: string;
+      /** Does the work once and returns its own measurement in milliseconds. */
+      sample: () => number | Promise<number>;
+    };
 
 /** Options of {@link interleavedRounds}. */
 export interface RoundsOptions {
@@ -121,9 +131,16 @@ export async function interleavedRounds(variants: readonly RoundVariant[], optio
   for (let round = -warmup; round < rounds; round++) {
     for (let k = 0; k < variants.length; k++) {
       const i = options.rotate ? (k + Math.max(round, 0)) % variants.length : k;
-      const t0 = performance.now();
-      for (let r = 0; r < repeat; r++) await variants[i].run();
-      const elapsed = (performance.now() - t0) / repeat;
+      const v = variants[i];
+      let elapsed = 0;
+      if ('sample' in v) {
+        for (let r = 0; r < repeat; r++) elapsed += await v.sample();
+        elapsed /= repeat;
+      } else {
+        const t0 = performance.now();
+        for (let r = 0; r < repeat; r++) await v.run();
+        elapsed = (performance.now() - t0) / repeat;
+      }
       if (round >= 0) times[i].push(elapsed);
     }
   }
