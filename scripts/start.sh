@@ -36,8 +36,8 @@ trap 'kill $mail_pid ${stripe_pid:-} 2>/dev/null || true' EXIT INT TERM
 echo
 echo "  Seamwright: $PUBLIC_URL"
 echo "  Demo sign-in (studio \"Fernbrook Patterns\"):"
-# The accounts come from the seed itself, so this list cannot drift from what is in the database.
-node --import tsx -e "import('./server/db/seed.ts').then((m) => { for (const a of m.DEMO_ACCOUNTS) console.log('    ' + a.role.padEnd(9) + ' ' + a.email + ' / ' + a.password); })"
+# The accounts come from the seed's own list (server/db/demo-accounts.ts), so this cannot drift from the database.
+node --import tsx -e "import('./server/db/demo-accounts.ts').then((m) => { for (const a of m.DEMO_ACCOUNTS) console.log('    ' + a.role.padEnd(9) + ' ' + a.email + ' / ' + a.password); })"
 echo "  Mail sent by the app: $MAIL_INBOX_URL"
 echo
 node --import tsx server/main.ts

@@ -13,14 +13,10 @@ import { loadConfig } from '../config';
 import { createPattern } from '../services/revisions';
 import { seedDemoShop } from '../shop/demo-shop';
 import { openDatabase, type Db } from './database';
-import { members, patterns, users, type Role } from './schema';
+import { DEMO_ACCOUNTS } from './demo-accounts';
+import { members, patterns, users } from './schema';
 
-/** The demo sign-ins (also in the README). */
-export const DEMO_ACCOUNTS: { email: string; password: string; displayName: string; role: Role }[] = [
-  { email: 'admin@fernbrook.example', password: 'fernbrook-admin', displayName: 'Fernbrook Studio Admin', role: 'admin' },
-  { email: 'designer@fernbrook.example', password: 'fernbrook-designer', displayName: 'Mira Fernbrook', role: 'designer' },
-  { email: 'quilter@fernbrook.example', password: 'fernbrook-quilter', displayName: 'Jonah Pell', role: 'quilter' },
-];
+export { DEMO_ACCOUNTS } from './demo-accounts';
 
 /** The piecing library's demo builders, in seeding order. */
 const DEMO_BUILDERS: (() => unknown)[] = [buildOrchardWheel, buildGardenGate];
