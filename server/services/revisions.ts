@@ -43,7 +43,12 @@ export function revisionJsonText(r: Revision, authorName: string): string {
 
 /** Sends `{ pattern, revision }` (the answer of reads and saves) without re-serialising the document. */
 export function sendPatternWithRevision(res: Response, status: number, pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): void {
-  res.status(status).type('application/json').send(`{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`);
+  res.status(status).type('application/json').send(patternWithRevisionText(pattern, revision, authorName));
+}
+
+/** The JSON text of `{ pattern, revision }` (the validation pool writes a save's answer with it too). */
+export function patternWithRevisionText(pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): string {
+  return `{"pattern":${JSON.stringify(pattern)},"revision":${revisionJsonText(revision, authorName)}}`;
 }
 
 export function patternJson(p: Pattern, ownerName: string, access: Access) {
