@@ -2,3 +2,4 @@
 export { buildOrchardWheel, ORCHARD_WHEEL_FABRICS } from './orchard-wheel';
 export { buildGardenGate } from './garden-gate';
 export { buildStressPattern, MAX_STRESS_PATCHES } from './stress-pattern';
+export { orchardWheelQuilt, orchardWheelColourways } from './orchard-wheel-quilt';

@@ -1,6 +1,7 @@
 import type { Fabric, PatternDocument, Point, Section } from '../document/pattern-schema';
 import { degToRad, flattenArc } from '../geometry/index';
 import { polar, round6, seam } from './demo-helpers';
+import { orchardWheelColourways, orchardWheelQuilt } from './orchard-wheel-quilt';
 
 /** Fabrics of the Orchard Wheel demo (invented). */
 export const ORCHARD_WHEEL_FABRICS: Fabric[] = [
@@ -20,7 +21,8 @@ const UP_DEG = -90; // straight up on screen (y points down)
  * (radius 5 in.), a ring of 8 arc sections (5–8 in.) each carrying a pieced centre stripe (strip set Plum
  * 2 in. + Oat 1 in. + Plum 2 in.) with guide lines, a ring of 16 arc sections (8–11 in.) of points, and 4
  * straight corner sections squaring the 22 in. circle to a 26 in. block. Each ring is one section with a
- * ring repeat. Every section is sewable in its patch order.
+ * ring repeat. Every section is sewable in its patch order. Set into a quilt with three named sizes and two
+ * colourways (orchard-wheel-quilt.ts).
  */
 export function buildOrchardWheel(): PatternDocument {
   return {
@@ -34,6 +36,8 @@ export function buildOrchardWheel(): PatternDocument {
     canvas: { widthIn: SIZE_IN, heightIn: SIZE_IN },
     fabrics: ORCHARD_WHEEL_FABRICS.map((f) => ({ ...f })),
     sections: [starWedge(), stripeBand(), pointsRing(), corner()],
+    quilt: orchardWheelQuilt(),
+    colourways: orchardWheelColourways(),
   };
 }
 
