@@ -15,7 +15,7 @@ export const patternRoutes: Routes = [
         loadComponent: () => import('./board/board-page.component').then((m) => m.BoardPageComponent),
         title: 'Drafting board · Seamwright',
       },
-      { path: 'quilt', loadComponent: () => import('./quilt/quilt-page.component').then((m) => m.QuiltPageComponent), title: 'Quilt · Seamwright' },
+      { path: 'quilt', canDeactivate: [unsavedChangesGuard], loadComponent: () => import('./quilt/quilt-page.component').then((m) => m.QuiltPageComponent), title: 'Quilt · Seamwright' },
       { path: 'cutting', loadComponent: () => import('./cutting/cutting-page.component').then((m) => m.CuttingPageComponent), title: 'Cutting list · Seamwright' },
       { path: 'print', loadComponent: () => import('./print/print-page.component').then((m) => m.PrintPageComponent), title: 'Print · Seamwright' },
       { path: 'share', loadComponent: () => import('./share/share-page.component').then((m) => m.SharePageComponent), title: 'Share · Seamwright' },
