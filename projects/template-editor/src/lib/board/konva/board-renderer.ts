@@ -1,22 +1,32 @@
 import Konva from 'konva';
-import type { Fabric, PatternDocument, Section } from '@seamwright/piecing';
-import { sectionHandles, toScreen, type BoardEditor, type BoardHighlight, type ToolPreview } from '../../core/public-api';
+import type { Fabric, PatternDocument, Point, Section } from '@seamwright/piecing';
+import { sectionHandles, toDocument, toScreen, type BoardEditor, type BoardHighlight, type ToolPreview } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 import { createGridShape, createRulerShape, RULER_PX, type GridView } from './grid-shape';
-import { createSectionNode, rescaleLabels } from './section-node';
+import { createSectionShape, type SectionView } from './section-shape';
 
 interface SectionEntry {
   section: Section;
-  node: Konva.Group;
+  node: Konva.Shape;
   active: boolean;
-  key: string;
+  /** Seam allowance and fabric colours the shape was made with. */
+  settings: string;
+  /** The selected patch the shape shows (active sections only). */
+  patchIndex: number | null;
+  /** The render pass that last saw the section in the document. */
+  pass: number;
 }
+
+/** Screen pixels around the board within which sections are still drawn (strokes reach past outlines). */
+const CULL_MARGIN_PX = 16;
 
 /**
  * Draws a {@link BoardEditor} on a Konva stage. Layers: grid (screen space), reference image, the
  * static sections, the active section (selected or being dragged), the tool overlay and the rulers.
- * A section is rebuilt only when its object changed, and only the layers that changed are redrawn:
- * a vertex drag redraws the active layer and the overlay, never the static sections.
+ * Each section is one shape that draws its patches, lines and numbers straight onto the layer's
+ * canvas; a section is rebuilt only when its object changed, and only the layers that changed are
+ * redrawn: a vertex drag redraws the active layer and the overlay, never the static sections. The
+ * overlay (handles, snap marker, cursor, tool preview, highlight) is one shape redrawn each frame.
  */
 export class BoardRenderer {
   readonly stage: Konva.Stage;
@@ -36,9 +46,12 @@ export class BoardRenderer {
   /** Placement and opacity the trace image was last drawn with. */
   private referenceKey = '';
   private frame = 0;
+  private pass = 0;
   private lastViewKey = '';
-  private lastScale = 0;
-  private lastMirrored = false;
+  private sectionView: SectionView = { scale: 1, mirrored: false, visible: { minX: 0, minY: 0, maxX: 0, maxY: 0 } };
+  private fabricsFor: { list: readonly Fabric[]; map: Map<string, Fabric>; key: string } | null = null;
+  /** The section the overlay draws handles for, found again only when the document or selection changes. */
+  private activeSection: { doc: PatternDocument; id: string | null; section: Section | undefined } | null = null;
   private readonly unsubscribe: Array<() => void> = [];
   /** How many times each layer was drawn (for tests and the benchmark). */
   readonly draws = { grid: 0, static: 0, active: 0, overlay: 0 };
@@ -71,6 +84,14 @@ export class BoardRenderer {
     this.referenceLayer.add(this.referenceContent);
     this.staticLayer.add(this.staticContent);
     this.activeLayer.add(this.activeContent);
+    this.overlayLayer.add(
+      new Konva.Shape({
+        name: 'overlay',
+        listening: false,
+        perfectDrawEnabled: false,
+        sceneFunc: (context) => this.drawOverlay(context._context),
+      }),
+    );
     this.stage.add(this.gridLayer, this.referenceLayer, this.staticLayer, this.activeLayer, this.rulerLayer, this.overlayLayer);
     this.unsubscribe.push(editor.store.subscribe(() => this.schedule()));
     this.unsubscribe.push(editor.onViewChange(() => this.schedule()));
@@ -150,7 +171,8 @@ export class BoardRenderer {
     const ed = this.editor;
     const v = ed.viewport;
     const doc = ed.store.document;
-    const viewKey = `${v.scale}|${v.originX}|${v.originY}|${v.mirrored}|${v.mirrorWidthIn}|${ed.sizePx.width}|${ed.sizePx.height}|${ed.settings.unit}|${doc.canvas.widthIn}|${doc.canvas.heightIn}`;
+    const size = ed.sizePx;
+    const viewKey = `${v.scale}|${v.originX}|${v.originY}|${v.mirrored}|${v.mirrorWidthIn}|${size.width}|${size.height}|${ed.settings.unit}|${doc.canvas.widthIn}|${doc.canvas.heightIn}`;
     const viewChanged = viewKey !== this.lastViewKey;
     this.lastViewKey = viewKey;
     let staticDirty = viewChanged;
@@ -161,50 +183,53 @@ export class BoardRenderer {
         g.position({ x: v.originX + (v.mirrored ? v.mirrorWidthIn * v.scale : 0), y: v.originY });
         g.scale({ x: v.mirrored ? -v.scale : v.scale, y: v.scale });
       }
-      if (v.scale !== this.lastScale || v.mirrored !== this.lastMirrored) {
-        for (const e of this.entries.values()) rescaleLabels(e.node, v.scale, v.mirrored);
-        this.lastScale = v.scale;
-        this.lastMirrored = v.mirrored;
-      }
+      const a = toDocument(v, { x: -CULL_MARGIN_PX, y: -CULL_MARGIN_PX });
+      const b = toDocument(v, { x: size.width + CULL_MARGIN_PX, y: size.height + CULL_MARGIN_PX });
+      this.sectionView = { scale: v.scale, mirrored: v.mirrored, visible: { minX: Math.min(a.x, b.x), minY: a.y, maxX: Math.max(a.x, b.x), maxY: b.y } };
     }
 
     const selection = ed.store.selection;
     const activeId = ed.store.gestureSectionId ?? selection.sectionId;
-    const fabrics = new Map<string, Fabric>(doc.fabrics.map((f) => [f.id, f]));
-    const settingsKey = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabricKey(doc)}`;
-    const seen = new Set<string>();
-    doc.sections.forEach((section) => {
-      seen.add(section.id);
+    const fabrics = this.fabricMap(doc);
+    const settings = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabrics.key}`;
+    const pass = ++this.pass;
+    const sections = doc.sections;
+    for (let i = 0; i < sections.length; i++) {
+      const section = sections[i];
       const active = section.id === activeId;
-      const key = `${settingsKey}|${active ? `sel:${selection.patchIndex}` : ''}`;
+      const patchIndex = active ? selection.patchIndex : null;
       const old = this.entries.get(section.id);
       // Sections keep the order they were added in; a section going back from the active layer lands on top.
-      if (old && old.section === section && old.active === active && old.key === key) return;
+      if (old && old.section === section && old.active === active && old.settings === settings && old.patchIndex === patchIndex) {
+        old.pass = pass;
+        continue;
+      }
       if (old) {
         old.node.destroy();
         if (old.active) activeDirty = true;
         else staticDirty = true;
       }
-      const node = createSectionNode(section, {
+      const node = createSectionShape(section, {
         analysis: ed.analysis,
-        fabrics,
+        fabrics: fabrics.map,
         selected: active,
-        selectedPatchIndex: active ? selection.patchIndex : null,
+        selectedPatchIndex: patchIndex,
         allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
-        scale: v.scale,
-        mirrored: v.mirrored,
+        view: () => this.sectionView,
       });
       (active ? this.activeContent : this.staticContent).add(node);
       if (active) activeDirty = true;
       else staticDirty = true;
-      this.entries.set(section.id, { section, node, active, key });
-    });
-    for (const [id, e] of this.entries) {
-      if (seen.has(id)) continue;
-      e.node.destroy();
-      this.entries.delete(id);
-      if (e.active) activeDirty = true;
-      else staticDirty = true;
+      this.entries.set(section.id, { section, node, active, settings, patchIndex, pass });
+    }
+    if (this.entries.size !== sections.length) {
+      for (const [id, e] of this.entries) {
+        if (e.pass === pass) continue;
+        e.node.destroy();
+        this.entries.delete(id);
+        if (e.active) activeDirty = true;
+        else staticDirty = true;
+      }
     }
 
     if (this.placeReferenceImage(doc) && !viewChanged) this.referenceLayer.draw();
@@ -223,88 +248,158 @@ export class BoardRenderer {
       this.activeLayer.draw();
       this.draws.active++;
     }
-    this.drawOverlay(activeId);
-  }
-
-  private drawOverlay(activeId: string | null): void {
-    const ed = this.editor;
-    const v = ed.viewport;
-    this.overlayLayer.destroyChildren();
-    this.drawHighlight();
-    const doc = ed.store.document;
-    const selected = activeId ? doc.sections.find((s) => s.id === activeId) : undefined;
-    if (selected && ed.tool.id === 'select' && !ed.readOnly) {
-      for (const h of sectionHandles(selected.geometry)) {
-        const p = toScreen(v, h.point);
-        this.overlayLayer.add(new Konva.Rect({ name: 'handle', x: p.x - 4, y: p.y - 4, width: 8, height: 8, fill: '#ffffff', stroke: BOARD_COLOURS.handle, strokeWidth: 1.5, listening: false }));
-      }
-    }
-    const preview = ed.tool.preview();
-    if (preview) this.drawPreview(preview);
-    const snap = ed.lastSnap;
-    if (snap && snap.kind !== 'none' && snap.kind !== 'grid') {
-      const p = toScreen(v, snap.point);
-      this.overlayLayer.add(new Konva.Circle({ name: 'snap-marker', x: p.x, y: p.y, radius: 5, stroke: BOARD_COLOURS.snap, strokeWidth: 2, listening: false }));
-    }
-    const cursor = ed.cursor;
-    if (cursor) {
-      const p = toScreen(v, cursor);
-      // Where the pointer is, marked on both rulers.
-      this.overlayLayer.add(new Konva.Line({ points: [p.x, 0, p.x, RULER_PX], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
-      this.overlayLayer.add(new Konva.Line({ points: [0, p.y, RULER_PX, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
-      this.overlayLayer.add(new Konva.Line({ points: [p.x - 6, p.y, p.x + 6, p.y], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
-      this.overlayLayer.add(new Konva.Line({ points: [p.x, p.y - 6, p.x, p.y + 6], stroke: BOARD_COLOURS.snap, strokeWidth: 1, listening: false }));
-    }
     this.overlayLayer.draw();
     this.draws.overlay++;
   }
 
-  /** The highlight in screen space: a light halo under a bold line, so it reads on any fabric. */
-  private drawHighlight(): void {
-    const h = this.highlight;
-    if (!h) return;
-    const v = this.editor.viewport;
-    for (const path of h.paths) {
-      const points = path.flatMap((p) => {
-        const s = toScreen(v, p);
-        return [s.x, s.y];
-      });
-      this.overlayLayer.add(new Konva.Line({ points, stroke: HIGHLIGHT_HALO, strokeWidth: 10, lineCap: 'round', lineJoin: 'round', listening: false }));
-      this.overlayLayer.add(new Konva.Line({ name: 'highlight', points, stroke: HIGHLIGHT_INK, strokeWidth: 4, lineCap: 'round', lineJoin: 'round', listening: false }));
+  /** The document's fabrics by id and a key of their colours, made again only when the fabric list changes. */
+  private fabricMap(doc: PatternDocument): { map: Map<string, Fabric>; key: string } {
+    if (this.fabricsFor?.list !== doc.fabrics) {
+      this.fabricsFor = { list: doc.fabrics, map: new Map(doc.fabrics.map((f) => [f.id, f])), key: fabricKey(doc) };
     }
-    for (const m of h.marks) {
-      const s = toScreen(v, m);
-      this.overlayLayer.add(new Konva.Circle({ name: 'highlight-mark', x: s.x, y: s.y, radius: 5, fill: HIGHLIGHT_INK, stroke: HIGHLIGHT_HALO, strokeWidth: 2, listening: false }));
+    return this.fabricsFor;
+  }
+
+  /** The overlay in screen space: highlight, the active section's handles, the tool preview, the snap marker and the cursor. */
+  private drawOverlay(ctx: CanvasRenderingContext2D): void {
+    const ed = this.editor;
+    const v = ed.viewport;
+    this.drawHighlight(ctx);
+    const doc = ed.store.document;
+    const activeId = ed.store.gestureSectionId ?? ed.store.selection.sectionId;
+    if (this.activeSection?.doc !== doc || this.activeSection.id !== activeId) {
+      this.activeSection = { doc, id: activeId, section: activeId ? doc.sections.find((s) => s.id === activeId) : undefined };
+    }
+    const selected = this.activeSection.section;
+    if (selected && ed.tool.id === 'select' && !ed.readOnly) {
+      ctx.fillStyle = '#ffffff';
+      ctx.strokeStyle = BOARD_COLOURS.handle;
+      ctx.lineWidth = 1.5;
+      for (const h of sectionHandles(selected.geometry)) {
+        const p = toScreen(v, h.point);
+        ctx.fillRect(p.x - 4, p.y - 4, 8, 8);
+        ctx.strokeRect(p.x - 4, p.y - 4, 8, 8);
+      }
+    }
+    const preview = ed.tool.preview();
+    if (preview) this.drawPreview(ctx, preview);
+    const snap = ed.lastSnap;
+    if (snap && snap.kind !== 'none' && snap.kind !== 'grid') {
+      const p = toScreen(v, snap.point);
+      ctx.beginPath();
+      ctx.arc(p.x, p.y, 5, 0, Math.PI * 2);
+      ctx.strokeStyle = BOARD_COLOURS.snap;
+      ctx.lineWidth = 2;
+      ctx.stroke();
+    }
+    const cursor = ed.cursor;
+    if (cursor) {
+      const p = toScreen(v, cursor);
+      // Where the pointer is, marked on both rulers, and a small cross at the pointer.
+      ctx.beginPath();
+      ctx.moveTo(p.x, 0);
+      ctx.lineTo(p.x, RULER_PX);
+      ctx.moveTo(0, p.y);
+      ctx.lineTo(RULER_PX, p.y);
+      ctx.moveTo(p.x - 6, p.y);
+      ctx.lineTo(p.x + 6, p.y);
+      ctx.moveTo(p.x, p.y - 6);
+      ctx.lineTo(p.x, p.y + 6);
+      ctx.strokeStyle = BOARD_COLOURS.snap;
+      ctx.lineWidth = 1;
+      ctx.stroke();
     }
   }
 
-  private drawPreview(preview: ToolPreview): void {
+  /** The highlight in screen space: a light halo under a bold line, so it reads on any fabric. */
+  private drawHighlight(ctx: CanvasRenderingContext2D): void {
+    const h = this.highlight;
+    if (!h) return;
     const v = this.editor.viewport;
-    const scr = (p: { x: number; y: number }) => toScreen(v, p);
-    const flat = (pts: Array<{ x: number; y: number }>) => pts.flatMap((p) => {
-      const s = scr(p);
-      return [s.x, s.y];
-    });
+    ctx.lineCap = 'round';
+    ctx.lineJoin = 'round';
+    for (const path of h.paths) {
+      ctx.beginPath();
+      path.forEach((q, i) => {
+        const s = toScreen(v, q);
+        if (i === 0) ctx.moveTo(s.x, s.y);
+        else ctx.lineTo(s.x, s.y);
+      });
+      ctx.strokeStyle = HIGHLIGHT_HALO;
+      ctx.lineWidth = 10;
+      ctx.stroke();
+      ctx.strokeStyle = HIGHLIGHT_INK;
+      ctx.lineWidth = 4;
+      ctx.stroke();
+    }
+    ctx.lineCap = 'butt';
+    ctx.lineJoin = 'miter';
+    for (const m of h.marks) {
+      const s = toScreen(v, m);
+      ctx.beginPath();
+      ctx.arc(s.x, s.y, 5, 0, Math.PI * 2);
+      ctx.fillStyle = HIGHLIGHT_INK;
+      ctx.fill();
+      ctx.strokeStyle = HIGHLIGHT_HALO;
+      ctx.lineWidth = 2;
+      ctx.stroke();
+    }
+  }
+
+  private drawPreview(ctx: CanvasRenderingContext2D, preview: ToolPreview): void {
+    const v = this.editor.viewport;
+    const path = (pts: readonly Point[], closed: boolean) => {
+      ctx.beginPath();
+      pts.forEach((q, i) => {
+        const s = toScreen(v, q);
+        if (i === 0) ctx.moveTo(s.x, s.y);
+        else ctx.lineTo(s.x, s.y);
+      });
+      if (closed) ctx.closePath();
+    };
+    const dashed = (colour: string) => {
+      ctx.strokeStyle = colour;
+      ctx.lineWidth = 2;
+      ctx.setLineDash([6, 4]);
+      ctx.stroke();
+      ctx.setLineDash([]);
+    };
     switch (preview.kind) {
       case 'polyline':
-        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat(preview.points), closed: preview.closed, stroke: BOARD_COLOURS.preview, strokeWidth: 2, dash: [6, 4], listening: false }));
-        for (const p of preview.points) {
-          const s = scr(p);
-          this.overlayLayer.add(new Konva.Circle({ x: s.x, y: s.y, radius: 3, fill: BOARD_COLOURS.preview, listening: false }));
+        path(preview.points, preview.closed);
+        dashed(BOARD_COLOURS.preview);
+        ctx.fillStyle = BOARD_COLOURS.preview;
+        for (const q of preview.points) {
+          const s = toScreen(v, q);
+          ctx.beginPath();
+          ctx.arc(s.x, s.y, 3, 0, Math.PI * 2);
+          ctx.fill();
         }
         return;
-      case 'geometry': {
-        const outline = this.editor.analysis.outline(preview);
-        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat(outline), closed: true, fill: 'rgba(31,122,140,0.12)', stroke: BOARD_COLOURS.preview, strokeWidth: 2, dash: [6, 4], listening: false }));
+      case 'geometry':
+        path(this.editor.analysis.outline(preview), true);
+        ctx.fillStyle = 'rgba(31,122,140,0.12)';
+        ctx.fill();
+        dashed(BOARD_COLOURS.preview);
         return;
-      }
       case 'seam':
-        this.overlayLayer.add(new Konva.Line({ name: 'tool-preview', points: flat([preview.a, preview.b]), stroke: preview.valid ? BOARD_COLOURS.preview : BOARD_COLOURS.previewInvalid, strokeWidth: 2, listening: false }));
+        path([preview.a, preview.b], false);
+        ctx.strokeStyle = preview.valid ? BOARD_COLOURS.preview : BOARD_COLOURS.previewInvalid;
+        ctx.lineWidth = 2;
+        ctx.stroke();
         return;
       case 'marker': {
-        const s = scr(preview.point);
-        this.overlayLayer.add(new Konva.Circle({ name: 'tool-preview', x: s.x, y: s.y, radius: 6, stroke: BOARD_COLOURS.preview, strokeWidth: 2, listening: false }));
-        this.overlayLayer.add(new Konva.Text({ x: s.x + 8, y: s.y - 16, text: preview.label, fontSize: 12, fill: BOARD_COLOURS.preview, listening: false }));
+        const s = toScreen(v, preview.point);
+        ctx.beginPath();
+        ctx.arc(s.x, s.y, 6, 0, Math.PI * 2);
+        ctx.strokeStyle = BOARD_COLOURS.preview;
+        ctx.lineWidth = 2;
+        ctx.stroke();
+        ctx.font = '12px Arial';
+        ctx.textAlign = 'left';
+        ctx.textBaseline = 'top';
+        ctx.fillStyle = BOARD_COLOURS.preview;
+        ctx.fillText(preview.label, s.x + 8, s.y - 16);
         return;
       }
     }

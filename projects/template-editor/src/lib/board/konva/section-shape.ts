@@ -1,0 +1,265 @@
+import Konva from 'konva';
+import { polygonBounds, type Bounds, type Fabric, type Point, type Section } from '@seamwright/piecing';
+import type { BoardPatch, SectionAnalysis } from '../../core/public-api';
+import { BOARD_COLOURS } from './board-colours';
+
+/** The view a section is drawn in, read at every draw (a zoom or pan redraws without a rebuild). */
+export interface SectionView {
+  /** Pixels per inch. */
+  scale: number;
+  mirrored: boolean;
+  /** The part of the document on screen, in inches (sections wholly outside it are not drawn). */
+  visible: Bounds;
+}
+
+/** What a section's shape shows besides the section itself. */
+export interface SectionShapeOptions {
+  analysis: SectionAnalysis;
+  fabrics: ReadonlyMap<string, Fabric>;
+  selected: boolean;
+  selectedPatchIndex: number | null;
+  /** Cutting line of each placement, when the seam allowance preview is on. */
+  allowanceIn: number | null;
+  view: () => SectionView;
+}
+
+/** Smallest patch size on screen, in pixels, that still shows its number. */
+export const MIN_LABELLED_PATCH_PX = 26;
+
+/** Label type: bold 12 px on a 3 px paper-coloured halo, the same size on screen at every zoom. */
+const LABEL_FONT = 'bold 12px Roboto, sans-serif';
+const REASON_FONT = '11px Roboto, sans-serif';
+/** The reason box: text wrapped to this width (padding included), below the failing patch's number. */
+const REASON_WIDTH_PX = 240;
+const REASON_PADDING_PX = 6;
+const REASON_LINE_PX = 11;
+const REASON_DROP_PX = 14;
+
+interface PatchDrawing {
+  patch: BoardPatch;
+  path: Path2D;
+  fill: string;
+  bands: Array<{ path: Path2D; fill: string }> | null;
+  guides: Path2D | null;
+  /** The smaller side of the patch's bounding box, in inches (labels of smaller patches are hidden). */
+  sizeIn: number;
+  failing: boolean;
+}
+
+interface CopyDrawing {
+  alpha: number;
+  patches: PatchDrawing[];
+  /** The outline filled blank when the section has no patches (a half-drawn or invalid outline). */
+  blank: Path2D | null;
+  outline: Path2D;
+  cutting: Path2D | null;
+}
+
+interface SectionDrawing {
+  copies: CopyDrawing[];
+  bounds: Bounds;
+  reason: { text: string; at: Point } | null;
+}
+
+function ringPath(points: readonly Point[]): Path2D {
+  const path = new Path2D();
+  for (let i = 0; i < points.length; i++) {
+    if (i === 0) path.moveTo(points[i].x, points[i].y);
+    else path.lineTo(points[i].x, points[i].y);
+  }
+  path.closePath();
+  return path;
+}
+
+function patchFill(p: BoardPatch, fabrics: ReadonlyMap<string, Fabric>): string {
+  if (p.stripSet) return fabrics.get(p.stripSet.strips[0]?.fabricId ?? '')?.colour ?? BOARD_COLOURS.emptyPatch;
+  return (p.fabricId && fabrics.get(p.fabricId)?.colour) || BOARD_COLOURS.emptyPatch;
+}
+
+/** Everything one section draws, in document inches, from the analysis' cached facts. */
+function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing {
+  const sewability = o.analysis.sewability(section);
+  const failingNumber = sewability.ok ? null : (sewability.failingPatchNumber ?? null);
+  const outlines: Point[] = [];
+  const copies = o.analysis.placements(section).map((placement, copyIndex): CopyDrawing => {
+    const patches = o.analysis.patches(placement);
+    const outline = o.analysis.outline(placement);
+    for (const q of outline) outlines.push(q);
+    const cut = o.allowanceIn !== null ? o.analysis.cuttingLine(placement, o.allowanceIn) : null;
+    if (cut) for (const q of cut) outlines.push(q);
+    return {
+      alpha: copyIndex === 0 ? 1 : 0.55,
+      patches: patches.map((p) => {
+        const b = polygonBounds(p.polygon);
+        let guides: Path2D | null = null;
+        if (p.guideLines.length > 0) {
+          guides = new Path2D();
+          for (const [a, c] of p.guideLines) {
+            guides.moveTo(a.x, a.y);
+            guides.lineTo(c.x, c.y);
+          }
+        }
+        return {
+          patch: p,
+          path: ringPath(p.polygon),
+          fill: patchFill(p, o.fabrics),
+          bands: p.stripBands ? p.stripBands.map((band) => ({ path: ringPath(band.polygon), fill: o.fabrics.get(band.fabricId)?.colour ?? BOARD_COLOURS.emptyPatch })) : null,
+          guides,
+          sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY),
+          failing: copyIndex === 0 && failingNumber === p.number,
+        };
+      }),
+      blank: patches.length === 0 && outline.length > 2 ? ringPath(outline) : null,
+      outline: ringPath(outline),
+      cutting: cut ? ringPath(cut) : null,
+    };
+  });
+  let reason: SectionDrawing['reason'] = null;
+  // The reason in words goes with the selected section; others show the outline and a red number.
+  if (o.selected && !sewability.ok && sewability.reason) {
+    const own = copies[0]?.patches ?? [];
+    const failing = own.find((d) => d.failing);
+    const at = failing?.patch.labelPoint ?? o.analysis.outline(section)[0];
+    if (at) reason = { text: sewability.reason, at };
+  }
+  return { copies, bounds: outlines.length > 0 ? polygonBounds(outlines) : { minX: 0, minY: 0, maxX: 0, maxY: 0 }, reason };
+}
+
+function overlaps(a: Bounds, b: Bounds): boolean {
+  return a.minX <= b.maxX && b.minX <= a.maxX && a.minY <= b.maxY && b.minY <= a.maxY;
+}
+
+/** Strokes `path` `px` screen pixels wide (dashes in screen pixels too) under a content transform of `scale`. */
+function strokeScreen(ctx: CanvasRenderingContext2D, path: Path2D, colour: string, px: number, scale: number, dash: readonly number[] | null): void {
+  ctx.strokeStyle = colour;
+  ctx.lineWidth = px / scale;
+  if (dash) ctx.setLineDash(dash.map((d) => d / scale));
+  ctx.stroke(path);
+  if (dash) ctx.setLineDash([]);
+}
+
+/** Runs `draw` with the origin at `at` and one unit = one screen pixel, unmirrored (labels keep their size on screen). */
+function inScreenUnits(ctx: CanvasRenderingContext2D, at: Point, v: SectionView, draw: () => void): void {
+  ctx.save();
+  ctx.translate(at.x, at.y);
+  ctx.scale((v.mirrored ? -1 : 1) / v.scale, 1 / v.scale);
+  draw();
+  ctx.restore();
+}
+
+function drawLabel(ctx: CanvasRenderingContext2D, text: string, at: Point, colour: string, v: SectionView): void {
+  inScreenUnits(ctx, at, v, () => {
+    ctx.font = LABEL_FONT;
+    ctx.textAlign = 'center';
+    ctx.textBaseline = 'middle';
+    ctx.lineJoin = 'round';
+    ctx.strokeStyle = BOARD_COLOURS.labelHalo;
+    ctx.lineWidth = 3;
+    ctx.strokeText(text, 0, 0);
+    ctx.fillStyle = colour;
+    ctx.fillText(text, 0, 0);
+  });
+}
+
+/** Words in lines no wider than `width` pixels as `ctx` measures them. */
+export function wrapWords(ctx: Pick<CanvasRenderingContext2D, 'measureText'>, text: string, width: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/).filter((w) => w.length > 0)) {
+    const next = line ? `${line} ${word}` : word;
+    if (line && ctx.measureText(next).width > width) {
+      lines.push(line);
+      line = word;
+    } else {
+      line = next;
+    }
+  }
+  if (line) lines.push(line);
+  return lines;
+}
+
+/** The sewability reason in a small box under the failing patch's number, wrapped to 240 px. */
+function drawReason(ctx: CanvasRenderingContext2D, reason: { text: string; at: Point }, v: SectionView): void {
+  inScreenUnits(ctx, reason.at, v, () => {
+    ctx.font = REASON_FONT;
+    const lines = wrapWords(ctx, reason.text, REASON_WIDTH_PX - 2 * REASON_PADDING_PX);
+    const height = lines.length * REASON_LINE_PX + 2 * REASON_PADDING_PX;
+    ctx.beginPath();
+    ctx.roundRect(0, REASON_DROP_PX, REASON_WIDTH_PX, height, 3);
+    ctx.fillStyle = '#fff4f0';
+    ctx.fill();
+    ctx.strokeStyle = BOARD_COLOURS.failing;
+    ctx.lineWidth = 1;
+    ctx.stroke();
+    ctx.fillStyle = BOARD_COLOURS.failing;
+    ctx.textAlign = 'left';
+    ctx.textBaseline = 'middle';
+    lines.forEach((line, i) => ctx.fillText(line, REASON_PADDING_PX, REASON_DROP_PX + REASON_PADDING_PX + (i + 0.5) * REASON_LINE_PX));
+  });
+}
+
+function drawSection(ctx: CanvasRenderingContext2D, d: SectionDrawing, o: SectionShapeOptions, v: SectionView): void {
+  const s = v.scale;
+  for (let copyIndex = 0; copyIndex < d.copies.length; copyIndex++) {
+    const copy = d.copies[copyIndex];
+    ctx.globalAlpha = copy.alpha;
+    for (const p of copy.patches) {
+      ctx.fillStyle = p.fill;
+      ctx.fill(p.path);
+      strokeScreen(ctx, p.path, BOARD_COLOURS.seam, 1, s, null);
+      if (p.bands) {
+        ctx.save();
+        ctx.clip(p.path);
+        for (const band of p.bands) {
+          ctx.fillStyle = band.fill;
+          ctx.fill(band.path);
+        }
+        ctx.restore();
+      }
+      if (p.guides) strokeScreen(ctx, p.guides, BOARD_COLOURS.guideLine, 1.5, s, [6, 3]);
+    }
+    if (copy.blank) {
+      ctx.fillStyle = BOARD_COLOURS.emptyPatch;
+      ctx.fill(copy.blank);
+    }
+    const selectedOutline = o.selected && copyIndex === 0;
+    strokeScreen(ctx, copy.outline, selectedOutline ? BOARD_COLOURS.selection : BOARD_COLOURS.ink, selectedOutline ? 3 : 2, s, null);
+    if (copy.cutting) strokeScreen(ctx, copy.cutting, BOARD_COLOURS.cuttingLine, 1, s, [8, 4]);
+    if (copyIndex !== 0) continue;
+    for (const p of copy.patches) {
+      if (p.failing) strokeScreen(ctx, p.path, BOARD_COLOURS.failing, 3, s, [7, 4]);
+      if (o.selected && o.selectedPatchIndex === p.patch.index) {
+        ctx.fillStyle = 'rgba(31,122,140,0.18)';
+        ctx.fill(p.path);
+        strokeScreen(ctx, p.path, BOARD_COLOURS.selection, 1.5, s, [4, 3]);
+      }
+      // A label is placed (its label point found) only once its patch is large enough on screen to show it.
+      if (o.selected || p.sizeIn * s >= MIN_LABELLED_PATCH_PX) drawLabel(ctx, p.patch.label, p.patch.labelPoint, p.failing ? BOARD_COLOURS.failing : BOARD_COLOURS.label, v);
+    }
+  }
+  ctx.globalAlpha = 1;
+  if (d.reason) drawReason(ctx, d.reason, v);
+}
+
+/**
+ * The Konva shape of one section: its patches filled with their fabrics, the outline, the seams,
+ * strip-set bands and guide lines, patch numbers, the sewability failure, ring-repeat copies and (when
+ * asked) the cutting line, drawn straight onto the layer's canvas in one pass. What it draws is worked
+ * out at its first draw and kept (the shape is replaced when its section changes); a section wholly
+ * off screen is skipped. Never listening: the board hit-tests in the editor core.
+ */
+export function createSectionShape(section: Section, o: SectionShapeOptions): Konva.Shape {
+  let drawing: SectionDrawing | null = null;
+  return new Konva.Shape({
+    name: 'section',
+    id: `section-${section.id}`,
+    listening: false,
+    perfectDrawEnabled: false,
+    sceneFunc(context) {
+      const v = o.view();
+      drawing ??= buildDrawing(section, o);
+      if (!overlaps(drawing.bounds, v.visible) && !drawing.reason) return;
+      drawSection(context._context, drawing, o, v);
+    },
+  });
+}
