@@ -27,3 +27,7 @@ export {
 
 /** Sewability internals the sewability benchmark times. */
 export { preparePatches, searchSubset, type SewabilityPatch } from './lib/sewability/index';
+
+/** The print benchmark's recorder: a render's pen calls, written again with the pen alone or another writer. */
+export { recordPenDrawing, replayWithPen, type PenCall, type PenRecording } from './lib/print/testing/pen-recorder';
+export { embedFonts } from './lib/print/pdf-pen';

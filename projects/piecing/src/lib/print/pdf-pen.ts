@@ -32,6 +32,12 @@ const pt = (inches: number): number => inches * POINTS_PER_INCH;
 const ARABIC = /[\u0600-\u06ff\u0750-\u077f\u08a0-\u08ff\ufb50-\ufdff\ufe70-\ufeff]/;
 
 /**
+ * Benchmark and test hook: `created` is called with every pen made, before it draws (the print
+ * benchmark records a render's drawing through it, to write the same drawing with the pen alone).
+ */
+export const penHooks: { created?: (pen: PdfPen) => void } = {};
+
+/**
  * Draws on a jsPDF document in inches from the page's top-left corner (y down), always with the
  * embedded TrueType fonts. Each polygon or polyline is one path (m … l … h) and one paint operator.
  */
@@ -43,6 +49,7 @@ export class PdfPen {
 
   constructor(readonly doc: jsPDF) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
+    penHooks.created?.(this);
   }
 
   /** Strokes a polyline, closed when asked. */
