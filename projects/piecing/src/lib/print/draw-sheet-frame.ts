@@ -29,19 +29,25 @@ const WARNING = '#b3261e';
 export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHeading): void {
   const h = frame.header;
   const right = h.x + h.width;
+  // A template sheet may hang its test squares in the top-left corner of the header band (they then
+  // cost no template room): the header's text starts to the right of them.
+  const tb = frame.testBlock;
+  const inBand = tb.y < h.y + h.height && tb.x < h.x + h.width * 0.45;
+  const left = inBand ? tb.x + tb.width + 0.15 : h.x;
+  const leftWidth = h.x + h.width * 0.45 - left;
   const sheetLabel = `Sheet ${heading.pageNumber} of ${heading.pageCount}`;
   pen.text(sheetLabel, { x: right, y: h.y + 0.17 }, { sizePt: 11, bold: true, align: 'right' });
   // Left 45 %: title and subtitle; the middle is kept for tile maps; right: sheet number and notes.
-  pen.text(fitText(pen, heading.title, h.width * 0.45, 11, true), { x: h.x, y: h.y + 0.17 }, { sizePt: 11, bold: true });
-  if (heading.warning) pen.text(fitText(pen, heading.warning, h.width * 0.45, 8, true), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, bold: true, colour: WARNING });
-  else pen.text(fitText(pen, heading.subtitle, h.width * 0.45, 8), { x: h.x, y: h.y + 0.3 }, { sizePt: 8, colour: MUTED });
+  pen.text(fitText(pen, heading.title, leftWidth, 11, true), { x: left, y: h.y + 0.17 }, { sizePt: 11, bold: true });
+  if (heading.warning) pen.text(fitText(pen, heading.warning, leftWidth, 8, true), { x: left, y: h.y + 0.3 }, { sizePt: 8, bold: true, colour: WARNING });
+  else pen.text(fitText(pen, heading.subtitle, leftWidth, 8), { x: left, y: h.y + 0.3 }, { sizePt: 8, colour: MUTED });
   if (heading.aside) pen.text(fitText(pen, heading.aside, 2.25, 7), { x: right, y: h.y + 0.3 }, { sizePt: 7, colour: MUTED, align: 'right' });
-  pen.text(PRINT_AT_ACTUAL_SIZE, { x: h.x, y: h.y + 0.43 }, { sizePt: 8, bold: true });
+  pen.text(PRINT_AT_ACTUAL_SIZE, { x: left, y: h.y + 0.43 }, { sizePt: 8, bold: true });
   if (heading.note) {
-    const room = h.width - pen.textWidth(PRINT_AT_ACTUAL_SIZE, 8, true) - 0.3;
+    const room = right - left - pen.textWidth(PRINT_AT_ACTUAL_SIZE, 8, true) - 0.3;
     pen.text(fitText(pen, heading.note, room, 7), { x: right, y: h.y + 0.43 }, { sizePt: 7, colour: MUTED, align: 'right' });
   }
-  pen.segments([{ a: { x: h.x, y: h.y + h.height }, b: { x: right, y: h.y + h.height } }], { widthPt: 0.4, colour: MUTED });
+  pen.segments([{ a: { x: inBand ? left - 0.05 : h.x, y: h.y + h.height }, b: { x: right, y: h.y + h.height } }], { widthPt: 0.4, colour: MUTED });
   drawTestSquares(pen, frame.testBlock);
 }
 

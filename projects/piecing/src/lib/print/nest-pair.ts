@@ -58,7 +58,7 @@ export function nestPair(ring: readonly Point[], base: Affine, freeRotation: boo
       if (!best || area < best.area - 1e-9) best = { area, turn, flip, dx, dy, w: width, h: height, ax: boxA.x, ay: boxA.y, bx: boxB.x, by: boxB.y };
     }
   }
-  if (!best || best.area > 2 * singleBoxArea * 0.95) return null;
+  if (!best || best.area > 2 * singleBoxArea * 0.995) return null;
   const ox = clearanceIn - Math.min(0, best.dx);
   const oy = clearanceIn - Math.min(0, best.dy);
   const frameA = compose(translation(ox - best.ax, oy - best.ay), compose(rotation(best.turn), base));

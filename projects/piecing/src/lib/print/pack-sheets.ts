@@ -4,8 +4,7 @@
 // reads as an empty module; its ES build works in Node, vitest and the browser alike.
 import { MaxRectsBin, PACKING_LOGIC, Rectangle } from 'maxrects-packer/dist/maxrects-packer.mjs';
 import type { Point } from '../document/index';
-import { boundingRect } from './layout-geometry';
-import { separated } from './nest-pair';
+import { blockRing, findSpot, occupancyGrid, type ShapeMask } from './raster-fill';
 import type { PaperName, RectIn, SheetOrientation } from './paper';
 import { ITEM_GAP_IN, sheetFrame, type SheetFrame } from './sheet-frame';
 
@@ -79,6 +78,7 @@ export function packSheets<T>(
   marginIn: number,
   outlines?: ItemOutlines<T>,
   fill?: SheetFill<T>,
+  quick = false,
 ): PackedSheet<T>[] {
   const frames: Record<SheetOrientation, SheetFrame> = {
     portrait: sheetFrame(paper, 'portrait', marginIn),
@@ -99,22 +99,24 @@ export function packSheets<T>(
     const whole = left;
     const broken = left.flatMap((i) => i.parts ?? [i]);
     const variants = whole.some((i) => i.parts) ? [whole, broken] : [whole];
-    for (const orientation of ['portrait', 'landscape'] as const) {
+    search: for (const orientation of ['portrait', 'landscape'] as const) {
       const frame = frames[orientation];
-      for (const order of ORDERS) for (const variant of variants) {
+      for (const order of quick ? ORDERS.slice(0, 1) : ORDERS) for (const variant of variants) {
         const remaining = [...variant].sort(order);
-        for (const logic of LOGICS) {
-          for (const block of outlines ? (['first', 'last', 'free'] as const) : (['first', 'last'] as const)) {
-            const tried = packOne(remaining, frame, logic, block);
+        for (const logic of quick ? LOGICS.slice(0, 1) : LOGICS) for (const stand of [false, true]) {
+          for (const block of quick ? QUICK_BLOCK_MODES : BLOCK_MODES) {
+            const tried = packOne(remaining, frame, logic, block, stand);
             if (!tried) continue;
-            const area = tried.placed.reduce((s, p) => s + p.width * p.height, 0);
+            const area = tried.placed.reduce((s, p) => s + (p.item.areaSqIn ?? p.width * p.height), 0);
             tries.push({ frame, tried, area });
+            // Everything left fits this sheet, test block included: no try can do better.
+            if ('block' in tried && tried.placed.length === remaining.length && variant === whole) break search;
           }
         }
       }
     }
-    // Best first (stable sort keeps the fixed try order on ties); a try that left the test block out
-    // counts only if the block finds a spot clear of the real outlines.
+    // Best first (stable sort keeps the fixed try order on ties); a try whose boxes left no room for
+    // the test block counts only if the block finds a spot clear of the real outlines.
     tries.sort((a, b) => b.area - a.area);
     let chosen: { frame: SheetFrame; tried: Try<T> } | null = null;
     let scans = 0;
@@ -123,31 +125,20 @@ export function packSheets<T>(
         chosen = { frame: t.frame, tried: t.tried };
         break;
       }
-      if (++scans > 4) continue; // scanning is the slow part: only for the few best tries
-      const spot = findBlockSpot(t.frame, t.tried.placed, outlines!);
+      if (!outlines || ++scans > 2) continue; // a raster scan per try: only for the best few
+      const spot = findBlockSpot(t.frame, t.tried.placed, outlines);
       if (spot) {
         chosen = { frame: t.frame, tried: { placed: t.tried.placed, block: spot } };
         break;
       }
     }
-    const results: Array<{ frame: SheetFrame; items: PackedItem<T>[]; taken: PackItem<T>[] }> = [];
-    if (chosen && chosen.tried.placed.length > 0) {
-      // Boxes by maxrects, then the gaps filled by real outlines.
-      const frame = { ...chosen.frame, testBlock: { ...chosen.frame.testBlock, ...chosen.tried.block } };
-      const after = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
-      const extra = fill && after.length > 0 ? fill(frame, chosen.tried.placed, after) : [];
-      results.push({
-        frame,
-        items: [...chosen.tried.placed, ...extra.map((e) => e.packed)],
-        taken: [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)],
-      });
-    }
-    if (results.length === 0) throw new RangeError('packing made no progress');
-    const covered = (r: (typeof results)[number]) => r.items.reduce((s, p) => s + (p.item.areaSqIn ?? p.width * p.height), 0);
-    let best = results[0];
-    for (const r of results.slice(1)) if (covered(r) > covered(best) + 1e-9) best = r;
-    left = remainingAfter(left, best.taken, parentOf);
-    sheets.push({ frame: best.frame, items: best.items });
+    if (!chosen || chosen.tried.placed.length === 0) throw new RangeError('packing made no progress');
+    // Boxes by maxrects, then the gaps filled by real outlines.
+    const frame = { ...chosen.frame, testBlock: chosen.tried.block };
+    const after = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
+    const extra = fill && after.length > 0 ? fill(frame, chosen.tried.placed, after) : [];
+    left = remainingAfter(left, [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)], parentOf);
+    sheets.push({ frame, items: [...chosen.tried.placed, ...extra.map((e) => e.packed)] });
   }
   return sheets;
 }
@@ -169,67 +160,108 @@ function remainingAfter<T>(left: readonly PackItem<T>[], placed: readonly PackIt
 }
 
 function fitsAlone(item: PackItem<unknown>, frame: SheetFrame): boolean {
-  return (packOne([item], frame, PACKING_LOGIC.MAX_EDGE, 'first')?.placed.length ?? 0) === 1;
+  return BLOCK_MODES.some((mode) => {
+    const tried = packOne([item], frame, PACKING_LOGIC.MAX_EDGE, mode);
+    return tried !== null && 'block' in tried && tried.placed.length === 1;
+  });
 }
 
-/** The first spot (row by row from the top-left, 0.1 in. steps) where the test block clears every outline. */
-function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], outlines: ItemOutlines<T>): Try<T>['block'] | null {
-  const obstacles = placed.flatMap((p) => outlines(p)).map((ring) => ({ ring, box: boundingRect(ring) }));
+/** Raster cell for finding room for the test block among real outlines, inches. */
+const BLOCK_CELL_IN = 0.1;
+
+/**
+ * The first spot (row by row from the top-left, on a 0.1 in. raster) where the test block, side by
+ * side or stacked, keeps the gap from every outline; null when there is none.
+ */
+function findBlockSpot<T>(frame: SheetFrame, placed: readonly PackedItem<T>[], outlines: ItemOutlines<T>): RectIn | null {
+  const grid = occupancyGrid(frame.content, BLOCK_CELL_IN);
+  // Outlines may be simplified within 0.02 in.: widen the gap to match.
+  for (const p of placed) for (const ring of outlines(p)) blockRing(grid, ring, ITEM_GAP_IN + 0.02);
   const { width, height } = frame.testBlock;
-  return scanBlock(frame, obstacles, width, height) ?? scanBlock(frame, obstacles, height, width);
-}
-
-function scanBlock(frame: SheetFrame, obstacles: Array<{ ring: Point[]; box: RectIn }>, bw: number, bh: number): Try<never>['block'] | null {
-  const c = frame.content;
-  const g = ITEM_GAP_IN;
-  const step = 0.1;
-  for (let y = c.y; y + bh <= c.y + c.height + 1e-9; y += step) {
-    for (let x = c.x; x + bw <= c.x + c.width + 1e-9; x += step) {
-      const rect = [{ x, y }, { x: x + bw, y }, { x: x + bw, y: y + bh }, { x, y: y + bh }];
-      let clear = true;
-      for (const o of obstacles) {
-        if (o.box.x > x + bw + g || o.box.x + o.box.width < x - g || o.box.y > y + bh + g || o.box.y + o.box.height < y - g) continue;
-        if (!separated(rect, o.ring, g)) {
-          clear = false;
-          break;
-        }
-      }
-      if (clear) return { x, y, width: bw, height: bh };
-    }
+  for (const [w, h] of [[width, height], [height, width]]) {
+    const spot = findSpot(grid, rectMask(w, h, BLOCK_CELL_IN));
+    if (spot) return { x: grid.x0 + spot.col * BLOCK_CELL_IN, y: grid.y0 + spot.row * BLOCK_CELL_IN, width: w, height: h };
   }
   return null;
 }
 
-function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PACKING_LOGIC, blockAt: 'first' | 'last' | 'free'): Try<T> | Omit<Try<T>, 'block'> | null {
+/** The cells a w × h rectangle at a cell corner claims (every cell it reaches into). */
+function rectMask(w: number, h: number, cell: number): ShapeMask {
+  const cols = Math.ceil(w / cell - 1e-9);
+  const rows = Math.ceil(h / cell - 1e-9);
+  const cells: number[] = [];
+  for (let r = 0; r < rows; r++) for (let c = 0; c < cols; c++) cells.push(r, c);
+  return { cols, rows, cells: Int32Array.from(cells) };
+}
+
+/**
+ * Where the test block may go on a sheet:
+ * - 'corner': side by side in the top-left corner of the printable area, its top in the header band
+ *   (the header's text then starts to the right of it), so it takes only half an inch of content;
+ * - 'corner-tall': the same corner, the 2 cm square under the 1 in. one;
+ * - 'band': the same corner, with nothing beside the block (rows of templates start below it);
+ * - 'free': nowhere at first — the boxes are packed alone and the block goes in any free room left.
+ */
+type BlockMode = 'corner' | 'corner-tall' | 'band' | 'free';
+const BLOCK_MODES: readonly BlockMode[] = ['free', 'corner', 'band', 'corner-tall'];
+const QUICK_BLOCK_MODES: readonly BlockMode[] = ['free', 'corner'];
+
+/**
+ * One maxrects packing of `items` (in order) on a sheet, the test block as `blockAt` says. With
+ * `stand`, items that may turn are offered standing (long side down), which decides how maxrects
+ * turns them when both ways score alike.
+ */
+function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PACKING_LOGIC, blockAt: BlockMode, stand = false): Try<T> | Omit<Try<T>, 'block'> | null {
   const g = ITEM_GAP_IN;
+  const c = frame.content;
   // Every piece grows by the gap and so does the bin: pieces keep the gap between them, not at the edge.
-  const bin = new MaxRectsBin<Rectangle>(frame.content.width + g, frame.content.height + g, 0, {
+  const bin = new MaxRectsBin<Rectangle>(c.width + g, c.height + g, 0, {
     smart: false,
     pot: false,
     square: false,
     allowRotation: true,
     logic,
   });
-  const block = new Rectangle(frame.testBlock.width + g, frame.testBlock.height + g);
-  // Placed first, the squares sit side by side top-left; placed last they may stand one above the other.
-  block.allowRotation = blockAt !== 'first';
-  if (blockAt === 'first') bin.add(block);
+  const tb = frame.testBlock;
+  const [bw, bh] = blockAt === 'corner-tall' ? [tb.height, tb.width] : [tb.width, tb.height];
+  let block: RectIn | null = null;
+  if (blockAt !== 'free') {
+    // The block hangs from the top of the printable area; below the header it reaches `depth` into the content.
+    const top = frame.header.y;
+    const depth = top + bh - c.y;
+    block = { x: c.x, y: top, width: bw, height: bh };
+    if (depth > 0) {
+      const below = new Rectangle(c.width + g, c.height + g - (depth + g), 0, depth + g);
+      bin.freeRects = blockAt === 'band' ? [below] : [new Rectangle(c.width + g - (bw + g), c.height + g, bw + g, 0), below];
+    }
+  }
   const placed: PackedItem<T>[] = [];
   for (const item of items) {
-    const rect = new Rectangle(item.width + g, item.height + g);
+    const swap = stand && item.quarterTurns && item.width > item.height;
+    const rect = swap ? new Rectangle(item.height + g, item.width + g) : new Rectangle(item.width + g, item.height + g);
     rect.allowRotation = item.quarterTurns;
     const put = bin.add(rect);
     if (!put) continue;
     placed.push({
       item,
-      x: frame.content.x + put.x,
-      y: frame.content.y + put.y,
-      turned: put.rot === true,
+      x: c.x + put.x,
+      y: c.y + put.y,
+      turned: (put.rot === true) !== swap,
       width: put.width - g,
       height: put.height - g,
     });
   }
-  if (blockAt === 'free') return { placed };
-  if (blockAt === 'last' && !bin.add(block)) return null;
-  return { placed, block: { x: frame.content.x + block.x, y: frame.content.y + block.y, width: block.width - g, height: block.height - g } };
+  if (block) return { placed, block };
+  // Room for the block among the free rectangles maxrects kept (maximal, so one holds it if any room does).
+  for (const [w, h] of [[tb.width, tb.height], [tb.height, tb.width]]) {
+    const depth = frame.header.y + h - c.y;
+    // The corner first: there the block hangs into the header band.
+    const corner = bin.freeRects.find((f) => f.x <= 1e-9 && f.y <= 1e-9 && f.width >= w + g - 1e-9 && f.height >= depth + g - 1e-9);
+    if (corner) return { placed, block: { x: c.x, y: frame.header.y, width: w, height: h } };
+  }
+  for (const [w, h] of [[tb.width, tb.height], [tb.height, tb.width]]) {
+    const room = bin.freeRects.find((f) => f.width >= w + g - 1e-9 && f.height >= h + g - 1e-9);
+    if (room) return { placed, block: { x: c.x + room.x, y: c.y + room.y, width: w, height: h } };
+  }
+  return { placed };
 }

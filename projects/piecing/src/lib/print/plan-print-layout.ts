@@ -9,7 +9,7 @@ import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
 import { equalSpans, intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGridFromSpans, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
-import { ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
+import { cornerBlockDepthIn, ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
 
 /** What one packed piece stands for: a whole copy of a template, or one tile of a copy. */
@@ -154,7 +154,7 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
   const tb = frame.testBlock;
   const g = ITEM_GAP_IN;
   const fits = (w: number, h: number) =>
-    (w <= W && h <= H - tb.height - g) || (w <= W - tb.width - g && h <= H);
+    (w <= W && h <= H - cornerBlockDepthIn(frame) - g) || (w <= W - tb.width - g && h <= H);
   return fits(p.width, p.height) || fits(p.height, p.width);
 }
 
@@ -176,7 +176,7 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
-      for (const [cw, ch] of [[W, H - tb.height - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
+      for (const [cw, ch] of [[W, H - cornerBlockDepthIn(frame) - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
         limits.push([cw, ch]);
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
         if (grid && !bases.some(([c, r]) => c === grid.columns && r === grid.rows)) bases.push([grid.columns, grid.rows]);
@@ -208,7 +208,8 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
       if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
       const trials = columns.length * rows.length * template.copies <= 160;
       const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
-      const sheets = trials ? packSheets(items, paper, marginIn).length : items.length;
+      // A quick packing (one order, one heuristic) ranks the candidates; the real one comes later.
+      const sheets = trials ? packSheets(items, paper, marginIn, undefined, undefined, true).length : items.length;
       const count = grid.tiles.length;
       const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
       const better =
@@ -241,7 +242,7 @@ function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
   const g = ITEM_GAP_IN;
-  return (w <= W && h <= H - tb.height - g) || (w <= W - tb.width - g && h <= H);
+  return (w <= W && h <= H - cornerBlockDepthIn(frame) - g) || (w <= W - tb.width - g && h <= H);
 }
 
 function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement[] {

@@ -62,3 +62,11 @@ export function sheetFrame(paper: PaperName, orientation: SheetOrientation, marg
     testBlock,
   };
 }
+
+/**
+ * How far the test block reaches below the top of the content area when it hangs in the top-left
+ * corner of the printable area (its top in the header band), inches.
+ */
+export function cornerBlockDepthIn(frame: SheetFrame, blockHeightIn = frame.testBlock.height): number {
+  return Math.max(0, frame.header.y + blockHeightIn - frame.content.y);
+}
