@@ -13,7 +13,7 @@ import { buildPrintTemplates } from './print-templates';
 import { printOptionsSchema, type PrintFonts, type PrintOptions, type PrintOptionsInput } from './print-options';
 import { sheetFrame, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
-import { bookletContext, type BookletContext } from './booklet/booklet-context';
+import { bookletContext, sectionFacts, type BookletContext } from './booklet/booklet-context';
 import { BookletWriter } from './booklet/booklet-writer';
 import { drawBookletCover, type ContentsEntry } from './booklet/draw-booklet-cover';
 import { drawCuttingInstructions } from './booklet/draw-cutting-instructions';
@@ -85,7 +85,8 @@ export async function renderPrintSet(
   const { fonts, ...json } = options;
   const opts = printOptionsSchema.parse(json);
   const wanted = opts.sectionIds ? new Set(opts.sectionIds) : null;
-  const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) });
+  const facts = sectionFacts(document);
+  const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) }, (s) => facts.verdicts.get(s.id)!);
   if (unsewable.length > 0 && !opts.printUnsewable) throw new UnsewablePatternError(unsewable);
   const templates = buildPrintTemplates(document, opts);
   const pieceTemplates = buildPieceTemplates(document, opts.sectionIds);
@@ -128,7 +129,7 @@ export async function renderPrintSet(
     return frame;
   };
 
-  const ctx = bookletContext(pen, document, opts, unsewable);
+  const ctx = bookletContext(pen, document, opts, unsewable, facts);
   const booklet = new BookletWriter(pen, portraitSheet);
   if (opts.includeCuttingList) {
     drawFabricRequirements(ctx, booklet);

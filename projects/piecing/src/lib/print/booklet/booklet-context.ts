@@ -3,6 +3,7 @@ import { derivePatches, type DerivedPatch } from '../../geometry/index';
 import { buildCuttingList, stripSetDisplayName, type CuttingList } from '../../fabrication/index';
 import type { PdfPen } from '../pdf-pen';
 import type { PrintOptions } from '../print-options';
+import { checkSewability, type SewabilityVerdict } from '../../sewability/index';
 import type { UnsewableSection } from './unsewable-sections';
 
 /** What every booklet page draws from, worked out once per print set. */
@@ -13,9 +14,24 @@ export interface BookletContext {
   fabrics: Map<string, Fabric>;
   /** Each section's patches in piecing order. */
   patches: Map<string, DerivedPatch[]>;
+  /** Each section's sewability in its numbered order, checked once on those patches. */
+  verdicts: Map<string, SewabilityVerdict>;
   cuttingList: CuttingList;
   /** Sections not sewable as numbered (printed anyway), by id. */
   unsewable: Map<string, UnsewableSection>;
+}
+
+/** Each section's patches in piecing order and its sewability verdict, worked out once per print set. */
+export interface SectionFacts {
+  patches: Map<string, DerivedPatch[]>;
+  verdicts: Map<string, SewabilityVerdict>;
+}
+
+/** Derives every section's patches once and checks each section's sewability on them. */
+export function sectionFacts(document: Pick<PatternDocument, 'sections'>): SectionFacts {
+  const patches = new Map(document.sections.map((s) => [s.id, [...derivePatches(s).patches].sort((a, b) => a.number - b.number)]));
+  const verdicts = new Map(document.sections.map((s) => [s.id, checkSewability(patches.get(s.id)!)]));
+  return { patches, verdicts };
 }
 
 /** Builds the booklet context of a document. */
@@ -24,13 +40,15 @@ export function bookletContext(
   document: PatternDocument,
   options: PrintOptions,
   unsewable: readonly UnsewableSection[],
+  facts: SectionFacts = sectionFacts(document),
 ): BookletContext {
   return {
     pen,
     document,
     options,
     fabrics: new Map(document.fabrics.map((f) => [f.id, f])),
-    patches: new Map(document.sections.map((s) => [s.id, [...derivePatches(s).patches].sort((a, b) => a.number - b.number)])),
+    patches: facts.patches,
+    verdicts: facts.verdicts,
     cuttingList: buildCuttingList(document),
     unsewable: new Map(unsewable.map((u) => [u.sectionId, u])),
   };

@@ -1,5 +1,5 @@
 import type { Point } from '../../document/index';
-import { polygonCentroid } from '../../geometry/index';
+import { polygonBounds, polygonCentroid } from '../../geometry/index';
 import type { ResolvedJoiningPlan, ResolvedJoinStep } from '../../joining/index';
 import { drawArrow } from '../draw-template';
 import type { SheetFlow } from '../sheet-flow';
@@ -38,9 +38,21 @@ export function drawJoiningPlan(ctx: BookletContext, writer: BookletWriter, plan
   for (const problem of plan.problems) flow.paragraph(`Check: ${problem.message}`, 8.5, true);
 }
 
+/** Above this many section copies a join diagram shows the seam's neighbourhood, not the whole block. */
+export const WHOLE_BLOCK_DIAGRAM_MAX = 48;
+
+interface Outline {
+  sectionId: string;
+  ring: Point[];
+  bounds: { minX: number; minY: number; maxX: number; maxY: number };
+}
+
 function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly ResolvedJoinStep[]): void {
   const outlines = new Map(ctx.document.sections.map((s) => [s.id, sectionCopyOutlines(s)]));
-  const all = [...outlines.values()].flat(2);
+  const copies: Outline[] = [...outlines].flatMap(([sectionId, rings]) => rings.map((ring) => ({ sectionId, ring, bounds: polygonBounds(ring) })));
+  const all = copies.flatMap((c) => c.ring);
+  const block = polygonBounds(all);
+  const zoomed = copies.length > WHOLE_BLOCK_DIAGRAM_MAX;
   const cellW = flow.width / COLUMNS;
   const texts = steps.map((s) => ctx.pen.wrap(captionOf(s), cellW - 0.15, CAPTION_PT));
   for (let row = 0; row * COLUMNS < steps.length; row++) {
@@ -50,16 +62,25 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
     items.forEach((step, c) => {
       // The step number sits above its diagram, so a diagram filling its box never covers it.
       const box = { x: top.x + c * cellW + 0.05, y: top.y + NUMBER_IN, width: cellW - 0.1, height: DIAGRAM_IN - NUMBER_IN };
-      const fit = fitDiagram(all, box, false);
+      const view = zoomed ? seamView(step, outlines) : null;
+      const fit = view ? fitDiagram(corners(view), box, false) : fitDiagram(all, box, false);
+      // A large block: only the copies near the seam, clipped to the diagram, so each diagram costs the same at any size.
+      const shown = view ? copies.filter((o) => overlapsBox(o.bounds, view)) : copies;
       const inA = new Set(step.partA.sectionIds);
       const inB = new Set(step.partB.sectionIds);
-      for (const [id, rings] of outlines) {
-        const fill = step.kind === 'ring' ? (inA.has(id) ? PART_A : null) : inA.has(id) ? PART_A : inB.has(id) ? PART_B : null;
-        for (const ring of rings) drawShape(ctx.pen, ring.map(fit.map), fill, DIAGRAM_STYLES.faint);
-      }
-      ctx.pen.segments(step.seam.paths.flatMap((path) => pathSegments(path.map(fit.map))), DIAGRAM_STYLES.sewLine);
-      for (const m of step.marks) ctx.pen.fillPolygon(dot(fit.map(m), 0.028), '#000000');
-      drawPress(ctx, fit, step, outlines);
+      const draw = () => {
+        for (const { sectionId: id, ring } of shown) {
+          const fill = step.kind === 'ring' ? (inA.has(id) ? PART_A : null) : inA.has(id) ? PART_A : inB.has(id) ? PART_B : null;
+          drawShape(ctx.pen, ring.map(fit.map), fill, DIAGRAM_STYLES.faint);
+        }
+        ctx.pen.segments(step.seam.paths.flatMap((path) => pathSegments(path.map(fit.map))), DIAGRAM_STYLES.sewLine);
+        for (const m of step.marks) ctx.pen.fillPolygon(dot(fit.map(m), 0.028), '#000000');
+        drawPress(ctx, fit, step, shown);
+      };
+      if (view) {
+        ctx.pen.clipped(box, draw);
+        drawLocator(ctx, box, block, view);
+      } else draw();
       ctx.pen.text(String(step.number), { x: box.x + 0.02, y: top.y + 0.15 }, { sizePt: 11, bold: true });
       texts[row * COLUMNS + c].forEach((line, k) =>
         ctx.pen.text(line, { x: box.x + 0.02, y: top.y + DIAGRAM_IN + 0.1 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT, bold: k === 0 }),
@@ -68,12 +89,58 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
   }
 }
 
+type Bounds = { minX: number; minY: number; maxX: number; maxY: number };
+
+/** The seam and the part joined on, with as much again around them (a square, so the diagram stays in proportion). */
+function seamView(step: ResolvedJoinStep, outlines: Map<string, Point[][]>): Bounds {
+  const points = [...step.seam.paths.flat(), ...step.partB.sectionIds.flatMap((id) => (outlines.get(id) ?? []).flat())];
+  const b = polygonBounds(points.length > 0 ? points : step.partA.sectionIds.flatMap((id) => (outlines.get(id) ?? []).flat()));
+  const size = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1e-3) * 2;
+  const cx = (b.minX + b.maxX) / 2;
+  const cy = (b.minY + b.maxY) / 2;
+  return { minX: cx - size / 2, minY: cy - size / 2, maxX: cx + size / 2, maxY: cy + size / 2 };
+}
+
+function corners(b: Bounds): Point[] {
+  return [{ x: b.minX, y: b.minY }, { x: b.maxX, y: b.maxY }];
+}
+
+function overlapsBox(a: Bounds, b: Bounds): boolean {
+  return a.minX <= b.maxX && b.minX <= a.maxX && a.minY <= b.maxY && b.minY <= a.maxY;
+}
+
+/** A small map in the diagram's corner: the whole block, and the part of it the diagram shows. */
+function drawLocator(ctx: BookletContext, box: { x: number; y: number; width: number; height: number }, block: Bounds, view: Bounds): void {
+  const size = 0.32;
+  const area = { x: box.x + box.width - size - 0.02, y: box.y + box.height - size - 0.02, width: size, height: size };
+  const fit = fitDiagram(corners(block), area, false, 0.02);
+  const a = fit.map({ x: Math.max(view.minX, block.minX), y: Math.max(view.minY, block.minY) });
+  const b = fit.map({ x: Math.min(view.maxX, block.maxX), y: Math.min(view.maxY, block.maxY) });
+  const whole = { a: fit.map({ x: block.minX, y: block.minY }), b: fit.map({ x: block.maxX, y: block.maxY }) };
+  ctx.pen.rect({ x: whole.a.x, y: whole.a.y, width: whole.b.x - whole.a.x, height: whole.b.y - whole.a.y }, { widthPt: 0.4, colour: '#666666' }, '#ffffff');
+  ctx.pen.rect({ x: a.x, y: a.y, width: Math.max(0.01, b.x - a.x), height: Math.max(0.01, b.y - a.y) }, { widthPt: 0.8, colour: '#b3261e' });
+}
+
 /** The words under a join diagram: the step, the press, the marks. */
 export function captionOf(step: ResolvedJoinStep): string {
   const ring = step.kind === 'ring' && step.ringCount ? ` (${step.ringCount} seams; the last closes the ring)` : '';
   const marks = step.marks.length > 0 ? ` Match the ${step.marks.length} matching marks.` : '';
   const curved = step.seam.kind === 'curved' ? ' Curved seam.' : '';
-  return `${step.number}. ${step.label}${ring}. ${step.pressLabel}.${curved}${marks}`.replace(/\.\./g, '.');
+  return `${step.number}. ${unitsNamed(step.label)}${ring}. ${unitsNamed(step.pressLabel)}.${curved}${marks}`.replace(/\.\./g, '.');
+}
+
+/** Most section labels a unit is named by in a caption; a larger unit is named by its step instead. */
+export const UNIT_LABELS_MAX = 8;
+
+/**
+ * "unit 12 (A, B, C, …)" with more than {@link UNIT_LABELS_MAX} sections becomes "unit 12 (made in step 12, 13 sections)":
+ * the step that made it lists how, so every section stays traceable and a caption stays a few lines long at any size.
+ */
+export function unitsNamed(text: string): string {
+  return text.replace(/unit (\d+) \(([^()]*)\)/g, (whole, n: string, list: string) => {
+    const count = list.split(', ').length;
+    return count > UNIT_LABELS_MAX ? `unit ${n} (made in step ${n}, ${count} sections)` : whole;
+  });
 }
 
 function pathSegments(points: readonly Point[]): Array<{ a: Point; b: Point }> {
@@ -87,7 +154,7 @@ function dot(c: Point, r: number): Point[] {
 }
 
 /** Arrows across the seam toward the part it is pressed to; both ways for open; round the ring for a ring. */
-function drawPress(ctx: BookletContext, fit: DiagramFit, step: ResolvedJoinStep, outlines: Map<string, Point[][]>): void {
+function drawPress(ctx: BookletContext, fit: DiagramFit, step: ResolvedJoinStep, shown: readonly Outline[]): void {
   const press = step.press;
   for (const path of step.seam.paths.slice(0, step.kind === 'ring' ? step.seam.paths.length : 1)) {
     if (path.length < 2) continue;
@@ -113,7 +180,8 @@ function drawPress(ctx: BookletContext, fit: DiagramFit, step: ResolvedJoinStep,
       target = { x: mid.x + s * t.x, y: mid.y + s * t.y };
     } else {
       const part = press.toward === step.partA.id ? step.partA : step.partB;
-      const rings = part.sectionIds.flatMap((id) => outlines.get(id) ?? []);
+      const ids = new Set(part.sectionIds);
+      const rings = shown.filter((o) => ids.has(o.sectionId)).map((o) => o.ring);
       // The part's copy nearest the seam says which side it is on.
       let best: Point | null = null;
       let bestD = Infinity;

@@ -42,7 +42,7 @@ export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pre
         : 'Diagrams show the block from the front, as the templates print. Red: the line to sew. Arrow: which way to press.',
       8,
     );
-    const verdict = checkSewability(patches);
+    const verdict = ctx.verdicts.get(section.id) ?? checkSewability(patches);
     const pressing = pressingOf(section);
     drawSteps(ctx, flow, patches, verdict.steps, pressing);
     if (!verdict.sewable && verdict.failure) {

@@ -1,5 +1,5 @@
 import type { PatternDocument } from '../../document/index';
-import { checkSewability } from '../../sewability/index';
+import { checkSewability, type SewabilityVerdict } from '../../sewability/index';
 
 /** A section whose patches cannot be sewn in their numbered order, and why. */
 export interface UnsewableSection {
@@ -11,12 +11,16 @@ export interface UnsewableSection {
 
 /**
  * The sections of a document that are not sewable as numbered (docs/design-notes.md#sewability): the
- * order checked is the patch numbers, 1, 2, 3 …, as the templates print them.
+ * order checked is the patch numbers, 1, 2, 3 …, as the templates print them. `verdictOf` hands back a
+ * verdict worked out already (the print set checks each section once).
  */
-export function findUnsewableSections(document: Pick<PatternDocument, 'sections'>): UnsewableSection[] {
+export function findUnsewableSections(
+  document: Pick<PatternDocument, 'sections'>,
+  verdictOf: (section: PatternDocument['sections'][number]) => SewabilityVerdict = (section) => checkSewability(section),
+): UnsewableSection[] {
   const out: UnsewableSection[] = [];
   for (const section of document.sections) {
-    const verdict = checkSewability(section);
+    const verdict = verdictOf(section);
     if (!verdict.sewable) {
       out.push({ sectionId: section.id, label: section.label, reason: verdict.failure?.message ?? 'its patches cannot be sewn in their numbered order' });
     }
