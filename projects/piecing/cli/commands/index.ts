@@ -2,6 +2,7 @@ import type { CliCommand } from '../cli-types';
 import { checkCommand } from './check-command';
 import { cuttingListCommand } from './cutting-list-command';
 import { printCommand } from './print-command';
+import { quiltCommand } from './quilt-command';
 import { schemaCommand } from './schema-command';
 
 /*
@@ -19,5 +20,6 @@ export const commands: readonly CliCommand[] = [
   checkCommand,
   cuttingListCommand,
   printCommand,
+  quiltCommand,
   schemaCommand,
 ];
