@@ -1,11 +1,15 @@
 /**
- * Sewability benchmark: order search on 20-patch sections (docs/design-notes.md#sewability). Medians over repeated runs;
+ * Sewability benchmark: the order search with its work budget, from 20 patches to the schema's 500
+ * (docs/design-notes.md#sewability). Medians over repeated runs;
  * nothing here fails on a time.
  */
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import type { Point, Section } from '../projects/piecing/src/public-api';
 import { checkSewability, derivePatches, findSewableOrder } from '../projects/piecing/src/public-api';
-import { preparePatches, searchSubset, type SewabilityPatch } from '../projects/piecing/src/testing';
-import { ms, timeRuns, type BenchSection } from './bench-kit';
+import { OrderSearch, preparePatches, type SewabilityPatch } from '../projects/piecing/src/testing';
+import { seededRandom } from '../tests/support/random';
+import { interleavedRounds, ms, ratio, timeRuns, type BenchSection } from './bench-kit';
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];
 
@@ -79,54 +83,143 @@ function arcFan(): Section {
   return { id: 'c', label: 'C', geometry: { kind: 'arc', centre, innerRadiusIn: 5, outerRadiusIn: 8, startAngleDeg: 0, sweepDeg: 45 }, seams, patches: [] };
 }
 
-/** Subsets the search visits: the smallest state cap under which it still reaches its answer. */
-function countStates(prepared: ReturnType<typeof preparePatches>, all: number[]): number {
-  let lo = 0;
-  let hi = 1;
-  while (searchSubset(prepared, all, hi).found === false && (searchSubset(prepared, all, hi) as { limitHit: boolean }).limitHit) hi *= 2;
-  while (lo + 1 < hi) {
-    const mid = Math.floor((lo + hi) / 2);
-    const r = searchSubset(prepared, all, mid);
-    if (r.found || !r.limitHit) hi = mid;
-    else lo = mid;
+/**
+ * The issue's hard case: a Y-seam core (a regular polygon cut into three by seams from its centre to
+ * three corners; no order of the three works) with one thin ear on each side of the polygon.
+ * Unsewable; the ears come off in any order, so a plain search meets 2^ears sets before it can say so.
+ */
+function yCoreWithEars(total: number): SewabilityPatch[] {
+  const m = total - 3;
+  const c = { x: 50, y: 50 };
+  const v = Array.from({ length: m }, (_, i) => ({ x: c.x + 10 * Math.cos((2 * Math.PI * i) / m), y: c.y + 10 * Math.sin((2 * Math.PI * i) / m) }));
+  const cuts = [0, Math.round(m / 3), Math.round((2 * m) / 3), m];
+  const polygons: Point[][] = [0, 1, 2].map((t) => [c, ...Array.from({ length: cuts[t + 1] - cuts[t] + 1 }, (_, i) => v[(cuts[t] + i) % m])]);
+  for (let i = 0; i < m; i++) {
+    const a = v[i];
+    const b = v[(i + 1) % m];
+    const mid = { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 };
+    const out = Math.hypot(mid.x - c.x, mid.y - c.y);
+    // Low enough that the line of each side passes outside its neighbours' ears.
+    const h = 0.25 * Math.hypot(b.x - a.x, b.y - a.y) * Math.sin((2 * Math.PI) / m);
+    polygons.push([a, b, { x: mid.x + ((mid.x - c.x) / out) * h, y: mid.y + ((mid.y - c.y) / out) * h }]);
   }
-  return hi;
+  return polygons.map((polygon, i) => ({ number: i + 1, label: `Y${i + 1}`, polygon }));
+}
+
+/** A square crossed by `lines` random seams from edge to edge (seeded): grids and crossings, mostly unsewable. */
+function randomGrid(lines: number, rnd: () => number): SewabilityPatch[] {
+  const edge = () => {
+    const side = Math.floor(rnd() * 4);
+    const t = 0.5 + rnd() * 7;
+    return side === 0 ? { x: t, y: -0.5 } : side === 1 ? { x: 8.5, y: t } : side === 2 ? { x: t, y: 8.5 } : { x: -0.5, y: t };
+  };
+  const section: Section = { id: 'g', label: 'R', geometry: { kind: 'straight', vertices: rect(0, 0, 8, 8) }, seams: Array.from({ length: lines }, (_, k) => ({ id: `s${k}`, a: edge(), b: edge() })), patches: [] };
+  return derivePatches(section).patches;
+}
+
+type FindSewableOrder = typeof findSewableOrder;
+
+/** The order search of an earlier commit, for a same-run comparison: SEWABILITY_BEFORE=<a worktree of it>. */
+async function loadBefore(): Promise<FindSewableOrder | null> {
+  const dir = process.env['SEWABILITY_BEFORE'];
+  if (!dir) return null;
+  const mod = (await import(pathToFileURL(join(dir, 'projects/piecing/src/public-api.ts')).href)) as { findSewableOrder: FindSewableOrder };
+  return mod.findSewableOrder;
+}
+
+function verdictOf(r: ReturnType<FindSewableOrder>): string {
+  return r.found ? 'sewable' : (r as { status?: string }).status ?? (r.reason === 'none' ? 'unsewable' : 'undecided');
 }
 
 export default async function sewabilityBench(): Promise<BenchSection> {
-  const cabin = logCabin(20);
-  const stuck = stuckSection();
-  const fan = arcFan();
-  const fanPatches = derivePatches(fan).patches;
-  const cases: Array<{ name: string; patches: SewabilityPatch[] }> = [
-    { name: 'log cabin, 20 patches (sewable)', patches: cabin },
-    { name: 'arc section fan, 20 patches (sewable)', patches: fanPatches },
-    { name: 'pinwheel + 15 strips, 20 patches (unsewable)', patches: stuck },
-    { name: 'Y-seam hexagon + 17 strips, 20 patches (unsewable)', patches: hexagonWithStrips() },
-  ];
   const rows: BenchSection['rows'] = [];
-  for (const c of cases) {
-    const prepared = preparePatches(c.patches);
-    const all = c.patches.map((_, i) => i);
-    const prepare = await timeRuns(() => preparePatches(c.patches), 9, 2);
-    const search = await timeRuns(() => searchSubset(prepared, all), 9, 2);
-    const full = await timeRuns(() => findSewableOrder(c.patches), 9, 2);
-    const result = findSewableOrder(c.patches);
-    const visited = countStates(prepared, all);
+  const notes: string[] = [];
+  const before = await loadBefore();
+  if (before) {
+    // Before and after in the same process, interleaved (A B, A B …). The old search takes seconds on the
+    // larger Y cases, so they get fewer rounds.
+    for (const [size, rounds] of [[12, 5], [16, 3], [20, 1]] as const) {
+      const patches = yCoreWithEars(size);
+      const result = await interleavedRounds(
+        [
+          { name: 'before', run: () => before(patches) },
+          { name: 'after', run: () => findSewableOrder(patches) },
+        ],
+        { rounds, warmup: size >= 20 ? 0 : 1 },
+      );
+      for (const v of result.variants) {
+        rows.push({
+          section: `Y-seam core + ${size - 3} ears, ${size} patches: ${v.name}`,
+          rounds,
+          'median ms': ms(v.medianMs),
+          'min–max ms': `${ms(v.minMs)}–${ms(v.maxMs)}`,
+          'after ÷ before': v.name === 'after' ? `${ratio(v.ratioMedian)} (${v.ratioMin.toFixed(4)}–${v.ratioMax.toFixed(4)})` : '',
+          verdict: verdictOf(v.name === 'before' ? before(patches) : findSewableOrder(patches)),
+        });
+      }
+    }
+    notes.push(`Before = the search of the worktree at ${process.env['SEWABILITY_BEFORE']} (SEWABILITY_BEFORE), run in the same process, interleaved with after.`);
+  }
+
+  // findSewableOrder at every size up to the schema's 500 patches per section: the Y case, and the
+  // search with its self-blocking check turned off, so it must spend its whole budget (the slowest path).
+  for (const size of [20, 30, 40, 100, 200, 500]) {
+    const patches = yCoreWithEars(size);
+    const prepared = preparePatches(patches);
+    const all = patches.map((_, i) => i);
+    const full = await timeRuns(() => findSewableOrder(patches), 7, 1);
+    const spent = new OrderSearch(prepared);
+    spent.search(all);
+    const exhaust = await timeRuns(() => new OrderSearch(prepared, undefined, false).search(all), 5, 1);
+    const probe = new OrderSearch(prepared, undefined, false);
+    const probed = probe.search(all);
     rows.push({
-      section: c.name,
-      'contacts median ms': ms(prepare.medianMs),
-      'search median ms': ms(search.medianMs),
-      'findSewableOrder median ms': ms(full.medianMs),
-      'p95 ms': ms(full.p95Ms),
-      verdict: result.found ? 'sewable' : result.reason,
-      'subsets visited': visited,
+      section: `Y-seam core + ${size - 3} ears, ${size} patches`,
+      'median ms': ms(full.medianMs),
+      'min–max ms': `${ms(full.minMs)}–${ms(full.maxMs)}`,
+      verdict: verdictOf(findSewableOrder(patches)),
+      'work units': spent.steps,
+      'budget spent (no self-blocking check): median ms': ms(exhaust.medianMs),
+      'its min–max ms': `${ms(exhaust.minMs)}–${ms(exhaust.maxMs)}`,
+      'its verdict': probed.found ? 'sewable' : probed.limitHit ? 'undecided' : 'unsewable',
     });
   }
-  const derive = await timeRuns(() => derivePatches(fan), 9, 2);
+
+  // The earlier 20-patch cases.
+  const cases: Array<{ name: string; patches: SewabilityPatch[] }> = [
+    { name: 'log cabin, 20 patches (sewable)', patches: logCabin(20) },
+    { name: 'arc section fan, 20 patches (sewable)', patches: derivePatches(arcFan()).patches },
+    { name: 'pinwheel + 15 strips, 20 patches (unsewable)', patches: stuckSection() },
+    { name: 'Y-seam hexagon + 17 strips, 20 patches (unsewable)', patches: hexagonWithStrips() },
+  ];
+  for (const c of cases) {
+    const full = await timeRuns(() => findSewableOrder(c.patches), 9, 2);
+    const s = new OrderSearch(preparePatches(c.patches));
+    s.search(c.patches.map((_, i) => i));
+    rows.push({ section: c.name, 'median ms': ms(full.medianMs), 'min–max ms': `${ms(full.minMs)}–${ms(full.maxMs)}`, verdict: verdictOf(findSewableOrder(c.patches)), 'work units': s.steps });
+  }
+
+  // Random crossings (seeded): the slowest of 20 sections per seam count.
+  const rnd = seededRandom(16);
+  for (const lines of [6, 12, 20, 30]) {
+    let worst = 0;
+    let worstPatches = 0;
+    const verdicts: Record<string, number> = {};
+    for (let i = 0; i < 20; i++) {
+      const patches = randomGrid(lines, rnd);
+      findSewableOrder(patches);
+      const t = await timeRuns(() => findSewableOrder(patches), 3, 0);
+      if (t.maxMs > worst) [worst, worstPatches] = [t.maxMs, patches.length];
+      const v = verdictOf(findSewableOrder(patches));
+      verdicts[v] = (verdicts[v] ?? 0) + 1;
+    }
+    rows.push({ section: `20 random sections of ${lines} crossing seams: slowest (${worstPatches} patches)`, 'median ms': '', 'min–max ms': `max ${ms(worst)}`, verdict: Object.entries(verdicts).map(([k, n]) => `${n} ${k}`).join(', ') });
+  }
+
+  const fan = arcFan();
+  const fanPatches = derivePatches(fan).patches;
   const check = await timeRuns(() => checkSewability(fanPatches), 9, 2);
-  rows.push({ section: 'derivePatches, arc fan (19 seams)', 'findSewableOrder median ms': ms(derive.medianMs), verdict: `${fanPatches.length} patches` });
-  rows.push({ section: 'checkSewability, arc fan, given order', 'findSewableOrder median ms': ms(check.medianMs), verdict: checkSewability(fanPatches).sewable ? 'sewable' : 'not sewable' });
+  rows.push({ section: 'checkSewability, arc fan, given order', 'median ms': ms(check.medianMs), 'min–max ms': `${ms(check.minMs)}–${ms(check.maxMs)}`, verdict: checkSewability(fanPatches).sewable ? 'sewable' : 'not sewable' });
   // A large section for scale: a 360° wedge of radius 199 in. cut by 500 parallel seams (501 patches).
   const strips: Section = {
     id: 'big',
@@ -135,18 +228,21 @@ export default async function sewabilityBench(): Promise<BenchSection> {
     seams: Array.from({ length: 500 }, (_, i) => ({ id: `s${i}`, a: { x: -199 + (i + 0.5) * (398 / 500), y: -200 }, b: { x: -199 + (i + 0.5) * (398 / 500), y: 200 } })),
     patches: [],
   };
-  const bigDerive = await timeRuns(() => derivePatches(strips), 3, 1);
   const bigPatches = derivePatches(strips).patches;
-  const bigSearch = await timeRuns(() => findSewableOrder(bigPatches), 3, 1);
-  rows.push({ section: 'derivePatches, 500 seams across a 199 in. circle', 'findSewableOrder median ms': ms(bigDerive.medianMs), verdict: `${bigPatches.length} patches` });
-  rows.push({ section: 'findSewableOrder, those 501 patches', 'findSewableOrder median ms': ms(bigSearch.medianMs), verdict: findSewableOrder(bigPatches).found ? 'sewable' : 'not sewable' });
+  const bigSearch = await timeRuns(() => findSewableOrder(bigPatches), 5, 1);
+  const bigCheck = await timeRuns(() => checkSewability(bigPatches), 5, 1);
+  rows.push({ section: `findSewableOrder, 500 seams across a 199 in. circle (${bigPatches.length} patches)`, 'median ms': ms(bigSearch.medianMs), 'min–max ms': `${ms(bigSearch.minMs)}–${ms(bigSearch.maxMs)}`, verdict: verdictOf(findSewableOrder(bigPatches)) });
+  rows.push({ section: `checkSewability, those ${bigPatches.length} patches`, 'median ms': ms(bigCheck.medianMs), 'min–max ms': `${ms(bigCheck.minMs)}–${ms(bigCheck.maxMs)}`, verdict: checkSewability(bigPatches).sewable ? 'sewable' : 'not sewable' });
   return {
-    title: 'Sewability: order search on 20-patch sections',
+    title: 'Sewability: order search with a work budget',
     rows,
     notes: [
-      'Remove-last-patch search with memo over subsets (docs/design-notes.md#sewability); the unsewable case has to rule out every order.',
-      '"contacts" is the precomputation of shared edges and sides between all pairs of patches; findSewableOrder includes it.',
-      'Medians of 9 runs after 2 warm-up runs (3 after 1 for the 501-patch rows), one process.',
+      ...notes,
+      'Targets (issue 16): the 20-patch Y-seam case ≤ 100 ms; no findSewableOrder call over 250 ms at any size up to the schema\'s 500 patches per section.',
+      'One search per call with a work budget counted in units (patches tried + sets expanded, weighted by mask words), not time: the answer is the same on every machine; past the budget it is "undecided", never a guess.',
+      'A set holding a self-blocking group (each patch of it meets the others along two lines, or along a line they cross) is ruled out at once; "budget spent" times the search with that check off, so it tries sets until its budget is gone: the slowest path a call can take.',
+      'The split advice asks the same search object: the failed search\'s remembered sets, its self-blocking group and its budget carry over.',
+      'Times include preparing the contacts. Medians of 7 runs after 1 warm-up (9 after 2 for the 20-patch cases, 3 per random section); min–max over those runs. The machine is a shared 2-core one: maxima include other processes.',
     ],
   };
 }

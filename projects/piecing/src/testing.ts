@@ -26,7 +26,7 @@ export {
 } from './lib/fabrication/testing/jsts-reference';
 
 /** Sewability internals the sewability benchmark times. */
-export { preparePatches, searchSubset, type SewabilityPatch } from './lib/sewability/index';
+export { preparePatches, searchSubset, OrderSearch, type SewabilityPatch } from './lib/sewability/index';
 
 /** The print benchmark's recorder: a render's pen calls, written again with the pen alone or another writer. */
 export { recordPenDrawing, replayWithPen, type PenCall, type PenRecording } from './lib/print/testing/pen-recorder';

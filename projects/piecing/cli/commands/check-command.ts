@@ -21,6 +21,8 @@ export interface SectionVerdict {
   sewableOrder?: string[];
   /** When no order exists: what the search says, and the suggested cut. */
   cannotBeSewn?: { message: string; cut?: { from: { x: number; y: number }; to: { x: number; y: number } } };
+  /** When the search could not tell in time whether an order exists: what it says, and a cut into two sewable sections if it found one. */
+  undecided?: { message: string; cut?: { from: { x: number; y: number }; to: { x: number; y: number } } };
   /** Seams that do not cross their patch, stray anchors. */
   problems: string[];
 }
@@ -44,7 +46,11 @@ export function checkPattern(document: PatternDocument): SectionVerdict[] {
       result.failure = { label: verdict.failure.label, reason: verdict.failure.reason, message: verdict.failure.message };
       const search = findSewableOrder(patches);
       if (search.found) result.sewableOrder = search.labels;
-      else result.cannotBeSewn = { message: search.message, ...(search.suggestion ? { cut: { from: search.suggestion.from, to: search.suggestion.to } } : {}) };
+      else {
+        const said = { message: search.message, ...(search.suggestion ? { cut: { from: search.suggestion.from, to: search.suggestion.to } } : {}) };
+        if (search.status === 'undecided') result.undecided = said;
+        else result.cannotBeSewn = said;
+      }
     }
     return result;
   });
@@ -60,6 +66,7 @@ function describe(v: SectionVerdict): string[] {
     lines.push(`${head}not sewable as numbered: ${v.failure?.message ?? 'unknown reason'}`);
     if (v.sewableOrder) lines.push(`  a sewable order: ${v.sewableOrder.join(', ')}`);
     if (v.cannotBeSewn) lines.push(`  ${v.cannotBeSewn.message}`);
+    if (v.undecided) lines.push(`  ${v.undecided.message}`);
   }
   for (const p of v.problems) lines.push(`  problem: ${p}`);
   return lines;

@@ -1,91 +1,55 @@
-import { canAdd } from './patch-contacts';
 import { preparePatches, type PreparedPatches, type SewabilityInput } from './check-sewability';
+import { DEFAULT_SEARCH_BUDGET, OrderSearch, type SubsetSearch } from './order-search';
 import type { SewabilityOptions, SewableOrderResult } from './sewability-types';
 import { suggestSplit } from './suggest-split';
 
-/** Default cap on the subsets one order search visits. */
-export const DEFAULT_MAX_SEARCH_STATES = 200_000;
+export { DEFAULT_SEARCH_BUDGET, OrderSearch, type SubsetSearch } from './order-search';
 
-/** Outcome of a search over some of the patches (indices into the prepared patches). */
-export type SubsetSearch = { found: true; order: number[] } | { found: false; limitHit: boolean };
+/** Default work budget of one order search (see {@link DEFAULT_SEARCH_BUDGET}); the old name. */
+export const DEFAULT_MAX_SEARCH_STATES = DEFAULT_SEARCH_BUDGET;
+
+/** Share of the budget the first search may spend; the split advice has the rest (and what the search left). */
+const FIRST_SEARCH_SHARE = 0.75;
 
 /**
- * Remove-last-patch search with memo over subsets (docs/design-notes.md#sewability): a set S of patches can be sewn when
- * some k in S can be sewn last onto S \ {k} and S \ {k} can be sewn. Subsets found unsewable are
- * remembered, so each is examined once. Highest numbers are tried last-first, so a sewable designer's
- * numbering tends to come back unchanged. Returns indices into `prepared.patches`.
+ * One search over some of the patches (indices into `prepared.patches`) with its own budget: see
+ * {@link OrderSearch.search}. Returns indices into `prepared.patches`.
  */
-export function searchSubset(prepared: PreparedPatches, subset: readonly number[], maxStates = DEFAULT_MAX_SEARCH_STATES): SubsetSearch {
-  const { patches, graph, gapIn } = prepared;
-  const n = patches.length;
-  if (subset.length === 0) return { found: true, order: [] };
-  const inSet = new Uint8Array(n);
-  for (const i of subset) inSet[i] = 1;
-  const small = n <= 30;
-  let mask = 0;
-  if (small) for (const i of subset) mask |= 1 << i;
-  const key = (): number | string => (small ? mask : inSet.join(''));
-  const tryOrder = [...subset].sort((a, b) => patches[b].number - patches[a].number);
-  const failed = new Set<number | string>();
-  const order: number[] = [];
-  let states = 0;
-  let limitHit = false;
-
-  const solve = (size: number): boolean => {
-    if (size === 1) {
-      order.push(tryOrder.find((i) => inSet[i])!);
-      return true;
-    }
-    const here = key();
-    if (failed.has(here)) return false;
-    if (++states > maxStates) {
-      limitHit = true;
-      return false;
-    }
-    for (const k of tryOrder) {
-      if (!inSet[k]) continue;
-      inSet[k] = 0;
-      if (small) mask ^= 1 << k;
-      const ok = canAdd(graph, k, inSet, gapIn).ok && solve(size - 1);
-      inSet[k] = 1;
-      if (small) mask ^= 1 << k;
-      if (ok) {
-        order.push(k);
-        return true;
-      }
-      if (limitHit) return false;
-    }
-    failed.add(here);
-    return false;
-  };
-
-  return solve(subset.length) ? { found: true, order } : { found: false, limitHit };
+export function searchSubset(prepared: PreparedPatches, subset: readonly number[], maxStates = DEFAULT_SEARCH_BUDGET): SubsetSearch {
+  return new OrderSearch(prepared, maxStates).search(subset);
 }
 
 /**
  * Finds an order in which the section (or its derived patches) can be sewn. When none exists, says so
  * and, where one straight cut along existing seams would do, suggests cutting the section there into
- * two sections that can each be sewn. Never throws for valid input.
+ * two sections that can each be sewn. One work budget covers the search and the advice; when it runs
+ * out before the search can tell, the answer is `undecided` (never a guess). Never throws for valid input.
  */
 export function findSewableOrder(input: SewabilityInput, options: SewabilityOptions = {}): SewableOrderResult {
   const prepared = preparePatches(input, options);
-  const maxStates = options.maxSearchStates ?? DEFAULT_MAX_SEARCH_STATES;
-  const all = prepared.patches.map((_, i) => i);
-  const result = searchSubset(prepared, all, maxStates);
+  const budget = options.maxSearchStates ?? DEFAULT_SEARCH_BUDGET;
+  const search = new OrderSearch(prepared, Math.floor(budget * FIRST_SEARCH_SHARE));
+  const result = search.search(prepared.patches.map((_, i) => i));
   if (result.found) {
     const order = result.order.map((i) => prepared.patches[i].number);
     const labels = result.order.map((i) => prepared.patches[i].label);
-    return { found: true, order, labels, message: `can be sewn in the order ${labels.join(', ')}` };
+    return { found: true, status: 'sewable', order, labels, message: `can be sewn in the order ${labels.join(', ')}` };
   }
   const section = sectionLabelOf(prepared);
+  search.budget = budget;
+  const advice = suggestSplit(prepared, search);
+  const suggestion = advice.suggestion;
   if (result.limitHit) {
-    return { found: false, reason: 'search-limit', message: `the search for a sewing order of section ${section} stopped after ${maxStates} steps without an answer; split the section into smaller ones` };
+    const head = `the search could not tell in time whether section ${section} can be sewn in some order`;
+    const message = suggestion ? `${head}; ${suggestion.message}` : `${head}; split it into smaller sections, or set an order by hand and check it`;
+    return suggestion ? { found: false, status: 'undecided', reason: 'search-limit', message, suggestion } : { found: false, status: 'undecided', reason: 'search-limit', message };
   }
-  const suggestion = suggestSplit(prepared, maxStates);
   const message = suggestion
     ? `section ${section} cannot be sewn in any order; ${suggestion.message}`
-    : `section ${section} cannot be sewn in any order, and no single straight cut along its seams gives two sewable sections; split it into more sections`;
-  return suggestion ? { found: false, reason: 'none', message, suggestion } : { found: false, reason: 'none', message };
+    : advice.complete
+      ? `section ${section} cannot be sewn in any order, and no single straight cut along its seams gives two sewable sections; split it into more sections`
+      : `section ${section} cannot be sewn in any order, and no straight cut into two sewable sections turned up in time; split it into more sections`;
+  return suggestion ? { found: false, status: 'unsewable', reason: 'none', message, suggestion } : { found: false, status: 'unsewable', reason: 'none', message };
 }
 
 function sectionLabelOf(prepared: PreparedPatches): string {

@@ -56,17 +56,19 @@ function sideOfPoints(ring: readonly Point[], line: LineGeometry, toleranceIn: n
   return pos ? 1 : neg ? -1 : 0;
 }
 
-/** Side of a box wholly off the line (−1 / +1), or null when the line passes through it. */
+/** Side of a box wholly off the line (−1 / +1), or null when the line passes through it or within the tolerance of it. */
 function sideOfBox(b: Bounds, line: LineGeometry, toleranceIn: number): number | null {
-  let pos = false;
-  let neg = false;
-  for (const [x, y] of [[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY]]) {
-    const d = -line.uy * (x - line.origin.x) + line.ux * (y - line.origin.y);
-    if (d > toleranceIn) pos = true;
-    else if (d < -toleranceIn) neg = true;
-    else return null;
-  }
-  return pos && neg ? null : pos ? 1 : -1;
+  const nx = -line.uy;
+  const ny = line.ux;
+  const ox = line.origin.x;
+  const oy = line.origin.y;
+  const d0 = nx * (b.minX - ox) + ny * (b.minY - oy);
+  const d1 = nx * (b.maxX - ox) + ny * (b.minY - oy);
+  const d2 = nx * (b.maxX - ox) + ny * (b.maxY - oy);
+  const d3 = nx * (b.minX - ox) + ny * (b.maxY - oy);
+  if (d0 > toleranceIn && d1 > toleranceIn && d2 > toleranceIn && d3 > toleranceIn) return 1;
+  if (d0 < -toleranceIn && d1 < -toleranceIn && d2 < -toleranceIn && d3 < -toleranceIn) return -1;
+  return null;
 }
 
 /** Intervals of collinear edges of `ring` on the line. */
@@ -135,6 +137,8 @@ function contactsOf(ring: readonly Point[], k: number, polygons: readonly Point[
   polygons.forEach((other, j) => {
     if (j === k || !boxesTouch(bounds[k], bounds[j], toleranceIn)) return;
     lines.forEach((line, li) => {
+      // A box wholly off the line (beyond the tolerance) has no edge on it.
+      if (sideOfBox(bounds[j], line, toleranceIn) !== null) return;
       const shared = intersectIntervals(line.own, intervalsOn(other, line, toleranceIn), minSeamLengthIn);
       if (shared.length === 0) return;
       line.shared.set(j, mergeIntervals(shared, toleranceIn));

@@ -53,14 +53,22 @@ export interface SplitSuggestion {
   message: string;
 }
 
+/**
+ * Outcome of an order search: `sewable` (an order was found), `unsewable` (no order exists) or
+ * `undecided` (the search spent its work budget before it could tell either way; it never guesses).
+ */
+export type SewableOrderStatus = 'sewable' | 'unsewable' | 'undecided';
+
 /** Outcome of an order search. */
 export type SewableOrderResult =
-  | { found: true; order: number[]; labels: string[]; message: string }
+  | { found: true; status: 'sewable'; order: number[]; labels: string[]; message: string }
   | {
       found: false;
-      /** 'none': no sewable order exists; 'search-limit': the search stopped before it could tell. */
+      status: 'unsewable' | 'undecided';
+      /** 'none': no sewable order exists; 'search-limit': the search could not decide within its budget. */
       reason: 'none' | 'search-limit';
       message: string;
+      /** A straight cut into two sections that can each be sewn, when the search found one. */
       suggestion?: SplitSuggestion;
     };
 
@@ -72,6 +80,9 @@ export interface SewabilityOptions {
   minSeamLengthIn?: number;
   /** Chord tolerance used when a section is given and its patches must be derived, in inches. */
   chordToleranceIn?: number;
-  /** Most subsets the order search visits before giving up. */
+  /**
+   * Work budget of one order search, split advice included: patches tried plus sets expanded (counted,
+   * not timed, so the answer is the same on every machine). Past it the answer is `undecided`.
+   */
   maxSearchStates?: number;
 }

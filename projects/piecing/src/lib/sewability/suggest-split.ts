@@ -1,7 +1,7 @@
 import type { Point } from '../document/pattern-schema';
 import { formatPoint } from '../geometry/vector';
 import type { PreparedPatches } from './check-sewability';
-import { searchSubset } from './find-sewable-order';
+import type { OrderSearch } from './order-search';
 import { patchSideOfLine } from './patch-contacts';
 import type { SplitSuggestion } from './sewability-types';
 
@@ -11,12 +11,19 @@ interface CandidateLine {
   uy: number;
 }
 
+/** What the split advice found, and whether it looked at every candidate cut within the budget. */
+export interface SplitAdvice {
+  suggestion: SplitSuggestion | null;
+  complete: boolean;
+}
+
 /**
  * Looks for one straight cut along existing seams that divides the patches into two groups, each lying
- * wholly on one side of the cut and each sewable on its own. Prefers the most even split. Returns null
- * when there is none.
+ * wholly on one side of the cut and each sewable on its own. Prefers the most even split. Asks the
+ * section's {@link OrderSearch}, so the sets the failed search proved unsewable, its self-blocking core
+ * and its work budget carry over; when the budget runs out it keeps the best cut found so far.
  */
-export function suggestSplit(prepared: PreparedPatches, maxStates: number): SplitSuggestion | null {
+export function suggestSplit(prepared: PreparedPatches, search: OrderSearch): SplitAdvice {
   const { patches, graph } = prepared;
   const contacts = graph.contacts;
   const n = patches.length;
@@ -41,14 +48,19 @@ export function suggestSplit(prepared: PreparedPatches, maxStates: number): Spli
       const s = side(j);
       if (s === 1) plus.push(j);
       else if (s === -1) minus.push(j);
-      else straddles = true;
+      else {
+        straddles = true;
+        break;
+      }
     }
     if (straddles || plus.length === 0 || minus.length === 0) continue;
     const imbalance = Math.abs(plus.length - minus.length);
     if (best && imbalance >= best.imbalance) continue;
-    const a = searchSubset(prepared, plus, maxStates);
+    const a = search.search(plus);
+    if (!a.found && a.limitHit) return { suggestion: best?.suggestion ?? null, complete: false };
     if (!a.found) continue;
-    const b = searchSubset(prepared, minus, maxStates);
+    const b = search.search(minus);
+    if (!b.found && b.limitHit) return { suggestion: best?.suggestion ?? null, complete: false };
     if (!b.found) continue;
     // The cut runs over the stretches the two groups share along the line.
     let lo = Infinity;
@@ -85,5 +97,5 @@ export function suggestSplit(prepared: PreparedPatches, maxStates: number): Spli
     };
     if (imbalance <= 1) break;
   }
-  return best?.suggestion ?? null;
+  return { suggestion: best?.suggestion ?? null, complete: true };
 }
