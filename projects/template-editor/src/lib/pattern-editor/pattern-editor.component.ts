@@ -3,6 +3,7 @@ import type { PatternDocument } from '@seamwright/piecing';
 import { DraftingBoardComponent } from '../board/drafting-board.component';
 import { diffValues, type BoardHighlight } from '../core/public-api';
 import { JoiningPlanPanelComponent } from '../joining-plan/joining-plan-panel.component';
+import { FourBlockViewComponent } from '../four-block/four-block-view.component';
 import { PatternSettingsPanelComponent } from '../pattern-settings/pattern-settings-panel.component';
 import { PiecingOrderComponent } from '../piecing-order/piecing-order.component';
 import { PropertiesPanelComponent } from '../properties/properties-panel.component';
@@ -27,7 +28,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
   selector: 'sw-pattern-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [EditorSession],
-  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent, SectionsOutlineComponent, TypedEntryPanelComponent, JoiningPlanPanelComponent],
+  imports: [BoardToolbarComponent, DraftingBoardComponent, BoardStatusComponent, PropertiesPanelComponent, PiecingOrderComponent, PatternSettingsPanelComponent, SectionsOutlineComponent, TypedEntryPanelComponent, JoiningPlanPanelComponent, FourBlockViewComponent],
   template: `
     <sw-board-toolbar class="toolbar" />
     <div class="body">
@@ -40,6 +41,7 @@ import { BoardToolbarComponent } from '../toolbar/board-toolbar.component';
         <sw-properties-panel />
         <sw-piecing-order />
         <sw-joining-plan-panel (highlightChange)="joinHighlight.set($event)" />
+        <sw-four-block-view />
         @if (!readOnly()) {
           <details class="settings">
             <summary>Add by values</summary>
