@@ -41,6 +41,14 @@ export const printOptionsSchema = z
      * options give the same bytes, so this must come from the revision, not from the clock.
      */
     createdAt: z.iso.datetime({ offset: true }).default(DEFAULT_CREATED_AT),
+    /**
+     * A named size of the pattern's quilt layout (`quilt.sizes[].name`, design §11): the print set is then
+     * for the whole quilt in that size (blocks, copies and yardage for all its blocks, a quilt assembly
+     * page, the finished quilt size and size chart on the cover). Without it the print set is for the block.
+     */
+    quiltSize: z.string().trim().min(1).max(60).optional(),
+    /** A colourway of the pattern (`colourways[].id`): fabrics named and coloured as in that colourway. */
+    colourwayId: z.string().min(1).max(64).optional(),
   })
   .strict();
 
