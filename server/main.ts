@@ -30,7 +30,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
   const printSets = new PrintSetService(database.db, config, log);
   const mailOutbox = new MailOutbox(database.db, mailer, log);
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks() };
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks(config.dataDir) };
   printSets.resumeUnfinished();
   mailOutbox.start();
   const stopHousekeeping = startHousekeeping(database.db, log);

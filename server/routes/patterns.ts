@@ -11,6 +11,7 @@ import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { canDesign } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
+import { checkDocumentBody } from '../validation/document-body';
 import { listPatterns } from '../services/pattern-list';
 import {
   createPattern,
@@ -36,8 +37,12 @@ export function patternsRouter(ctx: AppContext): Router {
   router.post('/', requireUser, async (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can create patterns');
-    // A large body is parsed and checked in the validation pool (server/validation/document-checks.ts).
-    const { document } = await ctx.documentChecks.check('create', req.body);
+    // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
+    if (Buffer.isBuffer(req.body)) {
+      await ctx.documentChecks.answer(res, { kind: 'create', userId: user.id, displayName: user.displayName }, req.body);
+      return;
+    }
+    const { document } = checkDocumentBody('create', req.body);
     const { pattern, revision } = db.transaction((tx) => createPattern(tx, user.id, document), { behavior: 'immediate' });
     sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
   });
@@ -52,9 +57,12 @@ export function patternsRouter(ctx: AppContext): Router {
   router.put('/:id', async (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    // A large body is parsed and checked in the validation pool (server/validation/document-checks.ts);
-    // the document comes back as the JSON text the database stores.
-    const { fields: body, document } = await ctx.documentChecks.check('save', req.body);
+    // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
+    if (Buffer.isBuffer(req.body)) {
+      await ctx.documentChecks.answer(res, { kind: 'save', patternId: pattern.id, access, userId: user.id, displayName: user.displayName }, req.body);
+      return;
+    }
+    const { fields: body, document } = checkDocumentBody('save', req.body);
     const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
       behavior: 'immediate',
     });

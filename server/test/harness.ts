@@ -45,7 +45,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   // Retries come quickly in tests; the first attempt always goes at once.
   const mailOutbox = new MailOutbox(database.db, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
   mailOutbox.start();
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks() };
+  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks(config.dataDir) };
   const app = createApp(ctx);
   return {
     app,

@@ -8,7 +8,7 @@ import { createPatternBodySchema, saveRevisionBodySchema } from '@seamwright/api
 import { HttpError } from '../http/errors';
 import { MAX_JSON_DEPTH, jsonDepthExceeds } from '../http/json-bodies';
 import { parseOr400 } from '../http/validate';
-import { validDocument } from './valid-document';
+import { DocumentText, validDocument } from './valid-document';
 
 /** The body schemas of the routes whose documents may be checked off the request thread. */
 export const documentBodySchemas = {
@@ -20,19 +20,13 @@ export const documentBodySchemas = {
 
 export type DocumentBodyKind = keyof typeof documentBodySchemas;
 
-/** One body to check (a task of the validation pool). */
-export interface DocumentBodyTask {
-  kind: DocumentBodyKind;
-  /** The body's bytes as received (UTF-8 JSON). */
-  body: Uint8Array;
+/** A checked body: its other fields and the document as the database stores it. */
+export interface CheckedBody<K extends DocumentBodyKind> {
+  fields: Omit<ReturnType<(typeof documentBodySchemas)[K]['parse']>, 'document'>;
+  document: DocumentText;
 }
 
-/** What a check gives back: the body's other fields and the document as stored, or the 4xx answer. */
-export type DocumentBodyResult =
-  | { ok: true; fields: Record<string, unknown>; title: string; json: string; workerMs: number }
-  | { ok: false; status: number; error: string; details: unknown; workerMs: number };
-
-const decoder = new TextDecoder('utf-8', { fatal: false });
+const decoder = new TextDecoder('utf-8');
 
 /**
  * The body as JSON, as the request thread's parser would read it (express.json with `strict`, and the
@@ -57,16 +51,13 @@ export function parseJsonBody(bytes: Uint8Array): unknown {
   }
 }
 
-/** Checks one document body from its bytes; never throws an HttpError (it comes back as the answer). */
-export function checkDocumentBody(task: DocumentBodyTask): DocumentBodyResult {
-  const t0 = performance.now();
-  try {
-    const body = parseOr400(documentBodySchemas[task.kind], parseJsonBody(task.body)) as { document: unknown } & Record<string, unknown>;
-    const { document, ...fields } = body;
-    const checked = validDocument(document);
-    return { ok: true, fields, title: checked.title, json: JSON.stringify(checked), workerMs: performance.now() - t0 };
-  } catch (err) {
-    if (!(err instanceof HttpError)) throw err;
-    return { ok: false, status: err.status, error: err.message, details: err.details ?? null, workerMs: performance.now() - t0 };
-  }
+/**
+ * Checks a document route's body, already parsed (a small body, on the request thread) or as bytes (in
+ * the worker). Throws the routes' HttpError: 400 with zod's details, malformed JSON, deep nesting.
+ */
+export function checkDocumentBody<K extends DocumentBodyKind>(kind: K, body: unknown): CheckedBody<K> {
+  const value = body instanceof Uint8Array ? parseJsonBody(body) : body;
+  const parsed = parseOr400(documentBodySchemas[kind], value) as { document: unknown } & Record<string, unknown>;
+  const { document, ...fields } = parsed;
+  return { fields: fields as CheckedBody<K>['fields'], document: DocumentText.of(validDocument(document)) };
 }

@@ -1,6 +1,73 @@
-/** The validation pool's task (a piscina worker thread): checks one document body from its bytes. */
-import { checkDocumentBody, type DocumentBodyResult, type DocumentBodyTask } from './document-body';
+/**
+ * The validation pool's task (a piscina worker thread): one save or new pattern with a large document,
+ * from the body's bytes to the answer's bytes. It parses and checks the body, stores the revision
+ * through its own connection to the database (WAL: the request thread keeps reading meanwhile; writes
+ * take turns under SQLite's lock) and writes the answer, so the request thread only sends it.
+ */
+import { createHash } from 'node:crypto';
+import type { Access } from '../services/access';
+import { openDatabase, type DatabaseHandle } from '../db/database';
+import { HttpError } from '../http/errors';
+import { createPattern, ownerName, patternJson, patternWithRevisionText, saveRevision } from '../services/revisions';
+import { checkDocumentBody } from './document-body';
 
-export default function documentTask(task: DocumentBodyTask): DocumentBodyResult {
-  return checkDocumentBody(task);
+/** One large document body to check and store. */
+export type DocumentTask = {
+  /** The body's bytes as received (UTF-8 JSON). */
+  body: Uint8Array;
+  dataDir: string;
+  userId: string;
+  /** The caller's display name (the new revision's author). */
+  displayName: string;
+} & ({ kind: 'save'; patternId: string; access: Access } | { kind: 'create' });
+
+/** The answer to send: status, JSON bytes and their ETag; or a storage error's code for the error middleware. */
+export type DocumentTaskResult =
+  | { status: number; answer: Uint8Array; etag: string; workerMs: number }
+  | { storageError: { code: string; message: string }; workerMs: number };
+
+/** This thread's own connection, opened on its first task (a pool serves one server, so one data folder). */
+let database: { dataDir: string; handle: DatabaseHandle } | undefined;
+
+function db(dataDir: string) {
+  if (database?.dataDir !== dataDir) {
+    database?.handle.close();
+    database = { dataDir, handle: openDatabase(dataDir) };
+  }
+  return database.handle.db;
+}
+
+export default function documentTask(task: DocumentTask): DocumentTaskResult {
+  const t0 = performance.now();
+  const done = (status: number, text: string) => {
+    // Copied back (a memcpy when the request thread receives it): piscina moves only a whole result.
+    const answer = Buffer.from(text, 'utf8');
+    return { status, answer, etag: weakEtag(answer), workerMs: performance.now() - t0 };
+  };
+  try {
+    if (task.kind === 'save') {
+      const { fields, document } = checkDocumentBody('save', task.body);
+      const handle = db(task.dataDir);
+      const saved = handle.transaction(
+        (tx) => saveRevision(tx, task.patternId, fields.baseRevision, document, task.userId, { editSession: fields.editSession }),
+        { behavior: 'immediate' },
+      );
+      const pattern = patternJson(saved.pattern, ownerName(handle, saved.pattern.ownerId), task.access);
+      return done(200, patternWithRevisionText(pattern, saved.revision, task.displayName));
+    }
+    const { document } = checkDocumentBody('create', task.body);
+    const made = db(task.dataDir).transaction((tx) => createPattern(tx, task.userId, document), { behavior: 'immediate' });
+    return done(201, patternWithRevisionText(patternJson(made.pattern, task.displayName, 'owner'), made.revision, task.displayName));
+  } catch (err) {
+    // The error middleware's answer, written here: `{ error, details }` (server/http/errors.ts).
+    if (err instanceof HttpError) return done(err.status, JSON.stringify({ error: err.message, details: err.details ?? null }));
+    const code = (err as { code?: unknown }).code;
+    if (typeof code === 'string') return { storageError: { code, message: (err as Error).message }, workerMs: performance.now() - t0 };
+    throw err;
+  }
+}
+
+/** Express's default ETag of a body (the `etag` package, weak): W/"<length in hex>-<27 characters of its SHA-1 in base64>". */
+function weakEtag(body: Buffer): string {
+  return `W/"${body.length.toString(16)}-${createHash('sha1').update(body).digest('base64').substring(0, 27)}"`;
 }

@@ -1,0 +1,164 @@
+/**
+ * Issue 15, item 3: saving the largest valid document (100 sections of 2,000-vertex outlines, the
+ * schema's limit; tests/fixtures/largest-document.ts) must not hold the request thread. While the save
+ * is parsed and checked (in the validation pool, server/validation/document-checks.ts), the event loop
+ * keeps turning and /api/health keeps answering. Also: the pool stores exactly what the inline check
+ * would, and answers errors (zod and geometry details, malformed JSON, deep nesting, stale base) as
+ * the inline path does.
+ */
+import { monitorEventLoopDelay } from 'node:perf_hooks';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { largestDocument } from '../tests/fixtures/largest-document';
+import { HttpError } from './http/errors';
+import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { validDocument } from './validation/valid-document';
+
+let t: TestServer;
+let owner: Client;
+beforeAll(async () => {
+  t = await startTestServer();
+  owner = await userClient(t.app, 'owner@save-thread.test', 'designer');
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function newPattern(title: string): Promise<string> {
+  const res = await owner.post('/api/patterns', { document: sampleDocument(title) });
+  expect(res.status).toBe(201);
+  return res.body.pattern.id as string;
+}
+
+/** Keeps the answer as bytes: parsing a 6 MB answer here would block this (the server's) thread too. */
+function rawBody(res: request.Response, done: (err: Error | null, body: Buffer) => void) {
+  const chunks: Buffer[] = [];
+  const stream = res as unknown as NodeJS.ReadableStream;
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => done(null, Buffer.concat(chunks)));
+}
+
+function putText(id: string, text: string) {
+  return owner.req('put', `/api/patterns/${id}`).set('Content-Type', 'application/json').buffer(true).parse(rawBody).send(text);
+}
+
+/** The 400 the inline check gives for `document`. */
+function inlineError(document: unknown): { error: string; details: unknown } {
+  try {
+    validDocument(document);
+  } catch (err) {
+    if (err instanceof HttpError) return { error: err.message, details: err.details };
+    throw err;
+  }
+  throw new Error('the document is valid');
+}
+
+describe('saving the largest valid document', () => {
+  it('leaves the request thread free: the event loop never stalls and health keeps answering', async () => {
+    // Small saves are checked inline: no worker thread is started for them.
+    const id = await newPattern('Largest save');
+    expect((await owner.put(`/api/patterns/${id}`, { baseRevision: 1, document: sampleDocument('Still small') })).status).toBe(200);
+    expect(t.ctx.documentChecks.started).toBe(false);
+
+    // Straight edges: the slower check of the two (the curved one, 5.9 MB, is over the default
+    // JSON_BODY_LIMIT of 5 MB; the straight one is 4.9 MB).
+    const document = largestDocument('Largest save', 0);
+    const text = JSON.stringify({ baseRevision: 2, document });
+    expect(text.length).toBeGreaterThan(4_500_000);
+
+    // The test's client runs on the server's thread, so the histogram sees both; the client's own work
+    // (sending bytes, keeping the answer as bytes, tiny health answers) is a few milliseconds.
+    const delay = monitorEventLoopDelay({ resolution: 10 });
+    const healthMs: number[] = [];
+    let saving = true;
+    const probes = (async () => {
+      while (saving) {
+        const t0 = performance.now();
+        await request(t.app).get('/api/health').expect(200);
+        healthMs.push(performance.now() - t0);
+        await new Promise((r) => setTimeout(r, 20));
+      }
+    })();
+    delay.enable();
+    const saveStarted = performance.now();
+    const res = await putText(id, text);
+    const saveMs = performance.now() - saveStarted;
+    saving = false;
+    await probes;
+    delay.disable();
+
+    expect(res.status, res.body.toString().slice(0, 300)).toBe(200);
+    expect(JSON.parse(res.body.toString()).pattern.headRevision).toBe(3);
+    const maxBlockedMs = delay.max / 1e6;
+    // The target is 100 ms of request-thread time (issue 15); the bound asserted is generous because CI
+    // shares 2 cores between the worker thread doing the check, this thread and the rest of the suite,
+    // so the thread is sometimes simply not scheduled. Checking inline blocks it for seconds (1.5–7 s).
+    expect(maxBlockedMs, `longest event-loop stall ${maxBlockedMs.toFixed(0)} ms during a ${saveMs.toFixed(0)} ms save`).toBeLessThan(500);
+    // Health answered all along, each answer well under a second, while the save took its time.
+    expect(healthMs.length).toBeGreaterThanOrEqual(Math.min(5, Math.floor(saveMs / 200)));
+    expect(Math.max(...healthMs)).toBeLessThan(1000);
+    expect(t.ctx.documentChecks.started).toBe(true);
+
+    // What the pool stored is exactly what the inline check would store.
+    const stored = t.ctx.database.sqlite.prepare('SELECT document FROM revisions WHERE pattern_id = ? AND number = 3').get(id) as { document: string };
+    expect(stored.document).toBe(JSON.stringify(validDocument(JSON.parse(text).document)));
+  }, 120_000);
+
+  it('answers a large invalid document as the inline check does (zod and geometry details)', async () => {
+    const id = await newPattern('Large invalid');
+    const badField = largestDocument('Large invalid', 0) as { sections: Array<{ geometry: { vertices: Array<{ x: unknown; y: number }> } }> };
+    badField.sections[7].geometry.vertices[3].x = 'three';
+    const crossing = largestDocument('Large crossing', 0);
+    // Two neighbouring vertices swapped: the outline crosses itself there.
+    const v = crossing.sections[42].geometry.vertices;
+    [v[10], v[11]] = [v[11], v[10]];
+    for (const document of [badField, crossing]) {
+      const res = await putText(id, JSON.stringify({ baseRevision: 1, document }));
+      expect(res.status).toBe(400);
+      const answer = JSON.parse(res.body.toString());
+      const expected = inlineError(document);
+      expect(answer).toEqual({ error: expected.error, details: expected.details });
+      expect(JSON.stringify(answer.details)).toMatch(/sections\.(7|42)/);
+    }
+    const head = await owner.get(`/api/patterns/${id}`).expect(200);
+    expect(head.body.pattern.headRevision).toBe(1);
+  }, 120_000);
+
+  it('answers malformed, deeply nested, wrongly typed and stale large bodies as before', async () => {
+    const id = await newPattern('Large errors');
+    const big = JSON.stringify({ baseRevision: 1, document: largestDocument('Large errors', 0) });
+    const malformed = await putText(id, big.slice(0, -1));
+    expect(malformed.status).toBe(400);
+    expect(JSON.parse(malformed.body.toString())).toEqual({ error: 'Malformed JSON body', details: null });
+    const notObject = await putText(id, `"${'x'.repeat(100_000)}"`);
+    expect(JSON.parse(notObject.body.toString())).toEqual({ error: 'Malformed JSON body', details: null });
+    const deep = await putText(id, `{"baseRevision":1,"document":${'['.repeat(70)}${']'.repeat(70)},"pad":"${'x'.repeat(100_000)}"}`);
+    expect(deep.status).toBe(400);
+    expect(JSON.parse(deep.body.toString()).error).toMatch(/nested too deeply/);
+    const wrongBase = await putText(id, big.replace('"baseRevision":1', '"baseRevision":"1"'));
+    expect(wrongBase.status).toBe(400);
+    expect(JSON.parse(wrongBase.body.toString())).toMatchObject({ error: 'Invalid request', details: [{ path: 'baseRevision' }] });
+
+    // Saved once on revision 1; the same base again is stale: 409 with the latest revision.
+    expect((await putText(id, big)).status).toBe(200);
+    const stale = await putText(id, big);
+    expect(stale.status).toBe(409);
+    const answer = JSON.parse(stale.body.toString());
+    expect(answer.error).toBe('This pattern was saved by someone else since revision 1');
+    expect(answer.details.latest.number).toBe(2);
+    expect(answer.details.latest.document.sections).toHaveLength(100);
+  }, 120_000);
+
+  it('creates a pattern from a large document through the pool too', async () => {
+    const res = await owner
+      .req('post', '/api/patterns')
+      .set('Content-Type', 'application/json')
+      .buffer(true)
+      .parse(rawBody)
+      .send(JSON.stringify({ document: largestDocument('Large new', 0) }));
+    expect(res.status).toBe(201);
+    const created = JSON.parse(res.body.toString());
+    expect(created.pattern.title).toBe('Large new');
+    expect(created.revision.document.sections).toHaveLength(100);
+  }, 120_000);
+});
