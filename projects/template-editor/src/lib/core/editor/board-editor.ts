@@ -5,7 +5,7 @@ import { NUDGE_DIRECTIONS, nudgeSection, nudgeStepIn } from '../commands/nudge-c
 import { deleteSection, findSection } from '../commands/section-commands';
 import { addSeamByValues, addSectionByValues } from '../commands/typed-entry';
 import { snapDirectionDeg, snapSweepDeg } from '../snapping/angle-snap';
-import { collectSnapTargets, snapPoint, snapToGrid, type SnapResult, type SnapTarget } from '../snapping/snapping';
+import { collectSnapTargets, snapPoint, snapToGrid, SnapTargetIndex, type SnapResult, type SnapTarget } from '../snapping/snapping';
 import { DocumentStore } from '../store/document-store';
 import { createTool } from '../tools/create-tool';
 import type { BoardTool, ToolContext, ToolId } from '../tools/tool';
@@ -19,6 +19,17 @@ export interface BoardPointerInfo {
   button?: number;
   shiftKey?: boolean;
   altKey?: boolean;
+}
+
+/** Whether two section lists hold the same section objects in the same order, but for the one with id `exceptId`. */
+function sameSectionsBut(a: readonly Section[], b: readonly Section[], exceptId: string | undefined): boolean {
+  if (a === b) return true;
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    if (a[i] === b[i]) continue;
+    if (exceptId === undefined || a[i].id !== exceptId || b[i].id !== exceptId) return false;
+  }
+  return true;
 }
 
 /** Tools a read-only board keeps. */
@@ -46,7 +57,11 @@ export class BoardEditor {
   private panning: Point | null = null;
   private clipboard: SectionClipboard | null = null;
   private readOnlyValue = false;
-  private targets: { doc: PatternDocument; exclude: string | undefined; list: SnapTarget[] } | null = null;
+  /**
+   * Snap targets of every section but the excluded one, indexed. Kept while those sections stay the
+   * same objects: a drag changes only the section it drags, which is the one excluded.
+   */
+  private targets: { sections: readonly Section[]; exclude: string | undefined; index: SnapTargetIndex } | null = null;
   private edges: { doc: PatternDocument; rings: Point[][] } | null = null;
   private readonly targetCache = new WeakMap<Section, SnapTarget[]>();
   private readonly viewListeners = new Set<() => void>();
@@ -432,8 +447,8 @@ export class BoardEditor {
 
   private snap(p: Point, edges: boolean, excludeSectionId?: string): SnapResult {
     const doc = this.store.document;
-    if (!this.targets || this.targets.doc !== doc || this.targets.exclude !== excludeSectionId) {
-      this.targets = { doc, exclude: excludeSectionId, list: collectSnapTargets(doc, excludeSectionId, this.targetCache) };
+    if (!this.targets || this.targets.exclude !== excludeSectionId || !sameSectionsBut(this.targets.sections, doc.sections, excludeSectionId)) {
+      this.targets = { sections: doc.sections, exclude: excludeSectionId, index: new SnapTargetIndex(collectSnapTargets(doc, excludeSectionId, this.targetCache)) };
     }
     let rings: Point[][] = [];
     if (edges) {
@@ -442,7 +457,7 @@ export class BoardEditor {
       }
       rings = this.edges.rings;
     }
-    return snapPoint(p, this.targets.list, { grid: this.settingsValue.grid, toPoints: this.settingsValue.snapToPoints, radiusIn: HIT_RADIUS_PX / this.view.scale }, rings);
+    return snapPoint(p, this.targets.index, { grid: this.settingsValue.grid, toPoints: this.settingsValue.snapToPoints, radiusIn: HIT_RADIUS_PX / this.view.scale }, rings);
   }
 
   private changed(): void {

@@ -1,7 +1,29 @@
 import { describe, expect, it } from 'vitest';
-import { GRID_SNAP_STEP_IN, snapPoint, snapToEdges, snapToGrid, type SnapTarget } from './snapping';
+import { GRID_SNAP_STEP_IN, snapPoint, snapToEdges, snapToGrid, SnapTargetIndex, type SnapTarget } from './snapping';
 
 describe('snapping', () => {
+  it('finds through the spatial index exactly the target a scan of the list finds, ties included', () => {
+    // Points on a ⅛ in. lattice spread by two strides, many shared by two sections (as neighbouring corners are).
+    const targets: SnapTarget[] = Array.from({ length: 3000 }, (_, i) => ({
+      point: { x: ((i * 37) % 81) / 8, y: ((i * 53) % 79) / 8 },
+      kind: i % 3 === 0 ? 'seam-end' : 'vertex',
+      sectionId: `s${i}`,
+    }));
+    const index = new SnapTargetIndex(targets);
+    const options = { grid: 'off' as const, toPoints: true, radiusIn: 0.2 };
+    let snapped = 0;
+    // Probes every 0.23 in. across the lattice: between, beside and on targets.
+    for (let k = 0; k < 2000; k++) {
+      const p = { x: (k % 45) * 0.23, y: Math.floor(k / 45) * 0.23 };
+      const fromList = snapPoint(p, targets, options);
+      expect(snapPoint(p, index, options)).toEqual(fromList);
+      if (fromList.kind !== 'none') snapped++;
+    }
+    // Most probes land near some target, and the empty index snaps to nothing.
+    expect(snapped).toBeGreaterThan(1000);
+    expect(snapPoint({ x: 1, y: 1 }, new SnapTargetIndex([]), options).kind).toBe('none');
+  });
+
   it('rounds to ⅛, ¼ and ½ in. and to 0.5 cm', () => {
     const p = { x: 1.3, y: 2.07 };
     expect(snapToGrid(p, 'eighth-in')).toEqual({ x: 1.25, y: 2.125 });

@@ -1,3 +1,4 @@
+import Flatbush from 'flatbush';
 import { CM_PER_INCH, distance, pointOnCircle, degToRad, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 
 /** Grid snap settings offered on the board. */
@@ -109,21 +110,66 @@ export function snapToEdges(p: Point, rings: ReadonlyArray<readonly Point[]>, ra
   return best;
 }
 
+/** The nearest target within `radiusIn` of `p` (of equally near ones, the last in list order), or null. */
+function nearestTarget(p: Point, targets: readonly SnapTarget[], radiusIn: number): SnapTarget | null {
+  let best: SnapTarget | null = null;
+  let bestD = radiusIn;
+  for (const t of targets) {
+    const d = distance(t.point, p);
+    if (d <= bestD) {
+      bestD = d;
+      best = t;
+    }
+  }
+  return best;
+}
+
 /**
- * Snaps a pointer position: to the nearest point target within the radius first (vertices, seam ends,
- * circle centres), then to the given edges, then to the grid.
+ * Snap targets in a spatial index (a packed R-tree over their points), for documents with thousands of
+ * them: a query looks only at the targets in the catch radius's square, and picks the same target a
+ * scan of the whole list would.
  */
-export function snapPoint(p: Point, targets: readonly SnapTarget[], options: SnapOptions, edges: ReadonlyArray<readonly Point[]> = []): SnapResult {
-  if (options.toPoints) {
+export class SnapTargetIndex {
+  private readonly index: Flatbush | null;
+
+  constructor(readonly targets: readonly SnapTarget[]) {
+    if (targets.length === 0) {
+      this.index = null;
+      return;
+    }
+    this.index = new Flatbush(targets.length);
+    for (const t of targets) this.index.add(t.point.x, t.point.y, t.point.x, t.point.y);
+    this.index.finish();
+  }
+
+  /** The nearest target within `radiusIn` of `p` (of equally near ones, the last in list order), or null. */
+  nearest(p: Point, radiusIn: number): SnapTarget | null {
+    if (!this.index) return null;
+    const ids = this.index.search(p.x - radiusIn, p.y - radiusIn, p.x + radiusIn, p.y + radiusIn);
+    // Back in list order, so ties go to the same target as in a scan of the list.
+    ids.sort((a, b) => a - b);
     let best: SnapTarget | null = null;
-    let bestD = options.radiusIn;
-    for (const t of targets) {
+    let bestD = radiusIn;
+    for (const i of ids) {
+      const t = this.targets[i];
       const d = distance(t.point, p);
       if (d <= bestD) {
         bestD = d;
         best = t;
       }
     }
+    return best;
+  }
+}
+
+/**
+ * Snaps a pointer position: to the nearest point target within the radius first (vertices, seam ends,
+ * circle centres), then to the given edges, then to the grid. The targets may come as a list or as a
+ * {@link SnapTargetIndex}; both give the same result.
+ */
+export function snapPoint(p: Point, targets: readonly SnapTarget[] | SnapTargetIndex, options: SnapOptions, edges: ReadonlyArray<readonly Point[]> = []): SnapResult {
+  if (options.toPoints) {
+    const best = targets instanceof SnapTargetIndex ? targets.nearest(p, options.radiusIn) : nearestTarget(p, targets, options.radiusIn);
     if (best) return { point: { x: best.point.x, y: best.point.y }, kind: best.kind, sectionId: best.sectionId };
   }
   if (edges.length > 0) {

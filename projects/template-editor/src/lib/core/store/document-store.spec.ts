@@ -1,8 +1,20 @@
 import { describe, expect, it } from 'vitest';
 import { emptyPattern } from '../testing/board-fixtures';
-import { DocumentStore } from './document-store';
+import { differs, DocumentStore } from './document-store';
 
 describe('DocumentStore', () => {
+  it('tells documents apart by value, an absent key being the same as an undefined one', () => {
+    const shared = { x: 1, list: [1, 2, { y: 'a' }] };
+    expect(differs({ a: shared, b: 2 }, { a: shared, b: 2 })).toBe(false);
+    expect(differs({ a: { x: 1, list: [1, 2, { y: 'a' }] } }, { a: { x: 1, list: [1, 2, { y: 'a' }] } })).toBe(false);
+    expect(differs({ a: { x: 1, list: [1, 2, { y: 'a' }] } }, { a: { x: 1, list: [1, 2, { y: 'b' }] } })).toBe(true);
+    expect(differs({ a: [1, 2] }, { a: [1, 2, 3] })).toBe(true);
+    expect(differs({ a: 1, b: undefined }, { a: 1 })).toBe(false);
+    expect(differs({ a: 1 }, { a: 1, c: 0 })).toBe(true);
+    expect(differs({ a: [] }, { a: {} })).toBe(true);
+    expect(differs({ a: null }, { a: {} })).toBe(true);
+  });
+
   it('records each command as one step and loading as none', () => {
     const doc = emptyPattern();
     const store = new DocumentStore(doc);

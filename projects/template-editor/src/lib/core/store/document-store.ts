@@ -1,5 +1,4 @@
 import type { PatternDocument } from '@seamwright/piecing';
-import { diffValues } from '../history/document-diff';
 import { History } from '../history/history';
 import { NO_SELECTION, type BoardSelection, type ChangeOrigin, type EditorSnapshot } from './editor-state';
 
@@ -21,6 +20,8 @@ export class DocumentStore {
   private gesture: { label: string; before: PatternDocument; sectionId: string | null } | null = null;
   private readonly listeners = new Set<Listener>();
   private lastOrigin: ChangeOrigin = 'load';
+  /** Whether `doc` differed from `saved` when last asked (a drag asks on every move). */
+  private dirtyFor: { doc: PatternDocument; saved: PatternDocument; dirty: boolean } | null = null;
 
   constructor(document: PatternDocument) {
     this.doc = document;
@@ -74,7 +75,11 @@ export class DocumentStore {
 
   /** Whether the document differs from the last loaded or saved one. */
   get dirty(): boolean {
-    return this.doc !== this.saved && diffValues(this.saved, this.doc).length > 0;
+    if (this.doc === this.saved) return false;
+    if (this.dirtyFor?.doc !== this.doc || this.dirtyFor.saved !== this.saved) {
+      this.dirtyFor = { doc: this.doc, saved: this.saved, dirty: differs(this.saved, this.doc) };
+    }
+    return this.dirtyFor.dirty;
   }
 
   /** The current state as listeners see it. */
@@ -191,4 +196,34 @@ export class DocumentStore {
     const snap = this.snapshot();
     for (const l of this.listeners) l(snap);
   }
+}
+
+/**
+ * Whether two immutable JSON values differ anywhere: stops at the first difference and compares shared
+ * branches by reference, so it allocates nothing and costs as little as the change.
+ */
+export function differs(a: unknown, b: unknown): boolean {
+  if (Object.is(a, b)) return false;
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return true;
+  if (Array.isArray(a) !== Array.isArray(b)) return true;
+  if (Array.isArray(a)) {
+    const bb = b as unknown[];
+    if (a.length !== bb.length) return true;
+    for (let i = 0; i < a.length; i++) if (differs(a[i], bb[i])) return true;
+    return false;
+  }
+  const ao = a as Record<string, unknown>;
+  const bo = b as Record<string, unknown>;
+  let count = 0;
+  for (const k in ao) {
+    if (!Object.prototype.hasOwnProperty.call(ao, k)) continue;
+    if (ao[k] === undefined) {
+      if (bo[k] !== undefined) return true;
+      continue;
+    }
+    count++;
+    if (!Object.prototype.hasOwnProperty.call(bo, k) || differs(ao[k], bo[k])) return true;
+  }
+  for (const k in bo) if (Object.prototype.hasOwnProperty.call(bo, k) && bo[k] !== undefined) count--;
+  return count !== 0;
 }
