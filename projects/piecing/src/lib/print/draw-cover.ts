@@ -20,7 +20,7 @@ export function sheetCountStatement(layout: Pick<PrintLayout, 'templateSheetCoun
 /**
  * The cover sheet: title, the sheet count against its lower bound, the settings, how to print and
  * join tiles, a legend of the lines, where each section is, and the cautions. Drawn last, when the
- * page count is known; anything that does not fit is cut short with a pointer to the sheet headers.
+ * page count is known; what does not fit continues on the sheets `continueOn` hands out.
  */
 export function drawCover(
   pen: PdfPen,
@@ -29,17 +29,15 @@ export function drawCover(
   options: PrintOptions,
   layout: PrintLayout,
   pageCount: number,
+  continueOn: () => SheetFrame,
 ): void {
   const right = { x: frame.testBlock.x + frame.testBlock.width + 0.3, y: frame.content.y };
   pen.text(document.title, { x: right.x, y: right.y + 0.32 }, { sizePt: 20, bold: true });
   pen.text('How to print', { x: right.x, y: right.y + 0.58 }, { sizePt: 12 });
   pen.text(`Templates: ${sheetCountStatement(layout)}`, { x: right.x, y: right.y + 0.9 }, { sizePt: 12, bold: true });
 
-  let full = false;
-  const flow = new SheetFlow(pen, () => {
-    full = true;
-    return frame;
-  }, frame);
+  // What does not fit on this sheet runs on onto the continuation sheets (nothing is left out).
+  const flow = new SheetFlow(pen, continueOn, frame);
   const firstTemplate = layout.sheets[0]?.pageNumber ?? pageCount + 1;
   const lastTemplate = firstTemplate + layout.templateSheetCount - 1;
   const after = pageCount - lastTemplate;
@@ -89,9 +87,6 @@ export function drawCover(
     t.tileGrid ? `${t.tilesPerCopy} (${t.tileGrid.rows} × ${t.tileGrid.columns} grid)` : '1',
     pageList(t.pageNumbers),
   ]);
-  const cautionsIn = 0.5 + PRINT_CAUTIONS.length * 0.36;
-  const roomRows = Math.max(1, Math.floor((frame.content.y + frame.content.height - flow.y - cautionsIn - 0.6) / 0.2));
-  const shown = rows.length > roomRows ? rows.slice(0, roomRows - 1) : rows;
   flow.table(
     [
       { header: 'Section', widthIn: 0.8 },
@@ -99,15 +94,11 @@ export function drawCover(
       { header: 'Tiles per print', widthIn: 1.6 },
       { header: 'Sheets', widthIn: flow.width - 3.1 },
     ],
-    shown,
+    rows,
   );
-  if (shown.length < rows.length) flow.paragraph(`… and ${rows.length - shown.length} more sections: each sheet's header lists the sections on it.`, 8);
 
   flow.heading('Cautions', 11);
-  for (const caution of PRINT_CAUTIONS) {
-    if (full) break;
-    flow.paragraph(`• ${caution}`, 8.5);
-  }
+  for (const caution of PRINT_CAUTIONS) flow.paragraph(`• ${caution}`, 8.5);
 }
 
 /** "2, 3, 5–9" */

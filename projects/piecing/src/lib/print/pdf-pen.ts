@@ -47,13 +47,21 @@ export class PdfPen {
   /** Advance widths at 1 pt by font (`family/weight`) and character code, each measured once. */
   private readonly widthCache = new Map<string, Map<number, number>>();
 
-  constructor(readonly doc: jsPDF) {
+  /**
+   * `measuringOnly`: a pen that measures and wraps text like any other but puts nothing on the page (to
+   * find out how many sheets a part needs before writing it).
+   */
+  constructor(
+    readonly doc: jsPDF,
+    readonly measuringOnly = false,
+  ) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
-    penHooks.created?.(this);
+    if (!measuringOnly) penHooks.created?.(this);
   }
 
   /** Strokes a polyline, closed when asked. */
   polyline(points: readonly Point[], closed: boolean, style: StrokeStyle): void {
+    if (this.measuringOnly) return;
     if (points.length < 2) return;
     this.setStroke(style);
     const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
@@ -65,6 +73,7 @@ export class PdfPen {
 
   /** Several separate straight lines as one path and one stroke. */
   segments(lines: ReadonlyArray<{ a: Point; b: Point }>, style: StrokeStyle): void {
+    if (this.measuringOnly) return;
     if (lines.length === 0) return;
     this.setStroke(style);
     const ops: Array<{ op: string; c: number[] }> = [];
@@ -77,6 +86,7 @@ export class PdfPen {
 
   /** A rectangle (the PDF `re` operator): stroked, filled or both. */
   rect(r: RectIn, style: StrokeStyle | null, fill?: string): void {
+    if (this.measuringOnly) return;
     if (style) this.setStroke(style);
     if (fill) this.doc.setFillColor(fill);
     const mode = style && fill ? 'FD' : fill ? 'F' : 'S';
@@ -85,6 +95,7 @@ export class PdfPen {
 
   /** A filled polygon without a stroke. */
   fillPolygon(points: readonly Point[], colour: string): void {
+    if (this.measuringOnly) return;
     if (points.length < 3) return;
     this.doc.setFillColor(colour);
     const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
@@ -96,12 +107,14 @@ export class PdfPen {
 
   /** A circle, stroked. */
   circle(centre: Point, radiusIn: number, style: StrokeStyle): void {
+    if (this.measuringOnly) return;
     this.setStroke(style);
     this.doc.circle(pt(centre.x), pt(centre.y), pt(radiusIn), 'S');
   }
 
   /** Text at a point. */
   text(value: string | string[], at: Point, style: TextStyle): void {
+    if (this.measuringOnly) return;
     const bold = style.bold ?? false;
     const lines = typeof value === 'string' ? [value] : value;
     if (lines.some((line) => !this.fallback.mainCovers(line, bold))) {
@@ -235,6 +248,7 @@ export class PdfPen {
 
   /** Runs `draw` with everything clipped to a rectangle. */
   clipped(r: RectIn, draw: () => void): void {
+    if (this.measuringOnly) return draw();
     this.doc.saveGraphicsState();
     this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), null as unknown as string);
     this.doc.clip();

@@ -161,18 +161,62 @@ export async function renderPrintSet(
   drawPieceTemplates(pen, pieceWriter, pieceTemplates, opts.copies === 'single', document.pressingsPerTemplate);
   for (const s of pieceWriter.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
 
-  const pageCount = doc.getNumberOfPages();
   const figures = planCopies(document);
-  doc.setPage(1);
-  drawBookletCover(ctx, coverFrame, {
-    finished: finishedBlockSize(document),
-    layout,
-    copies: figures,
-    pieceTemplates,
-    contents: contentsOf(headings),
-  });
-  doc.setPage(2);
-  drawCover(pen, frames[1], document, opts, layout, pageCount);
+  /**
+   * The covers (sheets 1 and 2) are drawn last, when the page count is known. What does not fit on them
+   * runs on onto continuation sheets at the end of the set: a measuring pass (nothing drawn) finds how
+   * many each needs, so the page count and the contents they state include those sheets.
+   */
+  function drawCovers(): void {
+    const before = doc.getNumberOfPages();
+    const continuedTitles = ['Cover (continued)', 'How to print (continued)'] as const;
+    const headingsWith = (extra: readonly [number, number]) => [
+      ...headings,
+      ...Array.from({ length: extra[0] }, () => ({ subtitle: continuedTitles[0], sectionIds: [] })),
+      ...Array.from({ length: extra[1] }, () => ({ subtitle: continuedTitles[1], sectionIds: [] })),
+    ];
+    const coverFacts = (extra: readonly [number, number]) => ({
+      finished: finishedBlockSize(document),
+      layout,
+      copies: figures,
+      pieceTemplates,
+      contents: contentsOf(headingsWith(extra)),
+    });
+    const measure = (extra: readonly [number, number]): [number, number] => {
+      const dry = new PdfPen(doc, true);
+      const counts: [number, number] = [0, 0];
+      const blank = () => sheetFrame(opts.paper, 'portrait', opts.marginIn);
+      drawBookletCover({ ...ctx, pen: dry }, coverFrame, coverFacts(extra), () => (counts[0]++, blank()));
+      drawCover(dry, frames[1], document, opts, layout, before + extra[0] + extra[1], () => (counts[1]++, blank()));
+      return counts;
+    };
+    let extra: [number, number] = [0, 0];
+    for (let i = 0; i < 5; i++) {
+      const need = measure(extra);
+      if (need[0] === extra[0] && need[1] === extra[1]) break;
+      extra = need;
+    }
+    const continuation: number[][] = [[], []];
+    for (const part of [0, 1] as const) {
+      for (let k = 0; k < extra[part]; k++) {
+        portraitSheet();
+        headings.push({ subtitle: continuedTitles[part], sectionIds: [] });
+        continuation[part].push(doc.getNumberOfPages());
+      }
+    }
+    const continueOn = (part: 0 | 1) => () => {
+      // One more than measured (it should not happen): a new sheet at the end, so still nothing is lost.
+      const page = continuation[part].shift() ?? (portraitSheet(), headings.push({ subtitle: continuedTitles[part], sectionIds: [] }), doc.getNumberOfPages());
+      doc.setPage(page);
+      return frames[page - 1];
+    };
+    doc.setPage(1);
+    drawBookletCover(ctx, coverFrame, coverFacts(extra), continueOn(0));
+    doc.setPage(2);
+    drawCover(pen, frames[1], document, opts, layout, before + extra[0] + extra[1], continueOn(1));
+  }
+  drawCovers();
+  const pageCount = doc.getNumberOfPages();
   for (let p = 1; p <= pageCount; p++) {
     doc.setPage(p);
     const frame = frames[p - 1];

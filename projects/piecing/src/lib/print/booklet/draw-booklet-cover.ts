@@ -45,9 +45,10 @@ function round3(v: number): number {
 /**
  * The booklet cover: title, the finished size of the block (its sections' bounding box, not the drawing
  * area) beside a picture of it, the fabrics with what to buy, the designer's notes, sections not
- * sewable as numbered, the template copies with the rule they follow, and the contents.
+ * sewable as numbered, the template copies with the rule they follow, and the contents. What does not
+ * fit on the cover continues on the sheets `continueOn` hands out (added at the end of the print set).
  */
-export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: CoverFacts): void {
+export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: CoverFacts, continueOn: () => SheetFrame): void {
   const { pen, document } = ctx;
   const right = { x: frame.testBlock.x + frame.testBlock.width + 0.3, y: frame.content.y };
   pen.text(document.title, { x: right.x, y: right.y + 0.34 }, { sizePt: 20, bold: true });
@@ -60,15 +61,16 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
   const picture = { x: frame.content.x + frame.content.width - 2.6, y: frame.content.y + 1.15, width: 2.6, height: 2.6 };
   drawBlockPicture(ctx, picture);
 
-  let full = false;
+  // What does not fit on the cover runs on onto the continuation sheets (nothing is left out).
+  let onCover = true;
   const flow = new SheetFlow(pen, () => {
-    full = true;
-    return frame;
+    onCover = false;
+    return continueOn();
   }, frame);
   const narrow = frame.content.width - 2.8;
+  const besidePicture = () => onCover && flow.y < picture.y + picture.height + 0.1;
   const para = (text: string, sizePt: number, bold = false) => {
-    if (full) return;
-    const lines = pen.wrap(text, flow.y < picture.y + picture.height + 0.1 ? narrow : flow.width, sizePt, bold);
+    const lines = pen.wrap(text, besidePicture() ? narrow : flow.width, sizePt, bold);
     const lineIn = (sizePt * 1.3) / 72;
     for (const line of lines) {
       const y = flow.block(lineIn).y;
@@ -77,7 +79,6 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
     flow.gap(0.05);
   };
   const heading = (text: string) => {
-    if (full) return;
     flow.gap(0.06);
     para(text, 11, true);
   };
@@ -89,7 +90,6 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
   );
   heading('Fabrics');
   for (const f of ctx.cuttingList.fabrics) {
-    if (full) break;
     const at = flow.block(0.2);
     pen.rect({ x: at.x, y: at.y + 0.03, width: 0.3, height: 0.14 }, { widthPt: 0.4 }, f.colour);
     pen.text(`${f.name} — buy ${yardsText(f.yardageEighths)} yd`, { x: at.x + 0.4, y: at.y + 0.15 }, { sizePt: 9 });
@@ -104,10 +104,10 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
     para(unsewableStatement([...ctx.unsewable.values()]), 9, true);
   }
   // Below the picture from here on.
-  if (flow.y < picture.y + picture.height + 0.1) flow.gap(picture.y + picture.height + 0.1 - flow.y);
+  if (besidePicture()) flow.gap(picture.y + picture.height + 0.1 - flow.y);
   heading('Template copies');
   para(facts.copies.rule, 8);
-  if (!full) {
+  {
     const freezer = ctx.options.foundation === 'freezer-paper';
     flow.table(
       [
@@ -134,13 +134,14 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
     );
   }
   heading('Contents');
-  for (const entry of facts.contents) {
-    if (full) break;
-    const at = flow.block(0.17);
-    const sheets = entry.firstSheet === entry.lastSheet ? `sheet ${entry.firstSheet}` : `sheets ${entry.firstSheet}–${entry.lastSheet}`;
-    pen.text(entry.title, { x: at.x, y: at.y + 0.13 }, { sizePt: 8.5 });
-    pen.text(sheets, { x: at.x + 4.2, y: at.y + 0.13 }, { sizePt: 8.5, align: 'right' });
-  }
+  flow.table(
+    [
+      { header: 'Part', widthIn: 3.4 },
+      { header: 'Sheets', widthIn: 0.9, align: 'right' },
+    ],
+    facts.contents.map((entry) => [entry.title, entry.firstSheet === entry.lastSheet ? `${entry.firstSheet}` : `${entry.firstSheet}–${entry.lastSheet}`]),
+    8.5,
+  );
 }
 
 /** The whole block from the front: every copy of every section with its patches in their fabrics. */

@@ -178,3 +178,15 @@ export function signedAreaPt(points: readonly PdfPoint[]): number {
   }
   return twice / 2;
 }
+
+/** The text items of every page (pdfjs-dist's text content only, quicker than {@link inspectPdf}). */
+export async function pdfPageTexts(bytes: Uint8Array): Promise<string[][]> {
+  const pdf = await pdfjs.getDocument({ data: bytes.slice(), verbosity: 0 }).promise;
+  const pages: string[][] = [];
+  for (let n = 1; n <= pdf.numPages; n++) {
+    const page = await pdf.getPage(n);
+    pages.push((await page.getTextContent()).items.map((t) => ('str' in t ? t.str : '')));
+  }
+  await pdf.destroy();
+  return pages;
+}
