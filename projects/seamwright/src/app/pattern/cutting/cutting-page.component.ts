@@ -2,11 +2,14 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { YARDAGE_STEP_IN, buildCuttingList, formatInches, stripSetDisplayName, type CuttingList } from '@seamwright/piecing';
+import { YARDAGE_STEP_IN, applyColourway, buildCuttingList, quiltPlan, type QuiltPlan, formatInches, stripSetDisplayName, type CuttingList } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { StripDiagramComponent } from './strip-diagram.component';
 import { showInches } from '../../core/length-text';
+import { QuiltChoice } from '../quilt/quilt-choice.service';
+import { QuiltChoiceBarComponent, chosenColourway, chosenSize } from '../quilt/quilt-choice-bar.component';
+import { QuiltFabricNeedsComponent } from '../quilt/quilt-fabric-needs.component';
 
 /** Yards as bought, from eighths of a yard: 5 → "⅝ yd", 11 → "1 ⅜ yd". */
 export function formatYards(eighths: number): string {
@@ -16,7 +19,7 @@ export function formatYards(eighths: number): string {
 /** The cutting list: per fabric, pieces, strips, strip sets and yardage; printable. */
 @Component({
   selector: 'sw-cutting-page',
-  imports: [MatTableModule, MatButtonModule, MatIconModule, CautionsComponent, StripDiagramComponent],
+  imports: [MatTableModule, MatButtonModule, MatIconModule, CautionsComponent, StripDiagramComponent, QuiltChoiceBarComponent, QuiltFabricNeedsComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './cutting-page.component.html',
   styleUrl: './cutting-page.component.scss',
@@ -25,8 +28,24 @@ export class CuttingPageComponent {
   protected readonly ctx = inject(PatternContext);
   protected readonly inches = showInches;
   protected readonly yards = formatYards;
-  protected readonly list = computed<CuttingList | { error: string } | null>(() => {
+  private readonly choice = inject(QuiltChoice, { optional: true });
+  /** The pattern in the colourway chosen on the Quilt tab, cutting page or print page. */
+  protected readonly document = computed(() => {
     const doc = this.ctx.document();
+    return doc ? applyColourway(doc, chosenColourway(doc, this.choice?.colourwayId() ?? null)) : null;
+  });
+  /** The whole quilt in the chosen size and colourway, when the pattern is set into a quilt. */
+  protected readonly quilt = computed<QuiltPlan | null>(() => {
+    const doc = this.ctx.document();
+    if (!doc?.quilt) return null;
+    try {
+      return quiltPlan(doc, { sizeName: chosenSize(doc, this.choice?.sizeName() ?? null), colourwayId: chosenColourway(doc, this.choice?.colourwayId() ?? null) });
+    } catch {
+      return null;
+    }
+  });
+  protected readonly list = computed<CuttingList | { error: string } | null>(() => {
+    const doc = this.document();
     if (!doc) return null;
     try {
       return buildCuttingList(doc);
@@ -47,7 +66,7 @@ export class CuttingPageComponent {
     (this.ok()?.fabrics ?? []).filter((f) => f.pieceCount === 0 && f.stripCount === 0).map((f) => f.name),
   );
   protected readonly fabricsById = computed(
-    () => new Map((this.ctx.document()?.fabrics ?? []).map((f) => [f.id, { name: f.name, colour: f.colour }] as const)),
+    () => new Map((this.document()?.fabrics ?? []).map((f) => [f.id, { name: f.name, colour: f.colour }] as const)),
   );
   /** What quilters call each strip set of the list: its name, or the patches it fills; never its id. */
   protected readonly stripSetNames = computed(

@@ -22,6 +22,8 @@ import type { PrintSet } from '../../core/api-types';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { FocusAfterRender } from '../../core/focus-after-render';
 import { SheetPreviewComponent } from './sheet-preview.component';
+import { QuiltChoiceBarComponent, chosenColourway, chosenSize } from '../quilt/quilt-choice-bar.component';
+import { QuiltChoice } from '../quilt/quilt-choice.service';
 import { PrintPreviewPlanner } from './print-preview-planner';
 import type { PreviewRequest, PreviewResult, PreviewTemplate } from './print-preview-plan';
 
@@ -51,7 +53,7 @@ function printOptions(v: PrintForm): PrintOptionsInput {
   selector: 'sw-print-page',
   imports: [
     DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatRadioModule,
-    MatSelectModule, MatSlideToggleModule, MatCheckboxModule, CautionsComponent, SheetPreviewComponent,
+    MatSelectModule, MatSlideToggleModule, MatCheckboxModule, CautionsComponent, SheetPreviewComponent, QuiltChoiceBarComponent,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [PrintPreviewPlanner],
@@ -86,7 +88,15 @@ export class PrintPageComponent implements OnInit {
   private readonly host: HTMLElement = inject(ElementRef).nativeElement;
   private readonly focusAfter = new FocusAfterRender();
 
-  protected readonly options = computed(() => printOptions(this.formValue()));
+  private readonly quiltChoice = inject(QuiltChoice, { optional: true });
+  /** The quilt size and colourway chosen on this page or the Quilt tab: the print set's cover and fabric follow them. */
+  private readonly quiltOptions = computed<Pick<PrintOptionsInput, 'quiltSize' | 'colourwayId'>>(() => {
+    const doc = this.ctx.document();
+    const quiltSize = chosenSize(doc, this.quiltChoice?.sizeName() ?? null);
+    const colourwayId = chosenColourway(doc, this.quiltChoice?.colourwayId() ?? null);
+    return { ...(quiltSize ? { quiltSize } : {}), ...(colourwayId ? { colourwayId } : {}) };
+  });
+  protected readonly options = computed(() => ({ ...printOptions(this.formValue()), ...this.quiltOptions() }));
 
   /** Sections not sewable as numbered: the print set is refused unless the user prints anyway. */
   protected readonly unsewable = computed(() => {
