@@ -16,3 +16,4 @@ export { planPrintLayout, renderPrintSet, type PrintSetResult, type PrintProgres
 export { findUnsewableSections, unsewableStatement, UnsewablePatternError, type UnsewableSection } from './booklet/unsewable-sections';
 export { finishedBlockSize, type FinishedBlockSize } from './booklet/finished-size';
 export { buildPieceTemplates, type PieceTemplate } from './piece-templates/build-piece-templates';
+export { quiltPrintDocument, quiltPrintIssues, assemblySteps } from './booklet/quilt-booklet';

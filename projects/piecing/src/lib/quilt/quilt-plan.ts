@@ -408,3 +408,25 @@ export function quiltSizes(document: PatternDocument, options: { colourwayId?: s
     };
   });
 }
+
+/**
+ * Pieced blocks of the quilt in a named size (or as laid out): positions less the plain alternate blocks
+ * that fall inside it. Cheap (no geometry); throws {@link QuiltPlanError} like {@link quiltPlan}.
+ */
+export function quiltBlockCount(document: Pick<PatternDocument, 'quilt'>, sizeName: string | null = null): number {
+  const layout = document.quilt;
+  if (!layout) throw new QuiltPlanError('the pattern has no quilt layout', 'quilt');
+  let columns = layout.columns;
+  let rows = layout.rows;
+  if (sizeName !== null) {
+    const size = layout.sizes.find((s) => s.name === sizeName);
+    if (!size) throw new QuiltPlanError(`unknown size "${sizeName}" (the pattern has: ${layout.sizes.map((s) => `"${s.name}"`).join(', ') || 'none'})`, 'sizeName');
+    columns = size.columns;
+    rows = size.rows;
+  }
+  const onPoint = layout.setting === 'on-point';
+  const inside = (row: number, col: number) =>
+    onPoint ? row < 2 * rows - 1 && col < (row % 2 === 1 ? columns - 1 : columns) : row < rows && col < columns;
+  const plain = layout.alternateFabricId === undefined ? 0 : (layout.cells ?? []).filter((c) => c.alternate && inside(c.row, c.col)).length;
+  return quiltPositions(layout.setting, columns, rows) - plain;
+}
