@@ -49,6 +49,12 @@ test('the changed screens have no serious or critical axe findings in either the
     await new PatternPage(page).open('Print');
     await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
     expect(await seriousFindings(page), `print, ${theme}`).toEqual([]);
+    // The Quilt tab with a layout (set up once, in the first theme; saved before leaving).
+    await new PatternPage(page).parts().getByRole('tab').filter({ hasText: 'Quilt' }).click();
+    if (theme === 'light') await page.getByRole('button', { name: 'Set the block into a quilt' }).click();
+    await expect(page.getByTestId('finished-size')).toBeVisible();
+    await expect(page.getByRole('status').filter({ hasText: 'All changes saved' })).toBeVisible({ timeout: 30_000 });
+    expect(await seriousFindings(page), `quilt, ${theme}`).toEqual([]);
     await page.getByRole('link', { name: 'Patterns' }).first().click();
     await expect(page.getByRole('heading', { name: 'Patterns' })).toBeVisible();
     expect(await seriousFindings(page), `patterns, ${theme}`).toEqual([]);
