@@ -84,6 +84,8 @@ export function jsonBodies(documentLimit: string): RequestHandler {
   const large = express.json({ limit: documentLimit, strict: true, verify: refuseDeepNesting });
   const raw = express.raw({ limit: documentLimit, type: 'application/json' });
   return (req, res, next) => {
+    // A GET, HEAD or OPTIONS request has no body the API reads.
+    if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
     if (!takesDocument(req)) return small(req, res, next);
     if (!req.user) return next(new HttpError(401, 'Sign in first'));
     return checkedOffThread(req) ? raw(req, res, next) : large(req, res, next);

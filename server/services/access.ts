@@ -1,5 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm';
-import type { DbLike } from '../db/database';
+import type BetterSqlite3 from 'better-sqlite3';
+import type { Db, DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
 import { members, orders, patterns, type Pattern, type User } from '../db/schema';
 import { HttpError } from '../http/errors';
@@ -82,3 +83,75 @@ export const seesAddresses = (access: Access) => access === 'owner' || access ==
 
 /** Whether the user's account role may create patterns. */
 export const canDesign = (user: User) => user.role === 'designer' || user.role === 'admin';
+
+/** The row of the one-statement read: the pattern, its owner's name, the caller's membership, the latest revision. */
+interface PatternReadRow {
+  id: string;
+  ownerId: string;
+  title: string;
+  headRevision: number;
+  createdAt: number;
+  updatedAt: number;
+  trashedAt: number | null;
+  ownerName: string;
+  memberAccess: Access | null;
+  revId: string | null;
+  revNumber: number;
+  revAuthorId: string;
+  revAuthorName: string;
+  revRestoredFrom: number | null;
+  revVersionName: string | null;
+  revVersionNote: string | null;
+  revCreatedAt: number;
+  /** The stored document text, sent as is. */
+  revDocument: string;
+}
+
+/** What reading a pattern answers with, loaded by {@link loadPatternRead}. */
+export interface PatternRead extends PatternAccess {
+  ownerName: string;
+  row: PatternReadRow;
+}
+
+/**
+ * Reading a pattern (`GET /api/patterns/:id`, the busiest request) in one statement: the pattern, its
+ * owner's name, the caller's membership and the latest revision with its author's name. Raw SQL on
+ * the connection: no per-row mapping of columns the answer writes out as they are.
+ */
+const readStatement = preparedPerDb((db) =>
+  (db as Db & { $client: BetterSqlite3.Database }).$client.prepare<[string, string], PatternReadRow>(
+    `SELECT p.id AS id, p.owner_id AS ownerId, p.title AS title, p.head_revision AS headRevision, p.created_at AS createdAt,
+            p.updated_at AS updatedAt, p.trashed_at AS trashedAt, o.display_name AS ownerName, m.access AS memberAccess,
+            r.id AS revId, r.number AS revNumber, r.author_id AS revAuthorId, a.display_name AS revAuthorName,
+            r.restored_from AS revRestoredFrom, r.version_name AS revVersionName, r.version_note AS revVersionNote,
+            r.created_at AS revCreatedAt, r.document AS revDocument
+       FROM patterns p
+       JOIN users o ON o.id = p.owner_id
+       LEFT JOIN members m ON m.pattern_id = p.id AND m.user_id = ?
+       LEFT JOIN revisions r ON r.pattern_id = p.id AND r.number = (SELECT max(number) FROM revisions WHERE pattern_id = p.id)
+       LEFT JOIN users a ON a.id = r.author_id
+      WHERE p.id = ?`,
+  ),
+);
+
+/**
+ * `loadPatternAccess` and the latest revision in one query, with the same answers: anonymous users,
+ * strangers, malformed ids and (for everyone but the owner) trashed patterns all get the one 404.
+ */
+export function loadPatternRead(db: DbLike, user: User | undefined, patternId: unknown): PatternRead {
+  if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
+  const row = readStatement(db).get(user.id, patternId as string);
+  if (!row) throw patternNotFound();
+  const access: Access | null = row.ownerId === user.id ? 'owner' : row.memberAccess;
+  if (!access || (access !== 'owner' && row.trashedAt !== null)) throw patternNotFound();
+  const pattern: Pattern = {
+    id: row.id,
+    ownerId: row.ownerId,
+    title: row.title,
+    headRevision: row.headRevision,
+    createdAt: new Date(row.createdAt),
+    updatedAt: new Date(row.updatedAt),
+    trashedAt: row.trashedAt === null ? null : new Date(row.trashedAt),
+  };
+  return { pattern, access, ownerName: row.ownerName, row };
+}

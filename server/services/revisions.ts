@@ -5,6 +5,7 @@ import type { DbLike } from '../db/database';
 import { preparedPerDb } from '../db/prepared';
 import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
 import { HttpError } from '../http/errors';
+import { sendJsonText } from '../http/send-json';
 import { newId } from '../auth/tokens';
 import type { Access } from './access';
 import { groupStartOf, versionJson } from './revision-groups';
@@ -43,7 +44,7 @@ export function revisionJsonText(r: Revision, authorName: string): string {
 
 /** Sends `{ pattern, revision }` (the answer of reads and saves) without re-serialising the document. */
 export function sendPatternWithRevision(res: Response, status: number, pattern: ReturnType<typeof patternJson>, revision: Revision, authorName: string): void {
-  res.status(status).type('application/json').send(patternWithRevisionText(pattern, revision, authorName));
+  sendJsonText(res, status, patternWithRevisionText(pattern, revision, authorName));
 }
 
 /** The JSON text of `{ pattern, revision }` (the validation pool writes a save's answer with it too). */
@@ -149,28 +150,23 @@ export function saveRevision(
   const editSession = extras.editSession ?? null;
   const version = extras.version ?? null;
   const groupStart = groupStartOf(head, { number, authorId, editSession, named: version !== null });
-  const revision = tx
-    .insert(revisions)
-    .values({
-      id: newId(),
-      patternId,
-      number,
-      document: document.json,
-      authorId,
-      restoredFrom: extras.restoredFrom ?? null,
-      editSession,
-      groupStart,
-      versionName: version?.name ?? null,
-      versionNote: version?.note ?? null,
-      createdAt: now,
-    })
-    .returning()
-    .get();
-  const updated = tx
-    .update(patterns)
-    .set({ headRevision: number, title: document.title, updatedAt: now })
-    .where(eq(patterns.id, patternId))
-    .returning()
-    .get();
+  // Written without RETURNING: every value is known here, and reading the row back would copy the
+  // whole document out of SQLite again only to build the answer from it.
+  const revision: Revision = {
+    id: newId(),
+    patternId,
+    number,
+    document: document.json,
+    authorId,
+    restoredFrom: extras.restoredFrom ?? null,
+    editSession,
+    groupStart,
+    versionName: version?.name ?? null,
+    versionNote: version?.note ?? null,
+    createdAt: now,
+  };
+  tx.insert(revisions).values(revision).run();
+  tx.update(patterns).set({ headRevision: number, title: document.title, updatedAt: now }).where(eq(patterns.id, patternId)).run();
+  const updated: Pattern = { ...pattern, headRevision: number, title: document.title, updatedAt: now };
   return { pattern: updated, revision };
 }
