@@ -22,6 +22,7 @@ export { TOOL_SHORTCUTS } from './editor/shortcuts';
 /** What the board shows of each section: patches, sewability, the order search. */
 export { SectionAnalysis } from './analysis/section-analysis';
 export type { BoardPatch, BoardSewability, BoardOrderSearch } from './analysis/board-patch';
+export { OrderSearchRunner, type OrderSearchWorker } from './analysis/order-search-runner';
 
 /** Commands on sections, seams and patches: each takes a document and returns the changed one. */
 export {
@@ -38,7 +39,7 @@ export {
 } from './commands/section-commands';
 export { setSeamEnd } from './commands/seam-commands';
 export { sectionHandles } from './commands/section-handles';
-export { applySewableOrder } from './commands/order-commands';
+export { applySewableOrder, applyFoundOrder } from './commands/order-commands';
 
 /** Pressing of patch seams, cutting the way designers write it, and the designer's notes. */
 export { setSeamPressing, seamPressingOf, DEFAULT_SEAM_PRESSING } from './commands/pressing-commands';

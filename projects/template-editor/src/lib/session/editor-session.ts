@@ -1,8 +1,9 @@
-import { Injectable, computed, signal } from '@angular/core';
+import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import {
   BoardEditor,
-  applySewableOrder,
+  OrderSearchRunner,
+  applyFoundOrder,
   findSection,
   type BoardOrderSearch,
   type BoardSettings,
@@ -71,8 +72,13 @@ export class EditorSession {
   readonly readOnly = computed(() => (this.viewTick(), this.editor.readOnly));
   /** The last order search's outcome when it found no order (for the suggested split). */
   readonly lastOrderSearch = signal<{ sectionId: string; result: BoardOrderSearch } | null>(null);
+  /** Whether an order search is running (in the board's worker). */
+  readonly orderSearching = signal(false);
+  /** Order searches run in a Web Worker, so a long one never blocks the page. */
+  private readonly orderSearch = new OrderSearchRunner();
 
   constructor() {
+    inject(DestroyRef).onDestroy(() => this.orderSearch.dispose());
     this.editor.store.subscribe((s) => this.snapshotState.set(s));
     this.editor.onViewChange(() => this.viewTick.update((n) => n + 1));
   }
@@ -84,6 +90,8 @@ export class EditorSession {
   load(document: PatternDocument): void {
     this.editor.store.load(document);
     this.lastOrderSearch.set(null);
+    this.orderSearch.cancel();
+    this.orderSearching.set(false);
   }
 
   /** Runs a named command as one undo step. */
@@ -122,17 +130,23 @@ export class EditorSession {
     this.editor.zoomStep(factor);
   }
 
-  /** Applies a sewable order to the selected section, or keeps the reason and the suggested split. */
-  applySewableOrder(): BoardOrderSearch | null {
+  /**
+   * Searches a sewable order of the selected section (in the worker) and, when the answer comes,
+   * applies the order found or keeps the reason and the suggested split. An answer is dropped when
+   * the pattern changed while the search ran (it was about a section that is no longer there as it
+   * was) or when another search started after it.
+   */
+  applySewableOrder(): void {
     const s = this.selectedSection();
-    if (!s || this.editor.readOnly) return null;
-    let outcome: BoardOrderSearch | null = null;
-    this.editor.store.apply('Apply sewable order', (d) => {
-      const r = applySewableOrder(d, s.id, this.editor.analysis);
-      outcome = r.result;
-      return r.document;
+    if (!s || this.editor.readOnly) return;
+    const asked = this.document();
+    this.orderSearching.set(true);
+    this.orderSearch.search(s, (result) => {
+      this.orderSearching.set(false);
+      if (this.document() !== asked || this.editor.readOnly) return;
+      if (result.ok) this.editor.store.apply('Apply sewable order', (d) => applyFoundOrder(d, s.id, result, this.editor.analysis));
+      this.lastOrderSearch.set({ sectionId: s.id, result });
     });
-    if (outcome) this.lastOrderSearch.set({ sectionId: s.id, result: outcome });
-    return outcome;
   }
+
 }

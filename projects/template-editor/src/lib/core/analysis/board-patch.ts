@@ -26,10 +26,13 @@ export interface BoardSewability {
   reason?: string;
 }
 
-/** Result of searching a sewable order. */
+/**
+ * Result of searching a sewable order: one found, or none exists, or (`undecided`) the search could
+ * not tell within its work budget whether one exists.
+ */
 export type BoardOrderSearch =
   | { ok: true; order: number[] }
-  | { ok: false; reason: string; suggestedSplit?: { a: Point; b: Point } };
+  | { ok: false; reason: string; suggestedSplit?: { a: Point; b: Point }; undecided?: true };
 
 /**
  * The board's view of a derived patch: strip-set guide lines and bands when it has a strip set. Takes

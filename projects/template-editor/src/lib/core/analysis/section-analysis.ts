@@ -2,7 +2,6 @@ import {
   checkSewability,
   derivePatches,
   expandRingRepeat,
-  findSewableOrder,
   flattenSectionOutline,
   locatePoint,
   sectionCuttingLine,
@@ -14,6 +13,7 @@ import {
   type SectionGeometry,
   type SplitResult,
 } from '@seamwright/piecing';
+import { boardOrderSearch } from './order-search-runner';
 import { matchedAssignment, toBoardPatch, withPatchDetails, type BoardOrderSearch, type BoardPatch, type BoardSewability } from './board-patch';
 
 interface Entry {
@@ -136,11 +136,7 @@ export class SectionAnalysis {
 
   /** A sewable order for the section (patch numbers in sewing order), or why there is none. */
   findOrder(section: Section): BoardOrderSearch {
-    const r = findSewableOrder(section);
-    if (r.found) return { ok: true, order: r.order };
-    return r.suggestion
-      ? { ok: false, reason: `${r.message} ${r.suggestion.message}`.trim(), suggestedSplit: { a: r.suggestion.from, b: r.suggestion.to } }
-      : { ok: false, reason: r.message };
+    return boardOrderSearch(section);
   }
 
   /** The cutting line (outline + seam allowance) of a section, or null when it cannot be made. */

@@ -11,6 +11,13 @@ export function applySewableOrder(document: PatternDocument, sectionId: string, 
   const section = findSection(document, sectionId);
   if (!section) return { document, result: { ok: false, reason: 'no such section' } };
   const result = analysis.findOrder(section);
-  if (!result.ok) return { document, result };
-  return { document: applyOrderByNumbers(document, sectionId, result.order, analysis), result };
+  return { document: applyFoundOrder(document, sectionId, result, analysis), result };
+}
+
+/**
+ * Applies the answer of an order search made elsewhere (the board's worker): the order when one was
+ * found, else the document as it is.
+ */
+export function applyFoundOrder(document: PatternDocument, sectionId: string, result: BoardOrderSearch, analysis: SectionAnalysis): PatternDocument {
+  return result.ok && findSection(document, sectionId) ? applyOrderByNumbers(document, sectionId, result.order, analysis) : document;
 }
