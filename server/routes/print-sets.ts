@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
-import { findUnsewableSections, printOptionsSchema, unsewableStatement, type PatternDocument, type UnsewableSection } from '@seamwright/piecing';
+import { findUnsewableSections, printOptionsSchema, quiltPrintDocument, quiltPrintIssues, unsewableStatement, type PatternDocument, type UnsewableSection } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
@@ -111,7 +111,13 @@ export function printSetsRouter(ctx: AppContext): Router {
       );
     }
     // The size budget, before anything is queued (the stored document was validated when saved).
-    const document = JSON.parse(revision.revision.document) as PatternDocument;
+    const stored = JSON.parse(revision.revision.document) as PatternDocument;
+    // A quilt size and colourway must be the pattern's own; the set is then for the whole quilt in that size.
+    const quiltIssues = quiltPrintIssues(stored, parsed.data);
+    if (quiltIssues.length > 0) {
+      throw new HttpError(400, 'Invalid print options', quiltIssues.map((i) => ({ path: `options.${i.path}`, message: i.message })));
+    }
+    const document = quiltPrintDocument(stored, parsed.data);
     // A section not sewable as numbered is refused with the reason unless the request prints anyway.
     const unsewable = parsed.data.printUnsewable ? [] : unsewableSections(document, parsed.data.sectionIds);
     if (unsewable.length > 0) {
