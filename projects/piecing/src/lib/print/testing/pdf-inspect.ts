@@ -179,13 +179,22 @@ export function signedAreaPt(points: readonly PdfPoint[]): number {
   return twice / 2;
 }
 
+/** A text item as pdfjs-dist reads it: the string, where it starts (PDF points, y up) and its width in points. */
+export interface PdfTextItem {
+  str: string;
+  x: number;
+  y: number;
+  width: number;
+}
+
 /** The text items of every page (pdfjs-dist's text content only, quicker than {@link inspectPdf}). */
-export async function pdfPageTexts(bytes: Uint8Array): Promise<string[][]> {
+export async function pdfPageTexts(bytes: Uint8Array): Promise<PdfTextItem[][]> {
   const pdf = await pdfjs.getDocument({ data: bytes.slice(), verbosity: 0 }).promise;
-  const pages: string[][] = [];
+  const pages: PdfTextItem[][] = [];
   for (let n = 1; n <= pdf.numPages; n++) {
     const page = await pdf.getPage(n);
-    pages.push((await page.getTextContent()).items.map((t) => ('str' in t ? t.str : '')));
+    const items = (await page.getTextContent()).items;
+    pages.push(items.flatMap((t) => ('str' in t && t.str !== '' ? [{ str: t.str, x: t.transform[4], y: t.transform[5], width: t.width }] : [])));
   }
   await pdf.destroy();
   return pages;
