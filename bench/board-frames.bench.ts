@@ -9,7 +9,7 @@
  *
  * BOARD_BENCH_BASELINE=<git revision> runs that revision's board beside this one in the same browser,
  * in interleaved rounds (baseline, this, baseline, this, …) with per-round ratios; its piecing and
- * template-editor sources are taken with `git archive` into bench/out/. BOARD_BENCH_ROUNDS sets the
+ * template-editor sources are taken with `git archive` into the system's temporary folder. BOARD_BENCH_ROUNDS sets the
  * rounds (default 5). BOARD_BENCH_SCREENSHOT=<file.png> keeps a picture of this board after the drag.
  */
 import { execFileSync } from 'node:child_process';
@@ -152,10 +152,10 @@ async function bundle(tree: string): Promise<string> {
   return out.outputFiles[0].text;
 }
 
-/** The piecing and template-editor sources of `revision`, extracted once into bench/out/. */
+/** The piecing and template-editor sources of `revision`, extracted once into the temporary folder (outside the type-checked tree). */
 function archivedTree(revision: string): { tree: string; commit: string } {
   const commit = execFileSync('git', ['rev-parse', '--short', revision], { cwd: root, encoding: 'utf8' }).trim();
-  const tree = `${root}bench/out/board-${commit}/`;
+  const tree = `${os.tmpdir()}/seamwright-board-${commit}/`;
   if (!existsSync(`${tree}projects/template-editor`)) {
     mkdirSync(tree, { recursive: true });
     execFileSync('bash', ['-c', `git archive ${commit} projects/piecing projects/template-editor | tar -x -C '${tree}'`], { cwd: root });
