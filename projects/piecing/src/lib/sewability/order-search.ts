@@ -98,7 +98,7 @@ export class OrderSearch {
   }
 
   /** Whether the subset holds a self-blocking group (every such group lies inside the section's core). */
-  private holdsSelfBlockingGroup(subset: readonly number[]): boolean {
+  holdsSelfBlockingGroup(subset: readonly number[]): boolean {
     const core = this.blockingCore();
     const within = emptyMask(this.n);
     for (const i of subset) if (hasPatch(core, i)) within[i >>> 5] |= 1 << (i & 31);
