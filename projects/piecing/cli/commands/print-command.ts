@@ -2,7 +2,7 @@ import { readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { findUnsewableSections, loadPrintFonts, PAPER_NAMES, printOptionsSchema, renderPrintSet, sheetCountStatement, unsewableStatement } from '../../src/public-api';
+import { findUnsewableSections, loadPrintFonts, PAPER_NAMES, printOptionsSchema, quiltPrintIssues, renderPrintSet, sheetCountStatement, unsewableStatement } from '../../src/public-api';
 import { EXIT_INVALID_INPUT, EXIT_OK, EXIT_USAGE, type CliCommand } from '../cli-types';
 import { readPatternFile } from '../read-pattern-file';
 
@@ -11,7 +11,8 @@ const SHIPPED_FONTS = fileURLToPath(new URL('../../../../fonts/', import.meta.ur
 
 const USAGE =
   `usage: seamwright print <pattern.json> --out <file.pdf> [--paper ${PAPER_NAMES.join('|')}] [--margin 0.5] [--front]\n` +
-  '                       [--freezer-paper] [--single] [--created <ISO time>] [--fonts <folder>] [--print-unsewable]\n';
+  '                       [--freezer-paper] [--single] [--created <ISO time>] [--fonts <folder>] [--print-unsewable]\n' +
+  '                       [--quilt-size NAME] [--colourway ID]\n';
 
 export const printCommand: CliCommand = {
   name: 'print',
@@ -34,6 +35,8 @@ export const printCommand: CliCommand = {
           created: { type: 'string' },
           fonts: { type: 'string' },
           'print-unsewable': { type: 'boolean', default: false },
+          'quilt-size': { type: 'string' },
+          colourway: { type: 'string' },
         },
       });
     } catch (error) {
@@ -53,6 +56,8 @@ export const printCommand: CliCommand = {
       copies: values.single ? 'single' : 'plan',
       printUnsewable: values['print-unsewable'],
       ...(values.created ? { createdAt: values.created } : {}),
+      ...(values['quilt-size'] !== undefined ? { quiltSize: values['quilt-size'] } : {}),
+      ...(values.colourway !== undefined ? { colourwayId: values.colourway } : {}),
     });
     if (!options.success) {
       const lines = options.error.issues.map((i) => `  ${i.path.join('.') || '(options)'}: ${i.message}`);
@@ -62,6 +67,11 @@ export const printCommand: CliCommand = {
     const file = await readPatternFile(positionals[0], io.cwd);
     if (!file.ok) {
       io.err(`${file.messages.join('\n')}\n`);
+      return EXIT_INVALID_INPUT;
+    }
+    const quiltIssues = quiltPrintIssues(file.document, options.data);
+    if (quiltIssues.length > 0) {
+      io.err(`${quiltIssues.map((i) => `${i.path}: ${i.message}`).join('\n')}\n`);
       return EXIT_INVALID_INPUT;
     }
     const unsewable = findUnsewableSections(file.document);

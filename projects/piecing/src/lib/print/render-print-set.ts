@@ -25,6 +25,7 @@ import { drawTrimming } from './booklet/draw-trimming';
 import { finishedBlockSize } from './booklet/finished-size';
 import type { SectionPressing } from './booklet/section-pressing';
 import { findUnsewableSections, UnsewablePatternError } from './booklet/unsewable-sections';
+import { drawQuiltAssembly, drawQuiltFabric, quiltPrintDocument } from './booklet/quilt-booklet';
 import { resolveJoiningPlan, seamPressing } from '../joining/index';
 import { planCopies, type CopyPlan } from '../fabrication/index';
 import { buildPieceTemplates } from './piece-templates/build-piece-templates';
@@ -84,6 +85,8 @@ export async function renderPrintSet(
 ): Promise<PrintSetResult> {
   const { fonts, ...json } = options;
   const opts = printOptionsSchema.parse(json);
+  // In the chosen colourway, and for the whole quilt in the chosen size (docs/quilt-layout.md).
+  document = quiltPrintDocument(document, opts);
   const wanted = opts.sectionIds ? new Set(opts.sectionIds) : null;
   const facts = sectionFacts(document);
   const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) }, (s) => facts.verdicts.get(s.id)!);
@@ -133,11 +136,13 @@ export async function renderPrintSet(
   const booklet = new BookletWriter(pen, portraitSheet);
   if (opts.includeCuttingList) {
     drawFabricRequirements(ctx, booklet);
+    drawQuiltFabric(ctx, booklet);
     drawCuttingInstructions(ctx, booklet);
   }
   drawPiecingSteps(ctx, booklet, (section) => sectionPressing(document, section));
   drawTrimming(ctx, booklet);
   drawJoiningPlan(ctx, booklet, resolveJoiningPlan(document));
+  drawQuiltAssembly(ctx, booklet);
   drawNotesAndCautions(ctx, booklet);
   for (const s of booklet.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
   const bookletSheetCount = doc.getNumberOfPages();

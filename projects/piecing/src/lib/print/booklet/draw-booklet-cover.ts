@@ -13,6 +13,7 @@ import { unsewableStatement } from './unsewable-sections';
 import type { PieceTemplate } from '../piece-templates/build-piece-templates';
 import { fillStripSetPatch } from './diagram';
 import { fabricColour } from './booklet-context';
+import { bookletQuilt, drawSizeChart, quiltCoverLine, quiltSizeText } from './quilt-booklet';
 
 /** A line of the cover's contents: what, and on which sheets. */
 export interface ContentsEntry {
@@ -53,7 +54,11 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
   const right = { x: frame.testBlock.x + frame.testBlock.width + 0.3, y: frame.content.y };
   pen.text(document.title, { x: right.x, y: right.y + 0.34 }, { sizePt: 20, bold: true });
   pen.text('Foundation-paper-piecing pattern · print set', { x: right.x, y: right.y + 0.6 }, { sizePt: 11 });
-  if (facts.finished) {
+  // A print set for the whole quilt (docs/quilt-layout.md) gives the quilt's finished size, the block's below.
+  const quilt = bookletQuilt(ctx);
+  if (quilt) {
+    pen.text(`Finished quilt: ${quiltSizeText(quilt.plan.finishedSizeIn)}`, { x: right.x, y: right.y + 0.9 }, { sizePt: 12, bold: true });
+  } else if (facts.finished) {
     pen.text(`Finished size: ${finishedSizeText(facts.finished)}`, { x: right.x, y: right.y + 0.9 }, { sizePt: 12, bold: true });
   }
 
@@ -83,16 +88,20 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
     para(text, 11, true);
   };
 
+  if (quilt) para(quiltCoverLine(quilt.plan), 9, true);
   para(
     `${document.blockCount === 1 ? 'One block' : `${document.blockCount} blocks`}, ${document.sections.length} section${document.sections.length === 1 ? '' : 's'}, ` +
       `${fmtIn(document.seamAllowanceIn)} in. seam allowance. Templates: ${sheetCountStatement(facts.layout)}.`,
     9,
   );
-  heading('Fabrics');
-  for (const f of ctx.cuttingList.fabrics) {
+  heading(quilt ? 'Fabrics for the whole quilt' : 'Fabrics');
+  const buy = quilt
+    ? quilt.plan.fabrics.filter((f) => f.yards > 0).map((f) => ({ name: f.name, colour: f.colour, eighths: Math.round(f.yards * 8) }))
+    : ctx.cuttingList.fabrics.map((f) => ({ name: f.name, colour: f.colour, eighths: f.yardageEighths }));
+  for (const f of buy) {
     const at = flow.block(0.2);
     pen.rect({ x: at.x, y: at.y + 0.03, width: 0.3, height: 0.14 }, { widthPt: 0.4 }, f.colour);
-    pen.text(`${f.name} — buy ${yardsText(f.yardageEighths)} yd`, { x: at.x + 0.4, y: at.y + 0.15 }, { sizePt: 9 });
+    pen.text(`${f.name} — buy ${yardsText(f.eighths)} yd`, { x: at.x + 0.4, y: at.y + 0.15 }, { sizePt: 9 });
   }
   const notes = patternNotes(ctx);
   if (notes) {
@@ -105,6 +114,10 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
   }
   // Below the picture from here on.
   if (besidePicture()) flow.gap(picture.y + picture.height + 0.1 - flow.y);
+  if (quilt && quilt.chart.length > 0) {
+    heading('Sizes (yards of each fabric)');
+    drawSizeChart(flow, quilt.chart, quilt.plan.sizeName);
+  }
   heading('Template copies');
   para(facts.copies.rule, 8);
   {

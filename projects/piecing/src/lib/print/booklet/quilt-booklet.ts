@@ -7,7 +7,7 @@ import type { BookletContext } from './booklet-context';
 import type { BookletWriter } from './booklet-writer';
 import { fabricColour } from './booklet-context';
 import { drawShape, fillStripSetPatch, fitDiagram, lighten } from './diagram';
-import type { TableCell } from '../sheet-flow';
+import type { SheetFlow, TableCell } from '../sheet-flow';
 
 /*
  * The quilt in the print set (design §11, docs/quilt-layout.md): with `quiltSize` the print set is for
@@ -89,6 +89,26 @@ export function sizeChartTable(chart: readonly QuiltSizeRow[], chosen: string | 
       ...r.fabrics.map((f) => (f.yards > 0 ? fmtIn(f.yards) : '—')),
     ]),
   };
+}
+
+/** The cover's line about the quilt: its size name, blocks, block size and setting. */
+export function quiltCoverLine(plan: QuiltPlan): string {
+  const blockSize = `${fmtIn(round3(plan.blockSizeIn.width))} × ${fmtIn(round3(plan.blockSizeIn.height))} in.`;
+  const setting = plan.setting === 'on-point' ? 'set on point' : plan.sashing ? 'with sashing' : 'set side by side';
+  const borders = plan.borders.length === 0 ? '' : `, ${plan.borders.length} border${plan.borders.length === 1 ? '' : 's'}`;
+  return `${plan.sizeName ?? 'Quilt'}: ${plan.blockCount} block${plan.blockCount === 1 ? '' : 's'} of ${blockSize} (${plan.columns} × ${plan.rows}) ${setting}${borders}. Fabric, cutting and templates below are for the whole quilt.`;
+}
+
+/** The size chart as a table: each named size's finished size, blocks and yards of each fabric. */
+export function drawSizeChart(flow: SheetFlow, chart: readonly QuiltSizeRow[], chosen: string | null): void {
+  const { header, rows } = sizeChartTable(chart, chosen);
+  const fabricCount = header.length - 3;
+  const rest = Math.max(0.5, (flow.width - 3.3) / Math.max(1, fabricCount));
+  flow.table(
+    header.map((h, i) => ({ header: h, widthIn: i === 0 ? 1.4 : i === 1 ? 1.3 : i === 2 ? 0.6 : rest, align: i >= 2 ? ('right' as const) : undefined })),
+    rows,
+    8,
+  );
 }
 
 /**
@@ -181,7 +201,7 @@ export function drawQuiltAssembly(ctx: BookletContext, writer: BookletWriter): v
       'The picture is the front of the quilt, not to scale; arrows at the left show which way each row’s seams are pressed.',
     8.5,
   );
-  const boxHeight = Math.min(4.6, flow.sheetRoom - 3);
+  const boxHeight = Math.min(4.2, flow.sheetRoom - 3);
   const top = flow.room(boxHeight);
   const box = { x: flow.left + 0.35, y: top, width: flow.width - 0.35, height: boxHeight };
   const fit = fitDiagram([{ x: 0, y: 0 }, { x: plan.finishedSizeIn.width, y: plan.finishedSizeIn.height }], box, false, 0.05);
