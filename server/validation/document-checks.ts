@@ -33,6 +33,9 @@ export class DocumentChecks {
     readonly threads = validationThreads(),
   ) {}
 
+  /** Milliseconds the worker spent on the last large body (parse, check, store, answer); for the benchmark. */
+  lastWorkerMs = 0;
+
   /** Whether the pool has been started (by a large body). */
   get started(): boolean {
     return this.pool !== undefined;
@@ -49,6 +52,7 @@ export class DocumentChecks {
     const bytes = owns ? new Uint8Array(body.buffer) : new Uint8Array(body);
     const full: DocumentTask = { ...task, body: bytes, dataDir: this.dataDir } as DocumentTask;
     const result = (await this.getPool().run(full, { transferList: [bytes.buffer as ArrayBuffer] })) as DocumentTaskResult;
+    this.lastWorkerMs = result.workerMs;
     if ('storageError' in result) {
       // A full or unwritable disk: the error middleware answers 507/503 from the code.
       throw Object.assign(new Error(result.storageError.message), { code: result.storageError.code });
