@@ -100,3 +100,4 @@ export type { BoardHighlight } from './view/board-highlight';
 
 /** The true-size front view of a pattern as SVG text. */
 export { renderFrontViewSvg, type FrontViewSvgOptions } from './preview/front-view-svg';
+export { renderFourBlockSvg } from './preview/four-block-svg';

@@ -3,7 +3,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { applyColourway, type PatternDocument } from '@seamwright/piecing';
 import { EditorSession } from '../session/editor-session';
-import { renderFourBlockSvg } from './four-block-svg';
+import { renderFourBlockSvg } from '../core/public-api';
 
 /** Quiet time after the last change before the four blocks are drawn again (a drag never waits on them), ms. */
 export const FOUR_BLOCK_DELAY_MS = 300;

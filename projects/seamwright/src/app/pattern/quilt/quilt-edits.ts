@@ -32,7 +32,11 @@ export function updateQuilt(doc: PatternDocument, change: Partial<QuiltLayout>):
   if (!doc.quilt) return doc;
   const quilt = { ...doc.quilt, ...change };
   // Sashing belongs to a straight setting only (the library refuses it on point).
-  if (quilt.setting === 'on-point') delete quilt.sashing;
+  if (quilt.setting === 'on-point') {
+    delete quilt.sashing;
+    // Setting triangles need a fabric to be drawn and cut: the first of the pattern until one is chosen.
+    if (!quilt.settingTrianglesFabricId && doc.fabrics[0]) quilt.settingTrianglesFabricId = doc.fabrics[0].id;
+  }
   for (const key of Object.keys(change) as Array<keyof QuiltLayout>) if (change[key] === undefined) delete quilt[key];
   // Cells past the new edges would name positions that no longer exist.
   if (quilt.cells && (change.columns !== undefined || change.rows !== undefined || change.setting !== undefined)) {

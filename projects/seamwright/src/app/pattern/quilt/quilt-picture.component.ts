@@ -16,7 +16,7 @@ export interface CellRef {
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (selectable()) {
-      <div #drawing class="drawing selectable" tabindex="0" role="group" [attr.aria-label]="label() + '. Arrow keys choose a block.'"
+      <div #drawing class="drawing selectable" tabindex="0" role="group" [attr.aria-label]="label() + ' — arrow keys choose a block'"
         [attr.aria-describedby]="statusId" (click)="pick($event)" (keydown)="onKey($event)"></div>
       <p class="status" [id]="statusId" aria-live="polite">{{ chosenText() }}</p>
     } @else {

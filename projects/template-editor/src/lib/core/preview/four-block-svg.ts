@@ -1,5 +1,5 @@
 import { blockDrawingBounds, type PatternDocument } from '@seamwright/piecing';
-import { renderFrontViewSvg } from '../core/public-api';
+import { renderFrontViewSvg } from './front-view-svg';
 
 const num = (v: number) => String(+v.toFixed(4));
 
