@@ -46,18 +46,23 @@ export function drawTrimming(ctx: BookletContext, writer: BookletWriter): void {
   const cols = 4;
   const cellW = flow.width / cols;
   const sections = ctx.document.sections;
+  const lineIn = 0.135;
+  const captions = sections.map((section) => {
+    const curved = curvedEdges(section);
+    return ctx.pen.wrap(`${section.label}: ${curved ? `${curved} — scissors there, ruler on the straight edges` : 'all edges straight — ruler and rotary cutter'}`, cellW - 0.15, 7.5);
+  });
   for (let row = 0; row * cols < sections.length; row++) {
     const items = sections.slice(row * cols, row * cols + cols);
-    const top = flow.block(1.55 + 0.5);
+    // The row is as tall as its longest caption: every caption is printed whole.
+    const lines = Math.max(3, ...items.map((_, c) => captions[row * cols + c].length));
+    const top = flow.block(1.55 + 0.1 + lines * lineIn);
     items.forEach((section, c) => {
       const { sewingLine, cuttingLine } = sectionSeamAllowance(section, ctx.document.seamAllowanceIn);
       const box = { x: top.x + c * cellW + 0.05, y: top.y, width: cellW - 0.1, height: 1.45 };
       const fit = fitDiagram(cuttingLine, box, false);
       ctx.pen.polyline(cuttingLine.map(fit.map), true, { widthPt: 0.7, dashPt: [3, 2], colour: '#000000' });
       ctx.pen.polyline(sewingLine.map(fit.map), true, DIAGRAM_STYLES.outline);
-      const curved = curvedEdges(section);
-      const lines = ctx.pen.wrap(`${section.label}: ${curved ? `${curved} — scissors there, ruler on the straight edges` : 'all edges straight — ruler and rotary cutter'}`, cellW - 0.15, 7.5);
-      lines.slice(0, 3).forEach((l, k) => ctx.pen.text(l, { x: box.x, y: top.y + 1.6 + k * 0.135 }, { sizePt: 7.5 }));
+      captions[row * cols + c].forEach((l, k) => ctx.pen.text(l, { x: box.x, y: top.y + 1.6 + k * lineIn }, { sizePt: 7.5 }));
     });
   }
 }
