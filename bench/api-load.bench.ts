@@ -203,8 +203,7 @@ export default async function apiLoad(): Promise<BenchSection> {
               conflicts++;
               const latest = (JSON.parse(body) as { details?: { latest?: { number?: number } } }).details?.latest?.number;
               if (typeof latest === 'number') p.head = latest;
-              // The baselines' 409 carries no revision: re-read the head from the product.
-              else p.head = -1;
+              else p.head = -1; // re-read from the product after the run
             }
             p.busySince = 0;
           },

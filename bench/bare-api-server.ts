@@ -185,7 +185,7 @@ const saveTx = sqlite.transaction((user: UserRow, id: string, base: number, docT
   if (!row || !access || (access !== 'owner' && row.trashed_at !== null)) return notFound;
   if (access === 'quilter') return { status: 403, body: '{"error":"Quilter access cannot change this pattern","details":null}' };
   if (row.trashed_at !== null) return { status: 409, body: '{"error":"This pattern is in the trash","details":null}' };
-  if (row.head_revision !== base) return { status: 409, body: '{"error":"Saved by someone else","details":null}' };
+  if (row.head_revision !== base) return { status: 409, body: `{"error":"Saved by someone else","details":{"latest":{"number":${row.head_revision}}}}` };
   const head = headOf.get(id, base);
   const number = base + 1;
   const groupStart =

@@ -1,11 +1,13 @@
 import type { RequestHandler, Response } from 'express';
 import type { DbLike } from '../db/database';
 import { HttpError } from './errors';
-import { checkNeed, loadPatternAccess, type Need, type PatternAccess } from '../services/access';
+import { checkNeed, loadPatternAccess, loadPatternRead, type Need, type PatternAccess, type PatternRead } from '../services/access';
 
 /** What the middleware leaves for the routes below `/patterns/:id`. */
 interface PatternLocals {
   patternAccess?: PatternAccess;
+  /** For `GET /patterns/:id` alone: the same checks and the latest revision, in one query. */
+  patternRead?: PatternRead;
 }
 
 /**
@@ -15,7 +17,9 @@ interface PatternLocals {
  */
 export function patternAccess(db: DbLike): RequestHandler {
   return (req, res, next) => {
-    (res.locals as PatternLocals).patternAccess = loadPatternAccess(db, req.user, req.params['id']);
+    const locals = res.locals as PatternLocals;
+    if (req.method === 'GET' && req.path === '/') locals.patternAccess = locals.patternRead = loadPatternRead(db, req.user, req.params['id']);
+    else locals.patternAccess = loadPatternAccess(db, req.user, req.params['id']);
     next();
   };
 }
@@ -28,5 +32,12 @@ export function patternOf(res: Response, need: Need = 'read'): PatternAccess {
   const found = (res.locals as PatternLocals).patternAccess;
   if (!found) throw new HttpError(500, 'Pattern access was not loaded for this route');
   checkNeed(found.access, need);
+  return found;
+}
+
+/** What the middleware loaded for reading a pattern (`GET /patterns/:id`): access and latest revision. */
+export function patternReadOf(res: Response): PatternRead {
+  const found = (res.locals as PatternLocals).patternRead;
+  if (!found) throw new HttpError(500, 'Pattern read was not loaded for this route');
   return found;
 }

@@ -5,10 +5,10 @@ import { duplicateBodySchema, patternListQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { patterns, printSets, uploads } from '../db/schema';
+import { patterns, printSets, uploads, type Revision } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
-import { patternOf } from '../http/pattern-access';
+import { patternOf, patternReadOf } from '../http/pattern-access';
 import { canDesign } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { checkDocumentBody } from '../validation/document-body';
@@ -47,11 +47,24 @@ export function patternsRouter(ctx: AppContext): Router {
     sendPatternWithRevision(res, 201, patternJson(pattern, user.displayName, 'owner'), revision, user.displayName);
   });
 
-  router.get('/:id', (req, res) => {
-    const { pattern, access } = patternOf(res);
-    const latest = findRevision(db, pattern.id);
-    if (!latest) throw new HttpError(500, 'Pattern has no revision');
-    sendPatternWithRevision(res, 200, patternJson(pattern, ownerName(db, pattern.ownerId), access), latest.revision, latest.authorName);
+  router.get('/:id', (_req, res) => {
+    // Pattern, access and latest revision come from one query (the pattern-access middleware).
+    const { pattern, access, ownerName: owner, row } = patternReadOf(res);
+    if (row.revId === null) throw new HttpError(500, 'Pattern has no revision');
+    const revision: Revision = {
+      id: row.revId,
+      patternId: pattern.id,
+      number: row.revNumber,
+      document: row.revDocument,
+      authorId: row.revAuthorId,
+      restoredFrom: row.revRestoredFrom,
+      editSession: row.revEditSession,
+      groupStart: row.revGroupStart,
+      versionName: row.revVersionName,
+      versionNote: row.revVersionNote,
+      createdAt: new Date(row.revCreatedAt),
+    };
+    sendPatternWithRevision(res, 200, patternJson(pattern, owner, access), revision, row.revAuthorName);
   });
 
   router.put('/:id', async (req, res) => {

@@ -100,6 +100,8 @@ interface PatternReadRow {
   revAuthorId: string;
   revAuthorName: string;
   revRestoredFrom: number | null;
+  revEditSession: string | null;
+  revGroupStart: number | null;
   revVersionName: string | null;
   revVersionNote: string | null;
   revCreatedAt: number;
@@ -123,7 +125,7 @@ const readStatement = preparedPerDb((db) =>
     `SELECT p.id AS id, p.owner_id AS ownerId, p.title AS title, p.head_revision AS headRevision, p.created_at AS createdAt,
             p.updated_at AS updatedAt, p.trashed_at AS trashedAt, o.display_name AS ownerName, m.access AS memberAccess,
             r.id AS revId, r.number AS revNumber, r.author_id AS revAuthorId, a.display_name AS revAuthorName,
-            r.restored_from AS revRestoredFrom, r.version_name AS revVersionName, r.version_note AS revVersionNote,
+            r.restored_from AS revRestoredFrom, r.edit_session AS revEditSession, r.group_start AS revGroupStart, r.version_name AS revVersionName, r.version_note AS revVersionNote,
             r.created_at AS revCreatedAt, r.document AS revDocument
        FROM patterns p
        JOIN users o ON o.id = p.owner_id
