@@ -19,6 +19,13 @@ interface SectionEntry {
 
 /** Screen pixels around the board within which sections are still drawn (strokes reach past outlines). */
 const CULL_MARGIN_PX = 16;
+/**
+ * Time a render may spend checking the sewability of static sections before drawing them; sections
+ * past it are drawn at once and checked afterwards in slices of {@link CHECK_SLICE_MS}, and those that
+ * fail are drawn again with their failing patch. A small pattern is checked whole before its first draw.
+ */
+const SYNC_CHECK_BUDGET_MS = 25;
+const CHECK_SLICE_MS = 8;
 
 /**
  * Draws a {@link BoardEditor} on a Konva stage. Layers: grid (screen space), reference image, the
@@ -52,6 +59,11 @@ export class BoardRenderer {
   private fabricsFor: { list: readonly Fabric[]; map: Map<string, Fabric>; key: string } | null = null;
   /** The section the overlay draws handles for, found again only when the document or selection changes. */
   private activeSection: { doc: PatternDocument; id: string | null; section: Section | undefined } | null = null;
+  /** Sections whose sewability this board has checked (the analysis keeps the verdicts). */
+  private readonly checked = new WeakSet<Section>();
+  /** Static sections drawn before their check, to check between frames. */
+  private readonly unchecked: Section[] = [];
+  private checkTimer: ReturnType<typeof setTimeout> | null = null;
   private readonly unsubscribe: Array<() => void> = [];
   /** How many times each layer was drawn (for tests and the benchmark). */
   readonly draws = { grid: 0, static: 0, active: 0, overlay: 0 };
@@ -194,6 +206,7 @@ export class BoardRenderer {
     const settings = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabrics.key}`;
     const pass = ++this.pass;
     const sections = doc.sections;
+    let checkTime = 0;
     for (let i = 0; i < sections.length; i++) {
       const section = sections[i];
       const active = section.id === activeId;
@@ -209,12 +222,22 @@ export class BoardRenderer {
         if (old.active) activeDirty = true;
         else staticDirty = true;
       }
+      let checked = active || this.checked.has(section);
+      if (!checked && checkTime < SYNC_CHECK_BUDGET_MS) {
+        const t0 = performance.now();
+        ed.analysis.sewability(section);
+        checkTime += performance.now() - t0;
+        this.checked.add(section);
+        checked = true;
+      }
+      if (!checked) this.unchecked.push(section);
       const node = createSectionShape(section, {
         analysis: ed.analysis,
         fabrics: fabrics.map,
         selected: active,
         selectedPatchIndex: patchIndex,
         allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
+        sewability: checked,
         view: () => this.sectionView,
       });
       (active ? this.activeContent : this.staticContent).add(node);
@@ -250,6 +273,32 @@ export class BoardRenderer {
     }
     this.overlayLayer.draw();
     this.draws.overlay++;
+    this.scheduleChecks();
+  }
+
+  private scheduleChecks(): void {
+    if (this.checkTimer !== null || this.unchecked.length === 0) return;
+    this.checkTimer = setTimeout(() => this.runChecks(), 0);
+  }
+
+  /** Checks a slice of the sections drawn unchecked; a failing one is drawn again on the next frame. */
+  private runChecks(): void {
+    this.checkTimer = null;
+    const until = performance.now() + CHECK_SLICE_MS;
+    let redraw = false;
+    while (this.unchecked.length > 0 && performance.now() < until) {
+      const section = this.unchecked.pop()!;
+      const entry = this.entries.get(section.id);
+      if (this.checked.has(section) || entry?.section !== section) continue;
+      this.checked.add(section);
+      if (!this.editor.analysis.sewability(section).ok) {
+        // Made again (now with its check) on the next render.
+        entry.settings = '';
+        redraw = true;
+      }
+    }
+    if (redraw) this.schedule();
+    this.scheduleChecks();
   }
 
   /** The document's fabrics by id and a key of their colours, made again only when the fabric list changes. */
@@ -408,6 +457,8 @@ export class BoardRenderer {
   /** Stops drawing and frees the stage. */
   destroy(): void {
     if (this.frame) cancelAnimationFrame(this.frame);
+    if (this.checkTimer !== null) clearTimeout(this.checkTimer);
+    this.unchecked.length = 0;
     for (const u of this.unsubscribe) u();
     this.stage.destroy();
   }

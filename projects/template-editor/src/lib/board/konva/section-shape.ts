@@ -1,6 +1,6 @@
 import Konva from 'konva';
 import { polygonBounds, type Bounds, type Fabric, type Point, type Section } from '@seamwright/piecing';
-import type { BoardPatch, SectionAnalysis } from '../../core/public-api';
+import type { BoardPatch, BoardSewability, SectionAnalysis } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 
 /** The view a section is drawn in, read at every draw (a zoom or pan redraws without a rebuild). */
@@ -20,6 +20,11 @@ export interface SectionShapeOptions {
   selectedPatchIndex: number | null;
   /** Cutting line of each placement, when the seam allowance preview is on. */
   allowanceIn: number | null;
+  /**
+   * Whether to show the sewability check (the failing patch, and its reason on the selected section).
+   * The board checks static sections after the first draw of a large pattern and then redraws them.
+   */
+  sewability: boolean;
   view: () => SectionView;
 }
 
@@ -49,6 +54,8 @@ interface PatchDrawing {
 interface CopyDrawing {
   alpha: number;
   patches: PatchDrawing[];
+  /** Every patch's outline in one path: the seams, stroked once after the fills. */
+  seams: Path2D;
   /** The outline filled blank when the section has no patches (a half-drawn or invalid outline). */
   blank: Path2D | null;
   outline: Path2D;
@@ -78,7 +85,7 @@ function patchFill(p: BoardPatch, fabrics: ReadonlyMap<string, Fabric>): string 
 
 /** Everything one section draws, in document inches, from the analysis' cached facts. */
 function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing {
-  const sewability = o.analysis.sewability(section);
+  const sewability: BoardSewability = o.sewability ? o.analysis.sewability(section) : { ok: true };
   const failingNumber = sewability.ok ? null : (sewability.failingPatchNumber ?? null);
   const outlines: Point[] = [];
   const copies = o.analysis.placements(section).map((placement, copyIndex): CopyDrawing => {
@@ -87,8 +94,10 @@ function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing 
     for (const q of outline) outlines.push(q);
     const cut = o.allowanceIn !== null ? o.analysis.cuttingLine(placement, o.allowanceIn) : null;
     if (cut) for (const q of cut) outlines.push(q);
+    const seams = new Path2D();
     return {
       alpha: copyIndex === 0 ? 1 : 0.55,
+      seams,
       patches: patches.map((p) => {
         const b = polygonBounds(p.polygon);
         let guides: Path2D | null = null;
@@ -99,9 +108,11 @@ function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing 
             guides.lineTo(c.x, c.y);
           }
         }
+        const path = ringPath(p.polygon);
+        seams.addPath(path);
         return {
           patch: p,
-          path: ringPath(p.polygon),
+          path,
           fill: patchFill(p, o.fabrics),
           bands: p.stripBands ? p.stripBands.map((band) => ({ path: ringPath(band.polygon), fill: o.fabrics.get(band.fabricId)?.colour ?? BOARD_COLOURS.emptyPatch })) : null,
           guides,
@@ -206,7 +217,6 @@ function drawSection(ctx: CanvasRenderingContext2D, d: SectionDrawing, o: Sectio
     for (const p of copy.patches) {
       ctx.fillStyle = p.fill;
       ctx.fill(p.path);
-      strokeScreen(ctx, p.path, BOARD_COLOURS.seam, 1, s, null);
       if (p.bands) {
         ctx.save();
         ctx.clip(p.path);
@@ -216,8 +226,9 @@ function drawSection(ctx: CanvasRenderingContext2D, d: SectionDrawing, o: Sectio
         }
         ctx.restore();
       }
-      if (p.guides) strokeScreen(ctx, p.guides, BOARD_COLOURS.guideLine, 1.5, s, [6, 3]);
     }
+    if (copy.patches.length > 0) strokeScreen(ctx, copy.seams, BOARD_COLOURS.seam, 1, s, null);
+    for (const p of copy.patches) if (p.guides) strokeScreen(ctx, p.guides, BOARD_COLOURS.guideLine, 1.5, s, [6, 3]);
     if (copy.blank) {
       ctx.fillStyle = BOARD_COLOURS.emptyPatch;
       ctx.fill(copy.blank);
