@@ -62,6 +62,17 @@ function turnPoints(points: readonly Point[], angle: number): Point[] {
  * ring does not reach into the rectangle.
  */
 export function clippedBounds(ring: readonly Point[], rect: RectIn): RectIn | null {
+  const poly = clipRingToRect(ring, rect);
+  if (poly.length < 3) return null;
+  const box = boundingRect(poly);
+  return box.width > 1e-6 && box.height > 1e-6 ? box : null;
+}
+
+/**
+ * The part of a closed ring inside a rectangle, as one ring (Sutherland–Hodgman; where the ring
+ * leaves and re-enters, the result runs along the rectangle's side, so it covers at least that part).
+ */
+export function clipRingToRect(ring: readonly Point[], rect: RectIn): Point[] {
   const x0 = rect.x;
   const y0 = rect.y;
   const x1 = rect.x + rect.width;
@@ -74,7 +85,7 @@ export function clippedBounds(ring: readonly Point[], rect: RectIn): RectIn | nu
     [(p) => p.y <= y1, (p, q) => at(p, q, (y1 - p.y) / (q.y - p.y))],
   ];
   for (const [inside, cut] of sides) {
-    if (poly.length === 0) return null;
+    if (poly.length === 0) return [];
     const out: Point[] = [];
     for (let i = 0; i < poly.length; i++) {
       const cur = poly[i];
@@ -90,9 +101,7 @@ export function clippedBounds(ring: readonly Point[], rect: RectIn): RectIn | nu
     }
     poly = out;
   }
-  if (poly.length < 3) return null;
-  const box = boundingRect(poly);
-  return box.width > 1e-6 && box.height > 1e-6 ? box : null;
+  return poly;
 }
 
 function at(p: Point, q: Point, t: number): Point {

@@ -11,6 +11,7 @@ import { asymmetricBlock, testMedallion } from './testing/print-test-fixtures';
 import { buildOrchardWheel } from '../demo/index';
 import { readPatternDocument } from '../document/index';
 import type { RectIn } from './paper';
+import { tileDrawing } from './testing/tile-drawing';
 
 const turn = (pts: { x: number; y: number }[], a: number) =>
   pts.map((p) => ({ x: Math.cos(a) * p.x - Math.sin(a) * p.y, y: Math.sin(a) * p.x + Math.cos(a) * p.y }));
@@ -65,7 +66,7 @@ describe('layout of the test medallion on Letter', () => {
       expect(within(sheet.frame.testBlock, sheet.frame.printable)).toBe(true);
       // What each print really covers: its cutting line (a tile: its clip rectangle), and its caption strip.
       const groups = sheet.placements.map((p) => [
-        p.tile ? rectRing(p.rect) : byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q)),
+        ...(p.tile ? tileDrawing(p, byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))) : [byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))]),
         ...(p.caption ? [rectRing(p.caption.rect)] : []),
       ]);
       groups.push([rectRing(sheet.frame.testBlock)]);
@@ -185,7 +186,7 @@ describe('layout of the demo medallion and of edge cases', () => {
       const layout = planPrintLayout(document, options);
       for (const sheet of layout.sheets) {
         const groups = sheet.placements.map((p) => [
-          p.tile ? rectRing(p.rect) : templates.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q)),
+          ...(p.tile ? tileDrawing(p, templates.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))) : [templates.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))]),
           ...(p.caption ? [rectRing(p.caption.rect)] : []),
         ]);
         groups.push([rectRing(sheet.frame.testBlock)]);

@@ -101,9 +101,13 @@ export function packSheets<T>(
     const variants = whole.some((i) => i.parts) ? [whole, broken] : [whole];
     search: for (const orientation of ['portrait', 'landscape'] as const) {
       const frame = frames[orientation];
+      const seen: PackItem<T>[][] = [];
       for (const order of quick ? ORDERS.slice(0, 1) : ORDERS) for (const variant of variants) {
         const remaining = [...variant].sort(order);
-        for (const logic of quick ? LOGICS.slice(0, 1) : LOGICS) for (const stand of [false, true]) {
+        // Orders that come out the same (all items alike, say) are packed once.
+        if (seen.some((o) => o.length === remaining.length && o.every((item, i) => item === remaining[i]))) continue;
+        seen.push(remaining);
+        for (const logic of quick ? LOGICS.slice(0, 1) : LOGICS) for (const stand of STANDS) {
           for (const block of quick ? QUICK_BLOCK_MODES : BLOCK_MODES) {
             const tried = packOne(remaining, frame, logic, block, stand);
             if (!tried) continue;
@@ -111,6 +115,8 @@ export function packSheets<T>(
             tries.push({ frame, tried, area });
             // Everything left fits this sheet, test block included: no try can do better.
             if ('block' in tried && tried.placed.length === remaining.length && variant === whole) break search;
+            // Packed freely, the boxes left room for the block: reserving room first would not place more.
+            if (block === 'free' && 'block' in tried) break;
           }
         }
       }
@@ -198,13 +204,13 @@ function rectMask(w: number, h: number, cell: number): ShapeMask {
  * Where the test block may go on a sheet:
  * - 'corner': side by side in the top-left corner of the printable area, its top in the header band
  *   (the header's text then starts to the right of it), so it takes only half an inch of content;
- * - 'corner-tall': the same corner, the 2 cm square under the 1 in. one;
  * - 'band': the same corner, with nothing beside the block (rows of templates start below it);
  * - 'free': nowhere at first — the boxes are packed alone and the block goes in any free room left.
  */
-type BlockMode = 'corner' | 'corner-tall' | 'band' | 'free';
-const BLOCK_MODES: readonly BlockMode[] = ['free', 'corner', 'band', 'corner-tall'];
+type BlockMode = 'corner' | 'band' | 'free';
+const BLOCK_MODES: readonly BlockMode[] = ['free', 'band', 'corner'];
 const QUICK_BLOCK_MODES: readonly BlockMode[] = ['free', 'corner'];
+const STANDS = [false, true];
 
 /**
  * One maxrects packing of `items` (in order) on a sheet, the test block as `blockAt` says. With
@@ -223,7 +229,7 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
     logic,
   });
   const tb = frame.testBlock;
-  const [bw, bh] = blockAt === 'corner-tall' ? [tb.height, tb.width] : [tb.width, tb.height];
+  const [bw, bh] = [tb.width, tb.height];
   let block: RectIn | null = null;
   if (blockAt !== 'free') {
     // The block hangs from the top of the printable area; below the header it reaches `depth` into the content.

@@ -3,7 +3,7 @@ import { applyAffine, compose, rotation, translation, type Affine } from './affi
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
 import { packSheets, type PackedItem, type PackItem, type SheetFill } from './pack-sheets';
 import { blockRing, findSpot, occupancyGrid, shapeMask, type ShapeMask } from './raster-fill';
-import { boundingRect } from './layout-geometry';
+import { boundingRect, clipRingToRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
 import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
@@ -45,7 +45,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     if (template.copies < 1) continue;
     const prepared = prepareTemplate(template, mirrored);
     const whole = fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape);
-    const grid = whole ? null : chooseTiling(template, mirrored, [portrait, landscape], tileOverlapIn, paper, marginIn);
+    const grid = whole ? null : cachedTiling(template, mirrored, [portrait, landscape], tileOverlapIn, paper, marginIn);
     if (grid) grids.set(template.id, grid);
     const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
     for (let copy = 1; copy <= template.copies; copy++) {
@@ -82,7 +82,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     const rings: Point[][] = [];
     for (const pl of placements) {
       if (pl.caption) rings.push(rectRing(pl.caption.rect));
-      if (pl.tile) rings.push(rectRing(pl.rect));
+      if (pl.tile) rings.push(...tileOutlines(pl, outlineOf(pl.templateId, pl.transform)));
       else rings.push(outlineOf(pl.templateId, pl.transform));
     }
     return rings;
@@ -134,9 +134,30 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   };
 }
 
-/** Two copies nested head to tail, when that clearly beats two boxes and still fits a sheet. */
+/**
+ * Nested pairs already found, by outline and options: the search is pure and costs far more than
+ * the key, and the same pattern is laid out again whenever the quilter changes a print option.
+ */
+const pairCache = new Map<string, NestedPair | null>();
+const PAIR_CACHE_SIZE = 256;
+
+/** Two copies nested head to tail, when that beats two boxes and still fits a sheet. */
 function nestedPairFor(prepared: PreparedTemplate, mirrored: boolean, ...frames: SheetFrame[]): NestedPair | null {
-  const pair = nestPair(
+  const t = prepared.template;
+  const key = `${mirrored ? 1 : 0}|${t.freeRotation ? 1 : 0}|${t.cuttingLine.map((p) => `${p.x},${p.y}`).join(';')}`;
+  let pair = pairCache.get(key);
+  if (pair === undefined) {
+    pair = searchPair(prepared, mirrored);
+    if (pairCache.size >= PAIR_CACHE_SIZE) pairCache.delete(pairCache.keys().next().value!);
+    pairCache.set(key, pair);
+  }
+  if (!pair) return null;
+  const box = { width: pair.width, height: pair.height } as PreparedTemplate;
+  return frames.some((f) => fitsWhole(box, f)) ? pair : null;
+}
+
+function searchPair(prepared: PreparedTemplate, mirrored: boolean): NestedPair | null {
+  return nestPair(
     prepared.template.cuttingLine,
     mirrored ? MIRROR_X : IDENTITY,
     prepared.template.freeRotation,
@@ -144,9 +165,6 @@ function nestedPairFor(prepared: PreparedTemplate, mirrored: boolean, ...frames:
     TEMPLATE_CLEARANCE_IN,
     prepared.width * prepared.height,
   );
-  if (!pair) return null;
-  const box = { width: pair.width, height: pair.height } as PreparedTemplate;
-  return frames.some((f) => fitsWhole(box, f)) ? pair : null;
 }
 
 function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFrame): boolean {
@@ -158,6 +176,27 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
   return fits(p.width, p.height) || fits(p.height, p.width);
 }
 
+/** Forgets every cached search (nested pairs, tilings, raster masks): for measuring a first layout. */
+export function clearLayoutCaches(): void {
+  pairCache.clear();
+  tilingCache.clear();
+  maskCache.clear();
+}
+
+/** Tilings already chosen, by outline, copies and options (the choice is pure and packs trial sheets). */
+const tilingCache = new Map<string, { columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number }>();
+const TILING_CACHE_SIZE = 256;
+
+function cachedTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid {
+  const key = [paper, marginIn, overlapIn, mirrored ? 1 : 0, template.freeRotation ? 1 : 0, template.copies, template.cuttingLine.map((p) => `${p.x},${p.y}`).join(';')].join('|');
+  const known = tilingCache.get(key);
+  if (known) return tileGridFromSpans(prepareTemplate(template, mirrored, known.turn), known.columns, known.rows, overlapIn);
+  const { grid, columns, rows, turn } = chooseTiling(template, mirrored, frames, overlapIn, paper, marginIn);
+  if (tilingCache.size >= TILING_CACHE_SIZE) tilingCache.delete(tilingCache.keys().next().value!);
+  tilingCache.set(key, { columns, rows, turn });
+  return grid;
+}
+
 /**
  * Picks the tiling that packs onto the fewest sheets (then the fewest tiles, then the least printed
  * area): the smallest equal grids that fit, equal grids a row or column finer (smaller tiles can
@@ -165,8 +204,15 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
  * rest of the template in fewer, smaller tiles), over the template unturned and turned a quarter.
  * Each candidate's tiles, for every copy, are packed on their own to count its sheets.
  */
-function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid {
-  let best: { grid: TileGrid; sheets: number; count: number; area: number } | null = null;
+function chooseTiling(
+  template: PrintTemplate,
+  mirrored: boolean,
+  frames: SheetFrame[],
+  overlapIn: number,
+  paper: PrintOptions['paper'],
+  marginIn: number,
+): { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number } {
+  let best: { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number; sheets: number; count: number; area: number } | null = null;
   const g = ITEM_GAP_IN;
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
@@ -186,7 +232,7 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
     const candidates: Array<{ columns: Array<[number, number]>; rows: Array<[number, number]> }> = [];
     for (const [minCols, minRows] of bases) {
       // Trial packing is only worth its time for modest grids; a huge template takes the smallest grid.
-      const extra = minCols * minRows * template.copies <= 120 ? 2 : 0;
+      const extra = minCols * minRows * template.copies <= 120 ? 1 : 0;
       for (let columns = minCols; columns <= minCols + extra; columns++) {
         for (let rows = minRows; rows <= minRows + extra; rows++) {
           candidates.push({ columns: equalSpans(prepared.width, columns, overlapIn), rows: equalSpans(prepared.height, rows, overlapIn) });
@@ -214,11 +260,11 @@ function chooseTiling(template: PrintTemplate, mirrored: boolean, frames: SheetF
       const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
       const better =
         !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
-      if (better) best = { grid, sheets, count, area };
+      if (better) best = { grid, columns, rows, turn, sheets, count, area };
     }
   }
   if (!best) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
-  return best.grid;
+  return best;
 }
 
 /**
@@ -368,6 +414,27 @@ function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, n
   };
 }
 
+/**
+ * What a tile really covers: the part of its cutting line inside the tile, its alignment marks
+ * (a cross 0.15 in. each way) and its join lines with their "edge of …" labels; the rest of the
+ * tile's box stays free for other templates.
+ */
+function tileOutlines(placement: SheetPlacement, outline: Point[]): Point[][] {
+  const rings: Point[][] = [];
+  const body = clipRingToRect(outline, placement.rect);
+  if (body.length >= 3) rings.push(body);
+  const tile = placement.tile!;
+  for (const m of tile.alignmentMarks) rings.push(rectRing({ x: m.x - 0.16, y: m.y - 0.16, width: 0.32, height: 0.32 }));
+  for (const line of tile.joinLines) {
+    rings.push([line.a, line.b]);
+    const vertical = Math.abs(line.b.x - line.a.x) < Math.abs(line.b.y - line.a.y);
+    const mid = { x: (line.a.x + line.b.x) / 2, y: (line.a.y + line.b.y) / 2 };
+    // The label: 5 pt text centred on the line's middle, just outside it (see draw-template.ts).
+    rings.push(rectRing(vertical ? { x: mid.x - 0.12, y: mid.y - 0.45, width: 0.12, height: 0.9 } : { x: mid.x - 0.45, y: mid.y - 0.12, width: 0.9, height: 0.12 }));
+  }
+  return rings;
+}
+
 function rectRing(r: RectIn): Point[] {
   return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }
@@ -377,15 +444,24 @@ const FILL_CELL_IN = 0.1;
 /** Templates tried per sheet when filling gaps (the largest first). */
 const FILL_TEMPLATES_PER_SHEET = 6;
 
+/** Raster masks of outlines at each turn, kept between layouts (pure, keyed by the outline itself). */
+const maskCache = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
+const MASK_CACHE_SIZE = 1024;
+
 /**
  * Fills the gaps of each packed sheet with single copies, at any turn (every 22.5° for arcs and
  * wedges, quarter turns for straight sections), looking at the real cutting lines on a raster.
  */
 function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][]): SheetFill<Piece> {
-  const masks = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
+  const outlineKeys = new Map<string, string>();
   const shapeAt = (prepared: PreparedTemplate, k: number, turns: number) => {
-    const key = `${prepared.template.id}@${k}/${turns}`;
-    let entry = masks.get(key);
+    let outlineKey = outlineKeys.get(prepared.template.id);
+    if (outlineKey === undefined) {
+      outlineKey = prepared.template.cuttingLine.map((p) => `${p.x},${p.y}`).join(';');
+      outlineKeys.set(prepared.template.id, outlineKey);
+    }
+    const key = `${mirrored ? 1 : 0}@${k}/${turns}|${outlineKey}`;
+    let entry = maskCache.get(key);
     if (!entry) {
       const turn = (2 * Math.PI * k) / turns;
       const m = compose(rotation(turn), mirrored ? MIRROR_X : IDENTITY);
@@ -395,7 +471,8 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
       // The mask is made from the outline simplified within 0.02 in., grown by the same amount.
       const local = simplifyRing(ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y })), 0.02);
       entry = { mask: shapeMask(local, FILL_CELL_IN, 0.02), frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
-      masks.set(key, entry);
+      if (maskCache.size >= MASK_CACHE_SIZE) maskCache.delete(maskCache.keys().next().value!);
+      maskCache.set(key, entry);
     }
     return entry;
   };

@@ -1,0 +1,173 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import type { PatternDocument, Point } from '../document/index';
+import { buildOrchardWheel, buildStressPattern } from '../demo/index';
+import { polygonArea } from '../geometry/index';
+import { applyAffine } from './affine';
+import { separated } from './nest-pair';
+import type { RectIn } from './paper';
+import { layoutTemplates } from './plan-print-layout';
+import { planPrintLayout } from './render-print-set';
+import { ITEM_GAP_IN, TEST_BLOCK_IN } from './sheet-frame';
+import { buildPrintTemplates } from './print-templates';
+import type { PrintLayout } from './layout-types';
+import { tileDrawing } from './testing/tile-drawing';
+import type { PrintTemplate } from './template-model';
+
+/*
+ * Template sheets against the area bound (issue 16): the test squares cost no template slot, and
+ * whatever the templates, every print and every test-square block lies inside the printable area,
+ * clear of the header text and at least the gap from everything else on its sheet.
+ */
+
+describe('sheets of the demo medallion and the stress pattern', () => {
+  it('lays the Orchard Wheel medallion on Letter in at most 21 sheets (the bound is 12; 24 before issue 16)', () => {
+    const layout = planPrintLayout(buildOrchardWheel(), { paper: 'letter' });
+    expect(layout.lowerBoundSheets).toBe(12);
+    expect(layout.templateSheetCount).toBeLessThanOrEqual(21);
+    expectSound(layout, templatesOf(buildOrchardWheel()));
+  });
+
+  it('puts four 1,000-patch stress templates on every A4 sheet but the last: the test squares take no slot', () => {
+    const layout = planPrintLayout(buildStressPattern(1000), { paper: 'a4' });
+    // 100 templates of 4.5 × 3.5 in. (cutting line), four to a sheet: 25 sheets; the bound is 21.
+    expect(layout.templateSheetCount).toBe(25);
+    expect(layout.templateSheetCount).toBeLessThanOrEqual(1.25 * layout.lowerBoundSheets);
+    for (const sheet of layout.sheets.slice(0, -1)) expect(sheet.placements).toHaveLength(4);
+  });
+
+  it('cannot put four stress templates and a 1 in. square on a Letter sheet, and puts three', () => {
+    // Letter less ½ in. margins is 7.5 × 10 in.; four 4.54 × 3.54 in. boxes with 0.1 in. gaps need
+    // 7.18 × 9.18 in. however they are turned, leaving strips 0.32 and 0.82 in. wide — narrower than
+    // the 1 in. square plus its gap (1.1 in.), so a fourth template always costs the test square.
+    const layout = planPrintLayout(buildStressPattern(300), { paper: 'letter' });
+    expect(layout.templateSheetCount).toBe(10);
+    for (const sheet of layout.sheets.slice(0, -1)) expect(sheet.placements).toHaveLength(3);
+  });
+});
+
+describe('every sheet of any set of templates', () => {
+  it('keeps prints and test squares inside the printable area, apart, and off the header text', () => {
+    fc.assert(
+      fc.property(
+        fc.array(templateArb(), { minLength: 1, maxLength: 6 }),
+        fc.constantFrom('letter' as const, 'a4' as const, 'legal' as const),
+        fc.constantFrom(0.25, 0.5, 0.75),
+        fc.boolean(),
+        (shapes, paper, marginIn, mirrored) => {
+          const templates = shapes.map((s, i) => ({ ...s, id: `t${i}`, sectionId: `t${i}`, sectionLabel: String.fromCharCode(65 + i) }));
+          const layout = layoutTemplates(templates, { paper, marginIn, mirrored, tileOverlapIn: 0.5 });
+          expectSound(layout, new Map(templates.map((t) => [t.id, t])));
+          // Every copy placed (whole or as tiles).
+          for (const t of templates) {
+            const copies = new Set(layout.sheets.flatMap((s) => s.placements.filter((p) => p.templateId === t.id).map((p) => p.copy)));
+            expect(copies.size).toBe(t.copies);
+          }
+        },
+      ),
+      { numRuns: 30 },
+    );
+  });
+});
+
+/** The soundness every template sheet must keep (see the describe above). */
+function expectSound(layout: PrintLayout, byId: Map<string, PrintTemplate>): void {
+  for (const sheet of layout.sheets) {
+    const { content, printable, header, testBlock } = sheet.frame;
+    // The block is the two test squares side by side (1 in. and 2 cm) or one above the other.
+    const sides = [testBlock.width, testBlock.height].sort((a, b) => a - b);
+    expect(sides[0]).toBeCloseTo(TEST_BLOCK_IN.height, 9);
+    expect(sides[1]).toBeCloseTo(TEST_BLOCK_IN.width, 9);
+    expect(within(testBlock, printable), `test block of sheet ${sheet.pageNumber} inside the printable area`).toBe(true);
+    // In the header band only at its left end: the header's text is drawn to the right of it.
+    if (testBlock.y < header.y + header.height) expect(testBlock.x).toBeCloseTo(printable.x, 9);
+    const groups: Point[][][] = [[rectRing(testBlock)]];
+    const names = ['test block'];
+    for (const p of sheet.placements) {
+      expect(within(p.rect, content), `${p.sectionLabel}${p.copy} inside the content area`).toBe(true);
+      if (p.caption) expect(within(p.caption.rect, content), `caption of ${p.sectionLabel}${p.copy}`).toBe(true);
+      const cut = byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q));
+      const rings = p.tile ? tileDrawing(p, cut) : [cut];
+      if (!p.tile) {
+        // The real cutting line inside the print's box (which lies inside the content area).
+        for (const q of rings[0]) expect(within({ x: q.x, y: q.y, width: 0, height: 0 }, p.rect), `${p.sectionLabel}${p.copy} cutting line inside its box`).toBe(true);
+      }
+      if (p.caption) rings.push(rectRing(p.caption.rect));
+      groups.push(rings);
+      names.push(`${p.sectionLabel}${p.copy}${p.tile ? ` tile ${p.tile.row},${p.tile.column}` : ''}`);
+    }
+    // At least the gap apart (outlines were simplified within 0.02 in. for the search, so allow that twice).
+    for (let i = 0; i < groups.length; i++) {
+      for (let j = i + 1; j < groups.length; j++) {
+        for (const a of groups[i]) for (const b of groups[j]) expect(separated(a, b, ITEM_GAP_IN - 0.04), `${names[i]} apart from ${names[j]} on sheet ${sheet.pageNumber}`).toBe(true);
+      }
+    }
+  }
+}
+
+function templatesOf(document: PatternDocument): Map<string, PrintTemplate> {
+  return new Map(buildPrintTemplates(document, { foundation: 'paper', copies: 'plan' }).map((t) => [t.id, t]));
+}
+
+/** Random cutting lines: rectangles, triangles, L-shapes and arcs (annular sectors), some larger than a sheet. */
+function templateArb(): fc.Arbitrary<Omit<PrintTemplate, 'id' | 'sectionId' | 'sectionLabel'>> {
+  const rect = fc.record({ w: fc.double({ min: 0.6, max: 16, noNaN: true }), h: fc.double({ min: 0.6, max: 12, noNaN: true }) }).map(({ w, h }) => [
+    { x: 0, y: 0 },
+    { x: w, y: 0 },
+    { x: w, y: h },
+    { x: 0, y: h },
+  ]);
+  const triangle = fc.record({ w: fc.double({ min: 1, max: 8, noNaN: true }), h: fc.double({ min: 1, max: 8, noNaN: true }), t: fc.double({ min: 0, max: 1, noNaN: true }) }).map(({ w, h, t }) => [
+    { x: 0, y: 0 },
+    { x: w, y: 0 },
+    { x: w * t, y: h },
+  ]);
+  const ell = fc.record({ w: fc.double({ min: 2, max: 9, noNaN: true }), arm: fc.double({ min: 0.5, max: 1.8, noNaN: true }) }).map(({ w, arm }) => [
+    { x: 0, y: 0 },
+    { x: w, y: 0 },
+    { x: w, y: arm },
+    { x: arm, y: arm },
+    { x: arm, y: w },
+    { x: 0, y: w },
+  ]);
+  const arc = fc
+    .record({ r: fc.double({ min: 2, max: 12, noNaN: true }), depth: fc.double({ min: 0.8, max: 3, noNaN: true }), sweep: fc.double({ min: 0.3, max: 1.4, noNaN: true }) })
+    .map(({ r, depth, sweep }) => {
+      const n = 12;
+      const outer = Array.from({ length: n + 1 }, (_, k) => polar(r + depth, (sweep * k) / n));
+      const inner = Array.from({ length: n + 1 }, (_, k) => polar(r, (sweep * (n - k)) / n));
+      return [...outer, ...inner];
+    });
+  return fc
+    .record({
+      ring: fc.oneof(rect, triangle, ell, arc),
+      copies: fc.integer({ min: 1, max: 3 }),
+      freeRotation: fc.boolean(),
+    })
+    .map(({ ring, copies, freeRotation }) => ({
+      kind: freeRotation ? ('arc' as const) : ('straight' as const),
+      sewingLine: ring,
+      cuttingLine: ring,
+      seams: [],
+      patches: [],
+      guideLines: [],
+      matchingMarks: [],
+      orientation: { direction: { x: 0, y: -1 }, towards: 'top of block' },
+      freeRotation,
+      copies,
+      areaSqIn: Math.abs(polygonArea(ring)),
+    }));
+}
+
+function polar(r: number, a: number): Point {
+  return { x: r * Math.cos(a), y: r * Math.sin(a) };
+}
+
+function within(r: RectIn, outer: RectIn): boolean {
+  return r.x >= outer.x - 1e-9 && r.y >= outer.y - 1e-9 && r.x + r.width <= outer.x + outer.width + 1e-9 && r.y + r.height <= outer.y + outer.height + 1e-9;
+}
+
+function rectRing(r: RectIn): Point[] {
+  return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
+}
+
