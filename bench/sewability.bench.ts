@@ -119,6 +119,22 @@ function randomGrid(lines: number, rnd: () => number): SewabilityPatch[] {
 
 type FindSewableOrder = typeof findSewableOrder;
 
+/**
+ * Median and largest CPU time of this process over `runs` calls (ms): on a shared machine the wall
+ * time also holds the time other processes had the core; CPU time is the work the call did.
+ */
+function cpuRuns(fn: () => unknown, runs: number): { medianMs: number; maxMs: number } {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const c0 = process.cpuUsage();
+    fn();
+    const c = process.cpuUsage(c0);
+    times.push((c.user + c.system) / 1000);
+  }
+  times.sort((a, b) => a - b);
+  return { medianMs: times[Math.floor(times.length / 2)], maxMs: times[times.length - 1] };
+}
+
 /** The order search of an earlier commit, for a same-run comparison: SEWABILITY_BEFORE=<a worktree of it>. */
 async function loadBefore(): Promise<FindSewableOrder | null> {
   const dir = process.env['SEWABILITY_BEFORE'];
@@ -168,6 +184,8 @@ export default async function sewabilityBench(): Promise<BenchSection> {
     const prepared = preparePatches(patches);
     const all = patches.map((_, i) => i);
     const full = await timeRuns(() => findSewableOrder(patches), 7, 1);
+    const fullCpu = cpuRuns(() => findSewableOrder(patches), 5);
+    const exhaustCpu = cpuRuns(() => new OrderSearch(prepared, undefined, false).search(all), 5);
     const spent = new OrderSearch(prepared);
     spent.search(all);
     const exhaust = await timeRuns(() => new OrderSearch(prepared, undefined, false).search(all), 5, 1);
@@ -177,10 +195,12 @@ export default async function sewabilityBench(): Promise<BenchSection> {
       section: `Y-seam core + ${size - 3} ears, ${size} patches`,
       'median ms': ms(full.medianMs),
       'min–max ms': `${ms(full.minMs)}–${ms(full.maxMs)}`,
+      'CPU median / max ms': `${ms(fullCpu.medianMs)} / ${ms(fullCpu.maxMs)}`,
       verdict: verdictOf(findSewableOrder(patches)),
       'work units': spent.steps,
       'budget spent (no self-blocking check): median ms': ms(exhaust.medianMs),
       'its min–max ms': `${ms(exhaust.minMs)}–${ms(exhaust.maxMs)}`,
+      'its CPU median / max ms': `${ms(exhaustCpu.medianMs)} / ${ms(exhaustCpu.maxMs)}`,
       'its verdict': probed.found ? 'sewable' : probed.limitHit ? 'undecided' : 'unsewable',
     });
   }
@@ -231,7 +251,8 @@ export default async function sewabilityBench(): Promise<BenchSection> {
   const bigPatches = derivePatches(strips).patches;
   const bigSearch = await timeRuns(() => findSewableOrder(bigPatches), 5, 1);
   const bigCheck = await timeRuns(() => checkSewability(bigPatches), 5, 1);
-  rows.push({ section: `findSewableOrder, 500 seams across a 199 in. circle (${bigPatches.length} patches)`, 'median ms': ms(bigSearch.medianMs), 'min–max ms': `${ms(bigSearch.minMs)}–${ms(bigSearch.maxMs)}`, verdict: verdictOf(findSewableOrder(bigPatches)) });
+  const bigCpu = cpuRuns(() => findSewableOrder(bigPatches), 5);
+  rows.push({ section: `findSewableOrder, 500 seams across a 199 in. circle (${bigPatches.length} patches)`, 'median ms': ms(bigSearch.medianMs), 'min–max ms': `${ms(bigSearch.minMs)}–${ms(bigSearch.maxMs)}`, 'CPU median / max ms': `${ms(bigCpu.medianMs)} / ${ms(bigCpu.maxMs)}`, verdict: verdictOf(findSewableOrder(bigPatches)) });
   rows.push({ section: `checkSewability, those ${bigPatches.length} patches`, 'median ms': ms(bigCheck.medianMs), 'min–max ms': `${ms(bigCheck.minMs)}–${ms(bigCheck.maxMs)}`, verdict: checkSewability(bigPatches).sewable ? 'sewable' : 'not sewable' });
   return {
     title: 'Sewability: order search with a work budget',
@@ -242,7 +263,7 @@ export default async function sewabilityBench(): Promise<BenchSection> {
       'One search per call with a work budget counted in units (patches tried + sets expanded, weighted by mask words), not time: the answer is the same on every machine; past the budget it is "undecided", never a guess.',
       'A set holding a self-blocking group (each patch of it meets the others along two lines, or along a line they cross) is ruled out at once; "budget spent" times the search with that check off, so it tries sets until its budget is gone: the slowest path a call can take.',
       'The split advice asks the same search object: the failed search\'s remembered sets, its self-blocking group and its budget carry over.',
-      'Times include preparing the contacts. Medians of 7 runs after 1 warm-up (9 after 2 for the 20-patch cases, 3 per random section); min–max over those runs. The machine is a shared 2-core one: maxima include other processes.',
+      'Times include preparing the contacts. "CPU" is this process\'s CPU time per call (process.cpuUsage), apart from the wall time, which on this shared 2-core machine also holds other processes\' turns. Medians of 7 runs after 1 warm-up (9 after 2 for the 20-patch cases, 3 per random section); min–max over those runs. The machine is a shared 2-core one: maxima include other processes.',
     ],
   };
 }
