@@ -11,8 +11,7 @@
 import { performance } from 'node:perf_hooks';
 import { ms, summarise, type BenchSection } from './bench-kit';
 import { buildOrchardWheel, planPrintLayout } from '../projects/piecing/src/public-api';
-import { buildStressPattern } from '../projects/piecing/src/testing';
-import { clearLayoutCaches } from '../projects/piecing/src/lib/print/plan-print-layout';
+import { buildStressPattern, clearLayoutCaches } from '../projects/piecing/src/testing';
 
 const ROUNDS = 9;
 
