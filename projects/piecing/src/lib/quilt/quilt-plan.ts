@@ -1,5 +1,6 @@
 import type { Fabric, PatternDocument, QuiltLayout } from '../document/pattern-schema';
 import { buildCuttingList } from '../fabrication/cutting-list/build-cutting-list';
+import type { CuttingList } from '../fabrication/cutting-list/cutting-list-types';
 import { planWofStrips } from '../fabrication/cutting-list/wof-strips';
 import { YARDAGE_STEP_IN, roundUpToStep } from '../fabrication/shared/rounding';
 import { blockDrawingBounds, defaultBlockSizeIn, type BlockBounds } from './block-size';
@@ -210,7 +211,7 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
   if (!bindingFabric) problems.push('the binding has no fabric: its yardage is shown apart');
   if (!backingFabric) problems.push('the backing has no fabric: its yardage is shown apart');
 
-  const blockCuttingList = buildCuttingList({ ...doc, blockCount });
+  const blockCuttingList = blockCuttingListFor(doc, blockCount);
   for (const p of blockCuttingList.problems) problems.push(p.message);
 
   const fabrics = doc.fabrics.map((f) =>
@@ -255,6 +256,25 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
     totalYards: cleanLength(totalYards),
     problems,
   };
+}
+
+// The block cutting list is the costly part of a plan (every patch's rough cut); the size chart and a
+// screen that re-plans as the designer types ask for the same few lists again. Documents are treated as
+// immutable: an edit makes a new `sections` array, which misses this cache.
+const cuttingLists = new WeakMap<PatternDocument['sections'], Map<string, CuttingList>>();
+const CUTTING_LISTS_PER_DRAFT = 16;
+
+/** `buildCuttingList` of the document for `blockCount` blocks, remembered per drafting (read-only result). */
+function blockCuttingListFor(doc: PatternDocument, blockCount: number): CuttingList {
+  const key = JSON.stringify([doc.title, doc.fabrics, doc.seamAllowanceIn, doc.piecingMarginIn, blockCount]);
+  let lists = cuttingLists.get(doc.sections);
+  if (!lists) cuttingLists.set(doc.sections, (lists = new Map()));
+  const known = lists.get(key);
+  if (known) return known;
+  const list = buildCuttingList({ ...doc, blockCount });
+  if (lists.size >= CUTTING_LISTS_PER_DRAFT) lists.delete(lists.keys().next().value!);
+  lists.set(key, list);
+  return list;
 }
 
 function fabricNeed(

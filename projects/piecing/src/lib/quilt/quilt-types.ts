@@ -214,7 +214,7 @@ export interface QuiltPlan {
   binding: QuiltBinding;
   backing: QuiltBacking;
   batting: SizeIn;
-  /** The cutting list of the blocks alone, for `blockCount` blocks (the existing planner). */
+  /** The cutting list of the blocks alone, for `blockCount` blocks (the existing planner); shared between plans of one drafting, so read-only. */
   blockCuttingList: CuttingList;
   /** Per fabric, the whole quilt: blocks + setting pieces + borders + binding + backing. */
   fabrics: QuiltFabricNeed[];
