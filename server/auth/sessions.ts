@@ -1,8 +1,9 @@
-import { and, eq, gt, lt, ne, sql } from 'drizzle-orm';
+import type BetterSqlite3 from 'better-sqlite3';
+import { and, eq, lt, ne } from 'drizzle-orm';
 import type { CookieOptions, RequestHandler, Response } from 'express';
 import type { Config } from '../config';
 import type { Db, DbLike } from '../db/database';
-import { sessions, users, type User } from '../db/schema';
+import { sessions, type User } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { hashToken, randomToken } from './tokens';
 
@@ -54,26 +55,29 @@ export function endUserSessions(db: DbLike, userId: string, keepTokenHash?: stri
 
 /** Reads the session cookie and sets `req.user` when it names a live session of an enabled user. */
 export function loadSession(db: Db): RequestHandler {
-  // Runs on every request: prepared once. Placeholders bypass the column's Date mapping, so `now` is in ms.
-  const liveSession = db
-    .select({ user: users })
-    .from(sessions)
-    .innerJoin(users, eq(users.id, sessions.userId))
-    .where(and(eq(sessions.tokenHash, sql.placeholder('tokenHash')), gt(sessions.expiresAt, sql.placeholder('now'))))
-    .prepare();
+  // Runs on every request: one statement prepared once on the connection, the row mapped by hand
+  // (a disabled user's session counts as none, so that row never leaves SQLite).
+  const liveSession = (db as Db & { $client: BetterSqlite3.Database }).$client.prepare<[string, number], UserRow>(
+    `SELECT u.id, u.email, u.display_name AS displayName, u.password_hash AS passwordHash, u.role, u.disabled, u.created_at AS createdAt
+       FROM sessions s JOIN users u ON u.id = s.user_id
+      WHERE s.token_hash = ? AND s.expires_at > ? AND u.disabled = 0`,
+  );
   return (req, _res, next) => {
     const token: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof token === 'string' && token.length > 0 && token.length <= 100) {
       const tokenHash = hashToken(token);
-      const row = liveSession.get({ tokenHash, now: Date.now() });
-      if (row && !row.user.disabled) {
-        req.user = row.user;
+      const row = liveSession.get(tokenHash, Date.now());
+      if (row) {
+        req.user = { ...row, disabled: row.disabled !== 0, createdAt: new Date(row.createdAt) };
         req.sessionTokenHash = tokenHash;
       }
     }
     next();
   };
 }
+
+/** A user row as SQLite gives it (integers for the flag and the time). */
+type UserRow = Omit<User, 'disabled' | 'createdAt'> & { disabled: number; createdAt: number };
 
 /** Answers 401 unless signed in. */
 export const requireUser: RequestHandler = (req, _res, next) => {
