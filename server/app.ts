@@ -26,6 +26,9 @@ export function createApp(ctx: AppContext): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.set('query parser', 'simple');
+  // No ETag hash of every JSON answer: API answers are Cache-Control: no-store (the built app's files
+  // get theirs from express.static, which does not use this setting).
+  app.set('etag', false);
   app.use(securityHeaders());
 
   const csrf = createCsrf(ctx.config);
