@@ -25,8 +25,8 @@ const userId = sql.placeholder('userId');
 const like = sql.placeholder('like');
 
 /**
- * The patterns list is the busiest read after opening a pattern: its two statements (the page and the
- * count) are built and prepared once per database handle for each scope, sort, order and whether
+ * The patterns list is the busiest read after opening a pattern: its two statements (the page, which
+ * carries the total, and the count alone for a page past the end) are built and prepared once per database handle for each scope, sort, order and whether
  * there is a search, then run with the user, search words, limit and offset bound.
  */
 const listStatements = preparedPerDb((db) => {
@@ -49,7 +49,7 @@ const listStatements = preparedPerDb((db) => {
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
       page: db
-        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access })
+        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access, total: sql<number>`count(*) OVER ()` })
         .from(patterns)
         .leftJoin(members, membership)
         .innerJoin(users, eq(users.id, patterns.ownerId))
@@ -169,8 +169,10 @@ function listItem(pattern: Pattern, ownerName: string, access: Access, preview: 
 export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
   const statements = listStatements(db)(q.scope, q.sort, q.order, Boolean(q.q));
   const params = { userId: user.id, like: q.q ? likeContains(q.q) : '' };
-  const total = statements.total.get(params)?.n ?? 0;
   const rows = statements.page.all({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  // The page carries the count over every row in scope (a window over the whole result, taken
+  // before LIMIT); only a page past the end needs the count on its own.
+  const total = rows.length > 0 ? rows[0].total : q.page > 1 ? (statements.total.get(params)?.n ?? 0) : 0;
   const previews = new Map(
     rows.length === 0 ? [] : previewStatements(db).forPage.all({ ids: JSON.stringify(rows.map((r) => r.pattern.id)) }).map((p) => [p.patternId, p]),
   );
