@@ -61,8 +61,9 @@ export function settingTriangleCuts(blockSideIn: number, columns: number, rows: 
  * strip of strips across the WOF joined end to end: ceil(total / usable WOF) strips, strips − 1 joins.
  */
 export function borderCuts(inner: SizeIn, widthIn: number, allowanceIn: number, usableWofIn: number) {
-  const sideCutLengthIn = cleanLength(inner.height + 2 * allowanceIn);
-  const topCutLengthIn = cleanLength(inner.width + 2 * widthIn + 2 * allowanceIn);
+  // Cut lengths round up to ⅛ in. (an on-point centre measures an irrational length).
+  const sideCutLengthIn = roundUpToEighthInch(cleanLength(inner.height + 2 * allowanceIn));
+  const topCutLengthIn = roundUpToEighthInch(cleanLength(inner.width + 2 * widthIn + 2 * allowanceIn));
   const totalLengthIn = cleanLength(2 * sideCutLengthIn + 2 * topCutLengthIn);
   const strips = Math.ceil(totalLengthIn / usableWofIn - 1e-9);
   return { cutWidthIn: cleanLength(widthIn + 2 * allowanceIn), sideCutLengthIn, topCutLengthIn, totalLengthIn, strips, joins: Math.max(0, strips - 1) };
@@ -71,7 +72,7 @@ export function borderCuts(inner: SizeIn, widthIn: number, allowanceIn: number, 
 /** Binding (design §11, common practice): ceil((perimeter + extra) / usable WOF) strips of the strip width. */
 export function bindingCuts(finished: SizeIn, stripWidthIn: number, extraIn: number, usableWofIn: number) {
   const perimeterIn = cleanLength(2 * (finished.width + finished.height));
-  const lengthIn = cleanLength(perimeterIn + extraIn);
+  const lengthIn = roundUpToEighthInch(cleanLength(perimeterIn + extraIn));
   const strips = Math.ceil(lengthIn / usableWofIn - 1e-9);
   return { perimeterIn, lengthIn, strips, yards: yardsToBuy(strips * stripWidthIn) };
 }
@@ -84,8 +85,9 @@ export function bindingCuts(finished: SizeIn, stripWidthIn: number, extraIn: num
  * backing there is no seam.
  */
 export function backingCuts(finished: SizeIn, marginIn: number, usableWofIn: number) {
-  const widthIn = cleanLength(finished.width + 2 * marginIn);
-  const heightIn = cleanLength(finished.height + 2 * marginIn);
+  // Rounded up to ⅛ in.: a backing a hair larger is harmless, and an on-point quilt's size is irrational.
+  const widthIn = roundUpToEighthInch(cleanLength(finished.width + 2 * marginIn));
+  const heightIn = roundUpToEighthInch(cleanLength(finished.height + 2 * marginIn));
   const down = { widths: Math.ceil(widthIn / usableWofIn - 1e-9), widthLengthIn: heightIn, seams: 'lengthwise' as BackingSeams };
   const across = { widths: Math.ceil(heightIn / usableWofIn - 1e-9), widthLengthIn: widthIn, seams: 'across' as BackingSeams };
   let best = down.widths * down.widthLengthIn <= across.widths * across.widthLengthIn ? down : across;

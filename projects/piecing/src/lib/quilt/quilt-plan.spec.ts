@@ -130,6 +130,10 @@ describe('quiltPlan', () => {
     expect(plan.cells).toHaveLength(18);
     expect(quiltCliJson(plan).settingTriangles).toEqual({ sideCutSquareIn: 15.5, sideSquares: 3, cornerCutSquareIn: 8, cornerSquares: 2 });
     expect(plan.settingTrianglePolygons).toHaveLength(10 + 4);
+    // Border cut lengths round up to ⅛ in.: sides 4d + ½ = 57.069 in. → 57⅛ in.; top and bottom 3d + 6 + ½ = 48.926 in. → 49 in.
+    expect(plan.borders[0]).toMatchObject({ sides: { cutLengthIn: 57.125 }, topAndBottom: { cutLengthIn: 49 } });
+    // Backing 48.426 + 8 → 56½ in. (rounded up to ⅛ in.) by 62.569 + 8 → 70⅝ in.
+    expect(plan.backing).toMatchObject({ widthIn: 56.5, heightIn: 70.625 });
     // The setting-triangle squares are cut from Sage on WOF strips: 3 squares of 15½ in. (2 per 42 in. strip) and 2 of 8 in.
     const sage = plan.fabrics.find((f) => f.id === 'sage');
     expect(sage?.settingPieces.map((g) => [g.widthIn, g.count, g.stripCount])).toEqual([

@@ -68,7 +68,8 @@ export function bookletQuilt(ctx: Pick<BookletContext, 'document' | 'options'>):
 /** "66 × 66 in. (167.6 × 167.6 cm)" */
 export function quiltSizeText(size: { width: number; height: number }): string {
   const cm = (v: number) => String(Math.round(v * 2.54 * 10) / 10); // 1 in. = 2.54 cm exactly
-  const inch = (v: number) => fmtIn(Math.round(v * 1000) / 1000);
+  // To the nearest ⅛ in. (an on-point quilt's size is irrational).
+  const inch = (v: number) => fmtIn(Math.round(v * 8) / 8);
   return `${inch(size.width)} × ${inch(size.height)} in. (${cm(size.width)} × ${cm(size.height)} cm)`;
 }
 
@@ -84,7 +85,7 @@ export function sizeChartTable(chart: readonly QuiltSizeRow[], chosen: string | 
     header: ['Size', 'Finished', 'Blocks', ...fabrics.map((f) => f.name)],
     rows: chart.map((r) => [
       r.name === chosen ? `${r.name} (this set)` : r.name,
-      `${fmtIn(Math.round(r.finishedSizeIn.width * 1000) / 1000)} × ${fmtIn(Math.round(r.finishedSizeIn.height * 1000) / 1000)} in.`,
+      `${fmtIn(Math.round(r.finishedSizeIn.width * 8) / 8)} × ${fmtIn(Math.round(r.finishedSizeIn.height * 8) / 8)} in.`,
       String(r.blockCount),
       ...r.fabrics.map((f) => (f.yards > 0 ? fmtIn(f.yards) : '—')),
     ]),
@@ -259,8 +260,8 @@ export function assemblySteps(plan: QuiltPlan): string[] {
   for (const b of plan.borders) {
     steps.push(
       `Border ${b.index} (${name(b.fabricId)}, ${fmtIn(b.widthIn)} in. finished): join the ${b.strips} strips end to end. ` +
-        `Measure the quilt top through its centre from top to bottom (it should be ${fmtIn(round3(b.innerSizeIn.height + 0.5))} in. raw), cut two strips that long and sew them to the sides first; press toward the border. ` +
-        `Then measure through the centre from side to side (${fmtIn(round3(b.innerSizeIn.width + 2 * b.widthIn + 0.5))} in. raw) and cut and sew the top and bottom strips. ` +
+        `Measure the quilt top through its centre from top to bottom (it should be about ${fmtIn(b.sides.cutLengthIn)} in. raw), cut two strips that long and sew them to the sides first; press toward the border. ` +
+        `Then measure through the centre from side to side (about ${fmtIn(b.topAndBottom.cutLengthIn)} in. raw) and cut and sew the top and bottom strips. ` +
         'Measuring through the centre, not along the edges, keeps the borders flat.',
     );
   }
