@@ -58,6 +58,10 @@ export function scalePattern(document: PatternDocument, factor: number): Pattern
     canvas: scaleLengths(document.canvas, factor),
     sections: document.sections.map((s) => scaleSection(s, factor)),
     ...(document.referenceImage ? { referenceImage: scaleLengths(document.referenceImage, factor) } : {}),
+    // A block size the quilt layout sets is the block's: it scales with it (sashing and borders do not).
+    ...(document.quilt?.blockSizeIn
+      ? { quilt: { ...document.quilt, blockSizeIn: { width: document.quilt.blockSizeIn.width * factor, height: document.quilt.blockSizeIn.height * factor } } }
+      : {}),
   };
 }
 

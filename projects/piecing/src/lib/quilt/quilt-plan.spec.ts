@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { EXAMPLE_NAMES, exampleJson, sampleBlock } from '../../../../../tests/fixtures/documents';
 import { parsePatternDocument, readPatternDocument } from '../document/parse-pattern';
+import { scalePattern } from '../document/scale-pattern';
 import type { PatternDocument, QuiltLayoutInput } from '../document/pattern-schema';
 import { buildCuttingList } from '../fabrication/cutting-list/build-cutting-list';
 import { applyColourway } from './colourway';
@@ -216,6 +217,15 @@ describe('quiltPlan', () => {
 
   it('defaultBlockSizeIn is the bounding box of the sewing lines', () => {
     expect(defaultBlockSizeIn(quiltDoc(7, { columns: 1, rows: 1 }))).toEqual({ width: 7, height: 7 });
+  });
+
+  it('resizing the design scales a block size the layout sets, not its sashing or borders', () => {
+    const doc = quiltDoc(10, { ...straight, blockSizeIn: { width: 10, height: 10 } });
+    const resized = scalePattern(doc, 1.2);
+    expect(resized.quilt?.blockSizeIn).toEqual({ width: 12, height: 12 });
+    expect(resized.quilt?.sashing?.widthIn).toBe(2);
+    // 4·12 + 3·2 + 12 = 66 in. across (standard arithmetic).
+    expect(quiltPlan(resized).finishedSizeIn.width).toBe(66);
   });
 });
 
