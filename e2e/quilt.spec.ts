@@ -40,6 +40,7 @@ test('designer sets a block into a 4 × 5 quilt with colourways and sizes; the q
   const designerCtx = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
   const page = await designerCtx.newPage();
   await new AuthPage(page).signUp(designer);
+  await expect(page.getByRole('button', { name: 'Account menu' })).toBeVisible();
   const id = await createSamplePattern(page, title);
 
   // --- The Quilt tab: one block until the designer sets it into a quilt.
@@ -111,6 +112,7 @@ test('designer sets a block into a 4 × 5 quilt with colourways and sizes; the q
   await q.goto(acceptLink);
   await q.getByRole('link', { name: 'Create an account' }).click();
   await new AuthPage(q).signUp(quilter, new URL(acceptLink).pathname + new URL(acceptLink).search);
+  await expect(q.getByRole('button', { name: 'Accept and open the pattern' })).toBeVisible();
   await q.getByRole('button', { name: 'Accept and open the pattern' }).click();
   await q.waitForURL(new RegExp(`/patterns/${id}/board$`));
   await q.goto(`/patterns/${id}/quilt`);

@@ -38,7 +38,7 @@ export function readQuiltNumber(text: string, kind: 'length' | 'count', min: num
       @if (error(); as e) { <mat-hint class="error" role="alert">{{ e }}</mat-hint> }
     </mat-form-field>
   `,
-  styles: `:host { display: block; } mat-form-field { width: 100%; } .error { color: var(--mat-sys-error); }`,
+  styles: `:host { display: block; min-width: 0; } mat-form-field { width: 100%; } :host ::ng-deep .mat-mdc-form-field-infix { width: auto; min-width: 0; } .error { color: var(--mat-sys-error); }`,
 })
 export class QuiltNumberFieldComponent {
   readonly label = input.required<string>();
