@@ -1,8 +1,8 @@
 import { cleanRing } from '../geometry/clean-ring';
-import { distanceToEdge, flattenStraightEdges, hasCurvedEdges, sectionEdges, straightSectionSignedArea, type SectionEdge } from '../geometry/curved-edge';
+import { bulgeOf, distanceToEdge, flattenStraightEdges, hasCurvedEdges, sectionEdges, straightSectionSignedArea, type SectionEdge } from '../geometry/curved-edge';
 import { polygonArea } from '../geometry/polygon';
 import { checkSelfCrossing, type SelfCrossing } from '../geometry/self-crossing';
-import { formatPoint } from '../geometry/vector';
+import { distance, formatPoint } from '../geometry/vector';
 import { GEOMETRY_EPSILON_IN, MIN_PATCH_AREA_SQ_IN } from '../tolerance';
 // pattern-schema.ts imports this module too; MAX_SIZE_IN is read only inside functions, so the cycle is harmless.
 import { MAX_SIZE_IN, type Point, type Section, type StraightGeometry } from './pattern-schema';
@@ -86,18 +86,20 @@ export function validateSectionGeometry(
  * lacks area. A crossing is reported with its point and the document edges that meet there.
  */
 function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | number>, budget: CrossingBudget): GeometryIssue[] {
-  const edges = sectionEdges(geometry);
+  // The edge objects (exact arcs) are made only for a message; the checks run on the vertices.
+  const { vertices } = geometry;
+  const n = vertices.length;
   const issues: GeometryIssue[] = [];
-  for (const edge of edges) {
-    if (edge.bulge !== 0 && !edge.arc) {
-      issues.push({ path: [...path, 'bulges', edge.index], message: `edge ${edge.index} has no length (both ends at ${formatPoint(edge.from)}), so it cannot curve` });
+  for (let i = 0; i < n; i++) {
+    if (bulgeOf(geometry, i) !== 0 && !(distance(vertices[i], vertices[(i + 1) % n]) > GEOMETRY_EPSILON_IN)) {
+      issues.push({ path: [...path, 'bulges', i], message: `edge ${i} has no length (both ends at ${formatPoint(vertices[i])}), so it cannot curve` });
     }
   }
   if (issues.length > 0) return issues;
   const points = flattenStraightEdges(geometry);
   const far = points.find((p) => Math.abs(p.x) > MAX_SIZE_IN || Math.abs(p.y) > MAX_SIZE_IN);
   if (far) {
-    const edge = nearestEdge(edges, far);
+    const edge = nearestEdge(sectionEdges(geometry), far);
     return [{ path: [...path, 'bulges', edge.index], message: `${describeEdge(edge)} reaches ${formatPoint(far)}, beyond the ±${MAX_SIZE_IN} in. limit` }];
   }
   const ring = cleanRing(points);
@@ -105,8 +107,9 @@ function validateCurvedOutline(geometry: StraightGeometry, path: Array<string | 
   if (check === 'too-intricate') return [{ path: [...path, 'vertices'], message: TOO_INTRICATE }];
   const crossing = check;
   if (crossing) {
-    const n = ring.length;
-    const chordMid = (i: number) => ({ x: (ring[i].x + ring[(i + 1) % n].x) / 2, y: (ring[i].y + ring[(i + 1) % n].y) / 2 });
+    const edges = sectionEdges(geometry);
+    const m = ring.length;
+    const chordMid = (i: number) => ({ x: (ring[i].x + ring[(i + 1) % m].x) / 2, y: (ring[i].y + ring[(i + 1) % m].y) / 2 });
     const a = nearestEdge(edges, chordMid(crossing.edgeA));
     const b = nearestEdge(edges, chordMid(crossing.edgeB));
     const meets = a.index === b.index ? 'meets itself' : `meets ${describeEdge(b)}`;

@@ -89,12 +89,23 @@ export function hasCurvedEdges(geometry: Pick<StraightGeometry, 'vertices' | 'bu
  * like arc sections. Points on curves lie on the exact arcs.
  */
 export function flattenStraightEdges(geometry: Pick<StraightGeometry, 'vertices' | 'bulges'>, toleranceIn = CHORD_TOLERANCE_IN): Point[] {
+  // One pass over the vertices, with no edge objects: a save checks outlines of thousands of edges.
+  const { vertices } = geometry;
+  const n = vertices.length;
   const out: Point[] = [];
-  for (const edge of sectionEdges(geometry)) {
-    out.push({ x: edge.from.x, y: edge.from.y });
-    if (!edge.arc) continue;
-    const { centre, radiusIn, startRad, sweepRad } = edge.arc;
-    const points = flattenArc(centre, radiusIn, startRad, sweepRad, toleranceIn);
+  for (let index = 0; index < n; index++) {
+    const from = vertices[index];
+    out.push({ x: from.x, y: from.y });
+    const bulge = bulgeOf(geometry, index);
+    if (bulge === 0) continue;
+    const to = vertices[(index + 1) % n];
+    const c = distance(from, to);
+    if (!(c > GEOMETRY_EPSILON_IN)) continue;
+    // A curve whose sagitta (c·|b|/2, see edgeArc) is clearly within the tolerance is one chord: no
+    // points between (arcSegmentCount gives 1). Near the bound, flattenArc decides.
+    if ((c * Math.abs(bulge)) / 2 < toleranceIn * 0.999) continue;
+    const arc = edgeArc(from, to, bulge)!;
+    const points = flattenArc(arc.centre, arc.radiusIn, arc.startRad, arc.sweepRad, toleranceIn);
     // The first and last points are the edge's vertices, kept exact from the document.
     for (let k = 1; k < points.length - 1; k++) out.push(points[k]);
   }
@@ -120,11 +131,19 @@ export function circularSegmentSignedArea(arc: Pick<EdgeArc, 'radiusIn' | 'sweep
  * towards +y (clockwise on screen).
  */
 export function straightSectionSignedArea(geometry: Pick<StraightGeometry, 'vertices' | 'bulges'>): number {
+  const { vertices } = geometry;
+  const n = vertices.length;
   let twice = 0;
   let segments = 0;
-  for (const edge of sectionEdges(geometry)) {
-    twice += edge.from.x * edge.to.y - edge.to.x * edge.from.y;
-    if (edge.arc) segments += circularSegmentSignedArea(edge.arc);
+  for (let index = 0; index < n; index++) {
+    const from = vertices[index];
+    const to = vertices[(index + 1) % n];
+    twice += from.x * to.y - to.x * from.y;
+    const bulge = bulgeOf(geometry, index);
+    if (bulge === 0) continue;
+    const c = distance(from, to);
+    // The arc's radius and sweep as edgeArc gives them, without its centre and start angle.
+    if (c > GEOMETRY_EPSILON_IN) segments += circularSegmentSignedArea({ radiusIn: (c * (1 + bulge * bulge)) / (4 * Math.abs(bulge)), sweepRad: bulgeToSweepRad(bulge) });
   }
   return twice / 2 + segments;
 }
