@@ -111,7 +111,8 @@ export function packSheets<T>(
           for (const block of quick ? QUICK_BLOCK_MODES : BLOCK_MODES) {
             const tried = packOne(remaining, frame, logic, block, stand);
             if (!tried) continue;
-            const area = tried.placed.reduce((s, p) => s + (p.item.areaSqIn ?? p.width * p.height), 0);
+            // Ranked by the box area placed (the gaps are filled by outlines afterwards).
+            const area = tried.placed.reduce((s, p) => s + p.width * p.height, 0);
             tries.push({ frame, tried, area });
             // Everything left fits this sheet, test block included: no try can do better.
             if ('block' in tried && tried.placed.length === remaining.length && variant === whole) break search;
