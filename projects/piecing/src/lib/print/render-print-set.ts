@@ -60,7 +60,7 @@ export type PrintProgress = (done: number, total: number) => void;
  */
 export function planPrintLayout(document: PatternDocument, options: PrintOptionsInput = {}): PrintLayout {
   const opts = printOptionsSchema.parse(options);
-  return layoutTemplates(buildPrintTemplates(document, opts), opts);
+  return layoutTemplates(buildPrintTemplates(quiltPrintDocument(document, opts), opts), opts);
 }
 
 /** One page's header: subtitle, the sections it is about, and for template sheets the sheet plan. */
