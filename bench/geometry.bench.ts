@@ -14,6 +14,7 @@
  * Targets: offsets ≥ 1.5× faster than jsts on shapes inside the limit; cutting list < 200 ms. Nothing
  * here fails on a time.
  */
+import os from 'node:os';
 import { loadNativeClipperLibInstanceAsync, NativeClipperLibRequestedFormat, JoinType, EndType, type ClipperLibWrapper } from 'js-angusj-clipper';
 import type { Point } from '../projects/piecing/src/public-api';
 import { buildCuttingList, flattenSectionOutline, polygonArea } from '../projects/piecing/src/public-api';
@@ -118,6 +119,7 @@ function areaDisagreement(a: Point[][], b: Point[][]): number {
 const pct = (v: number) => `${(v * 100).toFixed(v < 0.001 ? 4 : 2)} %`;
 
 export default async function geometryBench(): Promise<BenchSection> {
+  const loadBefore = os.loadavg()[0];
   const clipper = await loadNativeClipperLibInstanceAsync(NativeClipperLibRequestedFormat.WasmWithAsmJsFallback);
   const params = jstsBufferParameters('mitre', MITRE_LIMIT);
   const allQuads = quads(COUNT);
@@ -181,6 +183,7 @@ export default async function geometryBench(): Promise<BenchSection> {
   const list = buildCuttingList(pattern);
   const cutting = await timeRuns(() => buildCuttingList(pattern), 9, 2);
   rows.push({ shapes: `cutting list, ${list.patches.length.toLocaleString('en')} patches in ${pattern.sections.length} sections`, variant: 'clipper-lib', rounds: 9, 'median ms': ms(cutting.medianMs), 'min–max ms': `${ms(cutting.minMs)}–${ms(cutting.maxMs)}` });
+  notes.push(`Machine load average (1 min) ${loadBefore.toFixed(1)} before and ${os.loadavg()[0].toFixed(1)} after on ${os.cpus().length} cores: load lengthens every time; the interleaved rounds keep the ratios comparable.`);
   notes.push(`Cutting list of a 1,000-patch pattern: median ${ms(cutting.medianMs)} ms, p95 ${ms(cutting.p95Ms)} ms (target < 200 ms), splitting the sections into patches included.`);
   return { title: 'Geometry: seam-allowance offsets (clipper-lib, jsts, js-angusj-clipper) and the cutting list', rows, notes };
 }

@@ -22,6 +22,8 @@ const machine = {
   platform: `${os.platform()} ${os.release()} ${os.arch()}`,
   cpus: `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown'}`,
   memoryGiB: Math.round(os.totalmem() / 2 ** 30),
+  /** Load average (1, 5, 15 min) when the run started: other work on the machine slows every figure. */
+  loadAverage: os.loadavg().map((l) => Number(l.toFixed(1))),
 };
 
 const sections: Array<BenchSection & { file: string; seconds: number; error?: string }> = [];
@@ -52,8 +54,8 @@ function table(rows: BenchSection['rows']): string {
 const md = [
   '# Seamwright benchmarks',
   '',
-  `Measured ${machine.date} on ${machine.cpus}, ${machine.memoryGiB} GiB, ${machine.platform}, Node ${machine.node}.`,
-  'Figures are medians of several runs unless a column says otherwise; ratios are measured in the same run.',
+  `Measured ${machine.date} on ${machine.cpus}, ${machine.memoryGiB} GiB, ${machine.platform}, Node ${machine.node}; load average ${machine.loadAverage.join(' / ')} at the start (${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} at the end).`,
+  'Figures are medians of several runs unless a column says otherwise. Comparisons run interleaved in rounds (A B C, A B C, …) in the same run; a ratio column gives the median of the per-round ratios and their min–max.',
   '',
   ...sections.flatMap((s) => [
     `## ${s.title}`,
