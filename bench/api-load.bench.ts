@@ -274,7 +274,7 @@ export default async function apiLoad(): Promise<BenchSection> {
         'bare / express: bench/bare-api-server.ts on the same SQLite file — session cookie lookup, access (404 to strangers), CSRF header on writes, the document through the piecing library\'s parsePatternDocument, one immediate transaction per save; no security headers, no rate limits, no other routes.',
         `Saves: ${saved2xx} answered 2xx over all servers in the timed rounds (Seamwright ${savedByProduct.join(' + ')}), ${stored} revisions stored in all (warm-ups included); ${conflicts} answered 409 (a save cut off when a run stopped leaves its pattern's head unseen).`,
         `Rounds: ${ROUNDS}; in each, every scenario runs against the three servers in turn, the order turning each round. Ratios are per round (median, min–max, then each round's).`,
-        `Server: NODE_ENV=production, one process each, SQLite WAL, synchronous=NORMAL. Load average (1/5/15 min) at the end: ${load} on ${os.cpus().length} cores — other work on the machine lowers req/s and raises latency, not CPU per request.`,
+        `Server: NODE_ENV=production, one process each, SQLite WAL, synchronous=NORMAL. Load average (1/5/15 min) at the end: ${load} on ${os.cpus().length} cores — other work on the machine lowers req/s and raises latency, and (less) CPU per request too, which is why only same-round ratios are compared.`,
         'Latency percentiles are autocannon\'s (HdrHistogram) per run. cpu_ms_per_req: CPU time of the server process (user + system, every thread) over the run, divided by the answers.',
       ],
     };
