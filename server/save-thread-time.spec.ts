@@ -12,6 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { largestDocument } from '../tests/fixtures/largest-document';
 import { HttpError } from './http/errors';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { checkDocumentBody } from './validation/document-body';
 import { validDocument } from './validation/valid-document';
 
 let t: TestServer;
@@ -90,10 +91,18 @@ describe('saving the largest valid document', () => {
     expect(res.status, res.body.toString().slice(0, 300)).toBe(200);
     expect(JSON.parse(res.body.toString()).pattern.headRevision).toBe(3);
     const maxBlockedMs = delay.max / 1e6;
+    // What the old route would have blocked this thread for, measured now, on the same machine under the
+    // same load: parsing and checking the body here (the database write not even counted).
+    const inlineStarted = performance.now();
+    checkDocumentBody('save', JSON.parse(text) as unknown);
+    const inlineMs = performance.now() - inlineStarted;
     // The target is 100 ms of request-thread time (issue 15); the bound asserted is generous because CI
-    // shares 2 cores between the worker thread doing the check, this thread and the rest of the suite,
-    // so the thread is sometimes simply not scheduled. Checking inline blocks it for seconds (1.5–7 s).
-    expect(maxBlockedMs, `longest event-loop stall ${maxBlockedMs.toFixed(0)} ms during a ${saveMs.toFixed(0)} ms save`).toBeLessThan(500);
+    // shares 2 cores between the worker thread doing the check, this thread and the rest of the suite, so
+    // the thread is sometimes simply not scheduled (and this thread's own test data is collected). On a
+    // machine so loaded that the check alone takes seconds, the bound grows to a quarter of the inline
+    // time: checking inline stalls the loop for all of it (1.5–7 s seen), so it still fails.
+    const bound = Math.max(500, inlineMs / 4);
+    expect(maxBlockedMs, `longest event-loop stall ${maxBlockedMs.toFixed(0)} ms during a ${saveMs.toFixed(0)} ms save (inline check ${inlineMs.toFixed(0)} ms)`).toBeLessThan(bound);
     // Health answered all along, each answer well under a second, while the save took its time.
     expect(healthMs.length).toBeGreaterThanOrEqual(Math.min(5, Math.floor(saveMs / 200)));
     expect(Math.max(...healthMs)).toBeLessThan(1000);
