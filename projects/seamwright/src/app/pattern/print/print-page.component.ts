@@ -137,7 +137,7 @@ export class PrintPageComponent implements OnInit {
     inject(DestroyRef).onDestroy(() => this.follow?.unsubscribe());
     // Every change of the document or the form asks for a plan; a burst of changes asks once, after
     // it settles, and a newer request drops the answer of an older one (switchMap unsubscribes it).
-    combineLatest([toObservable(this.ctx.document), this.form.valueChanges.pipe(startWith(null))])
+    combineLatest([toObservable(this.ctx.document), this.form.valueChanges.pipe(startWith(null)), toObservable(this.quiltOptions)])
       .pipe(
         map(([doc]) => this.previewRequest(doc)),
         tap(() => this.planning.set(true)),
@@ -155,7 +155,7 @@ export class PrintPageComponent implements OnInit {
   private previewRequest(doc: PatternDocument | null): Omit<PreviewRequest, 'id'> | null {
     if (!doc || this.form.invalid) return null;
     const v = this.form.getRawValue();
-    return { document: doc, options: printOptions(v), pressingsPerTemplate: v.pressingsPerTemplate, sheetsShown: PREVIEW_SHEETS };
+    return { document: doc, options: { ...printOptions(v), ...this.quiltOptions() }, pressingsPerTemplate: v.pressingsPerTemplate, sheetsShown: PREVIEW_SHEETS };
   }
 
   ngOnInit(): void {
