@@ -26,7 +26,7 @@ const envSchema = z.object({
   MAIL_INBOX_URL: z.url().default('http://127.0.0.1:1080'),
   /** Secret for CSRF tokens; a random one per start when unset (tokens then end with the process). */
   SEAMWRIGHT_SECRET: z.string().min(32).optional(),
-  JSON_BODY_LIMIT: z.string().regex(/^\d+(kb|mb)$/).default('5mb'),
+  JSON_BODY_LIMIT: z.string().regex(/^\d+(kb|mb)$/).default('8mb'),
   SESSION_DAYS: intFromEnv(14, 1, 365),
   /** Failed sign-ins allowed per account / per address in the window. */
   SIGNIN_LIMIT_PER_ACCOUNT: intFromEnv(10, 1),

@@ -55,7 +55,7 @@ describe('hostile input', () => {
   });
 
   it('answers a huge body with 413 and stores nothing', async () => {
-    const doc = { ...sampleDocument(), sections: [], padding: 'x'.repeat(6 * 1024 * 1024) };
+    const doc = { ...sampleDocument(), sections: [], padding: 'x'.repeat(9 * 1024 * 1024) };
     const res = await owner.put(`/api/patterns/${id}`, { baseRevision: 1, document: doc });
     expectCleanError(res, 413);
     const read = await owner.get(`/api/patterns/${id}`).expect(200);
