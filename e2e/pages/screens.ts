@@ -29,6 +29,7 @@ export const SCREENS: Record<Viewer, Screen[]> = {
     { name: 'board', path: '/patterns/{id}/board', board: true },
     { name: 'cutting list', path: '/patterns/{id}/cutting' },
     { name: 'print', path: '/patterns/{id}/print' },
+    { name: 'quilt', path: '/patterns/{id}/quilt' },
     { name: 'sewing log', path: '/patterns/{id}/sewing-log' },
     { name: 'history', path: '/patterns/{id}/history' },
     { name: 'share', path: '/patterns/{id}/share' },
