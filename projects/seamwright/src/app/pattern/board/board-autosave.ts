@@ -46,6 +46,21 @@ export class BoardAutosave {
   readonly lastSavedRevision = signal(0);
   /** Whether edits exist that the server does not hold. */
   readonly dirty = computed(() => this.status() !== 'saved');
+  /** The save state in words, for the status line of every page that saves through this autosave. */
+  readonly statusText = computed(() => {
+    switch (this.status()) {
+      case 'saved':
+        return `All changes saved · revision ${this.lastSavedRevision()}`;
+      case 'pending':
+        return 'Unsaved changes — saving shortly';
+      case 'saving':
+        return 'Saving…';
+      case 'conflict':
+        return 'Not saved: someone else saved first';
+      case 'error':
+        return 'Not saved — a copy is kept in this browser';
+    }
+  });
 
   constructor(private readonly onSaved: (document: PatternDocument, revision: number, settled: boolean) => void) {
     this.sub = this.edits.pipe(debounceTime(AUTOSAVE_DELAY_MS)).subscribe(() => this.flush());

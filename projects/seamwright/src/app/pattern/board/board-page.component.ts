@@ -49,20 +49,7 @@ export class BoardPageComponent implements HasUnsavedChanges {
   /** A drawing kept in this browser from an earlier visit that never reached the server. */
   protected readonly leftover = signal<DraftBackup | null>(null);
   protected readonly readOnly = computed(() => !this.ctx.canEdit());
-  protected readonly statusText = computed(() => {
-    switch (this.autosave.status()) {
-      case 'saved':
-        return `All changes saved · revision ${this.autosave.lastSavedRevision()}`;
-      case 'pending':
-        return 'Unsaved changes — saving shortly';
-      case 'saving':
-        return 'Saving…';
-      case 'conflict':
-        return 'Not saved: someone else saved first';
-      case 'error':
-        return 'Not saved — a copy is kept in this browser';
-    }
-  });
+  protected readonly statusText = this.autosave.statusText;
 
   constructor() {
     // Take the server's document whenever a revision is loaded from outside the board (first load, reload).

@@ -86,20 +86,7 @@ export class QuiltPageComponent implements HasUnsavedChanges {
     const p = this.plan();
     return p ? `Quilt picture, ${this.inches(p.finishedSizeIn.width)} × ${this.inches(p.finishedSizeIn.height)}` : 'Quilt picture';
   });
-  protected readonly statusText = computed(() => {
-    switch (this.autosave.status()) {
-      case 'saved':
-        return `All changes saved · revision ${this.autosave.lastSavedRevision()}`;
-      case 'pending':
-        return 'Unsaved changes — saving shortly';
-      case 'saving':
-        return 'Saving…';
-      case 'conflict':
-        return 'Not saved: someone else saved first';
-      case 'error':
-        return 'Not saved — a copy is kept in this browser';
-    }
-  });
+  protected readonly statusText = this.autosave.statusText;
 
   constructor() {
     // Take the server's document whenever a revision arrives from outside this tab (first load, reload).
