@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { MEMBER_ACCESS, ORDER_STATUSES, PRINT_SET_STATUSES, ROLES, SEWING_STAGES, SHOP_CURRENCIES } from '@seamwright/api';
+import type { ListingQuiltPicture, ListingQuiltSize } from '../shop/listing-quilt';
 
 /** Roles, member access, sewing stages and print-set states: the API contract's lists (docs/api.md). */
 export { MEMBER_ACCESS, PRINT_SET_STATUSES, ROLES, SEWING_STAGES } from '@seamwright/api';
@@ -285,6 +286,12 @@ export const shopListings = sqliteTable('shop_listings', {
   finishedWidthIn: real('finished_width_in'),
   finishedHeightIn: real('finished_height_in'),
   previewSvg: text('preview_svg'),
+  /**
+   * The quilt layout's size chart and one small SVG quilt picture per colourway (the pattern's own
+   * fabrics first), written with the facts above (design §11); null when the pattern has no quilt.
+   */
+  quiltSizes: text('quilt_sizes', { mode: 'json' }).$type<ListingQuiltSize[]>(),
+  quiltPictures: text('quilt_pictures', { mode: 'json' }).$type<ListingQuiltPicture[]>(),
 });
 
 /** One purchase of a pattern: a checkout session at the payment provider and what came of it. */

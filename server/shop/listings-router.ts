@@ -9,7 +9,7 @@ import { likeContains } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign, resolvePatternAccess } from '../services/access';
 import { findListing, listingFacts, listingRows } from './listings';
-import { listingJson } from './shop-json';
+import { listingJson, listingQuiltJson } from './shop-json';
 
 
 const listingNotFound = () => new HttpError(404, 'Listing not found');
@@ -63,12 +63,15 @@ export function listingsRouter(ctx: AppContext): Router {
     const visible = found && (found.pattern.ownerId === user.id || (found.listing.publishedAt && !found.pattern.trashedAt));
     if (!found || !visible) throw listingNotFound();
     res.json({
-      listing: listingJson(found.listing, {
-        title: found.pattern.title,
-        currency: found.currency,
-        designer: { id: found.pattern.ownerId, displayName: found.designerName },
-        access: accessOf(db, user, found.pattern),
-      }),
+      listing: {
+        ...listingJson(found.listing, {
+          title: found.pattern.title,
+          currency: found.currency,
+          designer: { id: found.pattern.ownerId, displayName: found.designerName },
+          access: accessOf(db, user, found.pattern),
+        }),
+        quilt: listingQuiltJson(found.listing),
+      },
     });
   });
 
@@ -147,12 +150,15 @@ export function listingsRouter(ctx: AppContext): Router {
     const found = findListing(db, pattern.id);
     if (!found) throw new HttpError(500, 'Listing was not stored');
     res.json({
-      listing: listingJson(found.listing, {
-        title: pattern.title,
-        currency: found.currency,
-        designer: { id: user.id, displayName: user.displayName },
-        access: 'owner',
-      }),
+      listing: {
+        ...listingJson(found.listing, {
+          title: pattern.title,
+          currency: found.currency,
+          designer: { id: user.id, displayName: user.displayName },
+          access: 'owner',
+        }),
+        quilt: listingQuiltJson(found.listing),
+      },
     });
   });
 

@@ -3,6 +3,7 @@ import { finishedBlockSize, parsePatternDocument } from '@seamwright/piecing';
 import type { DbLike } from '../db/database';
 import { patterns, revisions, shopListings, shops, users, type ShopListing } from '../db/schema';
 import { patternPreviewSvg } from '../services/pattern-preview';
+import { listingQuiltFacts } from './listing-quilt';
 
 /** Width of a shop listing's picture in pixels (a 160 px card picture at twice the density). */
 export const LISTING_PREVIEW_WIDTH_PX = 320;
@@ -32,11 +33,15 @@ export function findPublishedListing(db: DbLike, patternId: string) {
 }
 
 /** The listing columns that describe the design. */
-export type ListingFacts = Pick<ShopListing, 'sectionCount' | 'finishedWidthIn' | 'finishedHeightIn' | 'previewSvg'>;
+export type ListingFacts = Pick<
+  ShopListing,
+  'sectionCount' | 'finishedWidthIn' | 'finishedHeightIn' | 'previewSvg' | 'quiltSizes' | 'quiltPictures'
+>;
 
 /**
  * What a buyer may know of a design before paying, from the pattern's head revision: how many
- * sections, how big the block finishes (the sections' extent, not the drawing area) and a picture.
+ * sections, how big the block finishes (the sections' extent, not the drawing area), a picture and,
+ * for a pattern with a quilt layout, its size chart and a quilt picture per colourway.
  * Worked out when the listing is saved and stored with it, so browsing never parses documents.
  */
 export function listingFacts(db: DbLike, pattern: { id: string; headRevision: number }): ListingFacts {
@@ -46,7 +51,9 @@ export function listingFacts(db: DbLike, pattern: { id: string; headRevision: nu
     .where(and(eq(revisions.patternId, pattern.id), eq(revisions.number, pattern.headRevision)))
     .get();
   const parsed = stored ? parsePatternDocument(JSON.parse(stored.document) as unknown) : null;
-  if (!parsed?.ok) return { sectionCount: 0, finishedWidthIn: null, finishedHeightIn: null, previewSvg: null };
+  if (!parsed?.ok) {
+    return { sectionCount: 0, finishedWidthIn: null, finishedHeightIn: null, previewSvg: null, quiltSizes: null, quiltPictures: null };
+  }
   const document = parsed.document;
   const size = finishedBlockSize(document);
   let previewSvg: string | null = null;
@@ -61,5 +68,6 @@ export function listingFacts(db: DbLike, pattern: { id: string; headRevision: nu
     finishedWidthIn: size ? round(size.widthIn) : null,
     finishedHeightIn: size ? round(size.heightIn) : null,
     previewSvg,
+    ...listingQuiltFacts(document),
   };
 }

@@ -1,5 +1,6 @@
 import type { Order, ShopCurrency, ShopListing } from '../db/schema';
 import type { Access } from '../services/access';
+import type { ListingQuiltPicture, ListingQuiltSize } from './listing-quilt';
 
 /** A listing as buyers see it. */
 export interface ListingJson {
@@ -17,6 +18,13 @@ export interface ListingJson {
   preview: string | null;
   /** The viewer's access to the pattern (owner, member, or null: not theirs yet). */
   access: Access | null;
+  /** The quilt's size chart and pictures (one listing's page only; null: no quilt layout). */
+  quilt?: { sizes: ListingQuiltSize[]; pictures: ListingQuiltPicture[] } | null;
+}
+
+/** The quilt part of one listing's page, from the listing's own columns (no document is read). */
+export function listingQuiltJson(l: ShopListing): ListingJson['quilt'] {
+  return l.quiltSizes && l.quiltPictures ? { sizes: l.quiltSizes, pictures: l.quiltPictures } : null;
 }
 
 export function listingJson(

@@ -4,7 +4,8 @@ import type { AddressInfo } from 'node:net';
 import fc from 'fast-check';
 import request from 'supertest';
 import Stripe from 'stripe';
-import { formatMoney } from '@seamwright/api';
+import { formatMoney, listingAnswerSchema } from '@seamwright/api';
+import { buildOrchardWheel, quiltSizes } from '@seamwright/piecing';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startFakeStripeServer, type FakeStripeServer } from '../dev/fake-stripe-server';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from '../test/harness';
@@ -408,6 +409,58 @@ describe('hostile input', () => {
     const after = snapshot();
     expect(after.events).toBe(before.events);
     expect(after.members).toBe(before.members);
+  });
+});
+
+describe('quilt listings', () => {
+  it('stores the size chart and a quilt picture per colourway when the listing is saved, and shows them on its page', async () => {
+    const quiltDesigner = await userClient(t.app, 'quinn@shop.test', 'designer');
+    await quiltDesigner.put('/api/shop/mine', { currency: 'usd' }).expect(200);
+    const document = buildOrchardWheel();
+    const id = (await quiltDesigner.post('/api/patterns', { document }).expect(201)).body.pattern.id;
+    const put = await quiltDesigner.put(`/api/shop/listings/${id}`, { priceMinor: 2400, description: 'A wheel quilt.', published: true }).expect(200);
+    expect(listingAnswerSchema.safeParse(put.body).success).toBe(true);
+
+    const { listing } = listingAnswerSchema.parse((await buyer.get(`/api/shop/listings/${id}`).expect(200)).body);
+    const expected = quiltSizes(document);
+    expect(listing.quilt?.sizes.map((s) => s.name)).toEqual(['Wall 1 × 1', 'Throw 2 × 2', 'Bed 3 × 3']);
+    expect(listing.quilt?.sizes).toEqual(
+      expected.map((s) => ({
+        name: s.name,
+        widthIn: expect.closeTo(s.finishedSizeIn.width, 3),
+        heightIn: expect.closeTo(s.finishedSizeIn.height, 3),
+        blockCount: s.blockCount,
+        totalYards: expect.closeTo(s.totalYards, 3),
+      })),
+    );
+    expect(listing.quilt?.sizes.map((s) => s.blockCount)).toEqual([1, 4, 9]);
+    expect(listing.quilt?.pictures.map((p) => [p.colourwayId, p.name])).toEqual([
+      [null, 'Pattern fabrics'],
+      ...document.colourways!.map((c) => [c.id, c.name]),
+    ]);
+    expect(document.colourways!.map((c) => c.name)).toEqual(['Dusk', 'Frost']);
+    const pictures = listing.quilt!.pictures;
+    for (const [i, p] of pictures.entries()) {
+      expect(p.svg).toMatch(/^<svg xmlns="http:\/\/www\.w3\.org\/2000\/svg" width="320" /);
+      expect(p.svg).not.toMatch(/<script|on\w+=/i);
+      // Each picture is drawn in its own fabrics: the colourway's first fabric colour appears in it.
+      const way = i === 0 ? null : document.colourways![i - 1];
+      const colour = way ? Object.values(way.fabrics)[0].colour : document.fabrics[0].colour;
+      expect(p.svg.toLowerCase()).toContain(colour.toLowerCase());
+      // The layout's own (laid-out) size places one block per cell.
+      expect(p.svg.match(/<use href="#qb"/g)?.length).toBe(document.quilt!.columns * document.quilt!.rows);
+    }
+    expect(new Set(pictures.map((p) => p.svg)).size).toBe(3);
+
+    // Browse pages stay small: the quilt is on the listing's own page only.
+    const page = (await buyer.get('/api/shop/listings').query({ q: document.title }).expect(200)).body;
+    expect(page.items[0].patternId).toBe(id);
+    expect(page.items[0]).not.toHaveProperty('quilt');
+  });
+
+  it('shows no quilt for a pattern without a quilt layout', async () => {
+    const { listing } = listingAnswerSchema.parse((await buyer.get(`/api/shop/listings/${listedId}`).expect(200)).body);
+    expect(listing.quilt).toBeNull();
   });
 });
 

@@ -336,6 +336,20 @@ export const listingSchema = z.strictObject({
   preview: z.string().startsWith('<svg').nullable(),
   /** The viewer's access to the pattern; null until bought or shared. */
   access: patternAccessSchema.nullable(),
+  /**
+   * One listing's page only (absent from browse pages): the quilt layout's size chart and a small SVG
+   * quilt picture per colourway, the pattern's own fabrics first (colourwayId null), as of the listing's
+   * last save; null when the pattern has no quilt layout.
+   */
+  quilt: z
+    .strictObject({
+      sizes: z.array(
+        z.strictObject({ name: z.string(), widthIn: z.number(), heightIn: z.number(), blockCount: z.number().int().min(0), totalYards: z.number().min(0) }),
+      ),
+      pictures: z.array(z.strictObject({ colourwayId: z.string().nullable(), name: z.string(), svg: z.string().startsWith('<svg') })),
+    })
+    .nullable()
+    .optional(),
 });
 export type Listing = z.infer<typeof listingSchema>;
 export const listingAnswerSchema = z.strictObject({ listing: listingSchema });
