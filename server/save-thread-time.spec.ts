@@ -12,7 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { largestDocument } from '../tests/fixtures/largest-document';
 import { HttpError } from './http/errors';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from './test/harness';
-import { checkDocumentBody } from './validation/document-body';
+import { checkDocumentBody, checkVersionBody } from './validation/document-body';
 import { validDocument } from './validation/valid-document';
 
 let t: TestServer;
@@ -168,5 +168,120 @@ describe('saving the largest valid document', () => {
     const created = JSON.parse(res.body.toString());
     expect(created.pattern.title).toBe('Large new');
     expect(created.revision.document.sections).toHaveLength(100);
+  }, 120_000);
+});
+
+function postVersionText(id: string, text: string) {
+  return owner.req('post', `/api/patterns/${id}/revisions`).set('Content-Type', 'application/json').buffer(true).parse(rawBody).send(text);
+}
+
+describe('saving the largest valid document as a named version', () => {
+  it('leaves the request thread free and stores what the inline path stores', async () => {
+    const id = await newPattern('Largest version');
+    // A small version body (of the latest revision) is still checked inline.
+    const small = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 1, name: 'First' });
+    expect(small.status).toBe(201);
+    expect(small.body.revision.version.name).toBe('First');
+
+    const document = largestDocument('Largest version', 0);
+    const text = JSON.stringify({ baseRevision: 2, name: '  Quilt\u0007 top ', note: 'Before the border\u0000', editSession: 'version-session-1', document });
+    expect(text.length).toBeGreaterThan(4_500_000);
+
+    const delay = monitorEventLoopDelay({ resolution: 10 });
+    const healthMs: number[] = [];
+    let saving = true;
+    const probes = (async () => {
+      while (saving) {
+        const t0 = performance.now();
+        await request(t.app).get('/api/health').expect(200);
+        healthMs.push(performance.now() - t0);
+        await new Promise((r) => setTimeout(r, 20));
+      }
+    })();
+    delay.enable();
+    const saveStarted = performance.now();
+    const res = await postVersionText(id, text);
+    const saveMs = performance.now() - saveStarted;
+    saving = false;
+    await probes;
+    delay.disable();
+
+    expect(res.status, res.body.toString().slice(0, 300)).toBe(201);
+    const answer = JSON.parse(res.body.toString());
+    expect(answer.pattern.headRevision).toBe(3);
+    // The version fields went through the same schema: control characters stripped, trimmed.
+    expect(answer.revision.version).toMatchObject({ name: 'Quilt top', note: 'Before the border' });
+    const maxBlockedMs = delay.max / 1e6;
+    const inlineStarted = performance.now();
+    checkVersionBody(JSON.parse(text) as unknown);
+    const inlineMs = performance.now() - inlineStarted;
+    // The same bound as the save above (issue 15's target is 100 ms; see there why the bound is generous).
+    const bound = Math.max(500, inlineMs / 4);
+    expect(maxBlockedMs, `longest event-loop stall ${maxBlockedMs.toFixed(0)} ms during a ${saveMs.toFixed(0)} ms version save (inline check ${inlineMs.toFixed(0)} ms)`).toBeLessThan(bound);
+    expect(healthMs.length).toBeGreaterThanOrEqual(Math.min(5, Math.floor(saveMs / 200)));
+    expect(Math.max(...healthMs)).toBeLessThan(1000);
+
+    const row = (n: number) =>
+      t.ctx.database.sqlite
+        .prepare('SELECT document, version_name AS name, version_note AS note, edit_session AS session FROM revisions WHERE pattern_id = ? AND number = ?')
+        .get(id, n) as { document: string; name: string; note: string; session: string };
+    expect(row(3)).toEqual({ document: JSON.stringify(validDocument(JSON.parse(text).document)), name: 'Quilt top', note: 'Before the border', session: 'version-session-1' });
+
+    // A small version body without a document keeps the latest revision's stored text as it is.
+    const ofHead = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 3, name: 'Again' });
+    expect(ofHead.status).toBe(201);
+    expect(ofHead.body.pattern.title).toBe('Largest version');
+    expect(row(4).document).toBe(row(3).document);
+  }, 120_000);
+
+  it('answers large bad version bodies as the inline path does', async () => {
+    const id = await newPattern('Large version errors');
+    const document = largestDocument('Large version errors', 0);
+    const body = (fields: Record<string, unknown>) => ({ baseRevision: 1, name: 'Kept', document, ...fields });
+    const pad = 'x'.repeat(70_000);
+    const cases: Array<Record<string, unknown>> = [
+      body({ name: '  \u0001 ' }),
+      body({ note: 'n'.repeat(501) }),
+      body({ extra: true }),
+      body({ document: null }),
+      // No document but padded past the inline size by an unknown field: refused by the schema.
+      { baseRevision: 1, name: 'Padded', pad },
+    ];
+    const crossing = largestDocument('Large version crossing', 0);
+    const v = crossing.sections[42].geometry.vertices;
+    [v[10], v[11]] = [v[11], v[10]];
+    cases.push(body({ document: crossing }));
+    for (const fields of cases) {
+      // JSON's trailing whitespace takes a body without a large document past the inline size.
+      const text = JSON.stringify(fields).padEnd(70_000, ' ');
+      expect(text.length).toBeGreaterThan(64 * 1024);
+      const large = await postVersionText(id, text);
+      expect(large.status).toBe(400);
+      // The inline answer to the same body (the check the request thread runs for a small one).
+      let inline: { error: string; details: unknown } | undefined;
+      try {
+        checkVersionBody(fields);
+      } catch (err) {
+        if (err instanceof HttpError) inline = { error: err.message, details: err.details ?? null };
+        else throw err;
+      }
+      expect(JSON.parse(large.body.toString())).toEqual(inline);
+    }
+    const malformed = await postVersionText(id, JSON.stringify(body({})).slice(0, -1));
+    expect(JSON.parse(malformed.body.toString())).toEqual({ error: 'Malformed JSON body', details: null });
+
+    // A large body without a document, padded with JSON whitespace, is a version of the latest revision.
+    const spaced = await postVersionText(id, `{"baseRevision":1,"name":"Spaced"${' '.repeat(70_000)}}`);
+    expect(spaced.status).toBe(201);
+    expect(JSON.parse(spaced.body.toString()).revision.version.name).toBe('Spaced');
+
+    // Stale base: 409 with the latest revision, as a small body gets it.
+    const stale = await postVersionText(id, JSON.stringify(body({})));
+    expect(stale.status).toBe(409);
+    const answer = JSON.parse(stale.body.toString());
+    const inlineStale = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 1, name: 'Small' });
+    expect(inlineStale.status).toBe(409);
+    expect(answer).toEqual(inlineStale.body);
+    expect(answer.details.latest.number).toBe(2);
   }, 120_000);
 });

@@ -1,7 +1,6 @@
 import { and, count, desc, eq, gte, lte } from 'drizzle-orm';
-import type { PatternDocument } from '@seamwright/piecing';
 import express, { type Router } from 'express';
-import { pageQuerySchema, restoreBodySchema, revisionListQuerySchema, revisionNumberParamSchema, saveVersionBodySchema } from '@seamwright/api';
+import { pageQuerySchema, restoreBodySchema, revisionListQuerySchema, revisionNumberParamSchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { revisions, users } from '../db/schema';
@@ -9,6 +8,8 @@ import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { listRevisionGroups } from '../services/revision-groups';
+import { checkVersionBody } from '../validation/document-body';
+import { saveVersion } from '../validation/version-save';
 import {
   findRevision,
   ownerName,
@@ -17,7 +18,6 @@ import {
   revisionSummary,
   saveRevision,
   sendPatternWithRevision,
-  validDocument,
 } from '../services/revisions';
 
 
@@ -53,24 +53,16 @@ export function revisionsRouter(ctx: AppContext): Router {
     res.json(listRevisionGroups(db, pattern.id, q.page, q.pageSize));
   });
 
-  router.post('/', (req, res) => {
+  router.post('/', async (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
-    const body = parseOr400(saveVersionBodySchema, req.body);
-    const document = body.document === undefined ? undefined : validDocument(body.document);
-    const version = { name: body.name, note: body.note ? body.note : null };
-    const saved = db.transaction(
-      (tx) => {
-        let doc = document;
-        if (!doc) {
-          const head = findRevision(tx, pattern.id);
-          if (!head) throw new HttpError(500, 'Pattern has no revision');
-          doc = JSON.parse(head.revision.document) as PatternDocument;
-        }
-        return saveRevision(tx, pattern.id, body.baseRevision, doc, user.id, { version, editSession: body.editSession });
-      },
-      { behavior: 'immediate' },
-    );
+    // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
+    if (Buffer.isBuffer(req.body)) {
+      await ctx.documentChecks.answer(res, { kind: 'version', patternId: pattern.id, access, userId: user.id, displayName: user.displayName }, req.body);
+      return;
+    }
+    const body = checkVersionBody(req.body);
+    const saved = db.transaction((tx) => saveVersion(tx, pattern.id, body, user.id), { behavior: 'immediate' });
     sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 

@@ -1,10 +1,10 @@
 /**
  * Reads and checks the JSON body of a request that carries a whole pattern document (a save, a new
- * pattern): the same steps and the same answers as the request thread's JSON parser and route checks
+ * pattern, a named version): the same steps and the same answers as the request thread's JSON parser and route checks
  * (nesting depth, strict JSON, the route's body schema, the document schema and geometry), but from
  * the raw bytes, so it can run in the validation pool's worker thread (docs/design-notes.md#where-documents-are-checked).
  */
-import { createPatternBodySchema, saveRevisionBodySchema } from '@seamwright/api';
+import { createPatternBodySchema, saveRevisionBodySchema, saveVersionBodySchema } from '@seamwright/api';
 import { HttpError } from '../http/errors';
 import { MAX_JSON_DEPTH, jsonDepthExceeds } from '../http/json-bodies';
 import { parseOr400 } from '../http/validate';
@@ -60,4 +60,20 @@ export function checkDocumentBody<K extends DocumentBodyKind>(kind: K, body: unk
   const parsed = parseOr400(documentBodySchemas[kind], value) as { document: unknown } & Record<string, unknown>;
   const { document, ...fields } = parsed;
   return { fields: fields as CheckedBody<K>['fields'], document: DocumentText.of(validDocument(document)) };
+}
+
+/** A checked named-version body: its fields, and its document if it carries one (else the latest revision's is kept). */
+export interface CheckedVersionBody {
+  fields: Omit<ReturnType<typeof saveVersionBodySchema.parse>, 'document'>;
+  document: DocumentText | undefined;
+}
+
+/**
+ * Checks the body of `POST /api/patterns/:id/revisions` (save a named version), parsed or as bytes: the
+ * version fields with the route's schema, then the document, if any, as a save's.
+ */
+export function checkVersionBody(body: unknown): CheckedVersionBody {
+  const value = body instanceof Uint8Array ? parseJsonBody(body) : body;
+  const { document, ...fields } = parseOr400(saveVersionBodySchema, value);
+  return { fields, document: document === undefined ? undefined : DocumentText.of(validDocument(document)) };
 }

@@ -1,5 +1,5 @@
 /**
- * The validation pool's task (a piscina worker thread): one save or new pattern with a large document,
+ * The validation pool's task (a piscina worker thread): one save, named version or new pattern with a large document,
  * from the body's bytes to the answer's bytes. It parses and checks the body, stores the revision
  * through its own connection to the database (WAL: the request thread keeps reading meanwhile; writes
  * take turns under SQLite's lock) and writes the answer, so the request thread only sends it.
@@ -9,7 +9,8 @@ import type { Access } from '../services/access';
 import { openDatabase, type DatabaseHandle } from '../db/database';
 import { HttpError } from '../http/errors';
 import { createPattern, ownerName, patternJson, patternWithRevisionText, saveRevision } from '../services/revisions';
-import { checkDocumentBody } from './document-body';
+import { checkDocumentBody, checkVersionBody } from './document-body';
+import { saveVersion } from './version-save';
 
 /** One large document body to check and store. */
 export type DocumentTask = {
@@ -19,7 +20,7 @@ export type DocumentTask = {
   userId: string;
   /** The caller's display name (the new revision's author). */
   displayName: string;
-} & ({ kind: 'save'; patternId: string; access: Access } | { kind: 'create' });
+} & ({ kind: 'save' | 'version'; patternId: string; access: Access } | { kind: 'create' });
 
 /** The answer to send: status, JSON bytes and their ETag; or a storage error's code for the error middleware. */
 export type DocumentTaskResult =
@@ -54,6 +55,13 @@ export default function documentTask(task: DocumentTask): DocumentTaskResult {
       );
       const pattern = patternJson(saved.pattern, ownerName(handle, saved.pattern.ownerId), task.access);
       return done(200, patternWithRevisionText(pattern, saved.revision, task.displayName));
+    }
+    if (task.kind === 'version') {
+      const body = checkVersionBody(task.body);
+      const handle = db(task.dataDir);
+      const saved = handle.transaction((tx) => saveVersion(tx, task.patternId, body, task.userId), { behavior: 'immediate' });
+      const pattern = patternJson(saved.pattern, ownerName(handle, saved.pattern.ownerId), task.access);
+      return done(201, patternWithRevisionText(pattern, saved.revision, task.displayName));
     }
     const { document } = checkDocumentBody('create', task.body);
     const made = db(task.dataDir).transaction((tx) => createPattern(tx, task.userId, document), { behavior: 'immediate' });
