@@ -12,11 +12,12 @@ import type { Listing } from '../shop-types';
 import { formatMoney } from '@seamwright/api';
 import { listingFacts } from '../listing-facts';
 import { ListingPictureComponent } from '../listing-picture.component';
+import { ListingQuiltComponent } from './listing-quilt.component';
 
 /** One pattern in the shop: what it is, its price, and Buy (or Open, once it is yours). */
 @Component({
   selector: 'sw-listing-detail',
-  imports: [DatePipe, RouterLink, ListingPictureComponent, MatButtonModule, MatIconModule, MatProgressBarModule, NotFoundComponent],
+  imports: [DatePipe, RouterLink, ListingPictureComponent, ListingQuiltComponent, MatButtonModule, MatIconModule, MatProgressBarModule, NotFoundComponent],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (state.notFound()) {
@@ -32,6 +33,7 @@ import { ListingPictureComponent } from '../listing-picture.component';
             <sw-listing-picture [listing]="l" [sizePx]="240" />
             <p class="desc">{{ l.description }}</p>
           </div>
+          @if (l.quilt; as quilt) { <sw-listing-quilt [quilt]="quilt" [title]="l.title" /> }
           <p class="includes">Buying gives you quilter access to the pattern: print sets at true scale with test squares, the scale check and your own sewing log. You cannot change the design.</p>
           @if (cancelled()) { <p class="cancelled" role="status">Checkout was cancelled; nothing was charged.</p> }
           <div class="buy">
