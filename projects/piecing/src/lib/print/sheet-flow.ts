@@ -19,6 +19,14 @@ const SWATCH_IN = 0.26;
  * Writes flowing content (headings, paragraphs, tables) down the content area of sheets, starting a
  * new sheet when the current one is full. The top-left test-square block is kept clear.
  */
+/** Space after a paragraph, in inches. */
+const PARAGRAPH_GAP_IN = 0.06;
+
+/** A paragraph's line height for a type size, in inches. */
+function paragraphLineIn(sizePt: number): number {
+  return (sizePt * 1.3) / 72;
+}
+
 export class SheetFlow {
   private frame: SheetFrame;
   y: number;
@@ -65,15 +73,20 @@ export class SheetFlow {
     this.y = y + 0.34;
   }
 
+  /** The height {@link paragraph} takes for `text` when it stays on one sheet, in inches. */
+  paragraphHeight(text: string, sizePt = 9, bold = false): number {
+    return this.pen.wrap(text, this.width, sizePt, bold).length * paragraphLineIn(sizePt) + PARAGRAPH_GAP_IN;
+  }
+
   paragraph(text: string, sizePt = 9, bold = false): void {
     const lines = this.pen.wrap(text, this.width, sizePt, bold);
-    const lineIn = (sizePt * 1.3) / 72;
+    const lineIn = paragraphLineIn(sizePt);
     for (const line of lines) {
       const y = this.room(lineIn);
       this.pen.text(line, { x: this.left, y: y + lineIn * 0.8 }, { sizePt, bold });
       this.y = y + lineIn;
     }
-    this.y += 0.06;
+    this.y += PARAGRAPH_GAP_IN;
   }
 
   /** Starts a new sheet unless the current one is still empty. */

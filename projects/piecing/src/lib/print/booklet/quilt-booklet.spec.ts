@@ -75,6 +75,14 @@ describe('the print set of a quilt in a chosen size and colourway', () => {
     expect(steps.find((s) => s.startsWith('Backing'))).toContain('seams running across the quilt');
   });
 
+  it('the assembly picture leaves room for every step on the same sheet', () => {
+    const sheet = pages.slice(0, result.bookletSheetCount).filter((p) => p.text.join(' ').includes('Putting the quilt together'));
+    expect(sheet).toHaveLength(1);
+    const words = sheet[0].text.join(' ');
+    expect(words).toMatch(/Lay the 20 blocks out/);
+    expect(words).toMatch(/Binding: join the \d+ strips/);
+  });
+
   it('without a chosen size the print set stays the block (no quilt pages)', async () => {
     const plain = await renderPrintSet(quiltBlock(), { paper: 'letter', fonts });
     const { pages: p } = await inspectPdf(plain.pdf);

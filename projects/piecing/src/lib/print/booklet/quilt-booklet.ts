@@ -184,6 +184,9 @@ function backingSeamText(plan: QuiltPlan): string {
   return `${b.widths} full widths sewn together, seam${b.widths > 2 ? 's' : ''} running ${b.seams === 'across' ? 'across the quilt (horizontal)' : 'lengthwise (vertical)'}`;
 }
 
+/** Type size of the assembly steps, in points. */
+const STEP_PT = 8.5;
+
 /**
  * The quilt assembly page: the layout diagram (blocks as drafted, turned or mirrored per cell, sashing,
  * cornerstones, setting triangles, borders, binding edge), then the steps: rows with seams pressed in
@@ -202,7 +205,11 @@ export function drawQuiltAssembly(ctx: BookletContext, writer: BookletWriter): v
       'The picture is the front of the quilt, not to scale; arrows at the left show which way each row’s seams are pressed.',
     8.5,
   );
-  const boxHeight = Math.min(4.2, flow.sheetRoom - 3);
+  // The picture takes what the steps leave on this sheet (at most 4.2 in., at least 2.5 in.), so the page
+  // holds the whole assembly when it can.
+  const steps = assemblySteps(plan);
+  const stepsHeight = 0.34 + steps.reduce((h, s, i) => h + flow.paragraphHeight(`${i + 1}. ${s}`, STEP_PT), 0);
+  const boxHeight = Math.max(2.5, Math.min(4.2, flow.roomLeft - stepsHeight - 0.2));
   const top = flow.room(boxHeight);
   const box = { x: flow.left + 0.35, y: top, width: flow.width - 0.35, height: boxHeight };
   const fit = fitDiagram([{ x: 0, y: 0 }, { x: plan.finishedSizeIn.width, y: plan.finishedSizeIn.height }], box, false, 0.05);
@@ -223,9 +230,8 @@ export function drawQuiltAssembly(ctx: BookletContext, writer: BookletWriter): v
   }
   flow.gap(boxHeight + 0.1);
 
-  const steps = assemblySteps(plan);
   flow.heading('Putting the quilt together (common practice)', 11);
-  steps.forEach((s, i) => flow.paragraph(`${i + 1}. ${s}`, 8.5));
+  steps.forEach((s, i) => flow.paragraph(`${i + 1}. ${s}`, STEP_PT));
 }
 
 /** The assembly steps in words, for the booklet (common practice, docs/quilt-layout.md). */
