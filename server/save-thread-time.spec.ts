@@ -285,3 +285,33 @@ describe('saving the largest valid document as a named version', () => {
     expect(answer.details.latest.number).toBe(2);
   }, 120_000);
 });
+
+describe('restoring a revision with the largest document', () => {
+  it('stores the old revision\'s text as it is, with its title, as parsing and writing it out would', async () => {
+    const id = await newPattern('Restore target');
+    const large = await putText(id, JSON.stringify({ baseRevision: 1, document: largestDocument('Large "quoted" title', 0) }));
+    expect(large.status).toBe(200);
+    expect((await owner.put(`/api/patterns/${id}`, { baseRevision: 2, document: sampleDocument('Small again') })).status).toBe(200);
+    const text = (n: number) =>
+      (t.ctx.database.sqlite.prepare('SELECT document FROM revisions WHERE pattern_id = ? AND number = ?').get(id, n) as { document: string }).document;
+
+    const delay = monitorEventLoopDelay({ resolution: 10 });
+    delay.enable();
+    const restored = await owner.req('post', `/api/patterns/${id}/revisions/2/restore`).send({ baseRevision: 3 }).buffer(true).parse(rawBody);
+    delay.disable();
+    expect(restored.status).toBe(201);
+    const answer = JSON.parse(restored.body.toString());
+    expect(answer.pattern.title).toBe('Large "quoted" title');
+    expect(answer.revision).toMatchObject({ number: 4, restoredFrom: 2 });
+    // What the old route stored: the text parsed and written out again.
+    expect(text(4)).toBe(JSON.stringify(JSON.parse(text(2))));
+    expect(text(4)).toBe(text(2));
+    expect(delay.max / 1e6).toBeLessThan(500);
+
+    // A named version of that head (no document) keeps its text and title too.
+    const version = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 4, name: 'Restored' });
+    expect(version.status).toBe(201);
+    expect(version.body.pattern.title).toBe('Large "quoted" title');
+    expect(text(5)).toBe(text(2));
+  }, 120_000);
+});

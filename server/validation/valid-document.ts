@@ -52,4 +52,43 @@ export class DocumentText {
   static of(document: PatternDocument): DocumentText {
     return new DocumentText(document.title, JSON.stringify(document));
   }
+
+  /**
+   * A stored revision's text, to store again as it is (a restore): it was written by JSON.stringify of
+   * a checked document, so parsing and writing it out again would give the same text. Only its title is
+   * read, by a scan that stops at the top-level `"title"` key (the second key as written).
+   */
+  static stored(json: string): DocumentText {
+    return new DocumentText(topLevelTitle(json) ?? (JSON.parse(json) as { title: string }).title, json);
+  }
+}
+
+const QUOTE = 0x22;
+const BACKSLASH = 0x5c;
+const COLON = 0x3a;
+
+/** The end (index of the closing quote) of the JSON string starting at `start`. */
+function stringEnd(json: string, start: number): number {
+  let i = start + 1;
+  for (; i < json.length && json.charCodeAt(i) !== QUOTE; i++) if (json.charCodeAt(i) === BACKSLASH) i++;
+  return i;
+}
+
+/** The value of the top-level `"title"` key of a JSON object text written without spaces; undefined if not found so. */
+function topLevelTitle(json: string): string | undefined {
+  let depth = 0;
+  for (let i = 0; i < json.length; i++) {
+    const c = json[i];
+    if (c === '"') {
+      const start = i;
+      i = stringEnd(json, i);
+      // A key of the top-level object: a string followed by a colon at depth 1 (values are followed by `,` or `}`).
+      if (depth === 1 && json.charCodeAt(i + 1) === COLON && json.slice(start, i + 1) === '"title"') {
+        if (json[i + 2] !== '"') return undefined;
+        return JSON.parse(json.slice(i + 2, stringEnd(json, i + 2) + 1)) as string;
+      }
+    } else if (c === '{' || c === '[') depth++;
+    else if (c === '}' || c === ']') depth--;
+  }
+  return undefined;
 }

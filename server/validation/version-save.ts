@@ -3,9 +3,7 @@
  * (a small body) and the validation pool's worker (a large one), so both store and answer alike
  * (docs/design-notes.md#where-documents-are-checked).
  */
-import { eq } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
-import { patterns } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { findRevision, saveRevision } from '../services/revisions';
 import type { CheckedVersionBody } from './document-body';
@@ -14,17 +12,15 @@ import { DocumentText } from './valid-document';
 /**
  * Stores a named version of `document`, or of the latest revision when the body has none. Run inside an
  * immediate transaction (a stale base gets saveRevision's 409). The latest revision's text is copied as
- * stored, not parsed and written out again: it was written by JSON.stringify of a checked document, and
- * its title is the pattern's (every save and creation sets both together, server/services/revisions.ts).
+ * stored, not parsed and written out again (`DocumentText.stored`).
  */
 export function saveVersion(tx: DbLike, patternId: string, body: CheckedVersionBody, authorId: string) {
   const { fields } = body;
   let document = body.document;
   if (!document) {
     const head = findRevision(tx, patternId);
-    const pattern = tx.select({ title: patterns.title }).from(patterns).where(eq(patterns.id, patternId)).get();
-    if (!head || !pattern) throw new HttpError(500, 'Pattern has no revision');
-    document = new DocumentText(pattern.title, head.revision.document);
+    if (!head) throw new HttpError(500, 'Pattern has no revision');
+    document = DocumentText.stored(head.revision.document);
   }
   const version = { name: fields.name, note: fields.note ? fields.note : null };
   return saveRevision(tx, patternId, fields.baseRevision, document, authorId, { version, editSession: fields.editSession });
