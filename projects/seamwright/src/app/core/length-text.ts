@@ -18,3 +18,8 @@ export function readLength(text: string, defaultUnit: 'in' | 'cm'): LengthReadin
 export function showInches(inches: number, denominator: InchDenominator = 8): string {
   return formatInches(inches, { style: 'unicode', denominator });
 }
+
+/** Yards as a decimal, as the shop and the CLI give them, in eighths: 2.375 → "2 ⅜ yd". */
+export function showYards(yards: number): string {
+  return `${showInches(yards).replace(/ in\.$/, '')} yd`;
+}

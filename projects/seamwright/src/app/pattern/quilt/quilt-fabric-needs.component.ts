@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import type { QuiltPlan } from '@seamwright/piecing';
-import { showInches } from '../../core/length-text';
-import { showYards } from './size-chart.component';
+import { showInches, showYards } from '../../core/length-text';
 
 /**
  * The whole quilt's fabric, from the library's quilt plan: what to buy of each fabric (blocks, setting

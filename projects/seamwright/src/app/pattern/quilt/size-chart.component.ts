@@ -5,14 +5,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { quiltSizes, type PatternDocument, type QuiltSizeRow } from '@seamwright/piecing';
-import { showInches } from '../../core/length-text';
+import { showInches, showYards } from '../../core/length-text';
 import { QuiltNumberFieldComponent } from './quilt-number-field.component';
 import { addSize, removeSize, updateSize } from './quilt-edits';
 
-/** Yards as a decimal, as the shop and the CLI give them: 2.375 → "2⅜ yd". */
-export function showYards(yards: number): string {
-  return `${showInches(yards).replace(/ in\.$/, '')} yd`;
-}
 
 /**
  * The size chart: each named size's blocks across and down, finished size, block count and yardage per

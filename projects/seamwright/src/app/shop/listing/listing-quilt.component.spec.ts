@@ -36,8 +36,8 @@ describe('ListingQuiltComponent', () => {
     const el = render(quilt);
     const rows = [...el.querySelectorAll('tbody tr')].map((r) => [...r.querySelectorAll('th, td')].map((c) => c.textContent?.trim()));
     expect(rows).toEqual([
-      ['Wall 1 × 1', '38 × 38 in.', '1', '6.125 yd'],
-      ['Throw 2 × 2', '66 × 66 in.', '4', '15.375 yd'],
+      ['Wall 1 × 1', '38 × 38 in.', '1', '6 ⅛ yd'],
+      ['Throw 2 × 2', '66 × 66 in.', '4', '15 ⅜ yd'],
     ]);
     expect(el.querySelector('caption')?.textContent?.trim()).toBe('Sizes');
   });

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { Listing } from '../shop-types';
+import { showYards } from '../../core/length-text';
 
 /** The quilt part of a listing as the server stores it (design §11): size chart and pictures. */
 export type ListingQuilt = NonNullable<Listing['quilt']>;
@@ -85,7 +86,7 @@ export class ListingQuiltComponent {
       name: s.name,
       finished: `${inches(s.widthIn)} × ${inches(s.heightIn)} in.`,
       blockCount: s.blockCount,
-      yards: `${String(+s.totalYards.toFixed(3))} yd`,
+      yards: showYards(s.totalYards),
     })),
   );
 }
