@@ -6,6 +6,7 @@ import { readPatternDocument, type PatternDocument, type QuiltLayoutInput } from
 import { PatternContext } from '../pattern-context.service';
 import { QuiltChoice } from './quilt-choice.service';
 import { QuiltPageComponent } from './quilt-page.component';
+import { sampleBlock } from '../../../../../../tests/fixtures/sample-block';
 
 /**
  * A 12 in. block (the sample block: a square cut on the diagonal, Plum and Oat) set 4 × 5 with 2 in.
@@ -13,28 +14,7 @@ import { QuiltPageComponent } from './quilt-page.component';
  * Finished size (design §11, straight setting): 4·12 + 3·2 + 2·(2 + 4) = 66 in. across,
  * 5·12 + 4·2 + 2·(2 + 4) = 80 in. down.
  */
-/** A 12 in. square cut on the diagonal: Plum above, Oat below (the shape of tests/fixtures' sample block). */
-const block = {
-  formatVersion: 1,
-  title: 'Diagonal',
-  canvas: { widthIn: 12, heightIn: 12 },
-  fabrics: [
-    { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-    { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-  ],
-  sections: [
-    {
-      id: 'sec-a',
-      label: 'A',
-      geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 12, y: 0 }, { x: 12, y: 12 }, { x: 0, y: 12 }] },
-      seams: [{ id: 's1', a: { x: 0, y: 0 }, b: { x: 12, y: 12 } }],
-      patches: [
-        { number: 1, anchor: { x: 9, y: 3 }, fabricId: 'plum' },
-        { number: 2, anchor: { x: 3, y: 9 }, fabricId: 'oat' },
-      ],
-    },
-  ],
-};
+const block = sampleBlock('Diagonal', 12);
 
 function quilt(extra: Partial<QuiltLayoutInput> = {}): PatternDocument {
   return readPatternDocument({

@@ -1,29 +1,12 @@
 import { TestBed } from '@angular/core/testing';
 import { readPatternDocument, type PatternDocument } from '@seamwright/piecing';
 import { SizeChartComponent } from './size-chart.component';
+import { sampleBlock } from '../../../../../../tests/fixtures/sample-block';
 
 /** A 12 in. square cut on the diagonal (Plum above, Oat below), in a 4 × 5 layout with 2 in. sashing and borders of 2 and 4 in. */
 function pattern(): PatternDocument {
   return readPatternDocument({
-    formatVersion: 1,
-    title: 'Diagonal',
-    canvas: { widthIn: 12, heightIn: 12 },
-    fabrics: [
-      { id: 'plum', name: 'Plum', colour: '#6b2d5c' },
-      { id: 'oat', name: 'Oat', colour: '#e8dcc0' },
-    ],
-    sections: [
-      {
-        id: 'sec-a',
-        label: 'A',
-        geometry: { kind: 'straight', vertices: [{ x: 0, y: 0 }, { x: 12, y: 0 }, { x: 12, y: 12 }, { x: 0, y: 12 }] },
-        seams: [{ id: 's1', a: { x: 0, y: 0 }, b: { x: 12, y: 12 } }],
-        patches: [
-          { number: 1, anchor: { x: 9, y: 3 }, fabricId: 'plum' },
-          { number: 2, anchor: { x: 3, y: 9 }, fabricId: 'oat' },
-        ],
-      },
-    ],
+    ...sampleBlock('Diagonal', 12),
     quilt: {
       columns: 4,
       rows: 5,
