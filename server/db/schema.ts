@@ -240,6 +240,39 @@ export const printSets = sqliteTable(
   (t) => [index('print_sets_pattern_idx').on(t.patternId)],
 );
 
+/** A fabric slot of a quilter's colourway copy: the name and colour they chose, and an optional note. */
+export interface ColourwayCopyFabric {
+  name: string;
+  colour: string;
+  note?: string;
+}
+
+/**
+ * A quilter's own copy of one of a pattern's colourways (design §11, docs/api.md): visible to its owner
+ * alone. `fabrics` is keyed by document fabric id; `version` goes up by one on each save, and a save
+ * carrying an older one is refused (409).
+ */
+export const colourwayCopies = sqliteTable(
+  'colourway_copies',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    patternId: text('pattern_id')
+      .notNull()
+      .references(() => patterns.id, { onDelete: 'cascade' }),
+    /** The colourway it was copied from (null: the pattern's own fabrics); kept if the designer removes it. */
+    sourceColourwayId: text('source_colourway_id'),
+    name: text('name').notNull(),
+    fabrics: text('fabrics', { mode: 'json' }).notNull().$type<Record<string, ColourwayCopyFabric>>(),
+    version: integer('version').notNull().default(1),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [index('colourway_copies_user_pattern_idx').on(t.userId, t.patternId), index('colourway_copies_pattern_idx').on(t.patternId)],
+);
+
 export type User = typeof users.$inferSelect;
 export type Pattern = typeof patterns.$inferSelect;
 export type Revision = typeof revisions.$inferSelect;
@@ -247,6 +280,7 @@ export type Member = typeof members.$inferSelect;
 export type Invitation = typeof invitations.$inferSelect;
 export type Upload = typeof uploads.$inferSelect;
 export type PrintSet = typeof printSets.$inferSelect;
+export type ColourwayCopy = typeof colourwayCopies.$inferSelect;
 
 // ---- Pattern shop (issue 9) ----
 
