@@ -54,6 +54,9 @@ export {
   type ColourwayFabric,
 } from './lib/document/index';
 
+/** A quilter's own fabrics for a pattern (their colourway copy, design §11). */
+export { applyFabricChoice, type FabricChoiceSlot } from './lib/quilt/fabric-choice';
+
 /** From a block to a quilt (design §11): the quilt plan, sizes, colourways, the CLI's JSON. */
 export {
   quiltPlan,
