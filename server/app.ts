@@ -10,6 +10,7 @@ import { securityHeaders } from './http/security';
 import { staticAppRouter } from './http/static-app';
 import { adminRouter } from './routes/admin';
 import { authRouter } from './routes/auth';
+import { colourwayCopiesRouter } from './routes/colourway-copies';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
 import { membersRouter } from './routes/members';
@@ -53,6 +54,7 @@ export function createApp(ctx: AppContext): Express {
   api.use('/patterns/:id/sewing-log', sewingLogRouter(ctx));
   api.use('/patterns/:id/uploads', uploadsRouter(ctx));
   api.use('/patterns/:id/print-sets', printSetsRouter(ctx));
+  api.use('/patterns/:id/colourway-copies', colourwayCopiesRouter(ctx));
   api.use('/patterns/:id', membersRouter(ctx));
   api.use('/patterns', patternsRouter(ctx));
   mountShop(app, api, ctx);

@@ -167,3 +167,18 @@ export {
   searchPageQuerySchema,
   sectionIdParamSchema,
 } from './queries';
+export {
+  MAX_COLOURWAY_COPIES,
+  colourwayCopyFabricSchema,
+  colourwayCopyFabricsSchema,
+  colourwayCopySchema,
+  colourwayCopyAnswerSchema,
+  colourwayCopyListAnswerSchema,
+  createColourwayCopyBodySchema,
+  updateColourwayCopyBodySchema,
+  staleCopyDetailsSchema,
+  type ColourwayCopy,
+  type ColourwayCopyFabric,
+  type CreateColourwayCopyBody,
+  type UpdateColourwayCopyBody,
+} from './colourway-copies';

@@ -128,4 +128,6 @@ export const printSetBodySchema = z.strictObject({
    * says so); without it such a pattern is refused with 422 and the reason. Same as `options.printUnsewable`.
    */
   printUnsewable: z.boolean().optional(),
+  /** The caller's own colourway copy of this pattern (docs/api.md "Colourway copies"): the set is in its fabrics. */
+  colourwayCopyId: idSchema.optional(),
 });
