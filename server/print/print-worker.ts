@@ -4,7 +4,7 @@
  * looks at the task's cancel flag and stops when the set was deleted, and stops when its layout has
  * more template sheets than the budget allows.
  */
-import { readPatternDocument, renderPrintSet } from '@seamwright/piecing';
+import { applyFabricChoice, readPatternDocument, renderPrintSet, type FabricChoiceSlot } from '@seamwright/piecing';
 import { RENDER_CANCELLED, type RenderResult, type RenderTask } from './print-messages';
 
 /** Steps of a render besides its template sheets (booklet, closing, …): see renderPrintSet's progress. */
@@ -13,8 +13,12 @@ const NON_SHEET_STEPS = 3;
 export default async function renderTask(task: RenderTask): Promise<RenderResult> {
   const cancelled = new Int32Array(task.cancel);
   try {
-    const document = readPatternDocument(task.document);
-    const result = await renderPrintSet(document, { ...(task.options as object), fonts: task.fonts }, (done, total) => {
+    // A quilter's colourway copy is stored with the set's options (server/routes/print-sets.ts) as a
+    // snapshot of its fabrics; the render takes the document in those fabrics and the rest as options.
+    const { colourwayCopy, ...options } = task.options as { colourwayCopy?: { fabrics: Record<string, FabricChoiceSlot> } };
+    const read = readPatternDocument(task.document);
+    const document = colourwayCopy ? applyFabricChoice(read, colourwayCopy.fabrics) : read;
+    const result = await renderPrintSet(document, { ...options, fonts: task.fonts }, (done, total) => {
       if (Atomics.load(cancelled, 0) !== 0) throw new Error(RENDER_CANCELLED);
       // The total counts template sheets from the second step on, once the layout is made.
       if (total - NON_SHEET_STEPS > task.maxSheets) {
