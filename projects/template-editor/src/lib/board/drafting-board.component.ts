@@ -37,6 +37,7 @@ let nextBoardId = 0;
     [attr.aria-describedby]="keysId"
     [attr.data-tool]="session.toolId()"
     [attr.data-tool-state]="session.toolState()"
+    [attr.data-colourway]="session.shownColourway()?.id ?? null"
     (pointerdown)="onPointerDown($event)"
     (pointermove)="onPointerMove($event)"
     (pointerup)="onPointerUp($event)"
@@ -86,6 +87,7 @@ export class DraftingBoardComponent {
       this.renderer = new BoardRenderer(el, ed);
       this.renderer.setReferenceImage(this.referenceImageUrl() ?? null);
       this.renderer.setHighlight(this.highlight());
+      this.renderer.setColourway(this.session.shownColourway()?.id ?? null);
       this.fitIfPending();
       el.addEventListener('wheel', this.onWheel, { passive: false });
       this.resizeObserver = new ResizeObserver(() => {
@@ -103,6 +105,11 @@ export class DraftingBoardComponent {
     effect(() => {
       const highlight = this.highlight();
       this.renderer?.setHighlight(highlight);
+    });
+    effect(() => {
+      // The colourway chosen in the toolbar: only the fills are drawn again.
+      const id = this.session.shownColourway()?.id ?? null;
+      this.renderer?.setColourway(id);
     });
     effect(() => {
       // A newly opened document is shown whole, once.

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, linkedSignal, signal, untracked } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { applyColourway, type PatternDocument } from '@seamwright/piecing';
@@ -28,8 +28,8 @@ export const FOUR_BLOCK_DELAY_MS = 300;
         @if (colourways().length) {
           <mat-form-field appearance="outline" subscriptSizing="dynamic" class="colourway">
             <mat-label>Colourway</mat-label>
-            <mat-select [value]="colourwayId() ?? ''" (selectionChange)="colourwayId.set($event.value || null)">
-              <mat-option value="">The pattern's own fabrics</mat-option>
+            <mat-select [value]="colourwayId() ?? ''" (selectionChange)="colourwayId.set($event.value || null)" aria-label="Four blocks colourway" data-testid="four-block-colourway">
+              <mat-option value="">Pattern fabrics</mat-option>
               @for (c of colourways(); track c.id) { <mat-option [value]="c.id">{{ c.name }}</mat-option> }
             </mat-select>
           </mat-form-field>
@@ -58,8 +58,11 @@ export class FourBlockViewComponent {
   private readonly session = inject(EditorSession);
   /** Whether the four blocks are shown. */
   protected readonly open = signal(false);
-  /** The colourway the four blocks are drawn in, or null for the pattern's own fabrics. */
-  protected readonly colourwayId = signal<string | null>(null);
+  /**
+   * The colourway the four blocks are drawn in, or null for the pattern's own fabrics: the board's
+   * choice, until it is changed here (a later choice on the board is followed again).
+   */
+  protected readonly colourwayId = linkedSignal<string | null>(() => this.session.shownColourway()?.id ?? null);
   protected readonly colourways = computed(() => this.session.document().colourways ?? []);
   /** The picture as a data URL (the app's content policy allows data: images). */
   protected readonly picture = signal<string | null>(null);

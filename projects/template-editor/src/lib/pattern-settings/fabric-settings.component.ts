@@ -17,6 +17,11 @@ import { EditorSession } from '../session/editor-session';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatFormFieldModule, MatInputModule, NumberFieldComponent],
   template: `
+    @if (shownColourway(); as c) {
+      <p class="shown-colourway" role="status" data-testid="fabrics-colourway-note">
+        The board shows the colourway {{ c.name }}. These are the pattern's own fabrics: a change here changes the pattern, not {{ c.name }}.
+      </p>
+    }
     <p class="muted">Usable width: what is left of the width of fabric once the selvages are trimmed; strips are cut across it.</p>
     <ul class="fabrics" aria-label="Fabrics">
       @for (f of rows(); track f.id) {
@@ -69,6 +74,10 @@ import { EditorSession } from '../session/editor-session';
     .remove { grid-column: 2 / span 2; }
     .remove { display: flex; align-items: center; gap: 8px; flex-wrap: wrap; }
     .muted { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
+    .shown-colourway {
+      margin: 0 0 8px; padding: 8px; border-radius: 4px; font: var(--mat-sys-body-small);
+      background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container);
+    }
     .error { color: var(--mat-sys-error); }
     mat-form-field { width: 100%; }
   `,
@@ -78,6 +87,8 @@ export class FabricSettingsComponent {
   private readonly announcer = inject(LiveAnnouncer);
   protected readonly ro = this.session.readOnly;
   protected readonly unit = computed(() => this.session.settings().unit);
+  /** The colourway the board shows, if any (the fabrics edited here are still the pattern's own). */
+  protected readonly shownColourway = this.session.shownColourway;
   protected readonly maxWof = MAX_SIZE_IN;
   /** What is wrong with the last typed change of each fabric, by fabric id. */
   protected readonly errors = signal<Record<string, string>>({});

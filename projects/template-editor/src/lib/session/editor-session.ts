@@ -83,6 +83,18 @@ export class EditorSession {
     this.editor.onViewChange(() => this.viewTick.update((n) => n + 1));
   }
 
+  /**
+   * The colourway the board shows, chosen in the toolbar, or null for the pattern's own fabrics. View
+   * state only: choosing one never changes the document and makes no undo step. The four-blocks panel
+   * follows it unless changed there.
+   */
+  readonly colourwayId = signal<string | null>(null);
+  /** The colourway the board shows, or null (also when the chosen one is no longer in the pattern). */
+  readonly shownColourway = computed(() => {
+    const id = this.colourwayId();
+    return id === null ? null : (this.document().colourways?.find((c) => c.id === id) ?? null);
+  });
+
   /** Whether the board shows a reference image (the toolbar then offers its fading). */
   readonly referenceImageShown = signal(false);
 

@@ -1,5 +1,5 @@
 import Konva from 'konva';
-import type { Fabric, PatternDocument, Point, Section } from '@seamwright/piecing';
+import { applyColourway, type Fabric, type PatternDocument, type Point, type Section } from '@seamwright/piecing';
 import { sectionHandles, toDocument, toScreen, type BoardEditor, type BoardHighlight, type ToolPreview } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 import { createGridShape, createRulerShape, RULER_PX, type GridView } from './grid-shape';
@@ -9,7 +9,7 @@ interface SectionEntry {
   section: Section;
   node: Konva.Shape;
   active: boolean;
-  /** Seam allowance and fabric colours the shape was made with. */
+  /** Seam allowance the shape was made with (fabrics only restyle a shape, read at each draw). */
   settings: string;
   /** The selected patch the shape shows (active sections only). */
   patchIndex: number | null;
@@ -56,7 +56,11 @@ export class BoardRenderer {
   private pass = 0;
   private lastViewKey = '';
   private sectionView: SectionView = { scale: 1, mirrored: false, visible: { minX: 0, minY: 0, maxX: 0, maxY: 0 } };
-  private fabricsFor: { list: readonly Fabric[]; map: Map<string, Fabric>; key: string } | null = null;
+  /** The fabrics shown: the document's own or those of {@link colourwayId}, made again only when either changes. */
+  private fabricsFor: { doc: Pick<PatternDocument, 'fabrics' | 'colourways'>; colourwayId: string | null; map: Map<string, Fabric>; key: string } | null = null;
+  /** The colourway the board shows, or null for the pattern's own fabrics. */
+  private colourwayId: string | null = null;
+  private readonly shownFabrics = (): ReadonlyMap<string, Fabric> => this.fabricsFor?.map ?? new Map();
   /** The section the overlay draws handles for, found again only when the document or selection changes. */
   private activeSection: { doc: PatternDocument; id: string | null; section: Section | undefined } | null = null;
   /** Sections whose sewability this board has checked (the analysis keeps the verdicts). */
@@ -159,6 +163,17 @@ export class BoardRenderer {
     this.schedule();
   }
 
+  /**
+   * Shows the patches in one of the document's colourways (null: its own fabrics). Only the fills change:
+   * the sections' drawings are kept and the layers drawn once more. An id the document does not have
+   * shows its own fabrics.
+   */
+  setColourway(id: string | null): void {
+    if (id === this.colourwayId) return;
+    this.colourwayId = id;
+    this.schedule();
+  }
+
   /** Resizes the stage to the editor's size. */
   resize(): void {
     this.stage.size(this.editor.sizePx);
@@ -202,8 +217,13 @@ export class BoardRenderer {
 
     const selection = ed.store.selection;
     const activeId = ed.store.gestureSectionId ?? selection.sectionId;
-    const fabrics = this.fabricMap(doc);
-    const settings = `${ed.settings.showSeamAllowance ? doc.seamAllowanceIn : 'off'}|${fabrics.key}`;
+    const fabricsKey = this.fabricsFor?.key;
+    if (this.fabricMap(doc).key !== fabricsKey) {
+      // Other fabric colours: every section restyles its fills at its next draw, none is built again.
+      staticDirty = true;
+      activeDirty = true;
+    }
+    const settings = ed.settings.showSeamAllowance ? String(doc.seamAllowanceIn) : 'off';
     const pass = ++this.pass;
     const sections = doc.sections;
     let checkTime = 0;
@@ -233,7 +253,7 @@ export class BoardRenderer {
       if (!checked) this.unchecked.push(section);
       const node = createSectionShape(section, {
         analysis: ed.analysis,
-        fabrics: fabrics.map,
+        fabrics: this.shownFabrics,
         selected: active,
         selectedPatchIndex: patchIndex,
         allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
@@ -301,12 +321,20 @@ export class BoardRenderer {
     this.scheduleChecks();
   }
 
-  /** The document's fabrics by id and a key of their colours, made again only when the fabric list changes. */
+  /**
+   * The shown fabrics by id (the document's own, or in the chosen colourway through the piecing
+   * library's `applyColourway`) and a key of their colours, made again only when the document's fabrics,
+   * its colourways or the choice change.
+   */
   private fabricMap(doc: PatternDocument): { map: Map<string, Fabric>; key: string } {
-    if (this.fabricsFor?.list !== doc.fabrics) {
-      this.fabricsFor = { list: doc.fabrics, map: new Map(doc.fabrics.map((f) => [f.id, f])), key: fabricKey(doc) };
+    let f = this.fabricsFor;
+    if (!f || f.doc.fabrics !== doc.fabrics || f.doc.colourways !== doc.colourways || f.colourwayId !== this.colourwayId) {
+      const known = this.colourwayId !== null && doc.colourways?.some((c) => c.id === this.colourwayId) ? this.colourwayId : null;
+      const shown = applyColourway({ fabrics: doc.fabrics, colourways: doc.colourways }, known).fabrics;
+      f = { doc: { fabrics: doc.fabrics, colourways: doc.colourways }, colourwayId: this.colourwayId, map: new Map(shown.map((x) => [x.id, x])), key: fabricKey(shown) };
+      this.fabricsFor = f;
     }
-    return this.fabricsFor;
+    return f;
   }
 
   /** The overlay in screen space: highlight, the active section's handles, the tool preview, the snap marker and the cursor. */
@@ -471,6 +499,6 @@ const HIGHLIGHT_HALO = 'rgba(255,253,248,0.9)';
 /** Ruler band thickness, re-exported for the board component's pointer maths. */
 export const BOARD_RULER_PX = RULER_PX;
 
-function fabricKey(doc: PatternDocument): string {
-  return doc.fabrics.map((f) => `${f.id}:${f.colour}`).join(',');
+function fabricKey(fabrics: readonly Fabric[]): string {
+  return fabrics.map((f) => `${f.id}:${f.colour}`).join(',');
 }

@@ -15,7 +15,11 @@ export interface SectionView {
 /** What a section's shape shows besides the section itself. */
 export interface SectionShapeOptions {
   analysis: SectionAnalysis;
-  fabrics: ReadonlyMap<string, Fabric>;
+  /**
+   * The fabrics the board shows by id (the pattern's own, or a colourway's), read at every draw: a new
+   * map restyles the fills without building the section's drawing again.
+   */
+  fabrics: () => ReadonlyMap<string, Fabric>;
   selected: boolean;
   selectedPatchIndex: number | null;
   /** Cutting line of each placement, when the seam allowance preview is on. */
@@ -44,7 +48,7 @@ interface PatchDrawing {
   patch: BoardPatch;
   path: Path2D;
   fill: string;
-  bands: Array<{ path: Path2D; fill: string }> | null;
+  bands: Array<{ path: Path2D; fabricId: string; fill: string }> | null;
   guides: Path2D | null;
   /** The smaller side of the patch's bounding box, in inches (labels of smaller patches are hidden). */
   sizeIn: number;
@@ -64,6 +68,8 @@ interface CopyDrawing {
 
 interface SectionDrawing {
   copies: CopyDrawing[];
+  /** The fabric map the fills were taken from. */
+  fabrics: ReadonlyMap<string, Fabric>;
   bounds: Bounds;
   reason: { text: string; at: Point } | null;
 }
@@ -83,8 +89,23 @@ function patchFill(p: BoardPatch, fabrics: ReadonlyMap<string, Fabric>): string 
   return (p.fabricId && fabrics.get(p.fabricId)?.colour) || BOARD_COLOURS.emptyPatch;
 }
 
+function bandFill(fabricId: string, fabrics: ReadonlyMap<string, Fabric>): string {
+  return fabrics.get(fabricId)?.colour ?? BOARD_COLOURS.emptyPatch;
+}
+
+/** Takes the fills of a built drawing from another fabric map (a colourway shown, a fabric's colour changed). */
+function restyle(d: SectionDrawing, fabrics: ReadonlyMap<string, Fabric>): void {
+  d.fabrics = fabrics;
+  for (const copy of d.copies) {
+    for (const p of copy.patches) {
+      p.fill = patchFill(p.patch, fabrics);
+      if (p.bands) for (const band of p.bands) band.fill = bandFill(band.fabricId, fabrics);
+    }
+  }
+}
+
 /** Everything one section draws, in document inches, from the analysis' cached facts. */
-function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing {
+function buildDrawing(section: Section, o: SectionShapeOptions, fabrics: ReadonlyMap<string, Fabric>): SectionDrawing {
   const sewability: BoardSewability = o.sewability ? o.analysis.sewability(section) : { ok: true };
   const failingNumber = sewability.ok ? null : (sewability.failingPatchNumber ?? null);
   const outlines: Point[] = [];
@@ -113,8 +134,8 @@ function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing 
         return {
           patch: p,
           path,
-          fill: patchFill(p, o.fabrics),
-          bands: p.stripBands ? p.stripBands.map((band) => ({ path: ringPath(band.polygon), fill: o.fabrics.get(band.fabricId)?.colour ?? BOARD_COLOURS.emptyPatch })) : null,
+          fill: patchFill(p, fabrics),
+          bands: p.stripBands ? p.stripBands.map((band) => ({ path: ringPath(band.polygon), fabricId: band.fabricId, fill: bandFill(band.fabricId, fabrics) })) : null,
           guides,
           sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY),
           failing: copyIndex === 0 && failingNumber === p.number,
@@ -133,7 +154,7 @@ function buildDrawing(section: Section, o: SectionShapeOptions): SectionDrawing 
     const at = failing?.patch.labelPoint ?? o.analysis.outline(section)[0];
     if (at) reason = { text: sewability.reason, at };
   }
-  return { copies, bounds: outlines.length > 0 ? polygonBounds(outlines) : { minX: 0, minY: 0, maxX: 0, maxY: 0 }, reason };
+  return { copies, fabrics, bounds: outlines.length > 0 ? polygonBounds(outlines) : { minX: 0, minY: 0, maxX: 0, maxY: 0 }, reason };
 }
 
 function overlaps(a: Bounds, b: Bounds): boolean {
@@ -256,7 +277,8 @@ function drawSection(ctx: CanvasRenderingContext2D, d: SectionDrawing, o: Sectio
  * The Konva shape of one section: its patches filled with their fabrics, the outline, the seams,
  * strip-set bands and guide lines, patch numbers, the sewability failure, ring-repeat copies and (when
  * asked) the cutting line, drawn straight onto the layer's canvas in one pass. What it draws is worked
- * out at its first draw and kept (the shape is replaced when its section changes); a section wholly
+ * out at its first draw and kept (the shape is replaced when its section changes; other fabrics only
+ * restyle the fills); a section wholly
  * off screen is skipped. Never listening: the board hit-tests in the editor core.
  */
 export function createSectionShape(section: Section, o: SectionShapeOptions): Konva.Shape {
@@ -268,7 +290,9 @@ export function createSectionShape(section: Section, o: SectionShapeOptions): Ko
     perfectDrawEnabled: false,
     sceneFunc(context) {
       const v = o.view();
-      drawing ??= buildDrawing(section, o);
+      const fabrics = o.fabrics();
+      drawing ??= buildDrawing(section, o, fabrics);
+      if (drawing.fabrics !== fabrics) restyle(drawing, fabrics);
       if (!overlaps(drawing.bounds, v.visible) && !drawing.reason) return;
       drawSection(context._context, drawing, o, v);
     },
