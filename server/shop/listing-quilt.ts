@@ -92,6 +92,7 @@ export function quiltListingSvg(document: PatternDocument, plan: QuiltPlan, widt
     `<rect width="${n(W)}" height="${n(H)}" fill="${colour(plan.sashing?.fabricId ?? plan.settingTriangles?.fabricId)}"/>`,
     ...plan.borderRects.map(rect),
     ...plan.sashingRects.map(rect),
+    ...plan.sashingPolygons.map((p) => `<polygon points="${p.points.map((pt) => `${n(pt.x)},${n(pt.y)}`).join(' ')}" fill="${colour(p.fabricId)}"/>`),
     ...plan.settingTrianglePolygons.map((p) => `<polygon points="${p.points.map((pt) => `${n(pt.x)},${n(pt.y)}`).join(' ')}" fill="${colour(p.fabricId)}"/>`),
   ];
   const alternate = colour(document.quilt?.alternateFabricId);

@@ -14,6 +14,7 @@ describe('seamwright quilt', () => {
     await writeFile(join(dir, 'no-columns.json'), JSON.stringify({ ...demo, quilt: { ...demo.quilt, columns: 0 } }));
     await writeFile(join(dir, 'negative-border.json'), JSON.stringify({ ...demo, quilt: { ...demo.quilt, borders: [{ widthIn: -2, fabricId: 'plum' }] } }));
     await writeFile(join(dir, 'unknown-fabric.json'), JSON.stringify({ ...demo, quilt: { ...demo.quilt, binding: { fabricId: 'saffron' } } }));
+    await writeFile(join(dir, 'on-point.json'), JSON.stringify({ ...demo, quilt: { ...demo.quilt, setting: 'on-point', settingTrianglesFabricId: 'sage' } }));
     const { quilt: _quilt, ...block } = demo;
     await writeFile(join(dir, 'block.json'), JSON.stringify(block));
   });
@@ -66,6 +67,20 @@ describe('seamwright quilt', () => {
     // Backing 46 × 46 in. is wider than 42 in.: 2 widths of 46 in. = 92 in. → 94½ in. = 2⅝ yd.
     expect(out).toContain('Backing (Sage): 46 × 46 in., 2 widths of 46 in., seamed lengthwise: 2 ⅝ yd');
     expect(out).toContain('Fabric for the whole quilt (rounded up to ⅛ yd):');
+  });
+
+  it('prints on-point sashing: strips round every block, cornerstones, setting triangles for the sashed grid', async () => {
+    const { code, out } = await run('quilt', 'on-point.json', '--size', 'Throw 2 × 2');
+    expect(code).toBe(0);
+    // docs/quilt-layout.md, worked by hand: 2 × 2 on point is 5 blocks; 4·2·2 = 16 strips and 2·2·2 + 2 + 2 = 12
+    // cornerstones, cut 2 + ½ = 2½ in. (¼ in. seams, common practice), strips 26 + ½ = 26½ in. long.
+    expect(out).toContain('Blocks: 5 of 26 × 26 in., 2 across × 2 down, set on point');
+    expect(out).toContain('Sashing (Oat): 16 strips, 12 cornerstones of 2 ½ in. (Marigold)');
+    expect(out).toContain('  round every block, on point: 16 pieces 2 ½ × 26 ½ in.');
+    // Plane geometry: sashed unit 28 in., D = 28√2 = 39.598 in. + 1¼ → 40⅞ in. side squares; corner short side
+    // (26 + 4)/√2 = 21.213 in. + ⅞ → 22⅛ in. (common practice, from memory, for the allowances); 2·1 + 2·1 = 4 side
+    // triangles come from one square.
+    expect(out).toContain('Setting triangles (Sage): 1 square of 40 ⅞ in. cut twice on the diagonal (4 side triangles); 2 squares of 22 ⅛ in. cut once (4 corners)');
   });
 
   it('exits 1 naming the field for a bad layout', async () => {

@@ -27,9 +27,10 @@ export function formatQuiltPlan(document: PatternDocument, plan: QuiltPlan): str
   }
   if (plan.sashing) {
     const s = plan.sashing;
-    lines.push(`Sashing (${fabric(s.fabricId)}): ${s.verticalStrips.count + s.horizontalStrips.count} strips, ${plural(s.cornerstones.count, 'cornerstone')} of ${len(s.cornerstones.cutSquareIn)} (${fabric(s.cornerstones.fabricId)})`);
+    lines.push(`Sashing (${fabric(s.fabricId)}): ${s.verticalStrips.count + s.horizontalStrips.count + (s.diagonalStrips?.count ?? 0)} strips, ${plural(s.cornerstones.count, 'cornerstone')} of ${len(s.cornerstones.cutSquareIn)} (${fabric(s.cornerstones.fabricId)})`);
     const cut = (c: { count: number; cutWidthIn: number; cutLengthIn: number }) => `${plural(c.count, 'piece')} ${bare(c.cutWidthIn)} × ${len(c.cutLengthIn)}`;
-    lines.push(`  between blocks ${cut(s.verticalStrips)}; between rows ${cut(s.horizontalStrips)}`);
+    if (s.diagonalStrips) lines.push(`  round every block, on point: ${cut(s.diagonalStrips)}`);
+    else lines.push(`  between blocks ${cut(s.verticalStrips)}; between rows ${cut(s.horizontalStrips)}`);
   }
   for (const b of plan.borders) {
     lines.push(`Border ${b.index} (${fabric(b.fabricId)}, ${len(b.widthIn)}): ${plural(b.strips, 'strip')} ${len(b.cutWidthIn)} × WOF joined end to end (${plural(b.joins, 'join')}); sides first 2 × ${len(b.sides.cutLengthIn)}, then top and bottom 2 × ${len(b.topAndBottom.cutLengthIn)}`);

@@ -290,7 +290,10 @@ export const quiltLayoutSchema = z.object({
   cells: z.array(quiltCellSchema).max(40000).optional(),
   /** Fabric of the plain alternate blocks (cells with `alternate`). */
   alternateFabricId: id.optional(),
-  /** Strips between blocks (not around the outside), with optional cornerstones where they cross. */
+  /**
+   * Straight: strips between blocks (not around the outside), with optional cornerstones where they cross.
+   * On point: strips frame every block and cornerstones sit at every corner (docs/quilt-layout.md).
+   */
   sashing: z.object({ widthIn: positiveLength, fabricId: id, cornerstoneFabricId: id.optional() }).optional(),
   /** Borders, innermost first. */
   borders: z.array(quiltBorderSchema).max(12).default([]),
@@ -403,7 +406,7 @@ export const patternDocumentSchema = z
 
 type QuiltLayoutParsed = z.infer<typeof quiltLayoutSchema>;
 
-/** Cross-field rules of a quilt layout: known fabrics, one entry per cell, sashing and squares for an on-point setting. */
+/** Cross-field rules of a quilt layout: known fabrics, one entry per cell, a square block for an on-point setting. */
 function checkQuiltLayout(quilt: QuiltLayoutParsed, fabricIds: ReadonlySet<string>, ctx: z.RefinementCtx): void {
   const fabric = (fabricId: string | undefined, path: Array<string | number>) => {
     if (fabricId !== undefined && !fabricIds.has(fabricId)) ctx.addIssue({ code: 'custom', message: `unknown fabric "${fabricId}"`, path: ['quilt', ...path] });
@@ -416,7 +419,6 @@ function checkQuiltLayout(quilt: QuiltLayoutParsed, fabricIds: ReadonlySet<strin
   fabric(quilt.backing.fabricId, ['backing', 'fabricId']);
   fabric(quilt.settingTrianglesFabricId, ['settingTrianglesFabricId']);
   if (quilt.setting === 'on-point') {
-    if (quilt.sashing) ctx.addIssue({ code: 'custom', message: 'sashing is for a straight setting only; leave it out on point', path: ['quilt', 'sashing'] });
     if (quilt.blockSizeIn && Math.abs(quilt.blockSizeIn.width - quilt.blockSizeIn.height) > 1e-9) {
       ctx.addIssue({ code: 'custom', message: 'an on-point setting needs a square block', path: ['quilt', 'blockSizeIn'] });
     }

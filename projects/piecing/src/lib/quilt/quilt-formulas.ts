@@ -17,13 +17,16 @@ export function yardsToBuy(lengthIn: number): number {
 }
 
 /**
- * Finished size inside the borders. Straight: columns·w + (columns − 1)·sashing across, rows·h +
- * (rows − 1)·sashing down. On point: columns·d by rows·d, d = w·√2 the block's diagonal (design §11).
+ * Finished size inside the borders. Straight: columns·w + (columns − 1)·s across, rows·h + (rows − 1)·s
+ * down (s the sashing width). On point: columns·D + s·√2 by rows·D + s·√2, with D = (w + s)·√2 the
+ * diagonal of a sashed unit (block + sashing); the s·√2 is the sashing that frames the outer blocks
+ * (docs/quilt-layout.md; plane geometry). Without sashing this is columns·d by rows·d, d = w·√2 (design §11).
  */
 export function quiltCentreSize(setting: 'straight' | 'on-point', columns: number, rows: number, block: SizeIn, sashingIn: number): SizeIn {
   if (setting === 'on-point') {
-    const d = block.width * Math.SQRT2;
-    return { width: cleanLength(columns * d), height: cleanLength(rows * d) };
+    const D = (block.width + sashingIn) * Math.SQRT2;
+    const frame = sashingIn * Math.SQRT2;
+    return { width: cleanLength(columns * D + frame), height: cleanLength(rows * D + frame) };
   }
   return {
     width: cleanLength(columns * block.width + (columns - 1) * sashingIn),
@@ -38,20 +41,38 @@ export function quiltPositions(setting: 'straight' | 'on-point', columns: number
 
 /**
  * On-point setting triangles for a square block of finished side w (design §11, common practice):
- * side triangles 2(columns − 1) + 2(rows − 1), cut from squares of d + 1¼ in. cut twice on the diagonal
- * (4 each); 4 corner triangles from 2 squares of d/2 + ⅞ in. cut once; cut sizes rounded up to ⅛ in.
+ * side triangles 2(columns − 1) + 2(rows − 1), cut from squares of D + 1¼ in. cut twice on the diagonal
+ * (4 each); 4 corner triangles from 2 squares of L + ⅞ in. cut once; cut sizes rounded up to ⅛ in.
+ * Without sashing D = d = w·√2 and L = d/2. With sashing of width s the triangles are sized for the sashed
+ * grid (docs/quilt-layout.md, plane geometry): a side triangle fills the notch between two sashed units of
+ * side u = w + s, so its long side is D = u·√2; a corner triangle's long side runs along the outer block
+ * with its sashing on both sides, w + 2s, so its short sides are L = (w + 2s)/√2.
  */
-export function settingTriangleCuts(blockSideIn: number, columns: number, rows: number) {
-  const d = blockSideIn * Math.SQRT2;
+export function settingTriangleCuts(blockSideIn: number, columns: number, rows: number, sashingIn = 0) {
+  const D = (blockSideIn + sashingIn) * Math.SQRT2;
+  const L = (blockSideIn + 2 * sashingIn) / Math.SQRT2;
   const sideTriangles = 2 * (columns - 1) + 2 * (rows - 1);
   return {
     sideTriangles,
-    sideCutSquareIn: roundUpToEighthInch(d + 1.25),
+    sideCutSquareIn: roundUpToEighthInch(cleanLength(D + 1.25)),
     sideSquares: Math.ceil(sideTriangles / 4),
     cornerTriangles: 4,
-    cornerCutSquareIn: roundUpToEighthInch(d / 2 + 0.875),
+    cornerCutSquareIn: roundUpToEighthInch(cleanLength(L + 0.875)),
     cornerSquares: 2,
   };
+}
+
+/**
+ * Sashing of an on-point quilt (docs/quilt-layout.md): every block framed by strips, with a cornerstone
+ * at every corner, so the edge the setting triangles are sewn to is straight. In the turned grid each of
+ * the columns·rows + (columns − 1)(rows − 1) blocks has four sides; the (columns − 1)(rows − 1) blocks
+ * of the in-between rows share each side with a neighbour, so strips = 4·positions − 4(columns − 1)(rows − 1)
+ * = 4·columns·rows; cornerstones (corners of the grid, Euler: V = 1 + E − F) = 1 + strips − positions
+ * = 2·columns·rows + columns + rows.
+ */
+export function onPointSashingCounts(columns: number, rows: number) {
+  const strips = 4 * columns * rows;
+  return { strips, cornerstones: 2 * columns * rows + columns + rows };
 }
 
 /**

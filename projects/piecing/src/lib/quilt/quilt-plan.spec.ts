@@ -150,6 +150,69 @@ describe('quiltPlan', () => {
     expect(top.y).toBeCloseTo(3, 6);
   });
 
+  // On-point sashing (docs/quilt-layout.md), worked by hand. Plane geometry: a sashed unit of a 10 in. block with
+  // 2 in. sashing has side u = 12 in. and diagonal D = 12√2 = 16.9706 in.; the sashing framing the outer blocks adds
+  // 2√2 in. each way, so the centre is 3D + 2√2 = 38√2 = 53.7401 in. by 4D + 2√2 = 50√2 = 70.7107 in., + 2 × 3 in.
+  // border. Setting triangles (common practice, from memory: long side + 1¼ in. for squares cut twice, short side + ⅞
+  // in. for squares cut once): side squares D + 1¼ = 18.2206 → 18¼ in. (the 12 in. block's value of design §11);
+  // corners' short side (10 + 2·2)/√2 = 7√2 = 9.8995 in., + ⅞ = 10.7745 → 10⅞ in. Counting the turned grid: 3·4 + 2·3
+  // = 18 blocks, 4·3·4 = 48 strips, 2·3·4 + 3 + 4 = 31 cornerstones; cut sizes add ¼ in. seams each side (common
+  // practice): strips 2½ × 10½ in., cornerstones 2½ in.
+  it('on-point sashing: framed blocks, cornerstones, setting triangles sized for the sashed grid', () => {
+    const plan = quiltPlan(
+      quiltDoc(10, {
+        setting: 'on-point',
+        columns: 3,
+        rows: 4,
+        settingTrianglesFabricId: 'sage',
+        sashing: { widthIn: 2, fabricId: 'sage', cornerstoneFabricId: 'ink' },
+        borders: [{ widthIn: 3, fabricId: 'ink' }],
+      }),
+    );
+    expect(plan.centreSizeIn.width).toBeCloseTo(38 * Math.SQRT2, 6);
+    expect(plan.centreSizeIn.height).toBeCloseTo(50 * Math.SQRT2, 6);
+    expect(plan.finishedSizeIn.width).toBeCloseTo(38 * Math.SQRT2 + 6, 6);
+    expect(plan.finishedSizeIn.height).toBeCloseTo(50 * Math.SQRT2 + 6, 6);
+    expect(plan.unitDiagonalIn).toBeCloseTo(12 * Math.SQRT2, 6);
+    expect(plan.blockCount).toBe(18);
+    expect(quiltCliJson(plan).settingTriangles).toEqual({ sideCutSquareIn: 18.25, sideSquares: 3, cornerCutSquareIn: 10.875, cornerSquares: 2 });
+    expect(plan.sashing?.diagonalStrips).toEqual({ count: 48, cutWidthIn: 2.5, cutLengthIn: 10.5 });
+    expect(plan.sashing?.verticalStrips.count).toBe(0);
+    expect(plan.sashing?.horizontalStrips.count).toBe(0);
+    expect(plan.sashing?.cornerstones).toEqual({ count: 31, cutSquareIn: 2.5, fabricId: 'ink' });
+    expect(plan.sashingRects).toEqual([]);
+    // Drawn: 48 strips of Sage and 31 cornerstones of Ink, 10 side and 4 corner triangles.
+    expect(plan.sashingPolygons.filter((p) => p.fabricId === 'sage')).toHaveLength(48);
+    expect(plan.sashingPolygons.filter((p) => p.fabricId === 'ink')).toHaveLength(31);
+    expect(plan.settingTrianglePolygons).toHaveLength(14);
+    // The pieces fill the centre exactly (plane geometry): blocks 18 × 100 + strips 48 × 2·10 + cornerstones 31 × 4 +
+    // side triangles 10 × 12²/2 + corners 4 × (7√2)²/2 = 1800 + 960 + 124 + 720 + 196 = 3800 in.² = 38√2 × 50√2.
+    const area = (pts: Array<{ x: number; y: number }>) => Math.abs(pts.reduce((a, p, i) => a + p.x * pts[(i + 1) % pts.length]!.y - pts[(i + 1) % pts.length]!.x * p.y, 0)) / 2;
+    const strips = plan.sashingPolygons.filter((p) => p.fabricId === 'sage').reduce((a, p) => a + area(p.points), 0);
+    const stones = plan.sashingPolygons.filter((p) => p.fabricId === 'ink').reduce((a, p) => a + area(p.points), 0);
+    const triangles = plan.settingTrianglePolygons.reduce((a, p) => a + area(p.points), 0);
+    expect(strips).toBeCloseTo(960, 3);
+    expect(stones).toBeCloseTo(124, 3);
+    expect(triangles).toBeCloseTo(720 + 196, 3);
+    expect(18 * 100 + strips + stones + triangles).toBeCloseTo(plan.centreSizeIn.width * plan.centreSizeIn.height, 3);
+    // The first block's centre is 3 + 2/√2 + D/2 = 3 + 7√2 in. in from the top left; its top corner sits a
+    // cornerstone's diagonal (2√2 in.) below the top edge (y = 3) of the centre.
+    const first = plan.cells[0]!;
+    expect(first.centreIn.x).toBeCloseTo(3 + 7 * Math.SQRT2, 6);
+    const top = apply(first.transform, { x: 0, y: 0 });
+    expect(top.x).toBeCloseTo(3 + 7 * Math.SQRT2, 6);
+    expect(top.y).toBeCloseTo(3 + 2 * Math.SQRT2, 6);
+    // Sage: 48 strips 2½ × 10½ in., 4 to a 42 in. strip → 12 strips × 2½ = 30 in.; 3 side squares of 18¼, 2 to a
+    // strip → 2 × 18¼ = 36½ in.; 2 corner squares of 10⅞ on one strip → 10⅞ in. 77⅜ in. → 81 in. = 2¼ yd (⅛ yd = 4½ in.).
+    const sage = plan.fabrics.find((f) => f.id === 'sage');
+    expect(sage?.settingPieces.map((g) => [g.widthIn, g.lengthIn, g.count, g.stripCount])).toEqual([
+      [2.5, 10.5, 48, 12],
+      [18.25, 18.25, 3, 2],
+      [10.875, 10.875, 2, 1],
+    ]);
+    expect(sage?.yards).toBe(2.25);
+  });
+
   it('a turned cell and a mirrored cell', () => {
     const plan = quiltPlan(
       quiltDoc(4, {
@@ -239,7 +302,8 @@ describe('quilt and colourway fields of the document', () => {
     expect(issues({ columns: 0, rows: 2 })).toContainEqual({ path: 'quilt.columns', message: 'must be at least 1' });
     expect(issues({ columns: 2, rows: 2, borders: [{ widthIn: -1, fabricId: 'plum' }] })).toContainEqual({ path: 'quilt.borders.0.widthIn', message: 'must be greater than zero' });
     expect(issues({ columns: 2, rows: 2, binding: { fabricId: 'gold' } })).toContainEqual({ path: 'quilt.binding.fabricId', message: 'unknown fabric "gold"' });
-    expect(issues({ columns: 2, rows: 2, setting: 'on-point', sashing: { widthIn: 1, fabricId: 'plum' } })).toContainEqual({ path: 'quilt.sashing', message: 'sashing is for a straight setting only; leave it out on point' });
+    expect(issues({ columns: 2, rows: 2, setting: 'on-point', sashing: { widthIn: 1, fabricId: 'plum' } })).toEqual([]);
+    expect(issues({ columns: 2, rows: 2, setting: 'on-point', sashing: { widthIn: 1, fabricId: 'gold' } })).toContainEqual({ path: 'quilt.sashing.fabricId', message: 'unknown fabric "gold"' });
     const colourway = { id: 'a', name: 'A', fabrics: { plum: { name: 'P', colour: '#000000' } } };
     expect(issues(undefined, { colourways: [colourway, colourway] })).toContainEqual({ path: 'colourways.1.id', message: 'duplicate colourway id "a"' });
     expect(issues(undefined, { colourways: [{ ...colourway, fabrics: { gold: { name: 'G', colour: '#000000' } } }] })).toContainEqual({ path: 'colourways.0.fabrics.gold', message: 'unknown fabric "gold"' });

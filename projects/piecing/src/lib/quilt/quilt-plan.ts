@@ -5,7 +5,7 @@ import { planWofStrips } from '../fabrication/cutting-list/wof-strips';
 import { YARDAGE_STEP_IN, roundUpToStep } from '../fabrication/shared/rounding';
 import { blockDrawingBounds, defaultBlockSizeIn, type BlockBounds } from './block-size';
 import { applyColourway } from './colourway';
-import { backingCuts, bindingCuts, borderCuts, cleanLength, quiltCentreSize, quiltPositions, settingTriangleCuts, yardsToBuy } from './quilt-formulas';
+import { backingCuts, bindingCuts, borderCuts, cleanLength, onPointSashingCounts, quiltCentreSize, quiltPositions, settingTriangleCuts, yardsToBuy } from './quilt-formulas';
 import {
   QuiltPlanError,
   type AffineTransform,
@@ -57,7 +57,7 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
   if (onPoint && Math.abs(block.width - block.height) > 1e-3) {
     problems.push(`the block is ${block.width} × ${block.height} in.; an on-point setting needs a square block, so its width is used both ways`);
   }
-  const sashingIn = !onPoint && layout.sashing ? layout.sashing.widthIn : 0;
+  const sashingIn = layout.sashing ? layout.sashing.widthIn : 0;
   const centre = quiltCentreSize(layout.setting, columns, rows, block, sashingIn);
   const bordersIn = layout.borders.reduce((s, b) => s + b.widthIn, 0);
   const finished: SizeIn = { width: cleanLength(centre.width + 2 * bordersIn), height: cleanLength(centre.height + 2 * bordersIn) };
@@ -105,7 +105,25 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
 
   let sashing: QuiltSashing | null = null;
   const sashingRects: QuiltRect[] = [];
-  if (layout.sashing && !onPoint) {
+  const sashingPolygons: QuiltPolygon[] = [];
+  if (layout.sashing && onPoint) {
+    const s = layout.sashing;
+    const cut = cleanLength(s.widthIn + 2 * allowanceIn);
+    const cornerstoneFabric = s.cornerstoneFabricId ?? s.fabricId;
+    const counts = onPointSashingCounts(columns, rows);
+    const none = { count: 0, cutWidthIn: cut, cutLengthIn: cleanLength(block.width + 2 * allowanceIn) };
+    sashing = {
+      fabricId: s.fabricId,
+      widthIn: s.widthIn,
+      verticalStrips: none,
+      horizontalStrips: { ...none },
+      diagonalStrips: { count: counts.strips, cutWidthIn: cut, cutLengthIn: cleanLength(block.width + 2 * allowanceIn) },
+      cornerstones: { count: counts.cornerstones, cutSquareIn: cut, fabricId: cornerstoneFabric },
+    };
+    addPieces(s.fabricId, 'sashing strips', cut, sashing.diagonalStrips!.cutLengthIn, counts.strips);
+    addPieces(cornerstoneFabric, 'cornerstones', cut, cut, counts.cornerstones);
+    sashingPolygons.push(...onPointSashing(cells, block.width, s.widthIn, s.fabricId, cornerstoneFabric));
+  } else if (layout.sashing) {
     const s = layout.sashing;
     const cut = cleanLength(s.widthIn + 2 * allowanceIn);
     const cornerstoneFabric = s.cornerstoneFabricId ?? s.fabricId;
@@ -114,6 +132,7 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
       widthIn: s.widthIn,
       verticalStrips: { count: rows * (columns - 1), cutWidthIn: cut, cutLengthIn: cleanLength(block.height + 2 * allowanceIn) },
       horizontalStrips: { count: (rows - 1) * columns, cutWidthIn: cut, cutLengthIn: cleanLength(block.width + 2 * allowanceIn) },
+      diagonalStrips: null,
       cornerstones: { count: (rows - 1) * (columns - 1), cutSquareIn: cut, fabricId: cornerstoneFabric },
     };
     addPieces(s.fabricId, 'sashing strips', cut, sashing.verticalStrips.cutLengthIn, sashing.verticalStrips.count);
@@ -140,12 +159,12 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
   let settingTriangles: QuiltPlan['settingTriangles'] = null;
   const settingTrianglePolygons: QuiltPolygon[] = [];
   if (onPoint) {
-    const t = settingTriangleCuts(block.width, columns, rows);
+    const t = settingTriangleCuts(block.width, columns, rows, sashingIn);
     const fabricId = layout.settingTrianglesFabricId ?? null;
     settingTriangles = { fabricId, ...t };
     addPieces(fabricId, 'squares for side setting triangles (cut twice on the diagonal)', t.sideCutSquareIn, t.sideCutSquareIn, t.sideSquares);
     addPieces(fabricId, 'squares for corner triangles (cut once on the diagonal)', t.cornerCutSquareIn, t.cornerCutSquareIn, t.cornerSquares);
-    settingTrianglePolygons.push(...onPointTriangles(block.width * Math.SQRT2, columns, rows, bordersIn, fabricId));
+    settingTrianglePolygons.push(...onPointTriangles((block.width + sashingIn) * Math.SQRT2, sashingIn / Math.SQRT2, columns, rows, bordersIn, fabricId));
   }
 
   // Borders, inside out: each sewn to the quilt as it is by then.
@@ -236,6 +255,7 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
     blockSizeIn: block,
     blockBoundsIn: bounds,
     blockDiagonalIn: onPoint ? cleanLength(block.width * Math.SQRT2) : null,
+    unitDiagonalIn: onPoint ? cleanLength((block.width + sashingIn) * Math.SQRT2) : null,
     centreSizeIn: centre,
     finishedSizeIn: finished,
     positions,
@@ -245,6 +265,7 @@ export function quiltPlan(document: PatternDocument, options: QuiltPlanOptions =
     settingTrianglePolygons,
     sashing,
     sashingRects,
+    sashingPolygons,
     alternateBlocks,
     borders,
     borderRects,
@@ -313,7 +334,9 @@ function rect(xIn: number, yIn: number, widthIn: number, heightIn: number, fabri
 function layoutCells(layout: QuiltLayout, columns: number, rows: number, block: SizeIn, bounds: BlockBounds, bordersIn: number, sashingIn: number): QuiltPlanCell[] {
   const given = new Map((layout.cells ?? []).map((c) => [`${c.row},${c.col}`, c]));
   const onPoint = layout.setting === 'on-point';
-  const d = block.width * Math.SQRT2;
+  // On point the blocks sit on a grid of sashed units (diagonal D); the outer sashing moves them m in.
+  const D = (block.width + sashingIn) * Math.SQRT2;
+  const m = sashingIn / Math.SQRT2;
   const out: QuiltPlanCell[] = [];
   const rowCount = onPoint ? 2 * rows - 1 : rows;
   for (let row = 0; row < rowCount; row++) {
@@ -321,7 +344,7 @@ function layoutCells(layout: QuiltLayout, columns: number, rows: number, block: 
     for (let col = 0; col < inRow; col++) {
       const c = given.get(`${row},${col}`);
       const centreIn = onPoint
-        ? { x: bordersIn + (row % 2 === 0 ? (col + 0.5) * d : (col + 1) * d), y: bordersIn + ((row + 1) * d) / 2 }
+        ? { x: bordersIn + m + (row % 2 === 0 ? (col + 0.5) * D : (col + 1) * D), y: bordersIn + m + ((row + 1) * D) / 2 }
         : { x: bordersIn + col * (block.width + sashingIn) + block.width / 2, y: bordersIn + row * (block.height + sashingIn) + block.height / 2 };
       const rotateDeg = c?.rotateDeg ?? 0;
       const mirrored = c?.mirrored ?? false;
@@ -368,29 +391,83 @@ function cleanTransform(v: number): number {
   return r === 0 ? 0 : r;
 }
 
-/** The side and corner setting triangles of an on-point quilt as drawn (finished), in quilt coordinates. */
-function onPointTriangles(d: number, columns: number, rows: number, o: number, fabricId: string | null): QuiltPolygon[] {
-  const h = d / 2;
-  const W = columns * d;
-  const H = rows * d;
+/**
+ * The side and corner setting triangles of an on-point quilt as drawn (finished), in quilt coordinates:
+ * D the diagonal of a (sashed) unit, m the outer sashing's reach beyond the units (s/√2; 0 without sashing).
+ */
+function onPointTriangles(D: number, m: number, columns: number, rows: number, o: number, fabricId: string | null): QuiltPolygon[] {
+  const h = D / 2;
+  const c = m + h; // a corner triangle's short side
+  const W = columns * D + 2 * m;
+  const H = rows * D + 2 * m;
   const p = (x: number, y: number) => ({ x: cleanLength(o + x), y: cleanLength(o + y) });
   const out: QuiltPolygon[] = [];
   for (let j = 0; j < columns - 1; j++) {
-    const x = (j + 1) * d;
+    const x = m + (j + 1) * D;
     out.push({ points: [p(x - h, 0), p(x + h, 0), p(x, h)], fabricId });
     out.push({ points: [p(x - h, H), p(x, H - h), p(x + h, H)], fabricId });
   }
   for (let i = 0; i < rows - 1; i++) {
-    const y = (i + 1) * d;
+    const y = m + (i + 1) * D;
     out.push({ points: [p(0, y - h), p(h, y), p(0, y + h)], fabricId });
     out.push({ points: [p(W, y - h), p(W, y + h), p(W - h, y)], fabricId });
   }
   out.push(
-    { points: [p(0, 0), p(h, 0), p(0, h)], fabricId },
-    { points: [p(W - h, 0), p(W, 0), p(W, h)], fabricId },
-    { points: [p(0, H - h), p(h, H), p(0, H)], fabricId },
-    { points: [p(W, H - h), p(W, H), p(W - h, H)], fabricId },
+    { points: [p(0, 0), p(c, 0), p(0, c)], fabricId },
+    { points: [p(W - c, 0), p(W, 0), p(W, c)], fabricId },
+    { points: [p(0, H - c), p(c, H), p(0, H)], fabricId },
+    { points: [p(W, H - c), p(W, H), p(W - c, H)], fabricId },
   );
+  return out;
+}
+
+/**
+ * On-point sashing as drawn: round every block's centre the sashed unit (side w + s, turned 45°) has a
+ * cornerstone (a square of side s turned 45°) at each corner and a strip (w × s) along each side; units
+ * that touch share them, so each is drawn once.
+ */
+function onPointSashing(cells: readonly QuiltPlanCell[], w: number, s: number, stripFabric: string, cornerstoneFabric: string): QuiltPolygon[] {
+  const D = (w + s) * Math.SQRT2;
+  const m = s / Math.SQRT2; // half a cornerstone's diagonal
+  const key = (x: number, y: number) => `${Math.round(x * 1e4)},${Math.round(y * 1e4)}`;
+  const corners = new Map<string, { x: number; y: number }>();
+  const sides = new Map<string, [{ x: number; y: number }, { x: number; y: number }]>();
+  for (const cell of cells) {
+    const { x, y } = cell.centreIn;
+    const ring = [
+      { x, y: y - D / 2 },
+      { x: x + D / 2, y },
+      { x, y: y + D / 2 },
+      { x: x - D / 2, y },
+    ];
+    ring.forEach((a, i) => {
+      const b = ring[(i + 1) % 4]!;
+      corners.set(key(a.x, a.y), a);
+      const k = [key(a.x, a.y), key(b.x, b.y)].sort().join('|');
+      if (!sides.has(k)) sides.set(k, [a, b]);
+    });
+  }
+  const p = (x: number, y: number) => ({ x: cleanLength(x), y: cleanLength(y) });
+  const out: QuiltPolygon[] = [];
+  for (const [a, b] of sides.values()) {
+    // Along the side from a to b (unit t), across it (unit n): the strip leaves s/2 of the side to each cornerstone.
+    const len = Math.hypot(b.x - a.x, b.y - a.y);
+    const t = { x: (b.x - a.x) / len, y: (b.y - a.y) / len };
+    const n = { x: -t.y, y: t.x };
+    const e = s / 2;
+    out.push({
+      points: [
+        p(a.x + t.x * e + n.x * e, a.y + t.y * e + n.y * e),
+        p(b.x - t.x * e + n.x * e, b.y - t.y * e + n.y * e),
+        p(b.x - t.x * e - n.x * e, b.y - t.y * e - n.y * e),
+        p(a.x + t.x * e - n.x * e, a.y + t.y * e - n.y * e),
+      ],
+      fabricId: stripFabric,
+    });
+  }
+  for (const c of corners.values()) {
+    out.push({ points: [p(c.x, c.y - m), p(c.x + m, c.y), p(c.x, c.y + m), p(c.x - m, c.y)], fabricId: cornerstoneFabric });
+  }
   return out;
 }
 

@@ -64,14 +64,20 @@ export interface QuiltSettingTriangles {
   cornerSquares: number;
 }
 
-/** Sashing strips between blocks and cornerstones where they cross (straight setting). */
+/**
+ * Sashing strips and cornerstones where they cross. Straight: between blocks only. On point: every block
+ * framed (strips between the turned blocks along the diagonals and between the outer blocks and the setting
+ * triangles), all in `diagonalStrips`.
+ */
 export interface QuiltSashing {
   fabricId: string;
   widthIn: number;
-  /** Strips between blocks side by side in a row: cut (width + 2·allowance) × (block height + 2·allowance). */
+  /** Straight: strips between blocks side by side in a row: cut (width + 2·allowance) × (block height + 2·allowance). On point: count 0. */
   verticalStrips: { count: number; cutWidthIn: number; cutLengthIn: number };
-  /** Strips between rows, one under each block: cut (width + 2·allowance) × (block width + 2·allowance). */
+  /** Straight: strips between rows, one under each block: cut (width + 2·allowance) × (block width + 2·allowance). On point: count 0. */
   horizontalStrips: { count: number; cutWidthIn: number; cutLengthIn: number };
+  /** On point: the 4·columns·rows strips along the block sides, cut (width + 2·allowance) × (block side + 2·allowance); null when straight. */
+  diagonalStrips: { count: number; cutWidthIn: number; cutLengthIn: number } | null;
   /** Squares where sashing strips cross (of the cornerstone fabric, else the sashing fabric). */
   cornerstones: { count: number; cutSquareIn: number; fabricId: string };
 }
@@ -193,6 +199,8 @@ export interface QuiltPlan {
   blockBoundsIn: { x: number; y: number; width: number; height: number };
   /** Block diagonal on point (w·√2), else null. */
   blockDiagonalIn: number | null;
+  /** On point: the diagonal of a sashed unit, (w + sashing)·√2 (= blockDiagonalIn without sashing); else null. */
+  unitDiagonalIn: number | null;
   /** Size inside the borders, finished. */
   centreSizeIn: SizeIn;
   finishedSizeIn: SizeIn;
@@ -205,8 +213,10 @@ export interface QuiltPlan {
   /** Setting triangles as drawn (on point), in quilt coordinates. */
   settingTrianglePolygons: QuiltPolygon[];
   sashing: QuiltSashing | null;
-  /** Sashing strips and cornerstones as drawn, in quilt coordinates. */
+  /** Sashing strips and cornerstones as drawn (straight), in quilt coordinates. */
   sashingRects: QuiltRect[];
+  /** Sashing strips and cornerstones as drawn on point (turned 45°), in quilt coordinates; empty when straight. */
+  sashingPolygons: QuiltPolygon[];
   alternateBlocks: QuiltAlternateBlocks | null;
   borders: QuiltPlanBorder[];
   /** Borders as drawn: per border four rectangles (left, right, top, bottom), in quilt coordinates. */

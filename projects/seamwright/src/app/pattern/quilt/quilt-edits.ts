@@ -31,9 +31,7 @@ export function removeQuilt(doc: PatternDocument): PatternDocument {
 export function updateQuilt(doc: PatternDocument, change: Partial<QuiltLayout>): PatternDocument {
   if (!doc.quilt) return doc;
   const quilt = { ...doc.quilt, ...change };
-  // Sashing belongs to a straight setting only (the library refuses it on point).
   if (quilt.setting === 'on-point') {
-    delete quilt.sashing;
     // Setting triangles need a fabric to be drawn and cut: the first of the pattern until one is chosen.
     if (!quilt.settingTrianglesFabricId && doc.fabrics[0]) quilt.settingTrianglesFabricId = doc.fabrics[0].id;
   }

@@ -65,6 +65,10 @@ export function quiltPictureSvg(document: PatternDocument, plan: QuiltPlan, opti
   for (const r of plan.sashingRects) {
     parts.push(`<rect data-part="sashing" x="${num(r.xIn)}" y="${num(r.yIn)}" width="${num(r.widthIn)}" height="${num(r.heightIn)}" fill="${colour(r.fabricId)}" stroke="${INK}" stroke-width="${SEAM_IN}"/>`);
   }
+  for (const p of plan.sashingPolygons) {
+    const points = p.points.map((pt) => `${num(pt.x)},${num(pt.y)}`).join(' ');
+    parts.push(`<polygon data-part="sashing" points="${points}" fill="${colour(p.fabricId)}" stroke="${INK}" stroke-width="${SEAM_IN}"/>`);
+  }
   for (const p of plan.settingTrianglePolygons) {
     const points = p.points.map((pt) => `${num(pt.x)},${num(pt.y)}`).join(' ');
     parts.push(`<polygon data-part="setting-triangle" points="${points}" fill="${colour(p.fabricId)}" stroke="${INK}" stroke-width="${SEAM_IN}"/>`);
