@@ -39,6 +39,8 @@ interface Fixture {
   uploadId: string;
   invitationId: string;
   printSetId: string;
+  /** The quilter's own colourway copy of the pattern (theirs alone: everyone else gets 404). */
+  copyId: string;
 }
 
 /** A fresh pattern shared with co (co-designer), quilter and extra (quilters), with an upload and an invitation. */
@@ -65,8 +67,12 @@ async function fixture(trashed = false): Promise<Fixture> {
        VALUES (?, ?, ?, 1, ?, '{}', 'done', 1, 1, 15, 'x', ?, ?, ?)`,
     )
     .run(printSetId, id, rev.id, clients.owner.user!.id, storagePath, Date.now(), Date.now());
+  const copyId = `cc${Math.random().toString(36).slice(2, 12)}`;
+  t.ctx.database.sqlite
+    .prepare(`INSERT INTO colourway_copies (id, user_id, pattern_id, name, fabrics, version, created_at, updated_at) VALUES (?, ?, ?, 'Mine', '{}', 1, ?, ?)`)
+    .run(copyId, clients.quilter.user!.id, id, Date.now(), Date.now());
   if (trashed) await clients.owner.post(`/api/patterns/${id}/trash`).expect(200);
-  return { id, uploadId: up.body.upload.id, invitationId: inv.body.invitation.id, printSetId };
+  return { id, uploadId: up.body.upload.id, invitationId: inv.body.invitation.id, printSetId, copyId };
 }
 
 interface Case {
@@ -83,6 +89,8 @@ const READ = { owner: 200, co: 200, quilter: 200, stranger: 404, admin: 404, ano
 const EDIT = (ok: number) => ({ owner: ok, co: ok, quilter: 403, stranger: 404, admin: 404, anon: 404 });
 const OWNER = (ok: number) => ({ owner: ok, co: 403, quilter: 403, stranger: 404, admin: 404, anon: 404 });
 const OWNER_TRASHED = (ok: number) => ({ owner: ok, co: 404, quilter: 404, stranger: 404, admin: 404, anon: 404 });
+/** The quilter's own colourway copy: theirs alone, 404 to everyone else, the pattern's owner too. */
+const COPY_OWNER = (ok: number) => ({ owner: 404, co: 404, quilter: ok, stranger: 404, admin: 404, anon: 404 });
 
 const CASES: Case[] = [
   { name: 'read pattern', method: 'get', path: (f) => `/api/patterns/${f.id}`, expect: READ },
@@ -113,6 +121,11 @@ const CASES: Case[] = [
   { name: 'follow print set events', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}/events`, expect: READ },
   { name: 'download print set', method: 'get', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}/file`, expect: READ },
   { name: "delete the owner's print set", method: 'delete', path: (f) => `/api/patterns/${f.id}/print-sets/${f.printSetId}`, expect: { owner: 204, co: 403, quilter: 403, stranger: 404, admin: 404, anon: 404 } },
+  { name: 'list own colourway copies', method: 'get', path: (f) => `/api/patterns/${f.id}/colourway-copies`, expect: READ },
+  { name: 'copy a colourway', method: 'post', path: (f) => `/api/patterns/${f.id}/colourway-copies`, body: () => ({ colourwayId: null }), expect: { owner: 201, co: 201, quilter: 201, stranger: 404, admin: 404, anon: 404 } },
+  { name: "read the quilter's copy", method: 'get', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, expect: COPY_OWNER(200) },
+  { name: "save the quilter's copy", method: 'patch', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, body: () => ({ version: 1, name: 'Renamed' }), expect: COPY_OWNER(200) },
+  { name: "delete the quilter's copy", method: 'delete', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, expect: COPY_OWNER(204) },
   { name: 'request print set', method: 'post', path: (f) => `/api/patterns/${f.id}/print-sets`, body: () => ({ options: {} }), expect: { owner: 202, co: 202, quilter: 202, stranger: 404, admin: 404, anon: 404 } },
 ];
 
