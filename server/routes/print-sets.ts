@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
@@ -11,7 +10,8 @@ import { HttpError, zodDetails } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { estimateTemplateSheets, MAX_PRINT_SHEETS } from '../print/print-budget';
-import { removeStoredFiles, resolveInData } from '../services/files';
+import { fileStoreOf } from '../storage/file-store-of';
+import { sendStoredFile } from '../storage/send-stored';
 import { isShopBuyer } from '../services/access';
 import { findRevision } from '../services/revisions';
 
@@ -63,6 +63,7 @@ function unsewableSections(document: PatternDocument, sectionIds: readonly strin
 export function printSetsRouter(ctx: AppContext): Router {
   const { db, config } = ctx;
   const router = express.Router({ mergeParams: true });
+  const files = fileStoreOf(ctx);
 
   // A shop buyer reaches only their own print sets (issue 15: buyers never see each other).
   const onlyBy = (req: Request, res: Response): string | undefined => {
@@ -187,7 +188,7 @@ export function printSetsRouter(ctx: AppContext): Router {
     req.on('close', () => ctx.printSets.events.off('update', onUpdate));
   });
 
-  router.get('/:setId/file', (req, res, next) => {
+  router.get('/:setId/file', async (req, res) => {
     const { pattern } = patternOf(res);
     const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
     if (set.status !== 'done' || !set.storagePath) {
@@ -196,15 +197,14 @@ export function printSetsRouter(ctx: AppContext): Router {
         progress: set.progress,
       });
     }
-    const file = resolveInData(config.dataDir, set.storagePath);
-    if (!fs.existsSync(file)) throw new HttpError(404, 'Print set file not found');
     const name = `${fileSlug(pattern.title)}-r${set.revisionNumber}.pdf`;
-    res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
     res.setHeader('Cache-Control', 'private, no-store');
-    res.sendFile(file, { headers: { 'Content-Type': 'application/pdf' } }, (err) => {
-      if (err && !res.headersSent) next(err);
-    });
+    const sent = await sendStoredFile(req, res, files, set.storagePath, { contentType: 'application/pdf', sha256: set.sha256 });
+    if (!sent) {
+      res.removeHeader('Content-Disposition');
+      throw new HttpError(404, 'Print set file not found');
+    }
   });
 
   router.delete('/:setId', async (req, res) => {
@@ -214,7 +214,7 @@ export function printSetsRouter(ctx: AppContext): Router {
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
     db.delete(printSets).where(eq(printSets.id, set.id)).run();
     ctx.printSets.cancel(set.id);
-    await removeStoredFiles(config.dataDir, [set.storagePath]);
+    if (set.storagePath) await files.remove([set.storagePath]);
     res.status(204).end();
   });
 

@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import { and, desc, eq } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import multer from 'multer';
@@ -12,7 +11,8 @@ import { uploads, type Upload } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
-import { removeStoredFiles, resolveInData, sha256Hex, writeFileAtomic } from '../services/files';
+import { fileStoreOf } from '../storage/file-store-of';
+import { sendStoredFile } from '../storage/send-stored';
 
 /** Largest reference image accepted. */
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
@@ -51,8 +51,9 @@ export const cleanFileName = (name: string) =>
 
 /** `/api/patterns/:id/uploads…`: reference images to trace on the drafting board. */
 export function uploadsRouter(ctx: AppContext): Router {
-  const { db, config } = ctx;
+  const { db } = ctx;
   const router = express.Router({ mergeParams: true });
+  const files = fileStoreOf(ctx);
   const receive = multer({
     storage: multer.memoryStorage(),
     limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5, fieldSize: 1024, parts: 8 },
@@ -89,7 +90,7 @@ export function uploadsRouter(ctx: AppContext): Router {
     }
     const id = newId();
     const storagePath = `uploads/${user.id}/${id}.${ext}`;
-    await writeFileAtomic(resolveInData(config.dataDir, storagePath), file.buffer);
+    const stored = await files.put(storagePath, file.buffer);
     try {
       const row = db
         .insert(uploads)
@@ -99,8 +100,8 @@ export function uploadsRouter(ctx: AppContext): Router {
           uploaderId: user.id,
           fileName: cleanFileName(file.originalname),
           mimeType: type.mime,
-          bytes: file.size,
-          sha256: sha256Hex(file.buffer),
+          bytes: stored.size,
+          sha256: stored.sha256,
           storagePath,
           createdAt: new Date(),
         })
@@ -108,7 +109,7 @@ export function uploadsRouter(ctx: AppContext): Router {
         .get();
       res.status(201).json({ upload: uploadJson(row) });
     } catch (err) {
-      await removeStoredFiles(config.dataDir, [storagePath]);
+      await files.remove([storagePath]);
       throw err;
     }
   });
@@ -126,25 +127,24 @@ export function uploadsRouter(ctx: AppContext): Router {
     return row;
   };
 
-  router.get('/:uploadId/file', (req, res, next) => {
+  router.get('/:uploadId/file', async (req, res) => {
     const { pattern } = patternOf(res);
     const row = findUpload(pattern.id, req.params.uploadId);
-    const file = resolveInData(config.dataDir, row.storagePath);
-    if (!fs.existsSync(file)) throw new HttpError(404, 'Upload not found');
-    res.setHeader('Content-Type', row.mimeType);
     // RFC 6266: an ASCII fallback in filename= and the exact name in filename*=UTF-8''… (RFC 5987).
     res.setHeader('Content-Disposition', contentDisposition(row.fileName, { type: 'inline' }));
     res.setHeader('Cache-Control', 'private, max-age=3600');
-    res.sendFile(file, { headers: { 'Content-Type': row.mimeType } }, (err) => {
-      if (err && !res.headersSent) next(err);
-    });
+    if (!(await sendStoredFile(req, res, files, row.storagePath, { contentType: row.mimeType, sha256: row.sha256 }))) {
+      res.removeHeader('Content-Disposition');
+      res.removeHeader('Cache-Control');
+      throw new HttpError(404, 'Upload not found');
+    }
   });
 
   router.delete('/:uploadId', async (req, res) => {
     const { pattern } = patternOf(res, 'edit');
     const row = findUpload(pattern.id, req.params.uploadId);
     db.delete(uploads).where(eq(uploads.id, row.id)).run();
-    await removeStoredFiles(config.dataDir, [row.storagePath]);
+    await files.remove([row.storagePath]);
     res.status(204).end();
   });
 

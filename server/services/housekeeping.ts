@@ -1,8 +1,8 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import { and, isNotNull, isNull, lt, or } from 'drizzle-orm';
 import type { Db } from '../db/database';
 import { invitations, mailOutbox, passwordResets, printSets, sessions, uploads } from '../db/schema';
+import { DiskFileStore } from '../storage/disk-store';
+import type { FileStore } from '../storage/file-store';
 
 /** Keeps answered invitations and used reset tokens this long, for the record. */
 const KEEP_MS = 30 * 86_400_000;
@@ -44,32 +44,12 @@ export function startHousekeeping(db: Db, log: (message: string, err?: unknown) 
   return () => clearInterval(timer);
 }
 
-/** Folders of the data folder that hold stored files; every file in them belongs to a database row. */
+/** Key prefixes (folders of the data folder) of stored files; every file in them belongs to a database row. */
 const STORED_FOLDERS = ['uploads', 'print-sets'];
 
-/** Every file below `dir`, as paths relative to `root` with forward slashes. */
-function filesBelow(root: string, dir: string): string[] {
-  let entries: fs.Dirent[];
-  try {
-    entries = fs.readdirSync(dir, { withFileTypes: true });
-  } catch {
-    return [];
-  }
-  return entries.flatMap((e) => {
-    const full = path.join(dir, e.name);
-    if (e.isDirectory()) return filesBelow(root, full);
-    return e.isFile() ? [path.relative(root, full).split(path.sep).join('/')] : [];
-  });
-}
-
-/**
- * Removes what a killed process left in the stored-file folders: temporary files of writes that
- * never finished (`writeFileAtomic` names them `.<name>.<random>.tmp`) and files no upload or print
- * set row names (written just before a kill, or whose row was deleted just before one). Run it at
- * start-up, before anything writes files. Returns the removed paths, relative to the data folder.
- */
-export function sweepStoredFiles(db: Db, dataDir: string): string[] {
-  const known = new Set<string>([
+/** The stored-file keys some upload or print-set row names. */
+function knownKeys(db: Db): Set<string> {
+  return new Set<string>([
     ...db.select({ p: uploads.storagePath }).from(uploads).all().map((r) => r.p),
     ...db
       .select({ p: printSets.storagePath })
@@ -78,17 +58,21 @@ export function sweepStoredFiles(db: Db, dataDir: string): string[] {
       .map((r) => r.p)
       .filter((p): p is string => typeof p === 'string'),
   ]);
-  const removed: string[] = [];
-  for (const folder of STORED_FOLDERS) {
-    for (const relative of filesBelow(dataDir, path.join(dataDir, folder))) {
-      if (known.has(relative)) continue;
-      try {
-        fs.rmSync(path.join(dataDir, relative), { force: true });
-        removed.push(relative);
-      } catch {
-        // left for the next start
-      }
-    }
-  }
-  return removed;
+}
+
+/**
+ * Removes what a killed process left in the data folder's stored-file folders: temporary files of
+ * writes that never finished (`writeFileAtomic` names them `.<name>.<random>.tmp`) and files no upload
+ * or print set row names (written just before a kill, or whose row was deleted just before one). Run
+ * it at start-up, before anything writes files. Returns the removed paths, relative to the data folder.
+ */
+export function sweepStoredFiles(db: Db, dataDir: string): string[] {
+  const known = knownKeys(db);
+  return new DiskFileStore(dataDir).sweepNow(STORED_FOLDERS, (key) => known.has(key));
+}
+
+/** {@link sweepStoredFiles} for any file store (the data folder or the database). Returns the removed keys. */
+export function sweepStoredFilesIn(db: Db, files: FileStore): Promise<string[]> {
+  const known = knownKeys(db);
+  return files.sweep(STORED_FOLDERS, (key) => known.has(key));
 }

@@ -8,7 +8,8 @@ import type { Db } from '../db/database';
 import { printSets, revisions, type PrintSet } from '../db/schema';
 import { RENDER_CANCELLED, type RenderProgress, type RenderResult, type RenderTask } from '../print/print-messages';
 import { MAX_PRINT_SHEETS } from '../print/print-budget';
-import { removeStoredFiles, resolveInData, sha256Hex, writeFileAtomic } from './files';
+import type { FileStore, StoredFile } from '../storage/file-store';
+import { fileStoreOf } from '../storage/file-store-of';
 
 /** The fonts embedded in every print set (shipped in the repository's fonts/ folder). */
 export const FONTS_DIR = new URL('../../fonts/', import.meta.url);
@@ -69,12 +70,17 @@ export class PrintSetService {
   /** End states not yet stored, by set id (docs/api.md: a set never stays "rendering"). */
   private readonly unstoredEnds = new Map<string, UnstoredEnd>();
 
+  /** Where the PDFs are stored. */
+  private readonly files: FileStore;
+
   constructor(
     private readonly db: Db,
     private readonly config: Config,
     private readonly log: (message: string, err?: unknown) => void,
+    files?: FileStore,
   ) {
     this.events.setMaxListeners(1000);
+    this.files = fileStoreOf({ config, files });
   }
 
   /** Threads the pool renders on at once. */
@@ -270,9 +276,9 @@ export class PrintSetService {
     const row = this.db.select().from(printSets).where(eq(printSets.id, setId)).get();
     if (!row) return; // deleted while rendering
     const storagePath = `print-sets/${row.createdBy}/${setId}.pdf`;
-    const pdf = new Uint8Array(m.pdf);
+    let stored: StoredFile;
     try {
-      await writeFileAtomic(resolveInData(this.config.dataDir, storagePath), pdf);
+      stored = await this.files.put(storagePath, new Uint8Array(m.pdf));
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
       this.log('print set could not be stored', err);
@@ -287,8 +293,8 @@ export class PrintSetService {
         sheets: m.sheetCount,
         templateSheets: m.templateSheetCount,
         lowerBoundSheets: m.lowerBoundSheets,
-        bytes: pdf.byteLength,
-        sha256: sha256Hex(pdf),
+        bytes: stored.size,
+        sha256: stored.sha256,
         storagePath,
         finishedAt: new Date(),
       },
@@ -308,7 +314,7 @@ export class PrintSetService {
   private end(setId: string, values: Partial<PrintSet>, orphanPaths: string[] = []): void {
     const stored = this.tryUpdate(setId, values);
     if (stored === 'gone') {
-      if (orphanPaths.length > 0) void removeStoredFiles(this.config.dataDir, orphanPaths);
+      if (orphanPaths.length > 0) void this.files.remove(orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
       return;
     }
     if (stored === 'stored') return;
@@ -329,7 +335,7 @@ export class PrintSetService {
         return;
       }
       this.unstoredEnds.delete(setId);
-      if (stored === 'gone' && entry.orphanPaths?.length) void removeStoredFiles(this.config.dataDir, entry.orphanPaths);
+      if (stored === 'gone' && entry.orphanPaths?.length) void this.files.remove(entry.orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
     }, entry.waitMs);
     entry.timer.unref();
   }
