@@ -4,6 +4,7 @@ import type { AppContext } from './app-context';
 import { createCsrf } from './auth/csrf';
 import { loadSession } from './auth/sessions';
 import { apiNotFound, errorMiddleware } from './http/errors';
+import { installHotRoutes } from './http/hot-routes';
 import { jsonBodies } from './http/json-bodies';
 import { patternAccess } from './http/pattern-access';
 import { securityHeaders } from './http/security';
@@ -66,5 +67,7 @@ export function createApp(ctx: AppContext): Express {
     res.status(404).json({ error: 'Not found', details: null });
   });
   app.use(errorMiddleware((err) => ctx.log('request failed', err)));
+  // Reads, lists and small saves of patterns are answered in front of Express, the same way (server/http/hot-routes.ts).
+  installHotRoutes(app, ctx, csrf);
   return app;
 }

@@ -29,6 +29,18 @@ export interface Csrf {
   protect: RequestHandler;
   /** Issues a token for the request's current session (call after changing the session). */
   issue(req: Request, res: Response): string;
+  /**
+   * Whether a state-changing request carries a valid token: the check `protect` makes, for a request
+   * outside Express (server/http/hot-routes.ts) with its parsed cookies and session already read.
+   */
+  valid(req: CsrfRequest): boolean;
+}
+
+/** What the token check reads of a request. */
+export interface CsrfRequest {
+  headers: Request['headers'];
+  cookies: Record<string, unknown>;
+  sessionTokenHash?: string;
 }
 
 /**
@@ -37,7 +49,7 @@ export interface Csrf {
  */
 export function createCsrf(config: Config): Csrf {
   const secret = csrfSecret(config);
-  const { doubleCsrfProtection, generateCsrfToken } = doubleCsrf({
+  const { doubleCsrfProtection, generateCsrfToken, validateRequest } = doubleCsrf({
     getSecret: () => secret,
     getSessionIdentifier: (req) => req.sessionTokenHash ?? '',
     cookieName: CSRF_COOKIE,
@@ -52,5 +64,7 @@ export function createCsrf(config: Config): Csrf {
     protect: doubleCsrfProtection,
     // Reuse the cookie's token while it fits the session, so parallel requests never invalidate each other.
     issue: (req, res) => generateCsrfToken(req, res, { overwrite: false, validateOnReuse: false }),
+    // validateRequest reads only the headers, the cookies and the session identifier given above.
+    valid: (req) => validateRequest(req as unknown as Request),
   };
 }

@@ -53,8 +53,17 @@ export function endUserSessions(db: DbLike, userId: string, keepTokenHash?: stri
   db.delete(sessions).where(where).run();
 }
 
-/** Reads the session cookie and sets `req.user` when it names a live session of an enabled user. */
-export function loadSession(db: Db): RequestHandler {
+/** A live session: its user and the SHA-256 of its token (the CSRF tokens are tied to it). */
+export interface LiveSession {
+  user: User;
+  tokenHash: string;
+}
+
+/**
+ * The session a request's parsed cookies name, when it is live and its user enabled; shared by the
+ * session middleware and the hot routes (server/http/hot-routes.ts), so both read it the same way.
+ */
+export function sessionReader(db: Db): (cookies: Record<string, unknown> | undefined) => LiveSession | undefined {
   // Runs on every request: one statement prepared once on the connection, the row mapped by hand
   // (a disabled user's session counts as none, so that row never leaves SQLite).
   const liveSession = (db as Db & { $client: BetterSqlite3.Database }).$client.prepare<[string, number], UserRow>(
@@ -62,15 +71,24 @@ export function loadSession(db: Db): RequestHandler {
        FROM sessions s JOIN users u ON u.id = s.user_id
       WHERE s.token_hash = ? AND s.expires_at > ? AND u.disabled = 0`,
   );
+  return (cookies) => {
+    const token: unknown = cookies?.[SESSION_COOKIE];
+    if (typeof token !== 'string' || token.length === 0 || token.length > 100) return undefined;
+    const tokenHash = hashToken(token);
+    const row = liveSession.get(tokenHash, Date.now());
+    if (!row) return undefined;
+    return { user: { ...row, disabled: row.disabled !== 0, createdAt: new Date(row.createdAt) }, tokenHash };
+  };
+}
+
+/** Reads the session cookie and sets `req.user` when it names a live session of an enabled user. */
+export function loadSession(db: Db): RequestHandler {
+  const sessionOf = sessionReader(db);
   return (req, _res, next) => {
-    const token: unknown = req.cookies?.[SESSION_COOKIE];
-    if (typeof token === 'string' && token.length > 0 && token.length <= 100) {
-      const tokenHash = hashToken(token);
-      const row = liveSession.get(tokenHash, Date.now());
-      if (row) {
-        req.user = { ...row, disabled: row.disabled !== 0, createdAt: new Date(row.createdAt) };
-        req.sessionTokenHash = tokenHash;
-      }
+    const live = sessionOf(req.cookies as Record<string, unknown> | undefined);
+    if (live) {
+      req.user = live.user;
+      req.sessionTokenHash = live.tokenHash;
     }
     next();
   };

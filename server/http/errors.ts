@@ -24,43 +24,46 @@ export function zodDetails(error: z.ZodError): { path: string; message: string }
 /** Answers 404 for any /api route that does not exist. */
 export const apiNotFound: RequestHandler = (_req, _res, next) => next(new HttpError(404, 'No such API route'));
 
+/** What an error is answered with: its status, the `{ error, details }` body, and whether it is logged. */
+export interface ErrorAnswer {
+  status: number;
+  body: { error: string; details: unknown };
+  log: boolean;
+}
+
 /**
- * The one error middleware: known errors keep their status, body-parser errors become 400/413,
- * everything else is a 500 with no detail. Stack traces are logged, never sent.
+ * The answer to an error: known errors keep their status, body-parser errors become 400/413,
+ * everything else is a 500 with no detail. Shared by the error middleware and the hot routes
+ * (server/http/hot-routes.ts).
  */
+export function errorAnswer(err: unknown): ErrorAnswer {
+  if (err instanceof HttpError) return { status: err.status, body: { error: err.message, details: err.details ?? null }, log: false };
+  if (err instanceof z.ZodError) return { status: 400, body: { error: 'Invalid request', details: zodDetails(err) }, log: false };
+  const e = (err ?? {}) as { status?: unknown; statusCode?: unknown; type?: unknown; code?: unknown; message?: unknown };
+  const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 500;
+  if (status >= 400 && status < 500) {
+    const messages: Record<string, string> = {
+      'entity.parse.failed': 'Malformed JSON body',
+      'entity.too.large': 'Request body too large',
+      'encoding.unsupported': 'Unsupported body encoding',
+      'charset.unsupported': 'Unsupported body charset',
+    };
+    const byType = typeof e.type === 'string' ? messages[e.type] : undefined;
+    const byCode = e.code === 'EBADCSRFTOKEN' ? 'Missing or invalid CSRF token' : undefined;
+    return { status, body: { error: byType ?? byCode ?? 'Bad request', details: null }, log: false };
+  }
+  const storage = storageProblem(e.code);
+  if (storage) return { status: storage.status, body: { error: storage.message, details: null }, log: true };
+  return { status: 500, body: { error: 'Internal server error', details: null }, log: true };
+}
+
+/** The one error middleware: answers {@link errorAnswer}. Stack traces are logged, never sent. */
 export function errorMiddleware(log: (err: unknown) => void): ErrorRequestHandler {
   return (err, _req, res, next) => {
     if (res.headersSent) return next(err);
-    if (err instanceof HttpError) {
-      res.status(err.status).json({ error: err.message, details: err.details ?? null });
-      return;
-    }
-    if (err instanceof z.ZodError) {
-      res.status(400).json({ error: 'Invalid request', details: zodDetails(err) });
-      return;
-    }
-    const e = err as { status?: unknown; statusCode?: unknown; type?: unknown; code?: unknown; message?: unknown };
-    const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 500;
-    if (status >= 400 && status < 500) {
-      const messages: Record<string, string> = {
-        'entity.parse.failed': 'Malformed JSON body',
-        'entity.too.large': 'Request body too large',
-        'encoding.unsupported': 'Unsupported body encoding',
-        'charset.unsupported': 'Unsupported body charset',
-      };
-      const byType = typeof e.type === 'string' ? messages[e.type] : undefined;
-      const byCode = e.code === 'EBADCSRFTOKEN' ? 'Missing or invalid CSRF token' : undefined;
-      res.status(status).json({ error: byType ?? byCode ?? 'Bad request', details: null });
-      return;
-    }
-    const storage = storageProblem(e.code);
-    if (storage) {
-      log(err);
-      res.status(storage.status).json({ error: storage.message, details: null });
-      return;
-    }
-    log(err);
-    res.status(500).json({ error: 'Internal server error', details: null });
+    const answer = errorAnswer(err);
+    if (answer.log) log(err);
+    res.status(answer.status).json(answer.body);
   };
 }
 

@@ -1,5 +1,5 @@
 import helmet from 'helmet';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 
 /**
  * Helmet with a Content-Security-Policy that allows only our own origin. Angular injects component
@@ -28,4 +28,32 @@ export function securityHeaders(): RequestHandler {
     crossOriginEmbedderPolicy: false,
     strictTransportSecurity: false,
   });
+}
+
+/**
+ * The headers {@link securityHeaders} sets, as `[name, value]` in its order: helmet's configuration
+ * sets the same headers on every answer, so the hot routes (server/http/hot-routes.ts) send this list,
+ * recorded once, instead of running helmet per request.
+ */
+export function securityHeaderList(): [string, string][] {
+  const headers = new Map<string, [string, string]>();
+  const recorder = {
+    setHeader(name: string, value: unknown) {
+      headers.set(name.toLowerCase(), [name, String(value)]);
+      return recorder;
+    },
+    removeHeader(name: string) {
+      headers.delete(name.toLowerCase());
+    },
+    getHeader(name: string) {
+      return headers.get(name.toLowerCase())?.[1];
+    },
+  };
+  let done = false;
+  securityHeaders()({ headers: {}, method: 'GET' } as Request, recorder as unknown as Response, (err?: unknown) => {
+    if (err) throw err instanceof Error ? err : new Error(String(err));
+    done = true;
+  });
+  if (!done) throw new Error('helmet did not finish at once');
+  return [...headers.values()];
 }

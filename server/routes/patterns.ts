@@ -5,20 +5,20 @@ import { duplicateBodySchema, patternListQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { patterns, printSets, uploads, type Revision } from '../db/schema';
+import { patterns, printSets, uploads } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf, patternReadOf } from '../http/pattern-access';
+import { sendJsonText } from '../http/send-json';
 import { canDesign } from '../services/access';
 import { removeStoredFiles, resolveInData } from '../services/files';
 import { checkDocumentBody } from '../validation/document-body';
 import { listPatterns } from '../services/pattern-list';
+import { readAnswerText, saveAnswerText } from '../services/pattern-answers';
 import {
   createPattern,
   findRevision,
-  ownerName,
   patternJson,
-  saveRevision,
   sendPatternWithRevision,
   validDocument,
 } from '../services/revisions';
@@ -49,37 +49,18 @@ export function patternsRouter(ctx: AppContext): Router {
 
   router.get('/:id', (_req, res) => {
     // Pattern, access and latest revision come from one query (the pattern-access middleware).
-    const { pattern, access, ownerName: owner, row } = patternReadOf(res);
-    if (row.revId === null) throw new HttpError(500, 'Pattern has no revision');
-    const revision: Revision = {
-      id: row.revId,
-      patternId: pattern.id,
-      number: row.revNumber,
-      document: row.revDocument,
-      authorId: row.revAuthorId,
-      restoredFrom: row.revRestoredFrom,
-      editSession: row.revEditSession,
-      groupStart: row.revGroupStart,
-      versionName: row.revVersionName,
-      versionNote: row.revVersionNote,
-      createdAt: new Date(row.revCreatedAt),
-    };
-    sendPatternWithRevision(res, 200, patternJson(pattern, owner, access), revision, row.revAuthorName);
+    sendJsonText(res, 200, readAnswerText(patternReadOf(res)));
   });
 
   router.put('/:id', async (req, res) => {
-    const { pattern, access } = patternOf(res, 'edit');
+    const found = patternOf(res, 'edit');
     const user = currentUser(req);
     // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
     if (Buffer.isBuffer(req.body)) {
-      await ctx.documentChecks.answer(res, { kind: 'save', patternId: pattern.id, access, userId: user.id, displayName: user.displayName }, req.body);
+      await ctx.documentChecks.answer(res, { kind: 'save', patternId: found.pattern.id, access: found.access, userId: user.id, displayName: user.displayName }, req.body);
       return;
     }
-    const { fields: body, document } = checkDocumentBody('save', req.body);
-    const saved = db.transaction((tx) => saveRevision(tx, pattern.id, body.baseRevision, document, user.id, { editSession: body.editSession }), {
-      behavior: 'immediate',
-    });
-    sendPatternWithRevision(res, 200, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    sendJsonText(res, 200, saveAnswerText(db, found, user, req.body));
   });
 
   router.post('/:id/duplicate', async (req, res) => {
