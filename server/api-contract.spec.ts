@@ -44,6 +44,9 @@ import {
   uploadListAnswerSchema,
   userAnswerSchema,
   userPageSchema,
+  colourwayCopyAnswerSchema,
+  colourwayCopyListAnswerSchema,
+  staleCopyDetailsSchema,
 } from '@seamwright/api';
 import { parsePatternDocument } from '@seamwright/piecing';
 import { startFakeStripeServer, type FakeStripeServer } from './dev/fake-stripe-server';
@@ -170,6 +173,15 @@ describe('answers match the shared API contract', () => {
     answer(await quilter.get(`/api/patterns/${id}/sewing-log`), 200, sewingLogAnswerSchema);
     expect(answer(await quilter.put(`/api/patterns/${id}/sewing-log/${sectionId}`, { stage: null }), 200, sewingLogEntryAnswerSchema).entry).toBeNull();
 
+    // Colourway copies: the quilter's own, saved on top of a version.
+    const own = answer(await quilter.post(`/api/patterns/${id}/colourway-copies`, { colourwayId: null }), 201, colourwayCopyAnswerSchema).copy;
+    answer(await quilter.patch(`/api/patterns/${id}/colourway-copies/${own.id}`, { version: 1, name: 'My own' }), 200, colourwayCopyAnswerSchema);
+    const staleCopy = answer(await quilter.patch(`/api/patterns/${id}/colourway-copies/${own.id}`, { version: 1, name: 'Late' }), 409, errorAnswerSchema);
+    staleCopyDetailsSchema.parse(staleCopy.details);
+    checked.add(staleCopyDetailsSchema);
+    answer(await quilter.get(`/api/patterns/${id}/colourway-copies/${own.id}`), 200, colourwayCopyAnswerSchema);
+    expect(answer(await quilter.get(`/api/patterns/${id}/colourway-copies`), 200, colourwayCopyListAnswerSchema).items).toHaveLength(1);
+
     // Uploads.
     const upload = owner.req('post', `/api/patterns/${id}/uploads`).attach('file', TINY_PNG, { filename: 'ref.png', contentType: 'image/png' });
     answer(await upload, 201, uploadAnswerSchema);
@@ -219,7 +231,7 @@ describe('answers match the shared API contract', () => {
 
   it('checked every answer schema the contract offers', () => {
     const offered = [
-      checkoutAnswerSchema, csrfAnswerSchema, devInboxAnswerSchema, errorAnswerSchema, healthAnswerSchema, invitationAnswerSchema,
+      checkoutAnswerSchema, colourwayCopyAnswerSchema, colourwayCopyListAnswerSchema, staleCopyDetailsSchema, csrfAnswerSchema, devInboxAnswerSchema, errorAnswerSchema, healthAnswerSchema, invitationAnswerSchema,
       invitationPreviewAnswerSchema, listingAnswerSchema, listingPageSchema, memberChangeAnswerSchema, membersAnswerSchema, myShopSchema,
       okAnswerSchema, orderAnswerSchema, patternAnswerSchema, patternPageSchema, patternWithRevisionSchema, printSetAnswerSchema,
       printSetListAnswerSchema, purchasePageSchema, revisionAnswerSchema, revisionGroupPageSchema, revisionPageSchema, salesPageSchema,
