@@ -3,11 +3,14 @@ import { applyColourway, type Fabric, type PatternDocument, type Point, type Sec
 import { sectionHandles, toDocument, toScreen, type BoardEditor, type BoardHighlight, type ToolPreview } from '../../core/public-api';
 import { BOARD_COLOURS } from './board-colours';
 import { createGridShape, createRulerShape, RULER_PX, type GridView } from './grid-shape';
-import { createSectionShape, type SectionView } from './section-shape';
+import { createSectionPainter, createSectionShape, type SectionPainter, type SectionView } from './section-shape';
 
 interface SectionEntry {
   section: Section;
-  node: Konva.Shape;
+  /** Draws the section (a static one is drawn by the static layer's one shape). */
+  paint: SectionPainter;
+  /** The section's own shape on the active layer (null for a static section). */
+  node: Konva.Shape | null;
   active: boolean;
   /** Seam allowance the shape was made with (fabrics only restyle a shape, read at each draw). */
   settings: string;
@@ -28,25 +31,28 @@ const SYNC_CHECK_BUDGET_MS = 25;
 const CHECK_SLICE_MS = 8;
 
 /**
- * Draws a {@link BoardEditor} on a Konva stage. Layers: grid (screen space), reference image, the
- * static sections, the active section (selected or being dragged), the tool overlay and the rulers.
- * Each section is one shape that draws its patches, lines and numbers straight onto the layer's
- * canvas; a section is rebuilt only when its object changed, and only the layers that changed are
- * redrawn: a vertex drag redraws the active layer and the overlay, never the static sections. The
- * overlay (handles, snap marker, cursor, tool preview, highlight) is one shape redrawn each frame.
+ * Draws a {@link BoardEditor} on a Konva stage of three layers (each layer is a stage-sized canvas,
+ * costly to make, so there are few): the base (grid in screen space, reference image, and the static
+ * sections drawn by one shape in document order), the active section (selected or being dragged), and
+ * the top (rulers and the tool overlay). Each section has a painter that draws its patches, lines and
+ * numbers straight onto the canvas; a section's painter is made again only when its object changed,
+ * and only the layers that changed are redrawn: a vertex drag redraws the active layer and the top,
+ * never the static sections. The overlay (handles, snap marker, cursor, tool preview, highlight) is one
+ * shape redrawn each frame. Sections off screen derive nothing until they come into view.
  */
 export class BoardRenderer {
   readonly stage: Konva.Stage;
-  private readonly gridLayer = new Konva.Layer({ listening: false });
-  private readonly referenceLayer = new Konva.Layer({ listening: false });
-  private readonly staticLayer = new Konva.Layer({ listening: false });
+  /** Grid, reference image and static sections. */
+  private readonly baseLayer = new Konva.Layer({ listening: false });
   private readonly activeLayer = new Konva.Layer({ listening: false });
-  private readonly overlayLayer = new Konva.Layer({ listening: false });
-  private readonly rulerLayer = new Konva.Layer({ listening: false });
+  /** Rulers and overlay. */
+  private readonly topLayer = new Konva.Layer({ listening: false });
   private readonly staticContent = new Konva.Group({ listening: false });
   private readonly activeContent = new Konva.Group({ listening: false });
   private readonly referenceContent = new Konva.Group({ listening: false });
   private readonly entries = new Map<string, SectionEntry>();
+  /** The sections of the document last rendered, in the order the static layer draws them. */
+  private drawnSections: readonly Section[] = [];
   private highlight: BoardHighlight | null = null;
   private referenceImage: Konva.Image | null = null;
   private referenceUrl: string | null = null;
@@ -95,12 +101,18 @@ export class BoardRenderer {
         cursorPx: cursor ? toScreen(v, cursor) : null,
       };
     };
-    this.gridLayer.add(createGridShape(view));
-    this.rulerLayer.add(createRulerShape(view));
-    this.referenceLayer.add(this.referenceContent);
-    this.staticLayer.add(this.staticContent);
+    this.staticContent.add(
+      new Konva.Shape({
+        name: 'static-sections',
+        listening: false,
+        perfectDrawEnabled: false,
+        sceneFunc: (context) => this.drawStaticSections(context._context),
+      }),
+    );
+    this.baseLayer.add(createGridShape(view), this.referenceContent, this.staticContent);
     this.activeLayer.add(this.activeContent);
-    this.overlayLayer.add(
+    this.topLayer.add(createRulerShape(view));
+    this.topLayer.add(
       new Konva.Shape({
         name: 'overlay',
         listening: false,
@@ -108,10 +120,19 @@ export class BoardRenderer {
         sceneFunc: (context) => this.drawOverlay(context._context),
       }),
     );
-    this.stage.add(this.gridLayer, this.referenceLayer, this.staticLayer, this.activeLayer, this.rulerLayer, this.overlayLayer);
+    this.stage.add(this.baseLayer, this.activeLayer, this.topLayer);
     this.unsubscribe.push(editor.store.subscribe(() => this.schedule()));
     this.unsubscribe.push(editor.onViewChange(() => this.schedule()));
-    this.renderNow();
+    // Drawn on the next frame, so a view set right after (e.g. fitting the pattern) is drawn once.
+    this.schedule();
+  }
+
+  /** The static sections in document order, each from its painter (the active one is on its own layer). */
+  private drawStaticSections(ctx: CanvasRenderingContext2D): void {
+    for (const section of this.drawnSections) {
+      const e = this.entries.get(section.id);
+      if (e && !e.active) e.paint(ctx);
+    }
   }
 
   /**
@@ -125,7 +146,7 @@ export class BoardRenderer {
     this.referenceImage = null;
     this.referenceKey = '';
     if (!url) {
-      this.referenceLayer.draw();
+      this.baseLayer.draw();
       return;
     }
     const img = new Image();
@@ -238,7 +259,7 @@ export class BoardRenderer {
         continue;
       }
       if (old) {
-        old.node.destroy();
+        old.node?.destroy();
         if (old.active) activeDirty = true;
         else staticDirty = true;
       }
@@ -251,7 +272,7 @@ export class BoardRenderer {
         checked = true;
       }
       if (!checked) this.unchecked.push(section);
-      const node = createSectionShape(section, {
+      const options = {
         analysis: ed.analysis,
         fabrics: this.shownFabrics,
         selected: active,
@@ -259,39 +280,43 @@ export class BoardRenderer {
         allowanceIn: ed.settings.showSeamAllowance ? doc.seamAllowanceIn : null,
         sewability: checked,
         view: () => this.sectionView,
-      });
-      (active ? this.activeContent : this.staticContent).add(node);
-      if (active) activeDirty = true;
-      else staticDirty = true;
-      this.entries.set(section.id, { section, node, active, settings, patchIndex, pass });
+      };
+      let node: Konva.Shape | null = null;
+      if (active) {
+        node = createSectionShape(section, options);
+        this.activeContent.add(node);
+        activeDirty = true;
+      } else {
+        staticDirty = true;
+      }
+      this.entries.set(section.id, { section, paint: node ? () => undefined : createSectionPainter(section, options), node, active, settings, patchIndex, pass });
+    }
+    if (sections !== this.drawnSections) {
+      // Another order of the same sections (e.g. one brought forward) is drawn again too.
+      if (!staticDirty && !sameOrder(sections, this.drawnSections)) staticDirty = true;
+      this.drawnSections = sections;
     }
     if (this.entries.size !== sections.length) {
       for (const [id, e] of this.entries) {
         if (e.pass === pass) continue;
-        e.node.destroy();
+        e.node?.destroy();
         this.entries.delete(id);
         if (e.active) activeDirty = true;
         else staticDirty = true;
       }
     }
 
-    if (this.placeReferenceImage(doc) && !viewChanged) this.referenceLayer.draw();
-
-    if (viewChanged) {
-      this.rulerLayer.draw();
-      this.gridLayer.draw();
-      this.referenceLayer.draw();
-      this.draws.grid++;
-    }
+    if (this.placeReferenceImage(doc)) staticDirty = true;
+    if (viewChanged) this.draws.grid++;
     if (staticDirty) {
-      this.staticLayer.draw();
+      this.baseLayer.draw();
       this.draws.static++;
     }
     if (activeDirty) {
       this.activeLayer.draw();
       this.draws.active++;
     }
-    this.overlayLayer.draw();
+    this.topLayer.draw();
     this.draws.overlay++;
     this.scheduleChecks();
   }
@@ -498,6 +523,13 @@ const HIGHLIGHT_HALO = 'rgba(255,253,248,0.9)';
 
 /** Ruler band thickness, re-exported for the board component's pointer maths. */
 export const BOARD_RULER_PX = RULER_PX;
+
+/** Whether two section lists hold the same ids in the same order. */
+function sameOrder(a: readonly Section[], b: readonly Section[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i].id !== b[i].id) return false;
+  return true;
+}
 
 function fabricKey(fabrics: readonly Fabric[]): string {
   return fabrics.map((f) => `${f.id}:${f.colour}`).join(',');

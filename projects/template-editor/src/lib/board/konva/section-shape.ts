@@ -273,28 +273,61 @@ function drawSection(ctx: CanvasRenderingContext2D, d: SectionDrawing, o: Sectio
   if (d.reason) drawReason(ctx, d.reason, v);
 }
 
+/** Draws one section onto a canvas whose transform maps document inches to the screen. */
+export type SectionPainter = (ctx: CanvasRenderingContext2D) => void;
+
 /**
- * The Konva shape of one section: its patches filled with their fabrics, the outline, the seams,
- * strip-set bands and guide lines, patch numbers, the sewability failure, ring-repeat copies and (when
- * asked) the cutting line, drawn straight onto the layer's canvas in one pass. What it draws is worked
- * out at its first draw and kept (the shape is replaced when its section changes; other fabrics only
- * restyle the fills); a section wholly
- * off screen is skipped. Never listening: the board hit-tests in the editor core.
+ * What one section draws: its patches filled with their fabrics, the outline, the seams, strip-set
+ * bands and guide lines, patch numbers, the sewability failure, ring-repeat copies and (when asked) the
+ * cutting line, in one pass. A section wholly off screen is skipped before anything is derived for it
+ * (its outline's bounds decide, unless the cutting line or a reason box may reach further); what it
+ * draws is worked out at its first draw on screen and kept (the painter is replaced when its section
+ * changes; other fabrics only restyle the fills).
+ */
+export function createSectionPainter(section: Section, o: SectionShapeOptions): SectionPainter {
+  let drawing: SectionDrawing | null = null;
+  // Outline bounds of every placement: known without splitting the section.
+  let reach: Bounds | null = null;
+  return (ctx) => {
+    const v = o.view();
+    if (!drawing && o.allowanceIn === null && !o.selected) {
+      reach ??= placementBounds(section, o.analysis);
+      if (!overlaps(reach, v.visible)) return;
+    }
+    const fabrics = o.fabrics();
+    drawing ??= buildDrawing(section, o, fabrics);
+    if (drawing.fabrics !== fabrics) restyle(drawing, fabrics);
+    if (!overlaps(drawing.bounds, v.visible) && !drawing.reason) return;
+    drawSection(ctx, drawing, o, v);
+  };
+}
+
+function placementBounds(section: Section, analysis: SectionAnalysis): Bounds {
+  const b = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
+  for (const placement of analysis.placements(section)) {
+    for (const q of analysis.outline(placement)) {
+      if (q.x < b.minX) b.minX = q.x;
+      if (q.x > b.maxX) b.maxX = q.x;
+      if (q.y < b.minY) b.minY = q.y;
+      if (q.y > b.maxY) b.maxY = q.y;
+    }
+  }
+  return b;
+}
+
+/**
+ * The Konva shape of one section ({@link createSectionPainter}), for the active layer. Never
+ * listening: the board hit-tests in the editor core.
  */
 export function createSectionShape(section: Section, o: SectionShapeOptions): Konva.Shape {
-  let drawing: SectionDrawing | null = null;
+  const paint = createSectionPainter(section, o);
   return new Konva.Shape({
     name: 'section',
     id: `section-${section.id}`,
     listening: false,
     perfectDrawEnabled: false,
     sceneFunc(context) {
-      const v = o.view();
-      const fabrics = o.fabrics();
-      drawing ??= buildDrawing(section, o, fabrics);
-      if (drawing.fabrics !== fabrics) restyle(drawing, fabrics);
-      if (!overlaps(drawing.bounds, v.visible) && !drawing.reason) return;
-      drawSection(context._context, drawing, o, v);
+      paint(context._context);
     },
   });
 }

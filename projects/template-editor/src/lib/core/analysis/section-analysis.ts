@@ -91,7 +91,13 @@ export class SectionAnalysis {
     if (!e.derived) {
       try {
         const { patches, problems } = derivePatches(section, { split: this.split(section) });
-        e.derived = { patches: patches.map((p) => withPatchDetails(toBoardPatch(p), matchedAssignment(section, p))).sort((p, q) => p.index - q.index), problems: problems.map((p) => p.message) };
+        // Matching an assignment again (a point-in-polygon test per patch) is needed only for the details
+        // derivePatches does not carry: a rough cut or a piece template.
+        const details = section.patches.some((a) => a.roughCut !== undefined || a.pieceTemplate !== undefined);
+        e.derived = {
+          patches: patches.map((p) => (details ? withPatchDetails(toBoardPatch(p), matchedAssignment(section, p)) : toBoardPatch(p))).sort((p, q) => p.index - q.index),
+          problems: problems.map((p) => p.message),
+        };
       } catch (error) {
         e.derived = { error };
       }
