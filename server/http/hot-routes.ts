@@ -149,6 +149,15 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
   };
 }
 
+const expressHandles = new WeakMap<Express, Handler>();
+
+/** The app without its hot routes: every request through Express (for comparing the two answers). */
+export function expressOnly(app: Express): Handler {
+  const handler = expressHandles.get(app);
+  if (!handler) throw new Error('the hot routes are not installed on this app');
+  return handler;
+}
+
 /**
  * Puts the hot routes in front of the app: every way the app is served (`app.listen`, a server made
  * with `http.createServer(app)`, supertest) calls `app.handle`, which now tries the hot routes first.
@@ -156,6 +165,7 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
 export function installHotRoutes(app: Express, ctx: AppContext, csrf: Csrf): void {
   const withHandle = app as Express & { handle: (req: IncomingMessage, res: ServerResponse, callback?: unknown) => void };
   const expressHandle = withHandle.handle.bind(app);
+  expressHandles.set(app, (req, res) => expressHandle(req, res));
   const hot = hotRoutes(ctx, csrf, (req, res) => expressHandle(req, res));
   withHandle.handle = (req, res, callback) => {
     // Mounted inside another app (a callback from its router): Express all the way.

@@ -18,7 +18,7 @@ interface PatternLocals {
 export function patternAccess(db: DbLike): RequestHandler {
   return (req, res, next) => {
     const locals = res.locals as PatternLocals;
-    if (req.method === 'GET' && req.path === '/') locals.patternAccess = locals.patternRead = loadPatternRead(db, req.user, req.params['id']);
+    if ((req.method === 'GET' || req.method === 'HEAD') && req.path === '/') locals.patternAccess = locals.patternRead = loadPatternRead(db, req.user, req.params['id']);
     else locals.patternAccess = loadPatternAccess(db, req.user, req.params['id']);
     next();
   };
