@@ -95,6 +95,8 @@ export {
   type SizeIn,
   type AffineTransform,
 } from './lib/quilt/index';
+/** The finished quilt's picture as SVG text, for the app and the shop alike. */
+export { quiltPictureSvg, type QuiltPictureSvgOptions } from './lib/quilt/quilt-picture-svg';
 
 /** Resizing a whole design and finding sections outside the drawing area. */
 export {
