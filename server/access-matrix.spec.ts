@@ -126,6 +126,7 @@ const CASES: Case[] = [
   { name: "read the quilter's copy", method: 'get', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, expect: COPY_OWNER(200) },
   { name: "save the quilter's copy", method: 'patch', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, body: () => ({ version: 1, name: 'Renamed' }), expect: COPY_OWNER(200) },
   { name: "delete the quilter's copy", method: 'delete', path: (f) => `/api/patterns/${f.id}/colourway-copies/${f.copyId}`, expect: COPY_OWNER(204) },
+  { name: "request print set in the quilter's copy", method: 'post', path: (f) => `/api/patterns/${f.id}/print-sets`, body: (f) => ({ colourwayCopyId: f.copyId, options: {} }), expect: COPY_OWNER(202) },
   { name: 'request print set', method: 'post', path: (f) => `/api/patterns/${f.id}/print-sets`, body: () => ({ options: {} }), expect: { owner: 202, co: 202, quilter: 202, stranger: 404, admin: 404, anon: 404 } },
 ];
 

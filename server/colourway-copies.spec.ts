@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { colourwayCopyAnswerSchema, colourwayCopyListAnswerSchema, MAX_COLOURWAY_COPIES, staleCopyDetailsSchema } from '@seamwright/api';
 import { buildOrchardWheel } from '@seamwright/piecing';
 import { Client, startTestServer, userClient, type TestServer } from './test/harness';
@@ -126,5 +127,70 @@ describe('colourway copies', () => {
     expect(over.body.details).toEqual({ max: MAX_COLOURWAY_COPIES });
     // Another user's count is their own.
     await quilter.post(url, { colourwayId: 'dusk' }).expect(201);
+  });
+});
+
+/** Every text run of every page of a PDF, read back with Mozilla's reader (pdfjs-dist), not our writer. */
+async function pdfText(bytes: Buffer): Promise<string> {
+  const pdf = await getDocument({ data: new Uint8Array(bytes) }).promise;
+  const pages: string[] = [];
+  for (let n = 1; n <= pdf.numPages; n++) {
+    const content = await (await pdf.getPage(n)).getTextContent();
+    pages.push(content.items.map((i) => ('str' in i ? i.str : '')).join(' '));
+  }
+  await pdf.destroy();
+  return pages.join('\n');
+}
+
+const binary = (res: import('superagent').Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+async function waitDone(c: Client, setId: string) {
+  for (let i = 0; i < 1200; i++) {
+    const res = await c.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200);
+    if (res.body.printSet.status === 'done' || res.body.printSet.status === 'failed') return res.body.printSet;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error('print set did not finish');
+}
+
+describe('print sets in a colourway copy', () => {
+  it("prints in the copy's fabrics as they were when the set was asked for", async () => {
+    const { body } = await quilter.post(base(), { colourwayId: 'dusk', name: 'Night orchard' }).expect(201);
+    const fabrics = { ...body.copy.fabrics, plum: { name: 'Aubergine linen', colour: '#40203a' } };
+    await quilter.patch(`${base()}/${body.copy.id}`, { version: 1, fabrics }).expect(200);
+    const made = await quilter
+      .post(`/api/patterns/${patternId}/print-sets`, { colourwayCopyId: body.copy.id, options: { quiltSize: 'Wall 1 × 1' } })
+      .expect(202);
+    // The answer names the copy; its fabrics are not repeated there.
+    expect(made.body.printSet.options.colourwayCopy).toEqual({ id: body.copy.id, name: 'Night orchard' });
+    // A later edit of the copy does not change the set already asked for.
+    const later = { ...fabrics, plum: { name: 'Changed after', colour: '#000000' } };
+    await quilter.patch(`${base()}/${body.copy.id}`, { version: 2, fabrics: later }).expect(200);
+    const set = await waitDone(quilter, made.body.printSet.id);
+    expect([set.status, set.error]).toEqual(['done', null]);
+    const file = await quilter.get(set.url).buffer(true).parse(binary).expect(200);
+    const text = await pdfText(file.body as Buffer);
+    expect(text).toContain('Aubergine linen');
+    // The other slots are Dusk's (the copy's source), not the pattern's own names.
+    expect(text).toContain('Coal');
+    expect(text).not.toContain('Changed after');
+    expect(text).not.toMatch(/\bPlum\b/);
+  });
+
+  it("answers 404 for someone else's copy or a copy of another pattern, and 400 for a copy with a colourway", async () => {
+    const mine = (await quilter.post(base(), { colourwayId: 'frost' }).expect(201)).body.copy.id as string;
+    const url = `/api/patterns/${patternId}/print-sets`;
+    const theirs = await second.post(url, { colourwayCopyId: mine, options: {} }).expect(404);
+    expect(theirs.body.error).toBe('Colourway copy not found');
+    await owner.post(url, { colourwayCopyId: mine, options: {} }).expect(404);
+    const elsewhere = (await quilter.post(`/api/patterns/${otherPatternId}/colourway-copies`, { colourwayId: 'frost' }).expect(201)).body.copy.id as string;
+    await quilter.post(url, { colourwayCopyId: elsewhere, options: {} }).expect(404);
+    const both = await quilter.post(url, { colourwayCopyId: mine, options: { colourwayId: 'dusk' } }).expect(400);
+    expect(both.body.details).toEqual([{ path: 'options.colourwayId', message: 'choose a colourway or a colourway copy, not both' }]);
+    await quilter.post(url, { colourwayCopyId: '../x', options: {} }).expect(400);
   });
 });

@@ -1,7 +1,7 @@
 import { and, count, desc, eq, inArray } from 'drizzle-orm';
 import express, { type Request, type Response, type Router } from 'express';
 import { printSetBodySchema } from '@seamwright/api';
-import { findUnsewableSections, printOptionsSchema, quiltPrintDocument, quiltPrintIssues, unsewableStatement, type PatternDocument, type UnsewableSection } from '@seamwright/piecing';
+import { applyFabricChoice, findUnsewableSections, printOptionsSchema, quiltPrintDocument, quiltPrintIssues, unsewableStatement, type PatternDocument, type UnsewableSection } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
@@ -13,15 +13,29 @@ import { estimateTemplateSheets, MAX_PRINT_SHEETS } from '../print/print-budget'
 import { fileStoreOf } from '../storage/file-store-of';
 import { sendStoredFile } from '../storage/send-stored';
 import { isShopBuyer } from '../services/access';
+import { findOwnCopy } from '../services/colourway-copies';
 import { findRevision } from '../services/revisions';
 
+
+/** A quilter's colourway copy as stored with a print set's options: a snapshot of its fabrics when requested. */
+interface StoredCopy {
+  id: string;
+  name: string;
+  fabrics: Record<string, { name: string; colour: string }>;
+}
+
+/** The stored options as answered: a colourway copy shows its id and name only (its fabrics are in the PDF). */
+function optionsJson(text: string): Record<string, unknown> {
+  const { colourwayCopy, ...options } = JSON.parse(text) as Record<string, unknown> & { colourwayCopy?: StoredCopy };
+  return colourwayCopy ? { ...options, colourwayCopy: { id: colourwayCopy.id, name: colourwayCopy.name } } : options;
+}
 
 function printSetJson(s: PrintSet, creatorName: string) {
   return {
     id: s.id,
     patternId: s.patternId,
     revision: s.revisionNumber,
-    options: JSON.parse(s.options) as unknown,
+    options: optionsJson(s.options),
     status: s.status,
     progress: s.progress,
     error: s.error,
@@ -87,6 +101,11 @@ export function printSetsRouter(ctx: AppContext): Router {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
     const body = parseOr400(printSetBodySchema, req.body ?? {});
+    // A colourway copy must be the caller's own copy of this pattern (anyone else's is not found).
+    const copy = body.colourwayCopyId === undefined ? null : findOwnCopy(db, user.id, pattern.id, body.colourwayCopyId);
+    if (copy && body.options['colourwayId'] !== undefined) {
+      throw new HttpError(400, 'Invalid print options', [{ path: 'options.colourwayId', message: 'choose a colourway or a colourway copy, not both' }]);
+    }
     const waiting =
       db
         .select({ n: count() })
@@ -118,7 +137,8 @@ export function printSetsRouter(ctx: AppContext): Router {
     if (quiltIssues.length > 0) {
       throw new HttpError(400, 'Invalid print options', quiltIssues.map((i) => ({ path: `options.${i.path}`, message: i.message })));
     }
-    const document = quiltPrintDocument(stored, parsed.data);
+    const quiltDocument = quiltPrintDocument(stored, parsed.data);
+    const document = copy ? applyFabricChoice(quiltDocument, copy.fabrics) : quiltDocument;
     // A section not sewable as numbered is refused with the reason unless the request prints anyway.
     const unsewable = parsed.data.printUnsewable ? [] : unsewableSections(document, parsed.data.sectionIds);
     if (unsewable.length > 0) {
@@ -139,7 +159,8 @@ export function printSetsRouter(ctx: AppContext): Router {
         revisionId: revision.revision.id,
         revisionNumber: revision.revision.number,
         createdBy: user.id,
-        options: JSON.stringify(parsed.data),
+        // The copy's fabrics as they are now: a later edit of the copy does not change this set.
+        options: JSON.stringify(copy ? { ...parsed.data, colourwayCopy: { id: copy.id, name: copy.name, fabrics: copy.fabrics } satisfies StoredCopy } : parsed.data),
         status: 'queued',
         createdAt: new Date(),
       })
