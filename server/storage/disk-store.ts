@@ -3,7 +3,7 @@ import path from 'node:path';
 import crypto from 'node:crypto';
 import type { Readable } from 'node:stream';
 import { resolveInData, syncFolder, writeFileAtomic } from '../services/files';
-import { checkKey, type ByteRange, type FileStat, type FileStore, type StoredFile } from './file-store';
+import { checkKey, type ByteRange, type FileStat, type FileStore, type StoredFile, type SweepOptions } from './file-store';
 
 /** `writeFileAtomic`'s temporary names: `.<name>.<12 hex>.tmp`. */
 const TEMPORARY = /^\..+\.[0-9a-f]{12}\.tmp$/;
@@ -20,7 +20,7 @@ export class DiskFileStore implements FileStore {
     return resolveInData(this.dataDir, checkKey(key));
   }
 
-  put(key: string, source: Readable | Uint8Array): Promise<StoredFile> {
+  async put(key: string, source: Readable | Uint8Array): Promise<StoredFile> {
     return writeFileAtomic(this.file(key), source);
   }
 
@@ -61,20 +61,21 @@ export class DiskFileStore implements FileStore {
     await Promise.all(keys.map((k) => fs.promises.rm(this.file(k), { force: true }).catch(() => undefined)));
   }
 
-  async sweep(prefixes: readonly string[], keep: (key: string) => boolean): Promise<string[]> {
-    return this.sweepNow(prefixes, keep);
+  async sweep(prefixes: readonly string[], keep: (key: string) => boolean, options: SweepOptions = {}): Promise<string[]> {
+    return this.sweepNow(prefixes, keep, options);
   }
 
   /**
    * {@link sweep} done at once, for start-up before anything writes files: temporary files of writes
    * that never finished and files `keep` refuses.
    */
-  sweepNow(prefixes: readonly string[], keep: (key: string) => boolean): string[] {
+  sweepNow(prefixes: readonly string[], keep: (key: string) => boolean, options: SweepOptions = {}): string[] {
     const removed: string[] = [];
     for (const prefix of prefixes) {
-      for (const key of filesBelow(this.dataDir, path.join(this.dataDir, prefix))) {
+      for (const key of filesBelow(this.dataDir, path.join(this.dataDir, checkKey(prefix)))) {
         if (!TEMPORARY.test(path.posix.basename(key)) && keep(key)) continue;
         try {
+          if (options.writtenBefore && fs.statSync(path.join(this.dataDir, key)).mtimeMs >= options.writtenBefore.getTime()) continue;
           fs.rmSync(path.join(this.dataDir, key), { force: true });
           removed.push(key);
         } catch {
@@ -82,7 +83,7 @@ export class DiskFileStore implements FileStore {
         }
       }
     }
-    return removed;
+    return removed.sort();
   }
 }
 

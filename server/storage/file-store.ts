@@ -25,10 +25,18 @@ export interface FileStore {
   /** Removes stored files, ignoring keys with no file. */
   remove(keys: readonly string[]): Promise<void>;
   /**
-   * Removes what a killed process left: files under the `prefixes` whose key `keep` refuses, and
-   * unfinished writes. Returns the removed keys.
+   * Removes what a killed process left: files under the `prefixes` (folders: `uploads` means keys
+   * starting `uploads/`) whose key `keep` refuses, and unfinished writes. Returns the removed keys.
    */
-  sweep(prefixes: readonly string[], keep: (key: string) => boolean): Promise<string[]>;
+  sweep(prefixes: readonly string[], keep: (key: string) => boolean, options?: SweepOptions): Promise<string[]>;
+}
+
+export interface SweepOptions {
+  /**
+   * Only files written before this time go. With several instances on one store, a file another
+   * instance has just written may not have its row yet: a sweep at start-up passes a time some minutes ago.
+   */
+  writtenBefore?: Date;
 }
 
 /** What a completed write stored. */
