@@ -3,6 +3,7 @@ import type { Db } from '../db/database';
 import { invitations, mailOutbox, passwordResets, printSets, sessions, uploads } from '../db/schema';
 import { DiskFileStore } from '../storage/disk-store';
 import type { FileStore } from '../storage/file-store';
+import { fillListingQuilts } from '../shop/listings';
 
 /** Keeps answered invitations and used reset tokens this long, for the record. */
 const KEEP_MS = 30 * 86_400_000;
@@ -41,7 +42,19 @@ export function startHousekeeping(db: Db, log: (message: string, err?: unknown) 
   run();
   const timer = setInterval(run, 3_600_000);
   timer.unref();
-  return () => clearInterval(timer);
+  // Listings saved before migration 0008 get their quilt size chart and pictures, in batches after start-up.
+  const fill = setImmediate(() => {
+    fillListingQuilts(db).then(
+      (n) => {
+        if (n > 0) log(`Filled the quilt pictures and size chart of ${n} shop listing${n === 1 ? '' : 's'}`);
+      },
+      (err: unknown) => log('filling shop listings\' quilts failed', err),
+    );
+  });
+  return () => {
+    clearInterval(timer);
+    clearImmediate(fill);
+  };
 }
 
 /** Key prefixes (folders of the data folder) of stored files; every file in them belongs to a database row. */

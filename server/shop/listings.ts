@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull, like } from 'drizzle-orm';
 import { finishedBlockSize, parsePatternDocument } from '@seamwright/piecing';
 import type { DbLike } from '../db/database';
 import { patterns, revisions, shopListings, shops, users, type ShopListing } from '../db/schema';
@@ -70,4 +70,66 @@ export function listingFacts(db: DbLike, pattern: { id: string; headRevision: nu
     previewSvg,
     ...listingQuiltFacts(document),
   };
+}
+
+/**
+ * Listings saved before their quilt columns existed (migration 0008) show no quilt until saved again. This
+ * fills them: every listing whose quilt columns are both empty while its pattern's head revision (what a
+ * listing shows, see {@link listingFacts}) has a quilt layout gets its size chart and pictures worked out and
+ * stored. One batch of at most `limit` listings after `after` (by pattern id); answers how many were filled
+ * and where the next batch starts (null: done). Listings without a quilt are passed over by a text match on the
+ * stored document, so they cost no parse.
+ */
+export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 20): { filled: number; next: string | null } {
+  const rows = db
+    .select({ patternId: shopListings.patternId, document: revisions.document })
+    .from(shopListings)
+    .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
+    .innerJoin(revisions, and(eq(revisions.patternId, patterns.id), eq(revisions.number, patterns.headRevision)))
+    .where(
+      and(
+        isNull(shopListings.quiltSizes),
+        isNull(shopListings.quiltPictures),
+        like(revisions.document, '%"quilt"%'),
+        after === null ? undefined : gt(shopListings.patternId, after),
+      ),
+    )
+    .orderBy(asc(shopListings.patternId))
+    .limit(limit)
+    .all();
+  let filled = 0;
+  for (const row of rows) {
+    let parsed: ReturnType<typeof parsePatternDocument> | null = null;
+    try {
+      parsed = parsePatternDocument(JSON.parse(row.document) as unknown);
+    } catch {
+      // A revision that does not read is left as it is; saving the listing reports it.
+    }
+    if (!parsed?.ok || !parsed.document.quilt) continue;
+    const facts = listingQuiltFacts(parsed.document);
+    if (!facts.quiltSizes && !facts.quiltPictures) continue;
+    // Only while still empty: a listing saved meanwhile already holds its own facts.
+    filled += db
+      .update(shopListings)
+      .set(facts)
+      .where(and(eq(shopListings.patternId, row.patternId), isNull(shopListings.quiltSizes), isNull(shopListings.quiltPictures)))
+      .run().changes;
+  }
+  return { filled, next: rows.length < limit ? null : rows[rows.length - 1]!.patternId };
+}
+
+/**
+ * {@link fillListingQuiltBatch} over every listing, a batch at a time, giving the event loop back between
+ * batches so requests are answered meanwhile. Resolves to the number of listings filled.
+ */
+export async function fillListingQuilts(db: DbLike, batchSize = 20): Promise<number> {
+  let after: string | null = null;
+  let filled = 0;
+  do {
+    const batch = fillListingQuiltBatch(db, after, batchSize);
+    filled += batch.filled;
+    after = batch.next;
+    if (after !== null) await new Promise<void>((resolve) => setImmediate(resolve));
+  } while (after !== null);
+  return filled;
 }
