@@ -32,6 +32,13 @@ const instant = (name: string) => timestamp(name, { mode: 'date', withTimezone: 
 
 const createdAt = () => instant('created_at').notNull().defaultNow();
 
+/**
+ * PostgreSQL only: stored files (print sets, uploads) live in the database, where every instance reads
+ * them (server/storage/pg-store.ts). With SQLite they stay in the data folder, so schema.ts has no
+ * such tables; the parity spec names them as the only PostgreSQL-only tables.
+ */
+export { storedFileChunks, storedFiles } from '../storage/pg-file-tables';
+
 export const users = pgTable('users', {
   id: text('id').primaryKey(),
   email: text('email').notNull().unique(),
