@@ -31,22 +31,50 @@ const SYNC_CHECK_BUDGET_MS = 25;
 const CHECK_SLICE_MS = 8;
 
 /**
- * Draws a {@link BoardEditor} on a Konva stage of three layers (each layer is a stage-sized canvas,
- * costly to make, so there are few): the base (grid in screen space, reference image, and the static
- * sections drawn by one shape in document order), the active section (selected or being dragged), and
- * the top (rulers and the tool overlay). Each section has a painter that draws its patches, lines and
- * numbers straight onto the canvas; a section's painter is made again only when its object changed,
- * and only the layers that changed are redrawn: a vertex drag redraws the active layer and the top,
- * never the static sections. The overlay (handles, snap marker, cursor, tool preview, highlight) is one
- * shape redrawn each frame. Sections off screen derive nothing until they come into view.
+ * A layer whose stage-sized canvas is made only when {@link ensureCanvas} first asks for it: making
+ * one (allocating its bitmap) costs tens of milliseconds, which a first draw with nothing on this layer
+ * need not pay. Until then it is 0 × 0 and draws nothing.
+ */
+class OnDemandLayer extends Konva.Layer {
+  private wanted = { width: 0, height: 0 };
+  private made = false;
+
+  override _setSize(size: { width: number; height: number }): this {
+    this.wanted = size;
+    return this.made ? super._setSize(size) : this;
+  }
+
+  /** Gives the layer its canvas at the stage's size (once). */
+  ensureCanvas(): void {
+    if (this.made) return;
+    this.made = true;
+    super._setSize(this.wanted);
+  }
+
+  /** Whether the canvas has been made. */
+  get hasCanvas(): boolean {
+    return this.made;
+  }
+}
+
+/**
+ * Draws a {@link BoardEditor} on a Konva stage of two layers (each layer is a stage-sized canvas,
+ * costly to make, so there are few): the base (grid in screen space, reference image, the static
+ * sections drawn by one shape in document order, and the rulers) and the top (the active section,
+ * i.e. selected or being dragged, kept inside the rulers, and the tool overlay). The top layer's canvas
+ * is made only once something is on it (a selection, the pointer, a tool preview, a highlight). Each
+ * section has a painter that draws its patches, lines and numbers straight onto the canvas; a
+ * section's painter is made again only when its object changed, and only the layers that changed are
+ * redrawn: a vertex drag redraws the top layer, never the static sections. The overlay (handles, snap
+ * marker, cursor, tool preview, highlight) is one shape redrawn each frame. Sections off screen derive
+ * nothing until they come into view.
  */
 export class BoardRenderer {
   readonly stage: Konva.Stage;
-  /** Grid, reference image and static sections. */
+  /** Grid, reference image, static sections and rulers. */
   private readonly baseLayer = new Konva.Layer({ listening: false });
-  private readonly activeLayer = new Konva.Layer({ listening: false });
-  /** Rulers and overlay. */
-  private readonly topLayer = new Konva.Layer({ listening: false });
+  /** The active section and the overlay. */
+  private readonly topLayer = new OnDemandLayer({ listening: false });
   private readonly staticContent = new Konva.Group({ listening: false });
   private readonly activeContent = new Konva.Group({ listening: false });
   private readonly referenceContent = new Konva.Group({ listening: false });
@@ -101,6 +129,9 @@ export class BoardRenderer {
         cursorPx: cursor ? toScreen(v, cursor) : null,
       };
     };
+    // The layers join the stage empty: the stage draws a layer as it is added, and the first real draw
+    // comes after the view is set.
+    this.stage.add(this.baseLayer, this.topLayer);
     this.staticContent.add(
       new Konva.Shape({
         name: 'static-sections',
@@ -109,9 +140,17 @@ export class BoardRenderer {
         sceneFunc: (context) => this.drawStaticSections(context._context),
       }),
     );
-    this.baseLayer.add(createGridShape(view), this.referenceContent, this.staticContent);
-    this.activeLayer.add(this.activeContent);
-    this.topLayer.add(createRulerShape(view));
+    this.baseLayer.add(createGridShape(view), this.referenceContent, this.staticContent, createRulerShape(view));
+    // The active section stays inside the rulers, which lie under it on the base layer.
+    const activeClip = new Konva.Group({
+      listening: false,
+      clipFunc: (ctx) => {
+        const { width, height } = this.editor.sizePx;
+        ctx.rect(RULER_PX, RULER_PX, Math.max(0, width - RULER_PX), Math.max(0, height - RULER_PX));
+      },
+    });
+    activeClip.add(this.activeContent);
+    this.topLayer.add(activeClip);
     this.topLayer.add(
       new Konva.Shape({
         name: 'overlay',
@@ -120,7 +159,6 @@ export class BoardRenderer {
         sceneFunc: (context) => this.drawOverlay(context._context),
       }),
     );
-    this.stage.add(this.baseLayer, this.activeLayer, this.topLayer);
     this.unsubscribe.push(editor.store.subscribe(() => this.schedule()));
     this.unsubscribe.push(editor.onViewChange(() => this.schedule()));
     // Drawn on the next frame, so a view set right after (e.g. fitting the pattern) is drawn once.
@@ -312,12 +350,12 @@ export class BoardRenderer {
       this.baseLayer.draw();
       this.draws.static++;
     }
-    if (activeDirty) {
-      this.activeLayer.draw();
-      this.draws.active++;
+    if (!this.topLayer.hasCanvas && (activeId !== null || this.overlayHasContent())) this.topLayer.ensureCanvas();
+    if (this.topLayer.hasCanvas) {
+      this.topLayer.draw();
+      if (activeDirty) this.draws.active++;
+      this.draws.overlay++;
     }
-    this.topLayer.draw();
-    this.draws.overlay++;
     this.scheduleChecks();
   }
 
@@ -360,6 +398,12 @@ export class BoardRenderer {
       this.fabricsFor = f;
     }
     return f;
+  }
+
+  /** Whether the overlay has anything to draw now (the pointer, a tool preview, a snap marker, a highlight). */
+  private overlayHasContent(): boolean {
+    const ed = this.editor;
+    return this.highlight !== null || ed.cursor !== null || ed.tool.preview() !== null || ed.lastSnap !== null;
   }
 
   /** The overlay in screen space: highlight, the active section's handles, the tool preview, the snap marker and the cursor. */

@@ -74,8 +74,23 @@ interface SectionDrawing {
   reason: { text: string; at: Point } | null;
 }
 
-function ringPath(points: readonly Point[]): Path2D {
-  const path = new Path2D();
+/** The smaller side of the bounding box of `points`. */
+function smallerSide(points: readonly Point[]): number {
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const q of points) {
+    if (q.x < minX) minX = q.x;
+    if (q.x > maxX) maxX = q.x;
+    if (q.y < minY) minY = q.y;
+    if (q.y > maxY) maxY = q.y;
+  }
+  return Math.min(maxX - minX, maxY - minY);
+}
+
+/** Adds the closed ring `points` to `path` (returned). */
+function ringPath(points: readonly Point[], path = new Path2D()): Path2D {
   for (let i = 0; i < points.length; i++) {
     if (i === 0) path.moveTo(points[i].x, points[i].y);
     else path.lineTo(points[i].x, points[i].y);
@@ -120,7 +135,6 @@ function buildDrawing(section: Section, o: SectionShapeOptions, fabrics: Readonl
       alpha: copyIndex === 0 ? 1 : 0.55,
       seams,
       patches: patches.map((p) => {
-        const b = polygonBounds(p.polygon);
         let guides: Path2D | null = null;
         if (p.guideLines.length > 0) {
           guides = new Path2D();
@@ -130,14 +144,15 @@ function buildDrawing(section: Section, o: SectionShapeOptions, fabrics: Readonl
           }
         }
         const path = ringPath(p.polygon);
-        seams.addPath(path);
+        // The ring drawn into the seams path again: cheaper than Path2D.addPath, which copies a path.
+        ringPath(p.polygon, seams);
         return {
           patch: p,
           path,
           fill: patchFill(p, fabrics),
           bands: p.stripBands ? p.stripBands.map((band) => ({ path: ringPath(band.polygon), fabricId: band.fabricId, fill: bandFill(band.fabricId, fabrics) })) : null,
           guides,
-          sizeIn: Math.min(b.maxX - b.minX, b.maxY - b.minY),
+          sizeIn: smallerSide(p.polygon),
           failing: copyIndex === 0 && failingNumber === p.number,
         };
       }),
