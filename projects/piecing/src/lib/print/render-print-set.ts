@@ -167,6 +167,8 @@ export async function renderPrintSet(
   for (const s of pieceWriter.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
 
   const figures = planCopies(document);
+  const sectionLabels = new Map(document.sections.map((s) => [s.id, s.label]));
+  const labelOf = (id: string) => sectionLabels.get(id) ?? id;
   /**
    * The covers (sheets 1 and 2) are drawn last, when the page count is known. What does not fit on them
    * runs on onto continuation sheets at the end of the set: a measuring pass (nothing drawn) finds how
@@ -185,7 +187,7 @@ export async function renderPrintSet(
       layout,
       copies: figures,
       pieceTemplates,
-      contents: contentsOf(headingsWith(extra)),
+      contents: contentsOf(headingsWith(extra), labelOf),
     });
     const measure = (extra: readonly [number, number]): [number, number] => {
       const dry = new PdfPen(doc, true);
@@ -216,7 +218,8 @@ export async function renderPrintSet(
       return frames[page - 1];
     };
     doc.setPage(1);
-    drawBookletCover(ctx, coverFrame, coverFacts(extra), continueOn(0));
+    // The continuation sheets are in `headings` now: the contents name them once.
+    drawBookletCover(ctx, coverFrame, coverFacts([0, 0]), continueOn(0));
     doc.setPage(2);
     drawCover(pen, frames[1], document, opts, layout, before + extra[0] + extra[1], continueOn(1));
   }
@@ -271,18 +274,35 @@ function sectionPressing(document: PatternDocument, section: Section): SectionPr
   return pressing;
 }
 
-/** The cover's contents: consecutive sheets with the same subtitle are one entry. */
-function contentsOf(headings: readonly PageHeading[]): ContentsEntry[] {
-  const out: ContentsEntry[] = [];
+/**
+ * The cover's contents: consecutive sheets with the same subtitle are one entry, and so are consecutive
+ * sheets of one part about sections ("Piecing — section A", "Piecing — sections B, C" …), named by their
+ * first and last section ("Piecing — sections A to GR"): each sheet's own header still names its sections.
+ */
+function contentsOf(headings: readonly PageHeading[], labelOf: (sectionId: string) => string): ContentsEntry[] {
+  const out: Array<ContentsEntry & { part?: string; firstSection?: string }> = [];
   headings.forEach((h, i) => {
     const title = h.sheet ? 'Foundation templates' : h.subtitle;
+    const part = !h.sheet && h.sectionIds.length > 0 ? sectionPart(h.subtitle) : undefined;
     const last = out[out.length - 1];
+    if (part && last && last.lastSheet === i && last.part === part) {
+      last.lastSheet = i + 1;
+      const to = labelOf(h.sectionIds[h.sectionIds.length - 1]);
+      last.title = last.firstSection === to ? last.title : `${part} — sections ${last.firstSection} to ${to}`;
+      return;
+    }
     // A part that began below another ("Fabric requirements · Cutting instructions") runs on with its own title.
     const runsOn = last && last.lastSheet === i && (last.title === title || last.title.endsWith(` · ${title}`));
     if (runsOn) last.lastSheet = i + 1;
-    else out.push({ title, firstSheet: i + 1, lastSheet: i + 1 });
+    else out.push({ title, firstSheet: i + 1, lastSheet: i + 1, ...(part ? { part, firstSection: labelOf(h.sectionIds[0]) } : {}) });
   });
-  return out;
+  return out.map(({ title, firstSheet, lastSheet }) => ({ title, firstSheet, lastSheet }));
+}
+
+/** "Piecing" of "Piecing — section A" or "Piecing — sections B, C"; undefined for other subtitles. */
+function sectionPart(subtitle: string): string | undefined {
+  const at = subtitle.indexOf(' — section');
+  return at > 0 ? subtitle.slice(0, at) : undefined;
 }
 
 /** The copies rule for the sections on a template sheet, in a few words (docs/design-notes.md#copies). */

@@ -10,7 +10,7 @@ export interface BookletSheet {
 
 /**
  * Flows the booklet's parts down its sheets: each part (cutting, a section's piecing steps, joining …)
- * starts on a fresh sheet, and every sheet remembers which part and sections it carries, for its
+ * starts on a fresh sheet unless it asks to go on below the previous one, and every sheet remembers which part and sections it carries, for its
  * header and for the "not sewable as numbered" notice.
  */
 export class BookletWriter {
@@ -24,15 +24,23 @@ export class BookletWriter {
   ) {}
 
   /**
-   * Begins a part on a new sheet (or, with `sameSheet`, below the previous part when there is room) and
-   * hands back the flow to write it with.
+   * Begins a part on a new sheet (or, with `sameSheet`, below the previous part when at least `minRoomIn`
+   * is left over) and hands back the flow to write it with. With `subtitleOf`, a sheet that several such parts
+   * share is titled by all their sections (`subtitleOf(sectionIds)`) instead of "first · second".
    */
-  part(subtitle: string, sectionIds: string[] = [], { sameSheet = false } = {}): SheetFlow {
+  part(
+    subtitle: string,
+    sectionIds: string[] = [],
+    { sameSheet = false, minRoomIn = 2, subtitleOf }: { sameSheet?: boolean; minRoomIn?: number; subtitleOf?: (sectionIds: string[]) => string } = {},
+  ): SheetFlow {
     this.current = { subtitle, sectionIds };
     if (!this.flowOf) this.flowOf = new SheetFlow(this.pen, () => this.newSheet());
-    else if (sameSheet && this.flowOf.roomLeft > 2) {
+    else if (sameSheet && this.flowOf.roomLeft > minRoomIn) {
       const last = this.sheets[this.sheets.length - 1];
-      last.subtitle = `${last.subtitle} · ${subtitle}`;
+      if (subtitleOf) {
+        last.sectionIds = [...new Set([...last.sectionIds, ...sectionIds])];
+        last.subtitle = subtitleOf(last.sectionIds);
+      } else last.subtitle = `${last.subtitle} · ${subtitle}`;
       this.flowOf.gap(0.15);
     } else {
       const before = this.sheets.length;
@@ -41,6 +49,11 @@ export class BookletWriter {
       if (this.sheets.length === before && before > 0) this.sheets[before - 1] = { subtitle, sectionIds: [...sectionIds] };
     }
     return this.flowOf;
+  }
+
+  /** Room left on the sheet being written, in inches (0 before the first part). */
+  get roomLeft(): number {
+    return this.flowOf?.roomLeft ?? 0;
   }
 
   private newSheet(): SheetFrame {

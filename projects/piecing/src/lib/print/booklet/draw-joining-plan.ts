@@ -35,7 +35,8 @@ export function drawJoiningPlan(ctx: BookletContext, writer: BookletWriter, plan
   }
   if (plan.isDefault) flow.paragraph('The designer set no joining order: this is the usual order, ring copies into rings, then from the centre outward.', 8);
   drawSteps(ctx, flow, plan.steps);
-  for (const problem of plan.problems) flow.paragraph(`Check: ${problem.message}`, 8.5, true);
+  // Units named as in the captions: a long unit by the step that made it, so a check stays a few lines at any size.
+  for (const problem of plan.problems) flow.paragraph(`Check: ${unitsNamed(problem.message)}`, 8.5, true);
 }
 
 /** Above this many section copies a join diagram shows the seam's neighbourhood, not the whole block. */

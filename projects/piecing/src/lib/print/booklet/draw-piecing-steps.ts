@@ -2,6 +2,7 @@ import type { Point, Section } from '../../document/index';
 import type { DerivedPatch } from '../../geometry/index';
 import { checkSewability, type SewingStep } from '../../sewability/index';
 import type { SheetFlow } from '../sheet-flow';
+import { sheetFrame } from '../sheet-frame';
 import { fabricColour, patchMaterial, sectionUses, type BookletContext } from './booklet-context';
 import type { BookletWriter } from './booklet-writer';
 import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitDiagram, lighten, normalTowards, type DiagramFit } from './diagram';
@@ -13,21 +14,52 @@ export const PIECING_REMINDERS =
   'back on the next sewing line and pre-trim the fabric ¼ in. beyond it (common practice). Sew on the printed lines with a ' +
   'short stitch (about 1.5 mm) so the paper tears away cleanly.';
 
-const COLUMNS = 4;
+const COLUMNS = 5;
 const DIAGRAM_IN = 1.45;
 const CAPTION_PT = 7.5;
 const LINE_IN = (CAPTION_PT * 1.3) / 72;
 const NUMBER_IN = 0.2;
+/** What a section heading takes ({@link SheetFlow.heading} asks for 0.5 in.), plus the gap above a section that follows another. */
+const HEADING_ROOM_IN = 0.5 + 0.15;
+
+/** A section's steps laid out: each step's caption lines, rows of step indices and each row's height. */
+interface StepsLayout {
+  texts: string[][];
+  rows: number[][];
+  heights: number[];
+}
 
 /**
  * One part per section: its piecing steps as small numbered diagrams (the patch added highlighted, the
- * line to sew in red, an arrow for the press), each with its words, the designer's note and reminders.
+ * line to sew in red, an arrow for the press), each with its words, and the designer's note. The usual
+ * reminders and how to read the diagrams come once, before the first section. A section begins below the
+ * one before it when its heading and first row of steps fit in the room left, so a sheet carries several
+ * short sections; its header names them all.
  */
 export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pressingOf: (section: Section) => SectionPressing): void {
+  const labels = new Map(ctx.document.sections.map((s) => [s.id, s.label]));
+  const subtitleOf = (ids: string[]) => `Piecing — section${ids.length > 1 ? 's' : ''} ${ids.map((id) => labels.get(id)).join(', ')}`;
+  // Booklet sheets are portrait sheets of the chosen paper (render-print-set.ts).
+  const width = sheetFrame(ctx.options.paper, 'portrait', ctx.options.marginIn).content.width;
+  let first = true;
   for (const section of ctx.document.sections) {
     const patches = ctx.patches.get(section.id) ?? [];
     if (patches.length === 0) continue;
-    const flow = writer.part(`Piecing — section ${section.label}`, [section.id]);
+    const verdict = ctx.verdicts.get(section.id) ?? checkSewability(patches);
+    const pressing = pressingOf(section);
+    const layout = layoutSteps(ctx, patches, verdict.steps, pressing, width);
+    const flow = writer.part(subtitleOf([section.id]), [section.id], { sameSheet: !first, minRoomIn: HEADING_ROOM_IN + layout.heights[0], subtitleOf });
+    if (first) {
+      flow.heading('Piecing steps');
+      flow.paragraph(PIECING_REMINDERS, 8.5);
+      flow.paragraph(
+        ctx.options.mirrored
+          ? 'Diagrams show the printed side of the foundation (a mirror image, as the templates print); the fabric goes on the unprinted side. Red: the line to sew. Arrow: which way to press.'
+          : 'Diagrams show the block from the front, as the templates print. Red: the line to sew. Arrow: which way to press.',
+        8,
+      );
+      first = false;
+    }
     const uses = sectionUses(ctx.document, section);
     flow.heading(`Section ${section.label}: piecing steps${uses > 1 ? ` (sew ${uses})` : ''}`);
     const unsewable = ctx.unsewable.get(section.id);
@@ -35,16 +67,7 @@ export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pre
       flow.paragraph(`NOT SEWABLE AS NUMBERED — printed anyway at the designer's request. ${unsewable.reason}.`, 9, true);
     }
     if (section.note?.trim()) flow.paragraph(`Designer's note: ${section.note.trim()}`, 9, true);
-    flow.paragraph(PIECING_REMINDERS, 8.5);
-    flow.paragraph(
-      ctx.options.mirrored
-        ? 'Diagrams show the printed side of the foundation (a mirror image, as the templates print); the fabric goes on the unprinted side. Red: the line to sew. Arrow: which way to press.'
-        : 'Diagrams show the block from the front, as the templates print. Red: the line to sew. Arrow: which way to press.',
-      8,
-    );
-    const verdict = ctx.verdicts.get(section.id) ?? checkSewability(patches);
-    const pressing = pressingOf(section);
-    drawSteps(ctx, flow, patches, verdict.steps, pressing);
+    drawSteps(ctx, flow, patches, verdict.steps, pressing, layout);
     if (!verdict.sewable && verdict.failure) {
       const left = patches.slice(verdict.steps.length + 1).map((p) => p.label);
       flow.paragraph(`The steps stop at ${verdict.failure.label}: ${left.join(', ')} cannot be added in this order. ${verdict.failure.message}.`, 9, true);
@@ -52,18 +75,29 @@ export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pre
   }
 }
 
-function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[], steps: SewingStep[], pressing: SectionPressing): void {
+function layoutSteps(ctx: BookletContext, patches: DerivedPatch[], steps: SewingStep[], pressing: SectionPressing, width: number): StepsLayout {
+  const cellW = width / COLUMNS;
+  const count = 1 + steps.length;
+  const texts: string[][] = [];
+  for (let i = 0; i < count; i++) texts.push(ctx.pen.wrap(stepText(ctx, patches, steps, i, pressing), cellW - 0.12, CAPTION_PT));
+  const rows: number[][] = [];
+  const heights: number[] = [];
+  for (let row = 0; row * COLUMNS < count; row++) {
+    const items = Array.from({ length: Math.min(COLUMNS, count - row * COLUMNS) }, (_, c) => row * COLUMNS + c);
+    rows.push(items);
+    heights.push(DIAGRAM_IN + 0.08 + Math.max(...items.map((i) => texts[i].length)) * LINE_IN + 0.12);
+  }
+  return { texts, rows, heights };
+}
+
+function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[], steps: SewingStep[], pressing: SectionPressing, layout: StepsLayout): void {
   const cellW = flow.width / COLUMNS;
   const all = patches.flatMap((p) => p.polygon);
   const byNumber = new Map(patches.map((p) => [p.number, p]));
   const stepOf = new Map(steps.map((s) => [s.patchNumber, s]));
-  const count = 1 + steps.length;
-  const texts: string[][] = [];
-  for (let i = 0; i < count; i++) texts.push(ctx.pen.wrap(stepText(ctx, patches, steps, i, pressing), cellW - 0.12, CAPTION_PT));
-  for (let row = 0; row * COLUMNS < count; row++) {
-    const items = Array.from({ length: Math.min(COLUMNS, count - row * COLUMNS) }, (_, c) => row * COLUMNS + c);
-    const lines = Math.max(...items.map((i) => texts[i].length));
-    const top = flow.block(DIAGRAM_IN + 0.08 + lines * LINE_IN + 0.12);
+  const { texts } = layout;
+  layout.rows.forEach((items, row) => {
+    const top = flow.block(layout.heights[row]);
     items.forEach((i, c) => {
       // The step number sits above its diagram, so a diagram filling its box never covers it.
       const box = { x: top.x + c * cellW + 0.04, y: top.y + NUMBER_IN, width: cellW - 0.08, height: DIAGRAM_IN - NUMBER_IN };
@@ -88,7 +122,7 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[]
       ctx.pen.text(`${i + 1}`, { x: box.x + 0.02, y: top.y + 0.15 }, { sizePt: 10, bold: true });
       texts[i].forEach((line, k) => ctx.pen.text(line, { x: box.x + 0.02, y: top.y + DIAGRAM_IN + 0.08 + LINE_IN * (k + 0.8) }, { sizePt: CAPTION_PT }));
     });
-  }
+  });
 }
 
 function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, paleness: number): void {
