@@ -48,7 +48,7 @@ describe('hot routes in front of Express', () => {
   let t: TestServer;
   let hot: { server: http.Server; base: string };
   let plain: { server: http.Server; base: string };
-  let routerCalls: ReturnType<typeof vi.fn>;
+  let routerCalls: ReturnType<typeof vi.fn<(...a: unknown[]) => unknown>>;
   let owner: ApiClient;
   let quilter: ApiClient;
   let stranger: ApiClient;
@@ -78,7 +78,7 @@ describe('hot routes in front of Express', () => {
     plain = await listen(expressOnly(t.app));
     const router = (t.app as unknown as { router: { handle: (...a: unknown[]) => unknown } }).router;
     const original = router.handle.bind(router);
-    routerCalls = vi.fn((...a: unknown[]) => original(...a));
+    routerCalls = vi.fn<(...a: unknown[]) => unknown>((...a) => original(...a));
     router.handle = routerCalls;
     ({ client: owner } = await signedInClient(hot.base, 'designer', 'owner'));
     ({ client: quilter } = await signedInClient(hot.base, 'quilter', 'quilter'));
@@ -104,7 +104,8 @@ describe('hot routes in front of Express', () => {
     expect(read.headers.find((h) => h.startsWith('Content-Security-Policy:'))).toContain("default-src 'self'");
     expect((await same('hot', 'GET', `/api/patterns/${patternId}`, as(quilter))).status).toBe(200);
     expect((await same('hot', 'GET', `/api/patterns/${patternId}?x=1`, as(owner))).status).toBe(200);
-    for (const headers of [as(stranger), { accept: 'application/json' }, { cookie: 'seamwright.sid=not-a-session' }]) {
+    const visitors: Record<string, string>[] = [as(stranger), { accept: 'application/json' }, { cookie: 'seamwright.sid=not-a-session' }];
+    for (const headers of visitors) {
       const refused = await same('hot', 'GET', `/api/patterns/${patternId}`, headers);
       expect(refused).toMatchObject({ status: 404, body: '{"error":"Pattern not found","details":null}' });
     }

@@ -1,14 +1,29 @@
+import type BetterSqlite3 from 'better-sqlite3';
 import type { DbLike } from './database';
 
 /**
- * Statements built once per database handle and reused (drizzle `.prepare()` with `sql.placeholder`).
- * For hot read queries; a transaction handle gets its own set, built on first use.
+ * What statements are cached on: the drizzle session, which a transaction shares with the database
+ * it runs on (same connection). Statements prepared once serve every transaction after it.
+ */
+function cacheKey(db: DbLike): object {
+  return (db as unknown as { session?: object }).session ?? db;
+}
+
+/**
+ * Statements built once per database connection and reused (drizzle `.prepare()` with `sql.placeholder`).
+ * For hot queries; a transaction uses the set of the connection it runs on.
  */
 export function preparedPerDb<T>(build: (db: DbLike) => T): (db: DbLike) => T {
-  const cache = new WeakMap<DbLike, T>();
+  const cache = new WeakMap<object, T>();
   return (db) => {
-    let q = cache.get(db);
-    if (!q) cache.set(db, (q = build(db)));
+    const key = cacheKey(db);
+    let q = cache.get(key);
+    if (!q) cache.set(key, (q = build(db)));
     return q;
   };
+}
+
+/** The better-sqlite3 connection under a drizzle handle (the database, or a transaction on it). */
+export function connectionOf(db: DbLike): BetterSqlite3.Database {
+  return (db as unknown as { session: { client: BetterSqlite3.Database } }).session.client;
 }

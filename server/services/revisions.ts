@@ -2,7 +2,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import type { PatternDocument } from '@seamwright/piecing';
 import type { Response } from 'express';
 import type { DbLike } from '../db/database';
-import { preparedPerDb } from '../db/prepared';
+import { connectionOf, preparedPerDb } from '../db/prepared';
 import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { sendJsonText } from '../http/send-json';
@@ -117,6 +117,37 @@ export interface SaveExtras {
   version?: { name: string; note: string | null } | null;
 }
 
+/** A pattern row as SQLite gives it (times in ms). */
+interface PatternRow {
+  id: string;
+  ownerId: string;
+  headRevision: number;
+  createdAt: number;
+  trashedAt: number | null;
+}
+
+/**
+ * A save's statements, prepared once on the connection (the save runs several per request inside its
+ * transaction): plain SQL, no query building or row mapping per call.
+ */
+const saveStatements = preparedPerDb((db) => {
+  const sqlite = connectionOf(db);
+  return {
+    pattern: sqlite.prepare<[string], PatternRow>(
+      'SELECT id, owner_id AS ownerId, head_revision AS headRevision, created_at AS createdAt, trashed_at AS trashedAt FROM patterns WHERE id = ?',
+    ),
+    head: sqlite.prepare<[string, number], { number: number; authorId: string; editSession: string | null; versionName: string | null; groupStart: number | null }>(
+      `SELECT number, author_id AS authorId, edit_session AS editSession, version_name AS versionName, group_start AS groupStart
+         FROM revisions WHERE pattern_id = ? AND number = ?`,
+    ),
+    insert: sqlite.prepare(
+      `INSERT INTO revisions (id, pattern_id, number, document, author_id, restored_from, edit_session, group_start, version_name, version_note, created_at)
+       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+    ),
+    advance: sqlite.prepare('UPDATE patterns SET head_revision = ?, title = ?, updated_at = ? WHERE id = ?'),
+  };
+});
+
 /**
  * Stores a new revision on top of `baseRevision`. Run inside an immediate transaction: the head is
  * read and advanced under the write lock, so of two saves on the same base exactly one wins and the
@@ -131,22 +162,19 @@ export function saveRevision(
   extras: SaveExtras = {},
 ) {
   const document = stored(checked);
-  const pattern = tx.select().from(patterns).where(eq(patterns.id, patternId)).get();
-  if (!pattern) throw new HttpError(404, 'Pattern not found');
-  if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
-  if (pattern.headRevision !== baseRevision) {
+  const q = saveStatements(tx);
+  const row = q.pattern.get(patternId);
+  if (!row) throw new HttpError(404, 'Pattern not found');
+  if (row.trashedAt !== null) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
+  if (row.headRevision !== baseRevision) {
     const latest = findRevision(tx, patternId);
     throw new HttpError(409, `This pattern was saved by someone else since revision ${baseRevision}`, {
       latest: latest ? revisionJson(latest.revision, latest.authorName) : null,
     });
   }
   const now = new Date();
-  const number = pattern.headRevision + 1;
-  const head = tx
-    .select({ number: revisions.number, authorId: revisions.authorId, editSession: revisions.editSession, versionName: revisions.versionName, groupStart: revisions.groupStart })
-    .from(revisions)
-    .where(and(eq(revisions.patternId, patternId), eq(revisions.number, pattern.headRevision)))
-    .get();
+  const number = row.headRevision + 1;
+  const head = q.head.get(patternId, row.headRevision);
   const editSession = extras.editSession ?? null;
   const version = extras.version ?? null;
   const groupStart = groupStartOf(head, { number, authorId, editSession, named: version !== null });
@@ -165,8 +193,17 @@ export function saveRevision(
     versionNote: version?.note ?? null,
     createdAt: now,
   };
-  tx.insert(revisions).values(revision).run();
-  tx.update(patterns).set({ headRevision: number, title: document.title, updatedAt: now }).where(eq(patterns.id, patternId)).run();
-  const updated: Pattern = { ...pattern, headRevision: number, title: document.title, updatedAt: now };
+  const r = revision;
+  q.insert.run(r.id, r.patternId, r.number, r.document, r.authorId, r.restoredFrom, r.editSession, r.groupStart, r.versionName, r.versionNote, now.getTime());
+  q.advance.run(number, document.title, now.getTime(), patternId);
+  const updated: Pattern = {
+    id: row.id,
+    ownerId: row.ownerId,
+    title: document.title,
+    headRevision: number,
+    createdAt: new Date(row.createdAt),
+    updatedAt: now,
+    trashedAt: null,
+  };
   return { pattern: updated, revision };
 }
