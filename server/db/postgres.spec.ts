@@ -53,6 +53,26 @@ describe('PostgreSQL connection and migrations (server/db/postgres.ts)', () => {
     expect(await appliedMigrations(handle)).toBe(journal.entries.length);
   });
 
+  it('the migrated columns and indexes are the schema module\'s (a schema-pg change without a generated migration fails here)', async () => {
+    const { rows: columns } = await handle!.pool.query<{ table_name: string; column_name: string; is_nullable: string }>(
+      "SELECT table_name, column_name, is_nullable FROM information_schema.columns WHERE table_schema = 'public'",
+    );
+    const { rows: indexes } = await handle!.pool.query<{ tablename: string; indexname: string }>(
+      "SELECT tablename, indexname FROM pg_indexes WHERE schemaname = 'public'",
+    );
+    for (const table of Object.values(schema).filter((v) => is(v, PgTable))) {
+      const config = getTableConfig(table as PgTable);
+      const inDatabase = columns
+        .filter((c) => c.table_name === config.name)
+        .map((c) => `${c.column_name}${c.is_nullable === 'NO' ? ' not null' : ''}`)
+        .sort();
+      const inSchema = config.columns.map((c) => `${c.name}${c.notNull ? ' not null' : ''}`).sort();
+      expect(inDatabase, config.name).toEqual(inSchema);
+      const indexNames = new Set(indexes.filter((i) => i.tablename === config.name).map((i) => i.indexname));
+      for (const index of config.indexes) expect(indexNames.has(index.config.name!), `${config.name}: ${index.config.name}`).toBe(true);
+    }
+  });
+
   it('migrating again changes nothing and keeps the rows', async () => {
     const db = handle!.db;
     const now = new Date(Date.UTC(2026, 11, 5, 12, 30, 15, 123));
