@@ -3,9 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { applyColourway, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
+import { applyColourway, quiltPictureSvg, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
 import { renderFrontViewSvg } from '@seamwright/template-editor-core';
-import { quiltPictureSvg } from './quilt-picture';
 import { QuiltPictureComponent } from './quilt-picture.component';
 import { addColourway, removeColourway, updateColourway, updateColourwayFabric } from './quilt-edits';
 
@@ -41,7 +40,7 @@ export class ColourwaysComponent {
   protected readonly cards = computed<ColourwayCard[]>(() => {
     const doc = this.document();
     const plan = this.plan();
-    const picture = (d: PatternDocument, prefix: string) => (plan ? quiltPictureSvg(d, plan, { idPrefix: prefix }) : renderFrontViewSvg(d, { labels: false }));
+    const picture = (d: PatternDocument, prefix: string) => (plan ? quiltPictureSvg(d, { plan, colourwayId: null, idPrefix: prefix }) : renderFrontViewSvg(d, { labels: false }));
     const usedIds = plan ? new Set(plan.fabrics.map((f) => f.id)) : null;
     const card = (id: string | null, name: string, d: PatternDocument, i: number): ColourwayCard => ({
       id,

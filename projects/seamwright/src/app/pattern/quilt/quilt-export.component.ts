@@ -1,12 +1,11 @@
 import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { PatternDocument, QuiltPlan } from '@seamwright/piecing';
+import { quiltPictureSvg, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
 import { NotifyService } from '../../core/notify.service';
 import { patternFileName } from '../../pattern-files/pattern-file-name';
 import { saveFile } from '../../pattern-files/save-file';
 import { pngSize, rasteriseSvg } from '../../pattern-files/rasterise-svg';
-import { quiltPictureSvg } from './quilt-picture';
 
 /** File name of a quilt picture: the title, the colourway when one is chosen, "quilt". */
 export function quiltPictureFileName(title: string, colourwayName: string | null, extension: '.svg' | '.png'): string {
@@ -33,7 +32,7 @@ export class QuiltExportComponent {
   protected readonly busy = signal(false);
 
   private picture(): string {
-    return quiltPictureSvg(this.document(), this.plan(), { idPrefix: 'q-' });
+    return quiltPictureSvg(this.document(), { plan: this.plan(), colourwayId: null, idPrefix: 'q-' });
   }
 
   protected downloadSvg(): void {

@@ -3,14 +3,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
-import { applyColourway, quiltPlan, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
+import { applyColourway, quiltPictureSvg, quiltPlan, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { BoardAutosave } from '../board/board-autosave';
 import type { HasUnsavedChanges } from '../board/unsaved-changes.guard';
 import { NotifyService } from '../../core/notify.service';
 import { showInches } from '../../core/length-text';
 import { QuiltChoice } from './quilt-choice.service';
-import { quiltPictureSvg } from './quilt-picture';
 import { QuiltPictureComponent, type CellRef } from './quilt-picture.component';
 import { QuiltLayoutFormComponent } from './quilt-layout-form.component';
 import { SizeChartComponent } from './size-chart.component';
@@ -79,7 +78,7 @@ export class QuiltPageComponent implements HasUnsavedChanges {
   protected readonly svg = computed(() => {
     const doc = this.shown();
     const plan = this.plan();
-    return doc && plan ? quiltPictureSvg(doc, plan, { idPrefix: 'main-', selected: this.canEdit() ? this.chosen() : null }) : null;
+    return doc && plan ? quiltPictureSvg(doc, { plan, colourwayId: null, idPrefix: 'main-', selected: this.canEdit() ? this.chosen() : null }) : null;
   });
   protected readonly cells = computed(() => this.plan()?.cells.map((c) => ({ row: c.row, col: c.col })) ?? []);
   protected readonly pictureLabel = computed(() => {

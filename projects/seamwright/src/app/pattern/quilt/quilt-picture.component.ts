@@ -7,7 +7,7 @@ export interface CellRef {
 }
 
 /**
- * Shows a quilt picture (SVG text from `quiltPictureSvg`) inline. When `selectable`, the picture is one
+ * Shows a quilt picture (SVG text from the piecing library's `quiltPictureSvg`) inline. When `selectable`, the picture is one
  * Tab stop: arrow keys move the chosen block, a click chooses the block under the pointer, and the
  * chosen one is said in words beside it.
  */
