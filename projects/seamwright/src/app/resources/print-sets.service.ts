@@ -17,10 +17,13 @@ export class PrintSetsService {
     return this.http.get<{ items: PrintSet[] }>(API.printSets(patternId)).pipe(map((r) => r.items));
   }
 
-  /** Queues a print set of `revision` (the latest when left out). */
-  create(patternId: string, options: object, revision?: number): Observable<PrintSet> {
+  /**
+   * Queues a print set of `revision` (the latest when left out), in the fabrics of the user's own
+   * colourway copy when `colourwayCopyId` is given.
+   */
+  create(patternId: string, options: object, revision?: number, colourwayCopyId?: string | null): Observable<PrintSet> {
     return this.http
-      .post<{ printSet: PrintSet }>(API.printSets(patternId), { options, ...(revision ? { revision } : {}) })
+      .post<{ printSet: PrintSet }>(API.printSets(patternId), { options, ...(revision ? { revision } : {}), ...(colourwayCopyId ? { colourwayCopyId } : {}) })
       .pipe(map((r) => r.printSet));
   }
 

@@ -2,13 +2,13 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatTableModule } from '@angular/material/table';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { YARDAGE_STEP_IN, applyColourway, buildCuttingList, quiltPlan, type QuiltPlan, formatInches, stripSetDisplayName, type CuttingList } from '@seamwright/piecing';
+import { YARDAGE_STEP_IN, buildCuttingList, quiltPlan, type QuiltPlan, formatInches, stripSetDisplayName, type CuttingList } from '@seamwright/piecing';
 import { PatternContext } from '../pattern-context.service';
 import { CautionsComponent } from '../../shared/cautions.component';
 import { StripDiagramComponent } from './strip-diagram.component';
 import { showInches } from '../../core/length-text';
 import { QuiltChoice } from '../quilt/quilt-choice.service';
-import { QuiltChoiceBarComponent, chosenColourway, chosenSize } from '../quilt/quilt-choice-bar.component';
+import { QuiltChoiceBarComponent, chosenSize, documentInChoice } from '../quilt/quilt-choice-bar.component';
 import { QuiltFabricNeedsComponent } from '../quilt/quilt-fabric-needs.component';
 
 /** Yards as bought, from eighths of a yard: 5 → "⅝ yd", 11 → "1 ⅜ yd". */
@@ -28,18 +28,19 @@ export class CuttingPageComponent {
   protected readonly ctx = inject(PatternContext);
   protected readonly inches = showInches;
   protected readonly yards = formatYards;
-  private readonly choice = inject(QuiltChoice, { optional: true });
-  /** The pattern in the colourway chosen on the Quilt tab, cutting page or print page. */
+  protected readonly choice = inject(QuiltChoice, { optional: true });
+  /** The pattern in the colourway (or the user's own copy of one) chosen on the Quilt tab, cutting page or print page. */
   protected readonly document = computed(() => {
     const doc = this.ctx.document();
-    return doc ? applyColourway(doc, chosenColourway(doc, this.choice?.colourwayId() ?? null)) : null;
+    return doc ? documentInChoice(doc, this.choice?.colourwayId() ?? null, this.choice?.copy() ?? null) : null;
   });
   /** The whole quilt in the chosen size and colourway, when the pattern is set into a quilt. */
   protected readonly quilt = computed<QuiltPlan | null>(() => {
-    const doc = this.ctx.document();
+    const doc = this.document();
     if (!doc?.quilt) return null;
     try {
-      return quiltPlan(doc, { sizeName: chosenSize(doc, this.choice?.sizeName() ?? null), colourwayId: chosenColourway(doc, this.choice?.colourwayId() ?? null) });
+      // The document is already in the chosen fabrics, so no colourway is applied again.
+      return quiltPlan(doc, { sizeName: chosenSize(doc, this.choice?.sizeName() ?? null) });
     } catch {
       return null;
     }

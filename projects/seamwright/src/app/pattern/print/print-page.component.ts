@@ -88,7 +88,7 @@ export class PrintPageComponent implements OnInit {
   private readonly host: HTMLElement = inject(ElementRef).nativeElement;
   private readonly focusAfter = new FocusAfterRender();
 
-  private readonly quiltChoice = inject(QuiltChoice, { optional: true });
+  protected readonly quiltChoice = inject(QuiltChoice, { optional: true });
   /** The quilt size and colourway chosen on this page or the Quilt tab: the print set's cover and fabric follow them. */
   private readonly quiltOptions = computed<Pick<PrintOptionsInput, 'quiltSize' | 'colourwayId'>>(() => {
     const doc = this.ctx.document();
@@ -187,7 +187,9 @@ export class PrintPageComponent implements OnInit {
             }),
           )
         : of(this.ctx.revision());
-    revision$.pipe(switchMap((rev) => this.printSets.create(this.ctx.id(), this.options(), rev))).subscribe({
+    // The user's own colourway copy, when one is chosen, stands in for the colourway (quiltOptions has none then).
+    const copyId = this.quiltChoice?.copy()?.id ?? null;
+    revision$.pipe(switchMap((rev) => this.printSets.create(this.ctx.id(), this.options(), rev, copyId))).subscribe({
       next: (set) => {
         this.starting.set(false);
         this.making.set(set);
