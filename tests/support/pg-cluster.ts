@@ -57,6 +57,8 @@ export interface PgBinaries {
 }
 
 const SUPERUSER = 'seamwright';
+/** The database every cluster starts with (made in the template). */
+const TEMPLATE_DATABASE = 'seamwright';
 const PORT_LOW = 55400;
 const PORT_HIGH = 60999;
 
@@ -201,21 +203,44 @@ function installExitHook(): void {
   });
 }
 
+/**
+ * `pg_ctl start` of the cluster in `dataDir` on a free loopback port, its unix socket and log in
+ * `dir`; tracked in `running` so the exit hook stops it if nobody else does. Returns the port.
+ */
+async function startServer(bins: PgBinaries, dir: string, dataDir: string): Promise<number> {
+  const logFile = join(dir, 'server.log');
+  let lastFailure = '';
+  for (let attempt = 0; attempt < 5; attempt++) {
+    const candidate = await freePort();
+    // pg_ctl hands -o to a shell: quote the socket folder.
+    const serverOptions =
+      `-p ${candidate} -k '${dir}' -c listen_addresses=127.0.0.1 ` +
+      '-c fsync=off -c synchronous_commit=off -c full_page_writes=off';
+    running.set(dir, { pgCtl: bins.pgCtl, dataDir });
+    const start = await run([bins.pgCtl, '-D', dataDir, '-l', logFile, '-o', serverOptions, '-w', '-t', '60', 'start']);
+    if (start.code === 0) return candidate;
+    // Another process may have taken the port between the check and the start: try another.
+    running.delete(dir);
+    lastFailure = `${start.output}\n${existsSync(logFile) ? readFileSync(logFile, 'utf8') : ''}`;
+  }
+  throw new Error(`pg-cluster: pg_ctl start failed:\n${lastFailure}`);
+}
+
 function initdbArgs(bins: PgBinaries, dataDir: string): string[] {
   return [bins.initdb, '-D', dataDir, '-A', 'trust', '-U', SUPERUSER, '-E', 'UTF8', '--locale=C', '--no-sync', '--no-instructions'];
 }
 
 /**
- * initdb is most of a cluster's start (2–5 s here, against under 1 s to copy its result), so it runs
- * once per machine, user and PostgreSQL build into a template folder under the temporary folder, and
- * each cluster starts from a copy. The template is made in a private folder and renamed into place,
+ * initdb is most of a cluster's start (2–6 s here, against under 1 s to copy its result), so it runs
+ * once per machine, user and PostgreSQL build into a template folder under the temporary folder
+ * (with the default database already made), and each cluster starts from a copy. The template is made in a private folder and renamed into place,
  * so processes racing to make it never see half of one.
  */
 async function ensureTemplate(bins: PgBinaries): Promise<string> {
   const who = runAs();
   const build = statSync(bins.initdb);
   const key = createHash('sha256')
-    .update(`${realpathSync(bins.initdb)}:${build.size}:${build.mtimeMs}:${SUPERUSER}:UTF8:C`)
+    .update(`${realpathSync(bins.initdb)}:${build.size}:${build.mtimeMs}:${SUPERUSER}:UTF8:C:${TEMPLATE_DATABASE}`)
     .digest('hex')
     .slice(0, 12);
   const templateDir = join(tmpdir(), `seamwright-pg-template-${who.uid}-${key}`);
@@ -225,8 +250,20 @@ async function ensureTemplate(bins: PgBinaries): Promise<string> {
   const scratch = mkdtempSync(join(tmpdir(), `seamwright-pg-template-${who.uid}-${key}.`));
   if (userInfo().uid === 0) chownSync(scratch, who.uid, who.gid);
   try {
-    const init = await run(initdbArgs(bins, join(scratch, 'data')));
+    const data = join(scratch, 'data');
+    const init = await run(initdbArgs(bins, data));
     if (init.code !== 0) throw new Error(`pg-cluster: initdb failed (${init.code}):\n${init.output}`);
+    // The default database is made once here too (CREATE DATABASE costs a checkpoint per cluster).
+    installExitHook();
+    const port = await startServer(bins, scratch, data);
+    const created = await createDatabaseIn(port, TEMPLATE_DATABASE).then(
+      () => null,
+      (err: unknown) => err,
+    );
+    const stop = await run([bins.pgCtl, '-D', data, '-m', 'fast', '-w', 'stop']);
+    running.delete(scratch);
+    if (created) throw created;
+    if (stop.code !== 0) throw new Error(`pg-cluster: stopping the template failed (${stop.code}):\n${stop.output}`);
     try {
       renameSync(scratch, templateDir);
     } catch (err) {
@@ -272,10 +309,9 @@ export async function startPgCluster(options: PgClusterOptions = {}): Promise<Pg
     );
   }
   const who = runAs();
-  const database = options.database ?? 'seamwright';
+  const database = options.database ?? TEMPLATE_DATABASE;
   const dir = mkdtempSync(join(tmpdir(), 'seamwright-pg-'));
   const dataDir = join(dir, 'data');
-  const logFile = join(dir, 'server.log');
   if (userInfo().uid === 0) chownSync(dir, who.uid, who.gid);
 
   const cleanUp = () => rmSync(dir, { recursive: true, force: true });
@@ -285,27 +321,9 @@ export async function startPgCluster(options: PgClusterOptions = {}): Promise<Pg
     if (copy.code !== 0) throw new Error(`pg-cluster: copying the initdb template failed (${copy.code}):\n${copy.output}`);
 
     installExitHook();
-    let port = 0;
-    let lastFailure = '';
-    for (let attempt = 0; attempt < 5 && port === 0; attempt++) {
-      const candidate = await freePort();
-      // pg_ctl hands -o to a shell: quote the socket folder.
-      const serverOptions =
-        `-p ${candidate} -k '${dir}' -c listen_addresses=127.0.0.1 ` +
-        '-c fsync=off -c synchronous_commit=off -c full_page_writes=off';
-      running.set(dir, { pgCtl: bins.pgCtl, dataDir });
-      const start = await run([bins.pgCtl, '-D', dataDir, '-l', logFile, '-o', serverOptions, '-w', '-t', '60', 'start']);
-      if (start.code === 0) {
-        port = candidate;
-      } else {
-        // Another process may have taken the port between the check and the start: try another.
-        running.delete(dir);
-        lastFailure = `${start.output}\n${existsSync(logFile) ? readFileSync(logFile, 'utf8') : ''}`;
-      }
-    }
-    if (port === 0) throw new Error(`pg-cluster: pg_ctl start failed:\n${lastFailure}`);
+    const port = await startServer(bins, dir, dataDir);
 
-    const url = await createDatabaseIn(port, database);
+    const url = database === TEMPLATE_DATABASE ? urlFor(port, database) : await createDatabaseIn(port, database);
     let stopped = false;
     return {
       url,
