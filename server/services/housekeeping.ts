@@ -43,8 +43,9 @@ export function startHousekeeping(db: Db, log: (message: string, err?: unknown) 
   const timer = setInterval(run, 3_600_000);
   timer.unref();
   // Listings saved before migration 0008 get their quilt size chart and pictures, in batches after start-up.
+  let stopped = false;
   const fill = setImmediate(() => {
-    fillListingQuilts(db).then(
+    fillListingQuilts(db, 20, () => stopped).then(
       (n) => {
         if (n > 0) log(`Filled the quilt pictures and size chart of ${n} shop listing${n === 1 ? '' : 's'}`);
       },
@@ -52,6 +53,7 @@ export function startHousekeeping(db: Db, log: (message: string, err?: unknown) 
     );
   });
   return () => {
+    stopped = true;
     clearInterval(timer);
     clearImmediate(fill);
   };

@@ -120,12 +120,14 @@ export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 
 
 /**
  * {@link fillListingQuiltBatch} over every listing, a batch at a time, giving the event loop back between
- * batches so requests are answered meanwhile. Resolves to the number of listings filled.
+ * batches so requests are answered meanwhile; `stopped` ends it between batches (the server closing). Resolves
+ * to the number of listings filled.
  */
-export async function fillListingQuilts(db: DbLike, batchSize = 20): Promise<number> {
+export async function fillListingQuilts(db: DbLike, batchSize = 20, stopped: () => boolean = () => false): Promise<number> {
   let after: string | null = null;
   let filled = 0;
   do {
+    if (stopped()) break;
     const batch = fillListingQuiltBatch(db, after, batchSize);
     filled += batch.filled;
     after = batch.next;
