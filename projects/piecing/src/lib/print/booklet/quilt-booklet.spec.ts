@@ -75,6 +75,14 @@ describe('the print set of a quilt in a chosen size and colourway', () => {
     expect(steps.find((s) => s.startsWith('Backing'))).toContain('seams running across the quilt');
   });
 
+  it('on point with sashing, the steps frame every block with strips and cornerstones before the setting triangles', () => {
+    const doc = quiltBlock();
+    const onPoint = readPatternDocument({ ...doc, quilt: { ...doc.quilt, setting: 'on-point', settingTrianglesFabricId: 'oat' } });
+    const steps = assemblySteps(quiltPlan(onPoint, { sizeName: 'Wall 2 × 2' }));
+    expect(steps.some((s) => s.startsWith('Sashing frames every block') && s.includes('Sage strip') && s.includes('Ink cornerstone'))).toBe(true);
+    expect(steps.some((s) => s.startsWith('Sew the block rows and sashing rows with a side setting triangle'))).toBe(true);
+  });
+
   it('the assembly picture leaves room for every step on the same sheet', () => {
     const sheet = pages.slice(0, result.bookletSheetCount).filter((p) => p.text.join(' ').includes('Putting the quilt together'));
     expect(sheet).toHaveLength(1);

@@ -243,8 +243,15 @@ export function assemblySteps(plan: QuiltPlan): string[] {
     `Lay the ${plan.blockCount} block${plan.blockCount === 1 ? '' : 's'} out as in the picture${plan.alternateBlocks ? `, with the ${plan.alternateBlocks.count} plain ${name(plan.alternateBlocks.fabricId)} blocks` : ''}${turned ? ', each turned or mirrored as drawn' : ''}.`,
   );
   if (plan.setting === 'on-point') {
+    const sash = plan.sashing;
+    if (sash) {
+      steps.push(
+        `Sashing frames every block: sew each diagonal row of blocks with a ${name(sash.fabricId)} strip before, between and after the blocks, ` +
+          `and each diagonal sashing row of strips with a ${name(sash.cornerstones.fabricId)} cornerstone before, between and after them. Press toward the sashing strips.`,
+      );
+    }
     steps.push(
-      'Sew the blocks into diagonal rows with a side setting triangle at each end of a row (the long edge of each triangle on the straight grain at the edge of the quilt). ' +
+      `Sew the ${sash ? 'block rows and sashing rows' : 'blocks into diagonal rows'} with a side setting triangle at each end of a row (the long edge of each triangle on the straight grain at the edge of the quilt). ` +
         'Press the seams of each row the opposite way to the row before, so the seams nest when the rows are joined.',
     );
     steps.push('Join the rows, nesting the seams; add the four corner triangles last. Trim the edges ¼ in. beyond the block points.');
@@ -302,7 +309,7 @@ function drawQuiltPicture(ctx: BookletContext, plan: QuiltPlan, fit: { map: (p: 
     ].map(fit.map);
   const seam = { widthPt: 0.3, colour: '#333333' };
   for (const r of [...plan.borderRects, ...plan.sashingRects]) drawShape(pen, rectRing(r), colour(r.fabricId), seam);
-  for (const t of plan.settingTrianglePolygons) drawShape(pen, t.points.map(fit.map), colour(t.fabricId), seam);
+  for (const t of [...plan.sashingPolygons, ...plan.settingTrianglePolygons]) drawShape(pen, t.points.map(fit.map), colour(t.fabricId), seam);
   const b = plan.blockBoundsIn;
   for (const cell of plan.cells) {
     const [a, bb, c, d, e, f] = cell.transform;
