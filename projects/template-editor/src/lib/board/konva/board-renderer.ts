@@ -109,6 +109,8 @@ export class BoardRenderer {
   constructor(
     container: HTMLDivElement,
     private readonly editor: BoardEditor,
+    /** Time a render may spend checking sewability before drawing (tests set 0 to defer every check). */
+    private readonly syncCheckBudgetMs = SYNC_CHECK_BUDGET_MS,
   ) {
     // The renderer draws exactly the layers that changed; Konva's own redraw on every change would
     // draw them a second time on the next frame.
@@ -302,7 +304,7 @@ export class BoardRenderer {
         else staticDirty = true;
       }
       let checked = active || this.checked.has(section);
-      if (!checked && checkTime < SYNC_CHECK_BUDGET_MS) {
+      if (!checked && checkTime < this.syncCheckBudgetMs) {
         const t0 = performance.now();
         ed.analysis.sewability(section);
         checkTime += performance.now() - t0;
@@ -357,6 +359,25 @@ export class BoardRenderer {
       this.draws.overlay++;
     }
     this.scheduleChecks();
+  }
+
+  /**
+   * Resolves once the work left for later is done: every drawn section checked, failing ones drawn
+   * again, and no frame waiting (for tests and the benchmark).
+   */
+  settled(): Promise<void> {
+    return new Promise((resolve) => {
+      const poll = () => {
+        if (this.unchecked.length === 0 && this.checkTimer === null && !this.frame) resolve();
+        else setTimeout(poll, 10);
+      };
+      poll();
+    });
+  }
+
+  /** Sections checked after they were first drawn, still to check. */
+  get pendingChecks(): number {
+    return this.unchecked.length;
   }
 
   private scheduleChecks(): void {
