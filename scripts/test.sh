@@ -19,6 +19,18 @@ if [ ! -x /usr/bin/chromium ]; then
   fi
 fi
 
+# The PostgreSQL specs start throwaway clusters (tests/support/pg-cluster.ts, docs/postgresql.md):
+# they need the server binaries initdb and pg_ctl.
+if ! command -v initdb >/dev/null 2>&1 && ! compgen -G '/usr/lib/postgresql/*/bin/initdb' >/dev/null; then
+  if [ "$(id -u)" = 0 ]; then
+    echo "== installing Debian's postgresql"
+    (apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends postgresql >/dev/null) || exit 1
+  else
+    echo "initdb is missing: run 'sudo apt-get install -y postgresql' and try again" >&2
+    exit 1
+  fi
+fi
+
 rm -rf test-results && mkdir -p test-results e2e/artifacts
 failed_steps=()
 step() {
