@@ -9,7 +9,7 @@ import type { JoiningPlan, JoiningProblem, ResolvedJoiningPlan } from './joining
 import { evaluateJoiningPlan } from './resolve-joining-plan';
 
 export type { JoiningPlan, JoinPart, JoinSeam, JoinPress, ResolvedJoinStep, ResolvedJoiningPlan, JoiningProblem, JoiningProblemKind, SeamPressing } from './joining-types';
-export { seamPressing } from './seam-pressing';
+export { seamPressing, sectionSeamPressing } from './seam-pressing';
 export { JOIN_TOLERANCES } from './part-contacts';
 export { withRingEdgesAsCurves } from './follow-ring-edges';
 

@@ -1,6 +1,6 @@
-import { SEAM_PRESS_DEFAULT, type PatternDocument } from '../document/pattern-schema';
-import { derivePatches, distanceToSegment, locatePoint } from '../geometry/index';
-import { checkSewability } from '../sewability/index';
+import { SEAM_PRESS_DEFAULT, type PatternDocument, type Section } from '../document/pattern-schema';
+import { derivePatches, distanceToSegment, locatePoint, type DerivedPatch } from '../geometry/index';
+import { checkSewability, type SewabilityVerdict } from '../sewability/index';
 import { SEAM_REACH_TOLERANCE_IN } from '../tolerance';
 import type { SeamPressing } from './joining-types';
 
@@ -19,7 +19,14 @@ export function seamPressing(doc: Pick<PatternDocument, 'sections'>, sectionId: 
   const section = doc.sections.find((s) => s.id === sectionId);
   if (!section) return [];
   const { patches } = derivePatches(section);
-  const verdict = checkSewability(patches);
+  return sectionSeamPressing(section, patches, checkSewability(patches));
+}
+
+/**
+ * {@link seamPressing} of a section whose patches (in piecing order) and sewability verdict are already at
+ * hand (the print set works them out once for every section).
+ */
+export function sectionSeamPressing(section: Section, patches: readonly DerivedPatch[], verdict: SewabilityVerdict): SeamPressing[] {
   const position = new Map(verdict.order.map((n, i) => [n, i]));
   const claimed = new Set<number>();
   return section.seams.map((seam) => {

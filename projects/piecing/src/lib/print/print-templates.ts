@@ -1,5 +1,5 @@
 import type { PatternDocument, Point, Section } from '../document/index';
-import { derivePatches, locatePoint, polygonArea, polygonCentroid } from '../geometry/index';
+import { derivePatches, locatePoint, polygonArea, polygonCentroid, type DerivedPatch } from '../geometry/index';
 import { matchingMarks, sectionSeamAllowance, sectionStripSets, stripSetDisplayName, type SectionMatchingMarks } from '../fabrication/index';
 import { planTemplateCopies } from './template-copies';
 import type { PrintOptions } from './print-options';
@@ -10,27 +10,32 @@ type TemplateOptions = Pick<PrintOptions, 'foundation' | 'copies' | 'sectionIds'
 /**
  * The templates of a print set, one per section of the document (ring-repeated sections are one
  * template printed several times), with everything the sheet draws: sewing and cutting lines, seams,
- * patch labels and fabrics, guide lines, matching marks, orientation and copies.
+ * patch labels and fabrics, guide lines, matching marks, orientation and copies. `patchesOf` gives a
+ * section's patches in piecing order (derived here unless the caller has them already).
  */
-export function buildPrintTemplates(document: PatternDocument, options: TemplateOptions): PrintTemplate[] {
+export function buildPrintTemplates(
+  document: PatternDocument,
+  options: TemplateOptions,
+  patchesOf: (section: Section) => DerivedPatch[] = (s) => derivePatches(s).patches,
+): PrintTemplate[] {
   const wanted = options.sectionIds ? new Set(options.sectionIds) : null;
   const copies = planTemplateCopies(document, options);
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const marks = new Map(matchingMarks(document).map((m) => [m.sectionId, m]));
   return document.sections
     .filter((s) => !wanted || wanted.has(s.id))
-    .map((section) => buildTemplate(section, document, fabricName, copies.get(section.id) ?? 1, marks.get(section.id)));
+    .map((section) => buildTemplate(section, patchesOf(section), document, fabricName, copies.get(section.id) ?? 1, marks.get(section.id)));
 }
 
 function buildTemplate(
   section: Section,
+  derived: DerivedPatch[],
   document: PatternDocument,
   fabricName: Map<string, string>,
   copies: number,
   marks: SectionMatchingMarks | undefined,
 ): PrintTemplate {
   const { sewingLine, cuttingLine } = sectionSeamAllowance(section, document.seamAllowanceIn);
-  const derived = derivePatches(section).patches;
   const patches: PrintPatch[] = derived.map((p) => ({
     label: p.label,
     ...(p.fabricId && fabricName.has(p.fabricId) ? { fabricName: fabricName.get(p.fabricId)! } : {}),

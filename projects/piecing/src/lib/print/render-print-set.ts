@@ -13,7 +13,7 @@ import { buildPrintTemplates } from './print-templates';
 import { printOptionsSchema, type PrintFonts, type PrintOptions, type PrintOptionsInput } from './print-options';
 import { sheetFrame, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
-import { bookletContext, sectionFacts, type BookletContext } from './booklet/booklet-context';
+import { bookletContext, sectionFacts, type BookletContext, type SectionFacts } from './booklet/booklet-context';
 import { BookletWriter } from './booklet/booklet-writer';
 import { drawBookletCover, type ContentsEntry } from './booklet/draw-booklet-cover';
 import { drawCuttingInstructions } from './booklet/draw-cutting-instructions';
@@ -26,7 +26,7 @@ import { finishedBlockSize } from './booklet/finished-size';
 import type { SectionPressing } from './booklet/section-pressing';
 import { findUnsewableSections, UnsewablePatternError } from './booklet/unsewable-sections';
 import { drawQuiltAssembly, drawQuiltFabric, quiltPrintDocument } from './booklet/quilt-booklet';
-import { resolveJoiningPlan, seamPressing } from '../joining/index';
+import { resolveJoiningPlan, sectionSeamPressing } from '../joining/index';
 import { planCopies, type CopyPlan } from '../fabrication/index';
 import { buildPieceTemplates } from './piece-templates/build-piece-templates';
 import { drawPieceTemplates } from './piece-templates/draw-piece-templates';
@@ -91,7 +91,7 @@ export async function renderPrintSet(
   const facts = sectionFacts(document);
   const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) }, (s) => facts.verdicts.get(s.id)!);
   if (unsewable.length > 0 && !opts.printUnsewable) throw new UnsewablePatternError(unsewable);
-  const templates = buildPrintTemplates(document, opts);
+  const templates = buildPrintTemplates(document, opts, (s) => facts.patches.get(s.id)!);
   const pieceTemplates = buildPieceTemplates(document, opts.sectionIds);
   const byId = new Map(templates.map((t) => [t.id, t]));
   let done = 0;
@@ -139,7 +139,7 @@ export async function renderPrintSet(
     drawQuiltFabric(ctx, booklet);
     drawCuttingInstructions(ctx, booklet);
   }
-  drawPiecingSteps(ctx, booklet, (section) => sectionPressing(document, section));
+  drawPiecingSteps(ctx, booklet, (section) => sectionPressing(section, facts));
   drawTrimming(ctx, booklet);
   drawJoiningPlan(ctx, booklet, resolveJoiningPlan(document));
   drawQuiltAssembly(ctx, booklet);
@@ -265,10 +265,13 @@ export async function renderPrintSet(
   };
 }
 
-/** Pressing of each patch seam of a section, by the patch it adds (toward the patch just added when unset). */
-function sectionPressing(document: PatternDocument, section: Section): SectionPressing {
+/**
+ * Pressing of each patch seam of a section, by the patch it adds (toward the patch just added when unset),
+ * from the patches and verdict the print set worked out once.
+ */
+function sectionPressing(section: Section, facts: SectionFacts): SectionPressing {
   const pressing: SectionPressing = new Map();
-  for (const seam of seamPressing(document, section.id)) {
+  for (const seam of sectionSeamPressing(section, facts.patches.get(section.id)!, facts.verdicts.get(section.id)!)) {
     if (seam.addedPatch !== undefined && !pressing.has(seam.addedPatch)) pressing.set(seam.addedPatch, seam.press);
   }
   return pressing;
