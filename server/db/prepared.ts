@@ -1,4 +1,5 @@
 import type BetterSqlite3 from 'better-sqlite3';
+import { fillPlaceholders } from 'drizzle-orm';
 import type { DbLike } from './database';
 
 /**
@@ -26,4 +27,15 @@ export function preparedPerDb<T>(build: (db: DbLike) => T): (db: DbLike) => T {
 /** The better-sqlite3 connection under a drizzle handle (the database, or a transaction on it). */
 export function connectionOf(db: DbLike): BetterSqlite3.Database {
   return (db as unknown as { session: { client: BetterSqlite3.Database } }).session.client;
+}
+
+/**
+ * A drizzle query's SQL prepared once as a plain better-sqlite3 statement that gives rows as arrays,
+ * the columns in the query's select order: for hot lists whose rows are written out by hand, with no
+ * per-row mapping into objects. Placeholders are bound by name as with drizzle's `.prepare()`.
+ */
+export function rawRowsOf(db: DbLike, query: { toSQL(): { sql: string; params: unknown[] } }): (values: Record<string, unknown>) => unknown[][] {
+  const { sql, params } = query.toSQL();
+  const statement = connectionOf(db).prepare(sql).raw(true);
+  return (values) => statement.all(...fillPlaceholders(params, values)) as unknown[][];
 }

@@ -1,6 +1,6 @@
 import { and, asc, count, desc, eq, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { DbLike } from '../db/database';
-import { preparedPerDb } from '../db/prepared';
+import { preparedPerDb, rawRowsOf } from '../db/prepared';
 import { formatLength, parsePatternDocument } from '@seamwright/piecing';
 import { members, patternPreviews, patterns, revisions, users, type Pattern } from '../db/schema';
 import { likeContains } from '../http/paging';
@@ -48,16 +48,30 @@ const listStatements = preparedPerDb((db) => {
     }[sort];
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
-      page: db
-        .select({ pattern: patterns, ownerName: users.displayName, memberAccess: members.access, total: sql<number>`count(*) OVER ()` })
-        .from(patterns)
-        .leftJoin(members, membership)
-        .innerJoin(users, eq(users.id, patterns.ownerId))
-        .where(where)
-        .orderBy(direction(sortColumn), direction(patterns.id))
-        .limit(sql.placeholder('limit'))
-        .offset(sql.placeholder('offset'))
-        .prepare(),
+      // Rows as arrays in this order (see PAGE_COLUMNS), read and written out by hand.
+      page: rawRowsOf(
+        db,
+        db
+          .select({
+            id: patterns.id,
+            ownerId: patterns.ownerId,
+            title: patterns.title,
+            headRevision: patterns.headRevision,
+            createdAt: patterns.createdAt,
+            updatedAt: patterns.updatedAt,
+            trashedAt: patterns.trashedAt,
+            ownerName: users.displayName,
+            memberAccess: members.access,
+            total: sql<number>`count(*) OVER ()`,
+          })
+          .from(patterns)
+          .leftJoin(members, membership)
+          .innerJoin(users, eq(users.id, patterns.ownerId))
+          .where(where)
+          .orderBy(direction(sortColumn), direction(patterns.id))
+          .limit(sql.placeholder('limit'))
+          .offset(sql.placeholder('offset')),
+      ),
     };
   }
   return (scope: ListScope, sort: ListSort, order: 'asc' | 'desc', search: boolean) => {
@@ -76,24 +90,26 @@ const previewStatements = preparedPerDb((db) => ({
    * The stored previews of one page's patterns (ids as a JSON array), read after the page rather than
    * joined to it: a join would run for every pattern in scope before the sort and limit.
    */
-  forPage: db
-    .select({
-      patternId: patternPreviews.patternId,
-      revisionNumber: patternPreviews.revisionNumber,
-      sectionCount: patternPreviews.sectionCount,
-      widthIn: patternPreviews.widthIn,
-      heightIn: patternPreviews.heightIn,
-      displayUnit: patternPreviews.displayUnit,
-      svg: patternPreviews.svg,
-    })
-    .from(patternPreviews)
-    .where(
-      and(
-        sql`${patternPreviews.patternId} IN (SELECT value FROM json_each(${sql.placeholder('ids')}))`,
-        eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION),
+  forPage: rawRowsOf(
+    db,
+    db
+      .select({
+        patternId: patternPreviews.patternId,
+        revisionNumber: patternPreviews.revisionNumber,
+        sectionCount: patternPreviews.sectionCount,
+        widthIn: patternPreviews.widthIn,
+        heightIn: patternPreviews.heightIn,
+        displayUnit: patternPreviews.displayUnit,
+        svg: patternPreviews.svg,
+      })
+      .from(patternPreviews)
+      .where(
+        and(
+          sql`${patternPreviews.patternId} IN (SELECT value FROM json_each(${sql.placeholder('ids')}))`,
+          eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION),
+        ),
       ),
-    )
-    .prepare(),
+  ),
   document: db
     .select({ document: revisions.document })
     .from(revisions)
@@ -165,23 +181,41 @@ function listItem(pattern: Pattern, ownerName: string, access: Access, preview: 
   };
 }
 
+/** A page row as the page statement gives it (columns in its select order; times in ms). */
+type PageRow = [id: string, ownerId: string, title: string, headRevision: number, createdAt: number, updatedAt: number, trashedAt: number | null, ownerName: string, memberAccess: Access | null, total: number];
+/** A preview row as the preview statement gives it. */
+type PreviewRowArray = [patternId: string, revisionNumber: number, sectionCount: number, widthIn: number, heightIn: number, displayUnit: PreviewRow['displayUnit'], svg: string | null];
+
 /** One page of the patterns a user owns or is a member of, with the total across pages. */
 export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
   const statements = listStatements(db)(q.scope, q.sort, q.order, Boolean(q.q));
   const params = { userId: user.id, like: q.q ? likeContains(q.q) : '' };
-  const rows = statements.page.all({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const rows = statements.page({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize }) as PageRow[];
   // The page carries the count over every row in scope (a window over the whole result, taken
   // before LIMIT); only a page past the end needs the count on its own.
-  const total = rows.length > 0 ? rows[0].total : q.page > 1 ? (statements.total.get(params)?.n ?? 0) : 0;
-  const previews = new Map(
-    rows.length === 0 ? [] : previewStatements(db).forPage.all({ ids: JSON.stringify(rows.map((r) => r.pattern.id)) }).map((p) => [p.patternId, p]),
-  );
-  const previewOf = (pattern: Pattern) => {
+  const total = rows.length > 0 ? rows[0][9] : q.page > 1 ? (statements.total.get(params)?.n ?? 0) : 0;
+  const previews = new Map<string, PreviewRowArray>();
+  if (rows.length > 0) {
+    for (const p of previewStatements(db).forPage({ ids: JSON.stringify(rows.map((r) => r[0])) }) as PreviewRowArray[]) previews.set(p[0], p);
+  }
+  const previewOf = (pattern: Pattern): PreviewRow | null => {
     const stored = previews.get(pattern.id);
-    return stored && stored.revisionNumber === pattern.headRevision ? stored : fillPreview(db, pattern);
+    if (!stored || stored[1] !== pattern.headRevision) return fillPreview(db, pattern);
+    return { sectionCount: stored[2], widthIn: stored[3], heightIn: stored[4], displayUnit: stored[5], svg: stored[6] };
   };
   return {
-    items: rows.map((r) => listItem(r.pattern, r.ownerName, (r.pattern.ownerId === user.id ? 'owner' : r.memberAccess) as Access, previewOf(r.pattern))),
+    items: rows.map((r) => {
+      const pattern: Pattern = {
+        id: r[0],
+        ownerId: r[1],
+        title: r[2],
+        headRevision: r[3],
+        createdAt: new Date(r[4]),
+        updatedAt: new Date(r[5]),
+        trashedAt: r[6] === null ? null : new Date(r[6]),
+      };
+      return listItem(pattern, r[7], r[1] === user.id ? 'owner' : (r[8] as Access), previewOf(pattern));
+    }),
     total,
     page: q.page,
     pageSize: q.pageSize,
