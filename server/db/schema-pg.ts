@@ -335,3 +335,13 @@ export const mailOutbox = pgTable(
   (t) => [index('mail_outbox_due_idx').on(t.sentAt, t.failedAt, t.nextAttemptAt)],
 );
 
+/** Rate-limit counts (schema.ts); `reset_at` in epoch milliseconds, bigint (past 2^31). */
+export const rateLimitHits = pgTable(
+  'rate_limit_hits',
+  {
+    key: text('key').primaryKey(),
+    hits: integer('hits').notNull(),
+    resetAt: bigint('reset_at', { mode: 'number' }).notNull(),
+  },
+  (t) => [index('rate_limit_hits_reset_idx').on(t.resetAt)],
+);

@@ -397,6 +397,22 @@ export const mailOutbox = sqliteTable(
   (t) => [index('mail_outbox_due_idx').on(t.sentAt, t.failedAt, t.nextAttemptAt)],
 );
 
+/**
+ * Rate-limit counts (sign-in, sign-up, password reset: server/auth/rate-limit-store.ts), kept in the
+ * database so every instance on one database counts together. `key` is the limiter's prefix and the
+ * client's key; `reset_at` is when the window ends, in epoch milliseconds (a plain integer, so one SQL
+ * statement compares it on SQLite and PostgreSQL alike). Expired rows are swept (`reset_at` index).
+ */
+export const rateLimitHits = sqliteTable(
+  'rate_limit_hits',
+  {
+    key: text('key').primaryKey(),
+    hits: integer('hits').notNull(),
+    resetAt: integer('reset_at').notNull(),
+  },
+  (t) => [index('rate_limit_hits_reset_idx').on(t.resetAt)],
+);
+
 export type Shop = typeof shops.$inferSelect;
 export type ShopListing = typeof shopListings.$inferSelect;
 export type Order = typeof orders.$inferSelect;
