@@ -2,7 +2,7 @@ import { and, isNotNull, isNull, lt, or } from 'drizzle-orm';
 import type { Db } from '../db/database';
 import { invitations, mailOutbox, passwordResets, printSets, sessions, uploads } from '../db/schema';
 import { DiskFileStore } from '../storage/disk-store';
-import type { FileStore } from '../storage/file-store';
+import type { FileStore, SweepOptions } from '../storage/file-store';
 import { fillListingQuilts } from '../shop/listings';
 
 /** Keeps answered invitations and used reset tokens this long, for the record. */
@@ -86,8 +86,12 @@ export function sweepStoredFiles(db: Db, dataDir: string): string[] {
   return new DiskFileStore(dataDir).sweepNow(STORED_FOLDERS, (key) => known.has(key));
 }
 
-/** {@link sweepStoredFiles} for any file store (the data folder or the database). Returns the removed keys. */
-export function sweepStoredFilesIn(db: Db, files: FileStore): Promise<string[]> {
+/**
+ * {@link sweepStoredFiles} for any file store (the data folder or the database). With several instances
+ * on one store, pass `writtenBefore` some minutes ago: another instance may have just written a file
+ * whose row it has not inserted yet. Returns the removed keys.
+ */
+export function sweepStoredFilesIn(db: Db, files: FileStore, options: SweepOptions = {}): Promise<string[]> {
   const known = knownKeys(db);
-  return files.sweep(STORED_FOLDERS, (key) => known.has(key));
+  return files.sweep(STORED_FOLDERS, (key) => known.has(key), options);
 }

@@ -9,10 +9,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Express } from 'express';
 import pg from 'pg';
-import { drizzle } from 'drizzle-orm/node-postgres';
-import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
+import { migratePostgres } from '../db/postgres';
 import { createApp } from '../app';
 import { sweepStoredFilesIn } from '../services/housekeeping';
 import { PrintSetService } from '../services/print-sets';
@@ -51,7 +50,7 @@ async function servedFromDisk(t: TestServer): Promise<Served> {
 async function servedFromPostgres(t: TestServer): Promise<Served> {
   const cluster: PgCluster = await startPgCluster({ database: 'downloads' });
   const pool = new pg.Pool({ connectionString: cluster.url, max: 4 });
-  await migrate(drizzle(pool), { migrationsFolder: path.resolve(import.meta.dirname, '../../drizzle-pg') });
+  await migratePostgres(pool);
   const store = new PgFileStore(pool, 1024);
   const printSets = new PrintSetService(t.ctx.db, t.ctx.config, t.ctx.log, store);
   // The server's context with the PostgreSQL store (the `files` a server with DATABASE_URL is given).

@@ -10,11 +10,10 @@ import path from 'node:path';
 import { Readable } from 'node:stream';
 import { buffer } from 'node:stream/consumers';
 import pg from 'pg';
-import { drizzle } from 'drizzle-orm/node-postgres';
-import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seededRandom } from '../../tests/support/random';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
+import { migratePostgres } from '../db/postgres';
 import { DiskFileStore } from './disk-store';
 import type { ByteRange, FileStore } from './file-store';
 import { DEFAULT_CHUNK_BYTES, PgFileStore } from './pg-store';
@@ -42,7 +41,7 @@ async function diskHome(): Promise<Home> {
 async function pgHome(): Promise<Home> {
   const cluster: PgCluster = await startPgCluster({ database: 'files' });
   const pool = new pg.Pool({ connectionString: cluster.url, max: 6 });
-  await migrate(drizzle(pool), { migrationsFolder: path.resolve(import.meta.dirname, '../../drizzle-pg') });
+  await migratePostgres(pool);
   const one = async (sql: string) => Number((await pool.query<{ n: string }>(sql)).rows[0]!.n);
   return {
     store: new PgFileStore(pool),
@@ -114,6 +113,15 @@ describe.each([
     const stat = await home.store.stat('print-sets/u1/big.pdf');
     expect(stat?.size).toBe(THREE_MB.byteLength);
     expect(Math.abs(stat!.modifiedAt.getTime() - Date.now())).toBeLessThan(60_000);
+    // Whole buffers and pieces larger than a chunk are stored alike.
+    for (const [key, source] of [
+      ['print-sets/u1/buffer.pdf', THREE_MB],
+      ['print-sets/u1/large-pieces.pdf', pieces(THREE_MB, 600_001)],
+    ] as const) {
+      expect(await home.store.put(key, source), key).toEqual({ size: THREE_MB.byteLength, sha256: sha(THREE_MB) });
+      expect((await read(home.store, key))!.equals(THREE_MB), key).toBe(true);
+    }
+    await home.store.remove(['print-sets/u1/buffer.pdf', 'print-sets/u1/large-pieces.pdf']);
     expect(await home.store.put('uploads/u1/small.png', Buffer.from('tiny'))).toEqual({ size: 4, sha256: sha(Buffer.from('tiny')) });
     expect((await read(home.store, 'uploads/u1/small.png'))!.toString()).toBe('tiny');
   });

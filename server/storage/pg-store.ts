@@ -35,24 +35,33 @@ export class PgFileStore implements FileStore {
       const hash = crypto.createHash('sha256');
       let size = 0;
       let seq = 0;
-      let pending: Buffer[] = [];
-      let pendingBytes = 0;
+      // The chunk being filled; a part that covers whole chunks is stored from its own bytes, uncopied.
+      let current = Buffer.allocUnsafe(this.chunkBytes);
+      let filled = 0;
       const insert = (data: Buffer) => client.query('INSERT INTO stored_file_chunks (file_id, seq, data) VALUES ($1, $2, $3)', [fileId, seq++, data]);
       const parts: Iterable<Uint8Array> | AsyncIterable<Uint8Array | string> = source instanceof Uint8Array ? [source] : source;
       for await (const part of parts) {
         const chunk = typeof part === 'string' ? Buffer.from(part) : Buffer.from(part.buffer, part.byteOffset, part.byteLength);
         hash.update(chunk);
         size += chunk.byteLength;
-        pending.push(chunk);
-        pendingBytes += chunk.byteLength;
-        while (pendingBytes >= this.chunkBytes) {
-          const joined = Buffer.concat(pending, pendingBytes);
-          await insert(joined.subarray(0, this.chunkBytes));
-          pending = [joined.subarray(this.chunkBytes)];
-          pendingBytes -= this.chunkBytes;
+        let at = 0;
+        while (at < chunk.byteLength) {
+          if (filled === 0 && chunk.byteLength - at >= this.chunkBytes) {
+            await insert(chunk.subarray(at, at + this.chunkBytes));
+            at += this.chunkBytes;
+            continue;
+          }
+          const n = chunk.copy(current, filled, at, Math.min(chunk.byteLength, at + this.chunkBytes - filled));
+          filled += n;
+          at += n;
+          if (filled === this.chunkBytes) {
+            await insert(current);
+            current = Buffer.allocUnsafe(this.chunkBytes);
+            filled = 0;
+          }
         }
       }
-      if (pendingBytes > 0) await insert(Buffer.concat(pending, pendingBytes));
+      if (filled > 0) await insert(current.subarray(0, filled));
       const sha256 = hash.digest('hex');
       await this.replaceHead(client, key, fileId, size, sha256);
       return { size, sha256 };
