@@ -2,7 +2,7 @@ import type { Readable } from 'node:stream';
 
 /**
  * Where stored files live (print-set PDFs, uploaded reference images): one small interface with two
- * homes, the local data folder (the default) and PostgreSQL (design §10: every instance reads the
+ * homes, the local data folder (the default) and PostgreSQL (docs/file-store.md: every instance reads the
  * same files). A key is the file's path relative to the data folder, forward slashes, e.g.
  * `print-sets/<userId>/<setId>.pdf`; database rows keep it as their `storage_path`.
  *

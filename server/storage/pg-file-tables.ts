@@ -1,5 +1,5 @@
 /**
- * The PostgreSQL tables of stored files (design §10), used by {@link PgFileStore} when DATABASE_URL is
+ * The PostgreSQL tables of stored files (docs/file-store.md), used by {@link PgFileStore} when DATABASE_URL is
  * set. PostgreSQL only: with SQLite files stay in the data folder, so the SQLite schema has no such
  * tables (the schema-parity spec lists them as PostgreSQL-only).
  */

@@ -16,7 +16,7 @@ interface Head {
 }
 
 /**
- * Stored files in PostgreSQL (design §10), in the tables of `pg-file-tables.ts`: a head row per key and
+ * Stored files in PostgreSQL (docs/file-store.md), in the tables of `pg-file-tables.ts`: a head row per key and
  * its bytes in `bytea` chunks. A write streams its source into chunk rows of a new generation inside one
  * transaction and moves the head to them at the end, so it is all or nothing and never holds more than
  * one chunk in memory. A read fetches one chunk per query as the reader asks for more (no connection
