@@ -103,10 +103,11 @@ export function packSheets<T>(
       const frame = frames[orientation];
       const seen: PackItem<T>[][] = [];
       for (const order of quick ? ORDERS.slice(0, 1) : ORDERS) for (const variant of variants) {
-        const remaining = [...variant].sort(order);
+        const sorted = [...variant].sort(order);
         // Orders that come out the same (all items alike, say) are packed once.
-        if (seen.some((o) => o.length === remaining.length && o.every((item, i) => item === remaining[i]))) continue;
-        seen.push(remaining);
+        if (seen.some((o) => o.length === sorted.length && o.every((item, i) => item === sorted[i]))) continue;
+        seen.push(sorted);
+        const remaining = candidates(sorted, frame);
         for (const logic of quick ? LOGICS.slice(0, 1) : LOGICS) for (const stand of STANDS) {
           for (const block of quick ? QUICK_BLOCK_MODES : BLOCK_MODES) {
             const tried = packOne(remaining, frame, logic, block, stand);
@@ -115,7 +116,7 @@ export function packSheets<T>(
             const area = tried.placed.reduce((s, p) => s + p.width * p.height, 0);
             tries.push({ frame, tried, area });
             // Everything left fits this sheet, test block included: no try can do better.
-            if ('block' in tried && tried.placed.length === remaining.length && variant === whole) break search;
+            if ('block' in tried && tried.placed.length === sorted.length && variant === whole) break search;
             // Packed freely, the boxes left room for the block: reserving room first would not place more.
             if (block === 'free' && 'block' in tried) break;
           }
@@ -148,6 +149,30 @@ export function packSheets<T>(
     sheets.push({ frame, items: [...chosen.tried.placed, ...extra.map((e) => e.packed)] });
   }
   return sheets;
+}
+
+/** Up to this many items left, every try offers them all to the sheet. */
+const CANDIDATES_ALL = 48;
+/** Beyond that, a try offers the first items of its order whose boxes cover the sheet this many times over. */
+const CANDIDATE_SHEETS = 3;
+
+/**
+ * The items a try offers one sheet: all of them for a short list; for a long one (a large pattern) the first
+ * {@link CANDIDATES_ALL} of the order and as many more as it takes for their boxes to cover the content area
+ * {@link CANDIDATE_SHEETS} times. A sheet holds no more than its area, so the items further down the order
+ * could only go in gaps, which the outline fill looks at afterwards; without the cap each sheet would look at
+ * every item left and planning would grow with the square of the pattern.
+ */
+function candidates<T>(order: readonly PackItem<T>[], frame: SheetFrame): readonly PackItem<T>[] {
+  if (order.length <= CANDIDATES_ALL) return order;
+  const enough = CANDIDATE_SHEETS * frame.content.width * frame.content.height;
+  let area = 0;
+  let n = 0;
+  while (n < order.length && (n < CANDIDATES_ALL || area < enough)) {
+    area += order[n].width * order[n].height;
+    n++;
+  }
+  return order.slice(0, n);
 }
 
 /** What is left after a sheet took `placed`: whole items gone, broken items down to their unplaced parts. */
