@@ -58,22 +58,25 @@ class OnDemandLayer extends Konva.Layer {
 }
 
 /**
- * Draws a {@link BoardEditor} on a Konva stage of two layers (each layer is a stage-sized canvas,
- * costly to make, so there are few): the base (grid in screen space, reference image, the static
- * sections drawn by one shape in document order, and the rulers) and the top (the active section,
- * i.e. selected or being dragged, kept inside the rulers, and the tool overlay). The top layer's canvas
- * is made only once something is on it (a selection, the pointer, a tool preview, a highlight). Each
- * section has a painter that draws its patches, lines and numbers straight onto the canvas; a
- * section's painter is made again only when its object changed, and only the layers that changed are
- * redrawn: a vertex drag redraws the top layer, never the static sections. The overlay (handles, snap
- * marker, cursor, tool preview, highlight) is one shape redrawn each frame. Sections off screen derive
- * nothing until they come into view.
+ * Draws a {@link BoardEditor} on a Konva stage of three layers (each layer is a stage-sized canvas,
+ * costly to make, so the first draw makes only the base): the base (grid in screen space, reference
+ * image, the static sections drawn by one shape in document order, and the rulers), the active section
+ * (selected or being dragged, kept inside the rulers; its canvas made at the first selection) and the
+ * overlay (its canvas made once something is on it: a selection, the pointer, a tool preview, a
+ * highlight). Each section has a painter that draws its patches, lines and numbers straight onto the
+ * canvas; a section's painter is made again only when its object changed, and only the layers that
+ * changed are redrawn: a vertex drag redraws the active layer and the overlay, never the static
+ * sections; a pointer move alone redraws the overlay. The overlay (handles, snap marker, cursor, tool
+ * preview, highlight) is one shape redrawn each frame. Sections off screen derive nothing until they
+ * come into view.
  */
 export class BoardRenderer {
   readonly stage: Konva.Stage;
   /** Grid, reference image, static sections and rulers. */
   private readonly baseLayer = new Konva.Layer({ listening: false });
-  /** The active section and the overlay. */
+  /** The active section. */
+  private readonly activeLayer = new OnDemandLayer({ listening: false });
+  /** The overlay. */
   private readonly topLayer = new OnDemandLayer({ listening: false });
   private readonly staticContent = new Konva.Group({ listening: false });
   private readonly activeContent = new Konva.Group({ listening: false });
@@ -133,7 +136,7 @@ export class BoardRenderer {
     };
     // The layers join the stage empty: the stage draws a layer as it is added, and the first real draw
     // comes after the view is set.
-    this.stage.add(this.baseLayer, this.topLayer);
+    this.stage.add(this.baseLayer, this.activeLayer, this.topLayer);
     this.staticContent.add(
       new Konva.Shape({
         name: 'static-sections',
@@ -152,7 +155,7 @@ export class BoardRenderer {
       },
     });
     activeClip.add(this.activeContent);
-    this.topLayer.add(activeClip);
+    this.activeLayer.add(activeClip);
     this.topLayer.add(
       new Konva.Shape({
         name: 'overlay',
@@ -352,10 +355,17 @@ export class BoardRenderer {
       this.baseLayer.draw();
       this.draws.static++;
     }
+    if (activeId !== null && !this.activeLayer.hasCanvas) {
+      this.activeLayer.ensureCanvas();
+      activeDirty = true;
+    }
+    if (activeDirty && this.activeLayer.hasCanvas) {
+      this.activeLayer.draw();
+      this.draws.active++;
+    }
     if (!this.topLayer.hasCanvas && (activeId !== null || this.overlayHasContent())) this.topLayer.ensureCanvas();
     if (this.topLayer.hasCanvas) {
       this.topLayer.draw();
-      if (activeDirty) this.draws.active++;
       this.draws.overlay++;
     }
     this.scheduleChecks();
