@@ -1,5 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
+import { buildOrchardWheel } from '../projects/piecing/src/public-api';
 import { AuthPage } from './pages/auth.page';
 import { DraftingBoardPage } from './pages/drafting-board.page';
 import { PatternPage } from './pages/pattern.page';
@@ -142,5 +143,49 @@ test('each dialog, open, has no serious or critical axe findings in either theme
     await expectNoSeriousFindings(page, `folded main menu, ${theme}`);
     await page.keyboard.press('Escape');
     await page.setViewportSize({ width: 1366, height: 1000 });
+  }
+});
+
+/*
+ * Issue 21's screens with a real quilt (the demo Orchard Wheel: a layout, two colourways, three sizes),
+ * in both themes: the board shown in a colourway with the four-blocks panel open and the fabric list's
+ * note, the Quilt tab (layout form, quilt picture, colourways side by side, size chart, exports), and the
+ * quilt choice bar on the cutting list and the print page.
+ */
+test('the quilt screens of a pattern with a layout, colourways and sizes have no serious or critical axe findings in either theme', async ({ page }) => {
+  test.setTimeout(600_000);
+  await page.setViewportSize({ width: 1366, height: 1000 });
+  await signUpAs(page, 'designer', 'quilt-axe');
+  const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  const created = await page.request.post('/api/patterns', { data: { document: { ...buildOrchardWheel(), title: `Axe quilt ${run}` } }, headers: { 'x-csrf-token': csrfToken } });
+  expect(created.status()).toBe(201);
+  const patternId = ((await created.json()) as { pattern: { id: string } }).pattern.id;
+  const screen = (name: string) => ({ name, path: `/patterns/{id}/${name}`, board: name === 'board' });
+  for (const theme of ['light', 'dark'] as const) {
+    await useTheme(page, theme);
+    await openScreen(page, screen('board'), patternId);
+    await page.getByRole('combobox', { name: 'Board colourway' }).click();
+    await page.getByRole('option', { name: 'Frost' }).click();
+    await expect(page.getByRole('application', { name: 'Drafting board' })).toHaveAttribute('data-colourway', 'frost');
+    await page.getByRole('button', { name: 'Four blocks' }).click();
+    await expect(page.getByRole('img', { name: /Four copies of the block/ })).toBeVisible();
+    await page.getByText('Pattern settings', { exact: true }).click();
+    await expect(page.getByTestId('fabrics-colourway-note')).toBeVisible();
+    await expectNoSeriousFindings(page, `board in a colourway, ${theme}`);
+
+    await openScreen(page, screen('quilt'), patternId);
+    await expect(page.getByTestId('finished-size')).toBeVisible();
+    await expect(page.getByRole('list', { name: 'Colourways side by side' }).getByRole('listitem')).toHaveCount(3);
+    await expect(page.getByRole('table')).toBeVisible();
+    await page.locator('sw-quilt-picture').first().screenshot({ path: `e2e/artifacts/a11y-quilt-picture-${theme}.png` });
+    await page.screenshot({ path: `e2e/artifacts/a11y-quilt-${theme}.png`, fullPage: true });
+    await expectNoSeriousFindings(page, `quilt tab, ${theme}`);
+
+    for (const part of ['cutting', 'print']) {
+      await openScreen(page, screen(part), patternId);
+      await expect(page.getByRole('combobox', { name: 'Quilt size' })).toBeVisible();
+      await expect(page.getByRole('combobox', { name: 'Colourway' })).toBeVisible();
+      await expectNoSeriousFindings(page, `${part} with the quilt choice bar, ${theme}`);
+    }
   }
 });
