@@ -10,6 +10,7 @@ import {
 import type { AppContext } from '../app-context';
 import type { Csrf } from '../auth/csrf';
 import { decoyHash, hashPassword, verifyPassword } from '../auth/passwords';
+import { sqliteRateLimitSql } from '../auth/rate-limit-store';
 import { createRateLimits } from '../auth/rate-limits';
 import { currentUser, endSession, endUserSessions, publicUser, requireUser, startSession } from '../auth/sessions';
 import { hashToken, newId, randomToken } from '../auth/tokens';
@@ -41,7 +42,7 @@ export function authRouter(ctx: AppContext, csrf: Csrf): Router {
     const row = db.select({ userId: passwordResets.userId }).from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).get();
     return row ? row.userId : `token:${tokenHash}`;
   };
-  const limits = createRateLimits(config, resetAccountKey);
+  const limits = createRateLimits(config, sqliteRateLimitSql(ctx.database.sqlite), resetAccountKey);
   const decoy = decoyHash(config.bcryptRounds);
 
   router.get('/csrf', (req, res) => {
