@@ -1,5 +1,5 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
-import { readPatternDocument, type PatternDocumentInput } from '../projects/piecing/src/public-api';
+import { buildOrchardWheel, readPatternDocument, type PatternDocumentInput } from '../projects/piecing/src/public-api';
 import { DraftingBoardPage } from './pages/drafting-board.page';
 import { PatternPage } from './pages/pattern.page';
 
@@ -141,5 +141,105 @@ test('a keyboard alone: sign in, select B in the outline, nudge it, undo, cuttin
   // A PDF file starts with "%PDF-" (ISO 32000-1, 7.5.2 File Header).
   expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
   expect(bytes.length).toBeGreaterThan(1000);
+  expect(errors).toEqual([]);
+});
+
+/*
+ * Issue 21's screens by the keyboard alone (the account and the demo Orchard Wheel, which has a quilt
+ * layout, two colourways and three sizes, are made through the API): the board's colourway choice and
+ * the four-blocks panel, then the Quilt tab's colourway, the quilt picture, the layout form, the size
+ * chart, the colourways side by side and the exports, and the quilt choice bar of the cutting list.
+ * Every control is reached with Tab, shows focus (:focus-visible) and keeps it after its choice.
+ */
+test('a keyboard alone: the board in a colourway, the four blocks, the Quilt tab and the quilt choice bar', async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.setViewportSize({ width: 1366, height: 1000 });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  // Signed up through the page's own request context, so the browser is signed in.
+  const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  const quilter = { displayName: 'Kit Keys', email: `kit-${run}@example.test`, password: 'no-mouse-quilt-8', role: 'designer' as const };
+  expect((await page.request.post('/api/auth/sign-up', { data: quilter, headers: { 'x-csrf-token': csrfToken } })).status()).toBe(201);
+  const csrf = ((await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string }).csrfToken;
+  const created = await page.request.post('/api/patterns', { data: { document: { ...buildOrchardWheel(), title: `Keys quilt ${run}` } }, headers: { 'x-csrf-token': csrf } });
+  expect(created.status()).toBe(201);
+  const id = ((await created.json()) as { pattern: { id: string } }).pattern.id;
+  const focusVisible = () => page.evaluate(() => document.activeElement?.matches(':focus-visible') ?? false);
+
+  await page.goto(`/patterns/${id}/board`);
+  const board = new DraftingBoardPage(page);
+  await board.ready();
+
+  // The board's colourway: reached by Tab, the arrow keys choose (Pattern fabrics → Dusk → Frost), focus stays.
+  const boardChoice = page.getByRole('combobox', { name: 'Board colourway' });
+  await pressUntilFocused(page, boardChoice);
+  expect(await focusVisible()).toBe(true);
+  await page.keyboard.press('ArrowDown');
+  await page.keyboard.press('ArrowDown');
+  await expect(boardChoice).toHaveText(/Frost/);
+  await expect(boardChoice).toBeFocused();
+  await expect(board.board()).toHaveAttribute('data-colourway', 'frost');
+  await page.screenshot({ path: 'e2e/artifacts/keyboard-board-colourway.png' });
+
+  // The four blocks: opened with Enter; their colourway follows the board's and is the next stop.
+  const fourBlocks = page.getByRole('button', { name: 'Four blocks' });
+  await pressUntilFocused(page, fourBlocks);
+  await page.keyboard.press('Enter');
+  await expect(fourBlocks).toHaveAttribute('aria-expanded', 'true');
+  const fourChoice = page.getByRole('combobox', { name: 'Four blocks colourway' });
+  await pressUntilFocused(page, fourChoice, 'Tab', 4);
+  await expect(fourChoice).toHaveText(/Frost/);
+  await page.keyboard.press('ArrowUp');
+  await expect(fourChoice).toHaveText(/Dusk/);
+  await expect(fourChoice).toBeFocused();
+  await expect(boardChoice).toHaveText(/Frost/);
+
+  // The Quilt tab: the bar's colourway, the picture (arrows choose a block), the layout form, the size
+  // chart, the colourways side by side and the exports, each reached by Tab.
+  await page.goto(`/patterns/${id}/quilt`);
+  await expect(page.getByTestId('finished-size')).toBeVisible({ timeout: 30_000 });
+  const quiltColourway = page.getByRole('combobox', { name: 'Colourway', exact: true });
+  await pressUntilFocused(page, quiltColourway);
+  expect(await focusVisible()).toBe(true);
+  await page.keyboard.press('ArrowDown');
+  await expect(quiltColourway).toHaveText(/Dusk/);
+  await expect(quiltColourway).toBeFocused();
+  await expect(page.getByRole('list', { name: 'Colourways side by side' }).getByRole('button', { name: 'Dusk' })).toHaveAttribute('aria-pressed', 'true');
+  await pressUntilFocused(page, page.getByRole('button', { name: 'Quilt picture (SVG)' }));
+  expect(await focusVisible()).toBe(true);
+  await pressUntilFocused(page, page.getByRole('button', { name: 'Quilt picture (PNG)' }), 'Tab', 3);
+  const picture = page.getByRole('group', { name: /Quilt picture/ });
+  await pressUntilFocused(page, picture);
+  await page.keyboard.press('ArrowRight');
+  await expect(page.getByText('Chosen block: row 1, position 2')).toBeVisible();
+  await pressUntilFocused(page, page.getByLabel('Columns', { exact: true }));
+  expect(await focusVisible()).toBe(true);
+  await pressUntilFocused(page, page.getByLabel('Size 1 name'));
+  await pressUntilFocused(page, page.getByRole('radio', { name: 'As laid out' }));
+  await pressUntilFocused(page, page.getByRole('radio', { name: 'Bed 3 × 3' }), 'ArrowRight', 4);
+  await expect(page.getByRole('radio', { name: 'Bed 3 × 3' })).toBeChecked();
+  await expect(page.getByRole('combobox', { name: 'Quilt size' })).toHaveText(/Bed 3 × 3/);
+  const frostCard = page.getByRole('list', { name: 'Colourways side by side' }).getByRole('button', { name: 'Frost' });
+  await pressUntilFocused(page, frostCard);
+  expect(await focusVisible()).toBe(true);
+  await page.keyboard.press('Enter');
+  await expect(frostCard).toHaveAttribute('aria-pressed', 'true');
+  await expect(frostCard).toBeFocused();
+  await expect(quiltColourway).toHaveText(/Frost/);
+  await page.screenshot({ path: 'e2e/artifacts/keyboard-quilt-colourways.png' });
+
+  // The cutting list (through the pattern's tabs: the choice is kept for the open pattern): its quilt
+  // choice bar shows the size and colourway chosen on the Quilt tab, and its controls are Tab stops.
+  const parts = new PatternPage(page).parts();
+  await pressUntilFocused(page, parts.getByRole('tab', { selected: true }), 'Shift+Tab', 160);
+  await pressUntilFocused(page, parts.getByRole('tab').filter({ hasText: 'Cutting list' }), 'ArrowRight', 8);
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/\/cutting$/);
+  const size = page.getByRole('combobox', { name: 'Quilt size' });
+  await pressUntilFocused(page, size);
+  expect(await focusVisible()).toBe(true);
+  await expect(size).toHaveText(/Bed 3 × 3/);
+  await pressUntilFocused(page, page.getByRole('combobox', { name: 'Colourway', exact: true }));
+  await expect(page.getByRole('combobox', { name: 'Colourway', exact: true })).toHaveText(/Frost/);
   expect(errors).toEqual([]);
 });
