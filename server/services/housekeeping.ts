@@ -1,6 +1,6 @@
-import { and, isNotNull, isNull, lt, or } from 'drizzle-orm';
+import { and, isNotNull, isNull, lt, lte, or } from 'drizzle-orm';
 import type { Db } from '../db/database';
-import { invitations, mailOutbox, passwordResets, printSets, sessions, uploads } from '../db/schema';
+import { invitations, mailOutbox, passwordResets, printSets, rateLimitHits, sessions, uploads } from '../db/schema';
 import { DiskFileStore } from '../storage/disk-store';
 import type { FileStore, SweepOptions } from '../storage/file-store';
 import { fillListingQuilts } from '../shop/listings';
@@ -8,7 +8,7 @@ import { fillListingQuilts } from '../shop/listings';
 /** Keeps answered invitations and used reset tokens this long, for the record. */
 const KEEP_MS = 30 * 86_400_000;
 
-/** Removes expired sessions, old reset tokens, long-dead invitations and old sent mail. Returns rows removed. */
+/** Removes expired sessions, old reset tokens, long-dead invitations, old sent mail and ended rate-limit windows. Returns rows removed. */
 export function removeExpired(db: Db, now = Date.now()): number {
   const cutoff = new Date(now - KEEP_MS);
   return db.transaction((tx) => {
@@ -26,6 +26,7 @@ export function removeExpired(db: Db, now = Date.now()): number {
       .run().changes;
     // Sent or given-up mail (its body is already gone once sent) is kept for the record, then dropped.
     n += tx.delete(mailOutbox).where(or(lt(mailOutbox.sentAt, cutoff), lt(mailOutbox.failedAt, cutoff))).run().changes;
+    n += tx.delete(rateLimitHits).where(lte(rateLimitHits.resetAt, now)).run().changes;
     return n;
   });
 }
