@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../app';
 import { type DatabaseHandle, openDatabase } from '../db/database';
+import { rateLimitHits } from '../db/schema';
+import { removeExpired } from '../services/housekeeping';
 import { Client, startTestServer, type TestServer, userClient } from '../test/harness';
 
 /**
@@ -41,5 +43,18 @@ describe('rate limits across two instances on one database', () => {
     for (const c of [a, b, a]) statuses.push((await c.post('/api/auth/password-reset', { email: 'reset-shared@example.test' })).status);
     // RESET_LIMIT_PER_ACCOUNT=2.
     expect(statuses).toEqual([202, 202, 429]);
+  });
+
+  it('housekeeping removes counts whose window has ended, and only those', () => {
+    const db = first.ctx.db;
+    const rows = db.select().from(rateLimitHits).all();
+    expect(rows.length).toBeGreaterThan(0);
+    const ends = rows.map((r) => r.resetAt).sort((x, y) => x - y);
+    // RATE_LIMIT_WINDOW_MINUTES defaults to 15: every window ends 15 minutes after its first hit.
+    for (const end of ends) expect(end - Date.now()).toBeLessThanOrEqual(15 * 60_000);
+    expect(removeExpired(db, ends[0]! - 1)).toBe(0);
+    expect(db.select().from(rateLimitHits).all()).toHaveLength(rows.length);
+    removeExpired(db, ends[ends.length - 1]!);
+    expect(db.select().from(rateLimitHits).all()).toHaveLength(0);
   });
 });
