@@ -144,6 +144,13 @@ describe.each([
     }
   });
 
+  it('stores an empty file', async () => {
+    expect(await home.store.put('uploads/u0/empty.png', Readable.from([]))).toEqual({ size: 0, sha256: sha(Buffer.alloc(0)) });
+    expect((await home.store.stat('uploads/u0/empty.png'))?.size).toBe(0);
+    expect((await read(home.store, 'uploads/u0/empty.png'))!.byteLength).toBe(0);
+    await home.store.remove(['uploads/u0/empty.png']);
+  });
+
   it('answers nothing for a key with no file, and refuses keys that are not plain relative paths', async () => {
     expect(await home.store.stat('uploads/nobody/none.png')).toBeUndefined();
     expect(await home.store.openRead('uploads/nobody/none.png')).toBeUndefined();
