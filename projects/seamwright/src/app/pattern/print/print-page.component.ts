@@ -214,6 +214,12 @@ export class PrintPageComponent implements OnInit {
     });
   }
 
+  /** The name of the colourway copy a set was printed in (the server answers `{ id, name }`), or null. */
+  protected copyName(set: PrintSet): string | null {
+    const copy = set.options['colourwayCopy'] as { name?: unknown } | undefined;
+    return typeof copy?.name === 'string' ? copy.name : null;
+  }
+
   protected fileUrl(set: PrintSet): string {
     return this.printSets.fileUrl(this.ctx.id(), set.id);
   }
