@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import contentDisposition from 'content-disposition';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
 let owner: Client;
@@ -125,5 +125,30 @@ describe('reference image uploads', () => {
     await owner.del(`/api/patterns/${id}/uploads/${res.body.upload.id}`).expect(204);
     expect(fs.existsSync(file)).toBe(false);
     await owner.get(res.body.upload.url).expect(404);
+  });
+});
+
+describe('a reference image and the pattern it belongs to', () => {
+  it('travels with a duplicate as its own file, and goes with the pattern deleted for good', async () => {
+    const own = await owner.post('/api/patterns', { document: sampleDocument('Traced and copied') }).expect(201);
+    const patternId: string = own.body.pattern.id;
+    const image = Buffer.concat([TINY_PNG, Buffer.from('reference image bytes')]);
+    const up = await owner.req('post', `/api/patterns/${patternId}/uploads`).attach('file', image, 'trace.png').expect(201);
+    const referenceImage = { uploadId: up.body.upload.id, origin: { x: 0, y: 0 }, widthIn: 6, opacity: 0.4 };
+    await owner.put(`/api/patterns/${patternId}`, { baseRevision: 1, document: { ...sampleDocument('Traced and copied'), referenceImage } }).expect(200);
+
+    const copy = await owner.post(`/api/patterns/${patternId}/duplicate`, {}).expect(201);
+    const copiedRef = copy.body.revision.document.referenceImage;
+    expect(copiedRef.uploadId).not.toBe(up.body.upload.id);
+    const copyFile = path.join(t.dataDir, 'uploads', owner.user!.id, `${copiedRef.uploadId}.png`);
+    expect(fs.readFileSync(copyFile).equals(image)).toBe(true);
+
+    const originalFile = path.join(t.dataDir, 'uploads', owner.user!.id, `${up.body.upload.id}.png`);
+    await owner.post(`/api/patterns/${patternId}/trash`, {}).expect(200);
+    await owner.del(`/api/patterns/${patternId}`).expect(204);
+    expect(fs.existsSync(originalFile)).toBe(false);
+    // The copy's image is its own: deleting the original left it in place and served.
+    const served = await owner.get(`/api/patterns/${copy.body.pattern.id}/uploads/${copiedRef.uploadId}/file`).buffer(true).expect(200);
+    expect(Buffer.from(served.body).equals(image)).toBe(true);
   });
 });

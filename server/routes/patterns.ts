@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import express, { type Router } from 'express';
 import { duplicateBodySchema, patternListQuerySchema } from '@seamwright/api';
@@ -11,7 +10,7 @@ import { parseOr400 } from '../http/validate';
 import { patternOf, patternReadOf } from '../http/pattern-access';
 import { sendJsonText } from '../http/send-json';
 import { canDesign } from '../services/access';
-import { removeStoredFiles, resolveInData } from '../services/files';
+import { fileStoreOf } from '../storage/file-store-of';
 import { checkDocumentBody } from '../validation/document-body';
 import { listPatterns } from '../services/pattern-list';
 import { readAnswerText, saveAnswerText } from '../services/pattern-answers';
@@ -25,7 +24,7 @@ import {
 
 /** Patterns: list, create, read, save, duplicate, trash, restore, delete. */
 export function patternsRouter(ctx: AppContext): Router {
-  const { db, config } = ctx;
+  const { db } = ctx;
   const router = express.Router();
 
   router.get('/', requireUser, (req, res) => {
@@ -85,11 +84,7 @@ export function patternsRouter(ctx: AppContext): Router {
         document.referenceImage = { ...ref, uploadId: id };
       } else delete document.referenceImage;
     }
-    if (copied) {
-      const target = resolveInData(config.dataDir, copied.row.storagePath);
-      await fs.promises.mkdir(resolveInData(config.dataDir, `uploads/${user.id}`), { recursive: true });
-      await fs.promises.copyFile(resolveInData(config.dataDir, copied.from), target);
-    }
+    if (copied) await fileStoreOf(ctx).copy(copied.from, copied.row.storagePath);
     const created = db.transaction(
       (tx) => {
         const made = createPattern(tx, user.id, document);
@@ -133,7 +128,10 @@ export function patternsRouter(ctx: AppContext): Router {
     );
     // Their renders stop too (a queued set leaves its queue); nothing of theirs is stored.
     for (const id of setIds) ctx.printSets.cancel(id);
-    await removeStoredFiles(config.dataDir, files);
+    // The rows are gone; files whose removal fails here are swept at the next start-up.
+    await fileStoreOf(ctx)
+      .remove(files.filter((f): f is string => typeof f === 'string' && f.length > 0))
+      .catch((err: unknown) => ctx.log('Removing a deleted pattern\'s files failed; the start-up sweep will', err));
     res.status(204).end();
   });
 
