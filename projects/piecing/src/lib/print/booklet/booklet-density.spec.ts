@@ -31,7 +31,7 @@ describe('piecing steps of many short sections', () => {
     const booklet = pages.slice(0, result.bookletSheetCount).map(textOf).join(' ');
     expect(booklet.split('Press each patch flat after sewing it').length - 1).toBe(1);
     for (const section of document.sections) {
-      expect(booklet.split(`Section ${section.label}: piecing steps`).length - 1).toBe(1);
+      expect([...booklet.matchAll(new RegExp(`Section ${section.label}: piecing steps(?! \\(continued\\))`, 'g'))].length).toBe(1);
       const patches = derivePatches(section).patches;
       expect(booklet).toContain(`Place ${patches[0].label} (`);
       for (const p of patches.slice(1)) expect(booklet).toContain(`Add ${p.label} (`);
@@ -45,6 +45,9 @@ describe('piecing steps of many short sections', () => {
     const shared = piecing.filter((p) => textOf(p).split(': piecing steps').length - 1 >= 2);
     expect(shared.length).toBeGreaterThan(0);
     for (const page of piecing) {
+      // Every piecing sheet says which section its steps belong to, a section running on from the sheet before too.
+      expect(textOf(page)).toMatch(/Section [A-Z]+: piecing steps/);
+      if (!/^Section [A-Z]+: piecing steps/.test(textOf(page))) expect(textOf(page)).toMatch(/^Piecing steps/);
       const headed = [...textOf(page).matchAll(/Section ([A-Z]+): piecing steps/g)].map((m) => m[1]);
       const named = subtitleOf(page).replace(/^Piecing — sections? /, '').split(', ');
       // Every section begun on the sheet is in its header (a section running on from the sheet before is too).

@@ -67,7 +67,7 @@ export function drawPiecingSteps(ctx: BookletContext, writer: BookletWriter, pre
       flow.paragraph(`NOT SEWABLE AS NUMBERED — printed anyway at the designer's request. ${unsewable.reason}.`, 9, true);
     }
     if (section.note?.trim()) flow.paragraph(`Designer's note: ${section.note.trim()}`, 9, true);
-    drawSteps(ctx, flow, patches, verdict.steps, pressing, layout);
+    drawSteps(ctx, flow, section.label, patches, verdict.steps, pressing, layout);
     if (!verdict.sewable && verdict.failure) {
       const left = patches.slice(verdict.steps.length + 1).map((p) => p.label);
       flow.paragraph(`The steps stop at ${verdict.failure.label}: ${left.join(', ')} cannot be added in this order. ${verdict.failure.message}.`, 9, true);
@@ -90,13 +90,26 @@ function layoutSteps(ctx: BookletContext, patches: DerivedPatch[], steps: Sewing
   return { texts, rows, heights };
 }
 
-function drawSteps(ctx: BookletContext, flow: SheetFlow, patches: DerivedPatch[], steps: SewingStep[], pressing: SectionPressing, layout: StepsLayout): void {
+function drawSteps(
+  ctx: BookletContext,
+  flow: SheetFlow,
+  label: string,
+  patches: DerivedPatch[],
+  steps: SewingStep[],
+  pressing: SectionPressing,
+  layout: StepsLayout,
+): void {
   const cellW = flow.width / COLUMNS;
   const all = patches.flatMap((p) => p.polygon);
   const byNumber = new Map(patches.map((p) => [p.number, p]));
   const stepOf = new Map(steps.map((s) => [s.patchNumber, s]));
   const { texts } = layout;
   layout.rows.forEach((items, row) => {
+    // Steps running on onto the next sheet go under the section's heading again.
+    if (row > 0 && flow.roomLeft < layout.heights[row]) {
+      flow.startSheet();
+      flow.heading(`Section ${label}: piecing steps (continued)`, 11);
+    }
     const top = flow.block(layout.heights[row]);
     items.forEach((i, c) => {
       // The step number sits above its diagram, so a diagram filling its box never covers it.
