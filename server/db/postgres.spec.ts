@@ -54,6 +54,15 @@ describe('PostgreSQL connection and migrations (server/db/postgres.ts)', () => {
     expect(await appliedMigrations(handle)).toBe(journal.entries.length);
   });
 
+  it('keeps stored files\' chunks uncompressed (already-compressed PDFs and images: STORAGE EXTERNAL)', async () => {
+    // pg_attribute.attstorage: 'e' external (out of line, uncompressed), 'x' extended, the bytea default
+    // (PostgreSQL documentation, "pg_attribute" and "TOAST").
+    const { rows } = await handle.pool.query<{ attstorage: string }>(
+      "SELECT attstorage FROM pg_attribute WHERE attrelid = 'stored_file_chunks'::regclass AND attname = 'data'",
+    );
+    expect(rows).toEqual([{ attstorage: 'e' }]);
+  });
+
   it('the migrated columns and indexes are the schema module\'s (a schema-pg change without a generated migration fails here)', async () => {
     const { rows: columns } = await handle!.pool.query<{ table_name: string; column_name: string; is_nullable: string }>(
       "SELECT table_name, column_name, is_nullable FROM information_schema.columns WHERE table_schema = 'public'",
