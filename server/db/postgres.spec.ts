@@ -57,6 +57,7 @@ describe('PostgreSQL connection and migrations (server/db/postgres.ts)', () => {
   it('keeps stored files\' chunks uncompressed (already-compressed PDFs and images: STORAGE EXTERNAL)', async () => {
     // pg_attribute.attstorage: 'e' external (out of line, uncompressed), 'x' extended, the bytea default
     // (PostgreSQL documentation, "pg_attribute" and "TOAST").
+    if (!handle) throw new Error('the database of the first test is missing');
     const { rows } = await handle.pool.query<{ attstorage: string }>(
       "SELECT attstorage FROM pg_attribute WHERE attrelid = 'stored_file_chunks'::regclass AND attname = 'data'",
     );
