@@ -6,7 +6,7 @@ import { layoutTemplates } from './plan-print-layout';
 import { planPrintLayout } from './render-print-set';
 import { buildPrintTemplates } from './print-templates';
 import { equalSpans, prepareTemplate, tileGridFromSpans } from './prepare-template';
-import { CAPTION_IN, ITEM_GAP_IN } from './sheet-frame';
+import { CAPTION_IN, EDGE_SAFE_IN, ITEM_GAP_IN } from './sheet-frame';
 import { asymmetricBlock, testMedallion } from './testing/print-test-fixtures';
 import { buildOrchardWheel } from '../demo/index';
 import { readPatternDocument } from '../document/index';
@@ -62,8 +62,10 @@ describe('layout of the test medallion on Letter', () => {
     for (const sheet of layout.sheets) {
       const c = sheet.frame.content;
       for (const r of sheet.placements.map((p) => p.rect)) expect(within(r, c)).toBe(true);
-      // The test squares may hang into the header band's left end (its text then starts beside them).
-      expect(within(sheet.frame.testBlock, sheet.frame.printable)).toBe(true);
+      // The test squares may hang into the header band's left end (its text then starts beside them), and
+      // up into the margin band, never nearer the paper's edge than ¼ in. (EDGE_SAFE_IN; see docs/printing.md).
+      expect(within(sheet.frame.testBlock, sheet.frame.testArea)).toBe(true);
+      expect(Math.min(sheet.frame.testBlock.x, sheet.frame.testBlock.y)).toBeGreaterThanOrEqual(EDGE_SAFE_IN - 1e-9);
       // What each print really covers: its cutting line (a tile: its clip rectangle), and its caption strip.
       const groups = sheet.placements.map((p) => [
         ...(p.tile ? tileDrawing(p, byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))) : [byId.get(p.templateId)!.cuttingLine.map((q) => applyAffine(p.transform, q))]),

@@ -6,7 +6,7 @@ import { MaxRectsBin, PACKING_LOGIC, Rectangle } from 'maxrects-packer/dist/maxr
 import type { Point } from '../document/index';
 import { blockRing, findSpot, occupancyGrid, type ShapeMask } from './raster-fill';
 import type { PaperName, RectIn, SheetOrientation } from './paper';
-import { ITEM_GAP_IN, sheetFrame, type SheetFrame } from './sheet-frame';
+import { cornerBlockDepthIn, cornerBlockTopIn, ITEM_GAP_IN, sheetFrame, TEST_BLOCK_GAP_IN, type SheetFrame } from './sheet-frame';
 
 /** Something to place on a sheet: its size in inches and whether a quarter turn is allowed. */
 export interface PackItem<T> {
@@ -231,11 +231,14 @@ function rectMask(w: number, h: number, cell: number): ShapeMask {
  * - 'corner': side by side in the top-left corner of the printable area, its top in the header band
  *   (the header's text then starts to the right of it), so it takes only half an inch of content;
  * - 'band': the same corner, with nothing beside the block (rows of templates start below it);
+ * - 'edge-band' and 'edge': 'band' and 'corner' with the block raised into the margin band, its top
+ *   EDGE_SAFE_IN (¼ in.) from the paper's edge, so it takes less of the content area still (tried last:
+ *   ties keep the block inside the margins, so it goes up only where that places more);
  * - 'free': nowhere at first — the boxes are packed alone and the block goes in any free room left.
  */
-type BlockMode = 'corner' | 'band' | 'free';
-const BLOCK_MODES: readonly BlockMode[] = ['free', 'band', 'corner'];
-const QUICK_BLOCK_MODES: readonly BlockMode[] = ['free', 'corner'];
+type BlockMode = 'corner' | 'band' | 'edge' | 'edge-band' | 'free';
+const BLOCK_MODES: readonly BlockMode[] = ['free', 'band', 'corner', 'edge-band', 'edge'];
+const QUICK_BLOCK_MODES: readonly BlockMode[] = ['free', 'corner', 'edge'];
 const STANDS = [false, true];
 
 /**
@@ -258,13 +261,16 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
   const [bw, bh] = [tb.width, tb.height];
   let block: RectIn | null = null;
   if (blockAt !== 'free') {
-    // The block hangs from the top of the printable area; below the header it reaches `depth` into the content.
-    const top = frame.header.y;
-    const depth = top + bh - c.y;
+    // The block hangs from the top of the printable area (or of the room for test squares, 'edge'); it
+    // takes `depth` of the content area, its gap included (bin coordinates: every box is grown by g).
+    const hang = blockAt === 'edge' || blockAt === 'edge-band' ? 'edge' : 'header';
+    const top = cornerBlockTopIn(frame, hang);
+    const depth = cornerBlockDepthIn(frame, hang, bh);
+    if (hang === 'edge' && top >= frame.header.y - 1e-9) return null; // no margin band: the same as 'corner'
     block = { x: c.x, y: top, width: bw, height: bh };
     if (depth > 0) {
-      const below = new Rectangle(c.width + g, c.height + g - (depth + g), 0, depth + g);
-      bin.freeRects = blockAt === 'band' ? [below] : [new Rectangle(c.width + g - (bw + g), c.height + g, bw + g, 0), below];
+      const below = new Rectangle(c.width + g, c.height + g - depth, 0, depth);
+      bin.freeRects = blockAt === 'band' || blockAt === 'edge-band' ? [below] : [new Rectangle(c.width + g - (bw + TEST_BLOCK_GAP_IN), c.height + g, bw + TEST_BLOCK_GAP_IN, 0), below];
     }
   }
   const placed: PackedItem<T>[] = [];
@@ -286,9 +292,9 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
   if (block) return { placed, block };
   // Room for the block among the free rectangles maxrects kept (maximal, so one holds it if any room does).
   for (const [w, h] of [[tb.width, tb.height], [tb.height, tb.width]]) {
-    const depth = frame.header.y + h - c.y;
+    const depth = cornerBlockDepthIn(frame, 'header', h);
     // The corner first: there the block hangs into the header band.
-    const corner = bin.freeRects.find((f) => f.x <= 1e-9 && f.y <= 1e-9 && f.width >= w + g - 1e-9 && f.height >= depth + g - 1e-9);
+    const corner = bin.freeRects.find((f) => f.x <= 1e-9 && f.y <= 1e-9 && f.width >= w + TEST_BLOCK_GAP_IN - 1e-9 && f.height >= depth - 1e-9);
     if (corner) return { placed, block: { x: c.x, y: frame.header.y, width: w, height: h } };
   }
   for (const [w, h] of [[tb.width, tb.height], [tb.height, tb.width]]) {

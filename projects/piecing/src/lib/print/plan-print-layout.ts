@@ -9,7 +9,7 @@ import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
 import { equalSpans, intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGridFromSpans, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
-import { cornerBlockDepthIn, ITEM_GAP_IN, sheetFrame, CAPTION_IN, type SheetFrame } from './sheet-frame';
+import { cornerBlockDepthIn, ITEM_GAP_IN, sheetFrame, CAPTION_IN, TEST_BLOCK_GAP_IN, type SheetFrame } from './sheet-frame';
 import type { PrintTemplate } from './template-model';
 
 /** What one packed piece stands for: a whole copy of a template, or one tile of a copy. */
@@ -170,9 +170,8 @@ function searchPair(prepared: PreparedTemplate, mirrored: boolean): NestedPair |
 function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
-  const g = ITEM_GAP_IN;
   const fits = (w: number, h: number) =>
-    (w <= W && h <= H - cornerBlockDepthIn(frame) - g) || (w <= W - tb.width - g && h <= H);
+    (w <= W && h <= H - cornerBlockDepthIn(frame)) || (w <= W - tb.width - TEST_BLOCK_GAP_IN && h <= H);
   return fits(p.width, p.height) || fits(p.height, p.width);
 }
 
@@ -213,7 +212,6 @@ function chooseTiling(
   marginIn: number,
 ): { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number } {
   let best: { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number; sheets: number; count: number; area: number } | null = null;
-  const g = ITEM_GAP_IN;
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
     // The smallest grid for each sheet orientation and each way of leaving room for the test squares.
@@ -222,7 +220,7 @@ function chooseTiling(
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
-      for (const [cw, ch] of [[W, H - cornerBlockDepthIn(frame) - g - CAPTION_IN], [W - tb.width - g, H - CAPTION_IN]] as const) {
+      for (const [cw, ch] of [[W, H - cornerBlockDepthIn(frame) - CAPTION_IN], [W - tb.width - TEST_BLOCK_GAP_IN, H - CAPTION_IN]] as const) {
         limits.push([cw, ch]);
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
         if (grid && !bases.some(([c, r]) => c === grid.columns && r === grid.rows)) bases.push([grid.columns, grid.rows]);
@@ -287,8 +285,7 @@ function longEndSpans(length: number, max: number, overlapIn: number): Array<Arr
 function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
-  const g = ITEM_GAP_IN;
-  return (w <= W && h <= H - cornerBlockDepthIn(frame) - g) || (w <= W - tb.width - g && h <= H);
+  return (w <= W && h <= H - cornerBlockDepthIn(frame)) || (w <= W - tb.width - TEST_BLOCK_GAP_IN && h <= H);
 }
 
 function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement[] {

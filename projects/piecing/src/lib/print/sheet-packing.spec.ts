@@ -8,7 +8,7 @@ import { separated } from './nest-pair';
 import type { RectIn } from './paper';
 import { layoutTemplates } from './plan-print-layout';
 import { planPrintLayout } from './render-print-set';
-import { ITEM_GAP_IN, TEST_BLOCK_IN } from './sheet-frame';
+import { EDGE_SAFE_IN, ITEM_GAP_IN, TEST_BLOCK_GAP_IN, TEST_BLOCK_IN } from './sheet-frame';
 import { buildPrintTemplates } from './print-templates';
 import type { PrintLayout } from './layout-types';
 import { tileDrawing } from './testing/tile-drawing';
@@ -36,13 +36,39 @@ describe('sheets of the demo medallion and the stress pattern', () => {
     for (const sheet of layout.sheets.slice(0, -1)) expect(sheet.placements).toHaveLength(4);
   });
 
-  it('cannot put four stress templates and a 1 in. square on a Letter sheet, and puts three', () => {
+  it('puts four stress templates on a Letter sheet by raising the test squares into the margin band', () => {
     // Letter less ½ in. margins is 7.5 × 10 in.; four 4.54 × 3.54 in. boxes with 0.1 in. gaps need
-    // 7.18 × 9.18 in. however they are turned, leaving strips 0.32 and 0.82 in. wide — narrower than
-    // the 1 in. square plus its gap (1.1 in.), so a fourth template always costs the test square.
+    // 7.18 × 9.18 in. however they are turned, leaving strips 0.32 and 0.82 in. wide inside the margins —
+    // narrower than the 1 in. square. Raised to ¼ in. from the paper's top edge, the square ends at
+    // 1.25 in. and, 0.06 in. below it, the two rows of templates end at 1.31 + 9.18 = 10.49 ≤ 10.5 in.
     const layout = planPrintLayout(buildStressPattern(300), { paper: 'letter' });
-    expect(layout.templateSheetCount).toBe(10);
-    for (const sheet of layout.sheets.slice(0, -1)) expect(sheet.placements).toHaveLength(3);
+    expect(layout.templateSheetCount).toBe(8);
+    for (const sheet of layout.sheets.slice(0, -1)) {
+      expect(sheet.placements).toHaveLength(4);
+      expect(sheet.frame.testBlock.y).toBeCloseTo(EDGE_SAFE_IN, 9);
+      expect(sheet.frame.testBlock.x).toBeCloseTo(0.5, 9);
+    }
+    expectSound(layout, templatesOf(buildStressPattern(300)));
+  });
+
+  it('keeps the test squares inside the ½ in. margins wherever raising them places nothing more', () => {
+    // The last, part-filled stress sheet (two templates) and every sheet of the medallion have room inside the margins.
+    const last = planPrintLayout(buildStressPattern(300), { paper: 'letter' }).sheets.at(-1)!;
+    expect(last.placements).toHaveLength(2);
+    expect(within(last.frame.testBlock, last.frame.printable), `test block of the last stress sheet`).toBe(true);
+    const medallion = planPrintLayout(buildOrchardWheel(), { paper: 'letter' });
+    for (const sheet of medallion.sheets) expect(within(sheet.frame.testBlock, sheet.frame.printable), `medallion sheet ${sheet.pageNumber}`).toBe(true);
+  });
+
+  it('keeps every 1,000-patch stress sheet sound on Letter and A4, four templates a sheet', () => {
+    const document = buildStressPattern(1000);
+    const byId = templatesOf(document);
+    for (const paper of ['letter', 'a4'] as const) {
+      const layout = planPrintLayout(document, { paper });
+      // 100 templates of 4.5 × 3.5 in. (cutting line), four to a sheet: 25 sheets; the bound is 21.
+      expect(layout.templateSheetCount, paper).toBe(25);
+      expectSound(layout, byId);
+    }
   });
 });
 
@@ -78,7 +104,12 @@ function expectSound(layout: PrintLayout, byId: Map<string, PrintTemplate>): voi
     const sides = [testBlock.width, testBlock.height].sort((a, b) => a - b);
     expect(sides[0]).toBeCloseTo(TEST_BLOCK_IN.height, 9);
     expect(sides[1]).toBeCloseTo(TEST_BLOCK_IN.width, 9);
-    expect(within(testBlock, printable), `test block of sheet ${sheet.pageNumber} inside the printable area`).toBe(true);
+    // Inside the margins, or raised into the margin band but never nearer the paper's edge than ¼ in.
+    // (most home printers cannot print the outer ¼ in.: common practice, from memory).
+    const paper = { x: EDGE_SAFE_IN, y: EDGE_SAFE_IN, width: sheet.frame.widthIn - 2 * EDGE_SAFE_IN, height: sheet.frame.heightIn - 2 * EDGE_SAFE_IN };
+    expect(within(testBlock, paper), `test block of sheet ${sheet.pageNumber} at least ¼ in. from the paper's edge`).toBe(true);
+    expect(within(testBlock, sheet.frame.testArea), `test block of sheet ${sheet.pageNumber} inside the test-square area`).toBe(true);
+    if (layout.marginIn <= EDGE_SAFE_IN) expect(within(testBlock, printable), `test block of sheet ${sheet.pageNumber} inside the printable area`).toBe(true);
     // In the header band only at its left end: the header's text is drawn to the right of it.
     if (testBlock.y < header.y + header.height) expect(testBlock.x).toBeCloseTo(printable.x, 9);
     const groups: Point[][][] = [[rectRing(testBlock)]];
@@ -96,10 +127,12 @@ function expectSound(layout: PrintLayout, byId: Map<string, PrintTemplate>): voi
       groups.push(rings);
       names.push(`${p.sectionLabel}${p.copy}${p.tile ? ` tile ${p.tile.row},${p.tile.column}` : ''}`);
     }
-    // At least the gap apart (outlines were simplified within 0.02 in. for the search, so allow that twice).
+    // At least the gap apart (outlines were simplified within 0.02 in. for the search, so allow that twice);
+    // the test block at least its own gap from every cutting line and caption (it is a plain rectangle).
     for (let i = 0; i < groups.length; i++) {
       for (let j = i + 1; j < groups.length; j++) {
-        for (const a of groups[i]) for (const b of groups[j]) expect(separated(a, b, ITEM_GAP_IN - 0.04), `${names[i]} apart from ${names[j]} on sheet ${sheet.pageNumber}`).toBe(true);
+        const gap = i === 0 ? TEST_BLOCK_GAP_IN - 1e-6 : ITEM_GAP_IN - 0.04;
+        for (const a of groups[i]) for (const b of groups[j]) expect(separated(a, b, gap), `${names[i]} apart from ${names[j]} on sheet ${sheet.pageNumber}`).toBe(true);
       }
     }
   }
