@@ -4,7 +4,7 @@ import Coordinate from 'jsts/org/locationtech/jts/geom/Coordinate.js';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Point, Section } from '../document/pattern-schema';
-import { derivePatches, splitSection } from './derive-patches';
+import { derivePatches, rememberingDeriver, splitSection } from './derive-patches';
 import { flattenSectionOutline } from './section-outline';
 import { locatePoint, polygonArea, polygonCentroid } from './polygon';
 import { findSelfCrossing } from './self-crossing';
@@ -249,5 +249,28 @@ describe('derivePatches', () => {
     // polylabel's result is within the precision (0.05 in.) of the best clearance.
     expect(clearance).toBeGreaterThan(2 - Math.SQRT2 - 0.05);
     expect(clearance).toBeLessThanOrEqual(2 - Math.SQRT2 + 1e-9);
+  });
+});
+
+describe('rememberingDeriver', () => {
+  const split = section({
+    seams: [{ id: 's1', a: { x: 2, y: 0 }, b: { x: 2, y: 6 } }],
+    patches: [{ number: 2, anchor: { x: 1, y: 1 } }],
+  });
+
+  it('gives what derivePatches gives, deriving each section once', () => {
+    const derive = rememberingDeriver();
+    const first = derive(split);
+    expect(first).toEqual(derivePatches(split));
+    expect(first.patches.map((p) => p.label)).toEqual(['A1', 'A2']);
+    expect(derive(split)).toBe(first);
+  });
+
+  it('derives an equal but separate section afresh, and each deriver keeps its own results', () => {
+    const derive = rememberingDeriver();
+    const copy = structuredClone(split);
+    expect(derive(copy)).not.toBe(derive(split));
+    expect(derive(copy)).toEqual(derive(split));
+    expect(rememberingDeriver()(split)).not.toBe(derive(split));
   });
 });

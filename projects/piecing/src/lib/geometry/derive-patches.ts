@@ -206,6 +206,24 @@ export function derivePatches(section: Section, options: DerivePatchesOptions = 
   return { patches, problems };
 }
 
+/** The patches and problems of a section, as {@link derivePatches} gives them with its default tolerances. */
+export type PatchDeriver = (section: Section) => { patches: DerivedPatch[]; problems: SeamProblem[] };
+
+/**
+ * {@link derivePatches} (default tolerances) that derives each section object once and hands the same
+ * result back after: for work that reads many parts of one document (the print set derives every
+ * section for its cutting list, copies, templates and booklet). The results are shared, so callers
+ * read them and never change them; sections are taken as unchanging while the deriver is in use.
+ */
+export function rememberingDeriver(): PatchDeriver {
+  const memo = new WeakMap<Section, { patches: DerivedPatch[]; problems: SeamProblem[] }>();
+  return (section) => {
+    let result = memo.get(section);
+    if (!result) memo.set(section, (result = derivePatches(section)));
+    return result;
+  };
+}
+
 /**
  * The patch with its `labelPoint` as a property found on first read and then kept (enumerable, so
  * spreads, JSON and structured clones carry the value).

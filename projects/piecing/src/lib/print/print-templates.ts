@@ -1,5 +1,5 @@
 import type { PatternDocument, Point, Section } from '../document/index';
-import { derivePatches, locatePoint, polygonArea, polygonCentroid, type DerivedPatch } from '../geometry/index';
+import { derivePatches, locatePoint, polygonArea, polygonCentroid, type DerivedPatch, type PatchDeriver } from '../geometry/index';
 import { matchingMarks, sectionSeamAllowance, sectionStripSets, stripSetDisplayName, type SectionMatchingMarks } from '../fabrication/index';
 import { planTemplateCopies } from './template-copies';
 import type { PrintOptions } from './print-options';
@@ -11,15 +11,17 @@ type TemplateOptions = Pick<PrintOptions, 'foundation' | 'copies' | 'sectionIds'
  * The templates of a print set, one per section of the document (ring-repeated sections are one
  * template printed several times), with everything the sheet draws: sewing and cutting lines, seams,
  * patch labels and fabrics, guide lines, matching marks, orientation and copies. `patchesOf` gives a
- * section's patches in piecing order (derived here unless the caller has them already).
+ * section's patches in piecing order (derived here unless the caller has them already), and `derive` the
+ * same for the copies plan.
  */
 export function buildPrintTemplates(
   document: PatternDocument,
   options: TemplateOptions,
   patchesOf: (section: Section) => DerivedPatch[] = (s) => derivePatches(s).patches,
+  derive?: PatchDeriver,
 ): PrintTemplate[] {
   const wanted = options.sectionIds ? new Set(options.sectionIds) : null;
-  const copies = planTemplateCopies(document, options);
+  const copies = planTemplateCopies(document, options, derive);
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const marks = new Map(matchingMarks(document).map((m) => [m.sectionId, m]));
   return document.sections

@@ -91,8 +91,8 @@ export async function renderPrintSet(
   const facts = sectionFacts(document);
   const unsewable = findUnsewableSections({ sections: document.sections.filter((s) => !wanted || wanted.has(s.id)) }, (s) => facts.verdicts.get(s.id)!);
   if (unsewable.length > 0 && !opts.printUnsewable) throw new UnsewablePatternError(unsewable);
-  const templates = buildPrintTemplates(document, opts, (s) => facts.patches.get(s.id)!);
-  const pieceTemplates = buildPieceTemplates(document, opts.sectionIds);
+  const templates = buildPrintTemplates(document, opts, (s) => facts.patches.get(s.id)!, facts.derive);
+  const pieceTemplates = buildPieceTemplates(document, opts.sectionIds, facts.derive);
   const byId = new Map(templates.map((t) => [t.id, t]));
   let done = 0;
   let total = 3;
@@ -166,7 +166,7 @@ export async function renderPrintSet(
   drawPieceTemplates(pen, pieceWriter, pieceTemplates, opts.copies === 'single', document.pressingsPerTemplate);
   for (const s of pieceWriter.sheets) headings.push({ subtitle: s.subtitle, sectionIds: s.sectionIds });
 
-  const figures = planCopies(document);
+  const figures = planCopies(document, document.pressingsPerTemplate, facts.derive);
   const sectionLabels = new Map(document.sections.map((s) => [s.id, s.label]));
   const labelOf = (id: string) => sectionLabels.get(id) ?? id;
   /**

@@ -1,5 +1,5 @@
 import type { PatternDocument } from '../../document/pattern-schema';
-import { derivePatches } from '../../geometry/index';
+import { derivePatches, type PatchDeriver } from '../../geometry/index';
 
 /** How many copies of one section's template the pattern needs (docs/design-notes.md#copies). */
 export interface SectionCopies {
@@ -62,11 +62,13 @@ export interface CopyPlan {
  * last the whole section, so one serves u = max(1, floor(P / k)) sections and copies = ceil(uses / u).
  * A piece template is pressed once per piece cut: copies = ceil(pieces / P). Patches cut from a strip
  * set, and patches the designer marks (`pieceTemplate`), get a piece template. `pressingsPerTemplate`
- * overrides the document's setting P.
+ * overrides the document's setting P; `derive` gives a section's patches (the print set passes the ones it
+ * derived already).
  */
 export function planCopies(
   document: Pick<PatternDocument, 'sections' | 'blockCount' | 'pressingsPerTemplate'>,
   pressingsPerTemplate = document.pressingsPerTemplate,
+  derive: PatchDeriver = (s) => derivePatches(s),
 ): CopyPlan {
   if (!Number.isInteger(pressingsPerTemplate) || pressingsPerTemplate < 1) {
     throw new RangeError(`pressings per template must be a whole number, 1 or more, got ${pressingsPerTemplate}`);
@@ -77,7 +79,7 @@ export function planCopies(
   for (const s of document.sections) {
     const perBlock = s.ringRepeat?.count ?? 1;
     const templatesNeeded = perBlock * document.blockCount;
-    const derived = derivePatches(s).patches;
+    const derived = derive(s).patches;
     const k = Math.max(1, derived.length);
     const copies = foundationCopies(templatesNeeded, k, P);
     sections.push({

@@ -1,5 +1,5 @@
 import type { Fabric, PatternDocument, StripSet } from '../../document/pattern-schema';
-import { derivePatches } from '../../geometry/index';
+import { derivePatches, type PatchDeriver } from '../../geometry/index';
 import { layoutStripSet } from '../strip-sets/strip-set-layout';
 import { YARDAGE_STEP_IN, INCHES_PER_YARD, roundUpToStep } from '../shared/rounding';
 import { PolygonOffsetter } from '../seam-allowance/clipper-offset';
@@ -40,9 +40,10 @@ interface StripSetUse {
  * (with a problem, in plain words, when it cannot cover the patch with its seam allowance in any turn), and
  * a strip set's `subCutLengthIn` as its sub-cut (with a problem when a patch needs longer). Strip sets are
  * spoken of by their name, or "Strip set 1", "Strip set 2" … (their place in the list), never their id.
- * Pure and JSON-serialisable; never throws for a valid document.
+ * Pure and JSON-serialisable; never throws for a valid document. `derive` gives a section's patches (the
+ * print set passes the ones it derived already).
  */
-export function buildCuttingList(document: PatternDocument): CuttingList {
+export function buildCuttingList(document: PatternDocument, derive: PatchDeriver = (s) => derivePatches(s)): CuttingList {
   const allowanceIn = document.seamAllowanceIn;
   const marginIn = document.piecingMarginIn;
   const blocks = document.blockCount;
@@ -57,7 +58,7 @@ export function buildCuttingList(document: PatternDocument): CuttingList {
 
   for (const section of document.sections) {
     const copies = (section.ringRepeat?.count ?? 1) * blocks;
-    const derived = derivePatches(section);
+    const derived = derive(section);
     const assignments = new Map(section.patches.map((a) => [a.number, a]));
     for (const p of derived.problems) problems.push({ sectionId: section.id, patchLabel: null, message: p.message });
     for (const patch of derived.patches) {

@@ -1,5 +1,5 @@
 import type { Fabric, PatternDocument, Section } from '../../document/index';
-import { derivePatches, type DerivedPatch } from '../../geometry/index';
+import { rememberingDeriver, type DerivedPatch, type PatchDeriver } from '../../geometry/index';
 import { buildCuttingList, stripSetDisplayName, type CuttingList } from '../../fabrication/index';
 import type { PdfPen } from '../pdf-pen';
 import type { PrintOptions } from '../print-options';
@@ -23,15 +23,17 @@ export interface BookletContext {
 
 /** Each section's patches in piecing order and its sewability verdict, worked out once per print set. */
 export interface SectionFacts {
+  /** Every section's patches and problems, each derived once (shared: read, never change). */
+  derive: PatchDeriver;
   patches: Map<string, DerivedPatch[]>;
   verdicts: Map<string, SewabilityVerdict>;
 }
 
 /** Derives every section's patches once and checks each section's sewability on them. */
-export function sectionFacts(document: Pick<PatternDocument, 'sections'>): SectionFacts {
-  const patches = new Map(document.sections.map((s) => [s.id, [...derivePatches(s).patches].sort((a, b) => a.number - b.number)]));
+export function sectionFacts(document: Pick<PatternDocument, 'sections'>, derive: PatchDeriver = rememberingDeriver()): SectionFacts {
+  const patches = new Map(document.sections.map((s) => [s.id, [...derive(s).patches].sort((a, b) => a.number - b.number)]));
   const verdicts = new Map(document.sections.map((s) => [s.id, checkSewability(patches.get(s.id)!)]));
-  return { patches, verdicts };
+  return { derive, patches, verdicts };
 }
 
 /** Builds the booklet context of a document. */
@@ -49,7 +51,7 @@ export function bookletContext(
     fabrics: new Map(document.fabrics.map((f) => [f.id, f])),
     patches: facts.patches,
     verdicts: facts.verdicts,
-    cuttingList: buildCuttingList(document),
+    cuttingList: buildCuttingList(document, facts.derive),
     unsewable: new Map(unsewable.map((u) => [u.sectionId, u])),
   };
 }

@@ -1,5 +1,5 @@
 import type { PatternDocument, Point } from '../../document/index';
-import { derivePatches, lineChords } from '../../geometry/index';
+import { derivePatches, lineChords, type PatchDeriver } from '../../geometry/index';
 import { layoutStripSet, pieceTemplateCopies, PolygonOffsetter, stripSetDisplayName } from '../../fabrication/index';
 import type { PrintSegment } from '../template-model';
 
@@ -36,9 +36,13 @@ export interface PieceTemplate {
 
 /**
  * The piece templates of a document: every patch cut from a strip set, and every patch the designer
- * marked for one (`pieceTemplate`).
+ * marked for one (`pieceTemplate`). `derive` gives a section's patches when the caller has them already.
  */
-export function buildPieceTemplates(document: PatternDocument, sectionIds?: readonly string[]): PieceTemplate[] {
+export function buildPieceTemplates(
+  document: PatternDocument,
+  sectionIds?: readonly string[],
+  derive: PatchDeriver = (s) => derivePatches(s),
+): PieceTemplate[] {
   const wanted = sectionIds ? new Set(sectionIds) : null;
   const fabricName = new Map(document.fabrics.map((f) => [f.id, f.name]));
   const offsetter = new PolygonOffsetter();
@@ -47,7 +51,7 @@ export function buildPieceTemplates(document: PatternDocument, sectionIds?: read
     if (wanted && !wanted.has(section.id)) continue;
     const marked = new Set(section.patches.filter((p) => p.pieceTemplate).map((p) => p.number));
     const pieces = (section.ringRepeat?.count ?? 1) * document.blockCount;
-    for (const patch of derivePatches(section).patches) {
+    for (const patch of derive(section).patches) {
       if (!patch.stripSet && !marked.has(patch.number)) continue;
       const cuttingLine = offsetter.offsetPolygon(patch.polygon, document.seamAllowanceIn, 'mitre');
       const guideLines: PieceTemplateLine[] = [];
