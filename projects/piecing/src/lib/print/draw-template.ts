@@ -124,12 +124,18 @@ function drawOrientation(pen: PdfPen, placement: SheetPlacement, template: Print
     if (!insideRing(c, outline)) continue;
     // Arrow point, and the tag below it (its middle and both ends), kept off the outline, seams and labels.
     const probes = [c, { x: c.x, y: c.y - 0.13 }, { x: c.x, y: c.y + 0.25 }, { x: c.x - tagHalf, y: c.y + 0.25 }, { x: c.x + tagHalf, y: c.y + 0.25 }];
+    // The score only falls as probes and obstacles are added: a candidate stops being scored as soon as
+    // it cannot beat the best so far (the same spot wins as when every distance is taken).
     let score = Infinity;
     for (const p of probes) {
-      if (!insideRing(p, outline)) score = -1;
+      if (!insideRing(p, outline)) {
+        score = -1;
+        break;
+      }
       score = Math.min(score, distanceToRing(p, outline) - 0.04);
-      for (const [a, b] of lines) score = Math.min(score, distanceToSegment(p, a, b) - 0.04);
-      for (const l of labels) score = Math.min(score, Math.hypot((p.x - l.x) * 0.7, (p.y - l.y) * 1.6) - 0.16);
+      for (let i = 0; i < lines.length && score > bestScore; i++) score = Math.min(score, distanceToSegment(p, lines[i][0], lines[i][1]) - 0.04);
+      for (let i = 0; i < labels.length && score > bestScore; i++) score = Math.min(score, Math.hypot((p.x - labels[i].x) * 0.7, (p.y - labels[i].y) * 1.6) - 0.16);
+      if (score <= bestScore) break;
     }
     if (score > bestScore) {
       bestScore = score;
