@@ -22,12 +22,16 @@ interface GlyphSource {
  */
 export class FontFallback {
   private readonly covered = new Map<string, Map<number, boolean>>();
+  /** The main family's maps of {@link covered} (normal, bold), looked up for every text drawn or measured. */
+  private readonly mainCovered: readonly [Map<number, boolean>, Map<number, boolean>];
 
   constructor(
     private readonly doc: jsPDF,
     readonly mainFamily: string,
     readonly fallbacks: readonly string[],
-  ) {}
+  ) {
+    this.mainCovered = [this.coverage(mainFamily, false), this.coverage(mainFamily, true)];
+  }
 
   /** The families registered as fallbacks in a document, in order. */
   static familiesOf(doc: jsPDF): string[] {
@@ -54,7 +58,7 @@ export class FontFallback {
 
   /** Whether the main family draws the whole text on its own. */
   mainCovers(value: string, bold: boolean): boolean {
-    const map = this.coverage(this.mainFamily, bold);
+    const map = this.mainCovered[bold ? 1 : 0];
     for (let i = 0; i < value.length; i++) {
       const code = value.charCodeAt(i);
       const known = map.get(code);
@@ -77,7 +81,7 @@ export class FontFallback {
   }
 
   private has(family: string, code: number, bold: boolean): boolean {
-    const map = this.coverage(family, bold);
+    const map = family === this.mainFamily ? this.mainCovered[bold ? 1 : 0] : this.coverage(family, bold);
     let known = map.get(code);
     if (known === undefined) {
       const font = this.doc.internal as unknown as { getFont(family: string, style: string): GlyphSource };

@@ -46,6 +46,8 @@ export class PdfPen {
   private readonly fallback: FontFallback;
   /** Advance widths at 1 pt by font (`family/weight`) and character code, each measured once. */
   private readonly widthCache = new Map<string, Map<number, number>>();
+  /** The main family's maps of {@link widthCache} (normal, bold), looked up on every measure. */
+  private readonly mainWidths: readonly [Map<number, number>, Map<number, number>];
 
   /**
    * `measuringOnly`: a pen that measures and wraps text like any other but puts nothing on the page (to
@@ -56,6 +58,7 @@ export class PdfPen {
     readonly measuringOnly = false,
   ) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
+    this.mainWidths = [this.glyphWidths(PDF_FONT_FAMILY, false), this.glyphWidths(PDF_FONT_FAMILY, true)];
     if (!measuringOnly) penHooks.created?.(this);
   }
 
@@ -172,7 +175,7 @@ export class PdfPen {
       this.doc.setFont(family, bold ? 'bold' : 'normal');
       return this.doc.getStringUnitWidth(text);
     }
-    const widths = this.glyphWidths(family, bold);
+    const widths = family === PDF_FONT_FAMILY ? this.mainWidths[bold ? 1 : 0] : this.glyphWidths(family, bold);
     let sum = 0;
     for (let i = 0; i < text.length; i++) {
       const code = text.charCodeAt(i);
@@ -208,7 +211,9 @@ export class PdfPen {
    */
   wrap(value: string, widthIn: number, sizePt: number, bold = false): string[] {
     const limit = widthIn + 1e-9;
-    const width = (s: string) => this.textWidth(s, sizePt, bold);
+    // When the main font has every character, each piece is measured in it directly (what textWidth does then).
+    const main = this.fallback.mainCovers(value, bold);
+    const width = (s: string) => (main ? this.runWidth(s, PDF_FONT_FAMILY, sizePt, bold) : this.textWidth(s, sizePt, bold));
     const space = width(' ');
     const lines: string[] = [];
     for (const paragraph of value.split(/\r?\n/)) {

@@ -47,11 +47,14 @@ export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = fal
 /** A paler version of a colour (`amount` 0 … 1 towards white), so black text stays legible on it. */
 export function lighten(hex: string, amount = 0.55): string {
   const v = parseInt(hex.slice(1), 16);
-  const mix = (c: number) => Math.round(c + (255 - c) * amount);
-  const r = mix((v >> 16) & 255);
-  const g = mix((v >> 8) & 255);
-  const b = mix(v & 255);
+  const r = mixTowardWhite((v >> 16) & 255, amount);
+  const g = mixTowardWhite((v >> 8) & 255, amount);
+  const b = mixTowardWhite(v & 255, amount);
   return `#${((r << 16) | (g << 8) | b).toString(16).padStart(6, '0')}`;
+}
+
+function mixTowardWhite(c: number, amount: number): number {
+  return Math.round(c + (255 - c) * amount);
 }
 
 /** Fills a polygon (already on the sheet) and strokes its outline. */

@@ -139,9 +139,11 @@ function drawSteps(
 }
 
 function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, paleness: number): void {
-  const colour = (id: string | undefined) => lighten(fabricColour(ctx, id), paleness + (1 - paleness) * 0.25);
-  if (patch.stripSet) fillStripSetPatch(ctx.pen, fit, patch.polygon, patch.stripSet, (id) => colour(id), colour(undefined));
-  else ctx.pen.fillPolygon(patch.polygon.map(fit.map), colour(patch.fabricId));
+  const amount = paleness + (1 - paleness) * 0.25;
+  if (patch.stripSet) {
+    const colour = (id: string | undefined) => lighten(fabricColour(ctx, id), amount);
+    fillStripSetPatch(ctx.pen, fit, patch.polygon, patch.stripSet, colour, colour(undefined));
+  } else ctx.pen.fillPolygon(patch.polygon.map(fit.map), lighten(fabricColour(ctx, patch.fabricId), amount));
 }
 
 function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep, added: DerivedPatch, press: 'added' | 'previous' | 'open', labels: readonly Point[]): void {
