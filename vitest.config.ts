@@ -16,6 +16,13 @@ const alias = {
   ),
 };
 
+/**
+ * The server specs that run on PostgreSQL as well (the `server-pg` project). A spec joins when the
+ * code it tests is written for both databases (server/db/data.ts); specs about SQLite itself (its
+ * file, the hot routes, its migrations) stay SQLite-only.
+ */
+const PG_API_SPECS = ['server/auth.spec.ts', 'server/password-reset.spec.ts'];
+
 const propertySeed = fileURLToPath(new URL('./tests/support/property-seed.ts', import.meta.url));
 
 export default defineConfig({
@@ -43,6 +50,21 @@ export default defineConfig({
           include: ['server/**/*.spec.ts', 'projects/api/**/*.spec.ts'],
           testTimeout: 60_000,
           hookTimeout: 60_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          // The API tests again on PostgreSQL (issue 18, docs/postgresql.md): the harness gives each
+          // test server a fresh database in a throwaway cluster, one cluster per file.
+          name: 'server-pg',
+          environment: 'node',
+          setupFiles: [propertySeed],
+          include: PG_API_SPECS,
+          env: { SEAMWRIGHT_TEST_DATABASE: 'postgres' },
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
           fileParallelism: false,
         },
       },

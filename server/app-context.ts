@@ -1,13 +1,26 @@
+import type { RateLimitSql } from './auth/rate-limit-store';
 import type { Config } from './config';
+import type { Data } from './db/data';
 import type { DatabaseHandle, Db } from './db/database';
 import type { MailOutbox } from './services/mail-outbox';
 import type { Mailer } from './services/mailer';
 import type { PrintSetService } from './services/print-sets';
+import type { FileStore } from './storage/file-store';
 import type { DocumentChecks } from './validation/document-checks';
 
 /** Everything a route needs, made once at start and passed down (no module-level state). */
 export interface AppContext {
   config: Config;
+  /** The database, SQLite or PostgreSQL, as repository code sees it (server/db/data.ts). */
+  data: Data;
+  /** Stored files (print sets, uploads): the data folder with SQLite, the database with PostgreSQL. */
+  files: FileStore;
+  /** Where rate-limit counts are kept (the same database). */
+  rateLimitSql: RateLimitSql;
+  /**
+   * The SQLite file and its synchronous Drizzle handle: code not yet written for both databases.
+   * With PostgreSQL, using either throws (docs/postgresql.md "Repository code").
+   */
   database: DatabaseHandle;
   db: Db;
   mailer: Mailer;

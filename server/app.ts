@@ -40,12 +40,12 @@ export function createApp(ctx: AppContext): Express {
     next();
   });
   api.use(cookieParser());
-  api.use(loadSession(ctx.db));
+  api.use(loadSession(ctx.data));
   api.use(healthRouter());
   // Every POST, PUT, PATCH and DELETE below needs the X-CSRF-Token header (read from the header only).
   api.use(csrf.protect);
   // Every route about one pattern finds it and the caller's access here (or answers 404) first.
-  api.use('/patterns/:id', patternAccess(ctx.db));
+  api.use('/patterns/:id', patternAccess(ctx.data));
   // Bodies are read only now, after the session, CSRF and access checks: bounded per route and by depth.
   api.use(jsonBodies(ctx.config.jsonBodyLimit));
   api.use('/auth', authRouter(ctx, csrf));
@@ -68,6 +68,7 @@ export function createApp(ctx: AppContext): Express {
   });
   app.use(errorMiddleware((err) => ctx.log('request failed', err)));
   // Reads, lists and small saves of patterns are answered in front of Express, the same way (server/http/hot-routes.ts).
-  installHotRoutes(app, ctx, csrf);
+  // The hot routes answer from SQLite's prepared statements; on PostgreSQL every request goes through Express.
+  if (ctx.data.dialect === 'sqlite') installHotRoutes(app, ctx, csrf);
   return app;
 }

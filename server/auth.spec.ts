@@ -148,7 +148,7 @@ describe('password reset by e-mail', () => {
     await c.post('/api/auth/password-reset', { email: 'eve@example.test' }).expect(202);
     const { token } = tokenFromMail((await arrives).text);
     // Age the token past its hour.
-    t.ctx.database.sqlite.prepare('UPDATE password_resets SET expires_at = ?').run(Date.now() - 1000);
+    await t.ctx.data.db.update(t.ctx.data.t.passwordResets).set({ expiresAt: new Date(Date.now() - 1000) });
     const res = await c.post('/api/auth/password-reset/confirm', { token, newPassword: 'fresh password here' });
     expect(res.status).toBe(400);
   });

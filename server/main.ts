@@ -2,7 +2,8 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
-import { openDatabase } from './db/database';
+import type { DatabaseHandle, Db } from './db/database';
+import { openData, sqliteOnly } from './db/open-data';
 import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
 import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
@@ -19,21 +20,35 @@ function log(message: string, err?: unknown): void {
 /** Starts Seamwright's server; resolves once it listens. */
 export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: string[] = process.argv) {
   const config = loadConfig(env);
-  const database = openDatabase(config.dataDir);
+  const opened = await openData(config);
+  const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
+  const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
-  if ((config.seedDemo || argv.includes('--seed-demo')) && isEmpty(database.db)) {
-    const report = await seedDemo(database.db, config.bcryptRounds);
+  if ((config.seedDemo || argv.includes('--seed-demo')) && isEmpty(db)) {
+    const report = await seedDemo(db, config.bcryptRounds);
     log(`Seeded demo data: ${report.accountsCreated.length} accounts, patterns: ${report.patternsCreated.join(', ') || 'none'}`);
     for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
   }
-  const swept = sweepStoredFiles(database.db, config.dataDir);
+  const swept = sweepStoredFiles(db, config.dataDir);
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
-  const printSets = new PrintSetService(database.db, config, log);
-  const mailOutbox = new MailOutbox(database.db, mailer, log);
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks(config.dataDir) };
+  const printSets = new PrintSetService(db, config, log, opened.files);
+  const mailOutbox = new MailOutbox(opened.data, mailer, log);
+  const ctx: AppContext = {
+    config,
+    data: opened.data,
+    files: opened.files,
+    rateLimitSql: opened.rateLimitSql,
+    database,
+    db,
+    mailer,
+    mailOutbox,
+    log,
+    printSets,
+    documentChecks: new DocumentChecks(config.dataDir),
+  };
   printSets.resumeUnfinished();
   mailOutbox.start();
-  const stopHousekeeping = startHousekeeping(database.db, log);
+  const stopHousekeeping = startHousekeeping(db, log);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -41,7 +56,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
-  log(`Seamwright listening on http://${config.host}:${port} (data in ${config.dataDir})`);
+  log(`Seamwright listening on http://${config.host}:${port} (data in ${opened.where})`);
   let closing = false;
   const close = async () => {
     if (closing) return;
@@ -57,7 +72,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     await ctx.documentChecks.close();
     await mailOutbox.close();
     mailer.close();
-    database.close();
+    await opened.close();
   };
   return { server, port, ctx, close };
 }

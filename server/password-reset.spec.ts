@@ -4,6 +4,7 @@
  * ends every other reset link of the account.
  */
 import bcrypt from 'bcryptjs';
+import { and, eq, isNull } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { freePort } from '../tests/support/server-process';
 import { Client, startTestServer, tokenFromMail, userClient, type TestServer } from './test/harness';
@@ -143,8 +144,12 @@ describe('a reset request tells nothing about who has an account', () => {
           expect(arrived.subject).toBe('Reset your Seamwright password');
         } else {
           // Nothing lost: every known-address mail waits in the outbox for the mail server to return.
-          const waiting = t.ctx.database.sqlite.prepare("SELECT count(*) AS n FROM mail_outbox WHERE to_address = 'known@example.test' AND sent_at IS NULL").get() as { n: number };
-          expect(waiting.n).toBe(15);
+          const { mailOutbox } = t.ctx.data.t;
+          const waiting = await t.ctx.data.db
+            .select({ id: mailOutbox.id })
+            .from(mailOutbox)
+            .where(and(eq(mailOutbox.to, 'known@example.test'), isNull(mailOutbox.sentAt)));
+          expect(waiting.length).toBe(15);
         }
       } finally {
         await t.close();

@@ -13,7 +13,7 @@ function limiter(
   sql: RateLimitSql,
   name: string,
   limit: number,
-  key: (req: Request) => string,
+  key: (req: Request) => string | Promise<string>,
   onlyFailures: boolean,
 ): RequestHandler {
   const windowMs = config.limits.windowMinutes * 60_000;
@@ -42,13 +42,13 @@ function limiter(
  * The counts live in the database (`rate_limit_hits`, through `sql`), so every instance on one
  * database counts together; each limiter keeps its own counts under its own key prefix.
  */
-export function createRateLimits(config: Config, sql: RateLimitSql, resetAccountKey: (req: Request) => string) {
+export function createRateLimits(config: Config, sql: RateLimitSql, resetAccountKey: (req: Request) => string | Promise<string>) {
   const address = (req: Request) => ipKeyGenerator(req.ip ?? '0.0.0.0');
   const l = config.limits;
   return {
     resetConfirm: [
       limiter(config, sql, 'resetConfirm/ip', l.resetPerAddress, (r) => `ip:${address(r)}`, true),
-      limiter(config, sql, 'resetConfirm/account', l.resetPerAccount, (r) => `acct:${resetAccountKey(r)}`, true),
+      limiter(config, sql, 'resetConfirm/account', l.resetPerAccount, async (r) => `acct:${await resetAccountKey(r)}`, true),
     ],
     changePassword: [
       limiter(config, sql, 'changePassword/ip', l.signInPerAddress, (r) => `ip:${address(r)}`, true),

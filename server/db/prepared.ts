@@ -1,6 +1,7 @@
 import type BetterSqlite3 from 'better-sqlite3';
 import { fillPlaceholders } from 'drizzle-orm';
-import type { DbLike } from './database';
+import type { Data, Tables } from './data';
+import type { Db, DbLike } from './database';
 
 /**
  * What statements are cached on: the drizzle session, which a transaction shares with the database
@@ -20,6 +21,21 @@ export function preparedPerDb<T>(build: (db: DbLike) => T): (db: DbLike) => T {
     const key = cacheKey(db);
     let q = cache.get(key);
     if (!q) cache.set(key, (q = build(db)));
+    return q;
+  };
+}
+
+/**
+ * {@link preparedPerDb} for code written for both databases (server/db/data.ts): statements built
+ * from `d.db` and `d.t`, once per connection (on PostgreSQL once per pool and once per transaction:
+ * node-postgres sends them unnamed), run with `await q.execute(values)`.
+ */
+export function preparedOn<T>(build: (db: Db, t: Tables) => T): (d: Data) => T {
+  const cache = new WeakMap<object, T>();
+  return (d) => {
+    const key = cacheKey(d.db);
+    let q = cache.get(key);
+    if (!q) cache.set(key, (q = build(d.db, d.t)));
     return q;
   };
 }

@@ -6,8 +6,10 @@
  * three (HEAD, another path spelling, a large or encoded body, another content type), goes to Express
  * unchanged.
  *
- * Nothing is decided twice: the session is read by the same `sessionReader` as the session middleware,
- * the CSRF check is csrf-csrf's own, access by `loadPatternRead`/`loadPatternAccess`, bodies by
+ * SQLite only (with PostgreSQL every request goes through Express). Nothing is decided twice: the
+ * session is read by the same SQL as the session middleware (`sqliteSessionReader`), the CSRF check is
+ * csrf-csrf's own, access by the same SQL as `loadPatternRead` (`sqlitePatternReader`) and by
+ * `loadPatternAccess`, bodies by
  * `parseJsonBody` (the validation pool's reading of express.json's rules), answers by the same
  * services and error texts by `errorAnswer`. The security headers are helmet's, recorded once from
  * the app's own configuration. The steps run in Express's order (session, CSRF, access, body, route)
@@ -21,8 +23,8 @@ import type { Express, Request } from 'express';
 import { patternListQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import type { Csrf } from '../auth/csrf';
-import { sessionReader } from '../auth/sessions';
-import { checkNeed, loadPatternAccess, loadPatternRead } from '../services/access';
+import { sqliteSessionReader } from '../auth/sessions';
+import { checkNeed, loadPatternAccess, sqlitePatternReader } from '../services/access';
 import { readAnswerText, saveAnswerText } from '../services/pattern-answers';
 import { listPatterns } from '../services/pattern-list';
 import { parseJsonBody } from '../validation/document-body';
@@ -86,7 +88,10 @@ function bodyBytes(req: IncomingMessage): Promise<Buffer> {
 /** The request handler for the hot routes; `next` gets every request they do not answer. */
 export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
   const { db } = ctx;
-  const sessionOf = sessionReader(db);
+  const sqlite = ctx.data.sqlite;
+  if (!sqlite) throw new Error('the hot routes run on SQLite only');
+  const sessionOf = sqliteSessionReader(sqlite);
+  const readPattern = sqlitePatternReader(sqlite);
   const parseCookies = cookieParser();
   const bodyLimit = limitBytes(ctx.config.jsonBodyLimit);
   // Helmet's headers and the API's Cache-Control, in the order Express sets them.
@@ -113,7 +118,7 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
 
   const read = (req: IncomingMessage, res: ServerResponse, id: string) => {
     const { live } = sessionFor(req);
-    send(res, 200, readAnswerText(loadPatternRead(db, live?.user, id)));
+    send(res, 200, readAnswerText(readPattern(live?.user, id)));
   };
   const list = (req: IncomingMessage, res: ServerResponse, query: string) => {
     const { live } = sessionFor(req);
@@ -124,7 +129,7 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
   const save = async (req: IncomingMessage, res: ServerResponse, id: string) => {
     const { cookies, live } = sessionFor(req);
     if (!csrf.valid({ headers: req.headers, cookies, sessionTokenHash: live?.tokenHash })) throw new HttpError(403, 'Missing or invalid CSRF token');
-    const found = loadPatternAccess(db, live?.user, id);
+    const found = await loadPatternAccess(ctx.data, live?.user, id);
     const body = parseJsonBody(await bodyBytes(req));
     checkNeed(found.access, 'edit');
     send(res, 200, saveAnswerText(db, found, live!.user, body));

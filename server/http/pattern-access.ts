@@ -1,5 +1,5 @@
 import type { RequestHandler, Response } from 'express';
-import type { DbLike } from '../db/database';
+import type { Data } from '../db/data';
 import { HttpError } from './errors';
 import { checkNeed, loadPatternAccess, loadPatternRead, type Need, type PatternAccess, type PatternRead } from '../services/access';
 
@@ -15,11 +15,11 @@ interface PatternLocals {
  * the caller's access into `res.locals`. Anonymous callers, strangers, malformed ids and (for all but
  * the owner) trashed patterns get the one 404 before any route below runs.
  */
-export function patternAccess(db: DbLike): RequestHandler {
-  return (req, res, next) => {
+export function patternAccess(d: Data): RequestHandler {
+  return async (req, res, next) => {
     const locals = res.locals as PatternLocals;
-    if ((req.method === 'GET' || req.method === 'HEAD') && req.path === '/') locals.patternAccess = locals.patternRead = loadPatternRead(db, req.user, req.params['id']);
-    else locals.patternAccess = loadPatternAccess(db, req.user, req.params['id']);
+    if ((req.method === 'GET' || req.method === 'HEAD') && req.path === '/') locals.patternAccess = locals.patternRead = await loadPatternRead(d, req.user, req.params['id']);
+    else locals.patternAccess = await loadPatternAccess(d, req.user, req.params['id']);
     next();
   };
 }

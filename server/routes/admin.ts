@@ -36,22 +36,19 @@ export function adminRouter(ctx: AppContext): Router {
     res.json({ items: rows.map(publicUser), total, page: q.page, pageSize: q.pageSize });
   });
 
-  router.patch('/users/:userId', (req, res) => {
+  router.patch('/users/:userId', async (req, res) => {
     const me = currentUser(req);
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
     const body = parseOr400(userChangeBodySchema, req.body);
     if (userId === me.id && ((body.role !== undefined && body.role !== 'admin') || body.disabled === true)) {
       throw new HttpError(400, 'You cannot demote or disable your own account');
     }
-    const updated = db.transaction(
-      (tx) => {
-        const row = tx.update(users).set(body).where(eq(users.id, userId)).returning().get();
-        if (!row) throw new HttpError(404, 'User not found');
-        if (row.disabled) endUserSessions(tx, row.id);
-        return row;
-      },
-      { behavior: 'immediate' },
-    );
+    const updated = await ctx.data.transaction(async (tx) => {
+      const [row] = await tx.db.update(tx.t.users).set(body).where(eq(tx.t.users.id, userId)).returning();
+      if (!row) throw new HttpError(404, 'User not found');
+      if (row.disabled) await endUserSessions(tx, row.id);
+      return row;
+    });
     res.json({ user: publicUser(updated) });
   });
 

@@ -4,7 +4,7 @@ import { invitationBodySchema, memberAccessBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { hashToken, newId, randomToken } from '../auth/tokens';
-import { invitations, members, users } from '../db/schema';
+import type { invitations } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
@@ -14,27 +14,28 @@ import { invitationMail } from '../services/mail-templates';
 
 /** `/api/patterns/:id/members` and `/api/patterns/:id/invitations`: sharing a pattern. */
 export function membersRouter(ctx: AppContext): Router {
-  const { db, config } = ctx;
+  const { data, config } = ctx;
+  const { db } = data;
+  const { invitations, members, users } = data.t;
   const router = express.Router({ mergeParams: true });
 
-  router.get('/members', (req, res) => {
+  router.get('/members', async (req, res) => {
     const found = patternOf(res);
     const { pattern, access } = found;
     const user = currentUser(req);
     const addresses = seesAddresses(access);
     // A shop buyer sees the owner and themselves only: buyers never learn about each other.
-    const buyer = isShopBuyer(db, found, user.id);
-    const owner = db.select().from(users).where(eq(users.id, pattern.ownerId)).get();
-    const rows = db
+    const buyer = await isShopBuyer(data, found, user.id);
+    const [owner] = await db.select().from(users).where(eq(users.id, pattern.ownerId));
+    const rows = await db
       .select({ m: members, email: users.email, displayName: users.displayName })
       .from(members)
       .innerJoin(users, eq(users.id, members.userId))
       .where(and(eq(members.patternId, pattern.id), buyer ? eq(members.userId, user.id) : undefined))
-      .orderBy(members.createdAt)
-      .all();
+      .orderBy(members.createdAt);
     const pending =
       access === 'owner'
-        ? db
+        ? await db
             .select()
             .from(invitations)
             .where(
@@ -45,7 +46,6 @@ export function membersRouter(ctx: AppContext): Router {
                 gt(invitations.expiresAt, new Date()),
               ),
             )
-            .all()
         : [];
     res.json({
       owner: owner ? { id: owner.id, ...(addresses ? { email: owner.email } : {}), displayName: owner.displayName } : null,
@@ -60,7 +60,7 @@ export function membersRouter(ctx: AppContext): Router {
     });
   });
 
-  router.post('/invitations', (req, res) => {
+  router.post('/invitations', async (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const user = currentUser(req);
     const body = parseOr400(invitationBodySchema, req.body);
@@ -69,8 +69,8 @@ export function membersRouter(ctx: AppContext): Router {
     const now = Date.now();
     const link = `${config.publicUrl}/invitations/accept?token=${encodeURIComponent(token)}`;
     // The invitation and its mail are stored together; the outbox delivers it (with retries).
-    const invitation = db.transaction((tx) => {
-      const rows = tx
+    const invitation = await data.transaction(async (tx) => {
+      const rows = await tx.db
         .insert(invitations)
         .values({
           id: newId(),
@@ -82,51 +82,47 @@ export function membersRouter(ctx: AppContext): Router {
           createdAt: new Date(now),
           expiresAt: new Date(now + config.invitationDays * 86_400_000),
         })
-        .returning()
-        .all();
-      ctx.mailOutbox.enqueue(tx, 'invitation', { to: body.email, ...invitationMail(user.displayName, pattern.title, body.access, link, config.invitationDays) });
+        .returning();
+      await ctx.mailOutbox.enqueue(tx, 'invitation', { to: body.email, ...invitationMail(user.displayName, pattern.title, body.access, link, config.invitationDays) });
       return rows[0];
     });
     res.status(201).json({ invitation: invitationJson(invitation) });
   });
 
-  router.delete('/invitations/:invitationId', (req, res) => {
+  router.delete('/invitations/:invitationId', async (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const invitationId = parseOr400(idSchema, req.params.invitationId, 'Invalid invitation id');
-    const revoked = db
+    const [revoked] = await db
       .update(invitations)
       .set({ revokedAt: new Date() })
       .where(and(eq(invitations.id, invitationId), eq(invitations.patternId, pattern.id), isNull(invitations.acceptedAt)))
-      .returning()
-      .get();
+      .returning();
     if (!revoked) throw new HttpError(404, 'Invitation not found');
     res.status(204).end();
   });
 
-  router.patch('/members/:userId', (req, res) => {
+  router.patch('/members/:userId', async (req, res) => {
     const { pattern } = patternOf(res, 'owner');
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
     const body = parseOr400(memberAccessBodySchema, req.body);
-    const updated = db
+    const [updated] = await db
       .update(members)
       .set({ access: body.access })
       .where(and(eq(members.patternId, pattern.id), eq(members.userId, userId)))
-      .returning()
-      .get();
+      .returning();
     if (!updated) throw new HttpError(404, 'Member not found');
     res.json({ member: { userId: updated.userId, access: updated.access, createdAt: updated.createdAt.toISOString() } });
   });
 
-  router.delete('/members/:userId', (req, res) => {
+  router.delete('/members/:userId', async (req, res) => {
     const { pattern, access } = patternOf(res);
     const user = currentUser(req);
     const userId = parseOr400(idSchema, req.params.userId, 'Invalid user id');
     if (access !== 'owner' && userId !== user.id) throw new HttpError(403, 'Only the owner can remove other members');
-    const removed = db
+    const [removed] = await db
       .delete(members)
       .where(and(eq(members.patternId, pattern.id), eq(members.userId, userId)))
-      .returning()
-      .get();
+      .returning();
     if (!removed) throw new HttpError(404, 'Member not found');
     res.status(204).end();
   });

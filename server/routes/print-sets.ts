@@ -80,9 +80,9 @@ export function printSetsRouter(ctx: AppContext): Router {
   const files = fileStoreOf(ctx);
 
   // A shop buyer reaches only their own print sets (issue 15: buyers never see each other).
-  const onlyBy = (req: Request, res: Response): string | undefined => {
+  const onlyBy = async (req: Request, res: Response): Promise<string | undefined> => {
     const user = currentUser(req);
-    return isShopBuyer(db, patternOf(res), user.id) ? user.id : undefined;
+    return (await isShopBuyer(ctx.data, patternOf(res), user.id)) ? user.id : undefined;
   };
 
   const findSet = (patternId: string, raw: unknown, createdBy?: string) => {
@@ -170,27 +170,28 @@ export function printSetsRouter(ctx: AppContext): Router {
     res.status(202).json({ printSet: printSetJson(row, user.displayName) });
   });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
+    const by = await onlyBy(req, res);
     const rows = db
       .select({ set: printSets, creatorName: users.displayName })
       .from(printSets)
       .innerJoin(users, eq(users.id, printSets.createdBy))
-      .where(and(eq(printSets.patternId, pattern.id), ((by) => (by ? eq(printSets.createdBy, by) : undefined))(onlyBy(req, res))))
+      .where(and(eq(printSets.patternId, pattern.id), by ? eq(printSets.createdBy, by) : undefined))
       .orderBy(desc(printSets.createdAt), desc(printSets.id))
       .all();
     res.json({ items: rows.map((r) => printSetJson(r.set, r.creatorName)) });
   });
 
-  router.get('/:setId', (req, res) => {
+  router.get('/:setId', async (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId, onlyBy(req, res));
+    const row = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     res.json({ printSet: printSetJson(row.set, row.creatorName) });
   });
 
-  router.get('/:setId/events', (req, res) => {
+  router.get('/:setId/events', async (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId, onlyBy(req, res));
+    const row = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
     const send = (s: PrintSet) => res.write(`event: progress\ndata: ${JSON.stringify(printSetJson(s, row.creatorName))}\n\n`);
     const terminal = (s: PrintSet) => s.status === 'done' || s.status === 'failed';
@@ -211,7 +212,7 @@ export function printSetsRouter(ctx: AppContext): Router {
 
   router.get('/:setId/file', async (req, res) => {
     const { pattern } = patternOf(res);
-    const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
+    const { set } = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     if (set.status !== 'done' || !set.storagePath) {
       throw new HttpError(409, set.status === 'failed' ? 'This print set failed to render' : 'This print set is not ready yet', {
         status: set.status,
@@ -231,7 +232,7 @@ export function printSetsRouter(ctx: AppContext): Router {
   router.delete('/:setId', async (req, res) => {
     const { pattern, access } = patternOf(res);
     const user = currentUser(req);
-    const { set } = findSet(pattern.id, req.params.setId, onlyBy(req, res));
+    const { set } = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
     db.delete(printSets).where(eq(printSets.id, set.id)).run();
     ctx.printSets.cancel(set.id);

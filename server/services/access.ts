@@ -1,8 +1,9 @@
-import { and, eq, sql } from 'drizzle-orm';
+import { and, eq, sql, type SQL } from 'drizzle-orm';
 import type BetterSqlite3 from 'better-sqlite3';
-import type { Db, DbLike } from '../db/database';
-import { preparedPerDb } from '../db/prepared';
-import { members, orders, patterns, type Pattern, type User } from '../db/schema';
+import { SQLiteSyncDialect } from 'drizzle-orm/sqlite-core';
+import type { Data } from '../db/data';
+import { preparedOn } from '../db/prepared';
+import type { Pattern, User } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema } from '../http/validate';
 
@@ -20,13 +21,13 @@ export interface PatternAccess {
 /** The one answer for a pattern someone may not see: the same whether it exists or not. */
 export const patternNotFound = () => new HttpError(404, 'Pattern not found');
 
-/** Every route's access check runs these. */
-const accessQueries = preparedPerDb((db) => ({
-  pattern: db.select().from(patterns).where(eq(patterns.id, sql.placeholder('id'))).prepare(),
+/** Every route's access check runs these (prepared once per connection; on PostgreSQL per transaction). */
+const accessQueries = preparedOn((db, t) => ({
+  pattern: db.select().from(t.patterns).where(eq(t.patterns.id, sql.placeholder('id'))).prepare(),
   membership: db
-    .select({ access: members.access })
-    .from(members)
-    .where(and(eq(members.patternId, sql.placeholder('patternId')), eq(members.userId, sql.placeholder('userId'))))
+    .select({ access: t.members.access })
+    .from(t.members)
+    .where(and(eq(t.members.patternId, sql.placeholder('patternId')), eq(t.members.userId, sql.placeholder('userId'))))
     .prepare(),
 }));
 
@@ -34,20 +35,21 @@ const accessQueries = preparedPerDb((db) => ({
  * The access a user holds on a pattern by ownership or membership, or null for a stranger. Says
  * nothing about the trash: callers that hide trashed patterns check it themselves.
  */
-export function accessOf(db: DbLike, user: User, pattern: { id: string; ownerId: string }): Access | null {
+export async function accessOf(d: Data, user: User, pattern: { id: string; ownerId: string }): Promise<Access | null> {
   if (pattern.ownerId === user.id) return 'owner';
-  return accessQueries(db).membership.get({ patternId: pattern.id, userId: user.id })?.access ?? null;
+  const rows = await accessQueries(d).membership.execute({ patternId: pattern.id, userId: user.id });
+  return rows[0]?.access ?? null;
 }
 
 /**
  * Finds the pattern and the user's access to it. Anonymous users, strangers, malformed ids and
  * (for everyone but the owner) trashed patterns all get the same 404.
  */
-export function loadPatternAccess(db: DbLike, user: User | undefined, patternId: unknown): PatternAccess {
+export async function loadPatternAccess(d: Data, user: User | undefined, patternId: unknown): Promise<PatternAccess> {
   if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
-  const pattern = accessQueries(db).pattern.get({ id: patternId as string });
+  const pattern = (await accessQueries(d).pattern.execute({ id: patternId as string }))[0];
   if (!pattern) throw patternNotFound();
-  const access = accessOf(db, user, pattern);
+  const access = await accessOf(d, user, pattern);
   if (!access || (access !== 'owner' && pattern.trashedAt)) throw patternNotFound();
   return { pattern, access };
 }
@@ -59,8 +61,8 @@ export function checkNeed(access: Access, need: Need): void {
 }
 
 /** `loadPatternAccess` and `checkNeed` together, for routes not under `/patterns/:id`. */
-export function resolvePatternAccess(db: DbLike, user: User | undefined, patternId: unknown, need: Need = 'read'): PatternAccess {
-  const found = loadPatternAccess(db, user, patternId);
+export async function resolvePatternAccess(d: Data, user: User | undefined, patternId: unknown, need: Need = 'read'): Promise<PatternAccess> {
+  const found = await loadPatternAccess(d, user, patternId);
   checkNeed(found.access, need);
   return found;
 }
@@ -69,13 +71,15 @@ export function resolvePatternAccess(db: DbLike, user: User | undefined, pattern
  * Whether a quilter's access came from buying the pattern in the shop: such buyers see only the
  * owner and their own membership and print sets, never other buyers (docs/api.md, sharing).
  */
-export function isShopBuyer(db: DbLike, found: PatternAccess, userId: string): boolean {
+export async function isShopBuyer(d: Data, found: PatternAccess, userId: string): Promise<boolean> {
   if (found.access !== 'quilter') return false;
-  return !!db
+  const { orders } = d.t;
+  const rows = await d.db
     .select({ id: orders.id })
     .from(orders)
     .where(and(eq(orders.buyerId, userId), eq(orders.patternId, found.pattern.id), eq(orders.grantedAccess, true)))
-    .get();
+    .limit(1);
+  return rows.length > 0;
 }
 
 /** Whether the caller may see the e-mail addresses of a pattern's owner and members. */
@@ -84,15 +88,18 @@ export const seesAddresses = (access: Access) => access === 'owner' || access ==
 /** Whether the user's account role may create patterns. */
 export const canDesign = (user: User) => user.role === 'designer' || user.role === 'admin';
 
-/** The row of the one-statement read: the pattern, its owner's name, the caller's membership, the latest revision. */
+/**
+ * The row of the one-statement read: the pattern, its owner's name, the caller's membership, the
+ * latest revision. Times are epoch ms on SQLite and Dates on PostgreSQL: read them with `new Date(…)`.
+ */
 interface PatternReadRow {
   id: string;
   ownerId: string;
   title: string;
   headRevision: number;
-  createdAt: number;
-  updatedAt: number;
-  trashedAt: number | null;
+  createdAt: number | Date;
+  updatedAt: number | Date;
+  trashedAt: number | Date | null;
   ownerName: string;
   memberAccess: Access | null;
   revId: string | null;
@@ -104,8 +111,7 @@ interface PatternReadRow {
   revGroupStart: number | null;
   revVersionName: string | null;
   revVersionNote: string | null;
-  revCreatedAt: number;
-  /** The stored document text, sent as is. */
+  revCreatedAt: number | Date;
   revDocument: string;
 }
 
@@ -117,32 +123,23 @@ export interface PatternRead extends PatternAccess {
 
 /**
  * Reading a pattern (`GET /api/patterns/:id`, the busiest request) in one statement: the pattern, its
- * owner's name, the caller's membership and the latest revision with its author's name. Raw SQL on
- * the connection: no per-row mapping of columns the answer writes out as they are.
+ * owner's name, the caller's membership and the latest revision with its author's name. SQL both
+ * databases accept (aliases quoted, so PostgreSQL keeps their case).
  */
-const readStatement = preparedPerDb((db) =>
-  (db as Db & { $client: BetterSqlite3.Database }).$client.prepare<[string, string], PatternReadRow>(
-    `SELECT p.id AS id, p.owner_id AS ownerId, p.title AS title, p.head_revision AS headRevision, p.created_at AS createdAt,
-            p.updated_at AS updatedAt, p.trashed_at AS trashedAt, o.display_name AS ownerName, m.access AS memberAccess,
-            r.id AS revId, r.number AS revNumber, r.author_id AS revAuthorId, a.display_name AS revAuthorName,
-            r.restored_from AS revRestoredFrom, r.edit_session AS revEditSession, r.group_start AS revGroupStart, r.version_name AS revVersionName, r.version_note AS revVersionNote,
-            r.created_at AS revCreatedAt, r.document AS revDocument
+const readQuery = (userId: unknown, patternId: unknown): SQL => sql`SELECT p.id AS "id", p.owner_id AS "ownerId", p.title AS "title", p.head_revision AS "headRevision", p.created_at AS "createdAt",
+            p.updated_at AS "updatedAt", p.trashed_at AS "trashedAt", o.display_name AS "ownerName", m.access AS "memberAccess",
+            r.id AS "revId", r.number AS "revNumber", r.author_id AS "revAuthorId", a.display_name AS "revAuthorName",
+            r.restored_from AS "revRestoredFrom", r.edit_session AS "revEditSession", r.group_start AS "revGroupStart", r.version_name AS "revVersionName", r.version_note AS "revVersionNote",
+            r.created_at AS "revCreatedAt", r.document AS "revDocument"
        FROM patterns p
        JOIN users o ON o.id = p.owner_id
-       LEFT JOIN members m ON m.pattern_id = p.id AND m.user_id = ?
+       LEFT JOIN members m ON m.pattern_id = p.id AND m.user_id = ${userId}
        LEFT JOIN revisions r ON r.pattern_id = p.id AND r.number = (SELECT max(number) FROM revisions WHERE pattern_id = p.id)
        LEFT JOIN users a ON a.id = r.author_id
-      WHERE p.id = ?`,
-  ),
-);
+      WHERE p.id = ${patternId}`;
 
-/**
- * `loadPatternAccess` and the latest revision in one query, with the same answers: anonymous users,
- * strangers, malformed ids and (for everyone but the owner) trashed patterns all get the one 404.
- */
-export function loadPatternRead(db: DbLike, user: User | undefined, patternId: unknown): PatternRead {
-  if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
-  const row = readStatement(db).get(user.id, patternId as string);
+/** The read's checks and answer from its row (the same for both ways of running the query). */
+function patternReadOf(user: User, row: PatternReadRow | undefined): PatternRead {
   if (!row) throw patternNotFound();
   const access: Access | null = row.ownerId === user.id ? 'owner' : row.memberAccess;
   if (!access || (access !== 'owner' && row.trashedAt !== null)) throw patternNotFound();
@@ -156,4 +153,27 @@ export function loadPatternRead(db: DbLike, user: User | undefined, patternId: u
     trashedAt: row.trashedAt === null ? null : new Date(row.trashedAt),
   };
   return { pattern, access, ownerName: row.ownerName, row };
+}
+
+/**
+ * `loadPatternAccess` and the latest revision in one query, with the same answers: anonymous users,
+ * strangers, malformed ids and (for everyone but the owner) trashed patterns all get the one 404.
+ */
+export async function loadPatternRead(d: Data, user: User | undefined, patternId: unknown): Promise<PatternRead> {
+  if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
+  const rows = await d.rows<PatternReadRow & Record<string, unknown>>(readQuery(user.id, patternId));
+  return patternReadOf(user, rows[0]);
+}
+
+/**
+ * {@link loadPatternRead} for the hot routes on SQLite (server/http/hot-routes.ts): the same SQL,
+ * prepared once on the connection and run synchronously.
+ */
+export function sqlitePatternReader(sqlite: BetterSqlite3.Database): (user: User | undefined, patternId: unknown) => PatternRead {
+  const text = new SQLiteSyncDialect().sqlToQuery(readQuery(sql.placeholder('userId'), sql.placeholder('patternId'))).sql;
+  const statement = sqlite.prepare<[string, string], PatternReadRow>(text);
+  return (user, patternId) => {
+    if (!user || !idSchema.safeParse(patternId).success) throw patternNotFound();
+    return patternReadOf(user, statement.get(user.id, patternId as string));
+  };
 }

@@ -2,15 +2,18 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sqliteData, type Data } from '../db/data';
 import { openDatabase, type DatabaseHandle } from '../db/database';
 import { MailOutbox, retryDelayMs } from './mail-outbox';
 import type { Mailer, OutgoingMail } from './mailer';
 
 let dir: string;
 let handle: DatabaseHandle;
+let data: Data;
 beforeAll(() => {
   dir = fs.mkdtempSync(path.join(os.tmpdir(), 'seamwright-outbox-'));
   handle = openDatabase(dir);
+  data = sqliteData(handle);
 });
 afterAll(() => {
   handle.close();
@@ -44,9 +47,9 @@ const row = (id: string) =>
 describe('mail outbox', () => {
   it('retries a refused mail with doubling delays, sends it when the server is back, then clears its body', async () => {
     const mailer = flakyMailer(2);
-    const outbox = new MailOutbox(handle.db, mailer, () => undefined, { firstRetryMs: 1000, maxRetryMs: 60_000, maxAttempts: 5, wakeOnEnqueue: false });
+    const outbox = new MailOutbox(data, mailer, () => undefined, { firstRetryMs: 1000, maxRetryMs: 60_000, maxAttempts: 5, wakeOnEnqueue: false });
     let now = 1_000_000;
-    const id = outbox.enqueue(handle.db, 'password-reset', { to: 'a@example.test', subject: 'Reset', text: 'link https://x/?token=secret' });
+    const id = await outbox.enqueue(data, 'password-reset', { to: 'a@example.test', subject: 'Reset', text: 'link https://x/?token=secret' });
     handle.sqlite.prepare('UPDATE mail_outbox SET next_attempt_at = ? WHERE id = ?').run(now, id);
 
     expect(await outbox.drain(() => now)).toBe(0);
@@ -67,9 +70,9 @@ describe('mail outbox', () => {
   });
 
   it('gives up after the last attempt and keeps the reason', async () => {
-    const outbox = new MailOutbox(handle.db, flakyMailer(100), () => undefined, { firstRetryMs: 10, maxRetryMs: 10, maxAttempts: 3, wakeOnEnqueue: false });
+    const outbox = new MailOutbox(data, flakyMailer(100), () => undefined, { firstRetryMs: 10, maxRetryMs: 10, maxAttempts: 3, wakeOnEnqueue: false });
     const now = 5_000_000;
-    const id = outbox.enqueue(handle.db, 'invitation', { to: 'b@example.test', subject: 'Join', text: 'x' });
+    const id = await outbox.enqueue(data, 'invitation', { to: 'b@example.test', subject: 'Join', text: 'x' });
     handle.sqlite.prepare('UPDATE mail_outbox SET next_attempt_at = ? WHERE id = ?').run(now, id);
     for (let i = 0; i < 5; i++) await outbox.drain(() => now + i * 10);
     expect(row(id)).toMatchObject({ attempts: 3, failed: now + 20, sent: null });

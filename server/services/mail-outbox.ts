@@ -1,6 +1,5 @@
-import { and, asc, eq, isNull, lte } from 'drizzle-orm';
-import type { Db, DbLike } from '../db/database';
-import { mailOutbox } from '../db/schema';
+import { and, asc, eq, inArray, isNull, lte } from 'drizzle-orm';
+import type { Data } from '../db/data';
 import { newId } from '../auth/tokens';
 import type { Mailer, OutgoingMail } from './mailer';
 
@@ -15,9 +14,14 @@ export interface OutboxOptions {
   batch: number;
   /** Whether an enqueued mail wakes the sender at once (tests that drive `drain` themselves turn it off). */
   wakeOnEnqueue: boolean;
+  /**
+   * How long a sender holds the mails it took: their next attempt moves this far ahead while it sends,
+   * so another instance does not take them too; a sender that died mid-pass leaves them due again then.
+   */
+  leaseMs: number;
 }
 
-const DEFAULTS: OutboxOptions = { pollMs: 5_000, firstRetryMs: 5_000, maxRetryMs: 3_600_000, maxAttempts: 10, batch: 20, wakeOnEnqueue: true };
+const DEFAULTS: OutboxOptions = { pollMs: 5_000, firstRetryMs: 5_000, maxRetryMs: 3_600_000, maxAttempts: 10, batch: 20, wakeOnEnqueue: true, leaseMs: 120_000 };
 
 /** Delay before attempt `attempts + 1`, after `attempts` failed ones (exponential backoff with a ceiling). */
 export function retryDelayMs(attempts: number, o: Pick<OutboxOptions, 'firstRetryMs' | 'maxRetryMs'> = DEFAULTS): number {
@@ -38,7 +42,7 @@ export class MailOutbox {
   private closed = false;
 
   constructor(
-    private readonly db: Db,
+    private readonly data: Data,
     private readonly mailer: Mailer,
     private readonly log: (message: string, err?: unknown) => void,
     options: Partial<OutboxOptions> = {},
@@ -46,12 +50,12 @@ export class MailOutbox {
     this.options = { ...DEFAULTS, ...options };
   }
 
-  /** Stores a mail to send; `db` may be the caller's transaction. The sender is woken after the caller returns. */
-  enqueue(db: DbLike, kind: string, mail: OutgoingMail): string {
+  /** Stores a mail to send; `d` may be the caller's transaction. The sender is woken after the caller returns. */
+  async enqueue(d: Data, kind: string, mail: OutgoingMail): Promise<string> {
     const id = newId();
-    db.insert(mailOutbox)
-      .values({ id, kind, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null, nextAttemptAt: new Date() })
-      .run();
+    await d.db
+      .insert(d.t.mailOutbox)
+      .values({ id, kind, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null, nextAttemptAt: new Date() });
     // A timer, not a call: the caller's transaction commits before the sender looks.
     if (!this.closed && this.options.wakeOnEnqueue) setTimeout(() => this.wake(), 0).unref();
     return id;
@@ -86,29 +90,57 @@ export class MailOutbox {
       });
   }
 
+  /**
+   * Takes due mail for this sender: every due mail, oldest first, at most `batch`, its next attempt
+   * moved `leaseMs` ahead in the same transaction. With several instances on one PostgreSQL the rows
+   * are locked with SKIP LOCKED, so each mail is taken by one sender only.
+   */
+  private async take(now: number) {
+    const { mailOutbox } = this.data.t;
+    return this.data.transaction(async (tx) => {
+      const due = await tx.lockSkipLocked(
+        tx.db
+          .select()
+          .from(mailOutbox)
+          .where(and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now))))
+          .orderBy(asc(mailOutbox.nextAttemptAt))
+          .limit(this.options.batch),
+      );
+      if (due.length > 0) {
+        await tx.db
+          .update(mailOutbox)
+          .set({ nextAttemptAt: new Date(now + this.options.leaseMs) })
+          .where(inArray(mailOutbox.id, due.map((r) => r.id)));
+      }
+      return due;
+    });
+  }
+
   /** One pass: every due mail, oldest first, at most `batch`. Returns how many were sent. */
   async drain(now = () => Date.now()): Promise<number> {
-    const due = this.db
-      .select()
-      .from(mailOutbox)
-      .where(and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now()))))
-      .orderBy(asc(mailOutbox.nextAttemptAt))
-      .limit(this.options.batch)
-      .all();
+    const { mailOutbox } = this.data.t;
+    const due = await this.take(now());
     let sent = 0;
     for (const row of due) {
-      if (this.closed) break;
+      if (this.closed) {
+        // Not sent: due again at once for the next sender.
+        await this.data.db.update(mailOutbox).set({ nextAttemptAt: row.nextAttemptAt }).where(eq(mailOutbox.id, row.id));
+        continue;
+      }
       try {
         await this.mailer.send({ to: row.to, subject: row.subject, text: row.text, ...(row.html ? { html: row.html } : {}) });
         // The body goes once delivered: no reset or invitation link stays in the table.
-        this.db.update(mailOutbox).set({ sentAt: new Date(now()), attempts: row.attempts + 1, text: '', html: null, lastError: null }).where(eq(mailOutbox.id, row.id)).run();
+        await this.data.db
+          .update(mailOutbox)
+          .set({ sentAt: new Date(now()), attempts: row.attempts + 1, text: '', html: null, lastError: null })
+          .where(eq(mailOutbox.id, row.id));
         sent++;
       } catch (err) {
         const attempts = row.attempts + 1;
         const giveUp = attempts >= this.options.maxAttempts;
         const message = err instanceof Error ? err.message : String(err);
         this.log(`mail outbox: ${row.kind} mail ${row.id} failed (attempt ${attempts}${giveUp ? ', giving up' : ''})`, err);
-        this.db
+        await this.data.db
           .update(mailOutbox)
           .set({
             attempts,
@@ -116,8 +148,7 @@ export class MailOutbox {
             nextAttemptAt: new Date(now() + retryDelayMs(attempts, this.options)),
             failedAt: giveUp ? new Date(now()) : null,
           })
-          .where(eq(mailOutbox.id, row.id))
-          .run();
+          .where(eq(mailOutbox.id, row.id));
       }
     }
     return sent;

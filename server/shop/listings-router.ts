@@ -20,7 +20,7 @@ export function listingsRouter(ctx: AppContext): Router {
   const router = express.Router();
   router.use(requireUser);
 
-  router.get('/listings', (req, res) => {
+  router.get('/listings', async (req, res) => {
     const user = currentUser(req);
     const q = parseOr400(searchPageQuerySchema, req.query, 'Invalid query');
     const published = and(isNotNull(shopListings.publishedAt), isNull(patterns.trashedAt));
@@ -39,13 +39,14 @@ export function listingsRouter(ctx: AppContext): Router {
       .limit(q.pageSize)
       .offset((q.page - 1) * q.pageSize)
       .all();
+    const accesses = await Promise.all(rows.map((r) => accessOf(ctx.data, user, r.pattern)));
     res.json({
-      items: rows.map((r) =>
+      items: rows.map((r, i) =>
         listingJson(r.listing, {
           title: r.pattern.title,
           currency: r.currency,
           designer: { id: r.pattern.ownerId, displayName: r.designerName },
-          access: accessOf(db, user, r.pattern),
+          access: accesses[i]!,
         }),
       ),
       total,
@@ -54,7 +55,7 @@ export function listingsRouter(ctx: AppContext): Router {
     });
   });
 
-  router.get('/listings/:patternId', (req, res) => {
+  router.get('/listings/:patternId', async (req, res) => {
     const user = currentUser(req);
     const id = idSchema.safeParse(req.params.patternId);
     if (!id.success) throw listingNotFound();
@@ -68,7 +69,7 @@ export function listingsRouter(ctx: AppContext): Router {
           title: found.pattern.title,
           currency: found.currency,
           designer: { id: found.pattern.ownerId, displayName: found.designerName },
-          access: accessOf(db, user, found.pattern),
+          access: await accessOf(ctx.data, user, found.pattern),
         }),
         quilt: listingQuiltJson(found.listing),
       },
@@ -127,9 +128,9 @@ export function listingsRouter(ctx: AppContext): Router {
     res.json({ shop: { currency: shop.currency } });
   });
 
-  router.put('/listings/:patternId', (req, res) => {
+  router.put('/listings/:patternId', async (req, res) => {
     const user = currentUser(req);
-    const { pattern } = resolvePatternAccess(db, user, req.params.patternId, 'owner');
+    const { pattern } = await resolvePatternAccess(ctx.data, user, req.params.patternId, 'owner');
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can sell patterns');
     const body = parseOr400(listingBodySchema, req.body);
     if (pattern.trashedAt) throw new HttpError(409, 'This pattern is in the trash; restore it before listing it');

@@ -25,7 +25,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     const id = idSchema.safeParse(req.params.patternId);
     const found = id.success ? findPublishedListing(db, id.data) : undefined;
     if (!found) throw new HttpError(404, 'Listing not found');
-    const access = accessOf(db, user, found.pattern);
+    const access = await accessOf(ctx.data, user, found.pattern);
     if (access === 'owner') throw new HttpError(409, 'This is your own pattern');
     if (access) throw new HttpError(409, 'You have this pattern already', { access });
     const { stripe } = requirePayments(payments);

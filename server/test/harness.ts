@@ -1,4 +1,8 @@
-/** Test harness: a real app on a real SQLite file in a temporary folder, mail to the in-process fake. */
+/**
+ * Test harness: a real app on a real SQLite file in a temporary folder, mail to the in-process fake.
+ * With SEAMWRIGHT_TEST_DATABASE=postgres (the `server-pg` test project), the same app on a fresh
+ * database in a throwaway PostgreSQL cluster, one cluster per test file (docs/postgresql.md).
+ */
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -7,7 +11,9 @@ import type { Express } from 'express';
 import { createApp } from '../app';
 import type { AppContext } from '../app-context';
 import { loadConfig } from '../config';
-import { openDatabase } from '../db/database';
+import type { DatabaseHandle, Db } from '../db/database';
+import { openData, sqliteOnly } from '../db/open-data';
+import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
 import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
 import { PrintSetService } from '../services/print-sets';
@@ -37,15 +43,29 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     BCRYPT_ROUNDS: '4',
     ...env,
   });
-  const database = openDatabase(config.dataDir);
+  const opened = await openData({ dataDir: config.dataDir, databaseUrl: config.databaseUrl ?? (await testDatabaseUrl()) }, { poolSize: 5 });
+  const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
+  const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
   const errors: unknown[] = [];
   const log = (_m: string, err?: unknown) => errors.push(err);
-  const printSets = new PrintSetService(database.db, config, log);
+  const printSets = new PrintSetService(db, config, log, opened.files);
   // Retries come quickly in tests; the first attempt always goes at once.
-  const mailOutbox = new MailOutbox(database.db, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
+  const mailOutbox = new MailOutbox(opened.data, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
   mailOutbox.start();
-  const ctx: AppContext = { config, database, db: database.db, mailer, mailOutbox, log, printSets, documentChecks: new DocumentChecks(config.dataDir) };
+  const ctx: AppContext = {
+    config,
+    data: opened.data,
+    files: opened.files,
+    rateLimitSql: opened.rateLimitSql,
+    database,
+    db,
+    mailer,
+    mailOutbox,
+    log,
+    printSets,
+    documentChecks: new DocumentChecks(config.dataDir),
+  };
   const app = createApp(ctx);
   return {
     app,
@@ -57,11 +77,24 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
       await ctx.documentChecks.close();
       await mailOutbox.close();
       mailer.close();
-      database.close();
+      await opened.close();
       await mail.close();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };
+}
+
+/** Which database the API tests run on: SQLite unless SEAMWRIGHT_TEST_DATABASE=postgres. */
+export const testDatabase: 'sqlite' | 'postgres' = process.env['SEAMWRIGHT_TEST_DATABASE'] === 'postgres' ? 'postgres' : 'sqlite';
+
+let cluster: Promise<PgCluster> | undefined;
+let databases = 0;
+
+/** With PostgreSQL: a fresh database in this test file's cluster (started on first use). */
+async function testDatabaseUrl(): Promise<string | undefined> {
+  if (testDatabase !== 'postgres') return undefined;
+  cluster ??= startPgCluster();
+  return (await cluster).createDatabase(`api_${process.pid}_${++databases}`);
 }
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
