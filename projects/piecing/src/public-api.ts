@@ -96,7 +96,7 @@ export {
   type AffineTransform,
 } from './lib/quilt/index';
 /** The finished quilt's picture as SVG text, for the app and the shop alike. */
-export { quiltPictureSvg, type QuiltPictureSvgOptions } from './lib/quilt/quilt-picture-svg';
+export { blockPictureMarkup, quiltPictureSvg, type BlockWriter, type QuiltPictureSvgOptions } from './lib/quilt/quilt-picture-svg';
 
 /** Resizing a whole design and finding sections outside the drawing area. */
 export {

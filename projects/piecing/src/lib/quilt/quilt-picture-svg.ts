@@ -80,7 +80,7 @@ export function quiltPictureSvg(document: PatternDocument, options: QuiltPicture
   const pxPerBlockUnit = pxPerIn ? pxPerIn * blockScale : null;
   const atLeastPx = (inches: number, pxMin: number, pxPerUnit: number | null) => (pxPerUnit ? Math.max(inches, pxMin / pxPerUnit) : inches);
   const settingSeam = n(atLeastPx(SETTING_SEAM_IN, 0.6, pxPerIn));
-  const block = blockMarkup(doc, `${prefix}`, {
+  const block = blockPictureMarkup(doc, `${prefix}`, {
     n,
     points: pxPerBlockUnit ? (ring) => points(simplifyClosedRing(ring, 0.5 / pxPerBlockUnit)) : points,
     colour,
@@ -139,7 +139,8 @@ export function quiltPictureSvg(document: PatternDocument, options: QuiltPicture
   ].join('');
 }
 
-interface BlockWriter {
+/** How a block picture writes numbers, points and colours, and its two stroke widths (see {@link blockPictureMarkup}). */
+export interface BlockWriter {
   n: (v: number) => string;
   points: (ring: readonly Point[]) => string;
   colour: (fabricId: string | null | undefined) => string;
@@ -152,7 +153,7 @@ interface BlockWriter {
  * fabric (a strip-set patch with its strips, clipped to it), seams, section outlines, and each ring-repeat copy
  * as a turned copy of its section. Ids start with `prefix`.
  */
-function blockMarkup(document: PatternDocument, prefix: string, w: BlockWriter): { defs: string; body: string } {
+export function blockPictureMarkup(document: PatternDocument, prefix: string, w: BlockWriter): { defs: string; body: string } {
   const defs: string[] = [];
   const body: string[] = [];
   document.sections.forEach((section, s) => {
