@@ -109,11 +109,19 @@ export function packSheets<T>(
         seen.push(sorted);
         const remaining = candidates(sorted, frame);
         for (const logic of quick ? LOGICS.slice(0, 1) : LOGICS) for (const stand of STANDS) {
+          // Box area placed with no room kept for the block ('free'), and the best with the block inside the margins.
+          let freeArea = -1;
+          let marginArea = -1;
           for (const block of quick ? QUICK_BLOCK_MODES : BLOCK_MODES) {
+            const raised = block === 'edge' || block === 'edge-band';
+            // Raising the block helps only where keeping it inside the margins cost template area.
+            if (raised && marginArea >= freeArea - 1e-9) continue;
             const tried = packOne(remaining, frame, logic, block, stand);
             if (!tried) continue;
             // Ranked by the box area placed (the gaps are filled by outlines afterwards).
             const area = tried.placed.reduce((s, p) => s + p.width * p.height, 0);
+            if (block === 'free') freeArea = area;
+            else if (!raised) marginArea = Math.max(marginArea, area);
             tries.push({ frame, tried, area });
             // Everything left fits this sheet, test block included: no try can do better.
             if ('block' in tried && tried.placed.length === sorted.length && variant === whole) break search;
