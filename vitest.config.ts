@@ -84,6 +84,19 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          // Two real server processes on one throwaway PostgreSQL (issue 18, docs/postgresql.md).
+          name: 'multi-instance',
+          environment: 'node',
+          setupFiles: [propertySeed],
+          include: ['tests/multi-instance/**/*.spec.ts'],
+          testTimeout: 420_000,
+          hookTimeout: 300_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: 'editor-core',
           environment: 'node',
           setupFiles: [propertySeed],
