@@ -441,8 +441,11 @@ const FILL_CELL_IN = 0.1;
 /** Templates tried per sheet when filling gaps (the largest first). */
 const FILL_TEMPLATES_PER_SHEET = 6;
 
-/** Raster masks of outlines at each turn, kept between layouts (pure, keyed by the outline itself). */
-const maskCache = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
+/**
+ * Raster masks of outlines at each turn, kept between layouts (pure, keyed by the outline's shape: its
+ * points from the first one, to the micro-inch, so copies of one shape anywhere in the block share them).
+ */
+const maskCache = new Map<string, ShapeMask>();
 const MASK_CACHE_SIZE = 1024;
 
 /**
@@ -451,26 +454,33 @@ const MASK_CACHE_SIZE = 1024;
  */
 function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][]): SheetFill<Piece> {
   const outlineKeys = new Map<string, string>();
+  const shapes = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
   const shapeAt = (prepared: PreparedTemplate, k: number, turns: number) => {
-    let outlineKey = outlineKeys.get(prepared.template.id);
+    const id = prepared.template.id;
+    let entry = shapes.get(`${k}/${turns}|${id}`);
+    if (entry) return entry;
+    let outlineKey = outlineKeys.get(id);
     if (outlineKey === undefined) {
-      outlineKey = prepared.template.cuttingLine.map((p) => `${p.x},${p.y}`).join(';');
-      outlineKeys.set(prepared.template.id, outlineKey);
+      const o = prepared.template.cuttingLine[0];
+      outlineKey = prepared.template.cuttingLine.map((p) => `${(p.x - o.x).toFixed(6)},${(p.y - o.y).toFixed(6)}`).join(';');
+      outlineKeys.set(id, outlineKey);
     }
+    const turn = (2 * Math.PI * k) / turns;
+    const m = compose(rotation(turn), mirrored ? MIRROR_X : IDENTITY);
+    const ring = prepared.template.cuttingLine.map((p) => applyAffine(m, p));
+    const box = boundingRect(ring);
+    const frame = compose(translation(-box.x, -box.y), m);
     const key = `${mirrored ? 1 : 0}@${k}/${turns}|${outlineKey}`;
-    let entry = maskCache.get(key);
-    if (!entry) {
-      const turn = (2 * Math.PI * k) / turns;
-      const m = compose(rotation(turn), mirrored ? MIRROR_X : IDENTITY);
-      const ring = prepared.template.cuttingLine.map((p) => applyAffine(m, p));
-      const box = boundingRect(ring);
-      const frame = compose(translation(-box.x, -box.y), m);
+    let mask = maskCache.get(key);
+    if (!mask) {
       // The mask is made from the outline simplified within 0.02 in., grown by the same amount.
       const local = simplifyRing(ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y })), 0.02);
-      entry = { mask: shapeMask(local, FILL_CELL_IN, 0.02), frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
+      mask = shapeMask(local, FILL_CELL_IN, 0.02);
       if (maskCache.size >= MASK_CACHE_SIZE) maskCache.delete(maskCache.keys().next().value!);
-      maskCache.set(key, entry);
+      maskCache.set(key, mask);
     }
+    entry = { mask, frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
+    shapes.set(`${k}/${turns}|${id}`, entry);
     return entry;
   };
   return (frame, placed, left) => {
