@@ -9,7 +9,7 @@ import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
 import { PrintSetService } from './services/print-sets';
 import { DocumentChecks } from './validation/document-checks';
-import { startHousekeeping, sweepStoredFiles } from './services/housekeeping';
+import { startHousekeeping, sweepStoredFilesAtStart } from './services/housekeeping';
 
 function log(message: string, err?: unknown): void {
   const time = new Date().toISOString();
@@ -29,7 +29,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     log(`Seeded demo data: ${report.accountsCreated.length} accounts, patterns: ${report.patternsCreated.join(', ') || 'none'}`);
     for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
   }
-  const swept = sweepStoredFiles(db, config.dataDir);
+  const swept = await sweepStoredFilesAtStart(opened.data, opened.files);
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
   const printSets = new PrintSetService(db, config, log, opened.files);
   const mailOutbox = new MailOutbox(opened.data, mailer, log);
@@ -48,7 +48,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   };
   printSets.resumeUnfinished();
   mailOutbox.start();
-  const stopHousekeeping = startHousekeeping(db, log);
+  const stopHousekeeping = startHousekeeping(opened.data, log);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));

@@ -45,16 +45,16 @@ describe('rate limits across two instances on one database', () => {
     expect(statuses).toEqual([202, 202, 429]);
   });
 
-  it('housekeeping removes counts whose window has ended, and only those', () => {
+  it('housekeeping removes counts whose window has ended, and only those', async () => {
     const db = first.ctx.db;
     const rows = db.select().from(rateLimitHits).all();
     expect(rows.length).toBeGreaterThan(0);
     const ends = rows.map((r) => r.resetAt).sort((x, y) => x - y);
     // RATE_LIMIT_WINDOW_MINUTES defaults to 15: every window ends 15 minutes after its first hit.
     for (const end of ends) expect(end - Date.now()).toBeLessThanOrEqual(15 * 60_000);
-    expect(removeExpired(db, ends[0]! - 1)).toBe(0);
+    expect(await removeExpired(first.ctx.data, ends[0]! - 1)).toBe(0);
     expect(db.select().from(rateLimitHits).all()).toHaveLength(rows.length);
-    removeExpired(db, ends[ends.length - 1]!);
+    await removeExpired(first.ctx.data, ends[ends.length - 1]!);
     expect(db.select().from(rateLimitHits).all()).toHaveLength(0);
   });
 });

@@ -38,7 +38,6 @@ const NOT_YET_PORTED = new Set<string>([
   'routes/sewing-log.ts',
   'routes/uploads.ts',
   'services/colourway-copies.ts',
-  'services/housekeeping.ts',
   'services/pattern-list.ts',
   'services/print-sets.ts',
   'services/revision-groups.ts',

@@ -153,7 +153,7 @@ describe.each([
   it('sweeps files no row names and keeps the ones rows name', async () => {
     const up = (await owner.req('post', `/api/patterns/${patternId}/uploads`).attach('file', TINY_PNG, 'kept.png').expect(201)).body.upload;
     await s.store.put(`uploads/${owner.user!.id}/orphan.png`, TINY_PNG);
-    expect(await sweepStoredFilesIn(t.ctx.db, s.store)).toEqual([`uploads/${owner.user!.id}/orphan.png`]);
+    expect(await sweepStoredFilesIn(t.ctx.data, s.store)).toEqual([`uploads/${owner.user!.id}/orphan.png`]);
     expect(await s.store.stat(`uploads/${owner.user!.id}/${up.id}.png`)).toBeDefined();
     await owner.get(up.url).expect(200);
   });

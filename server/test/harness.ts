@@ -194,7 +194,7 @@ export async function sharedPattern(
   const res = await owner.post('/api/patterns', { document: sampleDocument(title) });
   if (res.status !== 201) throw new Error(`create failed: ${res.status} ${JSON.stringify(res.body)}`);
   const id: string = res.body.pattern.id;
-  const add = t.ctx.database.sqlite.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)');
-  for (const s of shares) add.run(id, s.client.user!.id, s.access, Date.now());
+  const { members } = t.ctx.data.t;
+  for (const s of shares) await t.ctx.data.db.insert(members).values({ patternId: id, userId: s.client.user!.id, access: s.access, createdAt: new Date() });
   return id;
 }
