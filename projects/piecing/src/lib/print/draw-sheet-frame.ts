@@ -34,7 +34,10 @@ export function drawSheetFrame(pen: PdfPen, frame: SheetFrame, heading: SheetHea
   const tb = frame.testBlock;
   const inBand = tb.y < h.y + h.height && tb.x < h.x + h.width * 0.45;
   const left = inBand ? tb.x + tb.width + 0.15 : h.x;
-  const leftWidth = h.x + h.width * 0.45 - left;
+  // Raised into the margin band (never on a sheet with a tile map), the squares leave the title its usual
+  // width, moved right, short of the sheet number and the notes on the right (2.25 in. at most).
+  const raised = inBand && tb.y < h.y - 1e-9;
+  const leftWidth = raised ? Math.min(h.width * 0.45, right - 2.4 - left) : h.x + h.width * 0.45 - left;
   const sheetLabel = `Sheet ${heading.pageNumber} of ${heading.pageCount}`;
   pen.text(sheetLabel, { x: right, y: h.y + 0.17 }, { sizePt: 11, bold: true, align: 'right' });
   // Left 45 %: title and subtitle; the middle is kept for tile maps; right: sheet number and notes.

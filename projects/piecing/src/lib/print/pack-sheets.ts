@@ -18,6 +18,11 @@ export interface PackItem<T> {
   parts?: PackItem<T>[];
   /** Area it really covers (inside its outlines), square inches; its box area when absent. */
   areaSqIn?: number;
+  /**
+   * Set when its sheet draws something in the header's middle (a tile map): such an item never goes on a
+   * sheet whose test squares are raised into the margin band, where the header's text takes that room.
+   */
+  keepsHeader?: boolean;
 }
 
 /** Where an item landed: top-left in sheet inches, whether turned a quarter turn, placed size. */
@@ -282,7 +287,9 @@ function packOne<T>(items: readonly PackItem<T>[], frame: SheetFrame, logic: PAC
     }
   }
   const placed: PackedItem<T>[] = [];
+  const raised = blockAt === 'edge' || blockAt === 'edge-band';
   for (const item of items) {
+    if (raised && item.keepsHeader) continue;
     const swap = stand && item.quarterTurns && item.width > item.height;
     const rect = swap ? new Rectangle(item.height + g, item.width + g) : new Rectangle(item.width + g, item.height + g);
     rect.allowRotation = item.quarterTurns;

@@ -72,6 +72,8 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
           height: tile.used.height + CAPTION_IN,
           quarterTurns: false,
           data: { prepared: grid.prepared, copy, grid, tile },
+          // The first tile of a copy carries the tile map in its sheet's header.
+          keepsHeader: tile === grid.tiles[0],
         });
       }
     }
