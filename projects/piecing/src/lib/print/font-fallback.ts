@@ -24,6 +24,8 @@ export class FontFallback {
   private readonly covered = new Map<string, Map<number, boolean>>();
   /** The main family's maps of {@link covered} (normal, bold), looked up for every text drawn or measured. */
   private readonly mainCovered: readonly [Map<number, boolean>, Map<number, boolean>];
+  /** The same for the Basic Multilingual Plane as flat tables (0 not yet known, 1 has it, 2 lacks it), normal and bold. */
+  private readonly mainTable: readonly [Uint8Array, Uint8Array] = [new Uint8Array(0x10000), new Uint8Array(0x10000)];
 
   constructor(
     private readonly doc: jsPDF,
@@ -58,11 +60,12 @@ export class FontFallback {
 
   /** Whether the main family draws the whole text on its own. */
   mainCovers(value: string, bold: boolean): boolean {
-    const map = this.mainCovered[bold ? 1 : 0];
+    const table = this.mainTable[bold ? 1 : 0];
     for (let i = 0; i < value.length; i++) {
       const code = value.charCodeAt(i);
-      const known = map.get(code);
-      if (known === false || (known === undefined && !this.has(this.mainFamily, code, bold))) return false;
+      let known = table[code];
+      if (known === 0) table[code] = known = this.has(this.mainFamily, code, bold) ? 1 : 2;
+      if (known === 2) return false;
     }
     return true;
   }

@@ -213,15 +213,14 @@ export class PdfPen {
     const limit = widthIn + 1e-9;
     // When the main font has every character, each piece is measured in it directly (what textWidth does then).
     const main = this.fallback.mainCovers(value, bold);
-    const width = (s: string) => (main ? this.runWidth(s, PDF_FONT_FAMILY, sizePt, bold) : this.textWidth(s, sizePt, bold));
-    const space = width(' ');
+    const space = this.pieceWidth(' ', main, sizePt, bold);
     const lines: string[] = [];
     for (const paragraph of value.split(/\r?\n/)) {
       let line = '';
       let lineW = 0;
       for (const word of paragraph.split(' ')) {
         if (word === '') continue;
-        let w = width(word);
+        let w = this.pieceWidth(word, main, sizePt, bold);
         if (line !== '' && lineW + space + w <= limit) {
           line += ` ${word}`;
           lineW += space + w;
@@ -233,22 +232,27 @@ export class PdfPen {
         // A word wider than the line: as many characters as fit on each line.
         while (lineW > limit && line.length > 1) {
           let cut = 1;
-          let cutW = width(line[0]);
+          let cutW = this.pieceWidth(line[0], main, sizePt, bold);
           while (cut < line.length) {
-            const next = width(line[cut]);
+            const next = this.pieceWidth(line[cut], main, sizePt, bold);
             if (cutW + next > limit) break;
             cutW += next;
             cut++;
           }
           lines.push(line.slice(0, cut));
           line = line.slice(cut);
-          w = width(line);
+          w = this.pieceWidth(line, main, sizePt, bold);
           lineW = w;
         }
       }
       lines.push(line);
     }
     return lines;
+  }
+
+  /** Width of a piece of a wrapped text: in the main font when it has every character of the text (`main`). */
+  private pieceWidth(piece: string, main: boolean, sizePt: number, bold: boolean): number {
+    return main ? this.runWidth(piece, PDF_FONT_FAMILY, sizePt, bold) : this.textWidth(piece, sizePt, bold);
   }
 
   /** Runs `draw` with everything clipped to a rectangle. */
