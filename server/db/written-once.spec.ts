@@ -42,12 +42,6 @@ const NOT_YET_PORTED = new Set<string>([
   'services/print-sets.ts',
   'services/revision-groups.ts',
   'services/revisions.ts',
-  'shop/demo-shop.ts',
-  'shop/listings-router.ts',
-  'shop/listings.ts',
-  'shop/orders-router.ts',
-  'shop/payment-events.ts',
-  'shop/webhook.ts',
   'validation/version-save.ts',
 ]);
 

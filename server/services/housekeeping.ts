@@ -49,7 +49,7 @@ export function startHousekeeping(d: Data, log: (message: string, err?: unknown)
   // Listings saved before migration 0008 get their quilt size chart and pictures, in batches after start-up.
   let stopped = false;
   const fill = setImmediate(() => {
-    fillListingQuilts(d.db, 20, () => stopped).then(
+    fillListingQuilts(d, 20, () => stopped).then(
       (n) => {
         if (n > 0) log(`Filled the quilt pictures and size chart of ${n} shop listing${n === 1 ? '' : 's'}`);
       },

@@ -1,6 +1,6 @@
-import type { DbLike } from '../db/database';
 import { eq } from 'drizzle-orm';
-import { patterns, shopListings, shops, type ShopCurrency } from '../db/schema';
+import type { Data } from '../db/data';
+import type { ShopCurrency } from '../db/schema';
 import { listingFacts } from './listings';
 
 /** A listing to seed for the demo studio (invented data). */
@@ -14,15 +14,16 @@ export interface DemoListing {
  * Opens the demo designer's shop in `currency` and publishes `listings`, for `npm start`'s demo data.
  * Existing rows are left as they are, so seeding twice changes nothing.
  */
-export function seedDemoShop(db: DbLike, ownerId: string, currency: ShopCurrency, listings: DemoListing[]): void {
+export async function seedDemoShop(d: Data, ownerId: string, currency: ShopCurrency, listings: DemoListing[]): Promise<void> {
+  const { patterns, shopListings, shops } = d.t;
   const now = new Date();
-  db.insert(shops).values({ ownerId, currency, createdAt: now, updatedAt: now }).onConflictDoNothing().run();
+  await d.db.insert(shops).values({ ownerId, currency, createdAt: now, updatedAt: now }).onConflictDoNothing();
   for (const l of listings) {
-    const pattern = db.select({ id: patterns.id, headRevision: patterns.headRevision }).from(patterns).where(eq(patterns.id, l.patternId)).get();
-    const facts = pattern ? listingFacts(db, pattern) : {};
-    db.insert(shopListings)
+    const [pattern] = await d.db.select({ id: patterns.id, headRevision: patterns.headRevision }).from(patterns).where(eq(patterns.id, l.patternId));
+    const facts = pattern ? await listingFacts(d, pattern) : {};
+    await d.db
+      .insert(shopListings)
       .values({ patternId: l.patternId, priceMinor: l.priceMinor, description: l.description, publishedAt: now, createdAt: now, updatedAt: now, ...facts })
-      .onConflictDoNothing()
-      .run();
+      .onConflictDoNothing();
   }
 }

@@ -1,5 +1,6 @@
 import { listingAnswerSchema } from '@seamwright/api';
 import { buildOrchardWheel } from '@seamwright/piecing';
+import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from '../test/harness';
 import { listingQuiltFacts } from './listing-quilt';
@@ -24,7 +25,8 @@ afterAll(async () => {
 async function oldListing(document: unknown, title: string): Promise<string> {
   const id = (await designer.post('/api/patterns', { document }).expect(201)).body.pattern.id as string;
   await designer.put(`/api/shop/listings/${id}`, { priceMinor: 1500, description: title, published: true }).expect(200);
-  t.ctx.database.sqlite.prepare('UPDATE shop_listings SET quilt_sizes = NULL, quilt_pictures = NULL WHERE pattern_id = ?').run(id);
+  const { shopListings } = t.ctx.data.t;
+  await t.ctx.data.db.update(shopListings).set({ quiltSizes: null, quiltPictures: null }).where(eq(shopListings.patternId, id));
   return id;
 }
 
@@ -38,7 +40,7 @@ describe('filling the quilt of listings saved before their quilt columns', () =>
     // As the buyer sees them before the fill: no quilt.
     expect(await quiltOf(quiltId)).toBeFalsy();
 
-    expect(await fillListingQuilts(t.ctx.db)).toBe(1);
+    expect(await fillListingQuilts(t.ctx.data)).toBe(1);
 
     const quilt = await quiltOf(quiltId);
     const expected = listingQuiltFacts(wheel);
@@ -49,17 +51,17 @@ describe('filling the quilt of listings saved before their quilt columns', () =>
     expect(quilt?.pictures.map((p) => p.svg)).toEqual(expected.quiltPictures?.map((p) => p.svg));
     expect(await quiltOf(blockId)).toBeFalsy();
     // Nothing left to fill: a second run changes nothing.
-    expect(await fillListingQuilts(t.ctx.db)).toBe(0);
+    expect(await fillListingQuilts(t.ctx.data)).toBe(0);
   });
 
   it('goes in batches, each after the last pattern id of the one before', async () => {
     const ids = [await oldListing(buildOrchardWheel(), 'one'), await oldListing(buildOrchardWheel(), 'two'), await oldListing(buildOrchardWheel(), 'three')].sort();
     // Stopped (the server closing) before the first batch: nothing is filled.
-    expect(await fillListingQuilts(t.ctx.db, 2, () => true)).toBe(0);
-    const first = fillListingQuiltBatch(t.ctx.db, null, 2);
+    expect(await fillListingQuilts(t.ctx.data, 2, () => true)).toBe(0);
+    const first = await fillListingQuiltBatch(t.ctx.data, null, 2);
     expect(first).toEqual({ filled: 2, next: ids[1] });
     expect(await quiltOf(ids[2]!)).toBeFalsy();
-    expect(fillListingQuiltBatch(t.ctx.db, first.next, 2)).toEqual({ filled: 1, next: null });
+    expect(await fillListingQuiltBatch(t.ctx.data, first.next, 2)).toEqual({ filled: 1, next: null });
     expect((await quiltOf(ids[2]!))?.pictures).toHaveLength(3);
   });
 });

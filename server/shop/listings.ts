@@ -1,7 +1,7 @@
 import { and, asc, eq, gt, isNull, like } from 'drizzle-orm';
 import { finishedBlockSize, parsePatternDocument } from '@seamwright/piecing';
-import type { DbLike } from '../db/database';
-import { patterns, revisions, shopListings, shops, users, type ShopListing } from '../db/schema';
+import type { Data } from '../db/data';
+import type { ShopListing } from '../db/schema';
 import { patternPreviewSvg } from '../services/pattern-preview';
 import { listingQuiltFacts } from './listing-quilt';
 
@@ -12,8 +12,9 @@ export const LISTING_PREVIEW_WIDTH_PX = 320;
  * Listings joined with their pattern, shop currency and designer name. What the page shows of the
  * design is in the listing's own columns ({@link listingFacts}): no document is read on a view.
  */
-export function listingRows(db: DbLike) {
-  return db
+export function listingRows(d: Data) {
+  const { patterns, shopListings, shops, users } = d.t;
+  return d.db
     .select({ listing: shopListings, pattern: patterns, currency: shops.currency, designerName: users.displayName })
     .from(shopListings)
     .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
@@ -22,13 +23,13 @@ export function listingRows(db: DbLike) {
 }
 
 /** The listing of a pattern with what a page about it needs; undefined when there is none. */
-export function findListing(db: DbLike, patternId: string) {
-  return listingRows(db).where(eq(shopListings.patternId, patternId)).get();
+export async function findListing(d: Data, patternId: string) {
+  return (await listingRows(d).where(eq(d.t.shopListings.patternId, patternId)))[0];
 }
 
 /** A listing any signed-in user may see: published, of a pattern not in the trash. */
-export function findPublishedListing(db: DbLike, patternId: string) {
-  const found = findListing(db, patternId);
+export async function findPublishedListing(d: Data, patternId: string) {
+  const found = await findListing(d, patternId);
   return found && found.listing.publishedAt && !found.pattern.trashedAt ? found : undefined;
 }
 
@@ -44,12 +45,12 @@ export type ListingFacts = Pick<
  * for a pattern with a quilt layout, its size chart and a quilt picture per colourway.
  * Worked out when the listing is saved and stored with it, so browsing never parses documents.
  */
-export function listingFacts(db: DbLike, pattern: { id: string; headRevision: number }): ListingFacts {
-  const stored = db
+export async function listingFacts(d: Data, pattern: { id: string; headRevision: number }): Promise<ListingFacts> {
+  const { revisions } = d.t;
+  const [stored] = await d.db
     .select({ document: revisions.document })
     .from(revisions)
-    .where(and(eq(revisions.patternId, pattern.id), eq(revisions.number, pattern.headRevision)))
-    .get();
+    .where(and(eq(revisions.patternId, pattern.id), eq(revisions.number, pattern.headRevision)));
   const parsed = stored ? parsePatternDocument(JSON.parse(stored.document) as unknown) : null;
   if (!parsed?.ok) {
     return { sectionCount: 0, finishedWidthIn: null, finishedHeightIn: null, previewSvg: null, quiltSizes: null, quiltPictures: null };
@@ -80,8 +81,9 @@ export function listingFacts(db: DbLike, pattern: { id: string; headRevision: nu
  * and where the next batch starts (null: done). Listings without a quilt are passed over by a text match on the
  * stored document, so they cost no parse.
  */
-export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 20): { filled: number; next: string | null } {
-  const rows = db
+export async function fillListingQuiltBatch(d: Data, after: string | null, limit = 20): Promise<{ filled: number; next: string | null }> {
+  const { patterns, revisions, shopListings } = d.t;
+  const rows = await d.db
     .select({ patternId: shopListings.patternId, document: revisions.document })
     .from(shopListings)
     .innerJoin(patterns, eq(patterns.id, shopListings.patternId))
@@ -95,8 +97,7 @@ export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 
       ),
     )
     .orderBy(asc(shopListings.patternId))
-    .limit(limit)
-    .all();
+    .limit(limit);
   let filled = 0;
   for (const row of rows) {
     let parsed: ReturnType<typeof parsePatternDocument> | null = null;
@@ -108,12 +109,15 @@ export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 
     if (!parsed?.ok || !parsed.document.quilt) continue;
     const facts = listingQuiltFacts(parsed.document);
     if (!facts.quiltSizes && !facts.quiltPictures) continue;
-    // Only while still empty: a listing saved meanwhile already holds its own facts.
-    filled += db
-      .update(shopListings)
-      .set(facts)
-      .where(and(eq(shopListings.patternId, row.patternId), isNull(shopListings.quiltSizes), isNull(shopListings.quiltPictures)))
-      .run().changes;
+    // Only while still empty: a listing saved meanwhile (or filled by another instance sharing the
+    // database) already holds its own facts.
+    filled += (
+      await d.db
+        .update(shopListings)
+        .set(facts)
+        .where(and(eq(shopListings.patternId, row.patternId), isNull(shopListings.quiltSizes), isNull(shopListings.quiltPictures)))
+        .returning({ patternId: shopListings.patternId })
+    ).length;
   }
   return { filled, next: rows.length < limit ? null : rows[rows.length - 1]!.patternId };
 }
@@ -123,12 +127,12 @@ export function fillListingQuiltBatch(db: DbLike, after: string | null, limit = 
  * batches so requests are answered meanwhile; `stopped` ends it between batches (the server closing). Resolves
  * to the number of listings filled.
  */
-export async function fillListingQuilts(db: DbLike, batchSize = 20, stopped: () => boolean = () => false): Promise<number> {
+export async function fillListingQuilts(d: Data, batchSize = 20, stopped: () => boolean = () => false): Promise<number> {
   let after: string | null = null;
   let filled = 0;
   do {
     if (stopped()) break;
-    const batch = fillListingQuiltBatch(db, after, batchSize);
+    const batch = await fillListingQuiltBatch(d, after, batchSize);
     filled += batch.filled;
     after = batch.next;
     if (after !== null) await new Promise<void>((resolve) => setImmediate(resolve));

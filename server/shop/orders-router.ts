@@ -4,7 +4,6 @@ import { pageQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { orders, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign } from '../services/access';
@@ -16,16 +15,18 @@ const orderNotFound = () => new HttpError(404, 'Order not found');
 
 /** `/api/shop` buying and selling: checkout, the buyer's purchases, the designer's sales and refunds. */
 export function ordersRouter(ctx: AppContext, payments: Payments | null): Router {
-  const { db, config } = ctx;
+  const { config } = ctx;
+  const d = ctx.data;
+  const { orders, users } = d.t;
   const router = express.Router();
   router.use(requireUser);
 
   router.post('/listings/:patternId/checkout', async (req, res) => {
     const user = currentUser(req);
     const id = idSchema.safeParse(req.params.patternId);
-    const found = id.success ? findPublishedListing(db, id.data) : undefined;
+    const found = id.success ? await findPublishedListing(d, id.data) : undefined;
     if (!found) throw new HttpError(404, 'Listing not found');
-    const access = await accessOf(ctx.data, user, found.pattern);
+    const access = await accessOf(d, user, found.pattern);
     if (access === 'owner') throw new HttpError(409, 'This is your own pattern');
     if (access) throw new HttpError(409, 'You have this pattern already', { access });
     const { stripe } = requirePayments(payments);
@@ -35,7 +36,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
       res.status(200).json({ order: orderJson(open.order), checkoutUrl: open.url });
       return;
     }
-    const order = db
+    const [order] = await d.db
       .insert(orders)
       .values({
         id: newId(),
@@ -48,8 +49,8 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
         status: 'pending',
         createdAt: new Date(),
       })
-      .returning()
-      .get();
+      .returning();
+    if (!order) throw new HttpError(500, 'Order was not stored');
     const pattern = encodeURIComponent(found.pattern.id);
     let session;
     try {
@@ -76,22 +77,23 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
       );
     } catch (err) {
       ctx.log(`checkout session for order ${order.id} failed`, err);
-      db.delete(orders).where(eq(orders.id, order.id)).run();
+      await d.db.delete(orders).where(eq(orders.id, order.id));
       throw new HttpError(502, 'The payment provider could not be reached; nothing was charged, try again');
     }
     if (!session.url) throw new HttpError(502, 'The payment provider gave no checkout page');
-    const stored = db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning().get();
+    const [stored] = await d.db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning();
+    if (!stored) throw orderNotFound();
     res.status(201).json({ order: orderJson(stored), checkoutUrl: session.url });
   });
 
   /** The buyer's newest pending order for the pattern whose checkout session is still open at the provider. */
   async function openCheckout(stripe: Payments['stripe'], buyerId: string, patternId: string) {
-    const pending = db
+    const [pending] = await d.db
       .select()
       .from(orders)
       .where(and(eq(orders.buyerId, buyerId), eq(orders.patternId, patternId), eq(orders.status, 'pending'), isNotNull(orders.checkoutSessionId)))
       .orderBy(desc(orders.createdAt))
-      .get();
+      .limit(1);
     if (!pending?.checkoutSessionId) return undefined;
     try {
       const session = await stripe.checkout.sessions.retrieve(pending.checkoutSessionId);
@@ -102,20 +104,19 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     }
   }
 
-  router.get('/purchases', (req, res) => {
+  router.get('/purchases', async (req, res) => {
     const user = currentUser(req);
     const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
     const mine = and(eq(orders.buyerId, user.id), inArray(orders.status, ['pending', 'paid', 'refunded']));
-    const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
-    const rows = db
+    const total = (await d.db.select({ n: count() }).from(orders).where(mine))[0]?.n ?? 0;
+    const rows = await d.db
       .select({ order: orders, sellerName: users.displayName })
       .from(orders)
       .innerJoin(users, eq(users.id, orders.sellerId))
       .where(mine)
       .orderBy(desc(orders.createdAt), desc(orders.id))
       .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize)
-      .all();
+      .offset((q.page - 1) * q.pageSize);
     res.json({
       items: rows.map((r) => orderJson(r.order, { seller: { id: r.order.sellerId, displayName: r.sellerName } })),
       total,
@@ -124,27 +125,25 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     });
   });
 
-  router.get('/sales', (req, res) => {
+  router.get('/sales', async (req, res) => {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers have sales');
     const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
     const mine = and(eq(orders.sellerId, user.id), inArray(orders.status, ['paid', 'refunded']));
-    const total = db.select({ n: count() }).from(orders).where(mine).get()?.n ?? 0;
-    const rows = db
+    const total = (await d.db.select({ n: count() }).from(orders).where(mine))[0]?.n ?? 0;
+    const rows = await d.db
       .select({ order: orders, buyerName: users.displayName, buyerEmail: users.email })
       .from(orders)
       .innerJoin(users, eq(users.id, orders.buyerId))
       .where(mine)
       .orderBy(desc(orders.paidAt), desc(orders.id))
       .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize)
-      .all();
-    const totals = db
+      .offset((q.page - 1) * q.pageSize);
+    const totals = await d.db
       .select({ currency: orders.currency, orders: count(), amountMinor: sql<number>`sum(${orders.amountMinor})` })
       .from(orders)
       .where(and(eq(orders.sellerId, user.id), eq(orders.status, 'paid')))
-      .groupBy(orders.currency)
-      .all();
+      .groupBy(orders.currency);
     res.json({
       items: rows.map((r) => orderJson(r.order, { buyer: { id: r.order.buyerId, displayName: r.buyerName, email: r.buyerEmail } })),
       total,
@@ -154,16 +153,15 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     });
   });
 
-  router.get('/orders/:orderId', (req, res) => {
+  router.get('/orders/:orderId', async (req, res) => {
     const user = currentUser(req);
     const id = idSchema.safeParse(req.params.orderId);
-    const order = id.success
-      ? db
+    const [order] = id.success
+      ? await d.db
           .select()
           .from(orders)
           .where(and(eq(orders.id, id.data), or(eq(orders.buyerId, user.id), eq(orders.sellerId, user.id))))
-          .get()
-      : undefined;
+      : [];
     if (!order) throw orderNotFound();
     res.json({ order: orderJson(order) });
   });
@@ -171,7 +169,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
   router.post('/sales/:orderId/refund', async (req, res) => {
     const user = currentUser(req);
     const id = idSchema.safeParse(req.params.orderId);
-    const order = id.success ? db.select().from(orders).where(and(eq(orders.id, id.data), eq(orders.sellerId, user.id))).get() : undefined;
+    const [order] = id.success ? await d.db.select().from(orders).where(and(eq(orders.id, id.data), eq(orders.sellerId, user.id))) : [];
     if (!order) throw orderNotFound();
     if (order.status !== 'paid') throw new HttpError(409, `Only paid orders can be refunded; this one is ${order.status}`);
     if (order.refundRequestedAt) throw new HttpError(409, 'A refund was asked for already');
@@ -188,12 +186,12 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
       throw new HttpError(502, 'The payment provider did not take the refund; nothing changed, try again');
     }
     // Access is taken back when the provider confirms the refund (charge.refunded webhook).
-    const stored = db
+    const [stored] = await d.db
       .update(orders)
       .set({ refundRequestedAt: new Date(), refundId: refund.id })
       .where(eq(orders.id, order.id))
-      .returning()
-      .get();
+      .returning();
+    if (!stored) throw orderNotFound();
     res.status(202).json({ order: orderJson(stored) });
   });
 

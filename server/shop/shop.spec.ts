@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { asc, count as countRows, eq, sql, type SQL } from 'drizzle-orm';
 import fc from 'fast-check';
 import request from 'supertest';
 import Stripe from 'stripe';
@@ -23,15 +24,23 @@ let stranger: Client;
 let listedId: string;
 let draftId: string;
 
-const count = (sqlText: string, ...args: unknown[]) =>
-  (t.ctx.database.sqlite.prepare(sqlText).get(...args) as { n: number }).n;
+/** A `SELECT count(*) AS n …` on the test server's database (PostgreSQL answers a bigint as text). */
+const count = async (query: SQL) => Number((await t.ctx.data.rows<{ n: unknown }>(query))[0]!.n);
 /** Everything the webhook may change, to show a refused or replayed event changed nothing. */
-const snapshot = () => ({
-  events: count('SELECT count(*) AS n FROM payment_events'),
-  members: count('SELECT count(*) AS n FROM members'),
-  orders: t.ctx.database.sqlite.prepare('SELECT id, status, paid_at, refunded_at, granted_access FROM orders ORDER BY id').all(),
-  mails: t.mail.messages.length,
-});
+const snapshot = async () => {
+  const { orders } = t.ctx.data.t;
+  return {
+    events: await count(sql`SELECT count(*) AS n FROM payment_events`),
+    members: await count(sql`SELECT count(*) AS n FROM members`),
+    orders: await t.ctx.data.db
+      .select({ id: orders.id, status: orders.status, paidAt: orders.paidAt, refundedAt: orders.refundedAt, grantedAccess: orders.grantedAccess })
+      .from(orders)
+      .orderBy(asc(orders.id)),
+    // Mail queued for sending as well as mail delivered.
+    queued: await count(sql`SELECT count(*) AS n FROM mail_outbox`),
+    mails: t.mail.messages.length,
+  };
+};
 
 const postWebhook = (payload: string, signature?: string) => {
   const r = request(t.app).post('/api/shop/webhook').set('Content-Type', 'application/json; charset=utf-8');
@@ -134,16 +143,16 @@ describe('publishing', () => {
     expect(put.body.listing.preview).toMatch(/^<svg[^>]* width="320" height="320"/);
     expect(put.body.listing.preview).toContain('#6b2d5c');
     // Damage the stored document: a view that parsed it would lose the facts; the stored columns keep them.
-    const sql = t.ctx.database.sqlite;
-    const before = (sql.prepare('SELECT document FROM revisions WHERE pattern_id = ?').get(id) as { document: string }).document;
-    sql.prepare("UPDATE revisions SET document = 'not json' WHERE pattern_id = ?").run(id);
+    const { revisions } = t.ctx.data.t;
+    const [{ document: before }] = await t.ctx.data.db.select({ document: revisions.document }).from(revisions).where(eq(revisions.patternId, id));
+    await t.ctx.data.db.update(revisions).set({ document: 'not json' }).where(eq(revisions.patternId, id));
     try {
       const seen = (await buyer.get(`/api/shop/listings/${id}`).expect(200)).body.listing;
       expect(seen).toMatchObject({ sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 }, preview: put.body.listing.preview });
       const browse = (await buyer.get('/api/shop/listings?q=big%20sheet').expect(200)).body;
       expect(browse.items[0]).toMatchObject({ patternId: id, sectionCount: 1, finishedSize: { widthIn: 4, heightIn: 4 } });
     } finally {
-      sql.prepare('UPDATE revisions SET document = ? WHERE pattern_id = ?').run(before, id);
+      await t.ctx.data.db.update(revisions).set({ document: before }).where(eq(revisions.patternId, id));
     }
     // A new revision shows once the listing is saved again.
     const bigger = { ...doc, sections: [{ ...doc.sections[0] }, { ...doc.sections[0], id: 'sec-b', label: 'B', geometry: { kind: 'straight', vertices: [{ x: 4, y: 0 }, { x: 9, y: 0 }, { x: 9, y: 4 }, { x: 4, y: 4 }] }, seams: [], patches: [] }] };
@@ -208,6 +217,9 @@ describe('buying', () => {
     // Quilter access reads and logs but cannot change the design.
     expect((await buyer.put(`/api/patterns/${listedId}`, { baseRevision: 1, document: sampleDocument('Taken') })).status).toBe(403);
 
+    // The receipt went to the mail outbox with the payment; the outbox delivers it.
+    await until(() => t.mail.messages.find((m) => m.to.includes('bea@shop.test')), 'the receipt');
+    await t.ctx.mailOutbox.drain();
     const mails = t.mail.messages.filter((m) => m.to.includes('bea@shop.test'));
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe('Your receipt for "Plum Lattice"');
@@ -229,15 +241,15 @@ describe('buying', () => {
   });
 
   it('acknowledges a replayed event without acting on it again', async () => {
-    const before = snapshot();
+    const before = await snapshot();
     const delivered = fake.events[0];
     const replay = await postWebhook(delivered.payload, delivered.signature).expect(200);
     expect(replay.body).toEqual({ received: true, duplicate: true });
-    expect(snapshot()).toEqual(before);
+    expect(await snapshot()).toEqual(before);
   });
 
   it('refuses forged events and changes nothing', async () => {
-    const before = snapshot();
+    const before = await snapshot();
     const delivered = fake.events[0];
     const event = JSON.parse(delivered.payload);
     const forged = JSON.stringify({ ...event, id: 'evt_forged_1' });
@@ -258,7 +270,7 @@ describe('buying', () => {
       expect(res.status).toBe(400);
       expect(res.body.error).toMatch(/signature/i);
     }
-    expect(snapshot()).toEqual(before);
+    expect(await snapshot()).toEqual(before);
   });
 
   it('accepts a signature made by hand as the provider documents it, and nothing else', async () => {
@@ -277,7 +289,7 @@ describe('buying', () => {
   it('ignores a signed completion whose amount does not match the order', async () => {
     const res = await stranger.post(`/api/shop/listings/${listedId}/checkout`).expect(201);
     const session = fake.sessions.get(res.body.checkoutUrl.split('/').pop())!;
-    const before = snapshot();
+    const before = await snapshot();
     const event = {
       id: 'evt_wrong_amount',
       object: 'event',
@@ -287,7 +299,7 @@ describe('buying', () => {
     const payload = JSON.stringify(event);
     const signature = new Stripe(SK).webhooks.generateTestHeaderString({ payload, secret: WHSEC });
     await postWebhook(payload, signature).expect(200);
-    const after = snapshot();
+    const after = await snapshot();
     expect(after.events).toBe(before.events + 1);
     expect(after.members).toBe(before.members);
     expect(after.orders).toEqual(before.orders);
@@ -315,10 +327,10 @@ describe('buying', () => {
     expect(notice.text).toContain('$12.50 goes back to you');
 
     // The refund event replayed does nothing either.
-    const before = snapshot();
+    const before = await snapshot();
     const refundEvent = fake.events[1];
     expect((await postWebhook(refundEvent.payload, refundEvent.signature).expect(200)).body.duplicate).toBe(true);
-    expect(snapshot()).toEqual(before);
+    expect(await snapshot()).toEqual(before);
   });
 
   it('can buy again after a refund', async () => {
@@ -373,11 +385,14 @@ describe('exactly once', () => {
       data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_burst_1' } },
     });
     const signature = new Stripe(SK).webhooks.generateTestHeaderString({ payload, secret: WHSEC });
-    const members = count('SELECT count(*) AS n FROM members WHERE user_id = ?', kim.user!.id);
+    const members = await count(sql`SELECT count(*) AS n FROM members WHERE user_id = ${kim.user!.id}`);
     const answers = await Promise.all(Array.from({ length: 5 }, () => postWebhook(payload, signature)));
     expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200]);
     expect(answers.filter((a) => a.body.duplicate === false)).toHaveLength(1);
-    expect(count('SELECT count(*) AS n FROM members WHERE user_id = ?', kim.user!.id)).toBe(members + 1);
+    expect(await count(sql`SELECT count(*) AS n FROM members WHERE user_id = ${kim.user!.id}`)).toBe(members + 1);
+    expect(await count(sql`SELECT count(*) AS n FROM mail_outbox WHERE to_address = 'kim@shop.test'`)).toBe(1);
+    await until(() => t.mail.messages.find((m) => m.to.includes('kim@shop.test')), 'the receipt');
+    await t.ctx.mailOutbox.drain();
     expect(t.mail.messages.filter((m) => m.to.includes('kim@shop.test'))).toHaveLength(1);
     expect((await kim.get(`/api/shop/orders/${res.body.order.id}`)).body.order.status).toBe('paid');
   });
@@ -385,7 +400,7 @@ describe('exactly once', () => {
 
 describe('hostile input', () => {
   it('never answers 5xx to random bodies on the shop routes or random bytes on the webhook', async () => {
-    const before = snapshot();
+    const before = await snapshot();
     await fc.assert(
       fc.asyncProperty(fc.jsonValue(), fc.string({ maxLength: 40 }), async (body, id) => {
         const target = id.length > 0 ? encodeURIComponent(id) : listedId;
@@ -406,7 +421,7 @@ describe('hostile input', () => {
     const big = await postWebhook('x'.repeat(300 * 1024), 't=1,v1=00');
     expect(big.status).toBe(413);
     // Nothing random reached the orders, members or handled events.
-    const after = snapshot();
+    const after = await snapshot();
     expect(after.events).toBe(before.events);
     expect(after.members).toBe(before.members);
   });
@@ -469,8 +484,8 @@ describe('demo shop', () => {
     const demo = await userClient(t.app, 'fern@shop.test', 'designer');
     const id = (await demo.post('/api/patterns', { document: sampleDocument('Garden Gate') }).expect(201)).body.pattern.id;
     const listing = { patternId: id, priceMinor: 1800, description: 'An 8 in. block in three sections.' };
-    seedDemoShop(t.ctx.db, demo.user!.id, 'usd', [listing]);
-    seedDemoShop(t.ctx.db, demo.user!.id, 'eur', [{ ...listing, priceMinor: 1 }]);
+    await seedDemoShop(t.ctx.data, demo.user!.id, 'usd', [listing]);
+    await seedDemoShop(t.ctx.data, demo.user!.id, 'eur', [{ ...listing, priceMinor: 1 }]);
     const seen = (await buyer.get(`/api/shop/listings/${id}`).expect(200)).body.listing;
     expect(seen).toMatchObject({ priceMinor: 1800, currency: 'usd', published: true });
   });
@@ -489,7 +504,7 @@ describe('without payment keys', () => {
       expect((await q.post(`/api/shop/listings/${id}/checkout`)).status).toBe(503);
       const hook = await request(bare.app).post('/api/shop/webhook').set('Stripe-Signature', 't=1,v1=00').send('{}');
       expect(hook.status).toBe(503);
-      expect(bare.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM orders').get()).toEqual({ n: 0 });
+      expect(await bare.ctx.data.db.select({ n: countRows() }).from(bare.ctx.data.t.orders)).toEqual([{ n: 0 }]);
     } finally {
       await bare.close();
     }
@@ -509,7 +524,7 @@ describe('without payment keys', () => {
       const res = await q.post(`/api/shop/listings/${id}/checkout`);
       expect(res.status).toBe(502);
       expect(res.body.error).toMatch(/nothing was charged/);
-      expect(cut.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM orders').get()).toEqual({ n: 0 });
+      expect(await cut.ctx.data.db.select({ n: countRows() }).from(cut.ctx.data.t.orders)).toEqual([{ n: 0 }]);
     } finally {
       await cut.close();
     }

@@ -2,9 +2,10 @@ import { eq } from 'drizzle-orm';
 import express, { type RequestHandler } from 'express';
 import type Stripe from 'stripe';
 import type { AppContext } from '../app-context';
-import { orders, users, type Order } from '../db/schema';
+import type { Data } from '../db/data';
+import type { Order } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { handlePaymentEvent } from './payment-events';
+import { handlePaymentEvent, type EventOutcome } from './payment-events';
 import { requirePayments, type Payments } from './payments';
 import { receiptMail, refundMail } from './receipt-mail';
 
@@ -30,37 +31,36 @@ export function webhookHandlers(ctx: AppContext, payments: Payments | null): Req
       ctx.log('webhook refused: signature verification failed', (err as Error).message);
       throw new HttpError(400, 'Webhook signature verification failed');
     }
-    const outcome = handlePaymentEvent(ctx.db, event);
+    // The buyer's mail goes in the outbox in the event's own transaction: one event, one mail.
+    const outcome = await handlePaymentEvent(ctx.data, event, (tx, o) => queueMail(ctx, tx, o));
     if (outcome.kind === 'ignored') ctx.log(`webhook ${event.id} (${event.type}) ignored: ${outcome.reason}`);
-    if (outcome.kind === 'paid') await sendReceipt(ctx, outcome.order);
-    if (outcome.kind === 'refunded') await sendRefundNotice(ctx, outcome.order);
     // Duplicates are acknowledged (2xx) so the provider stops retrying, but change nothing.
     res.json({ received: true, duplicate: outcome.kind === 'duplicate' });
   };
   return [raw, handle];
 }
 
-/** E-mails the buyer's receipt; a mail failure is logged and never undoes the payment. */
-async function sendReceipt(ctx: AppContext, order: Order): Promise<void> {
-  const buyer = ctx.db.select().from(users).where(eq(users.id, order.buyerId)).get();
-  const seller = ctx.db.select().from(users).where(eq(users.id, order.sellerId)).get();
-  if (!buyer) return;
+/**
+ * Puts the buyer's receipt (paid) or refund notice (refunded) in the mail outbox, which delivers it
+ * with retries after the transaction commits; a mail server that is down never undoes a payment.
+ * A paid order's `receiptSentAt` is when its receipt was handed to the outbox.
+ */
+async function queueMail(ctx: AppContext, tx: Data, outcome: EventOutcome): Promise<EventOutcome> {
+  if (outcome.kind !== 'paid' && outcome.kind !== 'refunded') return outcome;
+  const { orders, users } = tx.t;
+  const order: Order = outcome.order;
+  const [buyer] = await tx.db.select().from(users).where(eq(users.id, order.buyerId));
+  if (!buyer) return outcome;
+  if (outcome.kind === 'refunded') {
+    await ctx.mailOutbox.enqueue(tx, 'shop-refund', { to: buyer.email, ...refundMail(order, buyer.displayName) });
+    return outcome;
+  }
+  const [seller] = await tx.db.select().from(users).where(eq(users.id, order.sellerId));
   const link = `${ctx.config.publicUrl}/patterns/${encodeURIComponent(order.patternId ?? '')}`;
-  try {
-    await ctx.mailer.send({ to: buyer.email, ...receiptMail(order, buyer.displayName, seller?.displayName ?? 'the designer', link) });
-    ctx.db.update(orders).set({ receiptSentAt: new Date() }).where(eq(orders.id, order.id)).run();
-  } catch (err) {
-    ctx.log(`receipt mail for order ${order.id} failed`, err);
-  }
-}
-
-/** E-mails the buyer that the refund went through; failures are logged. */
-async function sendRefundNotice(ctx: AppContext, order: Order): Promise<void> {
-  const buyer = ctx.db.select().from(users).where(eq(users.id, order.buyerId)).get();
-  if (!buyer) return;
-  try {
-    await ctx.mailer.send({ to: buyer.email, ...refundMail(order, buyer.displayName) });
-  } catch (err) {
-    ctx.log(`refund mail for order ${order.id} failed`, err);
-  }
+  await ctx.mailOutbox.enqueue(tx, 'shop-receipt', {
+    to: buyer.email,
+    ...receiptMail(order, buyer.displayName, seller?.displayName ?? 'the designer', link),
+  });
+  const [queued] = await tx.db.update(orders).set({ receiptSentAt: new Date() }).where(eq(orders.id, order.id)).returning();
+  return { kind: 'paid', order: queued ?? order };
 }
