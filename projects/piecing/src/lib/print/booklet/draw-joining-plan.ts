@@ -138,10 +138,30 @@ export const UNIT_LABELS_MAX = 8;
  * the step that made it lists how, so every section stays traceable and a caption stays a few lines long at any size.
  */
 export function unitsNamed(text: string): string {
-  return text.replace(/unit (\d+) \(([^()]*)\)/g, (whole, n: string, list: string) => {
-    const count = list.split(', ').length;
-    return count > UNIT_LABELS_MAX ? `unit ${n} (made in step ${n}, ${count} sections)` : whole;
-  });
+  // One pass over the text (labels of late units list hundreds of sections): each "unit n (" is followed
+  // to its ")" counting the ", " between; one with a "(" before its ")" is left as it is.
+  const start = /unit (\d+) \(/g;
+  let out = '';
+  let copied = 0;
+  for (let m = start.exec(text); m; m = start.exec(text)) {
+    let count = 1;
+    let j = m.index + m[0].length;
+    for (; j < text.length; j++) {
+      const c = text.charCodeAt(j);
+      if (c === 0x28 || c === 0x29) break;
+      if (c === 0x2c && text.charCodeAt(j + 1) === 0x20) count++;
+    }
+    if (text.charCodeAt(j) !== 0x29) {
+      start.lastIndex = m.index + 1;
+      continue;
+    }
+    if (count > UNIT_LABELS_MAX) {
+      out += `${text.slice(copied, m.index)}unit ${m[1]} (made in step ${m[1]}, ${count} sections)`;
+      copied = j + 1;
+    }
+    start.lastIndex = j + 1;
+  }
+  return copied === 0 ? text : out + text.slice(copied);
 }
 
 function pathSegments(points: readonly Point[]): Array<{ a: Point; b: Point }> {

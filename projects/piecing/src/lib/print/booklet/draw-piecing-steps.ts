@@ -154,8 +154,15 @@ function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep,
   const len = 0.22;
   // Along the seam where the arrow stays clearest of the patch labels.
   const at = (t: number) => ({ x: a.x + (b.x - a.x) * t, y: a.y + (b.y - a.y) * t });
-  const clearance = (t: number) => Math.min(...labels.map((l) => Math.min(Math.hypot(l.x - at(t).x - n.x * len, l.y - at(t).y - n.y * len), Math.hypot(l.x - at(t).x + n.x * len, l.y - at(t).y + n.y * len))));
-  const t = [0.3, 0.5, 0.7, 0.2, 0.8].reduce((best, c) => (clearance(c) > clearance(best) + 0.02 ? c : best), 0.3);
+  let t = 0.3;
+  let bestClearance = arrowClearance(at(t), n, len, labels);
+  for (const c of [0.5, 0.7, 0.2, 0.8]) {
+    const clearance = arrowClearance(at(c), n, len, labels);
+    if (clearance > bestClearance + 0.02) {
+      t = c;
+      bestClearance = clearance;
+    }
+  }
   const mid = at(t);
   const colour = isDark(lighten(fabricColour(ctx, added.fabricId ?? added.stripSet?.strips[0]?.fabricId), 0.25)) ? '#ffffff' : '#000000';
   if (press === 'open') {
@@ -165,6 +172,15 @@ function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep,
   }
   const d: Point = press === 'added' ? n : { x: -n.x, y: -n.y };
   pressArrow(ctx, { x: mid.x + d.x * len * 0.6, y: mid.y + d.y * len * 0.6 }, d, len, press === 'added' ? colour : '#000000');
+}
+
+/** How far the nearest label is from either end of a pressing arrow of half-length `len` across the seam at `p`. */
+function arrowClearance(p: Point, n: Point, len: number, labels: readonly Point[]): number {
+  let clearance = Infinity;
+  for (const l of labels) {
+    clearance = Math.min(clearance, Math.min(Math.hypot(l.x - p.x - n.x * len, l.y - p.y - n.y * len), Math.hypot(l.x - p.x + n.x * len, l.y - p.y + n.y * len)));
+  }
+  return clearance;
 }
 
 /** A pressing arrow in a colour that shows on the fabric under it. */
