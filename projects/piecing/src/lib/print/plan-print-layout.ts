@@ -222,7 +222,7 @@ function chooseTiling(
     for (const frame of frames) {
       const { width: W, height: H } = frame.content;
       const tb = frame.testBlock;
-      for (const [cw, ch] of [[W, H - cornerBlockDepthIn(frame) - CAPTION_IN], [W - tb.width - TEST_BLOCK_GAP_IN, H - CAPTION_IN]] as const) {
+      for (const [cw, ch] of [[W, H - cornerBlockDepthIn(frame, 'header') - CAPTION_IN], [W - tb.width - TEST_BLOCK_GAP_IN, H - CAPTION_IN]] as const) {
         limits.push([cw, ch]);
         const grid = tileTemplate(prepared, cw, ch, overlapIn);
         if (grid && !bases.some(([c, r]) => c === grid.columns && r === grid.rows)) bases.push([grid.columns, grid.rows]);
@@ -283,11 +283,14 @@ function longEndSpans(length: number, max: number, overlapIn: number): Array<Arr
   ];
 }
 
-/** Whether a tile (which never turns) fits a sheet beside the test squares. */
+/**
+ * Whether a tile (which never turns) fits a sheet beside the test squares kept inside the margins: a
+ * copy's first tile carries the tile map, so its sheet never raises them into the margin band.
+ */
 function fitsTile(w: number, h: number, frame: SheetFrame): boolean {
   const { width: W, height: H } = frame.content;
   const tb = frame.testBlock;
-  return (w <= W && h <= H - cornerBlockDepthIn(frame)) || (w <= W - tb.width - TEST_BLOCK_GAP_IN && h <= H);
+  return (w <= W && h <= H - cornerBlockDepthIn(frame, 'header')) || (w <= W - tb.width - TEST_BLOCK_GAP_IN && h <= H);
 }
 
 function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetPlacement[] {

@@ -72,6 +72,27 @@ describe('sheets of the demo medallion and the stress pattern', () => {
   });
 });
 
+describe('tiles beside test squares raised into the margin band', () => {
+  it('tiles a 3.3 × 17.4 in. template with stress rectangles on Letter, no tile map on a sheet with raised squares', () => {
+    // Two rows of 8.97 in. tiles (9.17 in. with the caption) fit under squares raised into the margin band
+    // (9.19 in. left), or beside squares inside the margins; four 4.5 × 3.5 in. rectangles a sheet need the
+    // squares raised. A first tile (its sheet carries the tile map) must never count on raising them.
+    const ring = (w: number, h: number) => [{ x: 0, y: 0 }, { x: w, y: 0 }, { x: w, y: h }, { x: 0, y: h }];
+    const base = { kind: 'straight' as const, seams: [], patches: [], guideLines: [], matchingMarks: [], orientation: { direction: { x: 0, y: -1 }, towards: 'top of block' }, freeRotation: false };
+    const templates: PrintTemplate[] = [
+      { ...base, id: 'tall', sectionId: 'tall', sectionLabel: 'T', sewingLine: ring(3.3, 17.4), cuttingLine: ring(3.3, 17.4), copies: 2, areaSqIn: 3.3 * 17.4 },
+      { ...base, id: 'rect', sectionId: 'rect', sectionLabel: 'R', sewingLine: ring(4.5, 3.5), cuttingLine: ring(4.5, 3.5), copies: 8, areaSqIn: 4.5 * 3.5 },
+    ];
+    const layout = layoutTemplates(templates, { paper: 'letter', marginIn: 0.5, mirrored: true, tileOverlapIn: 0.5 });
+    expect(layout.templates.find((t) => t.templateId === 'tall')!.tilesPerCopy).toBeGreaterThan(1);
+    // The rectangles four to a sheet, their squares raised.
+    const rectSheets = layout.sheets.filter((s) => s.placements.filter((p) => p.templateId === 'rect').length === 4);
+    expect(rectSheets.length).toBe(2);
+    for (const sheet of rectSheets) expect(sheet.frame.testBlock.y).toBeCloseTo(EDGE_SAFE_IN, 9);
+    expectSound(layout, new Map(templates.map((t) => [t.id, t])));
+  });
+});
+
 describe('every sheet of any set of templates', () => {
   it('keeps prints and test squares inside the printable area, apart, and off the header text', () => {
     fc.assert(
@@ -110,6 +131,10 @@ function expectSound(layout: PrintLayout, byId: Map<string, PrintTemplate>): voi
     expect(within(testBlock, paper), `test block of sheet ${sheet.pageNumber} at least ¼ in. from the paper's edge`).toBe(true);
     expect(within(testBlock, sheet.frame.testArea), `test block of sheet ${sheet.pageNumber} inside the test-square area`).toBe(true);
     if (layout.marginIn <= EDGE_SAFE_IN) expect(within(testBlock, printable), `test block of sheet ${sheet.pageNumber} inside the printable area`).toBe(true);
+    // Raised into the margin band, the header's text takes the room a tile map would need.
+    if (testBlock.y < printable.y - 1e-9) {
+      for (const p of sheet.placements) expect(p.tile?.first ?? false, `first tile on sheet ${sheet.pageNumber}, whose test squares are raised`).toBe(false);
+    }
     // In the header band only at its left end: the header's text is drawn to the right of it.
     if (testBlock.y < header.y + header.height) expect(testBlock.x).toBeCloseTo(printable.x, 9);
     const groups: Point[][][] = [[rectRing(testBlock)]];
