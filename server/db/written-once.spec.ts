@@ -32,17 +32,12 @@ const NOT_YET_PORTED = new Set<string>([
   'routes/admin.ts',
   'routes/colourway-copies.ts',
   'routes/invitations.ts',
-  'routes/patterns.ts',
   'routes/print-sets.ts',
-  'routes/revisions.ts',
   'routes/sewing-log.ts',
   'routes/uploads.ts',
   'services/colourway-copies.ts',
   'services/pattern-list.ts',
   'services/print-sets.ts',
-  'services/revision-groups.ts',
-  'services/revisions.ts',
-  'validation/version-save.ts',
 ]);
 
 const RULES: [string, RegExp][] = [

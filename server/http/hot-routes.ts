@@ -87,7 +87,6 @@ function bodyBytes(req: IncomingMessage): Promise<Buffer> {
 
 /** The request handler for the hot routes; `next` gets every request they do not answer. */
 export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
-  const { db } = ctx;
   const sqlite = ctx.data.sqlite;
   if (!sqlite) throw new Error('the hot routes run on SQLite only');
   const sessionOf = sqliteSessionReader(sqlite);
@@ -120,11 +119,11 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
     const { live } = sessionFor(req);
     send(res, 200, readAnswerText(readPattern(live?.user, id)));
   };
-  const list = (req: IncomingMessage, res: ServerResponse, query: string) => {
+  const list = async (req: IncomingMessage, res: ServerResponse, query: string) => {
     const { live } = sessionFor(req);
     if (!live) throw new HttpError(401, 'Sign in first');
     const q = parseOr400(patternListQuerySchema, querystring.parse(query), 'Invalid query');
-    send(res, 200, JSON.stringify(listPatterns(db, live.user, q)));
+    send(res, 200, JSON.stringify(await listPatterns(ctx.data, live.user, q)));
   };
   const save = async (req: IncomingMessage, res: ServerResponse, id: string) => {
     const { cookies, live } = sessionFor(req);
@@ -132,7 +131,7 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
     const found = await loadPatternAccess(ctx.data, live?.user, id);
     const body = parseJsonBody(await bodyBytes(req));
     checkNeed(found.access, 'edit');
-    send(res, 200, saveAnswerText(db, found, live!.user, body));
+    send(res, 200, await saveAnswerText(ctx.data, found, live!.user, body));
   };
 
   return (req, res) => {
@@ -141,7 +140,12 @@ export function hotRoutes(ctx: AppContext, csrf: Csrf, next: Handler): Handler {
     const url = req.url!;
     const q = url.indexOf('?');
     try {
-      if (route === 'list') return list(req, res, q < 0 ? '' : url.slice(q + 1));
+      if (route === 'list') {
+        list(req, res, q < 0 ? '' : url.slice(q + 1)).catch((err: unknown) => {
+          if (!res.headersSent) fail(res, err);
+        });
+        return;
+      }
       const id = url.slice(ONE_PREFIX.length, q < 0 ? undefined : q);
       if (route === 'read') return read(req, res, id);
       save(req, res, id).catch((err: unknown) => {

@@ -3,7 +3,6 @@ import express, { type Router } from 'express';
 import { pageQuerySchema, restoreBodySchema, revisionListQuerySchema, revisionNumberParamSchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
-import { revisions, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
@@ -24,34 +23,34 @@ import {
 
 /** `/api/patterns/:id/revisions…`: list, runs of saves, read, save a named version, restore. */
 export function revisionsRouter(ctx: AppContext): Router {
-  const { db } = ctx;
+  const d = ctx.data;
   const router = express.Router({ mergeParams: true });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const q = parseOr400(revisionListQuerySchema, req.query, 'Invalid query');
+    const { revisions, users } = d.t;
     const where = and(
       eq(revisions.patternId, pattern.id),
       q.from === undefined ? undefined : gte(revisions.number, q.from),
       q.to === undefined ? undefined : lte(revisions.number, q.to),
     );
-    const total = db.select({ n: count() }).from(revisions).where(where).get()?.n ?? 0;
-    const rows = db
+    const total = (await d.db.select({ n: count() }).from(revisions).where(where))[0]?.n ?? 0;
+    const rows = await d.db
       .select({ revision: revisions, authorName: users.displayName })
       .from(revisions)
       .innerJoin(users, eq(users.id, revisions.authorId))
       .where(where)
       .orderBy(desc(revisions.number))
       .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize)
-      .all();
+      .offset((q.page - 1) * q.pageSize);
     res.json({ items: rows.map((r) => revisionSummary(r.revision, r.authorName)), total, page: q.page, pageSize: q.pageSize });
   });
 
-  router.get('/groups', (req, res) => {
+  router.get('/groups', async (req, res) => {
     const { pattern } = patternOf(res);
     const q = parseOr400(pageQuerySchema, req.query, 'Invalid query');
-    res.json(listRevisionGroups(db, pattern.id, q.page, q.pageSize));
+    res.json(await listRevisionGroups(d, pattern.id, q.page, q.pageSize));
   });
 
   router.post('/', async (req, res) => {
@@ -63,33 +62,30 @@ export function revisionsRouter(ctx: AppContext): Router {
       return;
     }
     const body = checkVersionBody(req.body);
-    const saved = db.transaction((tx) => saveVersion(tx, pattern.id, body, user.id), { behavior: 'immediate' });
-    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    const saved = await d.transaction((tx) => saveVersion(tx, pattern.id, body, user.id));
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
-  router.get('/:number', (req, res) => {
+  router.get('/:number', async (req, res) => {
     const { pattern } = patternOf(res);
     const number = parseOr400(revisionNumberParamSchema, req.params.number, 'Invalid revision number');
-    const found = findRevision(db, pattern.id, number);
+    const found = await findRevision(d, pattern.id, number);
     if (!found) throw new HttpError(404, 'Revision not found');
     res.type('application/json').send(`{"revision":${revisionJsonText(found.revision, found.authorName)}}`);
   });
 
-  router.post('/:number/restore', (req, res) => {
+  router.post('/:number/restore', async (req, res) => {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     const number = parseOr400(revisionNumberParamSchema, req.params.number, 'Invalid revision number');
     const body = parseOr400(restoreBodySchema, req.body);
-    const saved = db.transaction(
-      (tx) => {
-        const found = findRevision(tx, pattern.id, number);
-        if (!found) throw new HttpError(404, 'Revision not found');
-        // The stored text is copied as it is, not parsed and written out again (a large document took the request thread for tens of ms).
-        return saveRevision(tx, pattern.id, body.baseRevision, DocumentText.stored(found.revision.document), user.id, { restoredFrom: number });
-      },
-      { behavior: 'immediate' },
-    );
-    sendPatternWithRevision(res, 201, patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), access), saved.revision, user.displayName);
+    const saved = await d.transaction(async (tx) => {
+      const found = await findRevision(tx, pattern.id, number);
+      if (!found) throw new HttpError(404, 'Revision not found');
+      // The stored text is copied as it is, not parsed and written out again (a large document took the request thread for tens of ms).
+      return saveRevision(tx, pattern.id, body.baseRevision, DocumentText.stored(found.revision.document), user.id, { restoredFrom: number });
+    });
+    sendPatternWithRevision(res, 201, patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), access), saved.revision, user.displayName);
   });
 
   return router;

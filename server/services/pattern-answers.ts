@@ -4,7 +4,7 @@
  * (server/http/hot-routes.ts), so the two answer the same bytes.
  */
 import type { User, Revision } from '../db/schema';
-import type { Db } from '../db/database';
+import type { Data } from '../db/data';
 import { HttpError } from '../http/errors';
 import { checkDocumentBody } from '../validation/document-body';
 import type { PatternAccess, PatternRead } from './access';
@@ -32,14 +32,13 @@ export function readAnswerText(read: PatternRead): string {
 
 /**
  * `PUT /api/patterns/:id` with a body parsed on the request thread: checks it (400 with zod's details),
- * stores the new revision in one immediate transaction (409 when stale or trashed) and answers the
+ * stores the new revision in one transaction (409 when stale or trashed) and answers the
  * saved pattern and revision. The caller has checked access (`edit`) already.
  */
-export function saveAnswerText(db: Db, found: PatternAccess, user: User, body: unknown): string {
+export async function saveAnswerText(d: Data, found: PatternAccess, user: User, body: unknown): Promise<string> {
   const { fields, document } = checkDocumentBody('save', body);
-  const saved = db.transaction(
-    (tx) => saveRevision(tx, found.pattern.id, fields.baseRevision, document, user.id, { editSession: fields.editSession }),
-    { behavior: 'immediate' },
+  const saved = await d.transaction((tx) =>
+    saveRevision(tx, found.pattern.id, fields.baseRevision, document, user.id, { editSession: fields.editSession }),
   );
-  return patternWithRevisionText(patternJson(saved.pattern, ownerName(db, saved.pattern.ownerId), found.access), saved.revision, user.displayName);
+  return patternWithRevisionText(patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), found.access), saved.revision, user.displayName);
 }

@@ -1,6 +1,6 @@
-import { count, desc, eq, max, min, sql } from 'drizzle-orm';
-import type { DbLike } from '../db/database';
-import { revisions, users, type Revision } from '../db/schema';
+import { count, countDistinct, desc, eq, max, min, sql } from 'drizzle-orm';
+import type { Data } from '../db/data';
+import type { Revision } from '../db/schema';
 
 /** A named version's name and note, or null for an ordinary save. */
 export function versionJson(r: Pick<Revision, 'versionName' | 'versionNote'>): { name: string; note: string | null } | null {
@@ -43,20 +43,21 @@ export interface RevisionGroupJson {
 }
 
 /** A pattern's runs of saves, newest first, paged like the revision list. */
-export function listRevisionGroups(db: DbLike, patternId: string, page: number, pageSize: number) {
+export async function listRevisionGroups(d: Data, patternId: string, page: number, pageSize: number) {
+  const { revisions, users } = d.t;
   // Revisions from before grouping have no group_start: each is a run of its own.
   const key = sql<number>`coalesce(${revisions.groupStart}, ${revisions.number})`;
-  const total = db.select({ n: sql<number>`count(distinct ${key})` }).from(revisions).where(eq(revisions.patternId, patternId)).get()?.n ?? 0;
-  const rows = db
+  const total = (await d.db.select({ n: countDistinct(key) }).from(revisions).where(eq(revisions.patternId, patternId)))[0]?.n ?? 0;
+  const rows = await d.db
     .select({
       first: min(revisions.number),
       last: max(revisions.number),
       count: count(),
       startedAt: min(revisions.createdAt),
       endedAt: max(revisions.createdAt),
-      // One author per run by construction (groupStartOf), so any row's author is the run's.
-      authorId: revisions.authorId,
-      authorName: users.displayName,
+      // One author per run by construction (groupStartOf), so min() is the run's author.
+      authorId: min(revisions.authorId),
+      authorName: min(users.displayName),
       // A named version or a restore is always a run of one, so max() is that revision's value.
       versionName: max(revisions.versionName),
       versionNote: max(revisions.versionNote),
@@ -68,13 +69,12 @@ export function listRevisionGroups(db: DbLike, patternId: string, page: number, 
     .groupBy(key)
     .orderBy(desc(key))
     .limit(pageSize)
-    .offset((page - 1) * pageSize)
-    .all();
+    .offset((page - 1) * pageSize);
   const items: RevisionGroupJson[] = rows.map((r) => ({
     first: r.first ?? 0,
     last: r.last ?? 0,
     count: r.count,
-    author: { id: r.authorId, displayName: r.authorName },
+    author: { id: r.authorId ?? '', displayName: r.authorName ?? '' },
     startedAt: (r.startedAt ?? new Date(0)).toISOString(),
     endedAt: (r.endedAt ?? new Date(0)).toISOString(),
     version: versionJson({ versionName: r.versionName, versionNote: r.versionNote }),

@@ -1,9 +1,9 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import type { PatternDocument } from '@seamwright/piecing';
 import type { Response } from 'express';
-import type { DbLike } from '../db/database';
-import { connectionOf, preparedPerDb } from '../db/prepared';
-import { patterns, revisions, users, type Pattern, type Revision } from '../db/schema';
+import type { Data } from '../db/data';
+import { preparedOn } from '../db/prepared';
+import type { Pattern, Revision } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { sendJsonText } from '../http/send-json';
 import { newId } from '../auth/tokens';
@@ -66,17 +66,18 @@ export function patternJson(p: Pattern, ownerName: string, access: Access) {
 }
 
 /** A revision with its author's name, by pattern and number (latest when number is omitted). */
-export function findRevision(db: DbLike, patternId: string, number?: number) {
-  const q = revisionQueries(db);
-  return number === undefined ? q.latest.get({ patternId }) : q.numbered.get({ patternId, number });
+export async function findRevision(d: Data, patternId: string, number?: number): Promise<{ revision: Revision; authorName: string } | undefined> {
+  const q = revisionQueries(d);
+  const rows = number === undefined ? await q.latest.execute({ patternId }) : await q.numbered.execute({ patternId, number });
+  return rows[0];
 }
 
-export function ownerName(db: DbLike, ownerId: string): string {
-  return revisionQueries(db).displayName.get({ id: ownerId })?.n ?? '';
+export async function ownerName(d: Data, ownerId: string): Promise<string> {
+  return (await revisionQueries(d).displayName.execute({ id: ownerId }))[0]?.n ?? '';
 }
 
 /** The read path runs these on every pattern load. */
-const revisionQueries = preparedPerDb((db) => {
+const revisionQueries = preparedOn((db, { revisions, users }) => {
   const withAuthor = () =>
     db.select({ revision: revisions, authorName: users.displayName }).from(revisions).innerJoin(users, eq(users.id, revisions.authorId));
   const patternId = sql.placeholder('patternId');
@@ -89,21 +90,20 @@ const revisionQueries = preparedPerDb((db) => {
   };
 });
 
-/** Creates a pattern with revision 1 in one transaction. */
-export function createPattern(db: DbLike, ownerId: string, checked: PatternDocument | DocumentText) {
+/** Creates a pattern with revision 1 (run inside a transaction: both rows or neither). */
+export async function createPattern(d: Data, ownerId: string, checked: PatternDocument | DocumentText) {
+  const { patterns, revisions } = d.t;
   const document = stored(checked);
   const now = new Date();
   const id = newId();
-  const pattern = db
+  const [pattern] = await d.db
     .insert(patterns)
     .values({ id, ownerId, title: document.title, headRevision: 1, createdAt: now, updatedAt: now })
-    .returning()
-    .get();
-  const revision = db
+    .returning();
+  const [revision] = await d.db
     .insert(revisions)
     .values({ id: newId(), patternId: id, number: 1, document: document.json, authorId: ownerId, groupStart: 1, createdAt: now })
-    .returning()
-    .get();
+    .returning();
   return { pattern, revision };
 }
 
@@ -117,44 +117,45 @@ export interface SaveExtras {
   version?: { name: string; note: string | null } | null;
 }
 
-/** A pattern row as SQLite gives it (times in ms). */
-interface PatternRow {
-  id: string;
-  ownerId: string;
-  headRevision: number;
-  createdAt: number;
-  trashedAt: number | null;
-}
+/** A save's statements, prepared once per connection (a save runs several inside its transaction). */
+const saveStatements = preparedOn((db, { patterns, revisions }) => ({
+  /**
+   * Advances the head from the save's base, only if it is still the head and the pattern is not in
+   * the trash: a compare-and-set. On PostgreSQL a second save on the same base waits here for the
+   * first one's row lock and, once that commits, finds the head moved on and changes nothing.
+   */
+  advance: db
+    .update(patterns)
+    .set({ headRevision: sql`${patterns.headRevision} + 1`, title: sql`${sql.placeholder('title')}`, updatedAt: sql`${sql.placeholder('now')}` })
+    .where(and(eq(patterns.id, sql.placeholder('id')), eq(patterns.headRevision, sql.placeholder('base')), isNull(patterns.trashedAt)))
+    .returning({ ownerId: patterns.ownerId, createdAt: patterns.createdAt })
+    .prepare(),
+  pattern: db
+    .select({ headRevision: patterns.headRevision, trashedAt: patterns.trashedAt })
+    .from(patterns)
+    .where(eq(patterns.id, sql.placeholder('id')))
+    .prepare(),
+  head: db
+    .select({
+      number: revisions.number,
+      authorId: revisions.authorId,
+      editSession: revisions.editSession,
+      versionName: revisions.versionName,
+      groupStart: revisions.groupStart,
+    })
+    .from(revisions)
+    .where(and(eq(revisions.patternId, sql.placeholder('patternId')), eq(revisions.number, sql.placeholder('number'))))
+    .prepare(),
+}));
 
 /**
- * A save's statements, prepared once on the connection (the save runs several per request inside its
- * transaction): plain SQL, no query building or row mapping per call.
+ * Stores a new revision on top of `baseRevision`. Run inside a transaction: the head is advanced
+ * from the base only if it is still the head (one conditional UPDATE, under SQLite's write lock or
+ * PostgreSQL's row lock), so of two saves on the same base exactly one wins and the other gets 409
+ * with the latest revision.
  */
-const saveStatements = preparedPerDb((db) => {
-  const sqlite = connectionOf(db);
-  return {
-    pattern: sqlite.prepare<[string], PatternRow>(
-      'SELECT id, owner_id AS ownerId, head_revision AS headRevision, created_at AS createdAt, trashed_at AS trashedAt FROM patterns WHERE id = ?',
-    ),
-    head: sqlite.prepare<[string, number], { number: number; authorId: string; editSession: string | null; versionName: string | null; groupStart: number | null }>(
-      `SELECT number, author_id AS authorId, edit_session AS editSession, version_name AS versionName, group_start AS groupStart
-         FROM revisions WHERE pattern_id = ? AND number = ?`,
-    ),
-    insert: sqlite.prepare(
-      `INSERT INTO revisions (id, pattern_id, number, document, author_id, restored_from, edit_session, group_start, version_name, version_note, created_at)
-       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-    ),
-    advance: sqlite.prepare('UPDATE patterns SET head_revision = ?, title = ?, updated_at = ? WHERE id = ?'),
-  };
-});
-
-/**
- * Stores a new revision on top of `baseRevision`. Run inside an immediate transaction: the head is
- * read and advanced under the write lock, so of two saves on the same base exactly one wins and the
- * other gets 409 with the latest revision.
- */
-export function saveRevision(
-  tx: DbLike,
+export async function saveRevision(
+  tx: Data,
   patternId: string,
   baseRevision: number,
   checked: PatternDocument | DocumentText,
@@ -163,23 +164,26 @@ export function saveRevision(
 ) {
   const document = stored(checked);
   const q = saveStatements(tx);
-  const row = q.pattern.get(patternId);
-  if (!row) throw new HttpError(404, 'Pattern not found');
-  if (row.trashedAt !== null) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
-  if (row.headRevision !== baseRevision) {
-    const latest = findRevision(tx, patternId);
+  const now = new Date();
+  // Dates go in as the column stores them (the placeholder skips the column's own mapping).
+  const nowValue = tx.dialect === 'sqlite' ? now.getTime() : now.toISOString();
+  const [row] = await q.advance.execute({ id: patternId, base: baseRevision, title: document.title, now: nowValue });
+  if (!row) {
+    const [current] = await q.pattern.execute({ id: patternId });
+    if (!current) throw new HttpError(404, 'Pattern not found');
+    if (current.trashedAt !== null) throw new HttpError(409, 'This pattern is in the trash; restore it before saving');
+    const latest = await findRevision(tx, patternId);
     throw new HttpError(409, `This pattern was saved by someone else since revision ${baseRevision}`, {
       latest: latest ? revisionJson(latest.revision, latest.authorName) : null,
     });
   }
-  const now = new Date();
-  const number = row.headRevision + 1;
-  const head = q.head.get(patternId, row.headRevision);
+  const number = baseRevision + 1;
+  const [head] = await q.head.execute({ patternId, number: baseRevision });
   const editSession = extras.editSession ?? null;
   const version = extras.version ?? null;
   const groupStart = groupStartOf(head, { number, authorId, editSession, named: version !== null });
   // Written without RETURNING: every value is known here, and reading the row back would copy the
-  // whole document out of SQLite again only to build the answer from it.
+  // whole document out of the database again only to build the answer from it.
   const revision: Revision = {
     id: newId(),
     patternId,
@@ -193,11 +197,9 @@ export function saveRevision(
     versionNote: version?.note ?? null,
     createdAt: now,
   };
-  const r = revision;
-  q.insert.run(r.id, r.patternId, r.number, r.document, r.authorId, r.restoredFrom, r.editSession, r.groupStart, r.versionName, r.versionNote, now.getTime());
-  q.advance.run(number, document.title, now.getTime(), patternId);
+  await tx.db.insert(tx.t.revisions).values(revision);
   const updated: Pattern = {
-    id: row.id,
+    id: patternId,
     ownerId: row.ownerId,
     title: document.title,
     headRevision: number,

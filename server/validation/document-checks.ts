@@ -19,8 +19,8 @@ export function validationThreads(): number {
   return Math.max(1, os.availableParallelism() - 1);
 }
 
-/** A large save or new pattern, as the route hands it over (the pool adds the data folder). */
-export type LargeDocumentTask = DistributiveOmit<DocumentTask, 'body' | 'dataDir'>;
+/** A large save or new pattern, as the route hands it over (the pool adds where the database is). */
+export type LargeDocumentTask = DistributiveOmit<DocumentTask, 'body' | 'dataDir' | 'databaseUrl'>;
 type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
 
 /** The validation pool: started on the first large body; its idle threads stop after a while. */
@@ -31,6 +31,8 @@ export class DocumentChecks {
   constructor(
     readonly dataDir: string,
     readonly threads = validationThreads(),
+    /** The PostgreSQL database the server uses (the workers open their own connections to it); SQLite in `dataDir` without. */
+    readonly databaseUrl?: string,
   ) {}
 
   /** Milliseconds the worker spent on the last large body (parse, check, store, answer); for the benchmark. */
@@ -50,7 +52,7 @@ export class DocumentChecks {
     if (this.closed) throw new Error('The validation pool is closed');
     const owns = body.byteOffset === 0 && body.byteLength === body.buffer.byteLength && body.buffer instanceof ArrayBuffer;
     const bytes = owns ? new Uint8Array(body.buffer) : new Uint8Array(body);
-    const full: DocumentTask = { ...task, body: bytes, dataDir: this.dataDir } as DocumentTask;
+    const full: DocumentTask = { ...task, body: bytes, dataDir: this.dataDir, databaseUrl: this.databaseUrl } as DocumentTask;
     const result = (await this.getPool().run(full, { transferList: [bytes.buffer as ArrayBuffer] })) as DocumentTaskResult;
     this.lastWorkerMs = result.workerMs;
     if ('storageError' in result) {

@@ -1,12 +1,15 @@
 /**
  * The validation pool's task (a piscina worker thread): one save, named version or new pattern with a large document,
  * from the body's bytes to the answer's bytes. It parses and checks the body, stores the revision
- * through its own connection to the database (WAL: the request thread keeps reading meanwhile; writes
- * take turns under SQLite's lock) and writes the answer, so the request thread only sends it.
+ * through its own connection to the database (SQLite in WAL mode: the request thread keeps reading
+ * meanwhile and writes take turns under SQLite's lock; PostgreSQL: a small pool of its own) and
+ * writes the answer, so the request thread only sends it.
  */
 import { createHash } from 'node:crypto';
 import type { Access } from '../services/access';
-import { openDatabase, type DatabaseHandle } from '../db/database';
+import { pgData, sqliteData, type Data } from '../db/data';
+import { openDatabase } from '../db/database';
+import { openPostgres } from '../db/postgres';
 import { HttpError } from '../http/errors';
 import { createPattern, ownerName, patternJson, patternWithRevisionText, saveRevision } from '../services/revisions';
 import { checkDocumentBody, checkVersionBody } from './document-body';
@@ -17,6 +20,8 @@ export type DocumentTask = {
   /** The body's bytes as received (UTF-8 JSON). */
   body: Uint8Array;
   dataDir: string;
+  /** The PostgreSQL database the server uses, when it uses one (else SQLite in `dataDir`). */
+  databaseUrl?: string;
   userId: string;
   /** The caller's display name (the new revision's author). */
   displayName: string;
@@ -27,18 +32,26 @@ export type DocumentTaskResult =
   | { status: number; answer: Uint8Array; etag: string; workerMs: number }
   | { storageError: { code: string; message: string }; workerMs: number };
 
-/** This thread's own connection, opened on its first task (a pool serves one server, so one data folder). */
-let database: { dataDir: string; handle: DatabaseHandle } | undefined;
+/** This thread's own connection, opened on its first task (a pool serves one server, so one database). */
+let database: { where: string; data: Promise<Data>; close: () => Promise<void> } | undefined;
 
-function db(dataDir: string) {
-  if (database?.dataDir !== dataDir) {
-    database?.handle.close();
-    database = { dataDir, handle: openDatabase(dataDir) };
+/** The database of `task`, opened once per thread: migrated already by the server, so not again here. */
+async function dataOf(task: Pick<DocumentTask, 'dataDir' | 'databaseUrl'>): Promise<Data> {
+  const where = task.databaseUrl ?? task.dataDir;
+  if (database?.where !== where) {
+    await database?.close().catch(() => undefined);
+    if (task.databaseUrl) {
+      const opening = openPostgres(task.databaseUrl, { max: 2, migrate: false });
+      database = { where, data: opening.then(pgData), close: async () => (await opening).close() };
+    } else {
+      const handle = openDatabase(task.dataDir);
+      database = { where, data: Promise.resolve(sqliteData(handle)), close: async () => handle.close() };
+    }
   }
-  return database.handle.db;
+  return database.data;
 }
 
-export default function documentTask(task: DocumentTask): DocumentTaskResult {
+export default async function documentTask(task: DocumentTask): Promise<DocumentTaskResult> {
   const t0 = performance.now();
   const done = (status: number, text: string) => {
     // Copied back (a memcpy when the request thread receives it): piscina moves only a whole result.
@@ -48,23 +61,23 @@ export default function documentTask(task: DocumentTask): DocumentTaskResult {
   try {
     if (task.kind === 'save') {
       const { fields, document } = checkDocumentBody('save', task.body);
-      const handle = db(task.dataDir);
-      const saved = handle.transaction(
-        (tx) => saveRevision(tx, task.patternId, fields.baseRevision, document, task.userId, { editSession: fields.editSession }),
-        { behavior: 'immediate' },
+      const d = await dataOf(task);
+      const saved = await d.transaction((tx) =>
+        saveRevision(tx, task.patternId, fields.baseRevision, document, task.userId, { editSession: fields.editSession }),
       );
-      const pattern = patternJson(saved.pattern, ownerName(handle, saved.pattern.ownerId), task.access);
+      const pattern = patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), task.access);
       return done(200, patternWithRevisionText(pattern, saved.revision, task.displayName));
     }
     if (task.kind === 'version') {
       const body = checkVersionBody(task.body);
-      const handle = db(task.dataDir);
-      const saved = handle.transaction((tx) => saveVersion(tx, task.patternId, body, task.userId), { behavior: 'immediate' });
-      const pattern = patternJson(saved.pattern, ownerName(handle, saved.pattern.ownerId), task.access);
+      const d = await dataOf(task);
+      const saved = await d.transaction((tx) => saveVersion(tx, task.patternId, body, task.userId));
+      const pattern = patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), task.access);
       return done(201, patternWithRevisionText(pattern, saved.revision, task.displayName));
     }
     const { document } = checkDocumentBody('create', task.body);
-    const made = db(task.dataDir).transaction((tx) => createPattern(tx, task.userId, document), { behavior: 'immediate' });
+    const d = await dataOf(task);
+    const made = await d.transaction((tx) => createPattern(tx, task.userId, document));
     return done(201, patternWithRevisionText(patternJson(made.pattern, task.displayName, 'owner'), made.revision, task.displayName));
   } catch (err) {
     // The error middleware's answer, written here: `{ error, details }` (server/http/errors.ts).
