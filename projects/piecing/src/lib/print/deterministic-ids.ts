@@ -8,14 +8,19 @@
  * cross-mixed at the end). Not cryptographic: it only has to be stable and spread well.
  */
 export function stableHash128(text: string): string {
-  const lanes = [0x811c9dc5, 0x01000193 ^ 0x9e3779b9, 0x85ebca6b, 0xc2b2ae35];
+  // The four lanes in locals (lane l takes code + l), for speed on a whole pattern's JSON.
+  let h0 = 0x811c9dc5;
+  let h1 = (0x01000193 ^ 0x9e3779b9) >>> 0;
+  let h2 = 0x85ebca6b;
+  let h3 = 0xc2b2ae35;
   for (let i = 0; i < text.length; i++) {
     const code = text.charCodeAt(i);
-    for (let l = 0; l < 4; l++) {
-      lanes[l] ^= code + l;
-      lanes[l] = Math.imul(lanes[l], 0x01000193) >>> 0;
-    }
+    h0 = Math.imul(h0 ^ code, 0x01000193) >>> 0;
+    h1 = Math.imul(h1 ^ (code + 1), 0x01000193) >>> 0;
+    h2 = Math.imul(h2 ^ (code + 2), 0x01000193) >>> 0;
+    h3 = Math.imul(h3 ^ (code + 3), 0x01000193) >>> 0;
   }
+  const lanes = [h0, h1, h2, h3];
   for (let l = 0; l < 4; l++) {
     let h = lanes[l] ^ lanes[(l + 1) % 4];
     h = Math.imul(h ^ (h >>> 16), 0x85ebca6b) >>> 0;
