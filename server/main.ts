@@ -4,10 +4,10 @@ import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
 import type { DatabaseHandle, Db } from './db/database';
 import { openData, sqliteOnly } from './db/open-data';
-import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
+import { DEMO_ACCOUNTS, seedDemoIfEmpty } from './db/seed';
 import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
-import { PrintSetService } from './services/print-sets';
+import { PrintSetService, printJobOptionsFromEnv } from './services/print-sets';
 import { DocumentChecks } from './validation/document-checks';
 import { startHousekeeping, sweepStoredFilesAtStart } from './services/housekeeping';
 
@@ -24,14 +24,14 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
   const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
-  if ((config.seedDemo || argv.includes('--seed-demo')) && isEmpty(db)) {
-    const report = await seedDemo(db, config.bcryptRounds);
+  const report = config.seedDemo || argv.includes('--seed-demo') ? await seedDemoIfEmpty(opened.data, config.bcryptRounds) : undefined;
+  if (report) {
     log(`Seeded demo data: ${report.accountsCreated.length} accounts, patterns: ${report.patternsCreated.join(', ') || 'none'}`);
     for (const a of DEMO_ACCOUNTS) log(`  demo sign-in: ${a.email} / ${a.password} (${a.role})`);
   }
   const swept = await sweepStoredFilesAtStart(opened.data, opened.files);
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
-  const printSets = new PrintSetService(db, config, log, opened.files);
+  const printSets = new PrintSetService(opened.data, config, log, opened.files, { ...printJobOptionsFromEnv(env), pgPool: opened.postgres?.pool });
   const mailOutbox = new MailOutbox(opened.data, mailer, log);
   const ctx: AppContext = {
     config,
@@ -46,7 +46,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     printSets,
     documentChecks: new DocumentChecks(config.dataDir),
   };
-  printSets.resumeUnfinished();
+  await printSets.resumeUnfinished();
   mailOutbox.start();
   const stopHousekeeping = startHousekeeping(opened.data, log);
   const app = createApp(ctx);

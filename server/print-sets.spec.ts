@@ -199,9 +199,9 @@ describe('print sets', () => {
          VALUES (?, ?, ?, 1, ?, ?, 'rendering', 0.4, ?)`,
       )
       .run(setId, patternId, rev.id, owner.user!.id, JSON.stringify({ paper: 'letter', createdAt: '2026-01-01T00:00:00.000Z' }), Date.now());
-    const fresh = new PrintSetService(t.ctx.db, t.ctx.config, () => undefined);
+    const fresh = new PrintSetService(t.ctx.data, t.ctx.config, () => undefined, t.ctx.files, t.ctx.printSets.jobOptions);
     try {
-      fresh.resumeUnfinished();
+      await fresh.resumeUnfinished();
       await new Promise((r) => setTimeout(r, 50));
       await fresh.whenIdle();
     } finally {

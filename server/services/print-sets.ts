@@ -1,11 +1,14 @@
 import fs from 'node:fs';
+import { createHash } from 'node:crypto';
 import { EventEmitter } from 'node:events';
 import { MessageChannel } from 'node:worker_threads';
-import { eq, inArray } from 'drizzle-orm';
+import { and, count, eq, inArray, ne, notInArray } from 'drizzle-orm';
+import type pg from 'pg';
+import PgBoss from 'pg-boss';
 import { Piscina } from 'piscina';
 import type { Config } from '../config';
-import type { Db } from '../db/database';
-import { printSets, revisions, type PrintSet } from '../db/schema';
+import type { Data } from '../db/data';
+import type { PrintSet } from '../db/schema';
 import { RENDER_CANCELLED, type RenderProgress, type RenderResult, type RenderTask } from '../print/print-messages';
 import { MAX_PRINT_SHEETS } from '../print/print-budget';
 import type { FileStore, StoredFile } from '../storage/file-store';
@@ -23,6 +26,65 @@ const CANCEL_GRACE_MS = 2000;
 const END_RETRY_FIRST_MS = 250;
 const END_RETRY_MAX_MS = 5000;
 
+/** The pg-boss queue of print jobs (PostgreSQL). */
+export const PRINT_QUEUE = 'print-set';
+
+/** A print job in the pg-boss queue: the set to render. */
+interface PrintJob {
+  setId: string;
+}
+
+/**
+ * How print jobs are shared between instances on PostgreSQL (docs/postgresql.md "Print jobs").
+ * Unused with SQLite, whose sets go through this process's own queue.
+ */
+export interface PrintJobOptions {
+  /** PostgreSQL: the pool the job queue (pg-boss, in its own `pgboss` schema) runs on. */
+  pgPool?: pg.Pool;
+  /**
+   * A job still active this long after an instance took it is given to another (its instance is
+   * taken for dead). Default: the render timeout plus a minute, so a live render is never taken over.
+   */
+  expireSeconds?: number;
+  /** How often an instance looks for expired jobs (pg-boss maintenance). Default 15 s. */
+  expiryCheckSeconds?: number;
+  /** Wait before an expired or handed-over job may be taken again. Default 1 s. */
+  retryDelaySeconds?: number;
+  /** Times a job is given to another instance before it is left failed. Default 5. */
+  retryLimit?: number;
+  /** How often an instance looks for new jobs and for deleted sets it renders. Default 500 ms. */
+  pollMs?: number;
+}
+
+/**
+ * The job settings from the environment (tests and the two-instance test shorten them):
+ * PRINT_JOB_EXPIRE_SECONDS, PRINT_JOB_EXPIRY_CHECK_SECONDS, PRINT_JOB_RETRY_DELAY_SECONDS,
+ * PRINT_JOB_RETRY_LIMIT, PRINT_JOB_POLL_MS.
+ */
+export function printJobOptionsFromEnv(env: Record<string, string | undefined>): PrintJobOptions {
+  const num = (name: string, min: number): number | undefined => {
+    const raw = env[name];
+    if (raw === undefined || raw === '') return undefined;
+    const n = Number(raw);
+    if (!Number.isInteger(n) || n < min) throw new Error(`${name} must be a whole number of at least ${min}, not ${JSON.stringify(raw)}`);
+    return n;
+  };
+  const options: PrintJobOptions = {
+    expireSeconds: num('PRINT_JOB_EXPIRE_SECONDS', 1),
+    expiryCheckSeconds: num('PRINT_JOB_EXPIRY_CHECK_SECONDS', 1),
+    retryDelaySeconds: num('PRINT_JOB_RETRY_DELAY_SECONDS', 0),
+    retryLimit: num('PRINT_JOB_RETRY_LIMIT', 0),
+    pollMs: num('PRINT_JOB_POLL_MS', 50),
+  };
+  return Object.fromEntries(Object.entries(options).filter(([, v]) => v !== undefined)) as PrintJobOptions;
+}
+
+/** The pg-boss job id of a set (a UUID made from the set id), so any instance can cancel it. */
+export function printJobId(setId: string): string {
+  const h = createHash('sha256').update(`print-set:${setId}`).digest('hex');
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-4${h.slice(13, 16)}-8${h.slice(17, 20)}-${h.slice(20, 32)}`;
+}
+
 /** A set rendering in the pool. */
 interface Running {
   userId: string;
@@ -33,6 +95,13 @@ interface Running {
   timer?: NodeJS.Timeout;
   /** Why the render was aborted, when it was. */
   abortReason?: string;
+  /** PostgreSQL: the job taken for this set. */
+  jobId?: string;
+  /** PostgreSQL: the instance is stopping; the job is left to another instance, the row untouched. */
+  handover?: boolean;
+  /** Progress not yet written, and the write in flight (progress is written in order, one at a time). */
+  nextProgress?: number;
+  writing?: Promise<void>;
 }
 
 /** An end state ("done" or "failed") whose write failed (a full disk): written again until it is stored. */
@@ -47,19 +116,27 @@ interface UnstoredEnd {
 /**
  * Renders print sets in a pool of worker threads (piscina) and stores the PDFs.
  *
- * Fair between users: each user's sets wait in their own queue, and free threads go to the users in
- * turn (round robin), so one user's sets queue behind each other, never in front of others'. A user who
- * already has a set rendering does not take the last free thread, which stays for whoever comes next
- * (with a pool of one thread, sets simply take turns by user). A deleted set stops: a queued one leaves
- * its queue, a rendering one stops at its next sheet, or within {@link CANCEL_GRACE_MS} its worker is
- * stopped outright.
+ * SQLite: fair between users: each user's sets wait in their own queue, and free threads go to the
+ * users in turn (round robin), so one user's sets queue behind each other, never in front of others'.
+ * A user who already has a set rendering does not take the last free thread, which stays for whoever
+ * comes next (with a pool of one thread, sets simply take turns by user). A deleted set stops: a
+ * queued one leaves its queue, a rendering one stops at its next sheet, or within
+ * {@link CANCEL_GRACE_MS} its worker is stopped outright.
+ *
+ * PostgreSQL (docs/postgresql.md "Print jobs"): the sets wait in a pg-boss queue in the same database
+ * and any instance with a free thread takes the next one. A user's set is queued at a lower priority
+ * the more of their sets already wait, so one user's sets queue behind others'; the last free thread
+ * is taken only for a user not rendering here. Progress and the end are written to the set's row,
+ * where every instance reads them. A job whose instance dies stays active until it expires, and is
+ * then taken by another instance, which renders the set again from the start. A deleted set's job is
+ * cancelled, and the instance rendering it sees its row gone and stops the render.
  */
 export class PrintSetService {
-  /** Emits `update` with the print-set row whenever its status or progress changes. */
+  /** Emits `update` with the print-set row whenever its status or progress changes (this instance's renders). */
   readonly events = new EventEmitter();
-  /** Queued set ids per user, oldest first. */
+  /** Queued set ids per user, oldest first (SQLite). */
   private readonly waiting = new Map<string, string[]>();
-  /** Users with queued sets, in the order their turn comes. */
+  /** Users with queued sets, in the order their turn comes (SQLite). */
   private readonly turns: string[] = [];
   private readonly running = new Map<string, Running>();
   private pool: Piscina | undefined;
@@ -72,15 +149,41 @@ export class PrintSetService {
 
   /** Where the PDFs are stored. */
   private readonly files: FileStore;
+  /** PostgreSQL: the job queue, started on first use. */
+  private boss: Promise<PgBoss> | undefined;
+  private pollTimer: NodeJS.Timeout | undefined;
+  private fetching = false;
+  private fetchAgain = false;
+  private readonly jobs: Required<Omit<PrintJobOptions, 'pgPool'>>;
 
   constructor(
-    private readonly db: Db,
+    private readonly data: Data,
     private readonly config: Config,
     private readonly log: (message: string, err?: unknown) => void,
     files?: FileStore,
+    /** How jobs are shared on PostgreSQL (a second service in tests takes the same). */
+    readonly jobOptions: PrintJobOptions = {},
   ) {
     this.events.setMaxListeners(1000);
     this.files = fileStoreOf({ config, files });
+    this.jobs = {
+      expireSeconds: jobOptions.expireSeconds ?? config.printTimeoutSeconds + 60,
+      expiryCheckSeconds: jobOptions.expiryCheckSeconds ?? 15,
+      retryDelaySeconds: jobOptions.retryDelaySeconds ?? 1,
+      retryLimit: jobOptions.retryLimit ?? 5,
+      pollMs: jobOptions.pollMs ?? 500,
+    };
+    if (data.dialect === 'postgres') {
+      if (!jobOptions.pgPool) throw new Error('PrintSetService on PostgreSQL needs the pool (jobOptions.pgPool) for its job queue');
+      this.boss = this.startBoss(jobOptions.pgPool);
+      this.boss.catch((err: unknown) => this.log('the print job queue could not be started', err));
+      this.pollTimer = setInterval(() => this.poll(), this.jobs.pollMs);
+      this.pollTimer.unref();
+    }
+  }
+
+  private get onPostgres(): boolean {
+    return this.data.dialect === 'postgres';
   }
 
   /** Threads the pool renders on at once. */
@@ -88,27 +191,74 @@ export class PrintSetService {
     return this.config.printWorkers;
   }
 
-  /** Sets rendering now (for tests and the health figures). */
+  /** Sets rendering now in this instance (for tests and the health figures). */
   get activeCount(): number {
     return this.running.size;
   }
 
+  /** How often the events stream reads a set's row on PostgreSQL (progress made by any instance). */
+  get eventsPollMs(): number {
+    return this.jobs.pollMs;
+  }
+
+  private async startBoss(pool: pg.Pool): Promise<PgBoss> {
+    const boss = new PgBoss({
+      db: { executeSql: (text: string, values: unknown[]) => pool.query(text, values) },
+      schedule: false,
+      supervise: true,
+      maintenanceIntervalSeconds: this.jobs.expiryCheckSeconds,
+    });
+    boss.on('error', (err: unknown) => this.log('print job queue error', err));
+    await boss.start();
+    await boss.createQueue(PRINT_QUEUE, {
+      name: PRINT_QUEUE,
+      expireInSeconds: this.jobs.expireSeconds,
+      retryLimit: this.jobs.retryLimit,
+      retryDelay: this.jobs.retryDelaySeconds,
+    });
+    return boss;
+  }
+
   /** Picks up jobs left queued or half-rendered by a previous process, oldest first. */
-  resumeUnfinished(): void {
-    const rows = this.db
+  async resumeUnfinished(): Promise<void> {
+    const { printSets } = this.data.t;
+    const rows = await this.data.db
       .select({ id: printSets.id })
       .from(printSets)
       .where(inArray(printSets.status, ['queued', 'rendering']))
-      .orderBy(printSets.createdAt)
-      .all();
-    for (const r of rows) this.enqueue(r.id);
+      .orderBy(printSets.createdAt);
+    if (!this.onPostgres) {
+      for (const r of rows) await this.enqueue(r.id);
+      return;
+    }
+    // A set whose job is still waiting or active is in hand; one whose job ended (or never was sent:
+    // its instance died between the row and the job) is queued again.
+    const boss = await this.boss!;
+    for (const r of rows) {
+      const job = await boss.getJobById(PRINT_QUEUE, printJobId(r.id));
+      if (job && (job.state === 'created' || job.state === 'retry' || job.state === 'active')) continue;
+      if (job) await boss.deleteJob(PRINT_QUEUE, job.id);
+      await this.enqueue(r.id);
+    }
   }
 
   /** Queues a print set (its row must exist with status `queued` or `rendering`) in its maker's queue. */
-  enqueue(setId: string): void {
+  async enqueue(setId: string): Promise<void> {
     if (this.closed) return;
-    const row = this.db.select({ createdBy: printSets.createdBy }).from(printSets).where(eq(printSets.id, setId)).get();
+    const { printSets } = this.data.t;
+    const [row] = await this.data.db.select({ createdBy: printSets.createdBy }).from(printSets).where(eq(printSets.id, setId));
     if (!row) return;
+    if (this.onPostgres) {
+      // Fairness across instances: the more of their sets already wait, the later a user's next one comes.
+      const [ahead] = await this.data.db
+        .select({ n: count() })
+        .from(printSets)
+        .where(and(eq(printSets.createdBy, row.createdBy), inArray(printSets.status, ['queued', 'rendering']), ne(printSets.id, setId)));
+      const boss = await this.boss!;
+      await boss.send(PRINT_QUEUE, { setId } satisfies PrintJob, { id: printJobId(setId), priority: -(ahead?.n ?? 0) });
+      void this.pumpPg();
+      return;
+    }
     const queue = this.waiting.get(row.createdBy) ?? [];
     if (queue.length === 0) {
       this.waiting.set(row.createdBy, queue);
@@ -121,8 +271,12 @@ export class PrintSetService {
   /**
    * Stops a set that is being deleted: out of its queue if it waits; if it renders, the render stops at
    * its next sheet and, failing that, its worker is stopped after a short grace. Nothing is stored.
+   * On PostgreSQL its job is cancelled too; an instance rendering it sees its row gone and stops.
    */
   cancel(setId: string): void {
+    if (this.onPostgres && this.boss) {
+      this.boss.then((boss) => boss.cancel(PRINT_QUEUE, printJobId(setId))).catch((err: unknown) => this.log('print job could not be cancelled', err));
+    }
     for (const [userId, queue] of this.waiting) {
       const at = queue.indexOf(setId);
       if (at >= 0) {
@@ -133,33 +287,83 @@ export class PrintSetService {
       }
     }
     const run = this.running.get(setId);
-    if (!run) return;
+    if (!run || Atomics.load(run.cancel, 0) !== 0) return;
     Atomics.store(run.cancel, 0, 1);
     clearTimeout(run.timer);
     run.timer = setTimeout(() => this.abort(setId, RENDER_CANCELLED), CANCEL_GRACE_MS);
     run.timer.unref();
   }
 
-  /** Resolves when nothing is queued or rendering (for tests and shutdown). */
-  whenIdle(): Promise<void> {
-    if (this.isIdle()) return Promise.resolve();
-    return new Promise((resolve) => this.idle.add(resolve));
+  /**
+   * Resolves when nothing is queued or rendering (for tests and shutdown); on PostgreSQL, when this
+   * instance renders nothing and no job waits or runs in the queue.
+   */
+  async whenIdle(): Promise<void> {
+    if (!this.onPostgres) {
+      if (this.isIdle()) return;
+      return new Promise((resolve) => this.idle.add(resolve));
+    }
+    const boss = await this.boss!;
+    for (;;) {
+      if (this.isIdle() && !this.fetching && (await boss.getQueueSize(PRINT_QUEUE, { before: 'completed' })) === 0) return;
+      await new Promise((r) => setTimeout(r, 50));
+    }
   }
 
+  /**
+   * Stops rendering. With SQLite, sets still rendering are stopped and marked failed. On PostgreSQL
+   * they are handed over: their jobs go back to the queue (taken again after the retry delay by any
+   * instance) and their rows are left as they are; the job queue is stopped.
+   */
   async close(): Promise<void> {
     this.closed = true;
+    clearInterval(this.pollTimer);
     this.waiting.clear();
     this.turns.length = 0;
-    for (const id of [...this.running.keys()]) this.abort(id, 'The server is shutting down');
+    const handedOver: string[] = [];
+    for (const [id, run] of this.running) {
+      if (this.onPostgres) {
+        run.handover = true;
+        if (run.jobId) handedOver.push(run.jobId);
+      }
+      this.abort(id, 'The server is shutting down');
+    }
     await Promise.allSettled([...this.pending]);
     await this.pool?.destroy();
     this.pool = undefined;
     // One last try at ends not yet stored; a set still left "rendering" is rendered again at start-up.
     for (const [setId, entry] of this.unstoredEnds) {
       clearTimeout(entry.timer);
-      this.tryUpdate(setId, entry.values);
+      await this.tryUpdate(setId, entry.values);
     }
     this.unstoredEnds.clear();
+    if (this.boss) {
+      const boss = await this.boss.catch(() => undefined);
+      if (boss) {
+        for (const jobId of handedOver) {
+          await boss.fail(PRINT_QUEUE, jobId, { message: 'The server rendering it stopped' }).catch((err: unknown) => this.log('print job could not be handed over', err));
+        }
+        await boss.stop({ graceful: false, wait: true, close: false });
+      }
+    }
+  }
+
+  /**
+   * For tests: stops as a killed process would (SIGKILL), on PostgreSQL. Renders end without writing
+   * anything, jobs stay active in the queue until they expire and another instance takes them.
+   */
+  async stopAsIfKilled(): Promise<void> {
+    this.closed = true;
+    clearInterval(this.pollTimer);
+    for (const [id, run] of this.running) {
+      run.handover = true;
+      this.abort(id, 'killed');
+    }
+    const boss = await this.boss?.catch(() => undefined);
+    await boss?.stop({ graceful: false, wait: true, close: false });
+    await Promise.allSettled([...this.pending]);
+    await this.pool?.destroy();
+    this.pool = undefined;
   }
 
   private isIdle(): boolean {
@@ -193,9 +397,20 @@ export class PrintSetService {
     return this.pool;
   }
 
-  /** Hands free threads to the users in turn. */
+  private resolveIdle(): void {
+    if (this.isIdle()) {
+      for (const resolve of this.idle) resolve();
+      this.idle.clear();
+    }
+  }
+
+  /** Hands free threads to the users in turn (SQLite). */
   private pump(): void {
     if (this.closed) return;
+    if (this.onPostgres) {
+      void this.pumpPg();
+      return;
+    }
     while (this.running.size < this.threads) {
       const free = this.threads - this.running.size;
       const at = this.turns.findIndex((u) => free > 1 || ![...this.running.values()].some((r) => r.userId === u));
@@ -208,30 +423,116 @@ export class PrintSetService {
       else this.waiting.delete(userId);
       this.start(setId, userId);
     }
-    if (this.isIdle()) {
-      for (const resolve of this.idle) resolve();
-      this.idle.clear();
+    this.resolveIdle();
+  }
+
+  /** PostgreSQL: takes jobs from the queue while threads are free (one fetch loop at a time). */
+  private async pumpPg(): Promise<void> {
+    if (this.fetching) {
+      this.fetchAgain = true;
+      return;
+    }
+    this.fetching = true;
+    try {
+      const boss = await this.boss!;
+      do {
+        this.fetchAgain = false;
+        while (!this.closed && this.running.size < this.threads) {
+          const busy = [...new Set([...this.running.values()].map((r) => r.userId))];
+          // The last free thread stays for a user not rendering here.
+          if (this.threads - this.running.size === 1 && busy.length > 0 && !(await this.othersWaiting(busy))) break;
+          const [job] = await boss.fetch<PrintJob>(PRINT_QUEUE, { batchSize: 1 });
+          if (!job || this.closed) break;
+          await this.take(boss, job);
+        }
+      } while (this.fetchAgain && !this.closed);
+    } catch (err) {
+      this.log('print jobs could not be taken from the queue', err);
+    } finally {
+      this.fetching = false;
+      this.resolveIdle();
     }
   }
 
-  private start(setId: string, userId: string): void {
-    const row = this.db.select().from(printSets).where(eq(printSets.id, setId)).get();
-    if (!row || (row.status !== 'queued' && row.status !== 'rendering')) return;
-    const revision = this.db.select().from(revisions).where(eq(revisions.id, row.revisionId)).get();
-    if (!revision) return this.fail(setId, 'The revision is gone');
-    const run: Running = { userId, cancel: new Int32Array(new SharedArrayBuffer(4)), abort: new AbortController() };
+  private async othersWaiting(busyUsers: string[]): Promise<boolean> {
+    const { printSets } = this.data.t;
+    const rows = await this.data.db
+      .select({ id: printSets.id })
+      .from(printSets)
+      .where(and(eq(printSets.status, 'queued'), notInArray(printSets.createdBy, busyUsers)))
+      .limit(1);
+    return rows.length > 0;
+  }
+
+  /** PostgreSQL: starts the render of a job's set, or completes the job when there is nothing to render. */
+  private async take(boss: PgBoss, job: PgBoss.Job<PrintJob>): Promise<void> {
+    const setId = job.data.setId;
+    const { printSets } = this.data.t;
+    const [row] = await this.data.db.select({ createdBy: printSets.createdBy, status: printSets.status }).from(printSets).where(eq(printSets.id, setId));
+    // Gone (deleted), already finished, or already rendering here (a job taken over from this very instance).
+    if (!row || (row.status !== 'queued' && row.status !== 'rendering') || this.running.has(setId)) {
+      await boss.complete(PRINT_QUEUE, job.id);
+      return;
+    }
+    this.start(setId, row.createdBy, job.id);
+  }
+
+  /** PostgreSQL, every poll: takes new jobs and stops renders of sets deleted on another instance. */
+  private poll(): void {
+    if (this.closed) return;
+    void this.pumpPg();
+    const ids = [...this.running.entries()].filter(([, r]) => Atomics.load(r.cancel, 0) === 0).map(([id]) => id);
+    if (ids.length === 0) return;
+    const { printSets } = this.data.t;
+    this.data.db
+      .select({ id: printSets.id })
+      .from(printSets)
+      .where(inArray(printSets.id, ids))
+      .then((rows) => {
+        const present = new Set(rows.map((r) => r.id));
+        for (const id of ids) if (!present.has(id)) this.cancel(id);
+      })
+      .catch((err: unknown) => this.log('print sets could not be checked', err));
+  }
+
+  private start(setId: string, userId: string, jobId?: string): void {
+    const run: Running = { userId, cancel: new Int32Array(new SharedArrayBuffer(4)), abort: new AbortController(), jobId };
     this.running.set(setId, run);
-    this.update(setId, { status: 'rendering', progress: 0 });
+    const channel = new MessageChannel();
+    const done = this.render(setId, run, channel)
+      .catch((err: unknown) => this.log('print set could not be finished', err))
+      .finally(async () => {
+        clearTimeout(run.timer);
+        channel.port1.close();
+        this.running.delete(setId);
+        this.pending.delete(done);
+        if (jobId && !run.handover && this.boss) {
+          await this.boss.then((boss) => boss.complete(PRINT_QUEUE, jobId)).catch((err: unknown) => this.log('print job could not be completed', err));
+        }
+        this.pump();
+        this.resolveIdle();
+      });
+    this.pending.add(done);
+  }
+
+  private async render(setId: string, run: Running, channel: MessageChannel): Promise<void> {
+    const { printSets, revisions } = this.data.t;
+    const [row] = await this.data.db.select().from(printSets).where(eq(printSets.id, setId));
+    if (!row || (row.status !== 'queued' && row.status !== 'rendering')) return;
+    const [revision] = await this.data.db.select().from(revisions).where(eq(revisions.id, row.revisionId));
+    if (!revision) return this.fail(setId, 'The revision is gone');
+    // A set taken over from a dead instance starts again from nothing.
+    const started = await this.update(setId, { status: 'rendering', progress: 0, error: null }, ['queued', 'rendering']);
+    if (!started) return;
     // A render that never ends (a bug, a hostile document) must not hold a thread: stop its worker.
     run.timer = setTimeout(
       () => this.abort(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`),
       this.config.printTimeoutSeconds * 1000,
     );
     run.timer.unref();
-    const channel = new MessageChannel();
     channel.port1.on('message', (p: RenderProgress) => {
       // Cover and appendix are steps too; keep 1.0 for "stored".
-      if (this.running.get(setId) === run && Atomics.load(run.cancel, 0) === 0) this.update(setId, { progress: Math.min(0.99, p.done / Math.max(1, p.total)) });
+      if (this.running.get(setId) === run && Atomics.load(run.cancel, 0) === 0) this.writeProgress(setId, run, Math.min(0.99, p.done / Math.max(1, p.total)));
     });
     channel.port1.unref();
     const task: RenderTask = {
@@ -243,25 +544,42 @@ export class PrintSetService {
       cancel: run.cancel.buffer as SharedArrayBuffer,
       maxSheets: MAX_PRINT_SHEETS,
     };
-    const done = this.getPool()
-      .run(task, { transferList: [channel.port2], signal: run.abort.signal })
-      .then(
-        (result: RenderResult) => (Atomics.load(run.cancel, 0) !== 0 ? undefined : this.store(setId, result)),
-        (err: unknown) => {
-          if (Atomics.load(run.cancel, 0) !== 0) return; // deleted: nothing to report
-          const reason = run.abortReason ?? (err instanceof Error ? err.message : String(err));
-          this.fail(setId, reason);
-        },
-      )
-      .catch((err: unknown) => this.log('print set could not be finished', err))
-      .finally(() => {
-        clearTimeout(run.timer);
-        channel.port1.close();
-        this.running.delete(setId);
-        this.pending.delete(done);
-        this.pump();
-      });
-    this.pending.add(done);
+    let result: RenderResult;
+    try {
+      result = await this.getPool().run(task, { transferList: [channel.port2], signal: run.abort.signal });
+    } catch (err) {
+      await run.writing;
+      if (Atomics.load(run.cancel, 0) !== 0 || run.handover) return; // deleted, or left to another instance
+      const reason = run.abortReason ?? (err instanceof Error ? err.message : String(err));
+      return this.fail(setId, reason);
+    }
+    await run.writing;
+    if (Atomics.load(run.cancel, 0) !== 0 || run.handover) return;
+    await this.store(setId, result);
+  }
+
+  /** Writes a render's progress in order, one write at a time, the latest value each time. */
+  private writeProgress(setId: string, run: Running, progress: number): void {
+    run.nextProgress = progress;
+    if (run.writing) return;
+    run.writing = (async () => {
+      while (run.nextProgress !== undefined) {
+        const value = run.nextProgress;
+        run.nextProgress = undefined;
+        const row = await this.update(setId, { progress: value }, ['rendering']);
+        // The set was deleted (perhaps on another instance): stop its render.
+        if (!row && !(await this.exists(setId))) this.cancel(setId);
+      }
+    })().finally(() => (run.writing = undefined));
+  }
+
+  private async exists(setId: string): Promise<boolean> {
+    const { printSets } = this.data.t;
+    try {
+      return (await this.data.db.select({ id: printSets.id }).from(printSets).where(eq(printSets.id, setId))).length > 0;
+    } catch {
+      return true;
+    }
   }
 
   /** Stops a running set's worker at once (piscina terminates the thread). */
@@ -273,19 +591,20 @@ export class PrintSetService {
   }
 
   private async store(setId: string, m: RenderResult): Promise<void> {
-    const row = this.db.select().from(printSets).where(eq(printSets.id, setId)).get();
+    const { printSets } = this.data.t;
+    const [row] = await this.data.db.select().from(printSets).where(eq(printSets.id, setId));
     if (!row) return; // deleted while rendering
     const storagePath = `print-sets/${row.createdBy}/${setId}.pdf`;
     let stored: StoredFile;
     try {
+      // All or nothing (FileStore): a render stopped half-way leaves no file to serve.
       stored = await this.files.put(storagePath, new Uint8Array(m.pdf));
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
       this.log('print set could not be stored', err);
-      this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
-      return;
+      return this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
     }
-    this.end(
+    await this.end(
       setId,
       {
         status: 'done',
@@ -302,8 +621,8 @@ export class PrintSetService {
     );
   }
 
-  private fail(setId: string, message: string): void {
-    this.end(setId, { status: 'failed', error: message.slice(0, 500), finishedAt: new Date() });
+  private fail(setId: string, message: string): Promise<void> {
+    return this.end(setId, { status: 'failed', error: message.slice(0, 500), finishedAt: new Date() });
   }
 
   /**
@@ -311,10 +630,10 @@ export class PrintSetService {
    * used the last room), the end is kept and written again with growing waits until it is stored, so a
    * set never stays "rendering" once there is room again. A set deleted meanwhile has its files removed.
    */
-  private end(setId: string, values: Partial<PrintSet>, orphanPaths: string[] = []): void {
-    const stored = this.tryUpdate(setId, values);
+  private async end(setId: string, values: Partial<PrintSet>, orphanPaths: string[] = []): Promise<void> {
+    const stored = await this.tryUpdate(setId, values);
     if (stored === 'gone') {
-      if (orphanPaths.length > 0) void this.files.remove(orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
+      if (orphanPaths.length > 0) await this.files.remove(orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
       return;
     }
     if (stored === 'stored') return;
@@ -328,21 +647,24 @@ export class PrintSetService {
   private scheduleEndRetry(setId: string, entry: UnstoredEnd): void {
     entry.timer = setTimeout(() => {
       if (this.unstoredEnds.get(setId) !== entry) return;
-      const stored = this.tryUpdate(setId, entry.values);
-      if (stored === 'failed') {
-        entry.waitMs = Math.min(END_RETRY_MAX_MS, entry.waitMs * 2);
-        this.scheduleEndRetry(setId, entry);
-        return;
-      }
-      this.unstoredEnds.delete(setId);
-      if (stored === 'gone' && entry.orphanPaths?.length) void this.files.remove(entry.orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
+      void this.tryUpdate(setId, entry.values).then((stored) => {
+        if (this.unstoredEnds.get(setId) !== entry) return;
+        if (stored === 'failed') {
+          entry.waitMs = Math.min(END_RETRY_MAX_MS, entry.waitMs * 2);
+          this.scheduleEndRetry(setId, entry);
+          return;
+        }
+        this.unstoredEnds.delete(setId);
+        if (stored === 'gone' && entry.orphanPaths?.length) void this.files.remove(entry.orphanPaths).catch((err: unknown) => this.log('files of a deleted print set could not be removed', err));
+      });
     }, entry.waitMs);
     entry.timer.unref();
   }
 
-  private tryUpdate(setId: string, values: Partial<PrintSet>): 'stored' | 'gone' | 'failed' {
+  private async tryUpdate(setId: string, values: Partial<PrintSet>): Promise<'stored' | 'gone' | 'failed'> {
+    const { printSets } = this.data.t;
     try {
-      const row = this.db.update(printSets).set(values).where(eq(printSets.id, setId)).returning().get();
+      const [row] = await this.data.db.update(printSets).set(values).where(eq(printSets.id, setId)).returning();
       if (!row) return 'gone';
       this.events.emit('update', row);
       return 'stored';
@@ -352,9 +674,15 @@ export class PrintSetService {
     }
   }
 
-  private update(setId: string, values: Partial<PrintSet>): PrintSet | undefined {
+  /** Updates a set's row while its status is one of `statuses`; the row written, if any. */
+  private async update(setId: string, values: Partial<PrintSet>, statuses: PrintSet['status'][]): Promise<PrintSet | undefined> {
+    const { printSets } = this.data.t;
     try {
-      const row = this.db.update(printSets).set(values).where(eq(printSets.id, setId)).returning().get();
+      const [row] = await this.data.db
+        .update(printSets)
+        .set(values)
+        .where(and(eq(printSets.id, setId), inArray(printSets.status, statuses)))
+        .returning();
       if (row) this.events.emit('update', row);
       return row;
     } catch (err) {

@@ -52,7 +52,7 @@ async function servedFromPostgres(t: TestServer): Promise<Served> {
   const pool = new pg.Pool({ connectionString: cluster.url, max: 4 });
   await migratePostgres(pool);
   const store = new PgFileStore(pool, 1024);
-  const printSets = new PrintSetService(t.ctx.db, t.ctx.config, t.ctx.log, store);
+  const printSets = new PrintSetService(t.ctx.data, t.ctx.config, t.ctx.log, store, t.ctx.printSets.jobOptions);
   // The server's context with the PostgreSQL store (the `files` a server with DATABASE_URL is given).
   const ctx = Object.assign({}, t.ctx, { files: store, printSets });
   return {

@@ -16,7 +16,7 @@ import { openData, sqliteOnly } from '../db/open-data';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
 import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
-import { PrintSetService } from '../services/print-sets';
+import { PrintSetService, printJobOptionsFromEnv } from '../services/print-sets';
 import { DocumentChecks } from '../validation/document-checks';
 import { sampleBlock } from '../../tests/fixtures/documents';
 import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
@@ -49,7 +49,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   const mailer = createSmtpMailer(config);
   const errors: unknown[] = [];
   const log = (_m: string, err?: unknown) => errors.push(err);
-  const printSets = new PrintSetService(db, config, log, opened.files);
+  const printSets = new PrintSetService(opened.data, config, log, opened.files, { ...printJobOptionsFromEnv(env), pgPool: opened.postgres?.pool });
   // Retries come quickly in tests; the first attempt always goes at once.
   const mailOutbox = new MailOutbox(opened.data, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
   mailOutbox.start();
