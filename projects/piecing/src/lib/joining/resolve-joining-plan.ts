@@ -220,11 +220,21 @@ function nearestGap(ctx: JoiningContext, a: readonly number[], b: readonly numbe
     const q = ctx.instances[j].bounds;
     return Math.hypot(Math.max(0, p.minX - q.maxX, q.minX - p.maxX), Math.max(0, p.minY - q.maxY, q.minY - p.maxY));
   };
+  // The GAP_PAIRS nearest pairs by box gap, in the order a stable sort of all pairs would give (ties in
+  // the order met): kept as they come, without listing every pair (two large units have thousands).
   const pairs: Array<[number, number, number]> = [];
-  for (const i of a) for (const j of b) pairs.push([boxGap(i, j), i, j]);
-  pairs.sort((x, y) => x[0] - y[0]);
+  for (const i of a) {
+    for (const j of b) {
+      const gap = boxGap(i, j);
+      if (pairs.length === GAP_PAIRS && gap >= pairs[GAP_PAIRS - 1][0]) continue;
+      let k = pairs.length;
+      while (k > 0 && pairs[k - 1][0] > gap) k--;
+      pairs.splice(k, 0, [gap, i, j]);
+      if (pairs.length > GAP_PAIRS) pairs.pop();
+    }
+  }
   let best = { distance: Infinity, point: { x: 0, y: 0 } };
-  for (const [, i, j] of pairs.slice(0, GAP_PAIRS)) {
+  for (const [, i, j] of pairs) {
     for (const p of ctx.instances[i].ring) {
       for (const q of ctx.instances[j].ring) {
         const d = Math.hypot(p.x - q.x, p.y - q.y);
