@@ -1,3 +1,4 @@
+import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
@@ -13,8 +14,11 @@ afterAll(async () => {
   await t.close();
 });
 
-const revisionCount = (id: string) =>
-  (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM revisions WHERE pattern_id = ?').get(id) as { n: number }).n;
+const revisionCount = async (id: string) => {
+  const { revisions } = t.ctx.data.t;
+  return (await t.ctx.data.db.select({ n: count() }).from(revisions).where(eq(revisions.patternId, id)))[0]!.n;
+};
+const patternCount = async () => (await t.ctx.data.db.select({ n: count() }).from(t.ctx.data.t.patterns))[0]!.n;
 
 describe('patterns', () => {
   it('creates a pattern with revision 1 by its author and reads it back', async () => {
@@ -33,13 +37,13 @@ describe('patterns', () => {
   });
 
   it('rejects a bad document with the path of the bad field and stores nothing', async () => {
-    const before = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM patterns').get() as { n: number }).n;
+    const before = await patternCount();
     const bad = { ...sampleDocument(), sections: [{ ...sampleDocument().sections[0], label: 'a1' }] };
     const res = await designer.post('/api/patterns', { document: bad });
     expect(res.status).toBe(400);
     expect(res.body.error).toBe('The pattern document is not valid');
     expect(res.body.details).toContainEqual({ path: 'document.sections.0.label', message: 'must be one to three capital letters' });
-    const after = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM patterns').get() as { n: number }).n;
+    const after = await patternCount();
     expect(after).toBe(before);
   });
 
@@ -53,7 +57,7 @@ describe('patterns', () => {
     const stale = await designer.put(`/api/patterns/${id}`, { baseRevision: 1, document: sampleDocument('Stale overwrite') });
     expect(stale.status).toBe(409);
     expect(stale.body.details.latest).toMatchObject({ number: 2, document: { title: 'Stale test v2' } });
-    expect(revisionCount(id)).toBe(2);
+    expect(await revisionCount(id)).toBe(2);
 
     // A bad document on the right base stores nothing either; the last good revision stays.
     const bad = await designer.put(`/api/patterns/${id}`, { baseRevision: 2, document: { ...sampleDocument(), canvas: { widthIn: -1, heightIn: 4 } } });
@@ -82,7 +86,7 @@ describe('patterns', () => {
       expect(loser.body.details.latest.number).toBe(round + 1);
       expect(loser.body.details.latest.document.title).toBe(winner.body.revision.document.title);
     }
-    expect(revisionCount(id)).toBe(6);
+    expect(await revisionCount(id)).toBe(6);
   });
 
   it('restores an old revision as a new one', async () => {
@@ -118,7 +122,7 @@ describe('patterns', () => {
     await designer.post(`/api/patterns/${id}/trash`).expect(200);
     await designer.del(`/api/patterns/${id}`).expect(204);
     await designer.get(`/api/patterns/${id}`).expect(404);
-    expect(revisionCount(id)).toBe(0);
+    expect(await revisionCount(id)).toBe(0);
   });
 
   it('lists paged, sorted and searched by title', async () => {

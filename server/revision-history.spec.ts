@@ -1,3 +1,4 @@
+import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sampleDocument, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
 
@@ -35,8 +36,10 @@ interface Group {
   restoredFrom: number | null;
 }
 
-const revisionCount = (id: string) =>
-  (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM revisions WHERE pattern_id = ?').get(id) as { n: number }).n;
+const revisionCount = async (id: string) => {
+  const { revisions } = t.ctx.data.t;
+  return (await t.ctx.data.db.select({ n: count() }).from(revisions).where(eq(revisions.patternId, id)))[0]!.n;
+};
 
 /** Saves the sample document (title `title`) on top of `base` as `who`; returns the new revision number. */
 async function save(who: Client, id: string, base: number, title: string, editSession?: string): Promise<number> {
@@ -85,7 +88,7 @@ describe('runs of saves in History', () => {
     groups = res.body.items;
   });
 
-  it('groups consecutive saves of one session and author, and keeps versions, restores and other saves apart', () => {
+  it('groups consecutive saves of one session and author, and keeps versions, restores and other saves apart', async () => {
     expect(brief(groups)).toEqual([
       '13-13x1 owner <3',
       '12-12x1 owner',
@@ -99,7 +102,7 @@ describe('runs of saves in History', () => {
     ]);
     expect(groups[4].version).toEqual({ name: 'First fitting', note: 'Before the border' });
     // Every save stays a revision.
-    expect(revisionCount(id)).toBe(13);
+    expect(await revisionCount(id)).toBe(13);
   });
 
   it('spans a run from its first save to its last', async () => {
@@ -137,7 +140,8 @@ describe('runs of saves in History', () => {
     let n = 1;
     for (const title of ['a', 'b', 'c']) n = await save(owner, other, n, title, SESSION_A);
     // As the migration leaves revisions saved before it: no session, no run.
-    t.ctx.database.sqlite.prepare('UPDATE revisions SET group_start = NULL, edit_session = NULL WHERE pattern_id = ?').run(other);
+    const { revisions } = t.ctx.data.t;
+    await t.ctx.data.db.update(revisions).set({ groupStart: null, editSession: null }).where(eq(revisions.patternId, other));
     const before = await owner.get(`/api/patterns/${other}/revisions/groups`).expect(200);
     expect(brief(before.body.items)).toEqual(['4-4x1 owner', '3-3x1 owner', '2-2x1 owner', '1-1x1 owner']);
     // A save without a session stays alone too; new saves of a session start a run after them.
@@ -185,7 +189,7 @@ describe('named versions', () => {
     const put = await owner.put(`/api/patterns/${id}`, { baseRevision: 1, document: sampleDocument('Stale v3'), editSession: SESSION_A });
     expect(put.status).toBe(409);
     expect(put.body.details.latest.number).toBe(2);
-    expect(revisionCount(id)).toBe(2);
+    expect(await revisionCount(id)).toBe(2);
   });
 
   it('lets owners and co-designers name versions, refuses quilters (403) and hides the pattern from strangers (404)', async () => {
@@ -199,7 +203,7 @@ describe('named versions', () => {
     const s = await stranger.post(`/api/patterns/${id}/revisions`, { baseRevision: 1, name: 'Mine' });
     expect(s.status).toBe(404);
     expect(s.body.error).toBe('Pattern not found');
-    expect(revisionCount(id)).toBe(1);
+    expect(await revisionCount(id)).toBe(1);
     const c = await coDesigner.post(`/api/patterns/${id}/revisions`, { baseRevision: 1, name: 'Co-designer’s pick' });
     expect(c.status).toBe(201);
     expect(c.body.pattern.access).toBe('co-designer');
@@ -233,7 +237,7 @@ describe('named versions', () => {
     expect(badDoc.status).toBe(400);
     expect(badDoc.body.error).toBe('The pattern document is not valid');
     expect(badDoc.body.details[0].path).toBe('document.canvas.widthIn');
-    expect(revisionCount(id)).toBe(2);
+    expect(await revisionCount(id)).toBe(2);
   });
 
   it('rejects a malformed editing session on a save, and a reversed range on the list', async () => {
@@ -247,6 +251,6 @@ describe('named versions', () => {
     const groups = await owner.get(`/api/patterns/${id}/revisions/groups?pageSize=0`);
     expect(groups.status).toBe(400);
     expect(groups.body.details[0].path).toBe('pageSize');
-    expect(revisionCount(id)).toBe(1);
+    expect(await revisionCount(id)).toBe(1);
   });
 });
