@@ -1,3 +1,4 @@
+import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildGardenGate } from '@seamwright/piecing';
 import { DEMO_ACCOUNTS, seedDemo } from '../db/seed';
@@ -18,7 +19,7 @@ const signedIn = async (role: 'designer' | 'quilter') => {
 
 beforeAll(async () => {
   t = await startTestServer();
-  await seedDemo(t.ctx.db, 4);
+  await seedDemo(t.ctx.data, 4);
   designer = await signedIn('designer');
   quilter = await signedIn('quilter');
 });
@@ -38,10 +39,12 @@ interface Row {
 const list = async (c: Client, query = '') => (await c.get(`/api/patterns${query}`).expect(200)).body.items as Row[];
 const byTitle = (rows: Row[], title: string) => rows.find((r) => r.title === title)!;
 
-const stored = (patternId: string) =>
-  t.ctx.database.sqlite.prepare('SELECT revision_number AS rev, renderer_version AS version, svg FROM pattern_previews WHERE pattern_id = ?').get(patternId) as
-    | { rev: number; version: number; svg: string | null }
-    | undefined;
+/** The preview stored for a pattern. */
+const stored = async (patternId: string) => {
+  const { patternPreviews: p } = t.ctx.data.t;
+  const [row] = await t.ctx.data.db.select({ rev: p.revisionNumber, version: p.rendererVersion, svg: p.svg }).from(p).where(eq(p.patternId, patternId));
+  return row;
+};
 
 describe('pattern list rows', () => {
   it('carry the section count and finished size of the demo patterns (docs/design-notes.md#demo-data)', async () => {
@@ -79,7 +82,7 @@ describe('pattern list rows', () => {
 
   it('follow the latest revision and store what they show once per revision', async () => {
     const gate = byTitle(await list(designer), 'Garden Gate');
-    expect(stored(gate.id)).toMatchObject({ rev: gate.headRevision, version: PREVIEW_RENDERER_VERSION });
+    expect(await stored(gate.id)).toMatchObject({ rev: gate.headRevision, version: PREVIEW_RENDERER_VERSION });
     const doc = buildGardenGate();
     const saved = await designer
       .put(`/api/patterns/${gate.id}`, { baseRevision: gate.headRevision, document: { ...doc, displayUnit: 'cm', canvas: { widthIn: 10, heightIn: 8 }, sections: doc.sections.slice(0, 2) } })
@@ -88,17 +91,18 @@ describe('pattern list rows', () => {
     // 10 in. = 25.4 cm and 8 in. = 20.32 cm (the inch is 2.54 cm by definition).
     expect(after).toMatchObject({ headRevision: saved.body.revision.number, sectionCount: 2, finishedSize: { widthIn: 10, heightIn: 8, displayUnit: 'cm', text: '25.4 × 20.32 cm' } });
     expect(parse(after.preview!).getAttribute('viewBox')).toBe('0 0 10 8');
-    expect(stored(gate.id)).toMatchObject({ rev: saved.body.revision.number });
-    const rows = t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM pattern_previews').get() as { n: number };
+    expect(await stored(gate.id)).toMatchObject({ rev: saved.body.revision.number });
+    const [rows] = await t.ctx.data.db.select({ n: count() }).from(t.ctx.data.t.patternPreviews);
     expect(rows.n).toBe(2);
   });
 
   it('are drawn again when the stored picture comes from an older renderer', async () => {
     const wheel = byTitle(await list(designer), 'Orchard Wheel');
-    t.ctx.database.sqlite.prepare("UPDATE pattern_previews SET renderer_version = 0, svg = '<svg>old</svg>' WHERE pattern_id = ?").run(wheel.id);
+    const { patternPreviews } = t.ctx.data.t;
+    await t.ctx.data.db.update(patternPreviews).set({ rendererVersion: 0, svg: '<svg>old</svg>' }).where(eq(patternPreviews.patternId, wheel.id));
     const again = byTitle(await list(designer), 'Orchard Wheel');
     expect(again.preview).toBe(wheel.preview);
-    expect(stored(wheel.id)).toMatchObject({ version: PREVIEW_RENDERER_VERSION, svg: wheel.preview });
+    expect(await stored(wheel.id)).toMatchObject({ version: PREVIEW_RENDERER_VERSION, svg: wheel.preview });
   });
 
   it('write no text of the document into the picture, and show in the trash too', async () => {
@@ -113,5 +117,31 @@ describe('pattern list rows', () => {
     await own.post(`/api/patterns/${created.body.pattern.id}/trash`).expect(200);
     const [trashed] = await list(own, '?scope=trash');
     expect(trashed).toMatchObject({ id: created.body.pattern.id, sectionCount: 1, preview: row.preview });
+  });
+});
+
+describe('pattern list search and sort', () => {
+  // Both databases ignore case the same way (ASCII): SQLite's LIKE and NOCASE, PostgreSQL's ILIKE and lower().
+  it('finds a title whatever the case of the words searched for', async () => {
+    const titles = async (c: Client, query: string) => (await list(c, query)).map((r) => r.title);
+    expect(await titles(designer, '?q=ORCHARD')).toEqual(['Orchard Wheel']);
+    expect(await titles(designer, '?q=garden%20GATE')).toEqual(['Garden Gate']);
+    expect(await titles(quilter, '?q=orchard&scope=shared')).toEqual(['Orchard Wheel']);
+    expect(await titles(designer, '?q=ORCHARDS')).toEqual([]);
+    // LIKE's own wildcards are searched for as text.
+    expect(await titles(designer, '?q=%25')).toEqual([]);
+  });
+
+  it('sorts by title ignoring case, both ways, with the total across pages', async () => {
+    const sorter = await Client.create(t.app);
+    await sorter.signUp('sorter@pattern-list.test');
+    for (const title of ['cherry pie', 'Banana split', 'apple tart', 'Damson jam']) await sorter.post('/api/patterns', { document: sampleDocument(title) }).expect(201);
+    const titles = async (query: string) => (await list(sorter, query)).map((r) => r.title);
+    expect(await titles('?sort=title&order=asc')).toEqual(['apple tart', 'Banana split', 'cherry pie', 'Damson jam']);
+    expect(await titles('?sort=title&order=desc')).toEqual(['Damson jam', 'cherry pie', 'Banana split', 'apple tart']);
+    const second = (await sorter.get('/api/patterns?sort=title&order=asc&pageSize=3&page=2').expect(200)).body;
+    expect(second).toMatchObject({ total: 4, page: 2, pageSize: 3, items: [{ title: 'Damson jam' }] });
+    // A page past the end still carries the total.
+    expect((await sorter.get('/api/patterns?pageSize=3&page=5').expect(200)).body).toMatchObject({ total: 4, items: [] });
   });
 });

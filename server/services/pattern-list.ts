@@ -1,8 +1,8 @@
-import { and, asc, count, desc, eq, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
-import type { DbLike } from '../db/database';
-import { preparedPerDb, rawRowsOf } from '../db/prepared';
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { formatLength, parsePatternDocument } from '@seamwright/piecing';
-import { members, patternPreviews, patterns, revisions, users, type Pattern } from '../db/schema';
+import type { Data, Tables } from '../db/data';
+import { preparedOn } from '../db/prepared';
+import type { Pattern } from '../db/schema';
 import { likeContains } from '../http/paging';
 import type { Access } from './access';
 import { PREVIEW_RENDERER_VERSION, patternPreviewSvg } from './pattern-preview';
@@ -22,16 +22,20 @@ export interface ListRequest {
 }
 
 const userId = sql.placeholder('userId');
-const like = sql.placeholder('like');
+/** The search pattern, bound when the statement runs (`Data.likeIgnoringCase` writes it into the SQL as given). */
+const like = sql.placeholder('like') as unknown as string;
 
 /**
  * The patterns list is the busiest read after opening a pattern: its two statements (the page, which
- * carries the total, and the count alone for a page past the end) are built and prepared once per database handle for each scope, sort, order and whether
- * there is a search, then run with the user, search words, limit and offset bound.
+ * carries the total, and the count alone for a page past the end) are built and prepared once per
+ * connection for each scope, sort, order and whether there is a search, then run with the user,
+ * search words, limit and offset bound. A search and the title sort ignore case alike on both
+ * databases (`Data.likeIgnoringCase`, `Data.textIgnoringCase`).
  */
-const listStatements = preparedPerDb((db) => {
+const listStatements = preparedOn((db, t) => {
+  const { members, patterns, users } = t;
   const cache = new Map<string, ReturnType<typeof build>>();
-  function build(scope: ListScope, sort: ListSort, order: 'asc' | 'desc', search: boolean) {
+  function build(d: Data, scope: ListScope, sort: ListSort, order: 'asc' | 'desc', search: boolean) {
     const membership = and(eq(members.patternId, patterns.id), eq(members.userId, userId));
     const scopeWhere = {
       all: and(or(eq(patterns.ownerId, userId), isNotNull(members.userId)), isNull(patterns.trashedAt)),
@@ -39,60 +43,61 @@ const listStatements = preparedPerDb((db) => {
       shared: and(isNotNull(members.userId), isNull(patterns.trashedAt)),
       trash: and(eq(patterns.ownerId, userId), isNotNull(patterns.trashedAt)),
     }[scope];
-    const where: SQL | undefined = search ? and(scopeWhere, sql`${patterns.title} LIKE ${like} ESCAPE '\\'`) : scopeWhere;
+    const where: SQL | undefined = search ? and(scopeWhere, d.likeIgnoringCase(patterns.title, like)) : scopeWhere;
     const direction = order === 'asc' ? asc : desc;
     const sortColumn = {
       updated: patterns.updatedAt,
       created: patterns.createdAt,
-      title: sql`${patterns.title} COLLATE NOCASE`,
+      title: d.textIgnoringCase(patterns.title),
     }[sort];
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
-      // Rows as arrays in this order (see PAGE_COLUMNS), read and written out by hand.
-      page: rawRowsOf(
-        db,
-        db
-          .select({
-            id: patterns.id,
-            ownerId: patterns.ownerId,
-            title: patterns.title,
-            headRevision: patterns.headRevision,
-            createdAt: patterns.createdAt,
-            updatedAt: patterns.updatedAt,
-            trashedAt: patterns.trashedAt,
-            ownerName: users.displayName,
-            memberAccess: members.access,
-            total: sql<number>`count(*) OVER ()`,
-          })
-          .from(patterns)
-          .leftJoin(members, membership)
-          .innerJoin(users, eq(users.id, patterns.ownerId))
-          .where(where)
-          .orderBy(direction(sortColumn), direction(patterns.id))
-          .limit(sql.placeholder('limit'))
-          .offset(sql.placeholder('offset')),
-      ),
+      page: db
+        .select({
+          id: patterns.id,
+          ownerId: patterns.ownerId,
+          title: patterns.title,
+          headRevision: patterns.headRevision,
+          createdAt: patterns.createdAt,
+          updatedAt: patterns.updatedAt,
+          trashedAt: patterns.trashedAt,
+          ownerName: users.displayName,
+          memberAccess: members.access,
+          // Every row in scope, counted before LIMIT (PostgreSQL gives a bigint: read as a number).
+          total: sql<number>`count(*) OVER ()`.mapWith(Number),
+        })
+        .from(patterns)
+        .leftJoin(members, membership)
+        .innerJoin(users, eq(users.id, patterns.ownerId))
+        .where(where)
+        .orderBy(direction(sortColumn), direction(patterns.id))
+        .limit(sql.placeholder('limit'))
+        .offset(sql.placeholder('offset'))
+        .prepare(),
     };
   }
-  return (scope: ListScope, sort: ListSort, order: 'asc' | 'desc', search: boolean) => {
+  /** The statements for one kind of list; `d` is the database they are prepared on (it only says which SQL to write). */
+  return (d: Data, scope: ListScope, sort: ListSort, order: 'asc' | 'desc', search: boolean) => {
     const key = `${scope}|${sort}|${order}|${search}`;
     let statements = cache.get(key);
-    if (!statements) cache.set(key, (statements = build(scope, sort, order, search)));
+    if (!statements) cache.set(key, (statements = build(d, scope, sort, order, search)));
     return statements;
   };
 });
 
-type StoredPreview = typeof patternPreviews.$inferSelect;
+type StoredPreview = Tables['patternPreviews']['$inferSelect'];
 type PreviewRow = Pick<StoredPreview, 'sectionCount' | 'widthIn' | 'heightIn' | 'displayUnit' | 'svg'>;
 
-const previewStatements = preparedPerDb((db) => ({
+const previewStatements = preparedOn((db, t) => {
+  const { patternPreviews, revisions } = t;
   /**
-   * The stored previews of one page's patterns (ids as a JSON array), read after the page rather than
-   * joined to it: a join would run for every pattern in scope before the sort and limit.
+   * The stored previews of one page's patterns, read after the page rather than joined to it: a join
+   * would run for every pattern in scope before the sort and limit. One statement per page length
+   * (ids bound as `id0`, `id1`, …).
    */
-  forPage: rawRowsOf(
-    db,
-    db
+  const forPage = new Map<number, ReturnType<typeof pageOf>>();
+  function pageOf(n: number) {
+    return db
       .select({
         patternId: patternPreviews.patternId,
         revisionNumber: patternPreviews.revisionNumber,
@@ -105,25 +110,36 @@ const previewStatements = preparedPerDb((db) => ({
       .from(patternPreviews)
       .where(
         and(
-          sql`${patternPreviews.patternId} IN (SELECT value FROM json_each(${sql.placeholder('ids')}))`,
+          inArray(
+            patternPreviews.patternId,
+            Array.from({ length: n }, (_, i) => sql.placeholder(`id${i}`)),
+          ),
           eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION),
         ),
-      ),
-  ),
-  document: db
-    .select({ document: revisions.document })
-    .from(revisions)
-    .where(and(eq(revisions.patternId, sql.placeholder('patternId')), eq(revisions.number, sql.placeholder('number'))))
-    .prepare(),
-}));
+      )
+      .prepare();
+  }
+  return {
+    forPage(n: number) {
+      let q = forPage.get(n);
+      if (!q) forPage.set(n, (q = pageOf(n)));
+      return q;
+    },
+    document: db
+      .select({ document: revisions.document })
+      .from(revisions)
+      .where(and(eq(revisions.patternId, sql.placeholder('patternId')), eq(revisions.number, sql.placeholder('number'))))
+      .prepare(),
+  };
+});
 
 /**
  * What the list shows of a pattern's head revision, worked out from its document and stored, so the
  * next list reads it with the page. Patterns are few per page and the work is done once per revision
  * that is listed (not per save: autosave makes many revisions nobody lists).
  */
-function fillPreview(db: DbLike, pattern: Pattern): PreviewRow | null {
-  const stored = previewStatements(db).document.get({ patternId: pattern.id, number: pattern.headRevision });
+async function fillPreview(d: Data, pattern: Pattern): Promise<PreviewRow | null> {
+  const [stored] = await previewStatements(d).document.execute({ patternId: pattern.id, number: pattern.headRevision });
   if (!stored) return null;
   const parsed = parsePatternDocument(JSON.parse(stored.document) as unknown);
   if (!parsed.ok) return null;
@@ -145,11 +161,13 @@ function fillPreview(db: DbLike, pattern: Pattern): PreviewRow | null {
     svg,
   };
   try {
+    const { patternPreviews } = d.t;
     const { patternId: _id, ...changes } = row;
-    db.insert(patternPreviews)
+    // A preview of an older revision never replaces a newer one (two lists may race).
+    await d.db
+      .insert(patternPreviews)
       .values(row)
-      .onConflictDoUpdate({ target: patternPreviews.patternId, set: changes, setWhere: sql`excluded.revision_number >= ${patternPreviews.revisionNumber}` })
-      .run();
+      .onConflictDoUpdate({ target: patternPreviews.patternId, set: changes, setWhere: sql`excluded.revision_number >= ${patternPreviews.revisionNumber}` });
   } catch {
     // Not stored (the database is busy or read-only): this answer still carries it; a later list stores it.
   }
@@ -181,43 +199,33 @@ function listItem(pattern: Pattern, ownerName: string, access: Access, preview: 
   };
 }
 
-/** A page row as the page statement gives it (columns in its select order; times in ms). */
-type PageRow = [id: string, ownerId: string, title: string, headRevision: number, createdAt: number, updatedAt: number, trashedAt: number | null, ownerName: string, memberAccess: Access | null, total: number];
-/** A preview row as the preview statement gives it. */
-type PreviewRowArray = [patternId: string, revisionNumber: number, sectionCount: number, widthIn: number, heightIn: number, displayUnit: PreviewRow['displayUnit'], svg: string | null];
-
 /** One page of the patterns a user owns or is a member of, with the total across pages. */
-export function listPatterns(db: DbLike, user: { id: string }, q: ListRequest) {
-  const statements = listStatements(db)(q.scope, q.sort, q.order, Boolean(q.q));
+export async function listPatterns(d: Data, user: { id: string }, q: ListRequest) {
+  const statements = listStatements(d)(d, q.scope, q.sort, q.order, Boolean(q.q));
   const params = { userId: user.id, like: q.q ? likeContains(q.q) : '' };
-  const rows = statements.page({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize }) as PageRow[];
-  // The page carries the count over every row in scope (a window over the whole result, taken
-  // before LIMIT); only a page past the end needs the count on its own.
-  const total = rows.length > 0 ? rows[0][9] : q.page > 1 ? (statements.total.get(params)?.n ?? 0) : 0;
-  const previews = new Map<string, PreviewRowArray>();
+  const rows = await statements.page.execute({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  // The page carries the count over every row in scope; only a page past the end needs it on its own.
+  const total = rows.length > 0 ? rows[0].total : q.page > 1 ? ((await statements.total.execute(params))[0]?.n ?? 0) : 0;
+  const previews = new Map<string, PreviewRow & { revisionNumber: number }>();
   if (rows.length > 0) {
-    for (const p of previewStatements(db).forPage({ ids: JSON.stringify(rows.map((r) => r[0])) }) as PreviewRowArray[]) previews.set(p[0], p);
+    const ids: Record<string, string> = {};
+    rows.forEach((r, i) => (ids[`id${i}`] = r.id));
+    for (const p of await previewStatements(d).forPage(rows.length).execute(ids)) previews.set(p.patternId, p);
   }
-  const previewOf = (pattern: Pattern): PreviewRow | null => {
+  const items = [];
+  for (const r of rows) {
+    const pattern: Pattern = {
+      id: r.id,
+      ownerId: r.ownerId,
+      title: r.title,
+      headRevision: r.headRevision,
+      createdAt: r.createdAt,
+      updatedAt: r.updatedAt,
+      trashedAt: r.trashedAt,
+    };
     const stored = previews.get(pattern.id);
-    if (!stored || stored[1] !== pattern.headRevision) return fillPreview(db, pattern);
-    return { sectionCount: stored[2], widthIn: stored[3], heightIn: stored[4], displayUnit: stored[5], svg: stored[6] };
-  };
-  return {
-    items: rows.map((r) => {
-      const pattern: Pattern = {
-        id: r[0],
-        ownerId: r[1],
-        title: r[2],
-        headRevision: r[3],
-        createdAt: new Date(r[4]),
-        updatedAt: new Date(r[5]),
-        trashedAt: r[6] === null ? null : new Date(r[6]),
-      };
-      return listItem(pattern, r[7], r[1] === user.id ? 'owner' : (r[8] as Access), previewOf(pattern));
-    }),
-    total,
-    page: q.page,
-    pageSize: q.pageSize,
-  };
+    const preview = stored && stored.revisionNumber === pattern.headRevision ? stored : await fillPreview(d, pattern);
+    items.push(listItem(pattern, r.ownerName, r.ownerId === user.id ? 'owner' : (r.memberAccess as Access), preview));
+  }
+  return { items, total, page: q.page, pageSize: q.pageSize };
 }
