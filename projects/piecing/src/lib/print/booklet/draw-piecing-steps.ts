@@ -117,18 +117,22 @@ function drawSteps(
       const fit = fitDiagram(all, box, ctx.options.mirrored);
       const addedNumber = i === 0 ? patches[0].number : steps[i - 1].patchNumber;
       const sewnBefore = new Set(i === 0 ? [] : [patches[0].number, ...steps.slice(0, i - 1).map((s) => s.patchNumber)]);
+      let addedRing: Point[] = [];
       for (const p of patches) {
         const ring = p.polygon.map(fit.map);
-        if (p.number === addedNumber) fillPatch(ctx, fit, p, 0);
-        else if (sewnBefore.has(p.number)) fillPatch(ctx, fit, p, 0.6);
+        if (p.number === addedNumber) {
+          fillPatch(ctx, fit, p, 0, ring);
+          addedRing = ring;
+        } else if (sewnBefore.has(p.number)) fillPatch(ctx, fit, p, 0.6, ring);
         drawShape(ctx.pen, ring, null, DIAGRAM_STYLES.faint);
       }
-      drawShape(ctx.pen, byNumber.get(addedNumber)!.polygon.map(fit.map), null, DIAGRAM_STYLES.highlight);
+      drawShape(ctx.pen, addedRing, null, DIAGRAM_STYLES.highlight);
       const step = stepOf.get(addedNumber);
       const shown = patches.filter((p) => p.number === addedNumber || sewnBefore.has(p.number));
-      if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step), shown.map((p) => fit.map(p.labelPoint)));
-      for (const p of shown) {
-        const at = fit.map(p.labelPoint);
+      const labelsAt = shown.map((p) => fit.map(p.labelPoint));
+      if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step), labelsAt);
+      for (const [k, p] of shown.entries()) {
+        const at = labelsAt[k];
         const dark = p.number === addedNumber && isDark(lighten(fabricColour(ctx, p.fabricId ?? p.stripSet?.strips[0]?.fabricId), 0.25));
         ctx.pen.text(p.label, at, { sizePt: 7, bold: p.number === addedNumber, align: 'center', baseline: 'middle', colour: dark ? '#ffffff' : '#000000' });
       }
@@ -138,12 +142,13 @@ function drawSteps(
   });
 }
 
-function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, paleness: number): void {
+/** Fills a patch of a step's diagram; `ring` is its outline already on the sheet. */
+function fillPatch(ctx: BookletContext, fit: DiagramFit, patch: DerivedPatch, paleness: number, ring: Point[]): void {
   const amount = paleness + (1 - paleness) * 0.25;
   if (patch.stripSet) {
     const colour = (id: string | undefined) => lighten(fabricColour(ctx, id), amount);
     fillStripSetPatch(ctx.pen, fit, patch.polygon, patch.stripSet, colour, colour(undefined));
-  } else ctx.pen.fillPolygon(patch.polygon.map(fit.map), lighten(fabricColour(ctx, patch.fabricId), amount));
+  } else ctx.pen.fillPolygon(ring, lighten(fabricColour(ctx, patch.fabricId), amount));
 }
 
 function drawSewAndPress(ctx: BookletContext, fit: DiagramFit, step: SewingStep, added: DerivedPatch, press: 'added' | 'previous' | 'open', labels: readonly Point[]): void {
