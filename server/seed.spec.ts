@@ -1,6 +1,12 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { count } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, isEmpty, seedDemo } from './db/seed';
-import { Client, startTestServer, type TestServer } from './test/harness';
+import type { Data } from './db/data';
+import { openData } from './db/open-data';
+import { DEMO_ACCOUNTS, isEmpty, seedDemo, seedDemoIfEmpty } from './db/seed';
+import { Client, startTestServer, testDatabase, testDatabaseUrl, type TestServer } from './test/harness';
 
 let t: TestServer;
 beforeAll(async () => {
@@ -19,15 +25,16 @@ const signedIn = async (role: string) => {
   return c;
 };
 
-describe('demo data (docs/design-notes.md#demo-data)', () => {
+describe(`demo data (docs/design-notes.md#demo-data) on ${testDatabase}`, () => {
   it('creates the Fernbrook accounts and demo patterns once', async () => {
-    expect(isEmpty(t.ctx.db)).toBe(true);
-    const first = await seedDemo(t.ctx.db, 4);
+    expect(await isEmpty(t.ctx.data)).toBe(true);
+    const first = await seedDemo(t.ctx.data, 4);
     expect(first.accountsCreated).toEqual(DEMO_ACCOUNTS.map((a) => a.email));
     expect(first.patternsCreated).toEqual(['Orchard Wheel', 'Garden Gate']);
-    expect(isEmpty(t.ctx.db)).toBe(false);
-    const second = await seedDemo(t.ctx.db, 4);
+    expect(await isEmpty(t.ctx.data)).toBe(false);
+    const second = await seedDemo(t.ctx.data, 4);
     expect(second).toEqual({ accountsCreated: [], patternsCreated: [] });
+    expect(await seedDemoIfEmpty(t.ctx.data, 4)).toBeUndefined();
     await signedIn('admin');
   });
 
@@ -84,4 +91,30 @@ describe('demo data (docs/design-notes.md#demo-data)', () => {
     expect(pdf.numPages).toBe(set.sheets);
     await pdf.destroy();
   }, 180_000);
+});
+
+describe(`two instances starting together on one empty ${testDatabase} database`, () => {
+  it('seed the demo once: one reports it, the other finds it seeded', async () => {
+    // Two connections (pools) to one fresh database, as two server processes have.
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'seamwright-seed-'));
+    const databaseUrl = await testDatabaseUrl();
+    const a = await openData({ dataDir, databaseUrl }, { poolSize: 2 });
+    const b = await openData({ dataDir, databaseUrl }, { poolSize: 2 });
+    try {
+      const reports = await Promise.all([seedDemoIfEmpty(a.data, 4), seedDemoIfEmpty(b.data, 4)]);
+      const seeded = reports.filter((r) => r !== undefined);
+      expect(seeded).toEqual([{ accountsCreated: DEMO_ACCOUNTS.map((x) => x.email), patternsCreated: ['Orchard Wheel', 'Garden Gate'] }]);
+      const rows = async (d: Data) => {
+        const { members, patterns, revisions, shopListings, users } = d.t;
+        const n = async (table: typeof users | typeof patterns | typeof revisions | typeof members | typeof shopListings) =>
+          (await d.db.select({ n: count() }).from(table))[0]!.n;
+        return { users: await n(users), patterns: await n(patterns), revisions: await n(revisions), members: await n(members), listings: await n(shopListings) };
+      };
+      expect(await rows(b.data)).toEqual({ users: 3, patterns: 2, revisions: 2, members: 2, listings: 1 });
+    } finally {
+      await a.close();
+      await b.close();
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    }
+  });
 });

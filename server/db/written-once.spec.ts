@@ -17,7 +17,6 @@ const SQLITE_BY_DESIGN: Record<string, string> = {
   'db/data.ts': 'the SQLite side of Data',
   'db/open-data.ts': 'chooses the database',
   'db/prepared.ts': 'statement caches, including the SQLite-only raw ones of the hot routes',
-  'db/seed.ts': 'the demo data script (run as a command)',
   'app-context.ts': 'declares the SQLite handles for code not yet ported',
   'main.ts': 'makes the SQLite handles for code not yet ported',
   'test/harness.ts': 'makes the SQLite handles for code not yet ported',

@@ -90,8 +90,8 @@ export const testDatabase: 'sqlite' | 'postgres' = process.env['SEAMWRIGHT_TEST_
 let cluster: Promise<PgCluster> | undefined;
 let databases = 0;
 
-/** With PostgreSQL: a fresh database in this test file's cluster (started on first use). */
-async function testDatabaseUrl(): Promise<string | undefined> {
+/** With PostgreSQL: a fresh database in this test file's cluster (started on first use); undefined on SQLite. */
+export async function testDatabaseUrl(): Promise<string | undefined> {
   if (testDatabase !== 'postgres') return undefined;
   cluster ??= startPgCluster();
   return (await cluster).createDatabase(`api_${process.pid}_${++databases}`);
