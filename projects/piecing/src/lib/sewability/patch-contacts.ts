@@ -86,7 +86,8 @@ function intervalsOn(ring: readonly Point[], line: LineGeometry, toleranceIn: nu
     const tq = line.ux * (q.x - line.origin.x) + line.uy * (q.y - line.origin.y);
     out.push(tp < tq ? [tp, tq] : [tq, tp]);
   }
-  return mergeIntervals(out, toleranceIn);
+  // Most lines hold no edge of a given ring, or one: nothing to sort or merge.
+  return out.length < 2 ? out : mergeIntervals(out, toleranceIn);
 }
 
 /** Sorts and merges intervals that overlap or touch within `gapIn`. */
