@@ -44,7 +44,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     mailOutbox,
     log,
     printSets,
-    documentChecks: new DocumentChecks(config.dataDir),
+    documentChecks: new DocumentChecks(config.dataDir, undefined, config.databaseUrl),
   };
   await printSets.resumeUnfinished();
   mailOutbox.start();
