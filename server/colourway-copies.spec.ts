@@ -22,10 +22,9 @@ beforeAll(async () => {
   const made = await owner.post('/api/patterns', { document: buildOrchardWheel() }).expect(201);
   patternId = made.body.pattern.id;
   otherPatternId = (await owner.post('/api/patterns', { document: buildOrchardWheel() }).expect(201)).body.pattern.id;
-  const add = t.ctx.database.sqlite.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)');
+  const { members } = t.ctx.data.t;
   for (const c of [quilter, second]) {
-    add.run(patternId, c.user!.id, 'quilter', Date.now());
-    add.run(otherPatternId, c.user!.id, 'quilter', Date.now());
+    for (const id of [patternId, otherPatternId]) await t.ctx.data.db.insert(members).values({ patternId: id, userId: c.user!.id, access: 'quilter', createdAt: new Date() });
   }
 });
 afterAll(async () => {

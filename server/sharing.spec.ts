@@ -1,3 +1,4 @@
+import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, sampleDocument, startTestServer, tokenFromMail, userClient, type TestServer } from './test/harness';
 
@@ -73,7 +74,8 @@ describe('sharing by e-mail', () => {
     const cody = await userClient(t.app, 'cody@share.test', 'designer');
 
     const expired = await invite(id, 'cody@share.test', 'co-designer');
-    t.ctx.database.sqlite.prepare('UPDATE invitations SET expires_at = ? WHERE pattern_id = ?').run(Date.now() - 1, id);
+    const { invitations } = t.ctx.data.t;
+    await t.ctx.data.db.update(invitations).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(invitations.patternId, id));
     await cody.post('/api/invitations/accept', { token: expired.token }).expect(404);
     await cody.get(`/api/invitations/${expired.token}`).expect(404);
 
@@ -123,7 +125,8 @@ describe('sharing by e-mail', () => {
 describe('admin', () => {
   it('lists users, changes a role and disables a user (ending their sessions); others get 403', async () => {
     const admin = await userClient(t.app, 'admin@share.test', 'designer');
-    t.ctx.database.sqlite.prepare("UPDATE users SET role = 'admin' WHERE email = ?").run('admin@share.test');
+    const { users } = t.ctx.data.t;
+    await t.ctx.data.db.update(users).set({ role: 'admin' }).where(eq(users.email, 'admin@share.test'));
     const target = await userClient(t.app, 'target@share.test', 'quilter');
     await target.get('/api/admin/users').expect(403);
     await (await Client.create(t.app)).get('/api/admin/users').expect(401);
@@ -131,6 +134,8 @@ describe('admin', () => {
     const list = await admin.get('/api/admin/users?q=target').expect(200);
     expect(list.body.items).toMatchObject([{ email: 'target@share.test', role: 'quilter' }]);
     expect(list.body.items[0].passwordHash).toBeUndefined();
+    // The search ignores case on both databases, as SQLite's LIKE does for ASCII.
+    expect((await admin.get('/api/admin/users?q=TARGET@SHARE').expect(200)).body.items).toMatchObject([{ email: 'target@share.test' }]);
     const promoted = await admin.patch(`/api/admin/users/${target.user!.id}`, { role: 'designer' }).expect(200);
     expect(promoted.body.user.role).toBe('designer');
     await target.post('/api/patterns', { document: sampleDocument('Now allowed') }).expect(201);

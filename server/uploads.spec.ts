@@ -1,8 +1,11 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import { buffer } from 'node:stream/consumers';
 import contentDisposition from 'content-disposition';
+import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { fileStoreOf } from './storage/file-store-of';
+import { TINY_PNG, sampleDocument, sharedPattern, startTestServer, testDatabase, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
 let owner: Client;
@@ -21,6 +24,22 @@ afterAll(async () => {
 const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]), Buffer.from('JFIF\0', 'latin1'), Buffer.alloc(64)]);
 const WEBP = Buffer.concat([Buffer.from('RIFF', 'latin1'), Buffer.from([0x24, 0, 0, 0]), Buffer.from('WEBPVP8 ', 'latin1'), Buffer.alloc(40)]);
 const GIF = Buffer.concat([Buffer.from('GIF89a', 'latin1'), Buffer.from([1, 0, 1, 0, 0x80, 0, 0]), Buffer.alloc(20)]);
+
+/** The bytes stored under a key, from the server's file store (the data folder, or PostgreSQL), or undefined. */
+const storedBytes = async (key: string) => {
+  const stream = await fileStoreOf(t.ctx).openRead(key);
+  return stream && (await buffer(stream));
+};
+
+/** The names of the files stored for a user's uploads. */
+async function storedUploadNames(userId: string): Promise<string[]> {
+  if (testDatabase === 'postgres') {
+    const rows = await t.ctx.data.rows<{ key: string }>(sql`SELECT key FROM stored_files WHERE key LIKE ${`uploads/${userId}/%`}`);
+    return rows.map((r) => r.key.slice(`uploads/${userId}/`.length));
+  }
+  const dir = path.join(t.dataDir, 'uploads', userId);
+  return fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+}
 
 const upload = (c: Client, data: Buffer, name: string, contentType?: string) =>
   c.req('post', `/api/patterns/${id}/uploads`).attach('file', data, contentType ? { filename: name, contentType } : name);
@@ -50,8 +69,8 @@ describe('reference image uploads', () => {
     const gif = await upload(owner, GIF, 'anim.png', 'image/png');
     expect(gif.status).toBe(415);
     expect(gif.body.details.detected).toBe('image/gif');
-    const dir = path.join(t.dataDir, 'uploads', owner.user!.id);
-    const stored = fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+    const stored = await storedUploadNames(owner.user!.id);
+    expect(stored.length).toBeGreaterThan(0);
     expect(stored.every((f) => /^[A-Za-z0-9_-]{22}\.(png|jpg|webp)$/.test(f))).toBe(true);
   });
 
@@ -69,8 +88,7 @@ describe('reference image uploads', () => {
   it('stores a hostile file name harmlessly under its own id, and downloads it', async () => {
     const res = await upload(owner, TINY_PNG, '../../../seamwright.db.png').expect(201);
     expect(res.body.upload.fileName).not.toContain('/');
-    const file = path.join(t.dataDir, 'uploads', owner.user!.id, `${res.body.upload.id}.png`);
-    expect(fs.readFileSync(file).equals(TINY_PNG)).toBe(true);
+    expect((await storedBytes(`uploads/${owner.user!.id}/${res.body.upload.id}.png`))?.equals(TINY_PNG)).toBe(true);
     const got = await owner.get(res.body.upload.url).buffer(true).expect(200);
     expect(Buffer.from(got.body).equals(TINY_PNG)).toBe(true);
     expect(contentDisposition.parse(got.headers['content-disposition']).parameters['filename']).toBe(res.body.upload.fileName);
@@ -121,9 +139,10 @@ describe('reference image uploads', () => {
 
   it('deletes an upload and its file', async () => {
     const res = await upload(owner, TINY_PNG, 'gone.png').expect(201);
-    const file = path.join(t.dataDir, 'uploads', owner.user!.id, `${res.body.upload.id}.png`);
+    const key = `uploads/${owner.user!.id}/${res.body.upload.id}.png`;
+    expect(await storedBytes(key)).toBeDefined();
     await owner.del(`/api/patterns/${id}/uploads/${res.body.upload.id}`).expect(204);
-    expect(fs.existsSync(file)).toBe(false);
+    expect(await storedBytes(key)).toBeUndefined();
     await owner.get(res.body.upload.url).expect(404);
   });
 });
@@ -140,13 +159,13 @@ describe('a reference image and the pattern it belongs to', () => {
     const copy = await owner.post(`/api/patterns/${patternId}/duplicate`, {}).expect(201);
     const copiedRef = copy.body.revision.document.referenceImage;
     expect(copiedRef.uploadId).not.toBe(up.body.upload.id);
-    const copyFile = path.join(t.dataDir, 'uploads', owner.user!.id, `${copiedRef.uploadId}.png`);
-    expect(fs.readFileSync(copyFile).equals(image)).toBe(true);
+    expect((await storedBytes(`uploads/${owner.user!.id}/${copiedRef.uploadId}.png`))?.equals(image)).toBe(true);
 
-    const originalFile = path.join(t.dataDir, 'uploads', owner.user!.id, `${up.body.upload.id}.png`);
+    const originalFile = `uploads/${owner.user!.id}/${up.body.upload.id}.png`;
+    expect(await storedBytes(originalFile)).toBeDefined();
     await owner.post(`/api/patterns/${patternId}/trash`, {}).expect(200);
     await owner.del(`/api/patterns/${patternId}`).expect(204);
-    expect(fs.existsSync(originalFile)).toBe(false);
+    expect(await storedBytes(originalFile)).toBeUndefined();
     // The copy's image is its own: deleting the original left it in place and served.
     const served = await owner.get(`/api/patterns/${copy.body.pattern.id}/uploads/${copiedRef.uploadId}/file`).buffer(true).expect(200);
     expect(Buffer.from(served.body).equals(image)).toBe(true);

@@ -1,9 +1,8 @@
-import { count, desc, eq, or, sql } from 'drizzle-orm';
+import { count, desc, eq, or } from 'drizzle-orm';
 import express, { type RequestHandler, type Router } from 'express';
 import { searchPageQuerySchema, userChangeBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, endUserSessions, publicUser, requireUser } from '../auth/sessions';
-import { users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { likeContains } from '../http/paging';
 import { idSchema, parseOr400 } from '../http/validate';
@@ -15,24 +14,24 @@ const requireAdmin: RequestHandler = (req, _res, next) => {
 
 /** `/api/admin…`: user management and the development inbox. */
 export function adminRouter(ctx: AppContext): Router {
-  const { db, config } = ctx;
+  const { config } = ctx;
+  const d = ctx.data;
+  const { users } = d.t;
   const router = express.Router();
   router.use(requireUser, requireAdmin);
 
-  router.get('/users', (req, res) => {
+  router.get('/users', async (req, res) => {
     const q = parseOr400(searchPageQuerySchema, req.query, 'Invalid query');
-    const where = q.q
-      ? or(sql`${users.email} LIKE ${likeContains(q.q)} ESCAPE '\\'`, sql`${users.displayName} LIKE ${likeContains(q.q)} ESCAPE '\\'`)
-      : undefined;
-    const total = db.select({ n: count() }).from(users).where(where).get()?.n ?? 0;
-    const rows = db
+    // Ignoring case alike on both databases, as SQLite's LIKE does.
+    const where = q.q ? or(d.likeIgnoringCase(users.email, likeContains(q.q)), d.likeIgnoringCase(users.displayName, likeContains(q.q))) : undefined;
+    const [{ n: total }] = await d.db.select({ n: count() }).from(users).where(where);
+    const rows = await d.db
       .select()
       .from(users)
       .where(where)
       .orderBy(desc(users.createdAt), users.id)
       .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize)
-      .all();
+      .offset((q.page - 1) * q.pageSize);
     res.json({ items: rows.map(publicUser), total, page: q.page, pageSize: q.pageSize });
   });
 

@@ -5,7 +5,6 @@ import type { PatternDocument } from '@seamwright/piecing';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { colourwayCopies } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
@@ -15,8 +14,8 @@ import { findRevision } from '../services/revisions';
 /** What the routes read of the latest revision: its fabric slots and colourways. */
 type CopiedDocument = Pick<PatternDocument, 'fabrics' | 'colourways'>;
 
-function latestDocument(ctx: AppContext, patternId: string): CopiedDocument {
-  const latest = findRevision(ctx.db, patternId);
+async function latestDocument(ctx: AppContext, patternId: string): Promise<CopiedDocument> {
+  const latest = await findRevision(ctx.data, patternId);
   return latest ? (JSON.parse(latest.revision.document) as CopiedDocument) : { fabrics: [], colourways: [] };
 }
 
@@ -26,41 +25,40 @@ function latestDocument(ctx: AppContext, patternId: string): CopiedDocument {
  * own copies (anyone else's answer 404). A save carries the copy's version; a stale one gets 409.
  */
 export function colourwayCopiesRouter(ctx: AppContext): Router {
-  const { db } = ctx;
+  const d = ctx.data;
+  const { colourwayCopies } = d.t;
   const router = express.Router({ mergeParams: true });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
-    const rows = db
+    const rows = await d.db
       .select()
       .from(colourwayCopies)
       .where(and(eq(colourwayCopies.userId, user.id), eq(colourwayCopies.patternId, pattern.id)))
-      .orderBy(asc(colourwayCopies.createdAt), asc(colourwayCopies.id))
-      .all();
+      .orderBy(asc(colourwayCopies.createdAt), asc(colourwayCopies.id));
     res.json({ items: rows.map(copyJson) });
   });
 
-  router.get('/:copyId', (req, res) => {
+  router.get('/:copyId', async (req, res) => {
     const { pattern } = patternOf(res);
-    res.json({ copy: copyJson(findOwnCopy(db, currentUser(req).id, pattern.id, req.params.copyId)) });
+    res.json({ copy: copyJson(await findOwnCopy(d, currentUser(req).id, pattern.id, req.params.copyId)) });
   });
 
-  router.post('/', (req, res) => {
+  router.post('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
     const body = parseOr400(createColourwayCopyBodySchema, req.body ?? {});
-    const doc = latestDocument(ctx, pattern.id);
+    const doc = await latestDocument(ctx, pattern.id);
     const source = body.colourwayId === null ? null : (doc.colourways ?? []).find((c) => c.id === body.colourwayId);
     if (source === undefined) {
       const known = (doc.colourways ?? []).map((c) => `"${c.id}"`).join(', ') || 'none';
       throw new HttpError(400, 'No such colourway in the latest revision', [{ path: 'colourwayId', message: `unknown colourway "${body.colourwayId}" (the pattern has: ${known})` }]);
     }
-    const held = db
+    const [{ n: held }] = await d.db
       .select({ n: count() })
       .from(colourwayCopies)
-      .where(and(eq(colourwayCopies.userId, user.id), eq(colourwayCopies.patternId, pattern.id)))
-      .get()?.n ?? 0;
+      .where(and(eq(colourwayCopies.userId, user.id), eq(colourwayCopies.patternId, pattern.id)));
     if (held >= MAX_COLOURWAY_COPIES) {
       throw new HttpError(409, `You already have ${MAX_COLOURWAY_COPIES} copies of this pattern's colourways; delete one first`, { max: MAX_COLOURWAY_COPIES });
     }
@@ -71,7 +69,7 @@ export function colourwayCopiesRouter(ctx: AppContext): Router {
       fabrics[f.id] = slot ? { name: slot.name, colour: slot.colour } : { name: f.name, colour: f.colour };
     }
     const now = new Date();
-    const row = db
+    const [row] = await d.db
       .insert(colourwayCopies)
       .values({
         id: newId(),
@@ -84,18 +82,17 @@ export function colourwayCopiesRouter(ctx: AppContext): Router {
         createdAt: now,
         updatedAt: now,
       })
-      .returning()
-      .get();
+      .returning();
     res.status(201).json({ copy: copyJson(row) });
   });
 
-  router.patch('/:copyId', (req, res) => {
+  router.patch('/:copyId', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
-    const copy = findOwnCopy(db, user.id, pattern.id, req.params.copyId);
+    const copy = await findOwnCopy(d, user.id, pattern.id, req.params.copyId);
     const body = parseOr400(updateColourwayCopyBodySchema, req.body ?? {});
     if (body.fabrics) {
-      const slots = new Set(latestDocument(ctx, pattern.id).fabrics.map((f) => f.id));
+      const slots = new Set((await latestDocument(ctx, pattern.id)).fabrics.map((f) => f.id));
       const unknown = Object.keys(body.fabrics).filter((k) => !slots.has(k));
       if (unknown.length > 0) {
         throw new HttpError(
@@ -106,7 +103,7 @@ export function colourwayCopiesRouter(ctx: AppContext): Router {
       }
     }
     // The version check and the write are one statement, so two saves of the same version cannot both land.
-    const updated = db
+    const [updated] = await d.db
       .update(colourwayCopies)
       .set({
         ...(body.name !== undefined ? { name: body.name } : {}),
@@ -115,19 +112,18 @@ export function colourwayCopiesRouter(ctx: AppContext): Router {
         updatedAt: new Date(),
       })
       .where(and(eq(colourwayCopies.id, copy.id), eq(colourwayCopies.version, body.version)))
-      .returning()
-      .get();
+      .returning();
     if (!updated) {
-      const latest = findOwnCopy(db, user.id, pattern.id, copy.id);
+      const latest = await findOwnCopy(d, user.id, pattern.id, copy.id);
       throw new HttpError(409, `This copy was changed elsewhere (version ${latest.version}); reload it and make your change again`, { latest: copyJson(latest) });
     }
     res.json({ copy: copyJson(updated) });
   });
 
-  router.delete('/:copyId', (req, res) => {
+  router.delete('/:copyId', async (req, res) => {
     const { pattern } = patternOf(res);
-    const copy = findOwnCopy(db, currentUser(req).id, pattern.id, req.params.copyId);
-    db.delete(colourwayCopies).where(eq(colourwayCopies.id, copy.id)).run();
+    const copy = await findOwnCopy(d, currentUser(req).id, pattern.id, req.params.copyId);
+    await d.db.delete(colourwayCopies).where(eq(colourwayCopies.id, copy.id));
     res.status(204).end();
   });
 

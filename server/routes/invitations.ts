@@ -4,17 +4,17 @@ import { acceptInvitationBodySchema, invitationTokenSchema } from '@seamwright/a
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
 import { hashToken } from '../auth/tokens';
-import { invitations, members, patterns, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { ownerName, patternJson } from '../services/revisions';
-import type { DbLike } from '../db/database';
+import type { Data } from '../db/data';
 
 
 const invalid = () => new HttpError(404, 'This invitation is invalid, used, revoked or expired');
 
-function liveInvitation(db: DbLike, token: string) {
-  return db
+async function liveInvitation(d: Data, token: string) {
+  const { invitations, patterns, users } = d.t;
+  const [found] = await d.db
     .select({ invitation: invitations, pattern: patterns, inviterName: users.displayName })
     .from(invitations)
     .innerJoin(patterns, eq(patterns.id, invitations.patternId))
@@ -27,18 +27,18 @@ function liveInvitation(db: DbLike, token: string) {
         gt(invitations.expiresAt, new Date()),
         isNull(patterns.trashedAt),
       ),
-    )
-    .get();
+    );
+  return found;
 }
 
 /** `/api/invitations…`: preview and accept an invitation by its e-mailed token. */
 export function invitationsRouter(ctx: AppContext): Router {
-  const { db } = ctx;
+  const d = ctx.data;
   const router = express.Router();
 
-  router.get('/:token', (req, res) => {
+  router.get('/:token', async (req, res) => {
     const token = invitationTokenSchema.safeParse(req.params.token);
-    const found = token.success ? liveInvitation(db, token.data) : undefined;
+    const found = token.success ? await liveInvitation(d, token.data) : undefined;
     if (!found) throw invalid();
     res.json({
       invitation: {
@@ -51,31 +51,32 @@ export function invitationsRouter(ctx: AppContext): Router {
     });
   });
 
-  router.post('/accept', requireUser, (req, res) => {
+  router.post('/accept', requireUser, async (req, res) => {
     const user = currentUser(req);
     const body = parseOr400(acceptInvitationBodySchema, req.body);
-    const result = db.transaction(
-      (tx) => {
-        const found = liveInvitation(tx, body.token);
-        if (!found) throw invalid();
-        if (found.invitation.email !== user.email) {
-          throw new HttpError(403, `This invitation was sent to ${found.invitation.email}; sign in with that address to accept it`);
-        }
-        tx.update(invitations)
-          .set({ acceptedAt: new Date(), acceptedBy: user.id })
-          .where(eq(invitations.id, found.invitation.id))
-          .run();
-        if (found.pattern.ownerId !== user.id) {
-          tx.insert(members)
-            .values({ patternId: found.pattern.id, userId: user.id, access: found.invitation.access, createdAt: new Date() })
-            .onConflictDoUpdate({ target: [members.patternId, members.userId], set: { access: found.invitation.access } })
-            .run();
-        }
-        return { pattern: found.pattern, access: found.pattern.ownerId === user.id ? ('owner' as const) : found.invitation.access };
-      },
-      { behavior: 'immediate' },
-    );
-    res.json({ pattern: patternJson(result.pattern, ownerName(db, result.pattern.ownerId), result.access) });
+    const result = await d.transaction(async (tx) => {
+      const { invitations, members } = tx.t;
+      const found = await liveInvitation(tx, body.token);
+      if (!found) throw invalid();
+      if (found.invitation.email !== user.email) {
+        throw new HttpError(403, `This invitation was sent to ${found.invitation.email}; sign in with that address to accept it`);
+      }
+      // Used once: when another acceptance (on any instance) got there first, this update changes nothing.
+      const used = await tx.db
+        .update(invitations)
+        .set({ acceptedAt: new Date(), acceptedBy: user.id })
+        .where(and(eq(invitations.id, found.invitation.id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+        .returning({ id: invitations.id });
+      if (used.length === 0) throw invalid();
+      if (found.pattern.ownerId !== user.id) {
+        await tx.db
+          .insert(members)
+          .values({ patternId: found.pattern.id, userId: user.id, access: found.invitation.access, createdAt: new Date() })
+          .onConflictDoUpdate({ target: [members.patternId, members.userId], set: { access: found.invitation.access } });
+      }
+      return { pattern: found.pattern, access: found.pattern.ownerId === user.id ? ('owner' as const) : found.invitation.access };
+    });
+    res.json({ pattern: patternJson(result.pattern, await ownerName(d, result.pattern.ownerId), result.access) });
   });
 
   return router;

@@ -3,14 +3,14 @@ import express, { type Router } from 'express';
 import { sectionIdParamSchema, sewingStageBodySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
-import { sewingLog } from '../db/schema';
+import type { Tables } from '../db/data';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { findRevision } from '../services/revisions';
 
 
-const entryJson = (e: typeof sewingLog.$inferSelect) => ({ sectionId: e.sectionId, copy: e.copy, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
+const entryJson = (e: Tables['sewingLog']['$inferSelect']) => ({ sectionId: e.sectionId, copy: e.copy, stage: e.stage, updatedAt: e.updatedAt.toISOString() });
 
 /** What the route reads of the latest revision: each section's ring repeat, and the block count. */
 interface LoggedDocument {
@@ -23,27 +23,27 @@ interface LoggedDocument {
  * section (ring repeats × blocks: 8 ring copies of B are 8 things to sew), see docs/api.md.
  */
 export function sewingLogRouter(ctx: AppContext): Router {
-  const { db } = ctx;
+  const d = ctx.data;
+  const { sewingLog } = d.t;
   const router = express.Router({ mergeParams: true });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
-    const rows = db
+    const rows = await d.db
       .select()
       .from(sewingLog)
       .where(and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id)))
-      .orderBy(sewingLog.sectionId, sewingLog.copy)
-      .all();
+      .orderBy(sewingLog.sectionId, sewingLog.copy);
     res.json({ entries: rows.map(entryJson) });
   });
 
-  router.put('/:sectionId', (req, res) => {
+  router.put('/:sectionId', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
     const sectionId = parseOr400(sectionIdParamSchema, req.params.sectionId, 'Invalid section id');
     const body = parseOr400(sewingStageBodySchema, req.body);
-    const latest = findRevision(db, pattern.id);
+    const latest = await findRevision(d, pattern.id);
     const doc: LoggedDocument = latest ? (JSON.parse(latest.revision.document) as LoggedDocument) : { sections: [] };
     const section = doc.sections.find((s) => s.id === sectionId);
     if (!section) {
@@ -55,19 +55,18 @@ export function sewingLogRouter(ctx: AppContext): Router {
     }
     const key = and(eq(sewingLog.patternId, pattern.id), eq(sewingLog.userId, user.id), eq(sewingLog.sectionId, sectionId), eq(sewingLog.copy, body.copy));
     if (body.stage === null) {
-      db.delete(sewingLog).where(key).run();
+      await d.db.delete(sewingLog).where(key);
       res.json({ entry: null });
       return;
     }
-    const entry = db
+    const [entry] = await d.db
       .insert(sewingLog)
       .values({ patternId: pattern.id, userId: user.id, sectionId, copy: body.copy, stage: body.stage, updatedAt: new Date() })
       .onConflictDoUpdate({
         target: [sewingLog.patternId, sewingLog.userId, sewingLog.sectionId, sewingLog.copy],
         set: { stage: body.stage, updatedAt: new Date() },
       })
-      .returning()
-      .get();
+      .returning();
     res.json({ entry: entryJson(entry) });
   });
 

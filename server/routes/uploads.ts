@@ -7,7 +7,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { uploads, type Upload } from '../db/schema';
+import type { Upload } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
@@ -51,7 +51,8 @@ export const cleanFileName = (name: string) =>
 
 /** `/api/patterns/:id/uploads…`: reference images to trace on the drafting board. */
 export function uploadsRouter(ctx: AppContext): Router {
-  const { db } = ctx;
+  const d = ctx.data;
+  const { uploads } = d.t;
   const router = express.Router({ mergeParams: true });
   const files = fileStoreOf(ctx);
   const receive = multer({
@@ -92,7 +93,7 @@ export function uploadsRouter(ctx: AppContext): Router {
     const storagePath = `uploads/${user.id}/${id}.${ext}`;
     const stored = await files.put(storagePath, file.buffer);
     try {
-      const row = db
+      const [row] = await d.db
         .insert(uploads)
         .values({
           id,
@@ -105,8 +106,7 @@ export function uploadsRouter(ctx: AppContext): Router {
           storagePath,
           createdAt: new Date(),
         })
-        .returning()
-        .get();
+        .returning();
       res.status(201).json({ upload: uploadJson(row) });
     } catch (err) {
       await files.remove([storagePath]);
@@ -114,22 +114,22 @@ export function uploadsRouter(ctx: AppContext): Router {
     }
   });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
-    const rows = db.select().from(uploads).where(eq(uploads.patternId, pattern.id)).orderBy(desc(uploads.createdAt)).all();
+    const rows = await d.db.select().from(uploads).where(eq(uploads.patternId, pattern.id)).orderBy(desc(uploads.createdAt));
     res.json({ items: rows.map(uploadJson) });
   });
 
-  const findUpload = (patternId: string, raw: unknown) => {
+  const findUpload = async (patternId: string, raw: unknown) => {
     const uploadId = parseOr400(idSchema, raw, 'Invalid upload id');
-    const row = db.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.patternId, patternId))).get();
+    const [row] = await d.db.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.patternId, patternId)));
     if (!row) throw new HttpError(404, 'Upload not found');
     return row;
   };
 
   router.get('/:uploadId/file', async (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findUpload(pattern.id, req.params.uploadId);
+    const row = await findUpload(pattern.id, req.params.uploadId);
     // RFC 6266: an ASCII fallback in filename= and the exact name in filename*=UTF-8''… (RFC 5987).
     res.setHeader('Content-Disposition', contentDisposition(row.fileName, { type: 'inline' }));
     res.setHeader('Cache-Control', 'private, max-age=3600');
@@ -142,8 +142,8 @@ export function uploadsRouter(ctx: AppContext): Router {
 
   router.delete('/:uploadId', async (req, res) => {
     const { pattern } = patternOf(res, 'edit');
-    const row = findUpload(pattern.id, req.params.uploadId);
-    db.delete(uploads).where(eq(uploads.id, row.id)).run();
+    const row = await findUpload(pattern.id, req.params.uploadId);
+    await d.db.delete(uploads).where(eq(uploads.id, row.id));
     await files.remove([row.storagePath]);
     res.status(204).end();
   });

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { ColourwayCopy as ColourwayCopyJson } from '@seamwright/api';
-import type { DbLike } from '../db/database';
-import { colourwayCopies, type ColourwayCopy } from '../db/schema';
+import type { Data } from '../db/data';
+import type { ColourwayCopy } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { idSchema } from '../http/validate';
 
@@ -12,13 +12,13 @@ export const copyNotFound = () => new HttpError(404, 'Colourway copy not found')
  * The caller's own copy of this pattern (docs/api.md "Colourway copies"), or 404: a copy is its
  * owner's alone, so another user's copy, a copy of another pattern and a malformed id all answer alike.
  */
-export function findOwnCopy(db: DbLike, userId: string, patternId: string, copyId: unknown): ColourwayCopy {
+export async function findOwnCopy(d: Data, userId: string, patternId: string, copyId: unknown): Promise<ColourwayCopy> {
   if (!idSchema.safeParse(copyId).success) throw copyNotFound();
-  const row = db
+  const { colourwayCopies } = d.t;
+  const [row] = await d.db
     .select()
     .from(colourwayCopies)
-    .where(and(eq(colourwayCopies.id, copyId as string), eq(colourwayCopies.userId, userId), eq(colourwayCopies.patternId, patternId)))
-    .get();
+    .where(and(eq(colourwayCopies.id, copyId as string), eq(colourwayCopies.userId, userId), eq(colourwayCopies.patternId, patternId)));
   if (!row) throw copyNotFound();
   return row;
 }
