@@ -1,3 +1,4 @@
+import { count } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FORMAT_VERSION } from '@seamwright/piecing';
 import { sampleDocument, startTestServer, userClient, type Client, type TestServer } from './test/harness';
@@ -17,11 +18,11 @@ afterAll(async () => {
   await t.close();
 });
 
-const patternCount = () => (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM patterns').get() as { n: number }).n;
+const patternCount = async () => (await t.ctx.data.db.select({ n: count() }).from(t.ctx.data.t.patterns))[0]!.n;
 
 describe('creating a pattern from a file', () => {
   it('answers 400 with every problem and its path, and stores nothing', async () => {
-    const before = patternCount();
+    const before = await patternCount();
     const file = sampleDocument('Broken file');
     const broken = {
       ...file,
@@ -43,17 +44,17 @@ describe('creating a pattern from a file', () => {
       { path: 'document.sections.1.label', message: 'must be one to three capital letters' },
       { path: 'document.sections.1.geometry.vertices.1.x', message: 'must be within ±200 in.' },
     ]);
-    expect(patternCount()).toBe(before);
+    expect(await patternCount()).toBe(before);
   });
 
   it('refuses a file of a newer format version by its path', async () => {
-    const before = patternCount();
+    const before = await patternCount();
     const res = await designer.post('/api/patterns', { document: { ...sampleDocument('From the future'), formatVersion: FORMAT_VERSION + 1 } });
     expect(res.status).toBe(400);
     expect(res.body.details).toEqual([
       { path: 'document.formatVersion', message: `version ${FORMAT_VERSION + 1} is newer than this program reads (${FORMAT_VERSION})` },
     ]);
-    expect(patternCount()).toBe(before);
+    expect(await patternCount()).toBe(before);
   });
 
   it('takes a version 1 file and stores it in the current format', async () => {

@@ -7,6 +7,7 @@
  * the inline path does.
  */
 import { monitorEventLoopDelay } from 'node:perf_hooks';
+import { and, eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { largestDocument } from '../tests/fixtures/largest-document';
@@ -24,6 +25,17 @@ beforeAll(async () => {
 afterAll(async () => {
   await t.close();
 });
+
+/** A stored revision's document and version fields, read through the data layer. */
+async function storedRevision(id: string, number: number) {
+  const { revisions } = t.ctx.data.t;
+  const [row] = await t.ctx.data.db
+    .select({ document: revisions.document, name: revisions.versionName, note: revisions.versionNote, session: revisions.editSession })
+    .from(revisions)
+    .where(and(eq(revisions.patternId, id), eq(revisions.number, number)));
+  if (!row) throw new Error(`no revision ${number}`);
+  return row;
+}
 
 async function newPattern(title: string): Promise<string> {
   const res = await owner.post('/api/patterns', { document: sampleDocument(title) });
@@ -116,7 +128,7 @@ describe('saving the largest valid document', () => {
     expect(t.ctx.documentChecks.started).toBe(true);
 
     // What the pool stored is exactly what the inline check would store.
-    const stored = t.ctx.database.sqlite.prepare('SELECT document FROM revisions WHERE pattern_id = ? AND number = 3').get(id) as { document: string };
+    const stored = await storedRevision(id, 3);
     expect(stored.document).toBe(JSON.stringify(validDocument(JSON.parse(text).document)));
   }, 120_000);
 
@@ -202,17 +214,14 @@ describe('saving the largest valid document as a named version', () => {
     // The version fields went through the same schema: control characters stripped, trimmed.
     expect(answer.revision.version).toMatchObject({ name: 'Quilt top', note: 'Before the border' });
 
-    const row = (n: number) =>
-      t.ctx.database.sqlite
-        .prepare('SELECT document, version_name AS name, version_note AS note, edit_session AS session FROM revisions WHERE pattern_id = ? AND number = ?')
-        .get(id, n) as { document: string; name: string; note: string; session: string };
-    expect(row(3)).toEqual({ document: JSON.stringify(validDocument(JSON.parse(text).document)), name: 'Quilt top', note: 'Before the border', session: 'version-session-1' });
+    const row = (n: number) => storedRevision(id, n);
+    expect(await row(3)).toEqual({ document: JSON.stringify(validDocument(JSON.parse(text).document)), name: 'Quilt top', note: 'Before the border', session: 'version-session-1' });
 
     // A small version body without a document keeps the latest revision's stored text as it is.
     const ofHead = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 3, name: 'Again' });
     expect(ofHead.status).toBe(201);
     expect(ofHead.body.pattern.title).toBe('Largest version');
-    expect(row(4).document).toBe(row(3).document);
+    expect((await row(4)).document).toBe((await row(3)).document);
   }, 120_000);
 
   it('answers large bad version bodies as the inline path does', async () => {
@@ -273,8 +282,7 @@ describe('restoring a revision with the largest document', () => {
     const large = await putText(id, JSON.stringify({ baseRevision: 1, document: largestDocument('Large "quoted" title', 0) }));
     expect(large.status).toBe(200);
     expect((await owner.put(`/api/patterns/${id}`, { baseRevision: 2, document: sampleDocument('Small again') })).status).toBe(200);
-    const text = (n: number) =>
-      (t.ctx.database.sqlite.prepare('SELECT document FROM revisions WHERE pattern_id = ? AND number = ?').get(id, n) as { document: string }).document;
+    const text = async (n: number) => (await storedRevision(id, n)).document;
 
     const delay = monitorEventLoopDelay({ resolution: 10 });
     delay.enable();
@@ -285,14 +293,14 @@ describe('restoring a revision with the largest document', () => {
     expect(answer.pattern.title).toBe('Large "quoted" title');
     expect(answer.revision).toMatchObject({ number: 4, restoredFrom: 2 });
     // What the old route stored: the text parsed and written out again.
-    expect(text(4)).toBe(JSON.stringify(JSON.parse(text(2))));
-    expect(text(4)).toBe(text(2));
+    expect(await text(4)).toBe(JSON.stringify(JSON.parse(await text(2))));
+    expect(await text(4)).toBe(await text(2));
     expect(delay.max / 1e6).toBeLessThan(500);
 
     // A named version of that head (no document) keeps its text and title too.
     const version = await owner.post(`/api/patterns/${id}/revisions`, { baseRevision: 4, name: 'Restored' });
     expect(version.status).toBe(201);
     expect(version.body.pattern.title).toBe('Large "quoted" title');
-    expect(text(5)).toBe(text(2));
+    expect(await text(5)).toBe(await text(2));
   }, 120_000);
 });
