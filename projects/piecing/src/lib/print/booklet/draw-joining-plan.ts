@@ -54,6 +54,8 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
   const all = copies.flatMap((c) => c.ring);
   const block = polygonBounds(all);
   const zoomed = copies.length > WHOLE_BLOCK_DIAGRAM_MAX;
+  // Each section's bounds over all its copies, so a late step's view does not walk every outline of its large unit.
+  const sectionBounds = new Map([...outlines].map(([id, rings]) => [id, polygonBounds(rings.flat())]));
   const cellW = flow.width / COLUMNS;
   const texts = steps.map((s) => ctx.pen.wrap(captionOf(s), cellW - 0.15, CAPTION_PT));
   for (let row = 0; row * COLUMNS < steps.length; row++) {
@@ -63,7 +65,7 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
     items.forEach((step, c) => {
       // The step number sits above its diagram, so a diagram filling its box never covers it.
       const box = { x: top.x + c * cellW + 0.05, y: top.y + NUMBER_IN, width: cellW - 0.1, height: DIAGRAM_IN - NUMBER_IN };
-      const view = zoomed ? seamView(step, outlines) : null;
+      const view = zoomed ? seamView(step, sectionBounds) : null;
       const fit = view ? fitDiagram(corners(view), box, false) : fitDiagram(all, box, false);
       // A large block: only the copies near the seam, clipped to the diagram, so each diagram costs the same at any size.
       const shown = view ? copies.filter((o) => overlapsBox(o.bounds, view)) : copies;
@@ -93,9 +95,24 @@ function drawSteps(ctx: BookletContext, flow: SheetFlow, steps: readonly Resolve
 type Bounds = { minX: number; minY: number; maxX: number; maxY: number };
 
 /** The seam and the part joined on, with as much again around them (a square, so the diagram stays in proportion). */
-function seamView(step: ResolvedJoinStep, outlines: Map<string, Point[][]>): Bounds {
-  const points = [...step.seam.paths.flat(), ...step.partB.sectionIds.flatMap((id) => (outlines.get(id) ?? []).flat())];
-  const b = polygonBounds(points.length > 0 ? points : step.partA.sectionIds.flatMap((id) => (outlines.get(id) ?? []).flat()));
+function seamView(step: ResolvedJoinStep, sectionBounds: Map<string, Bounds>): Bounds {
+  // The bounds of the seam's points and part B's outlines (of part A's when there are none): min and max
+  // taken over each section's bounds are those taken over all their points.
+  const b = polygonBounds(step.seam.paths.flat());
+  let any = step.seam.paths.some((path) => path.length > 0);
+  const widen = (ids: readonly string[]) => {
+    for (const id of ids) {
+      const s = sectionBounds.get(id);
+      if (!s || s.minX > s.maxX) continue;
+      any = true;
+      b.minX = Math.min(b.minX, s.minX);
+      b.minY = Math.min(b.minY, s.minY);
+      b.maxX = Math.max(b.maxX, s.maxX);
+      b.maxY = Math.max(b.maxY, s.maxY);
+    }
+  };
+  widen(step.partB.sectionIds);
+  if (!any) widen(step.partA.sectionIds);
   const size = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1e-3) * 2;
   const cx = (b.minX + b.maxX) / 2;
   const cy = (b.minY + b.maxY) / 2;
