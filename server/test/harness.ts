@@ -43,7 +43,8 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     BCRYPT_ROUNDS: '4',
     ...env,
   });
-  const opened = await openData({ dataDir: config.dataDir, databaseUrl: config.databaseUrl ?? (await testDatabaseUrl()) }, { poolSize: 5 });
+  const databaseUrl = config.databaseUrl ?? (await testDatabaseUrl());
+  const opened = await openData({ dataDir: config.dataDir, databaseUrl }, { poolSize: 5 });
   const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
   const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
@@ -64,7 +65,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     mailOutbox,
     log,
     printSets,
-    documentChecks: new DocumentChecks(config.dataDir),
+    documentChecks: new DocumentChecks(config.dataDir, undefined, databaseUrl),
   };
   const app = createApp(ctx);
   return {
