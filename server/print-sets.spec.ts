@@ -6,7 +6,8 @@ import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { misnumberedStrip } from '../tests/fixtures/documents';
 import { manySheetsDocument } from '../tests/support/documents';
 import { MAX_PRINT_SHEETS } from './print/print-budget';
-import { TINY_PNG, sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { and, count, eq, like } from 'drizzle-orm';
+import { TINY_PNG, sharedPattern, startTestServer, testDatabase, userClient, type Client, type TestServer } from './test/harness';
 
 let t: TestServer;
 let owner: Client;
@@ -26,6 +27,12 @@ afterAll(async () => {
   await t.close();
 });
 
+/** The pattern's first revision. */
+async function firstRevision() {
+  const { revisions } = t.ctx.data.t;
+  return (await t.ctx.data.db.select({ id: revisions.id }).from(revisions).where(and(eq(revisions.patternId, patternId), eq(revisions.number, 1))))[0];
+}
+
 async function waitDone(c: Client, setId: string) {
   for (let i = 0; i < 600; i++) {
     const res = await c.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200);
@@ -33,6 +40,22 @@ async function waitDone(c: Client, setId: string) {
     await new Promise((r) => setTimeout(r, 100));
   }
   throw new Error('print set did not finish');
+}
+
+/** The stored file under `key` (the data folder with SQLite, the database with PostgreSQL), or undefined. */
+async function storedBytes(key: string): Promise<Buffer | undefined> {
+  const stream = await t.ctx.files.openRead(key);
+  if (!stream) return undefined;
+  const chunks: Buffer[] = [];
+  for await (const c of stream) chunks.push(Buffer.from(c as Uint8Array));
+  return Buffer.concat(chunks);
+}
+const isStored = async (key: string) => (await t.ctx.files.stat(key)) !== undefined;
+
+/** A set's status as stored, or undefined when its row is gone. */
+async function statusOf(id: string) {
+  const { printSets } = t.ctx.data.t;
+  return (await t.ctx.data.db.select({ status: printSets.status, progress: printSets.progress }).from(printSets).where(eq(printSets.id, id)))[0];
 }
 
 const binary = (res: import('superagent').Response, cb: (err: Error | null, body: Buffer) => void) => {
@@ -67,10 +90,12 @@ describe('print sets', () => {
     expect(Math.abs(h - (297 / 25.4) * 72)).toBeLessThan(0.01);
     await pdf.destroy();
 
-    // Stored in the data folder under the user who made it.
-    const stored = path.join(t.dataDir, 'print-sets', quilter.user!.id, `${set.id}.pdf`);
-    expect(fs.readFileSync(stored).equals(bytes)).toBe(true);
-    expect(fs.readdirSync(path.dirname(stored)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+    // Stored under the user who made it (the data folder, or the database with PostgreSQL).
+    expect((await storedBytes(`print-sets/${quilter.user!.id}/${set.id}.pdf`))?.equals(bytes)).toBe(true);
+    if (testDatabase === 'sqlite') {
+      const stored = path.join(t.dataDir, 'print-sets', quilter.user!.id, `${set.id}.pdf`);
+      expect(fs.readdirSync(path.dirname(stored)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+    }
 
     await stranger.get(set.url).expect(404);
     await stranger.get(`/api/patterns/${patternId}/print-sets/${set.id}`).expect(404);
@@ -123,33 +148,33 @@ describe('print sets', () => {
   it('deletes a print set and its file; only the maker or the owner may', async () => {
     const made = await quilter.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
     const set = await waitDone(quilter, made.body.printSet.id);
-    const stored = path.join(t.dataDir, 'print-sets', quilter.user!.id, `${set.id}.pdf`);
-    expect(fs.existsSync(stored)).toBe(true);
+    const stored = `print-sets/${quilter.user!.id}/${set.id}.pdf`;
+    expect(await isStored(stored)).toBe(true);
     const byOwner = await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
     await waitDone(owner, byOwner.body.printSet.id);
     await quilter.del(`/api/patterns/${patternId}/print-sets/${byOwner.body.printSet.id}`).expect(403);
     await owner.del(`/api/patterns/${patternId}/print-sets/${set.id}`).expect(204);
-    expect(fs.existsSync(stored)).toBe(false);
+    expect(await isStored(stored)).toBe(false);
     await quilter.get(set.url).expect(404);
   });
 
   it('deleting the pattern for good removes its print-set and upload files', async () => {
     const id = await sharedPattern(t, owner, [], 'Doomed');
     const up = await owner.req('post', `/api/patterns/${id}/uploads`).attach('file', TINY_PNG, 'ref.png').expect(201);
-    const image = path.join(t.dataDir, 'uploads', owner.user!.id, `${up.body.upload.id}.png`);
-    expect(fs.existsSync(image)).toBe(true);
+    const image = `uploads/${owner.user!.id}/${up.body.upload.id}.png`;
+    expect(await isStored(image)).toBe(true);
     const made = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202);
     for (let i = 0; i < 600; i++) {
       const r = await owner.get(`/api/patterns/${id}/print-sets/${made.body.printSet.id}`);
       if (r.body.printSet.status === 'done') break;
       await new Promise((res) => setTimeout(res, 100));
     }
-    const stored = path.join(t.dataDir, 'print-sets', owner.user!.id, `${made.body.printSet.id}.pdf`);
-    expect(fs.existsSync(stored)).toBe(true);
+    const stored = `print-sets/${owner.user!.id}/${made.body.printSet.id}.pdf`;
+    expect(await isStored(stored)).toBe(true);
     await owner.post(`/api/patterns/${id}/trash`).expect(200);
     await owner.del(`/api/patterns/${id}`).expect(204);
-    expect(fs.existsSync(stored)).toBe(false);
-    expect(fs.existsSync(image)).toBe(false);
+    expect(await isStored(stored)).toBe(false);
+    expect(await isStored(image)).toBe(false);
   });
 
   it('refuses a pattern with a section not sewable as numbered (422, the reason), and queues it when the request prints anyway', async () => {
@@ -172,7 +197,8 @@ describe('print sets', () => {
   it('marks a set failed, with the reason, when its revision cannot be rendered; the file answers 409', async () => {
     const id = await sharedPattern(t, owner, [], 'Broken');
     // A stored document the current schema refuses (as an old, damaged row would be).
-    t.ctx.database.sqlite.prepare("UPDATE revisions SET document = '{\"formatVersion\": 99}' WHERE pattern_id = ?").run(id);
+    const { revisions } = t.ctx.data.t;
+    await t.ctx.data.db.update(revisions).set({ document: '{"formatVersion": 99}' }).where(eq(revisions.patternId, id));
     const made = await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202);
     let set = made.body.printSet;
     for (let i = 0; i < 600 && set.status !== 'done' && set.status !== 'failed'; i++) {
@@ -191,14 +217,19 @@ describe('print sets', () => {
 
   it('picks up sets left queued by a stopped process when the next one starts', async () => {
     const { PrintSetService } = await import('./services/print-sets');
-    const rev = t.ctx.database.sqlite.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(patternId) as { id: string };
+    const rev = await firstRevision();
     const setId = 'leftoverQueuedSet01';
-    t.ctx.database.sqlite
-      .prepare(
-        `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, created_at)
-         VALUES (?, ?, ?, 1, ?, ?, 'rendering', 0.4, ?)`,
-      )
-      .run(setId, patternId, rev.id, owner.user!.id, JSON.stringify({ paper: 'letter', createdAt: '2026-01-01T00:00:00.000Z' }), Date.now());
+    await t.ctx.data.db.insert(t.ctx.data.t.printSets).values({
+      id: setId,
+      patternId,
+      revisionId: rev.id,
+      revisionNumber: 1,
+      createdBy: owner.user!.id,
+      options: JSON.stringify({ paper: 'letter', createdAt: '2026-01-01T00:00:00.000Z' }),
+      status: 'rendering',
+      progress: 0.4,
+      createdAt: new Date(),
+    });
     const fresh = new PrintSetService(t.ctx.data, t.ctx.config, () => undefined, t.ctx.files, t.ctx.printSets.jobOptions);
     try {
       await fresh.resumeUnfinished();
@@ -209,31 +240,40 @@ describe('print sets', () => {
     }
     const set = (await owner.get(`/api/patterns/${patternId}/print-sets/${setId}`).expect(200)).body.printSet;
     expect(set.status).toBe('done');
-    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${setId}.pdf`))).toBe(true);
+    expect(await isStored(`print-sets/${owner.user!.id}/${setId}.pdf`)).toBe(true);
   });
 
   it('answers 429 when a user already has as many sets waiting as allowed', async () => {
-    const sql = t.ctx.database.sqlite;
-    const rev = sql.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(patternId) as { id: string };
+    const { db, t: tables } = t.ctx.data;
+    const { printSets, members } = tables;
+    const rev = await firstRevision();
     // Four sets waiting (rows only, so none finishes during the test); PRINT_QUEUE_PER_USER=4.
-    const add = sql.prepare(
-      `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, created_at)
-       VALUES (?, ?, ?, 1, ?, '{}', 'queued', 0, ?)`,
-    );
-    for (let i = 0; i < 4; i++) add.run(`waitingSet${i}`, patternId, rev.id, stranger.user!.id, Date.now());
-    sql.prepare("INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, 'quilter', ?)").run(patternId, stranger.user!.id, Date.now());
+    for (let i = 0; i < 4; i++) {
+      await db.insert(printSets).values({
+        id: `waitingSet${i}`,
+        patternId,
+        revisionId: rev.id,
+        revisionNumber: 1,
+        createdBy: stranger.user!.id,
+        options: '{}',
+        status: 'queued',
+        progress: 0,
+        createdAt: new Date(),
+      });
+    }
+    await db.insert(members).values({ patternId, userId: stranger.user!.id, access: 'quilter', createdAt: new Date() });
     try {
       const refused = await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} });
       expect(refused.status).toBe(429);
       expect(refused.body.details).toEqual({ waiting: 4 });
       // The limit is per user: another user may still queue a set.
       await owner.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
-      sql.prepare("DELETE FROM print_sets WHERE id = 'waitingSet0'").run();
+      await db.delete(printSets).where(eq(printSets.id, 'waitingSet0'));
       await stranger.post(`/api/patterns/${patternId}/print-sets`, { options: {} }).expect(202);
       await t.ctx.printSets.whenIdle();
     } finally {
-      sql.prepare("DELETE FROM print_sets WHERE id LIKE 'waitingSet%'").run();
-      sql.prepare('DELETE FROM members WHERE pattern_id = ? AND user_id = ?').run(patternId, stranger.user!.id);
+      await db.delete(printSets).where(like(printSets.id, 'waitingSet%'));
+      await db.delete(members).where(and(eq(members.patternId, patternId), eq(members.userId, stranger.user!.id)));
     }
   });
 
@@ -247,7 +287,7 @@ describe('print sets', () => {
     const a1 = (await owner.post(`/api/patterns/${huge}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
     const a2 = (await owner.post(`/api/patterns/${huge}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
     const b = (await stranger.post(`/api/patterns/${small}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
-    const status = (id: string) => (t.ctx.database.sqlite.prepare('SELECT status FROM print_sets WHERE id = ?').get(id) as { status: string } | undefined)?.status;
+    const status = async (id: string) => (await statusOf(id))?.status;
     let bSet;
     for (let i = 0; i < 1200; i++) {
       bSet = (await stranger.get(`/api/patterns/${small}/print-sets/${b}`).expect(200)).body.printSet;
@@ -255,14 +295,14 @@ describe('print sets', () => {
       await new Promise((r) => setTimeout(r, 100));
     }
     expect(bSet.status).toBe('done');
-    expect(status(a1)).toBe('rendering');
-    expect(status(a2)).toBe('queued');
+    expect(await status(a1)).toBe('rendering');
+    expect(await status(a2)).toBe('queued');
     expect(t.ctx.printSets.activeCount).toBe(1);
 
     // Deleting A's rendering set stops its render: the pool has nothing left running within the grace
     // (the render stops at its next sheet, or its worker is stopped), long before the render would have
     // ended, and no PDF is ever written. A's queued set leaves the queue the same way when deleted first.
-    const progressAtDelete = (t.ctx.database.sqlite.prepare('SELECT progress FROM print_sets WHERE id = ?').get(a1) as { progress: number }).progress;
+    const progressAtDelete = (await statusOf(a1))!.progress;
     expect(progressAtDelete).toBeLessThan(0.5);
     await owner.del(`/api/patterns/${huge}/print-sets/${a2}`).expect(204);
     const deletedAt = Date.now();
@@ -273,9 +313,9 @@ describe('print sets', () => {
     expect(t.ctx.printSets.activeCount).toBe(0);
     // Nothing else was started in its place: the queued set left the queue.
     await t.ctx.printSets.whenIdle();
-    expect(status(a1)).toBeUndefined();
-    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${a1}.pdf`))).toBe(false);
-    expect(fs.existsSync(path.join(t.dataDir, 'print-sets', owner.user!.id, `${a2}.pdf`))).toBe(false);
+    expect(await status(a1)).toBeUndefined();
+    expect(await isStored(`print-sets/${owner.user!.id}/${a1}.pdf`)).toBe(false);
+    expect(await isStored(`print-sets/${owner.user!.id}/${a2}.pdf`)).toBe(false);
   });
 
   it('refuses with 422, before queueing, a set whose templates need more sheets than the budget', async () => {
@@ -283,17 +323,19 @@ describe('print sets', () => {
     // about 89,000 Letter sheets.
     const doc = { ...manySheetsDocument(100, 'Too big'), blockCount: 1000 };
     const id = (await owner.post('/api/patterns', { document: doc }).expect(201)).body.pattern.id as string;
-    const before = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM print_sets').get() as { n: number }).n;
+    const { printSets } = t.ctx.data.t;
+    const setCount = async () => Number((await t.ctx.data.db.select({ n: count() }).from(printSets))[0].n);
+    const before = await setCount();
     const res = await owner.post(`/api/patterns/${id}/print-sets`, { options: { paper: 'letter' } });
     expect(res.status).toBe(422);
     expect(res.body.error).toMatch(new RegExp(`at most ${MAX_PRINT_SHEETS}`));
     expect(res.body.details.maxSheets).toBe(MAX_PRINT_SHEETS);
     expect(res.body.details.sheets).toBeGreaterThan(MAX_PRINT_SHEETS);
-    const after = (t.ctx.database.sqlite.prepare('SELECT count(*) AS n FROM print_sets').get() as { n: number }).n;
+    const after = await setCount();
     expect(after).toBe(before);
     // One copy of each fits the budget.
     await owner.post(`/api/patterns/${id}/print-sets`, { options: { paper: 'letter', copies: 'single' } }).expect(202);
-    const last = t.ctx.database.sqlite.prepare('SELECT id FROM print_sets WHERE pattern_id = ?').get(id) as { id: string };
+    const [last] = await t.ctx.data.db.select({ id: printSets.id }).from(printSets).where(eq(printSets.patternId, id));
     await owner.del(`/api/patterns/${id}/print-sets/${last.id}`).expect(204);
   });
 });

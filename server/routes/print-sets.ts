@@ -5,7 +5,7 @@ import { applyFabricChoice, findUnsewableSections, printOptionsSchema, quiltPrin
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
-import { printSets, users, type PrintSet } from '../db/schema';
+import type { PrintSet } from '../db/schema';
 import { HttpError, zodDetails } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
@@ -75,7 +75,9 @@ function unsewableSections(document: PatternDocument, sectionIds: readonly strin
 
 /** `/api/patterns/:id/print-sets…`: render, list, follow, download and delete print sets. */
 export function printSetsRouter(ctx: AppContext): Router {
-  const { db, config } = ctx;
+  const { config } = ctx;
+  const d = ctx.data;
+  const { printSets, users } = d.t;
   const router = express.Router({ mergeParams: true });
   const files = fileStoreOf(ctx);
 
@@ -85,37 +87,40 @@ export function printSetsRouter(ctx: AppContext): Router {
     return (await isShopBuyer(ctx.data, patternOf(res), user.id)) ? user.id : undefined;
   };
 
-  const findSet = (patternId: string, raw: unknown, createdBy?: string) => {
+  const readSet = async (setId: string, patternId: string, createdBy?: string) =>
+    (
+      await d.db
+        .select({ set: printSets, creatorName: users.displayName })
+        .from(printSets)
+        .innerJoin(users, eq(users.id, printSets.createdBy))
+        .where(and(eq(printSets.id, setId), eq(printSets.patternId, patternId), createdBy ? eq(printSets.createdBy, createdBy) : undefined))
+    )[0];
+
+  const findSet = async (patternId: string, raw: unknown, createdBy?: string) => {
     const setId = parseOr400(idSchema, raw, 'Invalid print-set id');
-    const row = db
-      .select({ set: printSets, creatorName: users.displayName })
-      .from(printSets)
-      .innerJoin(users, eq(users.id, printSets.createdBy))
-      .where(and(eq(printSets.id, setId), eq(printSets.patternId, patternId), createdBy ? eq(printSets.createdBy, createdBy) : undefined))
-      .get();
+    const row = await readSet(setId, patternId, createdBy);
     if (!row) throw new HttpError(404, 'Print set not found');
     return row;
   };
 
-  router.post('/', (req, res) => {
+  router.post('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const user = currentUser(req);
     const body = parseOr400(printSetBodySchema, req.body ?? {});
     // A colourway copy must be the caller's own copy of this pattern (anyone else's is not found).
-    const copy = body.colourwayCopyId === undefined ? null : findOwnCopy(db, user.id, pattern.id, body.colourwayCopyId);
+    const copy = body.colourwayCopyId === undefined ? null : await findOwnCopy(ctx.data, user.id, pattern.id, body.colourwayCopyId);
     if (copy && body.options['colourwayId'] !== undefined) {
       throw new HttpError(400, 'Invalid print options', [{ path: 'options.colourwayId', message: 'choose a colourway or a colourway copy, not both' }]);
     }
-    const waiting =
-      db
-        .select({ n: count() })
-        .from(printSets)
-        .where(and(eq(printSets.createdBy, user.id), inArray(printSets.status, ['queued', 'rendering'])))
-        .get()?.n ?? 0;
+    const [counted] = await d.db
+      .select({ n: count() })
+      .from(printSets)
+      .where(and(eq(printSets.createdBy, user.id), inArray(printSets.status, ['queued', 'rendering'])));
+    const waiting = Number(counted?.n ?? 0);
     if (waiting >= config.printQueuePerUser) {
       throw new HttpError(429, 'Too many print sets are still rendering; wait for them to finish', { waiting });
     }
-    const revision = findRevision(db, pattern.id, body.revision);
+    const revision = await findRevision(d, pattern.id, body.revision);
     if (!revision) throw new HttpError(404, 'Revision not found');
     // The PDF's date comes from the revision, so the same revision and options give the same bytes.
     const parsed = printOptionsSchema.safeParse({
@@ -151,7 +156,7 @@ export function printSetsRouter(ctx: AppContext): Router {
         maxSheets: MAX_PRINT_SHEETS,
       });
     }
-    const row = db
+    const [row] = await d.db
       .insert(printSets)
       .values({
         id: newId(),
@@ -164,39 +169,64 @@ export function printSetsRouter(ctx: AppContext): Router {
         status: 'queued',
         createdAt: new Date(),
       })
-      .returning()
-      .get();
-    ctx.printSets.enqueue(row.id);
+      .returning();
+    await ctx.printSets.enqueue(row.id);
     res.status(202).json({ printSet: printSetJson(row, user.displayName) });
   });
 
   router.get('/', async (req, res) => {
     const { pattern } = patternOf(res);
     const by = await onlyBy(req, res);
-    const rows = db
+    const rows = await d.db
       .select({ set: printSets, creatorName: users.displayName })
       .from(printSets)
       .innerJoin(users, eq(users.id, printSets.createdBy))
       .where(and(eq(printSets.patternId, pattern.id), by ? eq(printSets.createdBy, by) : undefined))
-      .orderBy(desc(printSets.createdAt), desc(printSets.id))
-      .all();
+      .orderBy(desc(printSets.createdAt), desc(printSets.id));
     res.json({ items: rows.map((r) => printSetJson(r.set, r.creatorName)) });
   });
 
   router.get('/:setId', async (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
+    const row = await findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     res.json({ printSet: printSetJson(row.set, row.creatorName) });
   });
 
   router.get('/:setId/events', async (req, res) => {
     const { pattern } = patternOf(res);
-    const row = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
+    const row = await findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
     const send = (s: PrintSet) => res.write(`event: progress\ndata: ${JSON.stringify(printSetJson(s, row.creatorName))}\n\n`);
     const terminal = (s: PrintSet) => s.status === 'done' || s.status === 'failed';
     send(row.set);
     if (terminal(row.set)) return void res.end();
+    if (d.dialect === 'postgres') {
+      // Any instance may render the set: read its row from the database until it ends.
+      let last = `${row.set.status} ${row.set.progress}`;
+      let reading = false;
+      const timer = setInterval(() => {
+        if (reading) return;
+        reading = true;
+        readSet(row.set.id, pattern.id)
+          .then((now) => {
+            if (!now) return stop();
+            const seen = `${now.set.status} ${now.set.progress}`;
+            if (seen !== last) {
+              last = seen;
+              send(now.set);
+            }
+            if (terminal(now.set)) stop();
+          })
+          .catch(() => undefined)
+          .finally(() => (reading = false));
+      }, ctx.printSets.eventsPollMs);
+      const stop = () => {
+        clearInterval(timer);
+        res.end();
+      };
+      req.on('close', () => clearInterval(timer));
+      return;
+    }
     const onUpdate = (s: PrintSet) => {
       if (s.id !== row.set.id) return;
       send(s);
@@ -212,7 +242,7 @@ export function printSetsRouter(ctx: AppContext): Router {
 
   router.get('/:setId/file', async (req, res) => {
     const { pattern } = patternOf(res);
-    const { set } = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
+    const { set } = await findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     if (set.status !== 'done' || !set.storagePath) {
       throw new HttpError(409, set.status === 'failed' ? 'This print set failed to render' : 'This print set is not ready yet', {
         status: set.status,
@@ -232,9 +262,9 @@ export function printSetsRouter(ctx: AppContext): Router {
   router.delete('/:setId', async (req, res) => {
     const { pattern, access } = patternOf(res);
     const user = currentUser(req);
-    const { set } = findSet(pattern.id, req.params.setId, await onlyBy(req, res));
+    const { set } = await findSet(pattern.id, req.params.setId, await onlyBy(req, res));
     if (set.createdBy !== user.id && access !== 'owner') throw new HttpError(403, 'Only its maker or the pattern owner can delete a print set');
-    db.delete(printSets).where(eq(printSets.id, set.id)).run();
+    await d.db.delete(printSets).where(eq(printSets.id, set.id));
     ctx.printSets.cancel(set.id);
     if (set.storagePath) await files.remove([set.storagePath]);
     res.status(204).end();

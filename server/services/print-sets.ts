@@ -32,7 +32,12 @@ export const PRINT_QUEUE = 'print-set';
 /** A print job in the pg-boss queue: the set to render. */
 interface PrintJob {
   setId: string;
+  /** Who made the set (fairness: the last free thread is for someone not rendering here). */
+  userId?: string;
 }
+
+/** Jobs looked at when the last free thread must go to a user not rendering here. */
+const LAST_THREAD_BATCH = 20;
 
 /**
  * How print jobs are shared between instances on PostgreSQL (docs/postgresql.md "Print jobs").
@@ -255,7 +260,7 @@ export class PrintSetService {
         .from(printSets)
         .where(and(eq(printSets.createdBy, row.createdBy), inArray(printSets.status, ['queued', 'rendering']), ne(printSets.id, setId)));
       const boss = await this.boss!;
-      await boss.send(PRINT_QUEUE, { setId } satisfies PrintJob, { id: printJobId(setId), priority: -(ahead?.n ?? 0) });
+      await boss.send(PRINT_QUEUE, { setId, userId: row.createdBy } satisfies PrintJob, { id: printJobId(setId), priority: -(ahead?.n ?? 0) });
       void this.pumpPg();
       return;
     }
@@ -439,10 +444,19 @@ export class PrintSetService {
         this.fetchAgain = false;
         while (!this.closed && this.running.size < this.threads) {
           const busy = [...new Set([...this.running.values()].map((r) => r.userId))];
+          const lastThread = this.threads - this.running.size === 1 && busy.length > 0;
           // The last free thread stays for a user not rendering here.
-          if (this.threads - this.running.size === 1 && busy.length > 0 && !(await this.othersWaiting(busy))) break;
-          const [job] = await boss.fetch<PrintJob>(PRINT_QUEUE, { batchSize: 1 });
-          if (!job || this.closed) break;
+          if (lastThread && !(await this.othersWaiting(busy))) break;
+          const fetched = await boss.fetch<PrintJob>(PRINT_QUEUE, { batchSize: lastThread ? LAST_THREAD_BATCH : 1 });
+          const chosen = lastThread ? fetched.find((j) => !j.data.userId || !busy.includes(j.data.userId)) : fetched[0];
+          const job = this.closed ? undefined : chosen;
+          const putBack = fetched.filter((j) => j !== job).map((j) => j.id);
+          if (putBack.length > 0) {
+            // Back to the queue as they were (same priority and age) for another thread or instance.
+            await boss.cancel(PRINT_QUEUE, putBack);
+            await boss.resume(PRINT_QUEUE, putBack);
+          }
+          if (!job) break;
           await this.take(boss, job);
         }
       } while (this.fetchAgain && !this.closed);
