@@ -159,6 +159,8 @@ export function drawBookletCover(ctx: BookletContext, frame: SheetFrame, facts: 
 
 /** The whole block from the front: every copy of every section with its patches in their fabrics. */
 function drawBlockPicture(ctx: BookletContext, box: { x: number; y: number; width: number; height: number }): void {
+  // The picture fills a box set aside for it: a measuring pass (which draws nothing) has nothing to learn from it.
+  if (ctx.pen.measuringOnly) return;
   const all = ctx.document.sections.flatMap((s) => sectionCopyOutlines(s).flat());
   if (all.length === 0) return;
   const fit = fitDiagram(all, box, false, 0.02);
@@ -175,9 +177,10 @@ function drawBlockPicture(ctx: BookletContext, box: { x: number; y: number; widt
       };
       const turned = { scale: fit.scale, map: (p: { x: number; y: number }) => fit.map(rot(p)) };
       for (const p of patches) {
+        const ring = p.polygon.map(turned.map);
         if (p.stripSet) fillStripSetPatch(ctx.pen, turned, p.polygon, p.stripSet, (id) => lighten(fabricColour(ctx, id), 0.1), '#cccccc');
-        else ctx.pen.fillPolygon(p.polygon.map(turned.map), lighten(fabricColour(ctx, p.fabricId), 0.1));
-        drawShape(ctx.pen, p.polygon.map(turned.map), null, { widthPt: 0.3, colour: '#333333' });
+        else ctx.pen.fillPolygon(ring, lighten(fabricColour(ctx, p.fabricId), 0.1));
+        drawShape(ctx.pen, ring, null, { widthPt: 0.3, colour: '#333333' });
       }
     }
   }
