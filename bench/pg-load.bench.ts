@@ -36,6 +36,12 @@ const PATTERNS = 100;
 /** Ports of the three servers (the PostgreSQL benchmark's own range). */
 const BASE_PORT = Number(process.env['SW_PG_BENCH_PORT'] ?? 4884);
 const SECRET = 'pg-load-bench-secret-'.padEnd(48, 'x');
+/**
+ * A pattern whose save has had no answer this long is taken for lost (a run cut off mid-request) and
+ * saved onto again: longer than autocannon's 10 s request timeout, as saves take seconds at p99 on
+ * a loaded machine and an earlier reuse would make a live save's successor a 409.
+ */
+const STALE_BUSY_MS = 15_000;
 
 type SetupName = 'sqlite' | 'postgres × 1' | 'postgres × 2';
 
@@ -154,7 +160,7 @@ function saveScenario(setup: Setup): Omit<autocannon.Options, 'url'> {
         method: 'PUT',
         setupRequest: (req, context) => {
           const now = Date.now();
-          const p = patterns.find((x) => x.busySince === 0 || now - x.busySince > 2000) ?? patterns[Math.floor(Math.random() * patterns.length)];
+          const p = patterns.find((x) => x.busySince === 0 || now - x.busySince > STALE_BUSY_MS) ?? patterns[Math.floor(Math.random() * patterns.length)];
           p.busySince = now;
           context['pattern'] = p;
           return { ...req, path: `/api/patterns/${p.id}`, body: `{"baseRevision":${p.head},"document":${docJson}}` };
@@ -284,7 +290,7 @@ export default async function pgLoad(): Promise<BenchSection> {
         `PostgreSQL: a throwaway cluster of this machine's PostgreSQL (tests/support/pg-cluster.ts: fsync, synchronous_commit and full_page_writes off, as in the tests), default pool of 10 connections per instance. A production database keeps its fsync on: saves there wait for the disk.`,
         'On SQLite the read and the save are answered by the hot routes in front of Express (server/http/hot-routes.ts); on PostgreSQL every request goes through Express (docs/postgresql.md "Repository code").',
         `Saves: ${saved2xx(['sqlite'])} answered 2xx on SQLite in the timed rounds, ${storedSqlite} revisions stored there in all (warm-ups included); ${saved2xx(['postgres × 1', 'postgres × 2'])} on PostgreSQL, ${storedPg} stored; ${conflicts} answered 409 (a save cut off when a run stopped leaves its pattern's head unseen). Save body ${(docJson.length / 1024).toFixed(1)} kB (a 3 × 3 grid block, tests/support/documents.ts); the read answers ${(readA.length / 1024).toFixed(1)} kB on PostgreSQL.`,
-        `Everything shares ${os.cpus().length} cores: autocannon, the servers and PostgreSQL. A second instance adds no cores here, so postgres × 2 shows what sharing one database costs, not how a fleet scales. Load average (1/5/15 min) at the end: ${load}.`,
+        `Everything shares ${os.cpus().length} cores: autocannon, the servers and PostgreSQL. A second instance adds no cores here, so postgres × 2 shows what sharing one database costs, not how a fleet scales; on a machine busy with other work, two server processes also get a larger share of its cores than one. Load average (1/5/15 min) at the end: ${load}.`,
         'server_cpu_ms_per_req: CPU (user + system, every thread) of the server process(es) over the run, divided by the answers; postgres_cpu_ms_per_req: the same for the PostgreSQL server processes (the postmaster and its children). req/s ratios are per round against SQLite in the same round.',
       ],
     };
