@@ -157,6 +157,7 @@ export class PrintSetService {
   /** PostgreSQL: the job queue, started on first use. */
   private boss: Promise<PgBoss> | undefined;
   private pollTimer: NodeJS.Timeout | undefined;
+  private bossStopped = false;
   private fetching = false;
   private fetchAgain = false;
   private readonly jobs: Required<Omit<PrintJobOptions, 'pgPool'>>;
@@ -195,6 +196,9 @@ export class PrintSetService {
   get threads(): number {
     return this.config.printWorkers;
   }
+
+  /** Renders this instance started and finished with a stored PDF (for tests: which instance rendered what). */
+  readonly renders = { started: 0, stored: 0 };
 
   /** Sets rendering now in this instance (for tests and the health figures). */
   get activeCount(): number {
@@ -260,7 +264,14 @@ export class PrintSetService {
         .from(printSets)
         .where(and(eq(printSets.createdBy, row.createdBy), inArray(printSets.status, ['queued', 'rendering']), ne(printSets.id, setId)));
       const boss = await this.boss!;
-      await boss.send(PRINT_QUEUE, { setId, userId: row.createdBy } satisfies PrintJob, { id: printJobId(setId), priority: -(ahead?.n ?? 0) });
+      await boss.send(PRINT_QUEUE, { setId, userId: row.createdBy } satisfies PrintJob, {
+        id: printJobId(setId),
+        priority: -Number(ahead?.n ?? 0),
+        // Each job carries this instance's settings (the queue's own are whoever created it first).
+        expireInSeconds: this.jobs.expireSeconds,
+        retryLimit: this.jobs.retryLimit,
+        retryDelay: this.jobs.retryDelaySeconds,
+      });
       void this.pumpPg();
       return;
     }
@@ -344,7 +355,8 @@ export class PrintSetService {
     this.unstoredEnds.clear();
     if (this.boss) {
       const boss = await this.boss.catch(() => undefined);
-      if (boss) {
+      if (boss && !this.bossStopped) {
+        this.bossStopped = true;
         for (const jobId of handedOver) {
           await boss.fail(PRINT_QUEUE, jobId, { message: 'The server rendering it stopped' }).catch((err: unknown) => this.log('print job could not be handed over', err));
         }
@@ -365,7 +377,10 @@ export class PrintSetService {
       this.abort(id, 'killed');
     }
     const boss = await this.boss?.catch(() => undefined);
-    await boss?.stop({ graceful: false, wait: true, close: false });
+    if (boss && !this.bossStopped) {
+      this.bossStopped = true;
+      await boss.stop({ graceful: false, wait: true, close: false });
+    }
     await Promise.allSettled([...this.pending]);
     await this.pool?.destroy();
     this.pool = undefined;
@@ -538,6 +553,7 @@ export class PrintSetService {
     // A set taken over from a dead instance starts again from nothing.
     const started = await this.update(setId, { status: 'rendering', progress: 0, error: null }, ['queued', 'rendering']);
     if (!started) return;
+    this.renders.started++;
     // A render that never ends (a bug, a hostile document) must not hold a thread: stop its worker.
     run.timer = setTimeout(
       () => this.abort(setId, `Rendering took longer than ${this.config.printTimeoutSeconds} s and was stopped`),
@@ -569,7 +585,7 @@ export class PrintSetService {
     }
     await run.writing;
     if (Atomics.load(run.cancel, 0) !== 0 || run.handover) return;
-    await this.store(setId, result);
+    if (await this.store(setId, result)) this.renders.stored++;
   }
 
   /** Writes a render's progress in order, one write at a time, the latest value each time. */
@@ -604,10 +620,11 @@ export class PrintSetService {
     run.abort.abort(new Error(reason));
   }
 
-  private async store(setId: string, m: RenderResult): Promise<void> {
+  /** Stores a finished render's PDF and the set's end; false when the set is gone or the PDF could not be stored. */
+  private async store(setId: string, m: RenderResult): Promise<boolean> {
     const { printSets } = this.data.t;
     const [row] = await this.data.db.select().from(printSets).where(eq(printSets.id, setId));
-    if (!row) return; // deleted while rendering
+    if (!row) return false; // deleted while rendering
     const storagePath = `print-sets/${row.createdBy}/${setId}.pdf`;
     let stored: StoredFile;
     try {
@@ -616,7 +633,8 @@ export class PrintSetService {
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
       this.log('print set could not be stored', err);
-      return this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
+      await this.fail(setId, code === 'ENOSPC' || code === 'EDQUOT' || code === 'EFBIG' ? 'The server has no space left to store the PDF' : `The PDF could not be stored (${code ?? 'error'})`);
+      return false;
     }
     await this.end(
       setId,
@@ -633,6 +651,7 @@ export class PrintSetService {
       },
       [storagePath],
     );
+    return true;
   }
 
   private fail(setId: string, message: string): Promise<void> {
