@@ -1,7 +1,7 @@
-import fs from 'node:fs';
-import path from 'node:path';
+import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, TINY_PNG, sampleDocument, sharedPattern, startTestServer, userClient, type TestServer } from './test/harness';
+import { storeFinishedPrintSet } from './test/stored-print-set';
 
 /**
  * The access matrix (docs/design-notes.md#roles-and-access): for every route about one pattern, what the owner, a co-designer,
@@ -27,7 +27,8 @@ beforeAll(async () => {
     anon: await Client.create(t.app),
   };
   // Sign-up never makes an administrator: the role is given in the database, as an operator would.
-  t.ctx.database.sqlite.prepare("UPDATE users SET role = 'admin' WHERE id = ?").run(clients.admin.user!.id);
+  const { users } = t.ctx.data.t;
+  await t.ctx.data.db.update(users).set({ role: 'admin' }).where(eq(users.id, clients.admin.user!.id));
   extra = await userClient(t.app, 'extra@matrix.test', 'quilter');
 });
 afterAll(async () => {
@@ -56,21 +57,12 @@ async function fixture(trashed = false): Promise<Fixture> {
   expect(inv.status).toBe(201);
   // A finished print set made by the owner, stored as the renderer stores it (rendering itself has its
   // own tests; here only who may reach it matters).
-  const printSetId = `ps${Math.random().toString(36).slice(2, 12)}`;
-  const storagePath = `print-sets/${clients.owner.user!.id}/${printSetId}.pdf`;
-  fs.mkdirSync(path.join(t.dataDir, path.dirname(storagePath)), { recursive: true });
-  fs.writeFileSync(path.join(t.dataDir, storagePath), '%PDF-1.4\n%%EOF\n');
-  const rev = t.ctx.database.sqlite.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(id) as { id: string };
-  t.ctx.database.sqlite
-    .prepare(
-      `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, sheets, bytes, sha256, storage_path, created_at, finished_at)
-       VALUES (?, ?, ?, 1, ?, '{}', 'done', 1, 1, 15, 'x', ?, ?, ?)`,
-    )
-    .run(printSetId, id, rev.id, clients.owner.user!.id, storagePath, Date.now(), Date.now());
+  const printSetId = await storeFinishedPrintSet(t, id, clients.owner.user!.id);
   const copyId = `cc${Math.random().toString(36).slice(2, 12)}`;
-  t.ctx.database.sqlite
-    .prepare(`INSERT INTO colourway_copies (id, user_id, pattern_id, name, fabrics, version, created_at, updated_at) VALUES (?, ?, ?, 'Mine', '{}', 1, ?, ?)`)
-    .run(copyId, clients.quilter.user!.id, id, Date.now(), Date.now());
+  const now = new Date();
+  await t.ctx.data.db
+    .insert(t.ctx.data.t.colourwayCopies)
+    .values({ id: copyId, userId: clients.quilter.user!.id, patternId: id, name: 'Mine', fabrics: {}, version: 1, createdAt: now, updatedAt: now });
   if (trashed) await clients.owner.post(`/api/patterns/${id}/trash`).expect(200);
   return { id, uploadId: up.body.upload.id, invitationId: inv.body.invitation.id, printSetId, copyId };
 }

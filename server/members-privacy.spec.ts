@@ -4,11 +4,10 @@
  * own membership and their own print sets; e-mail addresses are shown only to the owner and
  * co-designers.
  */
-import fs from 'node:fs';
-import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { membersAnswerSchema } from '@seamwright/api';
 import { sharedPattern, startTestServer, userClient, type Client, type TestServer } from './test/harness';
+import { storeFinishedPrintSet } from './test/stored-print-set';
 
 let t: TestServer;
 let owner: Client, co: Client, invited: Client, buyerA: Client, buyerB: Client;
@@ -16,31 +15,28 @@ let patternId: string;
 const sets: Record<string, string> = {};
 
 /** A paid shop order that granted quilter access, as the payment webhook stores it. */
-function buy(buyer: Client) {
-  const sqlite = t.ctx.database.sqlite;
-  sqlite.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)').run(patternId, buyer.user!.id, 'quilter', Date.now());
-  sqlite
-    .prepare(
-      `INSERT INTO orders (id, buyer_id, seller_id, pattern_id, pattern_title, amount_minor, currency, status, granted_access, created_at, paid_at)
-       VALUES (?, ?, ?, ?, 'Shop block', 1200, 'usd', 'paid', 1, ?, ?)`,
-    )
-    .run(`ord${buyer.user!.id.slice(0, 10)}`, buyer.user!.id, owner.user!.id, patternId, Date.now(), Date.now());
+async function buy(buyer: Client) {
+  const { members, orders } = t.ctx.data.t;
+  const now = new Date();
+  await t.ctx.data.db.insert(members).values({ patternId, userId: buyer.user!.id, access: 'quilter', createdAt: now });
+  await t.ctx.data.db.insert(orders).values({
+    id: `ord${buyer.user!.id.slice(0, 10)}`,
+    buyerId: buyer.user!.id,
+    sellerId: owner.user!.id,
+    patternId,
+    patternTitle: 'Shop block',
+    amountMinor: 1200,
+    currency: 'usd',
+    status: 'paid',
+    grantedAccess: true,
+    createdAt: now,
+    paidAt: now,
+  });
 }
 
 /** A finished print set made by `who`, stored as the renderer stores it. */
-function printSetBy(who: Client): string {
-  const id = `ps${Math.random().toString(36).slice(2, 12)}`;
-  const storagePath = `print-sets/${who.user!.id}/${id}.pdf`;
-  fs.mkdirSync(path.join(t.dataDir, path.dirname(storagePath)), { recursive: true });
-  fs.writeFileSync(path.join(t.dataDir, storagePath), '%PDF-1.4\n%%EOF\n');
-  const rev = t.ctx.database.sqlite.prepare('SELECT id FROM revisions WHERE pattern_id = ? AND number = 1').get(patternId) as { id: string };
-  t.ctx.database.sqlite
-    .prepare(
-      `INSERT INTO print_sets (id, pattern_id, revision_id, revision_number, created_by, options, status, progress, sheets, bytes, sha256, storage_path, created_at, finished_at)
-       VALUES (?, ?, ?, 1, ?, '{}', 'done', 1, 1, 15, 'x', ?, ?, ?)`,
-    )
-    .run(id, patternId, rev.id, who.user!.id, storagePath, Date.now(), Date.now());
-  return id;
+function printSetBy(who: Client): Promise<string> {
+  return storeFinishedPrintSet(t, patternId, who.user!.id);
 }
 
 beforeAll(async () => {
@@ -54,9 +50,9 @@ beforeAll(async () => {
     { client: co, access: 'co-designer' },
     { client: invited, access: 'quilter' },
   ]);
-  buy(buyerA);
-  buy(buyerB);
-  for (const [name, c] of Object.entries({ owner, co, invited, buyerA, buyerB })) sets[name] = printSetBy(c);
+  await buy(buyerA);
+  await buy(buyerB);
+  for (const [name, c] of Object.entries({ owner, co, invited, buyerA, buyerB })) sets[name] = await printSetBy(c);
 });
 afterAll(async () => {
   await t.close();
