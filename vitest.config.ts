@@ -21,7 +21,7 @@ const alias = {
  * code it tests is written for both databases (server/db/data.ts); specs about SQLite itself (its
  * file, the hot routes, its migrations) stay SQLite-only.
  */
-const PG_API_SPECS = ['server/auth.spec.ts', 'server/password-reset.spec.ts', 'server/patterns.spec.ts', 'server/save-race.spec.ts', 'server/seed.spec.ts', 'server/services/housekeeping.spec.ts', 'server/services/pattern-list.spec.ts', 'server/colourway-copies.spec.ts', 'server/routes/sewing-log.spec.ts', 'server/uploads.spec.ts', 'server/sharing.spec.ts', 'server/control-characters.spec.ts', 'server/pattern-import.spec.ts', 'server/shop/shop.spec.ts', 'server/shop/listing-quilt-fill.spec.ts', 'server/main.spec.ts', 'server/save-thread-time.spec.ts', 'server/print-sets.spec.ts', 'server/print-set-quilt.spec.ts', 'server/access-matrix.spec.ts', 'server/members-privacy.spec.ts'];
+const PG_API_SPECS = ['server/auth.spec.ts', 'server/password-reset.spec.ts', 'server/patterns.spec.ts', 'server/save-race.spec.ts', 'server/seed.spec.ts', 'server/services/housekeeping.spec.ts', 'server/services/pattern-list.spec.ts', 'server/colourway-copies.spec.ts', 'server/routes/sewing-log.spec.ts', 'server/uploads.spec.ts', 'server/sharing.spec.ts', 'server/control-characters.spec.ts', 'server/pattern-import.spec.ts', 'server/shop/shop.spec.ts', 'server/shop/listing-quilt-fill.spec.ts', 'server/main.spec.ts', 'server/save-thread-time.spec.ts', 'server/print-sets.spec.ts', 'server/print-set-quilt.spec.ts', 'server/access-matrix.spec.ts', 'server/members-privacy.spec.ts', 'server/revision-history.spec.ts'];
 
 const propertySeed = fileURLToPath(new URL('./tests/support/property-seed.ts', import.meta.url));
 
