@@ -127,7 +127,7 @@ export default async function saveValidationBench(): Promise<BenchSection> {
         const raw = Buffer.from(body.replace('"baseRevision":1', `"baseRevision":${head}`));
         const t0 = performance.now();
         const { fields, document: checked } = checkDocumentBody('save', JSON.parse(raw.toString()) as unknown);
-        t.ctx.db.transaction((tx) => saveRevision(tx, id, fields.baseRevision, checked, owner), { behavior: 'immediate' });
+        await t.ctx.data.transaction((tx) => saveRevision(tx, id, fields.baseRevision, checked, owner));
         before.push(performance.now() - t0);
         head++;
       }

@@ -200,7 +200,7 @@ describe('answers match the shared API contract', () => {
     answer(await quilter.get(`/api/patterns/${id}/print-sets`), 200, printSetListAnswerSchema);
 
     // Admin.
-    t.ctx.database.sqlite.prepare("UPDATE users SET role = 'admin' WHERE email = ?").run('olive@contract.test');
+    t.ctx.data.sqlite!.prepare("UPDATE users SET role = 'admin' WHERE email = ?").run('olive@contract.test');
     answer(await owner.get('/api/admin/users?q=contract'), 200, userPageSchema);
     answer(await owner.patch(`/api/admin/users/${quilter.user!.id}`, { disabled: false }), 200, userAnswerSchema);
     const inbox = answer(await owner.get('/api/admin/dev-inbox'), 200, devInboxAnswerSchema);

@@ -1,7 +1,6 @@
 import type { RateLimitSql } from './auth/rate-limit-store';
 import type { Config } from './config';
 import type { Data } from './db/data';
-import type { DatabaseHandle, Db } from './db/database';
 import type { MailOutbox } from './services/mail-outbox';
 import type { Mailer } from './services/mailer';
 import type { PrintSetService } from './services/print-sets';
@@ -17,12 +16,6 @@ export interface AppContext {
   files: FileStore;
   /** Where rate-limit counts are kept (the same database). */
   rateLimitSql: RateLimitSql;
-  /**
-   * The SQLite file and its synchronous Drizzle handle: code not yet written for both databases.
-   * With PostgreSQL, using either throws (docs/postgresql.md "Repository code").
-   */
-  database: DatabaseHandle;
-  db: Db;
   mailer: Mailer;
   /** Durable outgoing mail: routes enqueue, a background sender delivers with retries. */
   mailOutbox: MailOutbox;

@@ -126,11 +126,11 @@ describe('hostile input', () => {
   }, 180_000);
 
   it('keeps the database sound afterwards', () => {
-    const rows = t.ctx.database.sqlite.pragma('integrity_check') as { integrity_check: string }[];
+    const rows = t.ctx.data.sqlite!.pragma('integrity_check') as { integrity_check: string }[];
     expect(rows).toEqual([{ integrity_check: 'ok' }]);
-    expect(t.ctx.database.sqlite.pragma('foreign_key_check')).toEqual([]);
-    expect(t.ctx.database.sqlite.pragma('journal_mode', { simple: true })).toBe('wal');
-    expect(t.ctx.database.sqlite.pragma('foreign_keys', { simple: true })).toBe(1);
+    expect(t.ctx.data.sqlite!.pragma('foreign_key_check')).toEqual([]);
+    expect(t.ctx.data.sqlite!.pragma('journal_mode', { simple: true })).toBe('wal');
+    expect(t.ctx.data.sqlite!.pragma('foreign_keys', { simple: true })).toBe(1);
   });
 });
 

@@ -87,7 +87,7 @@ describe('hot routes in front of Express', () => {
     const created = await owner.post('/api/patterns', { document: sampleDocument('Hot block') });
     expect(created.status).toBe(201);
     patternId = created.json.pattern.id;
-    t.ctx.database.sqlite.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)').run(patternId, quilter.user!.id, 'quilter', Date.now());
+    t.ctx.data.sqlite!.prepare('INSERT INTO members (pattern_id, user_id, access, created_at) VALUES (?, ?, ?, ?)').run(patternId, quilter.user!.id, 'quilter', Date.now());
   });
 
   afterAll(async () => {

@@ -2,8 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import type { AppContext } from './app-context';
 import { ConfigError, loadConfig } from './config';
-import type { DatabaseHandle, Db } from './db/database';
-import { openData, sqliteOnly } from './db/open-data';
+import { openData } from './db/open-data';
 import { DEMO_ACCOUNTS, seedDemoIfEmpty } from './db/seed';
 import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
@@ -21,8 +20,6 @@ function log(message: string, err?: unknown): void {
 export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: string[] = process.argv) {
   const config = loadConfig(env);
   const opened = await openData(config);
-  const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
-  const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
   const report = config.seedDemo || argv.includes('--seed-demo') ? await seedDemoIfEmpty(opened.data, config.bcryptRounds) : undefined;
   if (report) {
@@ -38,8 +35,6 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     data: opened.data,
     files: opened.files,
     rateLimitSql: opened.rateLimitSql,
-    database,
-    db,
     mailer,
     mailOutbox,
     log,

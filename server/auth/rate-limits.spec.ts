@@ -1,8 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../app';
+import { sqliteData } from '../db/data';
 import { type DatabaseHandle, openDatabase } from '../db/database';
-import { rateLimitHits } from '../db/schema';
+import { sqliteRateLimitSql } from './rate-limit-store';
 import { removeExpired } from '../services/housekeeping';
 import { Client, startTestServer, type TestServer, userClient } from '../test/harness';
 
@@ -19,7 +20,8 @@ describe('rate limits across two instances on one database', () => {
   beforeAll(async () => {
     first = await startTestServer({ SIGNIN_LIMIT_PER_ACCOUNT: '3', SIGNIN_LIMIT_PER_ADDRESS: '50', RESET_LIMIT_PER_ACCOUNT: '2' });
     secondDb = openDatabase(first.dataDir);
-    second = createApp({ ...first.ctx, database: secondDb, db: secondDb.db });
+    // The second instance reads and counts through its own connection to the file.
+    second = createApp({ ...first.ctx, data: sqliteData(secondDb), rateLimitSql: sqliteRateLimitSql(secondDb.sqlite) });
   });
   afterAll(async () => {
     secondDb.close();
@@ -46,15 +48,15 @@ describe('rate limits across two instances on one database', () => {
   });
 
   it('housekeeping removes counts whose window has ended, and only those', async () => {
-    const db = first.ctx.db;
-    const rows = db.select().from(rateLimitHits).all();
+    const { db, t: tables } = first.ctx.data;
+    const rows = await db.select().from(tables.rateLimitHits);
     expect(rows.length).toBeGreaterThan(0);
     const ends = rows.map((r) => r.resetAt).sort((x, y) => x - y);
     // RATE_LIMIT_WINDOW_MINUTES defaults to 15: every window ends 15 minutes after its first hit.
     for (const end of ends) expect(end - Date.now()).toBeLessThanOrEqual(15 * 60_000);
     expect(await removeExpired(first.ctx.data, ends[0]! - 1)).toBe(0);
-    expect(db.select().from(rateLimitHits).all()).toHaveLength(rows.length);
+    expect(await db.select().from(tables.rateLimitHits)).toHaveLength(rows.length);
     await removeExpired(first.ctx.data, ends[ends.length - 1]!);
-    expect(db.select().from(rateLimitHits).all()).toHaveLength(0);
+    expect(await db.select().from(tables.rateLimitHits)).toHaveLength(0);
   });
 });

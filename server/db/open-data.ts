@@ -57,16 +57,3 @@ export async function openData(config: Pick<Config, 'dataDir' | 'databaseUrl'>, 
     close: async () => sqlite.close(),
   };
 }
-
-/**
- * A stand-in for the SQLite handles (`ctx.db`, `ctx.database`) on PostgreSQL: any use throws, naming
- * the code that still needs porting (docs/postgresql.md "Repository code").
- */
-export function sqliteOnly<T extends object>(what: string): T {
-  return new Proxy({} as T, {
-    get(_target, prop) {
-      if (prop === 'then' || typeof prop === 'symbol') return undefined;
-      throw new Error(`${what}.${String(prop)} is SQLite-only code, used on PostgreSQL (docs/postgresql.md "Repository code")`);
-    },
-  });
-}

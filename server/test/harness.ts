@@ -11,8 +11,7 @@ import type { Express } from 'express';
 import { createApp } from '../app';
 import type { AppContext } from '../app-context';
 import { loadConfig } from '../config';
-import type { DatabaseHandle, Db } from '../db/database';
-import { openData, sqliteOnly } from '../db/open-data';
+import { openData } from '../db/open-data';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
 import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
@@ -45,8 +44,6 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   });
   const databaseUrl = config.databaseUrl ?? (await testDatabaseUrl());
   const opened = await openData({ dataDir: config.dataDir, databaseUrl }, { poolSize: 5 });
-  const database = opened.sqlite ?? sqliteOnly<DatabaseHandle>('ctx.database');
-  const db: Db = opened.sqlite?.db ?? sqliteOnly<Db>('ctx.db');
   const mailer = createSmtpMailer(config);
   const errors: unknown[] = [];
   const log = (_m: string, err?: unknown) => errors.push(err);
@@ -59,8 +56,6 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     data: opened.data,
     files: opened.files,
     rateLimitSql: opened.rateLimitSql,
-    database,
-    db,
     mailer,
     mailOutbox,
     log,
