@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { formatLength, parsePatternDocument } from '@seamwright/piecing';
 import type { Data, Tables } from '../db/data';
-import { preparedOn } from '../db/prepared';
+import { preparedOn, rawRowsOf } from '../db/prepared';
 import type { Pattern } from '../db/schema';
 import { likeContains } from '../http/paging';
 import type { Access } from './access';
@@ -26,11 +26,30 @@ const userId = sql.placeholder('userId');
 const like = sql.placeholder('like') as unknown as string;
 
 /**
- * The patterns list is the busiest read after opening a pattern: its two statements (the page, which
- * carries the total, and the count alone for a page past the end) are built and prepared once per
- * connection for each scope, sort, order and whether there is a search, then run with the user,
- * search words, limit and offset bound. A search and the title sort ignore case alike on both
- * databases (`Data.likeIgnoringCase`, `Data.textIgnoringCase`).
+ * A query's rows as arrays in its select order, run by a statement prepared once: on SQLite a plain
+ * better-sqlite3 statement that gives arrays (no per-row mapping into objects: the list is the busiest
+ * read after opening a pattern), on PostgreSQL Drizzle's prepared query with its rows laid out the same.
+ * Times come as epoch ms on SQLite and Dates on PostgreSQL: read them with `new Date(…)`.
+ */
+function arrayRows<Q extends { toSQL(): { sql: string; params: unknown[] }; prepare(): { execute(v: Record<string, unknown>): Promise<Record<string, unknown>[]> } }>(
+  d: Data,
+  db: Data['db'],
+  query: Q,
+  columns: readonly string[],
+): (values: Record<string, unknown>) => Promise<unknown[][]> {
+  if (d.sqlite) {
+    const run = rawRowsOf(db, query);
+    return async (values) => run(values);
+  }
+  const prepared = query.prepare();
+  return async (values) => (await prepared.execute(values)).map((r) => columns.map((c) => r[c]));
+}
+
+/**
+ * The patterns list: its two statements (the page, which carries the total, and the count alone for a
+ * page past the end) are built and prepared once per connection for each scope, sort, order and
+ * whether there is a search, then run with the user, search words, limit and offset bound. A search
+ * and the title sort ignore case alike on both databases (`Data.likeIgnoringCase`, `Data.textIgnoringCase`).
  */
 const listStatements = preparedOn((db, t) => {
   const { members, patterns, users } = t;
@@ -50,30 +69,36 @@ const listStatements = preparedOn((db, t) => {
       created: patterns.createdAt,
       title: d.textIgnoringCase(patterns.title),
     }[sort];
+    const page = {
+      id: patterns.id,
+      ownerId: patterns.ownerId,
+      title: patterns.title,
+      headRevision: patterns.headRevision,
+      createdAt: patterns.createdAt,
+      updatedAt: patterns.updatedAt,
+      trashedAt: patterns.trashedAt,
+      ownerName: users.displayName,
+      memberAccess: members.access,
+      // Every row in scope, counted before LIMIT (a bigint on PostgreSQL: read with Number).
+      total: sql<number>`count(*) OVER ()`,
+    };
     return {
       total: db.select({ n: count() }).from(patterns).leftJoin(members, membership).where(where).prepare(),
-      page: db
-        .select({
-          id: patterns.id,
-          ownerId: patterns.ownerId,
-          title: patterns.title,
-          headRevision: patterns.headRevision,
-          createdAt: patterns.createdAt,
-          updatedAt: patterns.updatedAt,
-          trashedAt: patterns.trashedAt,
-          ownerName: users.displayName,
-          memberAccess: members.access,
-          // Every row in scope, counted before LIMIT (PostgreSQL gives a bigint: read as a number).
-          total: sql<number>`count(*) OVER ()`.mapWith(Number),
-        })
-        .from(patterns)
-        .leftJoin(members, membership)
-        .innerJoin(users, eq(users.id, patterns.ownerId))
-        .where(where)
-        .orderBy(direction(sortColumn), direction(patterns.id))
-        .limit(sql.placeholder('limit'))
-        .offset(sql.placeholder('offset'))
-        .prepare(),
+      // Rows as arrays in this order (see PageRow).
+      page: arrayRows(
+        d,
+        db,
+        db
+          .select(page)
+          .from(patterns)
+          .leftJoin(members, membership)
+          .innerJoin(users, eq(users.id, patterns.ownerId))
+          .where(where)
+          .orderBy(direction(sortColumn), direction(patterns.id))
+          .limit(sql.placeholder('limit'))
+          .offset(sql.placeholder('offset')),
+        Object.keys(page),
+      ),
     };
   }
   /** The statements for one kind of list; `d` is the database they are prepared on (it only says which SQL to write). */
@@ -96,17 +121,18 @@ const previewStatements = preparedOn((db, t) => {
    * (ids bound as `id0`, `id1`, …).
    */
   const forPage = new Map<number, ReturnType<typeof pageOf>>();
-  function pageOf(n: number) {
-    return db
-      .select({
-        patternId: patternPreviews.patternId,
-        revisionNumber: patternPreviews.revisionNumber,
-        sectionCount: patternPreviews.sectionCount,
-        widthIn: patternPreviews.widthIn,
-        heightIn: patternPreviews.heightIn,
-        displayUnit: patternPreviews.displayUnit,
-        svg: patternPreviews.svg,
-      })
+  const columns = {
+    patternId: patternPreviews.patternId,
+    revisionNumber: patternPreviews.revisionNumber,
+    sectionCount: patternPreviews.sectionCount,
+    widthIn: patternPreviews.widthIn,
+    heightIn: patternPreviews.heightIn,
+    displayUnit: patternPreviews.displayUnit,
+    svg: patternPreviews.svg,
+  };
+  function pageOf(d: Data, n: number) {
+    const query = db
+      .select(columns)
       .from(patternPreviews)
       .where(
         and(
@@ -116,13 +142,14 @@ const previewStatements = preparedOn((db, t) => {
           ),
           eq(patternPreviews.rendererVersion, PREVIEW_RENDERER_VERSION),
         ),
-      )
-      .prepare();
+      );
+    // Rows as arrays in this order (see PreviewRowArray).
+    return arrayRows(d, db, query, Object.keys(columns));
   }
   return {
-    forPage(n: number) {
+    forPage(d: Data, n: number) {
       let q = forPage.get(n);
-      if (!q) forPage.set(n, (q = pageOf(n)));
+      if (!q) forPage.set(n, (q = pageOf(d, n)));
       return q;
     },
     document: db
@@ -199,33 +226,41 @@ function listItem(pattern: Pattern, ownerName: string, access: Access, preview: 
   };
 }
 
+/** A page row as the page statement gives it (columns in its select order; times as ms or Dates). */
+type PageRow = [id: string, ownerId: string, title: string, headRevision: number, createdAt: number | Date, updatedAt: number | Date, trashedAt: number | Date | null, ownerName: string, memberAccess: Access | null, total: number | string];
+/** A preview row as the preview statement gives it. */
+type PreviewRowArray = [patternId: string, revisionNumber: number, sectionCount: number, widthIn: number, heightIn: number, displayUnit: PreviewRow['displayUnit'], svg: string | null];
+
 /** One page of the patterns a user owns or is a member of, with the total across pages. */
 export async function listPatterns(d: Data, user: { id: string }, q: ListRequest) {
   const statements = listStatements(d)(d, q.scope, q.sort, q.order, Boolean(q.q));
   const params = { userId: user.id, like: q.q ? likeContains(q.q) : '' };
-  const rows = await statements.page.execute({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const rows = (await statements.page({ ...params, limit: q.pageSize, offset: (q.page - 1) * q.pageSize })) as PageRow[];
   // The page carries the count over every row in scope; only a page past the end needs it on its own.
-  const total = rows.length > 0 ? rows[0].total : q.page > 1 ? ((await statements.total.execute(params))[0]?.n ?? 0) : 0;
-  const previews = new Map<string, PreviewRow & { revisionNumber: number }>();
+  const total = rows.length > 0 ? Number(rows[0][9]) : q.page > 1 ? ((await statements.total.execute(params))[0]?.n ?? 0) : 0;
+  const previews = new Map<string, PreviewRowArray>();
   if (rows.length > 0) {
     const ids: Record<string, string> = {};
-    rows.forEach((r, i) => (ids[`id${i}`] = r.id));
-    for (const p of await previewStatements(d).forPage(rows.length).execute(ids)) previews.set(p.patternId, p);
+    for (let i = 0; i < rows.length; i++) ids[`id${i}`] = rows[i][0];
+    for (const p of (await previewStatements(d).forPage(d, rows.length)(ids)) as PreviewRowArray[]) previews.set(p[0], p);
   }
   const items = [];
   for (const r of rows) {
     const pattern: Pattern = {
-      id: r.id,
-      ownerId: r.ownerId,
-      title: r.title,
-      headRevision: r.headRevision,
-      createdAt: r.createdAt,
-      updatedAt: r.updatedAt,
-      trashedAt: r.trashedAt,
+      id: r[0],
+      ownerId: r[1],
+      title: r[2],
+      headRevision: r[3],
+      createdAt: new Date(r[4]),
+      updatedAt: new Date(r[5]),
+      trashedAt: r[6] === null ? null : new Date(r[6]),
     };
     const stored = previews.get(pattern.id);
-    const preview = stored && stored.revisionNumber === pattern.headRevision ? stored : await fillPreview(d, pattern);
-    items.push(listItem(pattern, r.ownerName, r.ownerId === user.id ? 'owner' : (r.memberAccess as Access), preview));
+    const preview: PreviewRow | null =
+      stored && stored[1] === pattern.headRevision
+        ? { sectionCount: stored[2], widthIn: stored[3], heightIn: stored[4], displayUnit: stored[5], svg: stored[6] }
+        : await fillPreview(d, pattern);
+    items.push(listItem(pattern, r[7], r[1] === user.id ? 'owner' : (r[8] as Access), preview));
   }
   return { items, total, page: q.page, pageSize: q.pageSize };
 }
