@@ -37,9 +37,9 @@ const PATTERNS = 100;
 const BASE_PORT = Number(process.env['SW_PG_BENCH_PORT'] ?? 4884);
 const SECRET = 'pg-load-bench-secret-'.padEnd(48, 'x');
 /**
- * A pattern whose save has had no answer this long is taken for lost (a run cut off mid-request) and
- * saved onto again: longer than autocannon's 10 s request timeout, as saves take seconds at p99 on
- * a loaded machine and an earlier reuse would make a live save's successor a 409.
+ * Within a run, a pattern whose save has had no answer this long is taken for lost and saved onto
+ * again: longer than autocannon's 10 s request timeout, as saves take seconds at p99 on a loaded
+ * machine and an earlier reuse would make a live save's successor a 409.
  */
 const STALE_BUSY_MS = 15_000;
 
@@ -181,9 +181,16 @@ function saveScenario(setup: Setup): Omit<autocannon.Options, 'url'> {
   };
 }
 
-/** Heads a cut-off save left unknown, read again. */
+/**
+ * After a run: the saves it cut off (autocannon stops without their answers) may still have stored a
+ * revision, so those patterns' heads, and any a 409 left unknown, are read again from the server.
+ */
 async function refreshHeads(setup: Setup) {
-  for (const p of setup.patterns.filter((x) => x.head < 0)) p.head = (await setup.client.get(`/api/patterns/${p.id}`)).json.pattern.headRevision as number;
+  for (const p of setup.patterns) {
+    if (p.busySince === 0 && p.head >= 0) continue;
+    p.head = (await setup.client.get(`/api/patterns/${p.id}`)).json.pattern.headRevision as number;
+    p.busySince = 0;
+  }
 }
 
 const range = (values: number[], digits: number) =>
@@ -289,7 +296,7 @@ export default async function pgLoad(): Promise<BenchSection> {
         `Set-ups: sqlite — one server on SQLite in its data folder (the default); postgres × 1 — one server with DATABASE_URL; postgres × 2 — two servers on that same database, autocannon's ${CONNECTIONS} connections split evenly between them (one account, one set of ${PATTERNS} patterns, the session made on the first accepted by both). All NODE_ENV=production, one process each.`,
         `PostgreSQL: a throwaway cluster of this machine's PostgreSQL (tests/support/pg-cluster.ts: fsync, synchronous_commit and full_page_writes off, as in the tests), default pool of 10 connections per instance. A production database keeps its fsync on: saves there wait for the disk.`,
         'On SQLite the read and the save are answered by the hot routes in front of Express (server/http/hot-routes.ts); on PostgreSQL every request goes through Express (docs/postgresql.md "Repository code").',
-        `Saves: ${saved2xx(['sqlite'])} answered 2xx on SQLite in the timed rounds, ${storedSqlite} revisions stored there in all (warm-ups included); ${saved2xx(['postgres × 1', 'postgres × 2'])} on PostgreSQL, ${storedPg} stored; ${conflicts} answered 409 (a save cut off when a run stopped leaves its pattern's head unseen). Save body ${(docJson.length / 1024).toFixed(1)} kB (a 3 × 3 grid block, tests/support/documents.ts); the read answers ${(readA.length / 1024).toFixed(1)} kB on PostgreSQL.`,
+        `Saves: ${saved2xx(['sqlite'])} answered 2xx on SQLite in the timed rounds, ${storedSqlite} revisions stored there in all (warm-ups included); ${saved2xx(['postgres × 1', 'postgres × 2'])} on PostgreSQL, ${storedPg} stored; ${conflicts} answered 409 (a save cut off when a run stopped may store its revision after the heads were read again). Save body ${(docJson.length / 1024).toFixed(1)} kB (a 3 × 3 grid block, tests/support/documents.ts); the read answers ${(readA.length / 1024).toFixed(1)} kB on PostgreSQL.`,
         `Everything shares ${os.cpus().length} cores: autocannon, the servers and PostgreSQL. A second instance adds no cores here, so postgres × 2 shows what sharing one database costs, not how a fleet scales; on a machine busy with other work, two server processes also get a larger share of its cores than one. Load average (1/5/15 min) at the end: ${load}.`,
         'server_cpu_ms_per_req: CPU (user + system, every thread) of the server process(es) over the run, divided by the answers; postgres_cpu_ms_per_req: the same for the PostgreSQL server processes (the postmaster and its children). req/s ratios are per round against SQLite in the same round.',
       ],
