@@ -21,7 +21,8 @@ import { interleavedRounds, ms, ratio, summarise, type BenchSection, type Rounds
 import type { PenCall, PenRecording } from '../projects/piecing/src/testing';
 
 const MEDALLION_RUNS = 3;
-const SIZES = [1000, 2000, 5000, 10000] as const;
+/** Stress sizes; PRINT_BENCH_SIZES=1000,5000 runs only those (a quicker check on a busy machine). */
+const SIZES: readonly number[] = process.env.PRINT_BENCH_SIZES ? process.env.PRINT_BENCH_SIZES.split(',').map(Number) : [1000, 2000, 5000, 10000];
 /** Timed rounds per size (fewer for the largest, whose render takes seconds). */
 const ROUNDS: Record<number, number> = { 1000: 4, 2000: 4, 5000: 3, 10000: 1 };
 const TARGET_MS: Record<number, number> = { 5000: 2000, 10000: 4500 };
