@@ -47,8 +47,8 @@ export interface PrintJobOptions {
   /** PostgreSQL: the pool the job queue (pg-boss, in its own `pgboss` schema) runs on. */
   pgPool?: pg.Pool;
   /**
-   * A job still active this long after an instance took it is given to another (its instance is
-   * taken for dead). Default: the render timeout plus a minute, so a live render is never taken over.
+   * A job whose instance has not shown it alive for this long is given to another (its instance is
+   * taken for dead). A live instance shows its jobs alive every quarter of this. Default 60 s.
    */
   expireSeconds?: number;
   /** How often an instance looks for expired jobs (pg-boss maintenance). Default 15 s. */
@@ -157,6 +157,7 @@ export class PrintSetService {
   /** PostgreSQL: the job queue, started on first use. */
   private boss: Promise<PgBoss> | undefined;
   private pollTimer: NodeJS.Timeout | undefined;
+  private heartbeatTimer: NodeJS.Timeout | undefined;
   private bossStopped = false;
   private fetching = false;
   private fetchAgain = false;
@@ -173,7 +174,7 @@ export class PrintSetService {
     this.events.setMaxListeners(1000);
     this.files = fileStoreOf({ config, files });
     this.jobs = {
-      expireSeconds: jobOptions.expireSeconds ?? config.printTimeoutSeconds + 60,
+      expireSeconds: jobOptions.expireSeconds ?? 60,
       expiryCheckSeconds: jobOptions.expiryCheckSeconds ?? 15,
       retryDelaySeconds: jobOptions.retryDelaySeconds ?? 1,
       retryLimit: jobOptions.retryLimit ?? 5,
@@ -185,6 +186,8 @@ export class PrintSetService {
       this.boss.catch((err: unknown) => this.log('the print job queue could not be started', err));
       this.pollTimer = setInterval(() => this.poll(), this.jobs.pollMs);
       this.pollTimer.unref();
+      this.heartbeatTimer = setInterval(() => this.heartbeat(jobOptions.pgPool!), (this.jobs.expireSeconds * 1000) / 4);
+      this.heartbeatTimer.unref();
     }
   }
 
@@ -334,6 +337,7 @@ export class PrintSetService {
   async close(): Promise<void> {
     this.closed = true;
     clearInterval(this.pollTimer);
+    clearInterval(this.heartbeatTimer);
     this.waiting.clear();
     this.turns.length = 0;
     const handedOver: string[] = [];
@@ -372,6 +376,7 @@ export class PrintSetService {
   async stopAsIfKilled(): Promise<void> {
     this.closed = true;
     clearInterval(this.pollTimer);
+    clearInterval(this.heartbeatTimer);
     for (const [id, run] of this.running) {
       run.handover = true;
       this.abort(id, 'killed');
@@ -522,6 +527,20 @@ export class PrintSetService {
         for (const id of ids) if (!present.has(id)) this.cancel(id);
       })
       .catch((err: unknown) => this.log('print sets could not be checked', err));
+  }
+
+  /**
+   * Shows this instance's active jobs alive: pg-boss 10 expires a job counted from when it was taken
+   * (`started_on`) and has no call to extend it, so the time is moved on in its job table (pg-boss is
+   * pinned to 10.4.2, whose `job` table this is). A killed instance stops doing this, and its jobs
+   * expire within `expireSeconds`.
+   */
+  private heartbeat(pool: pg.Pool): void {
+    const ids = [...this.running.values()].flatMap((r) => (r.jobId && !r.handover ? [r.jobId] : []));
+    if (ids.length === 0 || this.closed) return;
+    pool
+      .query(`UPDATE pgboss.job SET started_on = now() WHERE name = $1 AND id = ANY($2::uuid[]) AND state = 'active'`, [PRINT_QUEUE, ids])
+      .catch((err: unknown) => this.log('print jobs could not be shown alive', err));
   }
 
   private start(setId: string, userId: string, jobId?: string): void {
