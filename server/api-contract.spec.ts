@@ -5,6 +5,7 @@
  */
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { eq } from 'drizzle-orm';
 import type { Response } from 'superagent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
@@ -200,7 +201,8 @@ describe('answers match the shared API contract', () => {
     answer(await quilter.get(`/api/patterns/${id}/print-sets`), 200, printSetListAnswerSchema);
 
     // Admin.
-    t.ctx.data.sqlite!.prepare("UPDATE users SET role = 'admin' WHERE email = ?").run('olive@contract.test');
+    const { users } = t.ctx.data.t;
+    await t.ctx.data.db.update(users).set({ role: 'admin' }).where(eq(users.email, 'olive@contract.test'));
     answer(await owner.get('/api/admin/users?q=contract'), 200, userPageSchema);
     answer(await owner.patch(`/api/admin/users/${quilter.user!.id}`, { disabled: false }), 200, userAnswerSchema);
     const inbox = answer(await owner.get('/api/admin/dev-inbox'), 200, devInboxAnswerSchema);
