@@ -88,6 +88,8 @@ export function fillStripSetPatch(
 
 /** Runs `draw` clipped to a polygon on the sheet. */
 export function clipToRing(pen: PdfPen, ring: readonly Point[], draw: () => void): void {
+  // A measuring pen puts nothing on the page, clipping paths included.
+  if (pen.measuringOnly) return draw();
   const doc = pen.doc;
   const pt = (v: number) => v * POINTS_PER_INCH;
   doc.saveGraphicsState();
