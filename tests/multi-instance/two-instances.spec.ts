@@ -29,11 +29,11 @@ const BASE_PORT = Number(process.env['SW_MULTI_PORT'] ?? 4880);
 /** Failed sign-ins allowed per account on each instance (and, shared, on both together). */
 const SIGNIN_LIMIT = 6;
 /**
- * How long a print job may stay taken before pg-boss gives it to another instance (the job of an
- * instance that died): short here so the SIGKILL test waits seconds, not the default minutes; longer
- * than a render of the sets below takes on a busy machine, so a live render is never taken over.
+ * How long a print job may go without its instance showing it alive (every quarter of this) before
+ * pg-boss gives it to another instance: short here so the SIGKILL test waits seconds, not a minute
+ * (docs/postgresql.md "Print jobs").
  */
-const PRINT_JOB_EXPIRE_SECONDS = 45;
+const PRINT_JOB_EXPIRE_SECONDS = 15;
 const SECRET = 'two-instances-secret-'.padEnd(48, 'z');
 
 let cluster: PgCluster;
