@@ -20,6 +20,11 @@ function log(message: string, err?: unknown): void {
 export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: string[] = process.argv) {
   const config = loadConfig(env);
   const opened = await openData(config);
+  if (config.databaseUrl && !config.secret) {
+    // Sessions live in the database, but CSRF tokens are signed with this secret: without one shared
+    // secret, another instance refuses the tokens this one gives (README "Running on more than one machine").
+    log('DATABASE_URL is set but SEAMWRIGHT_SECRET is not: this instance signs CSRF tokens with a secret of its own, which other instances refuse; give every instance the same SEAMWRIGHT_SECRET');
+  }
   const mailer = createSmtpMailer(config);
   const report = config.seedDemo || argv.includes('--seed-demo') ? await seedDemoIfEmpty(opened.data, config.bcryptRounds) : undefined;
   if (report) {

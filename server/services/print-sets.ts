@@ -29,6 +29,9 @@ const END_RETRY_MAX_MS = 5000;
 /** The pg-boss queue of print jobs (PostgreSQL). */
 export const PRINT_QUEUE = 'print-set';
 
+/** The advisory lock instances take in turn to set up the print queue (ASCII "SeamwQue"). */
+const QUEUE_SETUP_LOCK = 0x5365616d77517565n.toString();
+
 /** A print job in the pg-boss queue: the set to render. */
 interface PrintJob {
   setId: string;
@@ -221,13 +224,26 @@ export class PrintSetService {
       maintenanceIntervalSeconds: this.jobs.expiryCheckSeconds,
     });
     boss.on('error', (err: unknown) => this.log('print job queue error', err));
-    await boss.start();
-    await boss.createQueue(PRINT_QUEUE, {
-      name: PRINT_QUEUE,
-      expireInSeconds: this.jobs.expireSeconds,
-      retryLimit: this.jobs.retryLimit,
-      retryDelay: this.jobs.retryDelaySeconds,
-    });
+    // Instances starting together would create the queue together, and pg-boss's queue creation
+    // (a partition and its constraint) can deadlock with itself: one instance at a time, under a
+    // session advisory lock held on a connection of its own (docs/postgresql.md "Print jobs").
+    const lock = await pool.connect();
+    try {
+      await lock.query('SELECT pg_advisory_lock($1)', [QUEUE_SETUP_LOCK]);
+      try {
+        await boss.start();
+        await boss.createQueue(PRINT_QUEUE, {
+          name: PRINT_QUEUE,
+          expireInSeconds: this.jobs.expireSeconds,
+          retryLimit: this.jobs.retryLimit,
+          retryDelay: this.jobs.retryDelaySeconds,
+        });
+      } finally {
+        await lock.query('SELECT pg_advisory_unlock($1)', [QUEUE_SETUP_LOCK]);
+      }
+    } finally {
+      lock.release();
+    }
     return boss;
   }
 
