@@ -24,6 +24,7 @@ const alias = {
 const PG_API_SPECS = ['server/auth.spec.ts', 'server/password-reset.spec.ts', 'server/patterns.spec.ts', 'server/save-race.spec.ts', 'server/seed.spec.ts', 'server/services/housekeeping.spec.ts', 'server/services/pattern-list.spec.ts', 'server/colourway-copies.spec.ts', 'server/routes/sewing-log.spec.ts', 'server/uploads.spec.ts', 'server/sharing.spec.ts', 'server/control-characters.spec.ts', 'server/pattern-import.spec.ts', 'server/shop/shop.spec.ts', 'server/shop/listing-quilt-fill.spec.ts', 'server/main.spec.ts', 'server/save-thread-time.spec.ts', 'server/print-sets.spec.ts', 'server/print-set-quilt.spec.ts', 'server/access-matrix.spec.ts', 'server/members-privacy.spec.ts', 'server/revision-history.spec.ts', 'server/api-contract.spec.ts', 'server/hostile.spec.ts'];
 
 const propertySeed = fileURLToPath(new URL('./tests/support/property-seed.ts', import.meta.url));
+const stopTestCluster = fileURLToPath(new URL('./tests/support/stop-test-cluster.ts', import.meta.url));
 
 export default defineConfig({
   resolve: { alias },
@@ -60,7 +61,7 @@ export default defineConfig({
           // test server a fresh database in a throwaway cluster, one cluster per file.
           name: 'server-pg',
           environment: 'node',
-          setupFiles: [propertySeed],
+          setupFiles: [propertySeed, stopTestCluster],
           include: PG_API_SPECS,
           env: { SEAMWRIGHT_TEST_DATABASE: 'postgres' },
           testTimeout: 60_000,

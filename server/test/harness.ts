@@ -93,6 +93,17 @@ export async function testDatabaseUrl(): Promise<string | undefined> {
   return (await cluster).createDatabase(`api_${process.pid}_${++databases}`);
 }
 
+/**
+ * Stops this test file's cluster, if one was started. Run after the file's own hooks (the `server-pg`
+ * project's setup file, tests/support/stop-test-cluster.ts): vitest may end a test process without
+ * the exit hook that would otherwise stop it.
+ */
+export async function stopTestCluster(): Promise<void> {
+  const started = cluster;
+  cluster = undefined;
+  if (started) await (await started).stop();
+}
+
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 /** A browser-like client: keeps cookies and sends the CSRF token on every request. */
