@@ -27,7 +27,7 @@ import * as piecing from '@seamwright/piecing';
 import { signedInClient } from '../tests/support/api-client';
 import { gridDocument } from '../tests/support/documents';
 import { REPO_ROOT, startServerProcess, type ServerProcess } from '../tests/support/server-process';
-import { ms, quantile, type BenchSection } from './bench-kit';
+import { ms, quantile, saveRequestHooks, type BenchSection, type SavedPattern } from './bench-kit';
 
 const CONNECTIONS = 50;
 /** Rounds: in each, every scenario runs against each server in turn (the order turns round by round). */
@@ -150,7 +150,7 @@ export default async function apiLoad(): Promise<BenchSection> {
     const { client } = await signedInClient(server.baseUrl, 'designer', 'load');
     const docJson = JSON.stringify(benchDocument('Load block'));
     // 100 patterns to list (five pages of 20) and to save onto.
-    const patterns: { id: string; head: number; busySince: number }[] = [];
+    const patterns: SavedPattern[] = [];
     for (let i = 0; i < Math.max(60, CONNECTIONS * 2); i++) {
       const res = await client.post('/api/patterns', { document: JSON.parse(docJson.replace('Load block', `Load block ${i}`)) });
       if (res.status !== 201) throw new Error(`create answered ${res.status}: ${res.text.slice(0, 200)}`);
@@ -187,26 +187,8 @@ export default async function apiLoad(): Promise<BenchSection> {
       requests: [
         {
           method: 'PUT',
-          setupRequest: (req, context: Record<string, unknown>) => {
-            const now = Date.now();
-            // A pattern nobody is saving (or whose save was never sent: stale after 2 s).
-            const p = patterns.find((x) => x.busySince === 0 || now - x.busySince > 2000) ?? patterns[Math.floor(Math.random() * patterns.length)];
-            p.busySince = now;
-            context['pattern'] = p;
-            return { ...req, path: `/api/patterns/${p.id}`, body: `{"baseRevision":${p.head},"document":${docJson}}` };
-          },
-          onResponse: (status, body, context: Record<string, unknown>) => {
-            const p = context['pattern'] as (typeof patterns)[number] | undefined;
-            if (!p) return;
-            if (status === 200) p.head = (JSON.parse(body) as { revision: { number: number } }).revision.number;
-            else if (status === 409) {
-              conflicts++;
-              const latest = (JSON.parse(body) as { details?: { latest?: { number?: number } } }).details?.latest?.number;
-              if (typeof latest === 'number') p.head = latest;
-              else p.head = -1; // re-read from the product after the run
-            }
-            p.busySince = 0;
-          },
+          // A pattern nobody is saving (or whose save was never sent: stale after 2 s).
+          ...saveRequestHooks(patterns, docJson, 2000, () => conflicts++),
         },
       ],
     });

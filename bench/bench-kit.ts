@@ -3,6 +3,7 @@
  * default-exports an async function returning a {@link BenchSection}; `bench/run.ts` runs them all and
  * writes `bench/report.md` and `bench/report.json`. Benchmarks measure; they never fail on a time.
  */
+import type autocannon from 'autocannon';
 import { performance } from 'node:perf_hooks';
 
 /** One part of the report: a titled table plus notes (targets, ratios, caveats). */
@@ -189,4 +190,42 @@ export function ratioNote(result: RoundsResult, name: string): string {
   const v = result.variants.find((x) => x.name === name);
   if (!v) throw new Error(`ratioNote: no variant named ${name}`);
   return `${name} ÷ ${result.baseline} = ${ratio(v.ratioMedian)} (${v.ratioMin.toFixed(2)}–${v.ratioMax.toFixed(2)} over ${result.rounds} rounds)`;
+}
+
+/** A pattern that load-test saves build on: its id, the head revision last seen, and since when a save of it is in flight (0: none). */
+export interface SavedPattern {
+  id: string;
+  head: number;
+  busySince: number;
+}
+
+type RequestHooks = Pick<autocannon.Request, 'setupRequest' | 'onResponse'>;
+
+/**
+ * autocannon hooks for saves on `PUT /api/patterns/:id` that each build on their pattern's latest
+ * revision: a request takes a pattern nobody is saving (or one whose save has been in flight longer
+ * than `staleMs`, cut off by the end of a run), sends `docJson` on its head, and its answer moves the
+ * head on (200) or to the latest the 409 names (-1 when unnamed: read it again after the run).
+ */
+export function saveRequestHooks(patterns: SavedPattern[], docJson: string, staleMs: number, onConflict: () => void): RequestHooks {
+  return {
+    setupRequest: (req, context: Record<string, unknown>) => {
+      const now = Date.now();
+      const p = patterns.find((x) => x.busySince === 0 || now - x.busySince > staleMs) ?? patterns[Math.floor(Math.random() * patterns.length)];
+      p.busySince = now;
+      context['pattern'] = p;
+      return { ...req, path: `/api/patterns/${p.id}`, body: `{"baseRevision":${p.head},"document":${docJson}}` };
+    },
+    onResponse: (status, body, context: Record<string, unknown>) => {
+      const p = context['pattern'] as SavedPattern | undefined;
+      if (!p) return;
+      if (status === 200) p.head = (JSON.parse(body) as { revision: { number: number } }).revision.number;
+      else if (status === 409) {
+        onConflict();
+        const latest = (JSON.parse(body) as { details?: { latest?: { number?: number } } }).details?.latest?.number;
+        p.head = typeof latest === 'number' ? latest : -1;
+      }
+      p.busySince = 0;
+    },
+  };
 }

@@ -26,7 +26,7 @@ import { ApiClient, newCredentials } from '../tests/support/api-client';
 import { gridDocument } from '../tests/support/documents';
 import { startPgCluster, type PgCluster } from '../tests/support/pg-cluster';
 import { startServerProcess, type ServerProcess } from '../tests/support/server-process';
-import { ms, quantile, type BenchSection } from './bench-kit';
+import { ms, quantile, saveRequestHooks, type BenchSection, type SavedPattern } from './bench-kit';
 
 const CONNECTIONS = 50;
 const ROUNDS = 3;
@@ -55,7 +55,7 @@ interface Setup {
   postmaster?: number;
   client: ApiClient;
   headers: Record<string, string>;
-  patterns: { id: string; head: number; busySince: number }[];
+  patterns: SavedPattern[];
   readPath: string;
 }
 
@@ -158,24 +158,7 @@ function saveScenario(setup: Setup): Omit<autocannon.Options, 'url'> {
     requests: [
       {
         method: 'PUT',
-        setupRequest: (req, context) => {
-          const now = Date.now();
-          const p = patterns.find((x) => x.busySince === 0 || now - x.busySince > STALE_BUSY_MS) ?? patterns[Math.floor(Math.random() * patterns.length)];
-          p.busySince = now;
-          context['pattern'] = p;
-          return { ...req, path: `/api/patterns/${p.id}`, body: `{"baseRevision":${p.head},"document":${docJson}}` };
-        },
-        onResponse: (status, body, context) => {
-          const p = context['pattern'] as (typeof patterns)[number] | undefined;
-          if (!p) return;
-          if (status === 200) p.head = (JSON.parse(body) as { revision: { number: number } }).revision.number;
-          else if (status === 409) {
-            conflicts++;
-            const latest = (JSON.parse(body) as { details?: { latest?: { number?: number } } }).details?.latest?.number;
-            p.head = typeof latest === 'number' ? latest : -1;
-          }
-          p.busySince = 0;
-        },
+        ...saveRequestHooks(patterns, docJson, STALE_BUSY_MS, () => conflicts++),
       },
     ],
   };
