@@ -165,8 +165,3 @@ export function pgData(handle: Pick<PgDatabaseHandle, 'db'>): Data {
   });
   return make(handle.db, false);
 }
-
-/** The first row of an awaited query, or undefined. */
-export async function first<R>(query: PromiseLike<R[]>): Promise<R | undefined> {
-  return (await query)[0];
-}

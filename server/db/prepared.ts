@@ -12,23 +12,9 @@ function cacheKey(db: DbLike): object {
 }
 
 /**
- * Statements built once per database connection and reused (drizzle `.prepare()` with `sql.placeholder`).
- * For hot queries; a transaction uses the set of the connection it runs on.
- */
-export function preparedPerDb<T>(build: (db: DbLike) => T): (db: DbLike) => T {
-  const cache = new WeakMap<object, T>();
-  return (db) => {
-    const key = cacheKey(db);
-    let q = cache.get(key);
-    if (!q) cache.set(key, (q = build(db)));
-    return q;
-  };
-}
-
-/**
- * {@link preparedPerDb} for code written for both databases (server/db/data.ts): statements built
- * from `d.db` and `d.t`, once per connection (on PostgreSQL once per pool and once per transaction:
- * node-postgres sends them unnamed), run with `await q.execute(values)`.
+ * Statements built once per connection from `d.db` and `d.t` (drizzle `.prepare()` with
+ * `sql.placeholder`) and run with `await q.execute(values)` on both databases (server/db/data.ts); on
+ * PostgreSQL once per pool and once per transaction (node-postgres sends them unnamed).
  */
 export function preparedOn<T>(build: (db: Db, t: Tables) => T): (d: Data) => T {
   const cache = new WeakMap<object, T>();
