@@ -97,14 +97,14 @@ export class MailOutbox {
    */
   private async take(now: number) {
     const { mailOutbox } = this.data.t;
+    const isDue = and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now)));
+    // A plain read first: most passes find nothing due and then take no write lock. On SQLite a
+    // transaction's BEGIN IMMEDIATE waits, with the request thread blocked, while the validation pool
+    // stores a large save through its own connection (bench/save-validation.bench.ts).
+    if ((await this.data.db.select({ id: mailOutbox.id }).from(mailOutbox).where(isDue).limit(1)).length === 0) return [];
     return this.data.transaction(async (tx) => {
       const due = await tx.lockSkipLocked(
-        tx.db
-          .select()
-          .from(mailOutbox)
-          .where(and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now))))
-          .orderBy(asc(mailOutbox.nextAttemptAt))
-          .limit(this.options.batch),
+        tx.db.select().from(mailOutbox).where(isDue).orderBy(asc(mailOutbox.nextAttemptAt)).limit(this.options.batch),
       );
       if (due.length > 0) {
         await tx.db
