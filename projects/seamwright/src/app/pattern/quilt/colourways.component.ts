@@ -6,7 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { applyColourway, quiltPictureSvg, type PatternDocument, type QuiltPlan } from '@seamwright/piecing';
 import { renderFrontViewSvg } from '@seamwright/template-editor-core';
 import { QuiltPictureComponent } from './quilt-picture.component';
-import { addColourway, removeColourway, updateColourway, updateColourwayFabric } from './quilt-edits';
+import { addColourway, removeColourway, updateColourway, updateColourwayFabric, type QuiltEdit } from './quilt-edits';
 
 /** One picture of the row of colourways. */
 interface ColourwayCard {
@@ -32,7 +32,8 @@ export class ColourwaysComponent {
   /** The colourway shown, or null for the pattern's own fabrics. */
   readonly chosenId = input<string | null>(null);
   readonly canEdit = input(false);
-  readonly documentChange = output<PatternDocument>();
+  /** A change to the pattern, applied by the page to its newest copy (see `QuiltEdit`). */
+  readonly edit = output<QuiltEdit>();
   readonly choose = output<string | null>();
 
   /** The quilt as planned for the page (its geometry is the same in every colourway), or null to show the block. */
@@ -59,25 +60,29 @@ export class ColourwaysComponent {
   });
 
   protected add(): void {
-    const doc = this.document();
-    const from = doc.colourways?.find((c) => c.id === this.chosenId()) ?? null;
-    const next = addColourway(doc, from);
-    this.documentChange.emit(next);
-    this.choose.emit(next.colourways?.at(-1)?.id ?? null);
+    const chosen = this.chosenId();
+    let made: string | null = null;
+    // The page applies an edit as it is sent (outputs are synchronous), so `made` is known below.
+    this.edit.emit((doc) => {
+      const next = addColourway(doc, doc.colourways?.find((c) => c.id === chosen) ?? null);
+      made = next.colourways?.at(-1)?.id ?? null;
+      return next;
+    });
+    this.choose.emit(made);
   }
 
   protected rename(id: string, name: string): void {
     const trimmed = name.trim();
-    if (trimmed) this.documentChange.emit(updateColourway(this.document(), id, { name: trimmed.slice(0, 80) }));
+    if (trimmed) this.edit.emit((doc) => updateColourway(doc, id, { name: trimmed.slice(0, 80) }));
   }
 
   protected setFabric(id: string, fabricId: string, change: { name?: string; colour?: string }): void {
     if (change.name !== undefined && !change.name.trim()) return;
-    this.documentChange.emit(updateColourwayFabric(this.document(), id, fabricId, change));
+    this.edit.emit((doc) => updateColourwayFabric(doc, id, fabricId, change));
   }
 
   protected remove(id: string): void {
     this.choose.emit(null);
-    this.documentChange.emit(removeColourway(this.document(), id));
+    this.edit.emit((doc) => removeColourway(doc, id));
   }
 }

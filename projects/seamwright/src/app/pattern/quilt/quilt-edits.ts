@@ -5,6 +5,14 @@ import type { Colourway, PatternDocument, QuiltBorder, QuiltCell, QuiltLayout, Q
  * never changes its input. The layout's fields are those of design §11 (docs/quilt-layout.md).
  */
 
+/**
+ * A change the Quilt tab's controls send to the page, which applies it to its newest working document.
+ * Controls send changes, not whole documents: without zone.js, several events (a name confirmed with
+ * Enter, then a colour picked) can arrive before a control's `document` input is brought up to date,
+ * and a document built from that older input would silently undo the change before it.
+ */
+export type QuiltEdit = (doc: PatternDocument) => PatternDocument;
+
 /** A first quilt layout for a block: 3 × 3, straight, no sashing or borders, common binding and backing. */
 export function startQuilt(doc: PatternDocument): PatternDocument {
   const first = doc.fabrics[0]?.id;

@@ -7,7 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
 import { MAX_SIZE_IN, type PatternDocument, type QuiltCell, type QuiltLayout } from '@seamwright/piecing';
 import { QuiltNumberFieldComponent } from './quilt-number-field.component';
-import { addBorder, cellAt, removeBorder, updateBorder, updateCell, updateQuilt } from './quilt-edits';
+import { addBorder, cellAt, removeBorder, updateBorder, updateCell, updateQuilt, type CellChange, type QuiltEdit } from './quilt-edits';
 import type { CellRef } from './quilt-picture.component';
 
 /** Most blocks across or down (the document's own limit, design §11). */
@@ -30,7 +30,8 @@ export class QuiltLayoutFormComponent {
   readonly document = input.required<PatternDocument>();
   /** The block chosen on the picture. */
   readonly chosen = input<CellRef | null>(null);
-  readonly documentChange = output<PatternDocument>();
+  /** A change to the pattern, applied by the page to its newest copy (see `QuiltEdit`). */
+  readonly edit = output<QuiltEdit>();
   protected readonly maxBlocks = MAX_BLOCKS;
   protected readonly maxLength = MAX_SIZE_IN;
   protected readonly turns = [0, 90, 180, 270] as const;
@@ -41,19 +42,24 @@ export class QuiltLayoutFormComponent {
     return c ? cellAt(this.quilt(), c.row, c.col) : null;
   });
 
-  protected set(change: Partial<QuiltLayout>): void {
-    this.documentChange.emit(updateQuilt(this.document(), change));
+  protected set(change: Partial<QuiltLayout> | ((quilt: QuiltLayout) => Partial<QuiltLayout> | null)): void {
+    this.edit.emit((doc) => {
+      if (!doc.quilt) return doc;
+      const c = typeof change === 'function' ? change(doc.quilt) : change;
+      return c ? updateQuilt(doc, c) : doc;
+    });
   }
 
-  protected setCell(change: Partial<Pick<QuiltCell, 'rotateDeg' | 'mirrored' | 'alternate'>>): void {
+  /** Changes the chosen block (a change worked out from the block as it is when the page applies it). */
+  protected setCell(change: CellChange | ((cell: QuiltCell) => CellChange)): void {
     const c = this.chosen();
-    if (c) this.documentChange.emit(updateCell(this.document(), c.row, c.col, change));
+    if (!c) return;
+    this.edit.emit((doc) => (doc.quilt ? updateCell(doc, c.row, c.col, typeof change === 'function' ? change(cellAt(doc.quilt, c.row, c.col)) : change) : doc));
   }
 
   /** A quarter turn clockwise more. */
   protected turnChosen(): void {
-    const now = this.cell()?.rotateDeg ?? 0;
-    this.setCell({ rotateDeg: ((now + 90) % 360) as 0 | 90 | 180 | 270 });
+    this.setCell((cell) => ({ rotateDeg: (((cell.rotateDeg ?? 0) + 90) % 360) as 0 | 90 | 180 | 270 }));
   }
 
   protected setSashing(on: boolean): void {
@@ -63,30 +69,31 @@ export class QuiltLayoutFormComponent {
   }
 
   protected setSashingField(change: Partial<NonNullable<QuiltLayout['sashing']>>): void {
-    const s = this.quilt().sashing;
-    if (!s) return;
-    const next = { ...s, ...change };
-    if (!next.cornerstoneFabricId) delete next.cornerstoneFabricId;
-    this.set({ sashing: next });
+    this.set((quilt) => {
+      if (!quilt.sashing) return null;
+      const next = { ...quilt.sashing, ...change };
+      if (!next.cornerstoneFabricId) delete next.cornerstoneFabricId;
+      return { sashing: next };
+    });
   }
 
   protected addBorder(): void {
-    this.documentChange.emit(addBorder(this.document()));
+    this.edit.emit((doc) => addBorder(doc));
   }
 
   protected setBorder(index: number, change: { widthIn?: number; fabricId?: string }): void {
-    this.documentChange.emit(updateBorder(this.document(), index, change));
+    this.edit.emit((doc) => updateBorder(doc, index, change));
   }
 
   protected removeBorder(index: number): void {
-    this.documentChange.emit(removeBorder(this.document(), index));
+    this.edit.emit((doc) => removeBorder(doc, index));
   }
 
   protected setBinding(change: Partial<QuiltLayout['binding']>): void {
-    this.set({ binding: { ...this.quilt().binding, ...change } });
+    this.set((quilt) => ({ binding: { ...quilt.binding, ...change } }));
   }
 
   protected setBacking(change: Partial<QuiltLayout['backing']>): void {
-    this.set({ backing: { ...this.quilt().backing, ...change } });
+    this.set((quilt) => ({ backing: { ...quilt.backing, ...change } }));
   }
 }

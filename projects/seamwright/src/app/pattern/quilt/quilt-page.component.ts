@@ -15,7 +15,7 @@ import { QuiltLayoutFormComponent } from './quilt-layout-form.component';
 import { SizeChartComponent } from './size-chart.component';
 import { ColourwaysComponent } from './colourways.component';
 import { QuiltExportComponent } from './quilt-export.component';
-import { startQuilt } from './quilt-edits';
+import { startQuilt, type QuiltEdit } from './quilt-edits';
 
 /**
  * The Quilt part of the pattern page: the block set into a quilt (picture in the chosen colourway and
@@ -120,6 +120,14 @@ export class QuiltPageComponent implements HasUnsavedChanges {
     if (before && doc.quilt && (before.columns !== doc.quilt.columns || before.rows !== doc.quilt.rows)) this.choice.sizeName.set(null);
     this.working.set(doc);
     this.autosave.change(doc);
+  }
+
+  /** A change from one of the controls, applied to the newest working document. */
+  protected apply(edit: QuiltEdit): void {
+    const doc = this.working();
+    if (!doc) return;
+    const next = edit(doc);
+    if (next !== doc) this.change(next);
   }
 
   protected start(): void {

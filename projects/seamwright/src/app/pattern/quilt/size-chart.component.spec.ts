@@ -31,7 +31,8 @@ function render(doc: PatternDocument, canEdit: boolean) {
   fixture.componentRef.setInput('canEdit', canEdit);
   const changes: PatternDocument[] = [];
   const chosen: Array<string | null> = [];
-  fixture.componentInstance.documentChange.subscribe((d) => changes.push(d));
+  // Each change applied to the document shown, as the Quilt page does.
+  fixture.componentInstance.edit.subscribe((edit) => changes.push(edit(fixture.componentInstance.document())));
   fixture.componentInstance.chooseSize.subscribe((s) => chosen.push(s));
   fixture.detectChanges();
   const el = fixture.nativeElement as HTMLElement;

@@ -7,7 +7,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { quiltSizes, type PatternDocument, type QuiltSizeRow } from '@seamwright/piecing';
 import { showInches, showYards } from '../../core/length-text';
 import { QuiltNumberFieldComponent } from './quilt-number-field.component';
-import { addSize, removeSize, updateSize } from './quilt-edits';
+import { addSize, removeSize, updateSize, type QuiltEdit } from './quilt-edits';
 
 
 /**
@@ -28,7 +28,8 @@ export class SizeChartComponent {
   readonly canEdit = input(false);
   /** The size chosen for the cutting list and print set, or null for the layout as laid out. */
   readonly chosenSize = input<string | null>(null);
-  readonly documentChange = output<PatternDocument>();
+  /** A change to the pattern, applied by the page to its newest copy (see `QuiltEdit`). */
+  readonly edit = output<QuiltEdit>();
   readonly chooseSize = output<string | null>();
   protected readonly inches = showInches;
   protected readonly yards = showYards;
@@ -61,23 +62,23 @@ export class SizeChartComponent {
   }
 
   protected add(): void {
-    this.documentChange.emit(addSize(this.document()));
+    this.edit.emit((doc) => addSize(doc));
   }
 
   protected rename(index: number, name: string): void {
     const trimmed = name.trim();
     if (!trimmed || this.sizes().some((s, i) => i !== index && s.name === trimmed)) return;
     const old = this.sizes()[index]?.name;
-    this.documentChange.emit(updateSize(this.document(), index, { name: trimmed }));
+    this.edit.emit((doc) => ((doc.quilt?.sizes ?? []).some((s, i) => i !== index && s.name === trimmed) ? doc : updateSize(doc, index, { name: trimmed })));
     if (old && old === this.chosenSize()) this.chooseSize.emit(trimmed);
   }
 
   protected resize(index: number, change: { columns?: number; rows?: number }): void {
-    this.documentChange.emit(updateSize(this.document(), index, change));
+    this.edit.emit((doc) => updateSize(doc, index, change));
   }
 
   protected remove(index: number): void {
-    this.documentChange.emit(removeSize(this.document(), index));
+    this.edit.emit((doc) => removeSize(doc, index));
   }
 
   /** Whether a typed name is taken by another size. */
