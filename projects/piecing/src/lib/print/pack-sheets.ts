@@ -75,6 +75,7 @@ export type SheetFill<T> = (
   frame: SheetFrame,
   placed: readonly PackedItem<T>[],
   left: readonly PackItem<T>[],
+  lead?: number,
 ) => Array<{ taken: PackItem<T>; packed: PackedItem<T> }>;
 
 export function packSheets<T>(
@@ -158,10 +159,47 @@ export function packSheets<T>(
     const frame = { ...chosen.frame, testBlock: chosen.tried.block };
     const after = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
     const extra = fill && after.length > 0 ? fill(frame, chosen.tried.placed, after) : [];
-    left = remainingAfter(left, [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)], parentOf);
-    sheets.push({ frame, items: [...chosen.tried.placed, ...extra.map((e) => e.packed)] });
+    let sheet: PackedSheet<T> = { frame, items: [...chosen.tried.placed, ...extra.map((e) => e.packed)] };
+    let taken = [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)];
+    // The same sheet laid out by real outlines alone (the test squares in the corner beside the header's
+    // text): kept where it covers more template area than the boxes and their gaps did.
+    // Only where some piece leaves room inside its box (arcs, wedges, triangles): boxes pack boxes best.
+    if (fill && left.some(roomInside)) {
+      let bestArea = coveredArea(taken) + 1e-6;
+      for (const orientation of ['portrait', 'landscape'] as const) for (let lead = 0; lead < NEST_LEADS; lead++) {
+        const f = { ...frames[orientation], testBlock: cornerBlock(frames[orientation]) };
+        const nested = fill(f, [], left, lead);
+        if (nested.length === 0) continue;
+        const area = coveredArea(nested.map((e) => e.taken));
+        if (area > bestArea) {
+          bestArea = area;
+          sheet = { frame: f, items: nested.map((e) => e.packed) };
+          taken = nested.map((e) => e.taken);
+        }
+      }
+    }
+    left = remainingAfter(left, taken, parentOf);
+    sheets.push(sheet);
   }
   return sheets;
+}
+
+/** Laying a sheet out by outlines alone, each of this many kinds of piece (the largest) is tried first. */
+const NEST_LEADS = 2;
+
+/** Whether an item's outlines cover clearly less than its box (so outlines may interlock where boxes cannot). */
+function roomInside(item: PackItem<unknown>): boolean {
+  return (item.parts ?? [item]).some((p) => p.areaSqIn !== undefined && p.areaSqIn < 0.95 * p.width * p.height);
+}
+
+/** Template area the items cover (inside their outlines where known), square inches. */
+function coveredArea(items: readonly PackItem<unknown>[]): number {
+  return items.reduce((s, i) => s + (i.areaSqIn ?? i.width * i.height), 0);
+}
+
+/** The test block side by side in the top-left corner, its top at the printable area's (beside the header's text). */
+function cornerBlock(frame: SheetFrame): RectIn {
+  return { x: frame.content.x, y: cornerBlockTopIn(frame, 'header'), width: frame.testBlock.width, height: frame.testBlock.height };
 }
 
 /** Up to this many items left, every try offers them all to the sheet. */

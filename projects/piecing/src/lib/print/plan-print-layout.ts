@@ -2,10 +2,10 @@ import type { Point } from '../document/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
 import { packSheets, type PackedItem, type PackItem, type SheetFill } from './pack-sheets';
-import { blockRing, findSpot, occupancyGrid, shapeMask, type ShapeMask } from './raster-fill';
+import { blockRing, findSpot, occupancyGrid, ringsMask, shapeMask, type ShapeMask } from './raster-fill';
 import { boundingRect, clipRingToRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
-import { nestPair, simplifyRing, type NestedPair } from './nest-pair';
+import { nestPair, separated, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
 import { equalSpans, intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGridFromSpans, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
@@ -89,7 +89,7 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     }
     return rings;
   };
-  const packed = packSheets(pieces, paper, marginIn, outlines, gapFiller(mirrored, outlines));
+  const packed = packSheets(pieces, paper, marginIn, outlines, gapFiller(mirrored, outlines, outlineOf));
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
     for (const p of sheet.items) {
@@ -441,6 +441,45 @@ function rectRing(r: RectIn): Point[] {
   return [{ x: r.x, y: r.y }, { x: r.x + r.width, y: r.y }, { x: r.x + r.width, y: r.y + r.height }, { x: r.x, y: r.y + r.height }];
 }
 
+/** A piece placed by the gap filler: a tile or pair as it is (a pair maybe turned), a copy at its own turn. */
+function at(item: PackItem<Piece>, shape: FillShape, k: number, x: number, y: number): PackedItem<Piece> {
+  if (item.data.tile || item.data.pair) return { item, x, y, turned: k === 1, width: shape.width, height: shape.height };
+  const { prepared, copy } = item.data;
+  return {
+    item: {
+      width: shape.width,
+      height: shape.height,
+      quarterTurns: false,
+      data: { prepared, copy, free: { frame: shape.frame, width: shape.width, height: shape.height, turnDeg: shape.turnDeg } },
+      areaSqIn: prepared.template.areaSqIn,
+    },
+    x,
+    y,
+    turned: false,
+    width: shape.width,
+    height: shape.height,
+  };
+}
+
+/** Spots a turn of a piece checks against the outlines before giving up on that turn. */
+const FILL_CHECKS_PER_TURN = 24;
+
+/**
+ * From `ok` (where `fits` holds) towards `toward`, the farthest value that still fits, to within a
+ * few thousandths (by halving: where the piece first touches its neighbours' gap).
+ */
+function slide(ok: number, toward: number, fits: (v: number) => boolean): number {
+  if (fits(toward)) return toward;
+  let good = ok;
+  let bad = toward;
+  for (let i = 0; i < 5; i++) {
+    const mid = (good + bad) / 2;
+    if (fits(mid)) good = mid;
+    else bad = mid;
+  }
+  return good;
+}
+
 /** Raster cell for fitting templates into gaps, inches. */
 const FILL_CELL_IN = 0.1;
 /** Templates tried per sheet when filling gaps (the largest first). */
@@ -453,14 +492,33 @@ const FILL_TEMPLATES_PER_SHEET = 6;
 const maskCache = new Map<string, ShapeMask>();
 const MASK_CACHE_SIZE = 1024;
 
+/** One way a piece may lie in a gap: its raster mask and, for a whole copy, its frame and box at that turn. */
+interface FillShape {
+  mask: ShapeMask;
+  frame: Affine;
+  width: number;
+  height: number;
+  turnDeg: number;
+  /** Its outlines with its box at the origin, each with its bounding box. */
+  rings: Array<{ ring: Point[]; box: RectIn }>;
+}
+
+/** Rings with their bounding boxes. */
+function withBoxes(rings: Point[][]): Array<{ ring: Point[]; box: RectIn }> {
+  return rings.map((ring) => ({ ring, box: boundingRect(ring) }));
+}
+
 /**
- * Fills the gaps of each packed sheet with single copies, at any turn (every 22.5° for arcs and
- * wedges, quarter turns for straight sections), looking at the real cutting lines on a raster.
+ * Fills the gaps of a sheet with single copies and tiles, looking at the real cutting lines on a raster
+ * (with nothing placed yet, it lays out a whole sheet by outline). Whole copies are tried at every
+ * 22.5° from the turn that gives them their smallest box for arcs and wedges (so 180° is among them:
+ * wedges and arcs interlock head to tail), at quarter turns for straight sections; tiles never turn.
+ * The largest pieces go first, each copy at the first free spot row by row from the top-left.
  */
-function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][]): SheetFill<Piece> {
+function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][], outlineOf: (id: string, m: Affine) => Point[]): SheetFill<Piece> {
   const outlineKeys = new Map<string, string>();
-  const shapes = new Map<string, { mask: ShapeMask; frame: Affine; width: number; height: number; turnDeg: number }>();
-  const shapeAt = (prepared: PreparedTemplate, k: number, turns: number) => {
+  const shapes = new Map<string, FillShape>();
+  const shapeAt = (prepared: PreparedTemplate, k: number, turns: number): FillShape => {
     const id = prepared.template.id;
     let entry = shapes.get(`${k}/${turns}|${id}`);
     if (entry) return entry;
@@ -470,71 +528,158 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
       outlineKey = prepared.template.cuttingLine.map((p) => `${(p.x - o.x).toFixed(6)},${(p.y - o.y).toFixed(6)}`).join(';');
       outlineKeys.set(id, outlineKey);
     }
-    const turn = (2 * Math.PI * k) / turns;
-    const m = compose(rotation(turn), mirrored ? MIRROR_X : IDENTITY);
+    // Arcs and wedges turn from their smallest-box turn (what the box packing uses), straight sections from none.
+    const baseDeg = prepared.template.freeRotation ? prepared.turnDeg : 0;
+    const turnDeg = (baseDeg + (360 * k) / turns) % 360;
+    const m = compose(rotation((turnDeg * Math.PI) / 180), mirrored ? MIRROR_X : IDENTITY);
     const ring = prepared.template.cuttingLine.map((p) => applyAffine(m, p));
     const box = boundingRect(ring);
     const frame = compose(translation(-box.x, -box.y), m);
-    const key = `${mirrored ? 1 : 0}@${k}/${turns}|${outlineKey}`;
+    const key = `${mirrored ? 1 : 0}@${k}/${turns}+hopeful|${outlineKey}`;
     let mask = maskCache.get(key);
     if (!mask) {
-      // The mask is made from the outline simplified within 0.02 in., grown by the same amount.
       const local = simplifyRing(ring.map((p) => ({ x: p.x - box.x, y: p.y - box.y })), 0.02);
-      mask = shapeMask(local, FILL_CELL_IN, 0.02);
+      mask = shapeMask(local, FILL_CELL_IN, 0, false);
       if (maskCache.size >= MASK_CACHE_SIZE) maskCache.delete(maskCache.keys().next().value!);
       maskCache.set(key, mask);
     }
-    entry = { mask, frame, width: box.width, height: box.height, turnDeg: (360 * k) / turns };
+    entry = { mask, frame, width: box.width, height: box.height, turnDeg, rings: withBoxes([outlineOf(prepared.template.id, frame)]) };
     shapes.set(`${k}/${turns}|${id}`, entry);
     return entry;
   };
-  return (frame, placed, left) => {
-    const grid = occupancyGrid(frame.content, FILL_CELL_IN);
-    // Obstacles were simplified within 0.02 in.: widen the gap to match.
-    const gap = ITEM_GAP_IN + 0.02;
-    for (const p of placed) for (const ring of outlines(p)) blockRing(grid, ring, gap);
-    blockRing(grid, rectRing(frame.testBlock), gap);
+  /** A tile (never turned) or a nested pair (unturned or turned a quarter), its outlines with its box at the origin. */
+  const boxShape = (item: PackItem<Piece>, turned: boolean): FillShape => {
+    const { prepared, tile } = item.data;
+    const key = tile ? `tile|${prepared.template.id}|${tile.row},${tile.column}` : `pair|${prepared.template.id}|${turned}`;
+    let entry = shapes.get(key);
+    if (entry) return entry;
+    const [w, h] = turned ? [item.height, item.width] : [item.width, item.height];
+    const rings = outlines({ item, x: 0, y: 0, turned, width: w, height: h });
+    entry = { mask: ringsMask(rings, w, h, FILL_CELL_IN, 0, false), frame: IDENTITY, width: w, height: h, turnDeg: turned ? 90 : 0, rings: withBoxes(rings) };
+    shapes.set(key, entry);
+    return entry;
+  };
+  const turnsOf = (item: PackItem<Piece>) => (item.data.tile ? 1 : item.data.pair ? 2 : item.data.prepared.template.freeRotation ? 16 : 4);
+  const shapeOf = (item: PackItem<Piece>, k: number) => (item.data.tile || item.data.pair ? boxShape(item, k === 1) : shapeAt(item.data.prepared, k, turnsOf(item)));
+  const emptySheets = new Map<string, Array<{ group: number; k: number; x: number; y: number }>>();
+  return (frame, placed, left, lead = 0) => {
+    const c = frame.content;
+    // A hopeful raster proposes spots (a cell is blocked only where its centre lies within the gap of
+    // something placed; a piece claims only the cells whose centres it covers); each spot is then
+    // checked against the outlines themselves, and the piece slid up and left as far as they allow.
+    const grid = occupancyGrid(c, FILL_CELL_IN);
+    const halfDiagonal = (FILL_CELL_IN * Math.SQRT2) / 2;
+    // Outlines are simplified within 0.02 in. (both sides of a gap): the gap checked is wider by that twice.
+    const gap = ITEM_GAP_IN + 0.04;
+    const blockGap = TEST_BLOCK_GAP_IN + TEMPLATE_CLEARANCE_IN + 0.02;
+    const obstacles: Array<{ ring: Point[]; box: RectIn; gap: number }> = [];
+    const addObstacle = (ring: Point[], g: number) => {
+      obstacles.push({ ring, box: boundingRect(ring), gap: g });
+      blockRing(grid, ring, Math.max(0, g - halfDiagonal));
+    };
+    for (const p of placed) for (const ring of outlines(p)) addObstacle(ring, gap);
+    addObstacle(rectRing(frame.testBlock), blockGap);
+    /** Whether a shape with its box's corner at (x, y) lies in the content area and keeps the gaps. */
+    const clear = (shape: FillShape, x: number, y: number): boolean => {
+      if (x < c.x - 1e-9 || y < c.y - 1e-9 || x + shape.width > c.x + c.width + 1e-9 || y + shape.height > c.y + c.height + 1e-9) return false;
+      for (const { ring, box } of shape.rings) {
+        let moved: Point[] | null = null;
+        for (const o of obstacles) {
+          const b = o.box;
+          if (box.x + x > b.x + b.width + o.gap || b.x > box.x + x + box.width + o.gap || box.y + y > b.y + b.height + o.gap || b.y > box.y + y + box.height + o.gap) continue;
+          moved ??= ring.map((q) => ({ x: q.x + x, y: q.y + y }));
+          if (!separated(moved, o.ring, o.gap)) return false;
+        }
+      }
+      return true;
+    };
+    // A first tile carries the tile map in the header, which raised test squares leave no room for.
+    const raised = frame.testBlock.y < frame.printable.y - 1e-9;
+    // Nested pairs are offered whole (their outlines interlock) and as their two copies: whichever is
+    // placed first uses the copies up.
     const byShape = new Map<string, PackItem<Piece>[]>();
+    const parentOf = new Map<PackItem<Piece>, PackItem<Piece>>();
+    const offer = (key: string, item: PackItem<Piece>) => {
+      const list = byShape.get(key) ?? [];
+      list.push(item);
+      byShape.set(key, list);
+    };
     for (const item of left) {
+      if (item.data.pair) offer(`pair|${item.data.prepared.template.id}`, item);
       for (const part of item.parts ?? [item]) {
-        // Tiles are rectangles: the box packing already places them as well as a raster would.
-        if (part.data.pair || part.data.tile) continue;
-        const key = part.data.prepared.template.id;
-        const list = byShape.get(key) ?? [];
-        list.push(part);
-        byShape.set(key, list);
+        if (part.data.pair || (raised && part.keepsHeader)) continue;
+        if (part !== item) parentOf.set(part, item);
+        const tile = part.data.tile;
+        offer(tile ? `${part.data.prepared.template.id}#${tile.row},${tile.column}` : part.data.prepared.template.id, part);
       }
     }
+    const used = new Set<PackItem<Piece>>();
+    const free = (i: PackItem<Piece>) => !used.has(i) && !(parentOf.has(i) && used.has(parentOf.get(i)!)) && !(i.parts?.some((p) => used.has(p)) ?? false);
     const areaOf = (i: PackItem<Piece>) => i.areaSqIn ?? i.width * i.height;
-    const order = [...byShape.values()].sort((a, b) => areaOf(b[0]) - areaOf(a[0])).slice(0, FILL_TEMPLATES_PER_SHEET);
+    const order = [...byShape.entries()].sort((x, y) => areaOf(y[1][0]) - areaOf(x[1][0])).slice(0, FILL_TEMPLATES_PER_SHEET);
+    if (lead > 0) {
+      if (lead >= order.length) return [];
+      order.unshift(...order.splice(lead, 1));
+    }
     const out: Array<{ taken: PackItem<Piece>; packed: PackedItem<Piece> }> = [];
-    for (const available of order) {
-      const prepared = available[0].data.prepared;
-      const turns = prepared.template.freeRotation ? 16 : 4;
+    const put = (item: PackItem<Piece>, shape: FillShape, k: number, x: number, y: number) => {
+      used.add(item);
+      out.push({ taken: item, packed: at(item, shape, k, x, y) });
+      for (const { ring } of shape.rings) addObstacle(ring.map((q) => ({ x: q.x + x, y: q.y + y })), gap);
+    };
+    // A sheet laid out from empty depends only on the kinds of piece left and how many of each: sheets
+    // alike (the same pieces, other copies) reuse the first one's moves.
+    const memoKey = placed.length === 0 ? [frame.orientation, frame.testBlock.x, frame.testBlock.y, lead, ...order.map(([key, g]) => `${key}:${g.filter(free).length}`)].join('|') : null;
+    const known = memoKey === null ? undefined : emptySheets.get(memoKey);
+    if (known) {
+      for (const move of known) {
+        const item = order[move.group][1].find(free)!;
+        put(item, shapeOf(item, move.k), move.k, move.x, move.y);
+      }
+      return out;
+    }
+    const moves: Array<{ group: number; k: number; x: number; y: number }> = [];
+    for (const [groupIndex, [, group]] of order.entries()) {
+      const available = group.filter(free);
+      if (available.length === 0) continue;
+      const turns = turnsOf(available[0]);
       while (available.length > 0) {
-        let best: { row: number; col: number; k: number } | null = null;
+        if (!free(available[0])) {
+          available.shift();
+          continue;
+        }
+        const item = available[0];
+        let best: { row: number; col: number; bottom: number; shape: FillShape; k: number } | null = null;
         for (let k = 0; k < turns; k++) {
-          const spot = findSpot(grid, shapeAt(prepared, k, turns).mask);
-          if (spot && (!best || spot.row < best.row || (spot.row === best.row && spot.col < best.col))) best = { ...spot, k };
+          const shape = shapeOf(item, k);
+          let from = { row: 0, col: 0 };
+          for (let tries = 0; tries < FILL_CHECKS_PER_TURN; tries++) {
+            const spot = findSpot(grid, shape.mask, from.row, from.col);
+            // The spot whose bottom edge is highest wins, then the leftmost. Spots come row by row: once
+            // past the best so far, this turn cannot beat it.
+            if (!spot) break;
+            const bottom = spot.row + shape.mask.rows;
+            if (best && (bottom > best.bottom || (bottom === best.bottom && spot.col >= best.col))) break;
+            if (clear(shape, grid.x0 + spot.col * FILL_CELL_IN, grid.y0 + spot.row * FILL_CELL_IN)) {
+              best = { ...spot, bottom, shape, k };
+              break;
+            }
+            from = { row: spot.row, col: spot.col + 1 };
+          }
         }
         if (!best) break;
-        const taken = available.shift()!;
-        const shape = shapeAt(prepared, best.k, turns);
-        const x = grid.x0 + best.col * FILL_CELL_IN;
-        const y = grid.y0 + best.row * FILL_CELL_IN;
-        const piece: Piece = { prepared, copy: taken.data.copy, free: { frame: shape.frame, width: shape.width, height: shape.height, turnDeg: shape.turnDeg } };
-        const packedItem: PackedItem<Piece> = {
-          item: { width: shape.width, height: shape.height, quarterTurns: false, data: piece, areaSqIn: prepared.template.areaSqIn },
-          x,
-          y,
-          turned: false,
-          width: shape.width,
-          height: shape.height,
-        };
-        out.push({ taken, packed: packedItem });
-        for (const ring of outlines(packedItem)) blockRing(grid, ring, gap);
+        const { shape, k } = best;
+        // Slide up, then left, as far as the outlines allow (the raster's rows and columns are 0.1 in. apart).
+        let x = grid.x0 + best.col * FILL_CELL_IN;
+        let y = grid.y0 + best.row * FILL_CELL_IN;
+        y = slide(y, Math.max(c.y, y - FILL_CELL_IN), (v) => clear(shape, x, v));
+        x = slide(x, Math.max(c.x, x - FILL_CELL_IN), (v) => clear(shape, v, y));
+        available.shift();
+        put(item, shape, k, x, y);
+        moves.push({ group: groupIndex, k, x, y });
       }
     }
+    if (memoKey !== null) emptySheets.set(memoKey, moves);
     return out;
   };
 }

@@ -17,6 +17,9 @@ export interface OccupancyGrid {
   cols: number;
   rows: number;
   blocked: Uint8Array;
+  /** Free cells from each cell rightwards along its row (0 where blocked); rebuilt when `stale`. */
+  runs: Int32Array;
+  stale: boolean;
 }
 
 /** Cells claimed by a shape, relative to its box's top-left cell. */
@@ -25,12 +28,14 @@ export interface ShapeMask {
   rows: number;
   /** Row-major offsets (r, c) of claimed cells, boundary cells first (they meet obstacles first). */
   cells: Int32Array;
+  /** The same cells as runs along rows: (row, first column, length) triples, built on first use. */
+  spans?: Int32Array;
 }
 
 export function occupancyGrid(area: RectIn, cellIn: number): OccupancyGrid {
   const cols = Math.floor(area.width / cellIn + 1e-9);
   const rows = Math.floor(area.height / cellIn + 1e-9);
-  return { x0: area.x, y0: area.y, cellIn, cols, rows, blocked: new Uint8Array(cols * rows) };
+  return { x0: area.x, y0: area.y, cellIn, cols, rows, blocked: new Uint8Array(cols * rows), runs: new Int32Array(cols * rows), stale: true };
 }
 
 /** Blocks every cell whose centre is inside the ring or within `gapIn` + half a diagonal of it. */
@@ -41,6 +46,7 @@ export function blockRing(grid: OccupancyGrid, ring: readonly Point[], gapIn: nu
     blocked[r * cols + c] = 1;
   };
   coverRing(ring, grid.x0, grid.y0, grid.cellIn, cols, rows, reach, mark, mark);
+  grid.stale = true;
 }
 
 /**
@@ -59,8 +65,15 @@ function coverRing(
   reach: number,
   near: (r: number, c: number) => void,
   inside: (r: number, c: number) => void,
-): Uint8Array {
-  const seen = new Uint8Array(cols * rows);
+): void {
+  // Cells visited this call carry this call's stamp (one buffer for every call: no clearing, no garbage).
+  if (stamps.length < cols * rows) stamps = new Uint32Array(cols * rows);
+  if (stamp >= 0xfffffffe) {
+    stamps.fill(0);
+    stamp = 0;
+  }
+  const seen = stamps;
+  const now = ++stamp;
   const reach2 = reach * reach;
   const n = ring.length;
   for (let i = 0; i < n; i++) {
@@ -73,15 +86,15 @@ function coverRing(
     for (let r = r0; r <= r1; r++) {
       for (let c = c0; c <= c1; c++) {
         const k = r * cols + c;
-        if (seen[k]) continue;
+        if (seen[k] === now) continue;
         if (pointSegmentDistanceSq({ x: x0 + (c + 0.5) * cell, y: y0 + (r + 0.5) * cell }, a, b) < reach2) {
-          seen[k] = 1;
+          seen[k] = now;
           near(r, c);
         }
       }
     }
   }
-  if (n < 3) return seen;
+  if (n < 3) return;
   // Inside: crossings of each row's centre line (even–odd rule, as insideRing).
   const xs: number[] = [];
   for (let r = 0; r < rows; r++) {
@@ -100,46 +113,107 @@ function coverRing(
       const cTo = Math.min(cols - 1, Math.floor((xs[k + 1] - x0) / cell - 0.5 - 1e-12));
       for (let c = cFrom; c <= cTo; c++) {
         const idx = r * cols + c;
-        if (seen[idx]) continue;
-        seen[idx] = 1;
+        if (seen[idx] === now) continue;
+        seen[idx] = now;
         inside(r, c);
       }
     }
   }
-  return seen;
 }
+
+let stamps = new Uint32Array(0);
+let stamp = 0;
 
 /**
  * The mask of a ring whose box starts at (0, 0); `growIn` widens the claim (when the ring is a
- * simplified stand-in for the real outline, by how far the real one may stray).
+ * simplified stand-in for the real outline, by how far the real one may stray). Without `near`, only
+ * the cells whose centres lie inside the ring: a hopeful mask, for finding spots that are then checked
+ * against the real outlines.
  */
-export function shapeMask(ring: readonly Point[], cellIn: number, growIn = 0): ShapeMask {
+export function shapeMask(ring: readonly Point[], cellIn: number, growIn = 0, near = true): ShapeMask {
   const box = boundingRect(ring);
   const cols = Math.ceil((box.width + growIn) / cellIn - 1e-9);
   const rows = Math.ceil((box.height + growIn) / cellIn - 1e-9);
-  const half = (cellIn * Math.SQRT2) / 2 + growIn;
+  const half = near ? (cellIn * Math.SQRT2) / 2 + growIn : 0;
   const edge: number[] = [];
   const inner: number[] = [];
   coverRing(ring, box.x, box.y, cellIn, cols, rows, half, (r, c) => edge.push(r, c), (r, c) => inner.push(r, c));
   return { cols, rows, cells: Int32Array.from([...edge, ...inner]) };
 }
 
-/** The first free spot for a mask, row by row from the top-left, as a grid (row, column), or null. */
-export function findSpot(grid: OccupancyGrid, mask: ShapeMask): { row: number; col: number } | null {
-  const { cols, rows, blocked } = grid;
-  const cells = mask.cells;
-  for (let r0 = 0; r0 + mask.rows <= rows; r0++) {
-    for (let c0 = 0; c0 + mask.cols <= cols; c0++) {
-      let free = true;
-      for (let k = 0; k < cells.length; k += 2) {
-        if (blocked[(r0 + cells[k]) * cols + c0 + cells[k + 1]]) {
-          free = false;
-          break;
+/**
+ * The mask of several rings drawn in one piece's own frame, the piece's box being [0, width] × [0, height]
+ * (a tile: its clipped outline, caption, marks and join lines); `growIn` as for {@link shapeMask}.
+ */
+export function ringsMask(rings: readonly (readonly Point[])[], width: number, height: number, cellIn: number, growIn = 0, near = true): ShapeMask {
+  const cols = Math.ceil((width + growIn) / cellIn - 1e-9);
+  const rows = Math.ceil((height + growIn) / cellIn - 1e-9);
+  const half = near ? (cellIn * Math.SQRT2) / 2 + growIn : 0;
+  const claimed = new Uint8Array(cols * rows);
+  const claim = (r: number, c: number) => {
+    claimed[r * cols + c] = 1;
+  };
+  for (const ring of rings) coverRing(ring, 0, 0, cellIn, cols, rows, half, claim, claim);
+  const cells: number[] = [];
+  for (let r = 0; r < rows; r++) for (let c = 0; c < cols; c++) if (claimed[r * cols + c]) cells.push(r, c);
+  return { cols, rows, cells: Int32Array.from(cells) };
+}
+
+/** A mask's cells as runs along rows, (row, first column, length) triples. */
+function spansOf(mask: ShapeMask): Int32Array {
+  if (mask.spans) return mask.spans;
+  const byRow: number[][] = Array.from({ length: mask.rows }, () => []);
+  for (let k = 0; k < mask.cells.length; k += 2) byRow[mask.cells[k]].push(mask.cells[k + 1]);
+  const out: number[] = [];
+  byRow.forEach((cols, r) => {
+    cols.sort((a, b) => a - b);
+    for (let i = 0; i < cols.length; ) {
+      let j = i;
+      while (j + 1 < cols.length && cols[j + 1] <= cols[j] + 1) j++;
+      out.push(r, cols[i], cols[j] - cols[i] + 1);
+      i = j + 1;
+    }
+  });
+  mask.spans = Int32Array.from(out);
+  return mask.spans;
+}
+
+function refreshRuns(grid: OccupancyGrid): void {
+  if (!grid.stale) return;
+  const { cols, rows, blocked, runs } = grid;
+  for (let r = 0; r < rows; r++) {
+    let run = 0;
+    for (let c = cols - 1; c >= 0; c--) {
+      const k = r * cols + c;
+      run = blocked[k] ? 0 : run + 1;
+      runs[k] = run;
+    }
+  }
+  grid.stale = false;
+}
+
+/**
+ * The first free spot for a mask, row by row from the top-left (from a given row and column on), as a
+ * grid (row, column), or null.
+ * Each row of the mask is checked as runs of cells against the grid's free runs; where one fails at a
+ * blocked cell, every column up to that cell fails too and the scan skips past it.
+ */
+export function findSpot(grid: OccupancyGrid, mask: ShapeMask, fromRow = 0, fromCol = 0): { row: number; col: number } | null {
+  refreshRuns(grid);
+  const { cols, rows, runs } = grid;
+  const spans = spansOf(mask);
+  for (let r0 = fromRow; r0 + mask.rows <= rows; r0++) {
+    let c0 = r0 === fromRow ? fromCol : 0;
+    scan: while (c0 + mask.cols <= cols) {
+      for (let k = 0; k < spans.length; k += 3) {
+        const free = runs[(r0 + spans[k]) * cols + c0 + spans[k + 1]];
+        if (free < spans[k + 2]) {
+          c0 += free + 1;
+          continue scan;
         }
       }
-      if (free) return { row: r0, col: c0 };
+      return { row: r0, col: c0 };
     }
   }
   return null;
 }
-
