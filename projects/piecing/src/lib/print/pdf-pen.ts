@@ -3,6 +3,7 @@ import type { Point } from '../document/index';
 import { POINTS_PER_INCH, type RectIn } from './paper';
 import type { PrintFonts } from './print-options';
 import { FALLBACK_FAMILY_PREFIX, FontFallback } from './font-fallback';
+import { ColourOps, GlyphEncoder, pdfNumber } from './pdf-ops';
 
 /** Family name the shipped TrueType fonts are registered under in the PDF. */
 export const PDF_FONT_FAMILY = 'Roboto';
@@ -48,6 +49,16 @@ export class PdfPen {
   private readonly widthCache = new Map<string, Map<number, number>>();
   /** The main family's maps of {@link widthCache} (normal, bold), looked up on every measure. */
   private readonly mainWidths: readonly [Map<number, number>, Map<number, number>];
+  /** Whether the pen writes operators itself (a document in points with three decimals, as the print set makes). */
+  private readonly direct: boolean;
+  private readonly internal: JsPdfInternals;
+  private readonly pageStates = new WeakMap<object, PageState>();
+  private readonly colours: ColourOps;
+  /** Glyph ids of the main font (normal, bold), when it is an embedded TrueType font. */
+  private readonly mainGlyphs: readonly [GlyphEncoder | null, GlyphEncoder | null];
+  /** Fonts jsPDF has written text in (and so marked to embed): the pen writes text itself only in those. */
+  private readonly fontsUsed = new Set<string>();
+  private readonly lineHeightFactor: number;
 
   /**
    * `measuringOnly`: a pen that measures and wraps text like any other but puts nothing on the page (to
@@ -59,6 +70,19 @@ export class PdfPen {
   ) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
     this.mainWidths = [this.glyphWidths(PDF_FONT_FAMILY, false), this.glyphWidths(PDF_FONT_FAMILY, true)];
+    this.internal = doc.internal as unknown as JsPdfInternals;
+    // Written directly only where jsPDF would write the same: points (no scaling), three decimals (floatPrecision: 3).
+    const hpf = (doc as unknown as { hpf?: (n: number) => string }).hpf;
+    this.direct = this.internal.scaleFactor === 1 && typeof this.internal.write === 'function' && typeof hpf === 'function' && hpf(0.12345) === '0.123';
+    this.colours = new ColourOps(doc);
+    this.lineHeightFactor = doc.getLineHeightFactor();
+    const encoder = (style: 'normal' | 'bold'): GlyphEncoder | null => {
+      const fonts = doc.getFontList()[PDF_FONT_FAMILY];
+      if (!fonts?.includes(style)) return null;
+      const font = (doc as unknown as { getFont(family: string, style: string): ConstructorParameters<typeof GlyphEncoder>[0] }).getFont(PDF_FONT_FAMILY, style);
+      return GlyphEncoder.usable(font) ? encoderFor(doc, font) : null;
+    };
+    this.mainGlyphs = [encoder('normal'), encoder('bold')];
     if (!measuringOnly) penHooks.created?.(this);
   }
 
@@ -66,52 +90,83 @@ export class PdfPen {
   polyline(points: readonly Point[], closed: boolean, style: StrokeStyle): void {
     if (this.measuringOnly) return;
     if (points.length < 2) return;
-    this.setStroke(style);
-    const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
-    for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
-    if (closed) ops.push({ op: 'h', c: [] });
-    this.doc.path(ops);
-    this.doc.stroke();
+    const page = this.page();
+    if (!page) {
+      this.setStroke(style);
+      const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
+      for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
+      if (closed) ops.push({ op: 'h', c: [] });
+      this.doc.path(ops);
+      this.doc.stroke();
+      return;
+    }
+    this.write(this.strokeOps(page, style) + this.pathOps(page, points) + (closed ? 'h\nS' : 'S'));
   }
 
   /** Several separate straight lines as one path and one stroke. */
   segments(lines: ReadonlyArray<{ a: Point; b: Point }>, style: StrokeStyle): void {
     if (this.measuringOnly) return;
     if (lines.length === 0) return;
-    this.setStroke(style);
-    const ops: Array<{ op: string; c: number[] }> = [];
-    for (const { a, b } of lines) {
-      ops.push({ op: 'm', c: [pt(a.x), pt(a.y)] }, { op: 'l', c: [pt(b.x), pt(b.y)] });
+    const page = this.page();
+    if (!page) {
+      this.setStroke(style);
+      const ops: Array<{ op: string; c: number[] }> = [];
+      for (const { a, b } of lines) {
+        ops.push({ op: 'm', c: [pt(a.x), pt(a.y)] }, { op: 'l', c: [pt(b.x), pt(b.y)] });
+      }
+      this.doc.path(ops);
+      this.doc.stroke();
+      return;
     }
-    this.doc.path(ops);
-    this.doc.stroke();
+    const h = page.heightPt;
+    let ops = this.strokeOps(page, style);
+    for (const { a, b } of lines) {
+      ops += `${pdfNumber(pt(a.x))} ${pdfNumber(h - pt(a.y))} m\n${pdfNumber(pt(b.x))} ${pdfNumber(h - pt(b.y))} l\n`;
+    }
+    this.write(ops + 'S');
   }
 
   /** A rectangle (the PDF `re` operator): stroked, filled or both. */
   rect(r: RectIn, style: StrokeStyle | null, fill?: string): void {
     if (this.measuringOnly) return;
-    if (style) this.setStroke(style);
-    if (fill) this.doc.setFillColor(fill);
     const mode = style && fill ? 'FD' : fill ? 'F' : 'S';
-    this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), mode);
+    const page = this.page();
+    if (!page) {
+      if (style) this.setStroke(style);
+      if (fill) this.doc.setFillColor(fill);
+      this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), mode);
+      return;
+    }
+    const ops = (style ? this.strokeOps(page, style) : '') + (fill ? this.fillOps(page, fill) : '');
+    const re = `${pdfNumber(pt(r.x))} ${pdfNumber(page.heightPt - pt(r.y))} ${pdfNumber(pt(r.width))} ${pdfNumber(-pt(r.height))} re`;
+    this.write(`${ops}${re}\n${mode === 'FD' ? 'B' : mode === 'F' ? 'f' : 'S'}`);
   }
 
   /** A filled polygon without a stroke. */
   fillPolygon(points: readonly Point[], colour: string): void {
     if (this.measuringOnly) return;
     if (points.length < 3) return;
-    this.doc.setFillColor(colour);
-    const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
-    for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
-    ops.push({ op: 'h', c: [] });
-    this.doc.path(ops);
-    this.doc.fill();
+    const page = this.page();
+    if (!page) {
+      this.doc.setFillColor(colour);
+      const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(points[0].x), pt(points[0].y)] }];
+      for (let i = 1; i < points.length; i++) ops.push({ op: 'l', c: [pt(points[i].x), pt(points[i].y)] });
+      ops.push({ op: 'h', c: [] });
+      this.doc.path(ops);
+      this.doc.fill();
+      return;
+    }
+    this.write(this.fillOps(page, colour) + this.pathOps(page, points) + 'h\nf');
   }
 
   /** A circle, stroked. */
   circle(centre: Point, radiusIn: number, style: StrokeStyle): void {
     if (this.measuringOnly) return;
-    this.setStroke(style);
+    const page = this.page();
+    if (page) {
+      const ops = this.strokeOps(page, style);
+      if (ops) this.write(ops.slice(0, -1));
+    } else this.setStroke(style);
     this.doc.circle(pt(centre.x), pt(centre.y), pt(radiusIn), 'S');
   }
 
@@ -131,6 +186,8 @@ export class PdfPen {
       });
       return;
     }
+    if (lines.length === 0 || value === '') return; // jsPDF writes nothing for no text
+    if (this.writeText(lines, at, style, bold)) return;
     this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
     this.doc.setFontSize(style.sizePt);
     this.doc.setTextColor(style.colour ?? '#000000');
@@ -139,6 +196,70 @@ export class PdfPen {
       baseline: style.baseline ?? 'alphabetic',
       ...(style.angleDeg ? { angle: style.angleDeg } : {}),
     });
+    this.textWrittenByJsPdf(PDF_FONT_FAMILY, bold);
+  }
+
+  /**
+   * Writes text in the main font the way jsPDF's text() writes it (BT, font and size, leading, colour,
+   * position, glyph ids, ET), without its per-call processing. False (nothing written) when jsPDF must
+   * write it: turned text, a character outside the plain range, or the font's first text in the document
+   * (jsPDF marks a font used, to embed it, only in its own text()).
+   */
+  private writeText(lines: readonly string[], at: Point, style: TextStyle, bold: boolean): boolean {
+    if (style.angleDeg) return false;
+    const page = this.page();
+    if (!page) return false;
+    const encoder = this.mainGlyphs[bold ? 1 : 0];
+    if (!encoder || !this.fontsUsed.has(encoder.font.id)) return false;
+    if (lines.length === 0 || (lines.length === 1 && lines[0] === '')) return true;
+    const hex: string[] = [];
+    for (const line of lines) {
+      const h = encoder.encode(line);
+      if (h === null) return false;
+      hex.push(h);
+    }
+    const size = style.sizePt;
+    const leading = size * this.lineHeightFactor;
+    let y = pt(at.y);
+    const descent = size * (this.lineHeightFactor - 1);
+    switch (style.baseline) {
+      case 'bottom':
+        y -= descent;
+        break;
+      case 'top':
+        y += size - descent;
+        break;
+      case 'middle':
+        y += size / 2 - descent;
+        break;
+    }
+    let x = pt(at.x);
+    const align = style.align ?? 'left';
+    let body: string;
+    if (align === 'left') {
+      body = `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n<${hex.join('> Tj\nT* <')}> Tj\n`;
+    } else {
+      const widths = lines.map((line) => this.unitWidth(line, PDF_FONT_FAMILY, bold) * size);
+      const half = align === 'center';
+      x -= half ? widths[0] / 2 : widths[0];
+      body = `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n<${hex[0]}> Tj\n`;
+      for (let i = 1; i < lines.length; i++) {
+        const dx = half ? (widths[i - 1] - widths[i]) / 2 : widths[i - 1] - widths[i];
+        body += `${pdfNumber(dx)} ${pdfNumber(-leading)} Td\n<${hex[i]}> Tj\n`;
+      }
+    }
+    const colour = this.colours.op(style.colour ?? '#000000', 'text');
+    this.write(`BT\n/${encoder.font.id} ${size} Tf\n${pdfNumber(leading)} TL\n${colour}\n${body}ET`);
+    // The colour inside BT … ET is the fill colour from here on.
+    page.fill = colour;
+    return true;
+  }
+
+  /** After jsPDF's own text(): the font is marked used, and the fill colour is the text's. */
+  private textWrittenByJsPdf(family: string, bold: boolean): void {
+    if (family === PDF_FONT_FAMILY) this.fontsUsed.add(this.mainGlyphs[bold ? 1 : 0]?.font.id ?? '');
+    const page = this.page();
+    if (page) page.fill = undefined;
   }
 
   /** One line in runs of fonts, placed one after another along the line's direction. */
@@ -157,6 +278,7 @@ export class PdfPen {
         baseline: style.baseline ?? 'alphabetic',
         ...(style.angleDeg ? { angle: style.angleDeg } : {}),
       });
+      if (run.text !== '') this.textWrittenByJsPdf(run.family, bold);
       offset += widths[i];
     });
   }
@@ -258,12 +380,34 @@ export class PdfPen {
   /** Runs `draw` with everything clipped to a rectangle. */
   clipped(r: RectIn, draw: () => void): void {
     if (this.measuringOnly) return draw();
+    this.withClip(() => {
+      this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), null as unknown as string);
+    }, draw);
+  }
+
+  /** Runs `draw` with everything clipped to a polygon (inches, y down). */
+  clippedToRing(ring: readonly Point[], draw: () => void): void {
+    if (this.measuringOnly) return draw();
+    this.withClip(() => {
+      const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(ring[0].x), pt(ring[0].y)] }];
+      for (let i = 1; i < ring.length; i++) ops.push({ op: 'l', c: [pt(ring[i].x), pt(ring[i].y)] });
+      ops.push({ op: 'h', c: [] });
+      this.doc.path(ops);
+    }, draw);
+  }
+
+  /** q, the clipping path, W n, the drawing, Q: what the pen knows of the page's state is restored with it. */
+  private withClip(path: () => void, draw: () => void): void {
+    const before = this.page();
+    const saved = before ? { ...before } : null;
     this.doc.saveGraphicsState();
-    this.doc.rect(pt(r.x), pt(r.y), pt(r.width), pt(r.height), null as unknown as string);
+    path();
     this.doc.clip();
     this.doc.discardPath();
     draw();
     this.doc.restoreGraphicsState();
+    const after = this.page();
+    if (after && saved && after === before) Object.assign(after, saved);
   }
 
   private setStroke(style: StrokeStyle): void {
@@ -271,6 +415,92 @@ export class PdfPen {
     this.doc.setDrawColor(style.colour ?? '#000000');
     this.doc.setLineDashPattern(style.dashPt ?? [], 0);
   }
+
+  /**
+   * What the pen has set on the current page (line width, stroke and fill colour, dash), to write only
+   * what changes; null when the document is not one the pen writes directly (units other than points).
+   * Each page's content stream starts from the PDF defaults, so a new page starts with nothing known.
+   */
+  private page(): PageState | null {
+    if (!this.direct) return null;
+    const info = this.internal.getCurrentPageInfo();
+    const content = this.internal.pages[info.pageNumber];
+    let state = this.pageStates.get(content);
+    if (!state) {
+      const box = info.pageContext.mediaBox;
+      state = { heightPt: box.topRightY - box.bottomLeftY };
+      this.pageStates.set(content, state);
+    }
+    return state;
+  }
+
+  /** Line width, stroke colour and dash operators for a style, only those that differ from the page's state. */
+  private strokeOps(page: PageState, style: StrokeStyle): string {
+    let ops = '';
+    if (page.width !== style.widthPt) {
+      page.width = style.widthPt;
+      ops += `${pdfNumber(style.widthPt)} w\n`;
+    }
+    const draw = this.colours.op(style.colour ?? '#000000', 'draw');
+    if (page.draw !== draw) {
+      page.draw = draw;
+      ops += `${draw}\n`;
+    }
+    const dash = style.dashPt && style.dashPt.length > 0 ? `[${style.dashPt.map(pdfNumber).join(' ')}] 0. d` : '[] 0. d';
+    if (page.dash !== dash) {
+      page.dash = dash;
+      ops += `${dash}\n`;
+    }
+    return ops;
+  }
+
+  private fillOps(page: PageState, colour: string): string {
+    const fill = this.colours.op(colour, 'fill');
+    if (page.fill === fill) return '';
+    page.fill = fill;
+    return `${fill}\n`;
+  }
+
+  /** m and l operators of a path, each on its line (y up from the page's bottom, as jsPDF writes them). */
+  private pathOps(page: PageState, points: readonly Point[]): string {
+    const h = page.heightPt;
+    let ops = `${pdfNumber(pt(points[0].x))} ${pdfNumber(h - pt(points[0].y))} m\n`;
+    for (let i = 1; i < points.length; i++) ops += `${pdfNumber(pt(points[i].x))} ${pdfNumber(h - pt(points[i].y))} l\n`;
+    return ops;
+  }
+
+  /** One piece of the current page's content stream (jsPDF ends each piece with a line break). */
+  private write(ops: string): void {
+    this.internal.write(ops);
+  }
+}
+
+/** What the pen has set on one page's content stream; undefined: not known (the PDF default or jsPDF's). */
+interface PageState {
+  heightPt: number;
+  width?: number;
+  draw?: string;
+  dash?: string;
+  fill?: string;
+}
+
+/** The parts of jsPDF's `internal` the pen writes through (not all in its published types). */
+interface JsPdfInternals {
+  scaleFactor: number;
+  write(ops: string): void;
+  getCurrentPageInfo(): { pageNumber: number; pageContext: { mediaBox: { bottomLeftY: number; topRightY: number } } };
+  /** Each page's content stream (index 1 is the first page). */
+  pages: object[];
+}
+
+/** One glyph encoder per font of a document, shared by every pen on it (each keeps jsPDF's glyph records once). */
+const encoders = new WeakMap<jsPDF, Map<string, GlyphEncoder>>();
+function encoderFor(doc: jsPDF, font: ConstructorParameters<typeof GlyphEncoder>[0]): GlyphEncoder {
+  let byFont = encoders.get(doc);
+  if (!byFont) encoders.set(doc, (byFont = new Map()));
+  let encoder = byFont.get(font.id);
+  if (!encoder) byFont.set(font.id, (encoder = new GlyphEncoder(font)));
+  return encoder;
 }
 
 /**

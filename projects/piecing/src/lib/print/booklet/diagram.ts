@@ -1,7 +1,7 @@
 import type { Point, StripSet } from '../../document/index';
 import { polygonBounds } from '../../geometry/index';
 import { stripSetBands } from '../../fabrication/index';
-import { POINTS_PER_INCH, type RectIn } from '../paper';
+import type { RectIn } from '../paper';
 import type { PdfPen, StrokeStyle } from '../pdf-pen';
 
 /*
@@ -88,19 +88,7 @@ export function fillStripSetPatch(
 
 /** Runs `draw` clipped to a polygon on the sheet. */
 export function clipToRing(pen: PdfPen, ring: readonly Point[], draw: () => void): void {
-  // A measuring pen puts nothing on the page, clipping paths included.
-  if (pen.measuringOnly) return draw();
-  const doc = pen.doc;
-  const pt = (v: number) => v * POINTS_PER_INCH;
-  doc.saveGraphicsState();
-  const ops: Array<{ op: string; c: number[] }> = [{ op: 'm', c: [pt(ring[0].x), pt(ring[0].y)] }];
-  for (let i = 1; i < ring.length; i++) ops.push({ op: 'l', c: [pt(ring[i].x), pt(ring[i].y)] });
-  ops.push({ op: 'h', c: [] });
-  doc.path(ops);
-  doc.clip();
-  doc.discardPath();
-  draw();
-  doc.restoreGraphicsState();
+  pen.clippedToRing(ring, draw);
 }
 
 /** Middle of a segment and the unit normal pointing to the side of `towards`. */
