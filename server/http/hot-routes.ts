@@ -29,7 +29,7 @@ import { readAnswerText, saveAnswerText } from '../services/pattern-answers';
 import { listPatterns } from '../services/pattern-list';
 import { parseJsonBody } from '../validation/document-body';
 import { HttpError, errorAnswer } from './errors';
-import { INLINE_DOCUMENT_BYTES } from './json-bodies';
+import { INLINE_DOCUMENT_BYTES, limitBytes } from './json-bodies';
 import { securityHeaderList } from './security';
 import { parseOr400 } from './validate';
 
@@ -40,12 +40,6 @@ const ID = /^[A-Za-z0-9_-]{1,64}$/;
 /** A JSON body express.json reads as UTF-8 with no conversion. */
 const PLAIN_JSON = /^application\/json\s*(;\s*charset="?utf-8"?\s*)?$/i;
 
-/** Bytes of a `JSON_BODY_LIMIT` setting (`<n>kb` or `<n>mb`, as body-parser's `bytes` reads them: 1 kb = 1024). */
-export function limitBytes(limit: string): number {
-  const m = /^(\d+)(kb|mb)$/i.exec(limit);
-  if (!m) return 0;
-  return Number(m[1]) * (m[2].toLowerCase() === 'kb' ? 1024 : 1024 * 1024);
-}
 
 type Handler = (req: IncomingMessage, res: ServerResponse) => void;
 

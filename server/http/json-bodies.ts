@@ -76,6 +76,87 @@ function checkedOffThread(req: Request): boolean {
 }
 
 /**
+ * A large document body as it arrived: its chunks, not joined. The validation pool joins them (off the
+ * request thread); joining 5 MB here cost the request thread a fresh copy per save
+ * (bench/save-validation.bench.ts).
+ */
+export class DocumentBytes {
+  constructor(
+    readonly chunks: readonly Uint8Array[],
+    readonly length: number,
+  ) {}
+}
+
+/** The bytes of a body the validation pool checks (chunks, or one Buffer from express.raw); undefined for a parsed body. */
+export function largeDocumentBody(body: unknown): readonly Uint8Array[] | undefined {
+  if (body instanceof DocumentBytes) return body.chunks;
+  if (Buffer.isBuffer(body)) return [body];
+  return undefined;
+}
+
+/** Bytes of a body-parser limit (`<n>kb` or `<n>mb`, as body-parser's `bytes` reads them: 1 kb = 1024); 0 when written otherwise. */
+export function limitBytes(limit: string): number {
+  const m = /^(\d+)(kb|mb)$/i.exec(limit);
+  if (!m) return 0;
+  return Number(m[1]) * (m[2].toLowerCase() === 'kb' ? 1024 : 1024 * 1024);
+}
+
+/** A JSON body read as UTF-8 with no conversion. */
+const PLAIN_JSON = /^application\/json\s*(;\s*charset="?utf-8"?\s*)?$/i;
+
+/**
+ * Whether express.raw would take this body as it is: UTF-8 JSON of a stated length within `limit`, not
+ * encoded. Only such a body is read as chunks; anything else keeps express.raw's handling (its limits,
+ * decompression and errors).
+ */
+function plainLargeBody(req: Request, limit: number): boolean {
+  const length = req.headers['content-length'];
+  if (length === undefined || !/^\d+$/.test(length) || Number(length) > limit) return false;
+  const encoding = req.headers['content-encoding'];
+  if (encoding !== undefined && encoding.toLowerCase() !== 'identity') return false;
+  return req.headers['transfer-encoding'] === undefined && PLAIN_JSON.test(req.headers['content-type'] ?? '');
+}
+
+/** A body-parser-like error (the error middleware answers it by its status). */
+function readError(status: number, message: string, type: string): Error {
+  return Object.assign(new Error(message), { status, statusCode: status, expose: true, type });
+}
+
+/** Reads a plain large body (see {@link plainLargeBody}) into `req.body` as {@link DocumentBytes}. */
+function readChunks(req: Request, next: (err?: unknown) => void): void {
+  const expected = Number(req.headers['content-length']);
+  const chunks: Uint8Array[] = [];
+  let received = 0;
+  const onData = (chunk: Buffer) => {
+    chunks.push(chunk);
+    received += chunk.length;
+  };
+  const settle = (err?: unknown) => {
+    req.off('data', onData);
+    req.off('end', onEnd);
+    req.off('error', onError);
+    req.off('aborted', onAborted);
+    req.off('close', onClose);
+    if (err) return next(err);
+    req.body = new DocumentBytes(chunks, received);
+    next();
+  };
+  // The errors raw-body gives (express.raw): 400 with its types.
+  const onEnd = () =>
+    settle(received === expected ? undefined : readError(400, 'request size did not match content length', 'request.size.invalid'));
+  const onError = (err: Error) => settle(Object.assign(err, { status: 400, statusCode: 400 }));
+  const onAborted = () => settle(readError(400, 'request aborted', 'request.aborted'));
+  const onClose = () => {
+    if (!req.complete) onAborted();
+  };
+  req.on('data', onData);
+  req.once('end', onEnd);
+  req.once('error', onError);
+  req.once('aborted', onAborted);
+  req.once('close', onClose);
+}
+
+/**
  * JSON bodies for the API, mounted after the session, CSRF and pattern-access checks so a signed-out
  * or forged request is refused before its body is read. Each route gets its own size limit (a pattern
  * document up to `documentLimit`, everything else {@link SMALL_JSON_LIMIT}); a document body is read
@@ -85,11 +166,13 @@ export function jsonBodies(documentLimit: string): RequestHandler {
   const small = express.json({ limit: SMALL_JSON_LIMIT, strict: true, verify: refuseDeepNesting });
   const large = express.json({ limit: documentLimit, strict: true, verify: refuseDeepNesting });
   const raw = express.raw({ limit: documentLimit, type: 'application/json' });
+  const rawLimit = limitBytes(documentLimit);
   return (req, res, next) => {
     // A GET, HEAD or OPTIONS request has no body the API reads.
     if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
     if (!takesDocument(req)) return small(req, res, next);
     if (!req.user) return next(new HttpError(401, 'Sign in first'));
-    return checkedOffThread(req) ? raw(req, res, next) : large(req, res, next);
+    if (!checkedOffThread(req)) return large(req, res, next);
+    return plainLargeBody(req, rawLimit) ? readChunks(req, next) : raw(req, res, next);
   };
 }

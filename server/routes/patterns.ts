@@ -6,6 +6,7 @@ import { currentUser, requireUser } from '../auth/sessions';
 import { newId } from '../auth/tokens';
 import type { Upload } from '../db/schema';
 import { HttpError } from '../http/errors';
+import { largeDocumentBody } from '../http/json-bodies';
 import { parseOr400 } from '../http/validate';
 import { patternOf, patternReadOf } from '../http/pattern-access';
 import { sendJsonText } from '../http/send-json';
@@ -37,8 +38,9 @@ export function patternsRouter(ctx: AppContext): Router {
     const user = currentUser(req);
     if (!canDesign(user)) throw new HttpError(403, 'Only designers can create patterns');
     // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
-    if (Buffer.isBuffer(req.body)) {
-      await ctx.documentChecks.answer(res, { kind: 'create', userId: user.id, displayName: user.displayName }, req.body);
+    const large = largeDocumentBody(req.body);
+    if (large) {
+      await ctx.documentChecks.answer(res, { kind: 'create', userId: user.id, displayName: user.displayName }, large);
       return;
     }
     const { document } = checkDocumentBody('create', req.body);
@@ -55,8 +57,9 @@ export function patternsRouter(ctx: AppContext): Router {
     const found = patternOf(res, 'edit');
     const user = currentUser(req);
     // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
-    if (Buffer.isBuffer(req.body)) {
-      await ctx.documentChecks.answer(res, { kind: 'save', patternId: found.pattern.id, access: found.access, userId: user.id, displayName: user.displayName }, req.body);
+    const large = largeDocumentBody(req.body);
+    if (large) {
+      await ctx.documentChecks.answer(res, { kind: 'save', patternId: found.pattern.id, access: found.access, userId: user.id, displayName: user.displayName }, large);
       return;
     }
     sendJsonText(res, 200, await saveAnswerText(d, found, user, req.body));

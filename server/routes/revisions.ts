@@ -4,6 +4,7 @@ import { pageQuerySchema, restoreBodySchema, revisionListQuerySchema, revisionNu
 import type { AppContext } from '../app-context';
 import { currentUser } from '../auth/sessions';
 import { HttpError } from '../http/errors';
+import { largeDocumentBody } from '../http/json-bodies';
 import { parseOr400 } from '../http/validate';
 import { patternOf } from '../http/pattern-access';
 import { listRevisionGroups } from '../services/revision-groups';
@@ -57,8 +58,9 @@ export function revisionsRouter(ctx: AppContext): Router {
     const { pattern, access } = patternOf(res, 'edit');
     const user = currentUser(req);
     // A large body (raw bytes) is parsed, checked and stored in the validation pool (server/validation).
-    if (Buffer.isBuffer(req.body)) {
-      await ctx.documentChecks.answer(res, { kind: 'version', patternId: pattern.id, access, userId: user.id, displayName: user.displayName }, req.body);
+    const large = largeDocumentBody(req.body);
+    if (large) {
+      await ctx.documentChecks.answer(res, { kind: 'version', patternId: pattern.id, access, userId: user.id, displayName: user.displayName }, large);
       return;
     }
     const body = checkVersionBody(req.body);

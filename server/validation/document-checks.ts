@@ -44,16 +44,17 @@ export class DocumentChecks {
   }
 
   /**
-   * Checks and stores a large body in the pool and sends its answer (the same status and JSON the
-   * request thread would have sent). The bytes are moved to the worker, not copied, when the buffer
-   * owns its memory.
+   * Checks and stores a large body (its chunks as received, joined by the worker) in the pool and
+   * sends its answer (the same status and JSON the request thread would have sent). Each chunk is
+   * moved to the worker, not copied, when it owns its memory (the HTTP parser's chunks do).
    */
-  async answer(res: Response, task: LargeDocumentTask, body: Buffer): Promise<DocumentTaskResult> {
+  async answer(res: Response, task: LargeDocumentTask, chunks: readonly Uint8Array[]): Promise<DocumentTaskResult> {
     if (this.closed) throw new Error('The validation pool is closed');
-    const owns = body.byteOffset === 0 && body.byteLength === body.buffer.byteLength && body.buffer instanceof ArrayBuffer;
-    const bytes = owns ? new Uint8Array(body.buffer) : new Uint8Array(body);
-    const full: DocumentTask = { ...task, body: bytes, dataDir: this.dataDir, databaseUrl: this.databaseUrl } as DocumentTask;
-    const result = (await this.getPool().run(full, { transferList: [bytes.buffer as ArrayBuffer] })) as DocumentTaskResult;
+    const owned = (c: Uint8Array) => c.byteOffset === 0 && c.byteLength === c.buffer.byteLength && c.buffer instanceof ArrayBuffer;
+    const body = chunks.map((c) => (owned(c) ? new Uint8Array(c.buffer) : new Uint8Array(c)));
+    const transferList = [...new Set(body.map((c) => c.buffer as ArrayBuffer))];
+    const full: DocumentTask = { ...task, body, dataDir: this.dataDir, databaseUrl: this.databaseUrl } as DocumentTask;
+    const result = (await this.getPool().run(full, { transferList })) as DocumentTaskResult;
     this.lastWorkerMs = result.workerMs;
     if ('storageError' in result) {
       // A full or unwritable disk: the error middleware answers 507/503 from the code.

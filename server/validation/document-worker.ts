@@ -18,8 +18,8 @@ import { saveVersion } from './version-save';
 
 /** One large document body to check and store. */
 export type DocumentTask = {
-  /** The body's bytes as received (UTF-8 JSON). */
-  body: Uint8Array;
+  /** The body's bytes as received (UTF-8 JSON), in the chunks they arrived in. */
+  body: Uint8Array[];
   dataDir: string;
   /** The PostgreSQL database the server uses, when it uses one (else SQLite in `dataDir`). */
   databaseUrl?: string;
@@ -69,13 +69,14 @@ export default async function documentTaskMoved(task: DocumentTask): Promise<Doc
 /** One task, from the body's bytes to the answer's bytes. */
 export async function documentTask(task: DocumentTask): Promise<DocumentTaskResult> {
   const t0 = performance.now();
+  const bytes = task.body.length === 1 ? task.body[0] : Buffer.concat(task.body);
   const done = (status: number, text: string) => {
     const answer = Buffer.from(text, 'utf8');
     return { status, answer, etag: weakEtag(answer), workerMs: performance.now() - t0 };
   };
   try {
     if (task.kind === 'save') {
-      const { fields, document } = checkDocumentBody('save', task.body);
+      const { fields, document } = checkDocumentBody('save', bytes);
       const d = await dataOf(task);
       const saved = await d.transaction((tx) =>
         saveRevision(tx, task.patternId, fields.baseRevision, document, task.userId, { editSession: fields.editSession }),
@@ -84,13 +85,13 @@ export async function documentTask(task: DocumentTask): Promise<DocumentTaskResu
       return done(200, patternWithRevisionText(pattern, saved.revision, task.displayName));
     }
     if (task.kind === 'version') {
-      const body = checkVersionBody(task.body);
+      const body = checkVersionBody(bytes);
       const d = await dataOf(task);
       const saved = await d.transaction((tx) => saveVersion(tx, task.patternId, body, task.userId));
       const pattern = patternJson(saved.pattern, await ownerName(d, saved.pattern.ownerId), task.access);
       return done(201, patternWithRevisionText(pattern, saved.revision, task.displayName));
     }
-    const { document } = checkDocumentBody('create', task.body);
+    const { document } = checkDocumentBody('create', bytes);
     const d = await dataOf(task);
     const made = await d.transaction((tx) => createPattern(tx, task.userId, document));
     return done(201, patternWithRevisionText(patternJson(made.pattern, task.displayName, 'owner'), made.revision, task.displayName));
