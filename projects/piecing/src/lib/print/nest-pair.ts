@@ -2,6 +2,7 @@ import type { Point } from '../document/index';
 import { radToDeg } from '../geometry/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
 import { boundingRect, insideRing, pointSegmentDistanceSq } from './layout-geometry';
+import type { RectIn } from './paper';
 
 /** Two copies of a template laid so they interlock: head to tail (the second turned half a turn) or stacked. */
 export interface NestedPair {
@@ -82,13 +83,30 @@ function shift(points: readonly Point[], dx: number, dy: number): Point[] {
 
 /** Whether two closed rings are at least `gap` apart (no crossing, neither inside the other). */
 export function separated(p: readonly Point[], q: readonly Point[], gap: number): boolean {
-  const bp = boundingRect(p);
-  const bq = boundingRect(q);
+  return separatedAt(p, 0, 0, q, gap);
+}
+
+const sa = { x: 0, y: 0 };
+const sb = { x: 0, y: 0 };
+
+/**
+ * {@link separated} for `p` moved by (dx, dy), without copying it; its bounding box (unmoved) and
+ * `q`'s may be passed when known.
+ */
+export function separatedAt(p: readonly Point[], dx: number, dy: number, q: readonly Point[], gap: number, boxP: RectIn = boundingRect(p), boxQ: RectIn = boundingRect(q)): boolean {
+  const bp = { x: boxP.x + dx, y: boxP.y + dy, width: boxP.width, height: boxP.height };
+  const bq = boxQ;
   if (bp.x + bp.width + gap <= bq.x || bq.x + bq.width + gap <= bp.x || bp.y + bp.height + gap <= bq.y || bq.y + bq.height + gap <= bp.y) return true;
   const gap2 = gap * gap;
   for (let i = 0; i < p.length; i++) {
-    const a = p[i];
-    const b = p[(i + 1) % p.length];
+    const pa = p[i];
+    const pb = p[(i + 1) % p.length];
+    sa.x = pa.x + dx;
+    sa.y = pa.y + dy;
+    sb.x = pb.x + dx;
+    sb.y = pb.y + dy;
+    const a = sa;
+    const b = sb;
     const ex0 = Math.min(a.x, b.x) - gap;
     const ex1 = Math.max(a.x, b.x) + gap;
     const ey0 = Math.min(a.y, b.y) - gap;
@@ -100,7 +118,7 @@ export function separated(p: readonly Point[], q: readonly Point[], gap: number)
       if (segmentDistance2(a, b, c, d) < gap2) return false;
     }
   }
-  return !insideRing(p[0], q) && !insideRing(q[0], p);
+  return !insideRing({ x: p[0].x + dx, y: p[0].y + dy }, q) && !insideRing({ x: q[0].x - dx, y: q[0].y - dy }, p);
 }
 
 function segmentDistance2(a: Point, b: Point, c: Point, d: Point): number {

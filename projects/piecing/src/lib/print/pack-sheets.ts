@@ -163,8 +163,9 @@ export function packSheets<T>(
     let taken = [...chosen.tried.placed.map((p) => p.item), ...extra.map((e) => e.taken)];
     // The same sheet laid out by real outlines alone (the test squares in the corner beside the header's
     // text): kept where it covers more template area than the boxes and their gaps did.
-    // Only where some piece leaves room inside its box (arcs, wedges, triangles): boxes pack boxes best.
-    if (fill && left.some(roomInside)) {
+    // Only where something is left over and some piece leaves room inside its box (arcs, wedges,
+    // triangles): boxes pack boxes best.
+    if (fill && remainingAfter(left, taken, parentOf).length > 0 && left.some(roomInside)) {
       let bestArea = coveredArea(taken) + 1e-6;
       for (const orientation of ['portrait', 'landscape'] as const) for (let lead = 0; lead < NEST_LEADS; lead++) {
         const f = { ...frames[orientation], testBlock: cornerBlock(frames[orientation]) };

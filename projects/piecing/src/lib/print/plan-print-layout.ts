@@ -5,7 +5,7 @@ import { packSheets, type PackedItem, type PackItem, type SheetFill } from './pa
 import { blockRing, findSpot, occupancyGrid, ringsMask, shapeMask, type ShapeMask } from './raster-fill';
 import { boundingRect, clipRingToRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
-import { nestPair, separated, simplifyRing, type NestedPair } from './nest-pair';
+import { nestPair, separatedAt, simplifyRing, type NestedPair } from './nest-pair';
 import { IDENTITY, MIRROR_X } from './affine';
 import { equalSpans, intersectRects, prepareTemplate, TEMPLATE_CLEARANCE_IN, tileGridFromSpans, tileTemplate, type PreparedTemplate, type TileCell, type TileGrid } from './prepare-template';
 import type { PrintOptions } from './print-options';
@@ -583,12 +583,10 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
     const clear = (shape: FillShape, x: number, y: number): boolean => {
       if (x < c.x - 1e-9 || y < c.y - 1e-9 || x + shape.width > c.x + c.width + 1e-9 || y + shape.height > c.y + c.height + 1e-9) return false;
       for (const { ring, box } of shape.rings) {
-        let moved: Point[] | null = null;
         for (const o of obstacles) {
           const b = o.box;
           if (box.x + x > b.x + b.width + o.gap || b.x > box.x + x + box.width + o.gap || box.y + y > b.y + b.height + o.gap || b.y > box.y + y + box.height + o.gap) continue;
-          moved ??= ring.map((q) => ({ x: q.x + x, y: q.y + y }));
-          if (!separated(moved, o.ring, o.gap)) return false;
+          if (!separatedAt(ring, x, y, o.ring, o.gap, box, o.box)) return false;
         }
       }
       return true;

@@ -74,6 +74,7 @@ function coverRing(
   }
   const seen = stamps;
   const now = ++stamp;
+  const centre = { x: 0, y: 0 };
   const reach2 = reach * reach;
   const n = ring.length;
   for (let i = 0; i < n; i++) {
@@ -87,7 +88,9 @@ function coverRing(
       for (let c = c0; c <= c1; c++) {
         const k = r * cols + c;
         if (seen[k] === now) continue;
-        if (pointSegmentDistanceSq({ x: x0 + (c + 0.5) * cell, y: y0 + (r + 0.5) * cell }, a, b) < reach2) {
+        centre.x = x0 + (c + 0.5) * cell;
+        centre.y = y0 + (r + 0.5) * cell;
+        if (pointSegmentDistanceSq(centre, a, b) < reach2) {
           seen[k] = now;
           near(r, c);
         }
