@@ -26,6 +26,14 @@ function written(doc: jsPDF, from: number): string[] {
   return pages[doc.getCurrentPageInfo().pageNumber].slice(from);
 }
 const pageLength = (doc: jsPDF) => written(doc, 0).length;
+
+/** Literal strings `(…)` of glyph ids as jsPDF's hex strings `<…>` (escapes per ISO 32000-1:2008 §7.3.4.2). */
+function literalsAsHex(ops: string): string {
+  return ops.replace(/\(((?:[^\\)]|\\.)*)\) Tj/gs, (_, body: string) => {
+    const bytes = body.replace(/\\(.)/gs, (_m, c: string) => (c === 'n' ? '\n' : c === 'r' ? '\r' : c));
+    return `<${[...bytes].map((c) => c.charCodeAt(0).toString(16).padStart(2, '0')).join('')}> Tj`;
+  });
+}
 const fontId = (doc: jsPDF, style: string) => (doc as unknown as { getFont(family: string, style: string): { id: string } }).getFont(PDF_FONT_FAMILY, style).id;
 
 describe('pdfNumber', () => {
@@ -53,14 +61,16 @@ describe('PdfPen writing text itself', () => {
     ['at the bottom', { sizePt: 6, baseline: 'bottom' }],
   ];
 
-  it.each(cases)('writes %j as jsPDF text() writes it', (value, style) => {
+  it.each(cases)('writes %j as jsPDF text() does (glyph ids as a literal string, the leading only where T* uses it)', (value, style) => {
     const doc = newDoc();
     const pen = new PdfPen(doc);
     // The first text in a font goes through jsPDF (which marks the font used); the pen writes the next ones.
     pen.text('first', { x: 1, y: 1 }, { sizePt: 10, bold: style.bold });
-    const from = pageLength(doc);
+    // A new page: nothing set on it yet, so the pen writes font, colour (and leading) as jsPDF does.
+    doc.addPage();
+    const from = pageLength(doc); // after jsPDF's own line width and stroke colour at the page's start
     pen.text(value, { x: 2.5, y: 3.25 }, style);
-    const mine = written(doc, from).join('\n');
+    const mine = literalsAsHex(written(doc, from).join('\n'));
 
     const reference = newDoc();
     reference.setFont(PDF_FONT_FAMILY, style.bold ? 'bold' : 'normal');
@@ -68,9 +78,34 @@ describe('PdfPen writing text itself', () => {
     reference.setTextColor(style.colour ?? '#000000');
     const at = pageLength(reference);
     reference.text(value, 2.5 * 72, 3.25 * 72, { align: style.align ?? 'left', baseline: style.baseline ?? 'alphabetic' });
-    const theirs = written(reference, at).join('\n').replace(/^BT\n\/F\d+/, `BT\n/${fontId(doc, style.bold ? 'bold' : 'normal')}`);
+    let theirs = written(reference, at).join('\n');
+    if (!theirs.includes('T*')) theirs = theirs.replace(/\n[\d.]+ TL\n/, '\n');
     expect(mine).toBe(theirs);
+    expect(fontId(doc, style.bold ? 'bold' : 'normal')).toBe(fontId(reference, style.bold ? 'bold' : 'normal'));
     expect(mine).toMatch(/^BT\n/);
+  });
+
+  it('writes font, leading and colour again only when they change on the page', () => {
+    const doc = newDoc();
+    const pen = new PdfPen(doc);
+    pen.text('first', { x: 1, y: 1 }, { sizePt: 8 }); // through jsPDF (the font's first text)
+    pen.text('second', { x: 1, y: 1.5 }, { sizePt: 8 }); // the pen's own: font and colour set
+    const from = pageLength(doc);
+    pen.text(['two', 'lines'], { x: 1, y: 2 }, { sizePt: 8 });
+    pen.text('same font', { x: 1, y: 3 }, { sizePt: 8 });
+    pen.fillPolygon(
+      [
+        { x: 1, y: 1 },
+        { x: 2, y: 1 },
+        { x: 2, y: 2 },
+      ],
+      '#ff0000',
+    );
+    pen.text('after a red fill', { x: 1, y: 4 }, { sizePt: 9 });
+    const blocks = written(doc, from).filter((w) => w.startsWith('BT'));
+    expect(blocks[0]).toMatch(/^BT\n[\d.]+ TL\n[\d.]+ [\d.]+ Td\n\(/); // leading for T*; font and colour as before
+    expect(blocks[1]).toMatch(/^BT\n[\d.]+ [\d.]+ Td\n\(/);
+    expect(blocks[2]).toMatch(/^BT\n\/F\d+ 9 Tf\n0\. g\n/); // the fill made the colour red in between
   });
 
   it('writes a stroke style once while it stays the same, and again on a new page', () => {

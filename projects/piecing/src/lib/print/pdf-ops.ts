@@ -4,8 +4,9 @@ import type { jsPDF } from 'jspdf';
  * What the pen needs to write PDF operators through jsPDF's own content stream (`doc.internal.write`)
  * in the form jsPDF writes them, without going through jsPDF's per-call drawing API: numbers formatted
  * like jsPDF's (three decimals, trailing zeros dropped: "12.5", "3.", "0."), colours encoded by jsPDF's
- * own encoder (once per colour), text as glyph ids of a TrueType font in Identity-H encoding (what
- * jsPDF's text() writes for such a font, with the same bookkeeping of used glyphs for the subset it embeds).
+ * own encoder (once per colour), text as glyph ids of a TrueType font in Identity-H encoding (the glyphs
+ * jsPDF's text() writes for such a font, as a literal string of two bytes each instead of its hex, with
+ * the same bookkeeping of used glyphs for the subset it embeds).
  */
 
 /** A number as jsPDF writes it with `floatPrecision: 3` (`toFixed(3)` without trailing zeros), without a string per digit. */
@@ -64,6 +65,22 @@ export class ColourOps {
   }
 }
 
+/** One byte inside a PDF literal string: parentheses, backslash and line ends escaped (ISO 32000-1:2008 §7.3.4.2). */
+function literalByte(byte: number): string {
+  switch (byte) {
+    case 0x0a:
+      return '\\n';
+    case 0x0d:
+      return '\\r';
+    case 0x28:
+    case 0x29:
+    case 0x5c:
+      return '\\' + String.fromCharCode(byte);
+    default:
+      return String.fromCharCode(byte);
+  }
+}
+
 /** Code points text() may be written for directly: no bidi reordering, shaping, control or surrogate characters. */
 function plainCode(code: number): boolean {
   if (code < 0x20) return false;
@@ -79,7 +96,7 @@ function plainCode(code: number): boolean {
  */
 export class GlyphEncoder {
   /** Hex glyph id by character code; '' when the text must go through jsPDF's text() (see {@link plainCode}). */
-  private readonly hex: Array<string | undefined> = [];
+  private readonly coded: Array<string | undefined> = [];
   /** Glyph by character code, for glyphs that more than one character maps to (ToUnicode takes the last one drawn). */
   private readonly sharedGlyph = new Map<number, number>();
   private readonly codeOfGlyph = new Map<number, number>();
@@ -91,12 +108,12 @@ export class GlyphEncoder {
     return !!font && font.encoding === 'Identity-H' && !!font.metadata && typeof font.metadata.characterToGlyph === 'function';
   }
 
-  /** The string of glyph ids of a line, or null when it has a character that needs jsPDF's text(). */
+  /** The glyph ids of a line as the inside of a PDF literal string, or null when it has a character that needs jsPDF's text(). */
   encode(line: string): string | null {
     let out = '';
     for (let i = 0; i < line.length; i++) {
       const code = line.charCodeAt(i);
-      let h = this.hex[code];
+      let h = this.coded[code];
       if (h === undefined) h = this.learn(code);
       if (h === '') return null;
       if (this.sharedGlyph.size > 0) {
@@ -111,7 +128,7 @@ export class GlyphEncoder {
   private learn(code: number): string {
     const meta = this.font.metadata!;
     const glyph = plainCode(code) ? meta.characterToGlyph(code) : 0;
-    if (!glyph) return (this.hex[code] = '');
+    if (!glyph) return (this.coded[code] = '');
     // As jsPDF's pdfEscape16: the glyph goes into the subset, the ToUnicode map and the widths array.
     meta.glyIdsUsed.push(glyph);
     meta.toUnicode[glyph] = code;
@@ -122,7 +139,6 @@ export class GlyphEncoder {
       this.sharedGlyph.set(other, glyph);
       this.sharedGlyph.set(code, glyph);
     } else this.codeOfGlyph.set(glyph, code);
-    const h = glyph.toString(16);
-    return (this.hex[code] = '0000'.slice(h.length) + h);
+    return (this.coded[code] = literalByte(glyph >> 8) + literalByte(glyph & 0xff));
   }
 }

@@ -200,8 +200,9 @@ export class PdfPen {
   }
 
   /**
-   * Writes text in the main font the way jsPDF's text() writes it (BT, font and size, leading, colour,
-   * position, glyph ids, ET), without its per-call processing. False (nothing written) when jsPDF must
+   * Writes text in the main font as jsPDF's text() draws it (BT, font and size, leading, colour,
+   * position, glyph ids, ET; font, leading and colour only when they change on the page, the glyph ids
+   * as a literal string of two bytes each), without its per-call processing. False (nothing written) when jsPDF must
    * write it: turned text, a character outside the plain range, or the font's first text in the document
    * (jsPDF marks a font used, to embed it, only in its own text()).
    */
@@ -212,11 +213,11 @@ export class PdfPen {
     const encoder = this.mainGlyphs[bold ? 1 : 0];
     if (!encoder || !this.fontsUsed.has(encoder.font.id)) return false;
     if (lines.length === 0 || (lines.length === 1 && lines[0] === '')) return true;
-    const hex: string[] = [];
+    const glyphs: string[] = [];
     for (const line of lines) {
-      const h = encoder.encode(line);
-      if (h === null) return false;
-      hex.push(h);
+      const g = encoder.encode(line);
+      if (g === null) return false;
+      glyphs.push(g);
     }
     const size = style.sizePt;
     const leading = size * this.lineHeightFactor;
@@ -235,31 +236,44 @@ export class PdfPen {
     }
     let x = pt(at.x);
     const align = style.align ?? 'left';
-    let body: string;
+    let ops = 'BT\n';
+    // Font, leading and colour carry over from one text object to the next on a page: written when they change.
+    const font = `/${encoder.font.id} ${size} Tf`;
+    if (page.font !== font) {
+      page.font = font;
+      ops += `${font}\n`;
+    }
+    // The leading is used by T* only (lines after the first, left-aligned).
+    if (align === 'left' && glyphs.length > 1 && page.leading !== leading) {
+      page.leading = leading;
+      ops += `${pdfNumber(leading)} TL\n`;
+    }
+    const colour = this.colours.op(style.colour ?? '#000000', 'text');
+    if (page.fill !== colour) {
+      page.fill = colour;
+      ops += `${colour}\n`;
+    }
     if (align === 'left') {
-      body = `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n<${hex.join('> Tj\nT* <')}> Tj\n`;
+      ops += `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n(${glyphs.join(') Tj\nT* (')}) Tj\n`;
     } else {
       const widths = lines.map((line) => this.unitWidth(line, PDF_FONT_FAMILY, bold) * size);
       const half = align === 'center';
       x -= half ? widths[0] / 2 : widths[0];
-      body = `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n<${hex[0]}> Tj\n`;
+      ops += `${pdfNumber(x)} ${pdfNumber(page.heightPt - y)} Td\n(${glyphs[0]}) Tj\n`;
       for (let i = 1; i < lines.length; i++) {
         const dx = half ? (widths[i - 1] - widths[i]) / 2 : widths[i - 1] - widths[i];
-        body += `${pdfNumber(dx)} ${pdfNumber(-leading)} Td\n<${hex[i]}> Tj\n`;
+        ops += `${pdfNumber(dx)} ${pdfNumber(-leading)} Td\n(${glyphs[i]}) Tj\n`;
       }
     }
-    const colour = this.colours.op(style.colour ?? '#000000', 'text');
-    this.write(`BT\n/${encoder.font.id} ${size} Tf\n${pdfNumber(leading)} TL\n${colour}\n${body}ET`);
-    // The colour inside BT … ET is the fill colour from here on.
-    page.fill = colour;
+    this.write(ops + 'ET');
     return true;
   }
 
-  /** After jsPDF's own text(): the font is marked used, and the fill colour is the text's. */
+  /** After jsPDF's own text(): the font is marked used; it has set the font, leading and colour its way. */
   private textWrittenByJsPdf(family: string, bold: boolean): void {
     if (family === PDF_FONT_FAMILY) this.fontsUsed.add(this.mainGlyphs[bold ? 1 : 0]?.font.id ?? '');
     const page = this.page();
-    if (page) page.fill = undefined;
+    if (page) page.fill = page.font = page.leading = undefined;
   }
 
   /** One line in runs of fonts, placed one after another along the line's direction. */
@@ -482,6 +496,9 @@ interface PageState {
   draw?: string;
   dash?: string;
   fill?: string;
+  /** Text font and size (`/F1 8 Tf`) and leading (TL). */
+  font?: string;
+  leading?: number;
 }
 
 /** The parts of jsPDF's `internal` the pen writes through (not all in its published types). */
