@@ -11,6 +11,7 @@ import { eq } from 'drizzle-orm';
 import { startPgCluster, type PgCluster } from '../tests/support/pg-cluster';
 import { manySheetsDocument } from '../tests/support/documents';
 import { Client, startTestServer, userClient, type TestServer } from './test/harness';
+import { GIVEN_UP_MESSAGE } from './services/print-sets';
 
 let cluster: PgCluster;
 const servers: TestServer[] = [];
@@ -121,5 +122,40 @@ describe('print jobs on PostgreSQL with two instances', () => {
     expect(survivor.ctx.printSets.renders.stored).toBe(1);
     expect(renderer!.ctx.printSets.renders.stored).toBe(0);
     expect(await storedSha(survivor, `print-sets/${owner.user!.id}/${setId}.pdf`)).toBe(set.sha256);
+  }, 300_000);
+
+  it('a set whose every try is stopped as if killed is marked failed by the other instance, not left rendering', async () => {
+    // No retry: the first expiry uses up the job, and pg-boss moves it to the given-up queue.
+    const [a, b] = await pair('jobs_given_up', {
+      PRINT_JOB_EXPIRE_SECONDS: '4',
+      PRINT_JOB_EXPIRY_CHECK_SECONDS: '1',
+      PRINT_JOB_RETRY_LIMIT: '0',
+      PRINT_JOB_POLL_MS: '200',
+    });
+    const owner = await userClient(a.app, 'owner@given-up.test', 'designer');
+    const id = (await owner.post('/api/patterns', { document: manySheetsDocument(40, 'Given up') }).expect(201)).body.pattern.id as string;
+    const setId = (await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
+    const { printSets } = a.ctx.data.t;
+    const row = async () => (await a.ctx.data.db.select().from(printSets).where(eq(printSets.id, setId)))[0];
+    let renderer: TestServer | undefined;
+    for (let i = 0; i < 1200 && !renderer; i++) {
+      const r = await row();
+      if (r.status === 'rendering' && r.progress > 0) renderer = [a, b].find((s) => s.ctx.printSets.activeCount > 0);
+      if (r.status === 'done' || r.status === 'failed') throw new Error(`the set ended before the test could stop its instance: ${r.status}`);
+      if (!renderer) await new Promise((res) => setTimeout(res, 100));
+    }
+    expect(renderer).toBeDefined();
+    const survivor = renderer === a ? b : a;
+    await renderer!.ctx.printSets.stopAsIfKilled();
+    expect((await row()).status).toBe('rendering');
+
+    const viaSurvivor = await Client.create(survivor.app);
+    await viaSurvivor.signIn('owner@given-up.test');
+    const set = await waitEnded(viaSurvivor, id, setId, 120);
+    expect(set.status).toBe('failed');
+    expect(set.error).toBe(GIVEN_UP_MESSAGE);
+    // Nobody rendered it again, and nothing was stored.
+    expect(survivor.ctx.printSets.renders.started).toBe(0);
+    expect(await a.ctx.files.stat(`print-sets/${owner.user!.id}/${setId}.pdf`)).toBeUndefined();
   }, 300_000);
 });

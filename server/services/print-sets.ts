@@ -28,6 +28,15 @@ const END_RETRY_MAX_MS = 5000;
 
 /** The pg-boss queue of print jobs (PostgreSQL). */
 export const PRINT_QUEUE = 'print-set';
+/**
+ * Where pg-boss moves a print job whose tries are used up (its instances died or stopped more times
+ * than the retry limit): any instance takes it from there and marks the set failed, so no set stays
+ * "rendering" with nobody left to render it.
+ */
+export const PRINT_GIVEN_UP_QUEUE = 'print-set-given-up';
+
+/** A given-up set's error, as its maker reads it. */
+export const GIVEN_UP_MESSAGE = 'Every try at rendering this set was stopped before the end (the server rendering it stopped); ask for the set again';
 
 /** The advisory lock instances take in turn to set up the print queue (ASCII "SeamwQue"). */
 const QUEUE_SETUP_LOCK = 0x5365616d77517565n.toString();
@@ -164,6 +173,8 @@ export class PrintSetService {
   private bossStopped = false;
   private fetching = false;
   private fetchAgain = false;
+  /** Whether a look at the given-up queue is under way (one at a time). */
+  private collectingGivenUp = false;
   private readonly jobs: Required<Omit<PrintJobOptions, 'pgPool'>>;
 
   constructor(
@@ -232,8 +243,10 @@ export class PrintSetService {
       await lock.query('SELECT pg_advisory_lock($1)', [QUEUE_SETUP_LOCK]);
       try {
         await boss.start();
+        await boss.createQueue(PRINT_GIVEN_UP_QUEUE, { name: PRINT_GIVEN_UP_QUEUE });
         await boss.createQueue(PRINT_QUEUE, {
           name: PRINT_QUEUE,
+          deadLetter: PRINT_GIVEN_UP_QUEUE,
           expireInSeconds: this.jobs.expireSeconds,
           retryLimit: this.jobs.retryLimit,
           retryDelay: this.jobs.retryDelaySeconds,
@@ -290,6 +303,8 @@ export class PrintSetService {
         expireInSeconds: this.jobs.expireSeconds,
         retryLimit: this.jobs.retryLimit,
         retryDelay: this.jobs.retryDelaySeconds,
+        // Also on each job: a queue made by an older version has no dead letter of its own.
+        deadLetter: PRINT_GIVEN_UP_QUEUE,
       });
       void this.pumpPg();
       return;
@@ -527,10 +542,11 @@ export class PrintSetService {
     this.start(setId, row.createdBy, job.id);
   }
 
-  /** PostgreSQL, every poll: takes new jobs and stops renders of sets deleted on another instance. */
+  /** PostgreSQL, every poll: takes new jobs, fails sets given up, and stops renders of sets deleted on another instance. */
   private poll(): void {
     if (this.closed) return;
     void this.pumpPg();
+    void this.failGivenUp();
     const ids = [...this.running.entries()].filter(([, r]) => Atomics.load(r.cancel, 0) === 0).map(([id]) => id);
     if (ids.length === 0) return;
     const { printSets } = this.data.t;
@@ -543,6 +559,36 @@ export class PrintSetService {
         for (const id of ids) if (!present.has(id)) this.cancel(id);
       })
       .catch((err: unknown) => this.log('print sets could not be checked', err));
+  }
+
+  /**
+   * PostgreSQL: marks failed the sets whose jobs pg-boss gave up on (every try's instance died or
+   * stopped before the end) and that are still waiting or "rendering". A set rendering here is left
+   * to its render. Each given-up job is taken by one instance only.
+   */
+  private async failGivenUp(): Promise<void> {
+    if (this.collectingGivenUp) return;
+    this.collectingGivenUp = true;
+    try {
+      const boss = await this.boss!;
+      const jobs = await boss.fetch<PrintJob>(PRINT_GIVEN_UP_QUEUE, { batchSize: LAST_THREAD_BATCH });
+      for (const job of jobs) {
+        const setId = job.data.setId;
+        if (!this.running.has(setId)) {
+          const failed = await this.update(
+            setId,
+            { status: 'failed', error: GIVEN_UP_MESSAGE, finishedAt: new Date() },
+            ['queued', 'rendering'],
+          );
+          if (failed) this.log(`print set ${setId} failed: its job was given up after its last try`);
+        }
+        await boss.complete(PRINT_GIVEN_UP_QUEUE, job.id);
+      }
+    } catch (err) {
+      if (!this.closed) this.log('given-up print jobs could not be checked', err);
+    } finally {
+      this.collectingGivenUp = false;
+    }
   }
 
   /**
