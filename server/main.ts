@@ -1,13 +1,10 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
-import type { AppContext } from './app-context';
+import { closeAppContext, createAppContext } from './app-services';
 import { ConfigError, loadConfig } from './config';
 import { openData } from './db/open-data';
 import { DEMO_ACCOUNTS, seedDemoIfEmpty } from './db/seed';
-import { MailOutbox } from './services/mail-outbox';
 import { createSmtpMailer } from './services/mailer';
-import { PrintSetService, printJobOptionsFromEnv } from './services/print-sets';
-import { DocumentChecks } from './validation/document-checks';
 import { startHousekeeping, sweepStoredFilesAtStart } from './services/housekeeping';
 
 function log(message: string, err?: unknown): void {
@@ -33,21 +30,9 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
   }
   const swept = await sweepStoredFilesAtStart(opened.data, opened.files);
   if (swept.length > 0) log(`Removed ${swept.length} temporary or orphaned files: ${swept.slice(0, 10).join(', ')}${swept.length > 10 ? ', …' : ''}`);
-  const printSets = new PrintSetService(opened.data, config, log, opened.files, { ...printJobOptionsFromEnv(env), pgPool: opened.postgres?.pool });
-  const mailOutbox = new MailOutbox(opened.data, mailer, log);
-  const ctx: AppContext = {
-    config,
-    data: opened.data,
-    files: opened.files,
-    rateLimitSql: opened.rateLimitSql,
-    mailer,
-    mailOutbox,
-    log,
-    printSets,
-    documentChecks: new DocumentChecks(config.dataDir, undefined, config.databaseUrl),
-  };
-  await printSets.resumeUnfinished();
-  mailOutbox.start();
+  const ctx = createAppContext(config, opened, { mailer, log, env, databaseUrl: config.databaseUrl });
+  await ctx.printSets.resumeUnfinished();
+  ctx.mailOutbox.start();
   const stopHousekeeping = startHousekeeping(opened.data, log);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
@@ -68,11 +53,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env, argv: st
     await closed;
     clearTimeout(force);
     stopHousekeeping();
-    await printSets.close();
-    await ctx.documentChecks.close();
-    await mailOutbox.close();
-    mailer.close();
-    await opened.close();
+    await closeAppContext(ctx, opened);
   };
   return { server, port, ctx, close };
 }

@@ -10,13 +10,11 @@ import request from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../app';
 import type { AppContext } from '../app-context';
+import { closeAppContext, createAppContext } from '../app-services';
 import { loadConfig } from '../config';
 import { openData } from '../db/open-data';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
-import { MailOutbox } from '../services/mail-outbox';
 import { createSmtpMailer } from '../services/mailer';
-import { PrintSetService, printJobOptionsFromEnv } from '../services/print-sets';
-import { DocumentChecks } from '../validation/document-checks';
 import { sampleBlock } from '../../tests/fixtures/documents';
 import { startFakeMailServer, type FakeMailServer } from '../dev/fake-mail-server';
 
@@ -47,21 +45,9 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
   const mailer = createSmtpMailer(config);
   const errors: unknown[] = [];
   const log = (_m: string, err?: unknown) => errors.push(err);
-  const printSets = new PrintSetService(opened.data, config, log, opened.files, { ...printJobOptionsFromEnv(env), pgPool: opened.postgres?.pool });
   // Retries come quickly in tests; the first attempt always goes at once.
-  const mailOutbox = new MailOutbox(opened.data, mailer, log, { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 });
-  mailOutbox.start();
-  const ctx: AppContext = {
-    config,
-    data: opened.data,
-    files: opened.files,
-    rateLimitSql: opened.rateLimitSql,
-    mailer,
-    mailOutbox,
-    log,
-    printSets,
-    documentChecks: new DocumentChecks(config.dataDir, undefined, databaseUrl),
-  };
+  const ctx = createAppContext(config, opened, { mailer, log, env, databaseUrl, outbox: { pollMs: 200, firstRetryMs: 200, maxRetryMs: 1000 } });
+  ctx.mailOutbox.start();
   const app = createApp(ctx);
   return {
     app,
@@ -69,11 +55,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     mail,
     dataDir,
     async close() {
-      await ctx.printSets.close();
-      await ctx.documentChecks.close();
-      await mailOutbox.close();
-      mailer.close();
-      await opened.close();
+      await closeAppContext(ctx, opened);
       await mail.close();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
