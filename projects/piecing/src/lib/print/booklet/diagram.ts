@@ -32,7 +32,11 @@ export interface DiagramFit {
  * printed side of a foundation is the back of the block).
  */
 export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = false, padIn = 0.06): DiagramFit {
-  const b = polygonBounds(points);
+  return fitBounds(polygonBounds(points), box, mirrored, padIn);
+}
+
+/** {@link fitDiagram} for shapes whose bounds are known (one section's patches in each of its step diagrams). */
+export function fitBounds(b: { minX: number; minY: number; maxX: number; maxY: number }, box: RectIn, mirrored = false, padIn = 0.06): DiagramFit {
   const w = Math.max(1e-6, b.maxX - b.minX);
   const h = Math.max(1e-6, b.maxY - b.minY);
   const scale = Math.min((box.width - 2 * padIn) / w, (box.height - 2 * padIn) / h);
@@ -44,8 +48,22 @@ export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = fal
   };
 }
 
+/** {@link lighten}'s results by amount and colour: a booklet asks for the same few thousands of times. */
+const lightened = new Map<number, Map<string, string>>();
+
 /** A paler version of a colour (`amount` 0 … 1 towards white), so black text stays legible on it. */
 export function lighten(hex: string, amount = 0.55): string {
+  let byColour = lightened.get(amount);
+  if (!byColour) lightened.set(amount, (byColour = new Map()));
+  let paler = byColour.get(hex);
+  if (paler === undefined) {
+    if (byColour.size > 4096) byColour.clear();
+    byColour.set(hex, (paler = mixHex(hex, amount)));
+  }
+  return paler;
+}
+
+function mixHex(hex: string, amount: number): string {
   const v = parseInt(hex.slice(1), 16);
   const r = mixTowardWhite((v >> 16) & 255, amount);
   const g = mixTowardWhite((v >> 8) & 255, amount);

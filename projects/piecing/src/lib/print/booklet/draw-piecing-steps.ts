@@ -1,11 +1,11 @@
 import type { Point, Section } from '../../document/index';
-import type { DerivedPatch } from '../../geometry/index';
+import { polygonBounds, type DerivedPatch } from '../../geometry/index';
 import { checkSewability, type SewingStep } from '../../sewability/index';
 import type { SheetFlow } from '../sheet-flow';
 import { sheetFrame } from '../sheet-frame';
 import { fabricColour, patchMaterial, sectionUses, type BookletContext } from './booklet-context';
 import type { BookletWriter } from './booklet-writer';
-import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitDiagram, lighten, normalTowards, type DiagramFit } from './diagram';
+import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitBounds, lighten, normalTowards, type DiagramFit } from './diagram';
 import { pressOf, pressWords, type SectionPressing } from './section-pressing';
 
 /** The usual reminders of foundation piecing (common practice). */
@@ -100,9 +100,13 @@ function drawSteps(
   layout: StepsLayout,
 ): void {
   const cellW = flow.width / COLUMNS;
-  const all = patches.flatMap((p) => p.polygon);
+  // Every diagram of a section shows all its patches: their bounds once, fitted into each step's box.
+  const bounds = polygonBounds(patches.flatMap((p) => p.polygon));
   const byNumber = new Map(patches.map((p) => [p.number, p]));
   const stepOf = new Map(steps.map((s) => [s.patchNumber, s]));
+  // Diagram i adds the patch of rank i (0: the first patch, then each step's) and shows those of lower rank as sewn.
+  const rank = new Map<number, number>([[patches[0].number, 0]]);
+  steps.forEach((s, k) => rank.set(s.patchNumber, k + 1));
   const { texts } = layout;
   layout.rows.forEach((items, row) => {
     // Steps running on onto the next sheet go under the section's heading again.
@@ -114,21 +118,21 @@ function drawSteps(
     items.forEach((i, c) => {
       // The step number sits above its diagram, so a diagram filling its box never covers it.
       const box = { x: top.x + c * cellW + 0.04, y: top.y + NUMBER_IN, width: cellW - 0.08, height: DIAGRAM_IN - NUMBER_IN };
-      const fit = fitDiagram(all, box, ctx.options.mirrored);
+      const fit = fitBounds(bounds, box, ctx.options.mirrored);
       const addedNumber = i === 0 ? patches[0].number : steps[i - 1].patchNumber;
-      const sewnBefore = new Set(i === 0 ? [] : [patches[0].number, ...steps.slice(0, i - 1).map((s) => s.patchNumber)]);
+      const sewnBefore = (p: DerivedPatch) => (rank.get(p.number) ?? Infinity) < i;
       let addedRing: Point[] = [];
       for (const p of patches) {
         const ring = p.polygon.map(fit.map);
         if (p.number === addedNumber) {
           fillPatch(ctx, fit, p, 0, ring);
           addedRing = ring;
-        } else if (sewnBefore.has(p.number)) fillPatch(ctx, fit, p, 0.6, ring);
+        } else if (sewnBefore(p)) fillPatch(ctx, fit, p, 0.6, ring);
         drawShape(ctx.pen, ring, null, DIAGRAM_STYLES.faint);
       }
       drawShape(ctx.pen, addedRing, null, DIAGRAM_STYLES.highlight);
       const step = stepOf.get(addedNumber);
-      const shown = patches.filter((p) => p.number === addedNumber || sewnBefore.has(p.number));
+      const shown = patches.filter((p) => p.number === addedNumber || sewnBefore(p));
       const labelsAt = shown.map((p) => fit.map(p.labelPoint));
       if (step) drawSewAndPress(ctx, fit, step, byNumber.get(addedNumber)!, pressOf(pressing, step), labelsAt);
       for (const [k, p] of shown.entries()) {
