@@ -7,10 +7,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import Database from 'better-sqlite3';
 import { and, asc, eq, inArray, like, lte, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startPgCluster, type PgCluster } from '../../tests/support/pg-cluster';
-import { TransactionAwaitedOtherWork, type Data } from './data';
+import { sqliteData, TransactionAwaitedOtherWork, type Data } from './data';
 import { openData, type OpenedData } from './open-data';
 
 const DIALECTS = ['sqlite', 'postgres'] as const;
@@ -202,6 +203,49 @@ describe.each(DIALECTS)('Data on %s', (dialect) => {
       expect(failed.status).toBe('rejected');
       expect(ok).toEqual({ status: 'fulfilled', value: 'ok' });
       expect(await names([a.id])).toEqual(['after a throw']);
+    });
+
+    it("waits for another connection's write lock with the event loop turning, then runs", async () => {
+      // The validation pool's worker writes a large save through a connection of its own like this one.
+      const other = new Database(d.sqlite!.name);
+      try {
+        other.exec('BEGIN IMMEDIATE');
+        const a = user('after the other writer');
+        let ran = false;
+        const started = performance.now();
+        const waiting = d.transaction(async (tx) => {
+          await tx.db.insert(tx.t.users).values(a);
+          ran = true;
+        });
+        // A timer on this thread fires while the lock is still held: nothing sleeps in SQLite's busy handler.
+        const timerAfter = await new Promise<number>((resolve) => setTimeout(() => resolve(performance.now() - started), 30));
+        expect(timerAfter).toBeLessThan(1000);
+        expect(ran).toBe(false);
+        other.exec('COMMIT');
+        await waiting;
+        expect(await names([a.id])).toEqual(['after the other writer']);
+      } finally {
+        other.close();
+      }
+    });
+
+    it("gives up with SQLite's SQLITE_BUSY once the connection's busy timeout has passed, and keeps that timeout", async () => {
+      const other = new Database(d.sqlite!.name);
+      const mine = new Database(d.sqlite!.name);
+      try {
+        mine.pragma('busy_timeout = 150');
+        const short = sqliteData({ db: d.db, sqlite: mine });
+        other.exec('BEGIN IMMEDIATE');
+        const started = performance.now();
+        await expect(short.transaction(async () => 'never')).rejects.toMatchObject({ code: 'SQLITE_BUSY' });
+        expect(performance.now() - started).toBeGreaterThanOrEqual(140);
+        expect(mine.pragma('busy_timeout', { simple: true })).toBe(150);
+        other.exec('COMMIT');
+        expect(await short.transaction(async () => 'now')).toBe('now');
+      } finally {
+        other.close();
+        mine.close();
+      }
     });
   }
 

@@ -102,8 +102,36 @@ export function sqliteData(handle: Pick<DatabaseHandle, 'db' | 'sqlite'>): Data 
   });
   const inside = make(true);
 
+  // How long a statement waits for another connection's write lock (set when the database is opened).
+  const busyTimeoutMs = Number(sqlite.pragma('busy_timeout', { simple: true })) || 0;
+
+  /**
+   * BEGIN IMMEDIATE without sleeping on this thread. While another connection holds the write lock
+   * (the validation pool's worker storing a large save: server/validation/document-worker.ts),
+   * SQLite's busy handler would sleep right here, stalling the request thread for the whole of that
+   * write. Instead the lock is tried without waiting and, while busy, tried again after a timer (the
+   * event loop turns meanwhile), until the connection's busy timeout has passed; then SQLite's own
+   * SQLITE_BUSY error, as before.
+   */
+  async function beginImmediate(): Promise<void> {
+    const started = Date.now();
+    for (let waitMs = 1; ; waitMs = Math.min(waitMs * 2, 20)) {
+      sqlite.pragma('busy_timeout = 0');
+      try {
+        sqlite.exec('BEGIN IMMEDIATE');
+        return;
+      } catch (err) {
+        const code = (err as { code?: unknown }).code;
+        if (typeof code !== 'string' || !code.startsWith('SQLITE_BUSY') || Date.now() - started >= busyTimeoutMs) throw err;
+      } finally {
+        sqlite.pragma(`busy_timeout = ${busyTimeoutMs}`);
+      }
+      await new Promise((resolve) => setTimeout(resolve, waitMs));
+    }
+  }
+
   async function outermost<T>(fn: (tx: Data) => Promise<T>): Promise<T> {
-    sqlite.exec('BEGIN IMMEDIATE');
+    await beginImmediate();
     // A macrotask that runs before COMMIT means the body waited on something other than SQLite
     // (whose queries resolve at once): other requests may have run statements inside this transaction.
     let otherWork = false;
