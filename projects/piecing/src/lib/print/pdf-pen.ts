@@ -32,6 +32,32 @@ const pt = (inches: number): number => inches * POINTS_PER_INCH;
 /** Arabic letters and presentation forms: jsPDF joins them before measuring. */
 const ARABIC = /[\u0600-\u06ff\u0750-\u077f\u08a0-\u08ff\ufb50-\ufdff\ufe70-\ufeff]/;
 
+/** {@link ARABIC} for one character code. */
+function isArabic(code: number): boolean {
+  return (
+    (code >= 0x0600 && code <= 0x06ff) ||
+    (code >= 0x0750 && code <= 0x077f) ||
+    (code >= 0x08a0 && code <= 0x08ff) ||
+    (code >= 0xfb50 && code <= 0xfdff) ||
+    (code >= 0xfe70 && code <= 0xfeff)
+  );
+}
+
+/** The main family's width tables of a document, shared by every pen on it (the measuring pens of the covers too). */
+const mainWidthTables = new WeakMap<jsPDF, readonly [Float64Array, Float64Array]>();
+function mainWidthsOf(doc: jsPDF): readonly [Float64Array, Float64Array] {
+  let tables = mainWidthTables.get(doc);
+  if (!tables) mainWidthTables.set(doc, (tables = [mainWidthTable(), mainWidthTable()]));
+  return tables;
+}
+
+/** A width table for the Basic Multilingual Plane: NaN (not measured) everywhere but Arabic (-1: measured with its text). */
+function mainWidthTable(): Float64Array {
+  const table = new Float64Array(0x10000).fill(NaN);
+  for (let code = 0; code < 0x10000; code++) if (isArabic(code)) table[code] = -1;
+  return table;
+}
+
 /**
  * Benchmark and test hook: `created` is called with every pen made, before it draws (the print
  * benchmark records a render's drawing through it, to write the same drawing with the pen alone).
@@ -47,8 +73,11 @@ export class PdfPen {
   private readonly fallback: FontFallback;
   /** Advance widths at 1 pt by font (`family/weight`) and character code, each measured once. */
   private readonly widthCache = new Map<string, Map<number, number>>();
-  /** The main family's maps of {@link widthCache} (normal, bold), looked up on every measure. */
-  private readonly mainWidths: readonly [Map<number, number>, Map<number, number>];
+  /**
+   * The main family's advance widths at 1 pt by character code (normal, bold), looked up on every measure:
+   * NaN not measured yet, -1 for Arabic letters (measured with the whole text).
+   */
+  private readonly mainWidths: readonly [Float64Array, Float64Array];
   /** Whether the pen writes operators itself (a document in points with three decimals, as the print set makes). */
   private readonly direct: boolean;
   private readonly internal: JsPdfInternals;
@@ -69,7 +98,7 @@ export class PdfPen {
     readonly measuringOnly = false,
   ) {
     this.fallback = new FontFallback(doc, PDF_FONT_FAMILY, FontFallback.familiesOf(doc));
-    this.mainWidths = [this.glyphWidths(PDF_FONT_FAMILY, false), this.glyphWidths(PDF_FONT_FAMILY, true)];
+    this.mainWidths = mainWidthsOf(doc);
     this.internal = doc.internal as unknown as JsPdfInternals;
     // Written directly only where jsPDF would write the same: points (no scaling), three decimals (floatPrecision: 3).
     const hpf = (doc as unknown as { hpf?: (n: number) => string }).hpf;
@@ -175,6 +204,9 @@ export class PdfPen {
     if (this.measuringOnly) return;
     const bold = style.bold ?? false;
     const lines = typeof value === 'string' ? [value] : value;
+    if (lines.length === 0 || value === '') return; // jsPDF writes nothing for no text
+    // Written by the pen when the main font has every character (its glyphs are looked up as it writes).
+    if (this.writeText(lines, at, style, bold)) return;
     if (lines.some((line) => !this.fallback.mainCovers(line, bold))) {
       // Line by line, each in runs of the fonts that have its characters (font-fallback.ts).
       const stepIn = (style.sizePt * this.doc.getLineHeightFactor()) / POINTS_PER_INCH;
@@ -186,8 +218,6 @@ export class PdfPen {
       });
       return;
     }
-    if (lines.length === 0 || value === '') return; // jsPDF writes nothing for no text
-    if (this.writeText(lines, at, style, bold)) return;
     this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
     this.doc.setFontSize(style.sizePt);
     this.doc.setTextColor(style.colour ?? '#000000');
@@ -307,11 +337,9 @@ export class PdfPen {
    * width it would measure for the whole string. Arabic is shaped first (joined forms), so it is measured whole.
    */
   private unitWidth(text: string, family: string, bold: boolean): number {
-    if (ARABIC.test(text)) {
-      this.doc.setFont(family, bold ? 'bold' : 'normal');
-      return this.doc.getStringUnitWidth(text);
-    }
-    const widths = family === PDF_FONT_FAMILY ? this.mainWidths[bold ? 1 : 0] : this.glyphWidths(family, bold);
+    if (family === PDF_FONT_FAMILY) return this.mainUnitWidth(text, bold);
+    if (ARABIC.test(text)) return this.shapedUnitWidth(text, family, bold);
+    const widths = this.glyphWidths(family, bold);
     let sum = 0;
     for (let i = 0; i < text.length; i++) {
       const code = text.charCodeAt(i);
@@ -324,6 +352,29 @@ export class PdfPen {
       sum += w;
     }
     return sum;
+  }
+
+  /** {@link unitWidth} in the main family, from a table by character code (the booklet measures every word it wraps). */
+  private mainUnitWidth(text: string, bold: boolean): number {
+    const widths = this.mainWidths[bold ? 1 : 0];
+    let sum = 0;
+    for (let i = 0; i < text.length; i++) {
+      const code = text.charCodeAt(i);
+      let w = widths[code];
+      if (w !== w) {
+        // Not measured yet (NaN).
+        this.doc.setFont(PDF_FONT_FAMILY, bold ? 'bold' : 'normal');
+        w = widths[code] = this.doc.getStringUnitWidth(text[i]);
+      } else if (w < 0) return this.shapedUnitWidth(text, PDF_FONT_FAMILY, bold);
+      sum += w;
+    }
+    return sum;
+  }
+
+  /** Arabic is shaped first (joined forms), so it is measured whole. */
+  private shapedUnitWidth(text: string, family: string, bold: boolean): number {
+    this.doc.setFont(family, bold ? 'bold' : 'normal');
+    return this.doc.getStringUnitWidth(text);
   }
 
   private glyphWidths(family: string, bold: boolean): Map<number, number> {
