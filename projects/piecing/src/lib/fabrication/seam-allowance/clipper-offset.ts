@@ -2,6 +2,7 @@ import ClipperLib from 'clipper-lib';
 import type { Point } from '../../document/pattern-schema';
 import { CHORD_TOLERANCE_IN, CLIPPER_SCALE, MITRE_LIMIT } from '../../tolerance';
 import { signedArea } from '../../geometry/index';
+import { OutwardRingOffset } from './outward-ring-offset';
 
 /** How offset edges meet at a corner: a sharp mitre (cut off at the mitre limit), a round arc, or squared off. */
 export type OffsetJoin = 'mitre' | 'round' | 'square';
@@ -46,21 +47,37 @@ export function fromIntegerRing(ring: IntegerRing): Point[] {
  */
 export class PolygonOffsetter {
   private readonly offset: ClipperLib.ClipperOffset;
+  private readonly mitreLimit: number;
+  private readonly outward = new OutwardRingOffset();
 
   constructor(options: OffsetOptions = {}) {
     const mitreLimit = options.mitreLimit ?? MITRE_LIMIT;
     const arcToleranceIn = options.arcToleranceIn ?? CHORD_TOLERANCE_IN;
     if (!(mitreLimit >= 1)) throw new RangeError(`mitre limit must be at least 1, got ${mitreLimit}`);
     if (!(arcToleranceIn > 0)) throw new RangeError(`arc tolerance must be a positive number of inches, got ${arcToleranceIn}`);
+    this.mitreLimit = mitreLimit;
     this.offset = new ClipperLib.ClipperOffset(mitreLimit, arcToleranceIn * CLIPPER_SCALE);
   }
 
   /**
    * Offsets integer rings (outer rings and holes, wound opposite ways) by `distanceIn` (outward when
    * positive). Returns the integer result rings; the input is untouched.
+   *
+   * A single ring offset outward with mitre or square joins skips ClipperOffset's closing union when its
+   * raw offset proves to need it only for the loops at concave corners (see {@link OutwardRingOffset});
+   * the result is the same ring.
    */
   offsetIntegerRings(rings: readonly IntegerRing[], distanceIn: number, join: OffsetJoin = 'mitre'): IntegerRing[] {
     if (!Number.isFinite(distanceIn)) throw new RangeError(`offset distance must be a finite number of inches, got ${distanceIn}`);
+    if (rings.length === 1 && distanceIn > 0 && join !== 'round') {
+      const ring = this.outward.offsetIntegerRing(rings[0], this.outwardSettings(distanceIn, join));
+      if (ring) return [ring];
+    }
+    return this.clipperOffset(rings, distanceIn, join);
+  }
+
+  /** ClipperOffset in full: the raw offset, then its union. */
+  private clipperOffset(rings: readonly IntegerRing[], distanceIn: number, join: OffsetJoin): IntegerRing[] {
     this.offset.Clear();
     // clipper-lib copies the points into its own nodes, so the input stays intact.
     this.offset.AddPaths(rings as IntegerRing[], JOIN_TYPES[join], ClipperLib.EndType.etClosedPolygon);
@@ -76,7 +93,13 @@ export class PolygonOffsetter {
    * inward offset leaves nothing.
    */
   offsetPolygon(points: readonly Point[], distanceIn: number, join: OffsetJoin = 'mitre'): Point[] {
-    const rings = this.offsetIntegerRings([toIntegerRing(points)], distanceIn, join);
+    if (!Number.isFinite(distanceIn)) throw new RangeError(`offset distance must be a finite number of inches, got ${distanceIn}`);
+    if (distanceIn > 0 && join !== 'round') {
+      // Straight from inches to the grid and back, without the union where it would change nothing.
+      const ring = this.outward.offsetInchRing(points, CLIPPER_SCALE, this.outwardSettings(distanceIn, join));
+      if (ring) return ring;
+    }
+    const rings = this.clipperOffset([toIntegerRing(points)], distanceIn, join);
     let best: IntegerRing | undefined;
     let bestArea = 0;
     for (const ring of rings) {
@@ -89,6 +112,10 @@ export class PolygonOffsetter {
     if (!best) return [];
     const result = fromIntegerRing(best);
     return Math.sign(signedArea(result)) === Math.sign(signedArea(points)) ? result : result.reverse();
+  }
+
+  private outwardSettings(distanceIn: number, join: OffsetJoin) {
+    return { delta: distanceIn * CLIPPER_SCALE, mitreLimit: this.mitreLimit, squareJoins: join === 'square' };
   }
 }
 
