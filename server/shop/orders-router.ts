@@ -3,10 +3,12 @@ import express, { type Router } from 'express';
 import { pageQuerySchema } from '@seamwright/api';
 import type { AppContext } from '../app-context';
 import { currentUser, requireUser } from '../auth/sessions';
+import type { Data } from '../db/data';
 import { newId } from '../auth/tokens';
 import { HttpError } from '../http/errors';
 import { idSchema, parseOr400 } from '../http/validate';
 import { accessOf, canDesign } from '../services/access';
+import { CheckoutLock } from './checkout-lock';
 import { findPublishedListing } from './listings';
 import { requirePayments, type Payments } from './payments';
 import { orderJson } from './shop-json';
@@ -18,6 +20,7 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
   const { config } = ctx;
   const d = ctx.data;
   const { orders, users } = d.t;
+  const checkoutLock = new CheckoutLock(d);
   const router = express.Router();
   router.use(requireUser);
 
@@ -30,65 +33,66 @@ export function ordersRouter(ctx: AppContext, payments: Payments | null): Router
     if (access === 'owner') throw new HttpError(409, 'This is your own pattern');
     if (access) throw new HttpError(409, 'You have this pattern already', { access });
     const { stripe } = requirePayments(payments);
-    // A checkout still open for this buyer and pattern is offered again, so one purchase is never paid twice.
-    const open = await openCheckout(stripe, user.id, found.pattern.id);
-    if (open) {
-      res.status(200).json({ order: orderJson(open.order), checkoutUrl: open.url });
-      return;
-    }
-    const [order] = await d.db
-      .insert(orders)
-      .values({
-        id: newId(),
-        buyerId: user.id,
-        sellerId: found.pattern.ownerId,
-        patternId: found.pattern.id,
-        patternTitle: found.pattern.title,
-        amountMinor: found.listing.priceMinor,
-        currency: found.currency,
-        status: 'pending',
-        createdAt: new Date(),
-      })
-      .returning();
-    if (!order) throw new HttpError(500, 'Order was not stored');
-    const pattern = encodeURIComponent(found.pattern.id);
-    let session;
-    try {
-      session = await stripe.checkout.sessions.create(
-        {
-          mode: 'payment',
-          line_items: [
-            {
-              quantity: 1,
-              price_data: {
-                currency: found.currency,
-                unit_amount: found.listing.priceMinor,
-                product_data: { name: found.pattern.title, description: `FPP pattern by ${found.designerName}` },
+    // One checkout at a time per buyer and pattern, across instances too (checkout-lock.ts).
+    const answer = await checkoutLock.run(user.id, found.pattern.id, async (db) => {
+      // A checkout still open for this buyer and pattern is offered again, so one purchase is never paid twice.
+      const open = await openCheckout(db, stripe, user.id, found.pattern.id);
+      if (open) return { status: 200, body: { order: orderJson(open.order), checkoutUrl: open.url } };
+      const [order] = await db.db
+        .insert(orders)
+        .values({
+          id: newId(),
+          buyerId: user.id,
+          sellerId: found.pattern.ownerId,
+          patternId: found.pattern.id,
+          patternTitle: found.pattern.title,
+          amountMinor: found.listing.priceMinor,
+          currency: found.currency,
+          status: 'pending',
+          createdAt: new Date(),
+        })
+        .returning();
+      if (!order) throw new HttpError(500, 'Order was not stored');
+      const pattern = encodeURIComponent(found.pattern.id);
+      let session;
+      try {
+        session = await stripe.checkout.sessions.create(
+          {
+            mode: 'payment',
+            line_items: [
+              {
+                quantity: 1,
+                price_data: {
+                  currency: found.currency,
+                  unit_amount: found.listing.priceMinor,
+                  product_data: { name: found.pattern.title, description: `FPP pattern by ${found.designerName}` },
+                },
               },
-            },
-          ],
-          customer_email: user.email,
-          client_reference_id: order.id,
-          metadata: { orderId: order.id, patternId: found.pattern.id, buyerId: user.id },
-          success_url: `${config.publicUrl}/shop/purchases?order=${encodeURIComponent(order.id)}&session_id={CHECKOUT_SESSION_ID}`,
-          cancel_url: `${config.publicUrl}/shop/patterns/${pattern}?cancelled=1`,
-        },
-        { idempotencyKey: `checkout-${order.id}` },
-      );
-    } catch (err) {
-      ctx.log(`checkout session for order ${order.id} failed`, err);
-      await d.db.delete(orders).where(eq(orders.id, order.id));
-      throw new HttpError(502, 'The payment provider could not be reached; nothing was charged, try again');
-    }
-    if (!session.url) throw new HttpError(502, 'The payment provider gave no checkout page');
-    const [stored] = await d.db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning();
-    if (!stored) throw orderNotFound();
-    res.status(201).json({ order: orderJson(stored), checkoutUrl: session.url });
+            ],
+            customer_email: user.email,
+            client_reference_id: order.id,
+            metadata: { orderId: order.id, patternId: found.pattern.id, buyerId: user.id },
+            success_url: `${config.publicUrl}/shop/purchases?order=${encodeURIComponent(order.id)}&session_id={CHECKOUT_SESSION_ID}`,
+            cancel_url: `${config.publicUrl}/shop/patterns/${pattern}?cancelled=1`,
+          },
+          { idempotencyKey: `checkout-${order.id}` },
+        );
+      } catch (err) {
+        ctx.log(`checkout session for order ${order.id} failed`, err);
+        await db.db.delete(orders).where(eq(orders.id, order.id));
+        throw new HttpError(502, 'The payment provider could not be reached; nothing was charged, try again');
+      }
+      if (!session.url) throw new HttpError(502, 'The payment provider gave no checkout page');
+      const [stored] = await db.db.update(orders).set({ checkoutSessionId: session.id }).where(eq(orders.id, order.id)).returning();
+      if (!stored) throw orderNotFound();
+      return { status: 201, body: { order: orderJson(stored), checkoutUrl: session.url } };
+    });
+    res.status(answer.status).json(answer.body);
   });
 
   /** The buyer's newest pending order for the pattern whose checkout session is still open at the provider. */
-  async function openCheckout(stripe: Payments['stripe'], buyerId: string, patternId: string) {
-    const [pending] = await d.db
+  async function openCheckout(db: Data, stripe: Payments['stripe'], buyerId: string, patternId: string) {
+    const [pending] = await db.db
       .select()
       .from(orders)
       .where(and(eq(orders.buyerId, buyerId), eq(orders.patternId, patternId), eq(orders.status, 'pending'), isNotNull(orders.checkoutSessionId)))

@@ -341,6 +341,17 @@ describe('buying', () => {
 });
 
 describe('abandoned and repeated checkouts', () => {
+  it('makes one order and one session of four checkouts asked at the same moment (a double click)', async () => {
+    const dan = await userClient(t.app, 'dan@shop.test', 'quilter');
+    const sessionsBefore = fake.sessions.size;
+    const answers = await Promise.all(Array.from({ length: 4 }, () => dan.post(`/api/shop/listings/${listedId}/checkout`)));
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 200, 201]);
+    expect(new Set(answers.map((r) => r.body.order.id)).size).toBe(1);
+    expect(new Set(answers.map((r) => r.body.checkoutUrl)).size).toBe(1);
+    expect(fake.sessions.size).toBe(sessionsBefore + 1);
+    expect(await count(sql`SELECT count(*) AS n FROM orders WHERE buyer_id = ${dan.user!.id}`)).toBe(1);
+  });
+
   it('offers a checkout still open again instead of a second one, so nobody pays twice', async () => {
     const ruth = await userClient(t.app, 'ruth@shop.test', 'quilter');
     const sessionsBefore = fake.sessions.size;

@@ -105,3 +105,19 @@ describe('one payment event at two instances sharing one database', () => {
     expect(sales.totals).toEqual([{ currency: 'usd', orders: 4, amountMinor: 4400 }]);
   });
 });
+
+describe('one buyer checking out on two instances at the same moment', () => {
+  it('makes one order and one provider session, offered by both', async () => {
+    const email = 'twice@two.test';
+    const onA = await userClient(a.app, email, 'quilter');
+    const onB = await Client.create(b.app);
+    expect((await onB.signIn(email)).status).toBe(200);
+    const sessionsBefore = fake.sessions.size;
+    const answers = await Promise.all([onA, onB, onA, onB].map((c) => c.post(`/api/shop/listings/${patternId}/checkout`)));
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 200, 201]);
+    expect(new Set(answers.map((r) => r.body.order.id)).size).toBe(1);
+    expect(new Set(answers.map((r) => r.body.checkoutUrl)).size).toBe(1);
+    expect(fake.sessions.size).toBe(sessionsBefore + 1);
+    expect(await count(sql`SELECT count(*) AS n FROM orders WHERE buyer_id = ${onA.user!.id}`)).toBe(1);
+  });
+});
