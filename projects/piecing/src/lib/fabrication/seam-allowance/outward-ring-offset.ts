@@ -55,7 +55,7 @@ export class OutwardRingOffset {
   private n = 0;
   /** Whether the source ring was walked backwards to give it positive area. */
   private reversed = false;
-  /** Cleaned ring, then each loop's A, P, B (so one index space serves the segment check). */
+  /** Cleaned ring, then (from loopBase) each loop's A, P, B, so one index space serves the segment check. */
   private px = new Float64Array(256);
   private py = new Float64Array(256);
   /** For each cleaned point, the source edge whose offset arrives at it (-1: the side of a squared corner). */
@@ -64,9 +64,13 @@ export class OutwardRingOffset {
   private loops = new Int32Array(64);
   private m = 0;
   private loopCount = 0;
+  /** Index of the first loop point in px, py. */
+  private loopBase = 0;
   private segA = new Int32Array(256);
   private segB = new Int32Array(256);
   private keys = new Float64Array(256);
+  /** Segment indices sorted by their left ends. */
+  private order = new Int32Array(256);
   /** Each segment's box: min x, max x, min y, max y. */
   private boxes = new Float64Array(1024);
 
@@ -146,9 +150,8 @@ export class OutwardRingOffset {
       this.loops = new Int32Array(2 * capacity);
     }
     const { px, py, arriving, loops } = this;
-    // Loop points go after the cleaned ring's, whose length is known only at the end: keep them apart first.
-    const loopX: number[] = [];
-    const loopY: number[] = [];
+    // Loop points go after room for the longest cleaned ring (two points per source point).
+    const loopBase = 2 * n;
     // ClipperOffset.DoOffset: the squared form of the mitre limit.
     const mitreBound = mitreLimit > 2 ? 2 / (mitreLimit * mitreLimit) : 0.5;
     let m = 0;
@@ -178,8 +181,13 @@ export class OutwardRingOffset {
         px[m] = round(x + (nx[k] + nx[j]) * q);
         py[m] = round(y + (ny[k] + ny[j]) * q);
         arriving[m++] = k;
-        loopX.push(round(x + nx[k] * delta), x, round(x + nx[j] * delta));
-        loopY.push(round(y + ny[k] * delta), y, round(y + ny[j] * delta));
+        const at = loopBase + 3 * (loopCount - 1);
+        px[at] = round(x + nx[k] * delta);
+        py[at] = round(y + ny[k] * delta);
+        px[at + 1] = x;
+        py[at + 1] = y;
+        px[at + 2] = round(x + nx[j] * delta);
+        py[at + 2] = round(y + ny[j] * delta);
       } else if (!squareJoins && r >= mitreBound) {
         // ClipperOffset.DoMiter.
         const q = delta / r;
@@ -198,10 +206,7 @@ export class OutwardRingOffset {
       }
       k = j;
     }
-    for (let i = 0; i < loopX.length; i++) {
-      px[m + i] = loopX[i];
-      py[m + i] = loopY[i];
-    }
+    this.loopBase = loopBase;
     this.m = m;
     this.loopCount = loopCount;
     return this.check();
@@ -232,7 +237,7 @@ export class OutwardRingOffset {
     }
     for (let l = 0; l < loopCount; l++) {
       const x = loops[l];
-      const a = m + 3 * l;
+      const a = this.loopBase + 3 * l;
       const p = a + 1;
       const b = a + 2;
       const next = x + 1 === m ? 0 : x + 1;
@@ -285,23 +290,26 @@ export class OutwardRingOffset {
       keys[s] = minX * shift + s;
     }
     keys.sort();
+    if (this.order.length < count) this.order = new Int32Array(2 * count);
+    const order = this.order;
+    for (let o = 0; o < count; o++) order[o] = indexOf(keys[o], shift);
     for (let oi = 0; oi < count; oi++) {
-      const s = indexOf(keys[oi], shift);
+      const s = order[oi];
       const maxX = boxes[4 * s + 1];
       const minY = boxes[4 * s + 2];
       const maxY = boxes[4 * s + 3];
       // For a loop's segment, its crossing X: the ring edges X − 1 → X and X → X + 1 are not tried against it.
       const xs = s >= m ? loops[(s - m) >> 2] : -1;
       for (let oj = oi + 1; oj < count; oj++) {
-        const t = indexOf(keys[oj], shift);
+        const t = order[oj];
         if (boxes[4 * t] > maxX) break;
-        if (boxes[4 * t + 3] < minY || boxes[4 * t + 2] > maxY) continue;
         if (xs >= 0) {
           if (t >= m || t === xs || t === (xs === 0 ? m - 1 : xs - 1)) continue;
         } else if (t >= m) {
           const xt = loops[(t - m) >> 2];
           if (s === xt || s === (xt === 0 ? m - 1 : xt - 1)) continue;
         }
+        if (boxes[4 * t + 3] < minY || boxes[4 * t + 2] > maxY) continue;
         if (segmentsMeet(px, py, segA[s], segB[s], segA[t], segB[t])) return true;
       }
     }
