@@ -45,6 +45,20 @@ async function waitEnded(c: Client, patternId: string, setId: string, seconds = 
   throw new Error('print set did not finish');
 }
 
+/** Waits until one of the two renders the set and has written progress; that one, the other, and a reader of the set's row. */
+async function whileRendering(a: TestServer, b: TestServer, setId: string) {
+  const { printSets } = a.ctx.data.t;
+  const row = async () => (await a.ctx.data.db.select().from(printSets).where(eq(printSets.id, setId)))[0]!;
+  for (let i = 0; i < 1200; i++) {
+    const r = await row();
+    if (r.status === 'done' || r.status === 'failed') throw new Error(`the set ended before the test could stop its instance: ${r.status}`);
+    const renderer = r.status === 'rendering' && r.progress > 0 ? [a, b].find((s) => s.ctx.printSets.activeCount > 0) : undefined;
+    if (renderer) return { row, renderer, survivor: renderer === a ? b : a };
+    await new Promise((res) => setTimeout(res, 100));
+  }
+  throw new Error('no instance took the set');
+}
+
 async function storedSha(t: TestServer, key: string): Promise<string | undefined> {
   const stream = await t.ctx.files.openRead(key);
   if (!stream) return undefined;
@@ -96,20 +110,9 @@ describe('print jobs on PostgreSQL with two instances', () => {
     // Enough sheets that the render is still going when its instance stops.
     const id = (await owner.post('/api/patterns', { document: manySheetsDocument(40, 'Killed') }).expect(201)).body.pattern.id as string;
     const setId = (await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
-    const { printSets } = a.ctx.data.t;
-    const row = async () => (await a.ctx.data.db.select().from(printSets).where(eq(printSets.id, setId)))[0];
-    // Wait until one instance renders it and has written progress.
-    let renderer: TestServer | undefined;
-    for (let i = 0; i < 1200 && !renderer; i++) {
-      const r = await row();
-      if (r.status === 'rendering' && r.progress > 0) renderer = [a, b].find((s) => s.ctx.printSets.activeCount > 0);
-      if (r.status === 'done' || r.status === 'failed') throw new Error(`the set ended before the test could stop its instance: ${r.status}`);
-      if (!renderer) await new Promise((res) => setTimeout(res, 100));
-    }
-    expect(renderer).toBeDefined();
-    const survivor = renderer === a ? b : a;
+    const { row, renderer, survivor } = await whileRendering(a, b, setId);
     const progressAtKill = (await row()).progress;
-    await renderer!.ctx.printSets.stopAsIfKilled();
+    await renderer.ctx.printSets.stopAsIfKilled();
     // Nothing was stored by the stopped instance: no file, the row still rendering.
     expect(await a.ctx.files.stat(`print-sets/${owner.user!.id}/${setId}.pdf`)).toBeUndefined();
     expect((await row()).status).toBe('rendering');
@@ -120,7 +123,7 @@ describe('print jobs on PostgreSQL with two instances', () => {
     console.log(`stopped at progress ${progressAtKill.toFixed(2)}; finished by the other instance`);
     expect(set.status).toBe('done');
     expect(survivor.ctx.printSets.renders.stored).toBe(1);
-    expect(renderer!.ctx.printSets.renders.stored).toBe(0);
+    expect(renderer.ctx.printSets.renders.stored).toBe(0);
     expect(await storedSha(survivor, `print-sets/${owner.user!.id}/${setId}.pdf`)).toBe(set.sha256);
   }, 300_000);
 
@@ -135,18 +138,8 @@ describe('print jobs on PostgreSQL with two instances', () => {
     const owner = await userClient(a.app, 'owner@given-up.test', 'designer');
     const id = (await owner.post('/api/patterns', { document: manySheetsDocument(40, 'Given up') }).expect(201)).body.pattern.id as string;
     const setId = (await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
-    const { printSets } = a.ctx.data.t;
-    const row = async () => (await a.ctx.data.db.select().from(printSets).where(eq(printSets.id, setId)))[0];
-    let renderer: TestServer | undefined;
-    for (let i = 0; i < 1200 && !renderer; i++) {
-      const r = await row();
-      if (r.status === 'rendering' && r.progress > 0) renderer = [a, b].find((s) => s.ctx.printSets.activeCount > 0);
-      if (r.status === 'done' || r.status === 'failed') throw new Error(`the set ended before the test could stop its instance: ${r.status}`);
-      if (!renderer) await new Promise((res) => setTimeout(res, 100));
-    }
-    expect(renderer).toBeDefined();
-    const survivor = renderer === a ? b : a;
-    await renderer!.ctx.printSets.stopAsIfKilled();
+    const { row, renderer, survivor } = await whileRendering(a, b, setId);
+    await renderer.ctx.printSets.stopAsIfKilled();
     expect((await row()).status).toBe('rendering');
 
     const viaSurvivor = await Client.create(survivor.app);
