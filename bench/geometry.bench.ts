@@ -176,7 +176,7 @@ export default async function geometryBench(): Promise<BenchSection> {
     `Corner split: a convex corner sharper than ${SHARP_BELOW_DEG.toFixed(1)}° has a mitre longer than ${MITRE_LIMIT} × the offset (1 / sin(θ/2), plane geometry). There Clipper squares the corner off at 1 × the offset and JTS bevels it at the limit, so their areas differ by design; inside the limit they differ only by Clipper's rounding to 1/10,000 in.`,
   );
   notes.push(
-    'Concave arc sections are where clipper-lib loses its lead: ClipperOffset adds a small loop at every concave vertex of the inner arc and cleans them with a union, which dominates its time (and its garbage collection). js-angusj-clipper is for reference only; the product keeps clipper-lib.',
+    'clipper-lib is timed through the product\'s PolygonOffsetter: ClipperOffset\'s offset formulas and rounding, with the loop it leaves at every concave vertex (every vertex of an arc section\'s inner arc) replaced by the crossing of the two offset edges, and its closing union left out when a check shows nothing else overlaps (ClipperOffset runs in full otherwise; docs/design-notes.md#seam-allowance). jsts buffers and js-angusj-clipper offsets (with its union) the same rings in inches. js-angusj-clipper is for reference only; the product keeps clipper-lib.',
   );
 
   const pattern = buildStressPattern(1000);
