@@ -596,8 +596,20 @@ export function embedFonts(doc: jsPDF, fonts: PrintFonts & { fallbacks?: readonl
   doc.setFont(PDF_FONT_FAMILY, 'normal');
 }
 
+/** Font files already turned into binary strings: every print set embeds the same few fonts. */
+const binaryStrings = new WeakMap<Uint8Array, { length: number; text: string }>();
+
 /** The bytes as a "binary string" (one char per byte), the form jsPDF's virtual file system takes. */
 function binaryString(bytes: Uint8Array): string {
+  const known = binaryStrings.get(bytes);
+  // The same array with the same length: font bytes are read once and not written to.
+  if (known && known.length === bytes.length) return known.text;
+  const text = binaryStringOf(bytes);
+  binaryStrings.set(bytes, { length: bytes.length, text });
+  return text;
+}
+
+function binaryStringOf(bytes: Uint8Array): string {
   const parts: string[] = [];
   const chunk = 0x8000;
   for (let i = 0; i < bytes.length; i += chunk) {
