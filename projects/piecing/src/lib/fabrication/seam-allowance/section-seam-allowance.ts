@@ -1,7 +1,7 @@
 import type { Point, Section, SectionGeometry } from '../../document/pattern-schema';
 import { CHORD_TOLERANCE_IN } from '../../tolerance';
 import { flattenSectionOutline, flattenSectionRings, signedArea } from '../../geometry/index';
-import { fromIntegerRing, offsetIntegerRings, toIntegerRing, type OffsetOptions } from './clipper-offset';
+import { fromIntegerRing, offsetIntegerRings, PolygonOffsetter, toIntegerRing, type OffsetOptions } from './clipper-offset';
 
 /** Default seam allowance, in inches (common practice: ¼ in.). */
 export const DEFAULT_SEAM_ALLOWANCE_IN = 0.25;
@@ -69,6 +69,11 @@ export function sectionSewingLine(section: Pick<Section, 'geometry'>, chordToler
 function computeSeamAllowance(geometry: SectionGeometry, allowanceIn: number, options: SeamAllowanceOptions): SectionSeamAllowance {
   const tolerance = options.chordToleranceIn ?? CHORD_TOLERANCE_IN;
   const rings = flattenSectionRings(geometry, tolerance);
+  if (rings.holes.length === 0) {
+    // One outline: from inches to the grid and back once, wound like the outline.
+    const cuttingLine = new PolygonOffsetter(options).offsetPolygon(rings.outer, allowanceIn, 'mitre');
+    return { allowanceIn, sewingLine: rings.outer, cuttingLine, holes: [] };
+  }
   const outerSign = Math.sign(signedArea(rings.outer));
   const integerRings = [toIntegerRing(rings.outer), ...rings.holes.map(toIntegerRing)];
   const offsetRings = offsetIntegerRings(integerRings, allowanceIn, 'mitre', options).map(fromIntegerRing);
