@@ -15,14 +15,14 @@ import type { Point } from '../../document/pattern-schema';
  *
  * - every offset edge runs the way its source edge runs (no edge was overrun by its neighbours),
  * - every loop really crosses (its two offset edges pass each other) and is wound like the ring,
- * - the cleaned ring, together with every loop's four sides, has no crossing or touching segments but
- *   the shared corners.
+ * - no segment of the cleaned ring meets another, nor any loop's side, but at shared corners (a loop lies
+ *   along the two ring edges at its crossing, on their inner side, so it is not tried against those).
  *
  * Then the raw ring covers the cleaned ring once and each loop twice, with nothing outside, so its
- * positive-fill union is exactly the cleaned ring, and that is what comes back (collinear points
- * dropped, as the union drops them). When any check fails the caller runs ClipperOffset in full; the
- * answer is the same either way, up to where the crossing point is rounded to the grid (here from the
- * exact offset lines, in the union from the rounded edge ends).
+ * positive-fill union is the cleaned ring, and that is what comes back (collinear points dropped, as the
+ * union drops them). When any check fails the caller runs ClipperOffset in full. The answers agree up to
+ * the grid: the crossing point is rounded here from the exact offset lines, in the union from the rounded
+ * edge ends, and a loop a few grid steps across may stick out of the ring by less than a step.
  */
 
 /** clipper-lib's rounding to its grid: half away from zero (Clipper.Round). */
