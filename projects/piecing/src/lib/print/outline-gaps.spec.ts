@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { Point } from '../document/index';
 import { buildOrchardWheel } from '../demo/index';
-import { polygonArea } from '../geometry/index';
 import { applyAffine } from './affine';
 import type { PrintLayout } from './layout-types';
 import { separated } from './nest-pair';
@@ -10,6 +9,7 @@ import type { PaperName } from './paper';
 import { layoutTemplates } from './plan-print-layout';
 import { buildPrintTemplates } from './print-templates';
 import { ITEM_GAP_IN } from './sheet-frame';
+import { templateOfRing } from './testing/print-test-fixtures';
 import { tileDrawing } from './testing/tile-drawing';
 import type { PrintTemplate } from './template-model';
 
@@ -132,17 +132,5 @@ function shapeArb(): fc.Arbitrary<Omit<PrintTemplate, 'id' | 'sectionId' | 'sect
   ]);
   return fc
     .record({ ring: fc.oneof(arc, wedge, triangle, rect), copies: fc.integer({ min: 1, max: 6 }), freeRotation: fc.boolean() })
-    .map(({ ring, copies, freeRotation }) => ({
-      kind: freeRotation ? ('arc' as const) : ('straight' as const),
-      sewingLine: ring,
-      cuttingLine: ring,
-      seams: [],
-      patches: [],
-      guideLines: [],
-      matchingMarks: [],
-      orientation: { direction: { x: 0, y: -1 }, towards: 'top of block' },
-      freeRotation,
-      copies,
-      areaSqIn: Math.abs(polygonArea(ring)),
-    }));
+    .map(({ ring, copies, freeRotation }) => templateOfRing(ring, copies, freeRotation));
 }

@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { PatternDocument, Point } from '../document/index';
 import { buildOrchardWheel, buildStressPattern } from '../demo/index';
-import { polygonArea } from '../geometry/index';
 import { applyAffine } from './affine';
 import { separated } from './nest-pair';
 import type { RectIn } from './paper';
@@ -11,6 +10,7 @@ import { planPrintLayout } from './render-print-set';
 import { EDGE_SAFE_IN, ITEM_GAP_IN, TEST_BLOCK_GAP_IN, TEST_BLOCK_IN } from './sheet-frame';
 import { buildPrintTemplates } from './print-templates';
 import type { PrintLayout } from './layout-types';
+import { templateOfRing } from './testing/print-test-fixtures';
 import { tileDrawing } from './testing/tile-drawing';
 import type { PrintTemplate } from './template-model';
 
@@ -202,19 +202,7 @@ function templateArb(): fc.Arbitrary<Omit<PrintTemplate, 'id' | 'sectionId' | 's
       copies: fc.integer({ min: 1, max: 3 }),
       freeRotation: fc.boolean(),
     })
-    .map(({ ring, copies, freeRotation }) => ({
-      kind: freeRotation ? ('arc' as const) : ('straight' as const),
-      sewingLine: ring,
-      cuttingLine: ring,
-      seams: [],
-      patches: [],
-      guideLines: [],
-      matchingMarks: [],
-      orientation: { direction: { x: 0, y: -1 }, towards: 'top of block' },
-      freeRotation,
-      copies,
-      areaSqIn: Math.abs(polygonArea(ring)),
-    }));
+    .map(({ ring, copies, freeRotation }) => templateOfRing(ring, copies, freeRotation));
 }
 
 function polar(r: number, a: number): Point {

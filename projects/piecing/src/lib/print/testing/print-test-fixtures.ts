@@ -1,8 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { readPatternDocument, type PatternDocument, type Point } from '../../document/index';
-import { degToRad, pointOnCircle } from '../../geometry/index';
+import { degToRad, pointOnCircle, polygonArea } from '../../geometry/index';
 import type { PrintFonts } from '../print-options';
+import type { PrintTemplate } from '../template-model';
 import { misnumberedStrip } from '../../../../../../tests/fixtures/documents';
 
 /*
@@ -115,4 +116,21 @@ export function testMedallion(): PatternDocument {
 /** The misnumbered strip of the shared fixtures (A2 shares no seam with A1): not sewable as numbered. */
 export function unsewableStrip(): PatternDocument {
   return readPatternDocument(misnumberedStrip());
+}
+
+/** A bare piece template of one cutting line (sewing line the same, no seams or marks), for packing tests. */
+export function templateOfRing(ring: Point[], copies: number, freeRotation: boolean): Omit<PrintTemplate, 'id' | 'sectionId' | 'sectionLabel'> {
+  return {
+    kind: freeRotation ? 'arc' : 'straight',
+    sewingLine: ring,
+    cuttingLine: ring,
+    seams: [],
+    patches: [],
+    guideLines: [],
+    matchingMarks: [],
+    orientation: { direction: { x: 0, y: -1 }, towards: 'top of block' },
+    freeRotation,
+    copies,
+    areaSqIn: Math.abs(polygonArea(ring)),
+  };
 }
