@@ -81,10 +81,7 @@ function checkedOffThread(req: Request): boolean {
  * (bench/save-validation.bench.ts).
  */
 export class DocumentBytes {
-  constructor(
-    readonly chunks: readonly Uint8Array[],
-    readonly length: number,
-  ) {}
+  constructor(readonly chunks: readonly Uint8Array[]) {}
 }
 
 /** The bytes of a body the validation pool checks (chunks, or one Buffer from express.raw); undefined for a parsed body. */
@@ -138,7 +135,7 @@ function readChunks(req: Request, next: (err?: unknown) => void): void {
     req.off('aborted', onAborted);
     req.off('close', onClose);
     if (err) return next(err);
-    req.body = new DocumentBytes(chunks, received);
+    req.body = new DocumentBytes(chunks);
     next();
   };
   // The errors raw-body gives (express.raw): 400 with its types.

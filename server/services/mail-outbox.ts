@@ -99,8 +99,8 @@ export class MailOutbox {
     const { mailOutbox } = this.data.t;
     const isDue = and(isNull(mailOutbox.sentAt), isNull(mailOutbox.failedAt), lte(mailOutbox.nextAttemptAt, new Date(now)));
     // A plain read first: most passes find nothing due and then take no write lock. On SQLite a
-    // transaction's BEGIN IMMEDIATE waits, with the request thread blocked, while the validation pool
-    // stores a large save through its own connection (bench/save-validation.bench.ts).
+    // transaction's BEGIN IMMEDIATE waits (on a timer, server/db/data.ts) while the validation pool
+    // stores a large save through its own connection, and holds up the transactions queued after it.
     if ((await this.data.db.select({ id: mailOutbox.id }).from(mailOutbox).where(isDue).limit(1)).length === 0) return [];
     return this.data.transaction(async (tx) => {
       const due = await tx.lockSkipLocked(
