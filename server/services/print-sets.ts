@@ -539,6 +539,8 @@ export class PrintSetService {
       await boss.complete(PRINT_QUEUE, job.id);
       return;
     }
+    // Names the instance that renders the set in its own log (several instances share one queue).
+    this.log(`print set ${setId}: rendering here (job ${job.id})`);
     this.start(setId, row.createdBy, job.id);
   }
 
