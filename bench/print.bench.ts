@@ -88,8 +88,10 @@ async function medallionChild(which: string): Promise<void> {
 /** Child mode: the stress pattern at one size, render vs the pen alone vs pdfkit in interleaved rounds. */
 async function scaleChild(patches: number): Promise<void> {
   const piecing = await import('../projects/piecing/src/public-api');
-  const { buildStressPattern, recordPenDrawing, replayWithPen, embedFonts } = await import('../projects/piecing/src/testing');
+  const { buildStressPattern, recordPenDrawing, replayWithPen, embedFonts, useFastFlate } = await import('../projects/piecing/src/testing');
   const { jsPDF } = await import('jspdf');
+  // The same writer as the render: jsPDF with the print set's FlateEncode (render-print-set.ts installs it too).
+  useFastFlate(jsPDF.API);
   const PDFDocument = (await import('pdfkit')).default;
   const document = buildStressPattern(patches);
   const fontBytes = await piecing.loadPrintFonts((f) => readFile(join(fontsDir, f)));
@@ -302,7 +304,7 @@ export default async function printBench(): Promise<BenchSection> {
   }
   notes.push(
     'Rounds interleave the three variants (rotating which runs first) after one untimed round (at 10,000 patches the recording render is the only warm-up); the ratio is taken per round against the pen alone in the same round. ' +
-      'Pen alone: the render\'s own pen calls and pages, recorded once (print/testing/pen-recorder.ts) and written on a fresh jsPDF document with embedded Roboto, compressed — the floor for jsPDF. ' +
+      'Pen alone: the render\'s own pen calls and pages, recorded once (print/testing/pen-recorder.ts) and written on a fresh jsPDF document with embedded Roboto, compressed by the same FlateEncode as the render (print/pdf-flate.ts) — the floor for jsPDF. ' +
       'pdfkit: the same recorded calls written with pdfkit (reference only).',
   );
   notes.push('Every stress size runs in its own child process (node --import tsx); the medallion cases render 3 times each in theirs.');

@@ -31,6 +31,7 @@ export { preparePatches, searchSubset, OrderSearch, type SewabilityPatch } from 
 /** The print benchmark's recorder: a render's pen calls, written again with the pen alone or another writer. */
 export { recordPenDrawing, replayWithPen, type PenCall, type PenRecording } from './lib/print/testing/pen-recorder';
 export { embedFonts } from './lib/print/pdf-pen';
+export { useFastFlate } from './lib/print/pdf-flate';
 
 /** Forgets the sheet layout's cached searches, so the sheet-packing benchmark can time a first layout. */
 export { clearLayoutCaches } from './lib/print/plan-print-layout';
