@@ -72,8 +72,10 @@ describe('print jobs on PostgreSQL with two instances', () => {
     const [a, b] = await pair('jobs_once', { PRINT_JOB_POLL_MS: '200' });
     const owner = await userClient(a.app, 'owner@jobs.test', 'designer');
     const other = await userClient(b.app, 'other@jobs.test', 'designer');
-    const mine = (await owner.post('/api/patterns', { document: manySheetsDocument(2, 'Jobs A') }).expect(201)).body.pattern.id as string;
-    const theirs = (await other.post('/api/patterns', { document: manySheetsDocument(2, 'Jobs B') }).expect(201)).body.pattern.id as string;
+    // Sets of some 70 sheets: each render outlasts a poll, so while one instance renders (one thread
+    // each here) the other takes the next job, however quickly a set renders on this machine.
+    const mine = (await owner.post('/api/patterns', { document: manySheetsDocument(25, 'Jobs A') }).expect(201)).body.pattern.id as string;
+    const theirs = (await other.post('/api/patterns', { document: manySheetsDocument(25, 'Jobs B') }).expect(201)).body.pattern.id as string;
     // Four sets asked of A and two of B: either instance takes any of them.
     const asked: [Client, string, string][] = [];
     for (const paper of ['letter', 'a4', 'legal', 'a3']) asked.push([owner, mine, (await owner.post(`/api/patterns/${mine}/print-sets`, { options: { paper } }).expect(202)).body.printSet.id]);
@@ -108,7 +110,7 @@ describe('print jobs on PostgreSQL with two instances', () => {
     });
     const owner = await userClient(a.app, 'owner@killed.test', 'designer');
     // Enough sheets that the render is still going when its instance stops.
-    const id = (await owner.post('/api/patterns', { document: manySheetsDocument(40, 'Killed') }).expect(201)).body.pattern.id as string;
+    const id = (await owner.post('/api/patterns', { document: manySheetsDocument(80, 'Killed') }).expect(201)).body.pattern.id as string;
     const setId = (await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
     const { row, renderer, survivor } = await whileRendering(a, b, setId);
     const progressAtKill = (await row()).progress;
@@ -136,7 +138,7 @@ describe('print jobs on PostgreSQL with two instances', () => {
       PRINT_JOB_POLL_MS: '200',
     });
     const owner = await userClient(a.app, 'owner@given-up.test', 'designer');
-    const id = (await owner.post('/api/patterns', { document: manySheetsDocument(40, 'Given up') }).expect(201)).body.pattern.id as string;
+    const id = (await owner.post('/api/patterns', { document: manySheetsDocument(80, 'Given up') }).expect(201)).body.pattern.id as string;
     const setId = (await owner.post(`/api/patterns/${id}/print-sets`, { options: {} }).expect(202)).body.printSet.id as string;
     const { row, renderer, survivor } = await whileRendering(a, b, setId);
     await renderer.ctx.printSets.stopAsIfKilled();
