@@ -173,6 +173,11 @@ async function writeWithPdfkit(
       case 'clip':
         doc.save().rect(call.rect.x * P, call.rect.y * P, call.rect.width * P, call.rect.height * P).clip();
         break;
+      case 'clipRing':
+        doc.save();
+        path(call.ring as Pt[]);
+        doc.closePath().clip();
+        break;
       case 'unclip':
         doc.restore();
         break;

@@ -11,12 +11,16 @@ import { penHooks, PdfPen } from '../pdf-pen';
 const DRAWING = ['polyline', 'segments', 'rect', 'fillPolygon', 'circle', 'text'] as const;
 type DrawingMethod = (typeof DRAWING)[number];
 
-/** One recorded step: a pen call, a page added or chosen, or the start and end of a clipped stretch. */
+/**
+ * One recorded step: a pen call, a page added or chosen, or the start and end of a clipped stretch
+ * (clipped to a rectangle, or to a polygon: `ring`, inches, y down).
+ */
 export type PenCall =
   | { kind: 'draw'; method: DrawingMethod; args: unknown[] }
   | { kind: 'addPage'; widthPt: number; heightPt: number; orientation: 'portrait' | 'landscape' }
   | { kind: 'setPage'; page: number }
   | { kind: 'clip'; rect: { x: number; y: number; width: number; height: number } }
+  | { kind: 'clipRing'; ring: ReadonlyArray<{ x: number; y: number }> }
   | { kind: 'unclip' };
 
 /** What a recorded render drew: the first page's size (made with the document) and every step after it. */
@@ -49,6 +53,12 @@ export async function recordPenDrawing<T>(run: () => Promise<T>): Promise<{ resu
     pen.clipped = (rect, draw) => {
       calls.push({ kind: 'clip', rect });
       clipped(rect, draw);
+      calls.push({ kind: 'unclip' });
+    };
+    const clippedToRing = pen.clippedToRing.bind(pen);
+    pen.clippedToRing = (ring, draw) => {
+      calls.push({ kind: 'clipRing', ring });
+      clippedToRing(ring, draw);
       calls.push({ kind: 'unclip' });
     };
     const addPage = doc.addPage.bind(doc);
@@ -91,6 +101,14 @@ export function replayWithPen(doc: jsPDF, recording: PenRecording): void {
         case 'clip': {
           let end = i;
           pen.clipped(call.rect, () => {
+            end = run(i + 1);
+          });
+          i = end;
+          break;
+        }
+        case 'clipRing': {
+          let end = i;
+          pen.clippedToRing(call.ring, () => {
             end = run(i + 1);
           });
           i = end;
