@@ -66,10 +66,7 @@ function takesDocument(req: Request): boolean {
  * (server/validation/document-checks.ts). A body of unknown length counts as large.
  */
 function checkedOffThread(req: Request): boolean {
-  const offThread =
-    (req.method === 'PUT' && /^\/patterns\/[^/]+\/?$/.test(req.path)) ||
-    (req.method === 'POST' && (/^\/patterns\/?$/.test(req.path) || /^\/patterns\/[^/]+\/revisions\/?$/.test(req.path)));
-  if (!offThread || Number(req.headers['content-length']) <= INLINE_DOCUMENT_BYTES) return false;
+  if (!takesDocument(req) || Number(req.headers['content-length']) <= INLINE_DOCUMENT_BYTES) return false;
   // Another charset than UTF-8 goes to the JSON parser, which answers 415 as before.
   const charset = /;\s*charset="?([^";\s]+)/i.exec(req.headers['content-type'] ?? '')?.[1];
   return charset === undefined || charset.toLowerCase() === 'utf-8';
