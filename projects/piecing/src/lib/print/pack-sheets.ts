@@ -86,6 +86,22 @@ export function packSheets<T>(
   fill?: SheetFill<T>,
   quick = false,
 ): PackedSheet<T>[] {
+  return packSheetsWithin(items, paper, marginIn, Infinity, outlines, fill, quick)!;
+}
+
+/**
+ * {@link packSheets}, giving up (null) as soon as `maxSheets` sheets are full and items are left: for
+ * trying other pieces against a packing already found, where only fewer sheets would count.
+ */
+export function packSheetsWithin<T>(
+  items: readonly PackItem<T>[],
+  paper: PaperName,
+  marginIn: number,
+  maxSheets: number,
+  outlines?: ItemOutlines<T>,
+  fill?: SheetFill<T>,
+  quick = false,
+): PackedSheet<T>[] | null {
   const frames: Record<SheetOrientation, SheetFrame> = {
     portrait: sheetFrame(paper, 'portrait', marginIn),
     landscape: sheetFrame(paper, 'landscape', marginIn),
@@ -155,6 +171,20 @@ export function packSheets<T>(
       }
     }
     if (!chosen || chosen.tried.placed.length === 0) throw new RangeError('packing made no progress');
+    // Test squares raised into the margin band only where that places more: the same pieces packed with
+    // no room kept for the block may leave room for it among their real outlines, inside the margins.
+    if (outlines && chosen.tried.block.y < chosen.frame.printable.y - 1e-9) {
+      const same = chosen.tried.placed.map((p) => p.item);
+      rescan: for (const logic of LOGICS) for (const stand of STANDS) {
+        const tried = packOne(same, chosen.frame, logic, 'free', stand);
+        if (!tried || tried.placed.length < same.length) continue;
+        const block = 'block' in tried ? tried.block : findBlockSpot(chosen.frame, tried.placed, outlines);
+        if (block) {
+          chosen = { frame: chosen.frame, tried: { placed: tried.placed, block } };
+          break rescan;
+        }
+      }
+    }
     // Boxes by maxrects, then the gaps filled by real outlines.
     const frame = { ...chosen.frame, testBlock: chosen.tried.block };
     const after = remainingAfter(left, chosen.tried.placed.map((p) => p.item), parentOf);
@@ -181,6 +211,7 @@ export function packSheets<T>(
     }
     left = remainingAfter(left, taken, parentOf);
     sheets.push(sheet);
+    if (sheets.length >= maxSheets && left.length > 0) return null;
   }
   return sheets;
 }

@@ -1,7 +1,7 @@
 import type { Point } from '../document/index';
 import { applyAffine, compose, rotation, translation, type Affine } from './affine';
 import type { PlannedSheet, PrintLayout, SheetPlacement, TemplateSummary, TilePlacement } from './layout-types';
-import { packSheets, type PackedItem, type PackItem, type SheetFill } from './pack-sheets';
+import { packSheets, packSheetsWithin, type PackedItem, type PackItem, type SheetFill } from './pack-sheets';
 import { blockRing, findSpot, occupancyGrid, ringsMask, shapeMask, type ShapeMask } from './raster-fill';
 import { boundingRect, clipRingToRect } from './layout-geometry';
 import { printableAreaSqIn, type RectIn } from './paper';
@@ -36,49 +36,9 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   const { paper, marginIn, mirrored, tileOverlapIn } = options;
   const portrait = sheetFrame(paper, 'portrait', marginIn);
   const landscape = sheetFrame(paper, 'landscape', marginIn);
-  const pieces: PackItem<Piece>[] = [];
-  const grids = new Map<string, TileGrid>();
   // Simplified cutting lines (within 0.02 in.) for finding room for the test squares; the gap is widened to match.
   const simple = new Map(templates.map((t) => [t.id, simplifyRing(t.cuttingLine, 0.02)]));
   const outlineOf = (id: string, m: Affine) => simple.get(id)!.map((q) => applyAffine(m, q));
-  for (const template of templates) {
-    if (template.copies < 1) continue;
-    const prepared = prepareTemplate(template, mirrored);
-    const whole = fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape);
-    const grid = whole ? null : cachedTiling(template, mirrored, [portrait, landscape], tileOverlapIn, paper, marginIn);
-    if (grid) grids.set(template.id, grid);
-    const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
-    for (let copy = 1; copy <= template.copies; copy++) {
-      if (pair && copy < template.copies) {
-        const single = (c: number): PackItem<Piece> => ({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy: c }, areaSqIn: template.areaSqIn });
-        pieces.push({
-          width: pair.width,
-          height: pair.height,
-          quarterTurns: true,
-          data: { prepared, copy, pair },
-          areaSqIn: 2 * template.areaSqIn,
-          parts: [single(copy), single(copy + 1)],
-        });
-        copy++;
-        continue;
-      }
-      if (!grid) {
-        pieces.push({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy }, areaSqIn: template.areaSqIn });
-        continue;
-      }
-      for (const tile of grid.tiles) {
-        pieces.push({
-          width: tile.used.width,
-          height: tile.used.height + CAPTION_IN,
-          quarterTurns: false,
-          data: { prepared: grid.prepared, copy, grid, tile },
-          // The first tile of a copy carries the tile map in its sheet's header.
-          keepsHeader: tile === grid.tiles[0],
-        });
-      }
-    }
-  }
-
   const outlines = (p: PackedItem<Piece>): Point[][] => {
     const placements = p.item.data.tile ? [placeTile(p.item.data, p.x, p.y, new Map())] : placeWhole(p.item.data, p.x, p.y, p.turned);
     const rings: Point[][] = [];
@@ -89,7 +49,25 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     }
     return rings;
   };
-  const packed = packSheets(pieces, paper, marginIn, outlines, gapFiller(mirrored, outlines, outlineOf));
+  // Oversize templates: the tilings that pack best on their own, best first.
+  const tilingOptions = new Map<string, TileGrid[]>();
+  for (const template of templates) {
+    if (template.copies < 1) continue;
+    const prepared = prepareTemplate(template, mirrored);
+    if (fitsWhole(prepared, portrait) || fitsWhole(prepared, landscape)) continue;
+    tilingOptions.set(template.id, cachedTilings(template, mirrored, [portrait, landscape], tileOverlapIn, paper, marginIn));
+  }
+  // Shapes of pieces for the gap filler, shared by the packings tried (keyed by tile, pair or turn).
+  const shapes = new Map<string, FillShape>();
+  const pack = (choice: ReadonlyMap<string, number>, maxSheets = Infinity) => {
+    const grids = new Map<string, TileGrid>();
+    for (const [id, options] of tilingOptions) grids.set(id, options[choice.get(id) ?? 0]);
+    const pieces = piecesOf(templates, grids, mirrored, portrait, landscape);
+    const packed = packSheetsWithin(pieces, paper, marginIn, maxSheets, outlines, gapFiller(mirrored, outlines, outlineOf, shapes));
+    return packed && { grids, packed };
+  };
+  const { grids, packed } = chooseTilingsByPacking(templates, options, tilingOptions, pack);
+
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
     for (const p of sheet.items) {
@@ -134,6 +112,102 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
     printableAreaSqIn: areaPerSheet,
     templates: summaries,
   };
+}
+
+/** The pieces to pack: whole copies, nested pairs of copies, and the tiles of oversize templates by `grids`. */
+function piecesOf(templates: readonly PrintTemplate[], grids: ReadonlyMap<string, TileGrid>, mirrored: boolean, portrait: SheetFrame, landscape: SheetFrame): PackItem<Piece>[] {
+  const pieces: PackItem<Piece>[] = [];
+  for (const template of templates) {
+    if (template.copies < 1) continue;
+    const grid = grids.get(template.id);
+    const prepared = grid ? grid.prepared : prepareTemplate(template, mirrored);
+    const pair = !grid && template.copies >= 2 ? nestedPairFor(prepared, mirrored, portrait, landscape) : null;
+    for (let copy = 1; copy <= template.copies; copy++) {
+      if (pair && copy < template.copies) {
+        const single = (c: number): PackItem<Piece> => ({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy: c }, areaSqIn: template.areaSqIn });
+        pieces.push({
+          width: pair.width,
+          height: pair.height,
+          quarterTurns: true,
+          data: { prepared, copy, pair },
+          areaSqIn: 2 * template.areaSqIn,
+          parts: [single(copy), single(copy + 1)],
+        });
+        copy++;
+        continue;
+      }
+      if (!grid) {
+        pieces.push({ width: prepared.width, height: prepared.height, quarterTurns: true, data: { prepared, copy }, areaSqIn: template.areaSqIn });
+        continue;
+      }
+      for (const tile of grid.tiles) {
+        pieces.push({
+          width: tile.used.width,
+          height: tile.used.height + CAPTION_IN,
+          quarterTurns: false,
+          data: { prepared: grid.prepared, copy, grid, tile },
+          // The first tile of a copy carries the tile map in its sheet's header.
+          keepsHeader: tile === grid.tiles[0],
+        });
+      }
+    }
+  }
+  return pieces;
+}
+
+/**
+ * Tilings kept as alternatives to the best one (packed alone) of an oversize template: how a tiling
+ * packs beside the other templates (its small tiles sharing rows with their prints) shows only in the
+ * whole packing, so these few are also packed with everything else.
+ */
+const TILING_ALTERNATIVES = 3;
+/** The whole packing is repeated for other tilings only up to this many pieces (its time grows with them). */
+const JOINT_PIECES_MAX = 80;
+
+/** The tiling picked for each oversize template of a pattern (index into its options), by whole packing. */
+const jointCache = new Map<string, ReadonlyMap<string, number>>();
+const JOINT_CACHE_SIZE = 64;
+
+/**
+ * Packs the pattern with each oversize template's best tiling, then, one template at a time, with
+ * each of its alternatives (the others kept at their pick so far), and keeps the packing with the
+ * fewest sheets (the first such on ties, so the tiling that packs best alone wins unless another
+ * saves a sheet). The pick is cached by pattern and options.
+ */
+function chooseTilingsByPacking<T>(
+  templates: readonly PrintTemplate[],
+  options: LayoutOptions,
+  tilingOptions: ReadonlyMap<string, TileGrid[]>,
+  pack: (choice: ReadonlyMap<string, number>, maxSheets?: number) => { grids: Map<string, TileGrid>; packed: T[] } | null,
+): { grids: Map<string, TileGrid>; packed: T[] } {
+  const open = [...tilingOptions].filter(([, o]) => o.length > 1);
+  const pieceCount = templates.reduce((s, t) => s + (tilingOptions.has(t.id) ? tilingOptions.get(t.id)![0].tiles.length * t.copies : Math.max(0, t.copies)), 0);
+  if (open.length === 0 || pieceCount > JOINT_PIECES_MAX) return pack(new Map())!;
+  const key = [
+    options.paper,
+    options.marginIn,
+    options.tileOverlapIn,
+    options.mirrored ? 1 : 0,
+    ...templates.map((t) => `${t.id}:${t.copies}:${t.freeRotation ? 1 : 0}:${t.cuttingLine.map((p) => `${p.x},${p.y}`).join(';')}`),
+  ].join('|');
+  const known = jointCache.get(key);
+  if (known) return pack(known)!;
+  let choice: ReadonlyMap<string, number> = new Map();
+  let best = pack(choice)!;
+  for (const [id, grids] of open) {
+    for (let i = 1; i < grids.length; i++) {
+      const trial = new Map(choice).set(id, i);
+      // Only a packing on fewer sheets counts: a trial gives up once it has filled as many.
+      const tried = pack(trial, best.packed.length - 1);
+      if (tried) {
+        best = tried;
+        choice = trial;
+      }
+    }
+  }
+  if (jointCache.size >= JOINT_CACHE_SIZE) jointCache.delete(jointCache.keys().next().value!);
+  jointCache.set(key, choice);
+  return best;
 }
 
 /**
@@ -181,39 +255,48 @@ function fitsWhole(p: Pick<PreparedTemplate, 'width' | 'height'>, frame: SheetFr
 export function clearLayoutCaches(): void {
   pairCache.clear();
   tilingCache.clear();
+  jointCache.clear();
   maskCache.clear();
 }
 
-/** Tilings already chosen, by outline, copies and options (the choice is pure and packs trial sheets). */
-const tilingCache = new Map<string, { columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number }>();
+/** Tilings already ranked, by outline, copies and options (the ranking is pure and packs trial sheets). */
+interface TilingSpans {
+  columns: Array<[number, number]>;
+  rows: Array<[number, number]>;
+  turn: number;
+}
+const tilingCache = new Map<string, TilingSpans[]>();
 const TILING_CACHE_SIZE = 256;
 
-function cachedTiling(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid {
+/** The best tilings of an oversize template (see {@link rankTilings}), best first. */
+function cachedTilings(template: PrintTemplate, mirrored: boolean, frames: SheetFrame[], overlapIn: number, paper: PrintOptions['paper'], marginIn: number): TileGrid[] {
   const key = [paper, marginIn, overlapIn, mirrored ? 1 : 0, template.freeRotation ? 1 : 0, template.copies, template.cuttingLine.map((p) => `${p.x},${p.y}`).join(';')].join('|');
   const known = tilingCache.get(key);
-  if (known) return tileGridFromSpans(prepareTemplate(template, mirrored, known.turn), known.columns, known.rows, overlapIn);
-  const { grid, columns, rows, turn } = chooseTiling(template, mirrored, frames, overlapIn, paper, marginIn);
+  if (known) return known.map((k) => tileGridFromSpans(prepareTemplate(template, mirrored, k.turn), k.columns, k.rows, overlapIn));
+  const ranked = rankTilings(template, mirrored, frames, overlapIn, paper, marginIn);
   if (tilingCache.size >= TILING_CACHE_SIZE) tilingCache.delete(tilingCache.keys().next().value!);
-  tilingCache.set(key, { columns, rows, turn });
-  return grid;
+  tilingCache.set(key, ranked.map(({ columns, rows, turn }) => ({ columns, rows, turn })));
+  return ranked.map((r) => r.grid);
 }
 
 /**
- * Picks the tiling that packs onto the fewest sheets (then the fewest tiles, then the least printed
- * area): the smallest equal grids that fit, equal grids a row or column finer (smaller tiles can
+ * Ranks tilings by the sheets they pack onto alone (then the fewest tiles, then the least printed
+ * area) and returns the best, then up to {@link TILING_ALTERNATIVES} − 1 others that pack onto as
+ * few sheets alone with other tile sizes (the same tiling turned a quarter counts once). Candidates:
+ * the smallest equal grids that fit, equal grids a row or column finer (smaller tiles can
  * share sheets), and grids whose first or last row and column are as large as a sheet takes (the
  * rest of the template in fewer, smaller tiles), over the template unturned and turned a quarter.
  * Each candidate's tiles, for every copy, are packed on their own to count its sheets.
  */
-function chooseTiling(
+function rankTilings(
   template: PrintTemplate,
   mirrored: boolean,
   frames: SheetFrame[],
   overlapIn: number,
   paper: PrintOptions['paper'],
   marginIn: number,
-): { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number } {
-  let best: { grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number; sheets: number; count: number; area: number } | null = null;
+): Array<{ grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number }> {
+  const ranked: Array<{ grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number; sheets: number; count: number; area: number }> = [];
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
     // The smallest grid for each sheet orientation and each way of leaving room for the test squares.
@@ -258,13 +341,22 @@ function chooseTiling(
       const sheets = trials ? packSheets(items, paper, marginIn, undefined, undefined, true).length : items.length;
       const count = grid.tiles.length;
       const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
-      const better =
-        !best || sheets < best.sheets || (sheets === best.sheets && (count < best.count || (count === best.count && area < best.area - 1e-9)));
-      if (better) best = { grid, columns, rows, turn, sheets, count, area };
+      ranked.push({ grid, columns, rows, turn, sheets, count, area });
     }
   }
-  if (!best) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
-  return best;
+  if (ranked.length === 0) throw new RangeError(`section ${template.sectionLabel} cannot be tiled on this paper with this margin`);
+  // Stable: among equals the first found stays first.
+  ranked.sort((a, b) => a.sheets - b.sheets || a.count - b.count || (Math.abs(a.area - b.area) > 1e-9 ? a.area - b.area : 0));
+  const kept: typeof ranked = [];
+  const sizes = new Set<string>();
+  for (const r of ranked) {
+    if (kept.length >= TILING_ALTERNATIVES || r.sheets > ranked[0].sheets) break;
+    const key = r.grid.tiles.map((t) => `${t.used.width.toFixed(2)}x${t.used.height.toFixed(2)}`).sort().join(' ');
+    if (sizes.has(key)) continue;
+    sizes.add(key);
+    kept.push(r);
+  }
+  return kept;
 }
 
 /**
@@ -515,9 +607,13 @@ function withBoxes(rings: Point[][]): Array<{ ring: Point[]; box: RectIn }> {
  * wedges and arcs interlock head to tail), at quarter turns for straight sections; tiles never turn.
  * The largest pieces go first, each copy at the first free spot row by row from the top-left.
  */
-function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[][], outlineOf: (id: string, m: Affine) => Point[]): SheetFill<Piece> {
+function gapFiller(
+  mirrored: boolean,
+  outlines: (p: PackedItem<Piece>) => Point[][],
+  outlineOf: (id: string, m: Affine) => Point[],
+  shapes = new Map<string, FillShape>(),
+): SheetFill<Piece> {
   const outlineKeys = new Map<string, string>();
-  const shapes = new Map<string, FillShape>();
   const shapeAt = (prepared: PreparedTemplate, k: number, turns: number): FillShape => {
     const id = prepared.template.id;
     let entry = shapes.get(`${k}/${turns}|${id}`);
@@ -550,7 +646,8 @@ function gapFiller(mirrored: boolean, outlines: (p: PackedItem<Piece>) => Point[
   /** A tile (never turned) or a nested pair (unturned or turned a quarter), its outlines with its box at the origin. */
   const boxShape = (item: PackItem<Piece>, turned: boolean): FillShape => {
     const { prepared, tile } = item.data;
-    const key = tile ? `tile|${prepared.template.id}|${tile.row},${tile.column}` : `pair|${prepared.template.id}|${turned}`;
+    // A tile's key names its cell, so the tilings tried for one template never share a shape.
+    const key = tile ? `tile|${prepared.template.id}|${prepared.turnDeg}|${tile.row},${tile.column}|${[tile.used.x, tile.used.y, tile.used.width, tile.used.height].join(',')}` : `pair|${prepared.template.id}|${turned}`;
     let entry = shapes.get(key);
     if (entry) return entry;
     const [w, h] = turned ? [item.height, item.width] : [item.width, item.height];

@@ -100,7 +100,16 @@ function coverRing(
   if (n < 3) return;
   // Inside: crossings of each row's centre line (even–odd rule, as insideRing).
   const xs: number[] = [];
-  for (let r = 0; r < rows; r++) {
+  let top = Infinity;
+  let bottom = -Infinity;
+  for (const p of ring) {
+    if (p.y < top) top = p.y;
+    if (p.y > bottom) bottom = p.y;
+  }
+  // Only rows whose centre line crosses the ring can hold inside cells.
+  const rFrom = Math.max(0, Math.floor((top - y0) / cell - 0.5));
+  const rTo = Math.min(rows - 1, Math.ceil((bottom - y0) / cell - 0.5));
+  for (let r = rFrom; r <= rTo; r++) {
     const y = y0 + (r + 0.5) * cell;
     xs.length = 0;
     for (let i = 0, j = n - 1; i < n; j = i++) {
