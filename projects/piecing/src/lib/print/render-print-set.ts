@@ -184,8 +184,10 @@ export async function renderPrintSet(
       ...Array.from({ length: extra[0] }, () => ({ subtitle: continuedTitles[0], sectionIds: [] })),
       ...Array.from({ length: extra[1] }, () => ({ subtitle: continuedTitles[1], sectionIds: [] })),
     ];
+    // The finished size is worked out once for the measuring passes and the drawing.
+    const finished = finishedBlockSize(document);
     const coverFacts = (extra: readonly [number, number]) => ({
-      finished: finishedBlockSize(document),
+      finished,
       layout,
       copies: figures,
       pieceTemplates,
