@@ -59,14 +59,16 @@ export function layoutTemplates(templates: readonly PrintTemplate[], options: La
   }
   // Shapes of pieces for the gap filler, shared by the packings tried (keyed by tile, pair or turn).
   const shapes = new Map<string, FillShape>();
+  const gridsOf = (choice: ReadonlyMap<string, number>) => new Map([...tilingOptions].map(([id, grids]) => [id, grids[choice.get(id) ?? 0]]));
   const pack = (choice: ReadonlyMap<string, number>, maxSheets = Infinity) => {
-    const grids = new Map<string, TileGrid>();
-    for (const [id, options] of tilingOptions) grids.set(id, options[choice.get(id) ?? 0]);
+    const grids = gridsOf(choice);
     const pieces = piecesOf(templates, grids, mirrored, portrait, landscape);
     const packed = packSheetsWithin(pieces, paper, marginIn, maxSheets, outlines, gapFiller(mirrored, outlines, outlineOf, shapes));
     return packed && { grids, packed };
   };
-  const { grids, packed } = chooseTilingsByPacking(templates, options, tilingOptions, pack);
+  const quickCount = (choice: ReadonlyMap<string, number>) =>
+    packSheets(piecesOf(templates, gridsOf(choice), mirrored, portrait, landscape), paper, marginIn, undefined, undefined, true).length;
+  const { grids, packed } = chooseTilingsByPacking(templates, options, tilingOptions, pack, quickCount);
 
   const pageOfTile = new Map<string, number>();
   packed.forEach((sheet, i) => {
@@ -172,13 +174,15 @@ const JOINT_CACHE_SIZE = 64;
  * Packs the pattern with each oversize template's best tiling, then, one template at a time, with
  * each of its alternatives (the others kept at their pick so far), and keeps the packing with the
  * fewest sheets (the first such on ties, so the tiling that packs best alone wins unless another
- * saves a sheet). The pick is cached by pattern and options.
+ * saves a sheet). An alternative is packed in full only where a quick packing of boxes alone takes
+ * no more sheets with it than with the pick so far. The pick is cached by pattern and options.
  */
 function chooseTilingsByPacking<T>(
   templates: readonly PrintTemplate[],
   options: LayoutOptions,
   tilingOptions: ReadonlyMap<string, TileGrid[]>,
   pack: (choice: ReadonlyMap<string, number>, maxSheets?: number) => { grids: Map<string, TileGrid>; packed: T[] } | null,
+  quickCount: (choice: ReadonlyMap<string, number>) => number,
 ): { grids: Map<string, TileGrid>; packed: T[] } {
   const open = [...tilingOptions].filter(([, o]) => o.length > 1);
   const pieceCount = templates.reduce((s, t) => s + (tilingOptions.has(t.id) ? tilingOptions.get(t.id)![0].tiles.length * t.copies : Math.max(0, t.copies)), 0);
@@ -195,7 +199,11 @@ function chooseTilingsByPacking<T>(
   let choice: ReadonlyMap<string, number> = new Map();
   let best = pack(choice)!;
   for (const [id, grids] of open) {
+    // A quick packing of boxes alone (one order, one heuristic, no gaps filled) screens the alternatives:
+    // only those that take no more sheets than the current pick that way are packed in full.
+    const quick = grids.map((_, i) => quickCount(new Map(choice).set(id, i)));
     for (let i = 1; i < grids.length; i++) {
+      if (quick[i] > quick[choice.get(id) ?? 0]) continue;
       const trial = new Map(choice).set(id, i);
       // Only a packing on fewer sheets counts: a trial gives up once it has filled as many.
       const tried = pack(trial, best.packed.length - 1);
@@ -297,6 +305,7 @@ function rankTilings(
   marginIn: number,
 ): Array<{ grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number }> {
   const ranked: Array<{ grid: TileGrid; columns: Array<[number, number]>; rows: Array<[number, number]>; turn: number; sheets: number; count: number; area: number }> = [];
+  const packedBySizes = new Map<string, number>();
   for (const turn of [0, Math.PI / 2]) {
     const prepared = prepareTemplate(template, mirrored, turn);
     // The smallest grid for each sheet orientation and each way of leaving room for the test squares.
@@ -336,9 +345,15 @@ function rankTilings(
       const grid = tileGridFromSpans(prepared, columns, rows, overlapIn);
       if (!grid.tiles.every((t) => frames.some((f) => fitsTile(t.used.width, t.used.height + CAPTION_IN, f)))) continue;
       const trials = columns.length * rows.length * template.copies <= 160;
-      const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
-      // A quick packing (one order, one heuristic) ranks the candidates; the real one comes later.
-      const sheets = trials ? packSheets(items, paper, marginIn, undefined, undefined, true).length : items.length;
+      // A quick packing (one order, one heuristic) ranks the candidates; the real one comes later. Tilings
+      // with the same tile sizes (a symmetric template turned a quarter) pack alike: packed once.
+      const sizes = grid.tiles.map((t) => `${t.used.width.toFixed(4)}x${t.used.height.toFixed(4)}`).sort().join(' ');
+      let sheets = trials ? packedBySizes.get(sizes) : grid.tiles.length * template.copies;
+      if (sheets === undefined) {
+        const items = Array.from({ length: template.copies }, () => grid.tiles.map((t) => ({ width: t.used.width, height: t.used.height + CAPTION_IN, quarterTurns: false, data: null }))).flat();
+        sheets = packSheets(items, paper, marginIn, undefined, undefined, true).length;
+        packedBySizes.set(sizes, sheets);
+      }
       const count = grid.tiles.length;
       const area = grid.tiles.reduce((s, t) => s + t.used.width * t.used.height, 0);
       ranked.push({ grid, columns, rows, turn, sheets, count, area });
