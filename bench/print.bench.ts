@@ -14,6 +14,7 @@
  */
 import { execFile } from 'node:child_process';
 import { readFile } from 'node:fs/promises';
+import { loadavg } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
@@ -262,6 +263,7 @@ async function runChild<T>(env: Record<string, string>): Promise<T> {
 export default async function printBench(): Promise<BenchSection> {
   const rows: BenchSection['rows'] = [];
   const notes: string[] = [];
+  const loadAtStart = loadavg()[0];
   for (const patches of SIZES) {
     const r = await runChild<ScaleResult>({ PRINT_BENCH_SCALE: String(patches) });
     const render = r.rounds.variants.find((v) => v.name === 'whole render')!;
@@ -313,6 +315,7 @@ export default async function printBench(): Promise<BenchSection> {
       'pdfkit: the same recorded calls written with pdfkit (reference only).',
   );
   notes.push('Every stress size runs in its own child process (node --import tsx); the medallion cases render 3 times each in theirs.');
+  notes.push(`Load average (1 min) of the shared 2-core machine: ${loadAtStart.toFixed(1)} when this section started, ${loadavg()[0].toFixed(1)} when it ended.`);
   return { title: 'Print sets (PDF)', rows, notes };
 }
 
