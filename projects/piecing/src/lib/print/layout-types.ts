@@ -83,7 +83,7 @@ export interface TilePlacement {
   occupied: boolean[][];
   /** Page numbers of the other tiles of the same copy, by "row,column" key. */
   pageOf: Record<string, number>;
-  /** Whether this tile is the first (top-left-most) of its copy: its sheet carries the tile map. */
+  /** Whether this tile carries its copy's tile map in its sheet's header: the copy's largest tile (the first in reading order among equals). */
   first: boolean;
   /** Alignment marks in sheet inches; the neighbouring tile has the same marks at the same drawing points. */
   alignmentMarks: Point[];

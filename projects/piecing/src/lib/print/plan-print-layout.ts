@@ -148,8 +148,8 @@ function piecesOf(templates: readonly PrintTemplate[], grids: ReadonlyMap<string
           height: tile.used.height + CAPTION_IN,
           quarterTurns: false,
           data: { prepared: grid.prepared, copy, grid, tile },
-          // The first tile of a copy carries the tile map in its sheet's header.
-          keepsHeader: tile === grid.tiles[0],
+          // The copy's map tile carries the tile map in its sheet's header.
+          keepsHeader: tile === mapTile(grid),
         });
       }
     }
@@ -456,6 +456,17 @@ function placeWhole(piece: Piece, x: number, y: number, turned: boolean): SheetP
   ];
 }
 
+/**
+ * The tile whose sheet carries the copy's tile map: the largest (the first in reading order among
+ * equals). A large tile often has a sheet to itself, so copies' maps seldom crowd one header, whose
+ * middle holds only a few.
+ */
+function mapTile(grid: TileGrid): TileCell {
+  let best = grid.tiles[0];
+  for (const t of grid.tiles) if (t.used.width * t.used.height > best.used.width * best.used.height + 1e-9) best = t;
+  return best;
+}
+
 function tileKey(templateId: string, copy: number, tile: { row: number; column: number }): string {
   return `${templateId}#${copy}#${tile.row},${tile.column}`;
 }
@@ -499,7 +510,7 @@ function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, n
       : [{ x: shared.x, y: other.used.y + other.used.height }, { x: shared.x + shared.width, y: other.used.y + other.used.height }];
     joinLines.push({ a: toSheet(edge[0]), b: toSheet(edge[1]), neighbour });
   }
-  const firstTile = grid.tiles[0];
+  const carrier = mapTile(grid);
   return {
     templateId: prepared.template.id,
     sectionLabel: prepared.template.sectionLabel,
@@ -516,7 +527,7 @@ function placeTile(piece: Piece, x: number, y: number, pageOfTile: Map<string, n
       columns: grid.columns,
       occupied,
       pageOf,
-      first: firstTile.row === tile.row && firstTile.column === tile.column,
+      first: carrier.row === tile.row && carrier.column === tile.column,
       alignmentMarks,
       joinLines,
     },

@@ -32,6 +32,10 @@ describe('sheets of the demo medallion and the stress pattern', () => {
     expect(corner.tilesPerCopy).toBe(4);
     const wide = layout.sheets.flatMap((s) => s.placements).filter((p) => p.tile && p.rect.width > 9.99);
     expect(wide).toHaveLength(4);
+    // Each copy's tile map rides on its largest tile, alone on its sheet: no header has to hold two maps
+    // (the header's middle holds only a few, and the first tiles in reading order shared sheets).
+    expect(wide.every((p) => p.tile!.first)).toBe(true);
+    for (const sheet of layout.sheets) expect(sheet.placements.filter((p) => p.tile?.first).length, `tile maps on sheet ${sheet.pageNumber}`).toBeLessThanOrEqual(1);
   });
 
   it('lays the Orchard Wheel medallion on A4 in at most 21 sheets (22 before the tiling was chosen with the whole packing)', () => {
