@@ -33,10 +33,10 @@ describe('templates nested by their outlines keep the cutting gap', () => {
     }
   }
 
-  it('nests the medallion on Letter into 19 sheets and on A4 into 22 (20 and 23 with boxes and pairs of one template)', () => {
+  it('nests the medallion on Letter into 18 sheets and on A4 into 21 (20 and 23 with boxes and pairs of one template, 19 and 22 before the corner tiling was chosen with the whole packing)', () => {
     const count = (paper: PaperName) => layoutTemplates(medallion, { paper, marginIn: 0.5, mirrored: true, tileOverlapIn: 0.5 }).templateSheetCount;
-    expect(count('letter')).toBeLessThanOrEqual(19);
-    expect(count('a4')).toBeLessThanOrEqual(22);
+    expect(count('letter')).toBeLessThanOrEqual(18);
+    expect(count('a4')).toBeLessThanOrEqual(21);
   });
 
   it('puts pieces of different templates into one another’s empty corners on the medallion', () => {
