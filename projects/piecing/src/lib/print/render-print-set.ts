@@ -1,7 +1,8 @@
 import type { jsPDF } from 'jspdf';
 import type { PatternDocument, Section } from '../document/index';
 import { drawCover } from './draw-cover';
-import { drawSheetFrame, drawTileMap, tileMapWidth } from './draw-sheet-frame';
+import { drawSheetFrame } from './draw-sheet-frame';
+import { drawTileMaps } from './draw-tile-maps';
 import { drawPlacement } from './draw-template';
 import { drawSheetNotes } from './draw-sheet-notes';
 import { canonicalJson, pdfDateUtc, stableHash128 } from './deterministic-ids';
@@ -12,7 +13,6 @@ import { layoutTemplates } from './plan-print-layout';
 import { buildPrintTemplates } from './print-templates';
 import { printOptionsSchema, type PrintFonts, type PrintOptions, type PrintOptionsInput } from './print-options';
 import { sheetFrame, type SheetFrame } from './sheet-frame';
-import type { PrintTemplate } from './template-model';
 import { bookletContext, sectionFacts, type BookletContext, type SectionFacts } from './booklet/booklet-context';
 import { BookletWriter } from './booklet/booklet-writer';
 import { drawBookletCover, type ContentsEntry } from './booklet/draw-booklet-cover';
@@ -329,21 +329,4 @@ function addSheet(doc: jsPDF, frame: SheetFrame): void {
 
 function mirrorNote(opts: PrintOptions): string {
   return opts.mirrored ? 'Mirror image (printed side = back of block)' : 'As seen from the front (not mirrored)';
-}
-
-/** Tile maps of the first tiles on a sheet, in the header between the title and the sheet number. */
-function drawTileMaps(pen: PdfPen, frame: SheetFrame, sheet: PlannedSheet, byId: Map<string, PrintTemplate>): void {
-  const firsts = sheet.placements.filter((p) => p.tile?.first);
-  if (firsts.length === 0) return;
-  const height = frame.header.height - 0.06;
-  // Right of the maps: "Sheet n of N" above the mirroring note (about 2.1 in. at 7 pt).
-  let right = frame.header.x + frame.header.width - 2.3;
-  for (const p of firsts) {
-    const label = `${byId.get(p.templateId)!.sectionLabel}${p.copies > 1 ? ` copy ${p.copy}` : ''} tiles:`;
-    const width = tileMapWidth(pen, label, p.tile!, height);
-    const area = { x: right - width, y: frame.header.y + 0.02, width, height };
-    if (area.x < frame.header.x + frame.header.width * 0.45) break;
-    drawTileMap(pen, area, label, p.tile!);
-    right = area.x - 0.15;
-  }
 }
