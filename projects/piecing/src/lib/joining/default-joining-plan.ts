@@ -54,7 +54,8 @@ export function buildDefaultJoiningPlan(ctx: JoiningContext): JoiningPlan {
     const id = newId(`join-${++joinCount}`);
     steps.push({ id, kind: 'join', a: a.id, b: b.id, press: 'a' });
     const merged: Candidate = { id, instances: [...a.instances, ...b.instances], fromCentreIn: Math.min(a.fromCentreIn, b.fromCentreIn), order: Math.min(a.order, b.order) };
-    units = [...units.filter((u) => u !== a && u !== b), merged];
+    units = units.filter((u) => u !== a && u !== b);
+    units.push(merged);
     for (const k of merged.instances) unitOf.set(k, merged);
     return merged;
   };
@@ -86,7 +87,8 @@ export function buildDefaultJoiningPlan(ctx: JoiningContext): JoiningPlan {
     // 2. Join two other parts that meet along one seam, so the centre can grow onto the unit they make
     //    (those that leave no neighbour needing an inset first, then the longest seam).
     let pair: { length: number; u: Candidate; v: Candidate; trapped: number } | undefined;
-    const place = new Map(units.map((u, i) => [u, i]));
+    // Built only when the pair search runs: on larger patterns it would be a map of every part per join.
+    const place = units.length <= PAIR_SEARCH_MAX_UNITS ? new Map(units.map((u, i) => [u, i])) : new Map<Candidate, number>();
     for (const u of units.length <= PAIR_SEARCH_MAX_UNITS ? units : []) {
       if (u === current) continue;
       for (const v of nearUnits(ctx, unitOf, u)) {
@@ -108,10 +110,17 @@ export function buildDefaultJoiningPlan(ctx: JoiningContext): JoiningPlan {
       continue;
     }
     // 3. Nothing joins with one seam: take the longest inset onto the centre unit, else the nearest part.
-    const next = touching?.u ?? units.filter((u) => u !== current).reduce((b, u) => (u.fromCentreIn < b.fromCentreIn ? u : b));
+    const next = touching?.u ?? nearestOther(units, current);
     current = join(current, next);
   }
   return { steps };
+}
+
+/** The part nearest the centre other than `current` (the first of equals), without copying the list. */
+function nearestOther(units: readonly Candidate[], current: Candidate): Candidate {
+  let best: Candidate | undefined;
+  for (const u of units) if (u !== current && (!best || u.fromCentreIn < best.fromCentreIn)) best = u;
+  return best!;
 }
 
 const LOOK_AHEAD_MAX_UNITS = 120;

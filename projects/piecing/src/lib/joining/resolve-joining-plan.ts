@@ -224,7 +224,14 @@ function nearestGap(ctx: JoiningContext, a: readonly number[], b: readonly numbe
   // the order met): kept as they come, without listing every pair (two large units have thousands).
   const pairs: Array<[number, number, number]> = [];
   for (const i of a) {
+    const p = ctx.instances[i].bounds;
     for (const j of b) {
+      if (pairs.length === GAP_PAIRS) {
+        // hypot(dx, dy) is never below the larger of dx and dy: a pair whose larger side is already no
+        // nearer than the sixth pair kept would be passed over below, so skip the hypot.
+        const q = ctx.instances[j].bounds;
+        if (Math.max(0, p.minX - q.maxX, q.minX - p.maxX, p.minY - q.maxY, q.minY - p.maxY) >= pairs[GAP_PAIRS - 1][0]) continue;
+      }
       const gap = boxGap(i, j);
       if (pairs.length === GAP_PAIRS && gap >= pairs[GAP_PAIRS - 1][0]) continue;
       let k = pairs.length;
