@@ -15,12 +15,13 @@ export interface SectionNote {
 /**
  * Writes the designer's notes of the sections on a template sheet in the lowest free band of the
  * sheet (clear of every template, caption and the test squares); when no band is free, in the bottom
- * margin below the printable area. Returns where it wrote them.
+ * margin below the printable area. `avoid`: more boxes to keep clear of (tile maps drawn among the
+ * templates). Returns where it wrote them.
  */
-export function drawSheetNotes(pen: PdfPen, frame: SheetFrame, sheet: PlannedSheet, notes: readonly SectionNote[]): RectIn | null {
+export function drawSheetNotes(pen: PdfPen, frame: SheetFrame, sheet: PlannedSheet, notes: readonly SectionNote[], avoid: readonly RectIn[] = []): RectIn | null {
   if (notes.length === 0) return null;
   const text = notes.map((n) => `Section ${n.label} — designer's note: ${n.note.trim()}`);
-  const obstacles: RectIn[] = [frame.testBlock, ...sheet.placements.flatMap((p) => (p.caption ? [p.rect, p.caption.rect] : [p.rect]))];
+  const obstacles: RectIn[] = [frame.testBlock, ...sheet.placements.flatMap((p) => (p.caption ? [p.rect, p.caption.rect] : [p.rect])), ...avoid];
   const c = frame.content;
   for (const share of [1, 0.5, 0.34]) {
     const width = c.width * share;

@@ -247,12 +247,12 @@ export async function renderPrintSet(
         : {}),
     });
     if (sheet) {
-      drawTileMaps(pen, frame, sheet, byId);
+      const maps = drawTileMaps(pen, frame, sheet, byId).filter((m) => m.where === 'content');
       const notes = heading.sectionIds
         .map((id) => document.sections.find((s) => s.id === id))
         .filter((s) => s?.note?.trim())
         .map((s) => ({ label: s!.label, note: s!.note! }));
-      drawSheetNotes(pen, frame, sheet, notes);
+      drawSheetNotes(pen, frame, sheet, notes, maps.map((m) => m.area));
     }
   }
   await step();
