@@ -32,7 +32,8 @@ export function sectionSeamPressing(section: Section, patches: readonly DerivedP
   return section.seams.map((seam) => {
     const press = seam.press ?? SEAM_PRESS_DEFAULT;
     const lenSq = (seam.b.x - seam.a.x) ** 2 + (seam.b.y - seam.a.y) ** 2;
-    const offLine = (p: { x: number; y: number }) => Math.abs((p.x - seam.a.x) * (seam.b.y - seam.a.y) - (p.y - seam.a.y) * (seam.b.x - seam.a.x)) / Math.sqrt(lenSq);
+    const len = Math.sqrt(lenSq);
+    const offLine = (p: { x: number; y: number }) => Math.abs((p.x - seam.a.x) * (seam.b.y - seam.a.y) - (p.y - seam.a.y) * (seam.b.x - seam.a.x)) / len;
     const stepIndex = verdict.steps.findIndex((step, k) => {
       if (claimed.has(k) || lenSq === 0) return false;
       const mid = { x: (step.from.x + step.to.x) / 2, y: (step.from.y + step.to.y) / 2 };

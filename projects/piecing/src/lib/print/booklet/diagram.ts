@@ -27,16 +27,22 @@ export interface DiagramFit {
   scale: number;
 }
 
+/** A fit into a box, with where it puts the drawing's corner (left, or right when mirrored; top): `map(p)` is that plus {@link scaledRing}'s point. */
+export interface BoxFit extends DiagramFit {
+  x0: number;
+  y0: number;
+}
+
 /**
  * Fits `points` into `box` with `padIn` to spare, centred; mirrored left to right when asked (the
  * printed side of a foundation is the back of the block).
  */
-export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = false, padIn = 0.06): DiagramFit {
+export function fitDiagram(points: readonly Point[], box: RectIn, mirrored = false, padIn = 0.06): BoxFit {
   return fitBounds(polygonBounds(points), box, mirrored, padIn);
 }
 
 /** {@link fitDiagram} for shapes whose bounds are known (one section's patches in each of its step diagrams). */
-export function fitBounds(b: { minX: number; minY: number; maxX: number; maxY: number }, box: RectIn, mirrored = false, padIn = 0.06): DiagramFit {
+export function fitBounds(b: { minX: number; minY: number; maxX: number; maxY: number }, box: RectIn, mirrored = false, padIn = 0.06): BoxFit {
   const w = Math.max(1e-6, b.maxX - b.minX);
   const h = Math.max(1e-6, b.maxY - b.minY);
   const scale = Math.min((box.width - 2 * padIn) / w, (box.height - 2 * padIn) / h);
@@ -44,8 +50,19 @@ export function fitBounds(b: { minX: number; minY: number; maxX: number; maxY: n
   const y0 = box.y + (box.height - h * scale) / 2;
   return {
     scale,
+    x0,
+    y0,
     map: (p) => ({ x: mirrored ? x0 + (b.maxX - p.x) * scale : x0 + (p.x - b.minX) * scale, y: y0 + (p.y - b.minY) * scale }),
   };
+}
+
+/**
+ * A ring as {@link fitBounds} with these bounds, scale and mirroring maps it, less the box's corner: for
+ * shapes drawn in many boxes of one size, scaled once; `{ x: fit.x0 + o.x, y: fit.y0 + o.y }` is then
+ * exactly `fit.map(p)` (the same operations in the same order).
+ */
+export function scaledRing(b: { minX: number; minY: number; maxX: number }, scale: number, mirrored: boolean, ring: readonly Point[]): Point[] {
+  return ring.map((p) => ({ x: mirrored ? (b.maxX - p.x) * scale : (p.x - b.minX) * scale, y: (p.y - b.minY) * scale }));
 }
 
 /** {@link lighten}'s results by amount and colour: a booklet asks for the same few thousands of times. */

@@ -5,7 +5,7 @@ import type { SheetFlow } from '../sheet-flow';
 import { sheetFrame } from '../sheet-frame';
 import { fabricColour, patchMaterial, sectionUses, type BookletContext } from './booklet-context';
 import type { BookletWriter } from './booklet-writer';
-import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitBounds, lighten, normalTowards, type DiagramFit } from './diagram';
+import { DIAGRAM_STYLES, drawShape, fillStripSetPatch, fitBounds, lighten, normalTowards, scaledRing, type DiagramFit } from './diagram';
 import { pressOf, pressWords, type SectionPressing } from './section-pressing';
 
 /** The usual reminders of foundation piecing (common practice). */
@@ -108,6 +108,8 @@ function drawSteps(
   const rank = new Map<number, number>([[patches[0].number, 0]]);
   steps.forEach((s, k) => rank.set(s.patchNumber, k + 1));
   const { texts } = layout;
+  // Every step's box has one size, so one scale: each patch's outline is scaled once and each box adds its corner.
+  let scaled: { scale: number; rings: Point[][] } | undefined;
   layout.rows.forEach((items, row) => {
     // Steps running on onto the next sheet go under the section's heading again.
     if (row > 0 && flow.roomLeft < layout.heights[row]) {
@@ -121,9 +123,11 @@ function drawSteps(
       const fit = fitBounds(bounds, box, ctx.options.mirrored);
       const addedNumber = i === 0 ? patches[0].number : steps[i - 1].patchNumber;
       const sewnBefore = (p: DerivedPatch) => (rank.get(p.number) ?? Infinity) < i;
+      if (!scaled || scaled.scale !== fit.scale) scaled = { scale: fit.scale, rings: patches.map((p) => scaledRing(bounds, fit.scale, ctx.options.mirrored, p.polygon)) };
+      const { rings } = scaled;
       let addedRing: Point[] = [];
-      for (const p of patches) {
-        const ring = p.polygon.map(fit.map);
+      for (const [k, p] of patches.entries()) {
+        const ring = rings[k].map((o) => ({ x: fit.x0 + o.x, y: fit.y0 + o.y }));
         if (p.number === addedNumber) {
           fillPatch(ctx, fit, p, 0, ring);
           addedRing = ring;
