@@ -2,6 +2,7 @@ import type { PlannedSheet } from './layout-types';
 import type { RectIn } from './paper';
 import type { PdfPen } from './pdf-pen';
 import type { SheetFrame } from './sheet-frame';
+import { rectsOverlap, sheetObstacles } from './sheet-obstacles';
 
 const SIZE_PT = 7.5;
 const LINE_IN = (SIZE_PT * 1.3) / 72;
@@ -21,7 +22,7 @@ export interface SectionNote {
 export function drawSheetNotes(pen: PdfPen, frame: SheetFrame, sheet: PlannedSheet, notes: readonly SectionNote[], avoid: readonly RectIn[] = []): RectIn | null {
   if (notes.length === 0) return null;
   const text = notes.map((n) => `Section ${n.label} — designer's note: ${n.note.trim()}`);
-  const obstacles: RectIn[] = [frame.testBlock, ...sheet.placements.flatMap((p) => (p.caption ? [p.rect, p.caption.rect] : [p.rect])), ...avoid];
+  const obstacles: RectIn[] = [...sheetObstacles(frame, sheet), ...avoid];
   const c = frame.content;
   for (const share of [1, 0.5, 0.34]) {
     const width = c.width * share;
@@ -30,7 +31,7 @@ export function drawSheetNotes(pen: PdfPen, frame: SheetFrame, sheet: PlannedShe
     for (let y = c.y + c.height - height; y >= c.y; y -= 0.1) {
       for (let x = c.x; x + width <= c.x + c.width + 1e-9; x += 0.25) {
         const band = { x, y, width, height };
-        if (obstacles.some((o) => overlaps(o, band, 0.06))) continue;
+        if (obstacles.some((o) => rectsOverlap(o, band, 0.06))) continue;
         write(pen, lines, band);
         return band;
       }
@@ -47,8 +48,4 @@ export function drawSheetNotes(pen: PdfPen, frame: SheetFrame, sheet: PlannedShe
 
 function write(pen: PdfPen, lines: readonly string[], band: RectIn): void {
   lines.forEach((line, i) => pen.text(line, { x: band.x + 0.05, y: band.y + 0.04 + LINE_IN * (i + 0.8) }, { sizePt: SIZE_PT, bold: i === 0 || line.startsWith('Section ') }));
-}
-
-function overlaps(a: RectIn, b: RectIn, gap: number): boolean {
-  return a.x < b.x + b.width + gap && b.x < a.x + a.width + gap && a.y < b.y + b.height + gap && b.y < a.y + a.height + gap;
 }

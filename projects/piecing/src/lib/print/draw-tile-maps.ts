@@ -3,6 +3,7 @@ import type { PlannedSheet, SheetPlacement } from './layout-types';
 import type { RectIn } from './paper';
 import type { PdfPen } from './pdf-pen';
 import type { SheetFrame } from './sheet-frame';
+import { rectsOverlap, sheetObstacles } from './sheet-obstacles';
 import type { PrintTemplate } from './template-model';
 
 /** Where one copy's tile map went: in the header, in free room of the content area, or only named in a note. */
@@ -42,7 +43,7 @@ export function drawTileMaps(pen: PdfPen, frame: SheetFrame, sheet: PlannedSheet
     drawn.push({ label, where: 'header', area });
     right = area.x - 0.15;
   }
-  const obstacles: RectIn[] = [frame.testBlock, ...sheet.placements.flatMap((p) => (p.caption ? [p.rect, p.caption.rect] : [p.rect]))];
+  const obstacles = sheetObstacles(frame, sheet);
   const unplaced: string[] = [];
   for (const p of firsts.slice(next)) {
     const label = labelOf(p);
@@ -71,12 +72,8 @@ function freeRoom(room: RectIn, width: number, height: number, obstacles: readon
   for (let y = room.y; y + height <= room.y + room.height + 1e-9; y += 0.05) {
     for (let x = room.x; x + width <= room.x + room.width + 1e-9; x += 0.1) {
       const box = { x, y, width, height };
-      if (!obstacles.some((o) => overlaps(o, box, MAP_GAP_IN))) return box;
+      if (!obstacles.some((o) => rectsOverlap(o, box, MAP_GAP_IN))) return box;
     }
   }
   return null;
-}
-
-function overlaps(a: RectIn, b: RectIn, gap: number): boolean {
-  return a.x < b.x + b.width + gap && b.x < a.x + a.width + gap && a.y < b.y + b.height + gap && b.y < a.y + a.height + gap;
 }

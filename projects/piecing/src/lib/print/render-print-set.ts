@@ -104,7 +104,7 @@ export async function renderPrintSet(
 
   // jsPDF is loaded only when a PDF is written, so pages that import the library for geometry or
   // layout (the board, the cutting list, the sheet preview) do not carry it. Its streams are compressed
-  // by our FlateEncode (pdf-flate.ts: the same bytes as jsPDF's own, built without per-byte strings).
+  // by our FlateEncode (pdf-flate.ts: fflate at a faster level, the string built in chunks).
   const [{ jsPDF: JsPdf }, { useFastFlate }] = await Promise.all([import('jspdf'), import('./pdf-flate')]);
   useFastFlate(JsPdf.API);
   const coverFrame = sheetFrame(opts.paper, 'portrait', opts.marginIn);

@@ -98,19 +98,15 @@ export function replayWithPen(doc: jsPDF, recording: PenRecording): void {
         case 'setPage':
           doc.setPage(call.page);
           break;
-        case 'clip': {
-          let end = i;
-          pen.clipped(call.rect, () => {
-            end = run(i + 1);
-          });
-          i = end;
-          break;
-        }
+        case 'clip':
         case 'clipRing': {
+          // The clipped stretch replays inside the same clip; it ends at its 'unclip'.
           let end = i;
-          pen.clippedToRing(call.ring, () => {
+          const inside = () => {
             end = run(i + 1);
-          });
+          };
+          if (call.kind === 'clip') pen.clipped(call.rect, inside);
+          else pen.clippedToRing(call.ring, inside);
           i = end;
           break;
         }
